@@ -1,0 +1,18 @@
+'use server';
+import { redirect } from 'next/navigation';
+import { publicAction } from '@/lib/server/action';
+import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
+import { resetPassword } from '@/lib/server/services/accounts/reset-password';
+import { kickOutbox } from '@/lib/server/mail/outbox';
+import { getEm } from '@/lib/server/db';
+
+export const requestResetAction = publicAction(async ({ em, ip }, formData) => {
+  await requestPasswordReset({ em, ip, input: { email: formData.get('email') } });
+  kickOutbox(getEm);
+  return { ok: true, message: 'If an account exists for that address, a reset link is on its way. It works once, for one hour.' };
+});
+
+export const resetPasswordAction = publicAction(async ({ em, ip }, formData) => {
+  await resetPassword({ em, ip, input: { token: formData.get('token'), password: formData.get('password') } });
+  redirect('/sign-in?reset=1');
+});

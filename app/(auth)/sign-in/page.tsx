@@ -1,0 +1,19 @@
+import type { Metadata } from 'next';
+import { redirect } from 'next/navigation';
+import { SignInForm } from '@/components/auth/sign-in-form';
+import { getCurrentUser } from '@/lib/server/auth/session';
+import { safeNextPath } from '@/lib/server/safe-redirect';
+
+export const metadata: Metadata = { title: 'Sign in' };
+
+export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string; reset?: string }> }) {
+  const { next, reset } = await searchParams;
+  if (await getCurrentUser()) redirect(safeNextPath(next));
+  return (
+    <>
+      <h1 className="mb-4 text-xl font-semibold">Sign in</h1>
+      {reset ? <p className="mb-3 rounded-[3px] bg-state-soundbg px-3 py-2 text-sm text-state-sound">Your password was changed. Sign in with the new one.</p> : null}
+      <SignInForm next={next} />
+    </>
+  );
+}

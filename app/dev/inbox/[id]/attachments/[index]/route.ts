@@ -1,0 +1,11 @@
+import { getEnv } from '@/lib/server/env';
+
+// GET /dev/inbox/[id]/attachments/[index]: an attachment from the SMTP fake (development and tests only).
+export async function GET(_req: Request, { params }: { params: Promise<{ id: string; index: string }> }) {
+  const env = getEnv();
+  if (env.TIDEWARDEN_ENV === 'production' || !env.FAKE_MAIL_API) return new Response('Not found', { status: 404 });
+  const { id, index } = await params;
+  if (!/^[\w-]+$/.test(id) || !/^\d+$/.test(index)) return new Response('Not found', { status: 404 });
+  const res = await fetch(`${env.FAKE_MAIL_API}/messages/${id}/attachments/${index}`);
+  return new Response(res.body, { status: res.status, headers: { 'content-type': res.headers.get('content-type') ?? 'application/octet-stream', 'content-disposition': res.headers.get('content-disposition') ?? 'attachment' } });
+}

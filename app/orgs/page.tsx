@@ -1,0 +1,69 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { MembershipSchema } from '@/entities';
+import { getEm } from '@/lib/server/db';
+import { requireUser } from '@/lib/server/auth/session';
+import { ROLE_LABELS } from '@/lib/server/permissions';
+import { Panel } from '@/components/ui/panel';
+import { Button } from '@/components/ui/button';
+import { CreateOrganisationForm, ResendVerificationForm } from '@/components/auth/orgs-forms';
+import { signOutAction } from './actions';
+
+export const metadata: Metadata = { title: 'Your organisations' };
+
+export default async function OrgsPage({ searchParams }: { searchParams: Promise<{ verified?: string }> }) {
+  const user = await requireUser('/orgs');
+  const { verified } = await searchParams;
+  const em = await getEm();
+  const memberships = await em.find(MembershipSchema, { user: user.id }, { populate: ['organisation'], orderBy: { organisation: { name: 'asc' } } });
+  return (
+    <div className="min-h-screen bg-paper-sunk">
+      <header className="border-b border-rule bg-paper-raised">
+        <div className="mx-auto flex max-w-3xl items-center justify-between px-6 py-3">
+          <Link href="/" className="text-lg font-semibold tracking-tight text-tide-700">
+            Tidewarden
+          </Link>
+          <form action={signOutAction} className="flex items-center gap-3 text-sm text-ink-soft">
+            <span>{user.email}</span>
+            <Button type="submit" variant="ghost">
+              Sign out
+            </Button>
+          </form>
+        </div>
+      </header>
+      <main className="mx-auto flex max-w-3xl flex-col gap-5 px-6 py-8">
+        {verified ? <p role="status" className="rounded-[3px] border border-state-sound/40 bg-state-soundbg px-3 py-2 text-sm text-state-sound">Thank you: your e-mail address is confirmed.</p> : null}
+        {!user.emailVerified ? (
+          <Panel title="Confirm your e-mail address">
+            <p className="mb-3 text-sm text-ink-soft">
+              We sent a link to <strong>{user.email}</strong>. Open it to confirm the address; then you can create your organisation.
+            </p>
+            <ResendVerificationForm />
+          </Panel>
+        ) : null}
+        <Panel title="Your organisations">
+          {memberships.length ? (
+            <ul className="divide-y divide-rule">
+              {memberships.map((m) => (
+                <li key={m.id} className="flex items-center justify-between py-2">
+                  <Link href={`/o/${m.organisation.slug}`} className="font-medium text-tide-600 hover:underline">
+                    {m.organisation.name}
+                  </Link>
+                  <span className="text-xs text-ink-soft">{ROLE_LABELS[m.role]}</span>
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-sm text-ink-soft">You are not a member of any organisation yet. Create one, or open an invitation you received by e-mail.</p>
+          )}
+        </Panel>
+        {user.emailVerified ? (
+          <Panel title="Create an organisation">
+            <p className="mb-3 text-sm text-ink-soft">A ship owner or manager, a port authority or a CP consultancy: you become its owner and can invite your team.</p>
+            <CreateOrganisationForm />
+          </Panel>
+        ) : null}
+      </main>
+    </div>
+  );
+}

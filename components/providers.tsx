@@ -1,0 +1,9 @@
+'use client';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { useState } from 'react';
+import { makeQueryClient } from '@/lib/client/query-client';
+
+export function Providers({ children }: { children: React.ReactNode }) {
+  const [client] = useState(makeQueryClient);
+  return <QueryClientProvider client={client}>{children}</QueryClientProvider>;
+}

@@ -1,0 +1,18 @@
+import Link from 'next/link';
+
+type Variant = 'primary' | 'secondary' | 'danger' | 'ghost';
+const styles: Record<Variant, string> = {
+  primary: 'bg-tide-600 text-white hover:bg-tide-700 border-tide-700',
+  secondary: 'bg-paper-raised text-ink hover:bg-paper-sunk border-rule-strong',
+  danger: 'bg-paper-raised text-state-overdue hover:bg-state-overduebg border-state-overdue/50',
+  ghost: 'bg-transparent text-tide-600 hover:bg-tide-50 border-transparent',
+};
+const base = 'inline-flex items-center justify-center gap-1.5 rounded-[3px] border px-3 py-1.5 text-sm font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-50';
+
+export function Button({ variant = 'primary', className = '', ...props }: React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
+  return <button className={`${base} ${styles[variant]} ${className}`} {...props} />;
+}
+
+export function ButtonLink({ variant = 'primary', className = '', ...props }: React.ComponentProps<typeof Link> & { variant?: Variant }) {
+  return <Link className={`${base} ${styles[variant]} ${className}`} {...props} />;
+}

@@ -1,0 +1,47 @@
+export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
+  return (
+    <section className={`rounded-[4px] border border-rule bg-paper-raised ${className}`}>
+      {title || actions ? (
+        <header className="flex items-center justify-between gap-3 border-b border-rule px-4 py-2.5">
+          <h2 className="text-sm font-semibold tracking-wide text-ink">{title}</h2>
+          {actions}
+        </header>
+      ) : null}
+      <div className="p-4">{children}</div>
+    </section>
+  );
+}
+
+export function PageHeader({ title, subtitle, actions }: { title: React.ReactNode; subtitle?: React.ReactNode; actions?: React.ReactNode }) {
+  return (
+    <div className="mb-5 flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
+      <div>
+        <h1 className="text-2xl font-semibold text-ink">{title}</h1>
+        {subtitle ? <p className="mt-0.5 text-sm text-ink-soft">{subtitle}</p> : null}
+      </div>
+      {actions ? <div className="flex gap-2">{actions}</div> : null}
+    </div>
+  );
+}
+
+/** Status in words first; the colour is a second cue. */
+export function StatusTag({ tone, children }: { tone: 'sound' | 'due' | 'overdue' | 'under' | 'neutral'; children: React.ReactNode }) {
+  const tones = {
+    sound: 'bg-state-soundbg text-state-sound border-state-sound/30',
+    due: 'bg-state-duebg text-state-due border-state-due/30',
+    overdue: 'bg-state-overduebg text-state-overdue border-state-overdue/30',
+    under: 'bg-state-underbg text-state-under border-state-under/30',
+    neutral: 'bg-paper-sunk text-ink-soft border-rule',
+  };
+  return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>;
+}
+
+export function Caution({ children }: { children?: React.ReactNode }) {
+  return (
+    <aside role="note" className="rounded-[3px] border-l-4 border-brass-500 bg-brass-100 px-3 py-2 text-xs text-brass-700">
+      <strong className="font-semibold">Caution. </strong>
+      {children ??
+        'Results are for preliminary design. Verify against the governing standard and class and local rules; a qualified corrosion engineer must review the design before use.'}
+    </aside>
+  );
+}

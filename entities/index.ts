@@ -1,0 +1,32 @@
+// Every entity, listed explicitly: folder discovery does not work inside the Next bundle.
+import { UserSchema } from './user.entity';
+import { SessionSchema } from './session.entity';
+import { OrganisationSchema } from './organisation.entity';
+import { MembershipSchema } from './membership.entity';
+import { InvitationSchema } from './invitation.entity';
+import { UserTokenSchema } from './user-token.entity';
+import { OutboxMessageSchema } from './outbox-message.entity';
+import { AuditEventSchema } from './audit-event.entity';
+import { SignInAttemptSchema } from './sign-in-attempt.entity';
+
+export * from './user.entity';
+export * from './session.entity';
+export * from './organisation.entity';
+export * from './membership.entity';
+export * from './invitation.entity';
+export * from './user-token.entity';
+export * from './outbox-message.entity';
+export * from './audit-event.entity';
+export * from './sign-in-attempt.entity';
+
+export const allEntities = [
+  UserSchema,
+  SessionSchema,
+  OrganisationSchema,
+  MembershipSchema,
+  InvitationSchema,
+  UserTokenSchema,
+  OutboxMessageSchema,
+  AuditEventSchema,
+  SignInAttemptSchema,
+];

@@ -1,0 +1,20 @@
+import { defineEntity, type InferEntity } from '@mikro-orm/core';
+import { p, uuidPk, createdAt } from './common';
+
+export const OrganisationSchema = defineEntity({
+  name: 'Organisation',
+  tableName: 'organisation',
+  properties: {
+    id: uuidPk(),
+    // The slug is the organisation's part of every URL (/o/[slug]/...).
+    slug: p.string().length(64).unique(),
+    name: p.string().length(120),
+    // Months before a forecast end date by which a renewal must be booked.
+    renewalMarginMonths: p.integer().default(6),
+    // Cost basis for option comparison, per kg of net anode mass fitted.
+    fittingRatePerKg: p.double().nullable(),
+    currency: p.string().length(3).default('EUR'),
+    createdAt: createdAt(),
+  },
+});
+export type Organisation = InferEntity<typeof OrganisationSchema>;

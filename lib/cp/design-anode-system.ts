@@ -1,0 +1,193 @@
+import { drivingVoltageV } from './anode-output';
+import { FULL_STANDOFF_M, MIN_CORRECTED_STANDOFF_M, resistanceOf, type ResistanceDetail } from './anode-resistance';
+import { BASIS_ENTRIES, type BasisKey } from './basis';
+import { surfaceDemandDetail } from './current-demand';
+import { assertCompatible, collectWarnings } from './design-checks';
+import { validateAnode, validateJob, type CheckedJob, type DesignAnode, type DesignInput } from './design-input';
+import { shareOut, type Distribution } from './distribute-anodes';
+import { finalShapeOf } from './end-of-life';
+import { CpInputError } from './errors';
+import { ceilCount, HOURS_PER_YEAR } from './numeric';
+import { ALLOYS, isMagnesium } from './tables/alloys';
+import type { AnodeShape, BasisEntry, BreakdownFactors, CpWarning, CurrentsA, CurrentDrain } from './types';
+
+/**
+ * Below a nanoampere of mean demand there is nothing to size, and the achieved life
+ * (installed charge / mean current) would run off to infinity.
+ */
+export const MIN_MEAN_DEMAND_A = 1e-9;
+
+export type GoverningCriterion = 'mass' | 'initial-current' | 'final-current';
+
+export interface SurfaceResult extends CurrentsA {
+  name: string;
+  areaM2: number;
+  breakdown: BreakdownFactors;
+  drainsCurrent?: CurrentDrain;
+}
+
+export interface PerAnodeResult {
+  initialResistanceOhm: number;
+  finalResistanceOhm: number;
+  initialOutputA: number;
+  finalOutputA: number;
+  initialFormula: ResistanceDetail['formula'];
+  finalFormula: ResistanceDetail['formula'];
+  /** Shape at end of life, from which the final resistance is computed. */
+  finalShape: AnodeShape;
+  /** True when the data-sheet output replaced the computed outputs. */
+  ratedOutputUsed: boolean;
+}
+
+export interface DesignResult {
+  current: CurrentsA;
+  surfaces: SurfaceResult[];
+  requiredNetMassKg: number;
+  drivingVoltageV: number;
+  protectivePotentialV: number;
+  perAnode: PerAnodeResult;
+  /** Counts before rounding up. */
+  exactCountBy: { mass: number; initialCurrent: number; finalCurrent: number };
+  countBy: { mass: number; initialCurrent: number; finalCurrent: number };
+  anodeCount: number;
+  governingCriterion: GoverningCriterion;
+  /** The count the life and mass figures refer to: installedCount when given, else anodeCount. */
+  installedCount: number;
+  installedNetMassKg: number;
+  installedGrossMassKg: number | null;
+  achievedLifeYears: number;
+  distribution: Distribution & { basis: 'initial' | 'mean' | 'final' };
+  warnings: CpWarning[];
+  basis: BasisEntry[];
+}
+
+/**
+ * Sizes a sacrificial-anode system: current demand, net mass, anode resistance and
+ * output at start and end of life, the count by each criterion, distribution over the
+ * surfaces, and warnings. Throws CpInputError for invalid input.
+ */
+export function designAnodeSystem(input: DesignInput): DesignResult {
+  const job = validateJob(input);
+  const anode = validateAnode((input as { anode?: unknown }).anode, 'anode');
+  assertCompatible(job, anode);
+  return computeDesign(job, anode);
+}
+
+/** Design of a validated, compatible job and anode. */
+export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult {
+  const tf = job.designLifeYears;
+  const surfaces = job.surfaces.map((s) => ({ name: s.name, areaM2: s.areaM2, drainsCurrent: s.drainsCurrent, ...surfaceDemandDetail(s, tf) }));
+  const current = totalOf(surfaces);
+  if (!(current.meanA >= MIN_MEAN_DEMAND_A)) {
+    throw new CpInputError(
+      'surfaces',
+      `The surfaces have no mean current demand (${current.meanA} A: zero area, zero current density or a coating that never breaks down): there is nothing to size.`,
+    );
+  }
+  const u = anode.utilisationFactor;
+  const requiredNetMassKg = (current.meanA * tf * HOURS_PER_YEAR) / (u * anode.capacityAhPerKg); // DNV-RP-B401 (2010) sec. 7, anode mass
+  const driving = drivingVoltageV(job.protectivePotentialV, anode.potentialV, 'anode.potentialV');
+  const perAnode = perAnodeOf(job, anode, driving);
+
+  const exactCountBy = {
+    mass: requiredNetMassKg / anode.netMassKg, // DNV-RP-B401 (2010) sec. 7, N*m >= M
+    initialCurrent: current.initialA / perAnode.initialOutputA, // DNV-RP-B401 (2010) sec. 7, N*Iai >= Ici
+    finalCurrent: current.finalA / perAnode.finalOutputA, // DNV-RP-B401 (2010) sec. 7, N*Iaf >= Icf
+  };
+  const countBy = { mass: ceilCount(exactCountBy.mass), initialCurrent: ceilCount(exactCountBy.initialCurrent), finalCurrent: ceilCount(exactCountBy.finalCurrent) };
+  const { anodeCount, governingCriterion } = governing(countBy);
+
+  const installedCount = job.installedCount ?? anodeCount;
+  const installedNetMassKg = installedCount * anode.netMassKg;
+  const achievedLifeYears = (installedNetMassKg * u * anode.capacityAhPerKg) / (current.meanA * HOURS_PER_YEAR); // DNV-RP-B401 (2010) sec. 7, mass equation solved for tf
+  const distBasis = governingCriterion === 'mass' ? 'mean' : governingCriterion === 'initial-current' ? 'initial' : 'final';
+  const demandKey = `${distBasis}A` as const;
+
+  return {
+    current,
+    surfaces,
+    requiredNetMassKg,
+    drivingVoltageV: driving,
+    protectivePotentialV: job.protectivePotentialV,
+    perAnode,
+    exactCountBy,
+    countBy,
+    anodeCount,
+    governingCriterion,
+    installedCount,
+    installedNetMassKg,
+    installedGrossMassKg: anode.grossMassKg === undefined ? null : installedCount * anode.grossMassKg,
+    achievedLifeYears,
+    distribution: {
+      basis: distBasis,
+      ...shareOut(anodeCount, surfaces.map((s) => ({ name: s.name, demandA: s[demandKey] })), current[demandKey]),
+    },
+    warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, initialResistance: resistanceOf(anode.shape, job.resistivityOhmM) }),
+    basis: basisOf(job, anode, perAnode),
+  };
+}
+
+function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAnodeResult {
+  const density = anode.densityKgM3 ?? ALLOYS[anode.alloy].densityKgM3;
+  const finalShape = finalShapeOf(anode.shape, anode.netMassKg, anode.utilisationFactor, density);
+  const initial = resistanceOf(anode.shape, job.resistivityOhmM);
+  const final = resistanceOf(finalShape, job.resistivityOhmM);
+  // A consumed anode cannot resist less than the new one; where the shrunken shape falls
+  // into another formula family (e.g. long flush -> McCoy) the families disagree at their
+  // boundary, so the final resistance is never taken below the initial (conservative).
+  const finalOhm = Math.max(final.ohm, initial.ohm);
+  const rated = anode.ratedOutputA;
+  return {
+    initialResistanceOhm: initial.ohm,
+    finalResistanceOhm: finalOhm,
+    initialOutputA: rated ?? driving / initial.ohm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
+    finalOutputA: rated ?? driving / finalOhm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
+    initialFormula: initial.formula,
+    finalFormula: final.formula,
+    finalShape,
+    ratedOutputUsed: rated !== undefined,
+  };
+}
+
+function totalOf(rows: readonly CurrentsA[]): CurrentsA {
+  let initialA = 0;
+  let meanA = 0;
+  let finalA = 0;
+  for (const r of rows) {
+    initialA += r.initialA;
+    meanA += r.meanA;
+    finalA += r.finalA;
+  }
+  return { initialA, meanA, finalA };
+}
+
+/** The largest count governs; ties go to mass, then initial, then final current. */
+function governing(c: { mass: number; initialCurrent: number; finalCurrent: number }) {
+  const anodeCount = Math.max(c.mass, c.initialCurrent, c.finalCurrent);
+  const governingCriterion: GoverningCriterion =
+    c.mass === anodeCount ? 'mass' : c.initialCurrent === anodeCount ? 'initial-current' : 'final-current';
+  return { anodeCount, governingCriterion };
+}
+
+const FORMULA_BASIS = { 'modified-dwight': 'modifiedDwight', 'short-slender': 'shortSlender', 'long-flush': 'longFlush', mccoy: 'mcCoy' } as const;
+
+function basisOf(job: CheckedJob, anode: DesignAnode, perAnode: PerAnodeResult): BasisEntry[] {
+  const keys = new Set<BasisKey>(['currentDemand', 'anodeMass', 'countCriteria', 'protectionCriteria', 'distribution', 'utilisationTable']);
+  if (job.surfaces.some((s) => s.coating !== 'bare')) keys.add('coatingBreakdown');
+  keys.add(anode.alloy === 'al-zn-in' ? 'alloyAlZnIn' : anode.alloy === 'zinc' ? 'alloyZinc' : 'alloyMagnesium');
+  if (job.protectedMetal === 'high-strength-steel' || job.protectedMetal === 'aluminium' || job.hullMaterial === 'aluminium' || isMagnesium(anode.alloy)) {
+    keys.add('overProtectionLimits');
+  }
+  if (perAnode.ratedOutputUsed) keys.add('ratedOutput');
+  else {
+    keys.add('anodeOutput');
+    keys.add(FORMULA_BASIS[perAnode.initialFormula]);
+    keys.add(FORMULA_BASIS[perAnode.finalFormula]);
+    const s = anode.shape;
+    const standoff = s.kind === 'slender-standoff' ? (s.standoffM ?? FULL_STANDOFF_M) : FULL_STANDOFF_M;
+    if (standoff < FULL_STANDOFF_M) keys.add('standoffFactor');
+    if (standoff < MIN_CORRECTED_STANDOFF_M) keys.add('nearFlushSlender');
+    keys.add(s.kind === 'slender-standoff' ? 'endOfLifeSlender' : 'endOfLifeFlush');
+  }
+  return [...keys].map((k) => ({ ...BASIS_ENTRIES[k] }));
+}

@@ -1,0 +1,122 @@
+/**
+ * Tidewarden cathodic-protection core: pure, synchronous, SI units inside.
+ * Basis: DNV-RP-B401 (2010, amended 2011) with MIL-HDBK-1004/10 for harbour values
+ * (see `basis` and each result's `basis` list).
+ *
+ * Modules
+ * - errors                  CpInputError: the one error for invalid input, with `field`
+ * - basis                   pinned editions; BASIS_ENTRIES for the calculation note
+ * - types                   shared types (shapes, currents, warnings)
+ * - tables/*                reference data with source and flag: current density,
+ *                           coating constants, alloys, utilisation, resistivity,
+ *                           potential limits, harbour, hull, reference electrodes
+ * - lookups                 currentDensityFor, coatingConstantsFor, resistivityFor,
+ *                           climateFromTemperature, depthBandFromDepth, utilisationFactorFor
+ * - coating-breakdown       fc = a + b*t at initial, mean, final
+ * - current-demand          Ic = Ac*fc*ic for one surface
+ * - anode-mass              net mass, remaining life, consumption-rate helpers
+ * - anode-shape             shape validation
+ * - anode-resistance        Dwight / short slender / long flush / McCoy, stand-off rules
+ * - end-of-life             the anode's shape when consumed to its utilisation factor
+ * - anode-output            Ia = (Ec - Ea)/Ra, driving voltage
+ * - wetted-surface          Denny-Mumford and Holtrop-Mennen hull areas
+ * - potentials              reference electrode conversion
+ * - design-input            design input types and validation
+ * - design-checks           invalid combinations (throw) and warnings
+ * - design-anode-system     the full sizing
+ * - distribute-anodes       share a count over surfaces by demand
+ * - anode-model, anode-from-model, builtin-anode-models   catalogue
+ * - compare-options         one job with several models side by side
+ * - impressed-current       output an impressed-current system must deliver
+ * - units                   US-customary conversions for handbook checks
+ * - numeric                 ceilCount (float-safe), HOURS_PER_YEAR
+ */
+export { CpInputError } from './errors';
+export { basis, BASIS_ENTRIES, DNV_RP_B401 } from './basis';
+export type * from './types';
+
+export * from './tables/current-density';
+export * from './tables/coating-constants';
+export * from './tables/alloys';
+export * from './tables/utilisation';
+export * from './tables/resistivity';
+export * from './tables/potential-limits';
+export * from './tables/harbour';
+export * from './tables/hull';
+export * from './tables/reference-electrodes';
+
+export {
+  currentDensityFor,
+  coatingConstantsFor,
+  resistivityFor,
+  climateFromTemperature,
+  depthBandFromDepth,
+  utilisationFactorFor,
+  utilisationCaseOf,
+  CLIMATES,
+  DEPTH_BANDS,
+} from './lookups';
+export { coatingBreakdown, type CoatingBreakdownInput } from './coating-breakdown';
+export { surfaceCurrentDemand, type SurfaceDemandInput } from './current-demand';
+export {
+  netAnodeMassKg,
+  remainingLifeYears,
+  consumptionRateKgPerAYear,
+  capacityFromConsumptionRate,
+  massFromConsumptionRate,
+  type NetMassInput,
+} from './anode-mass';
+export {
+  anodeResistanceOhm,
+  anodeResistanceDetail,
+  modifiedDwightOhm,
+  shortSlenderOhm,
+  longFlushOhm,
+  mcCoyOhm,
+  equivalentRadiusM,
+  FULL_STANDOFF_M,
+  MIN_CORRECTED_STANDOFF_M,
+  STANDOFF_FACTOR,
+  type AnodeResistanceInput,
+  type ResistanceDetail,
+  type ResistanceTreatment,
+} from './anode-resistance';
+export { endOfLifeShape, END_OF_LIFE_LENGTH_FACTOR, MIN_REMAINING_FRACTION, type EndOfLifeInput } from './end-of-life';
+export { anodeCurrentOutputA, type AnodeOutputInput } from './anode-output';
+export {
+  wettedSurfaceDennyMumford,
+  wettedSurfaceHoltropMennen,
+  type HullParticulars,
+  type HoltropMennenParticulars,
+} from './wetted-surface';
+export { convertPotential, type ConvertPotentialInput } from './potentials';
+export {
+  DEFAULT_PROTECTIVE_POTENTIAL_V,
+  type DesignInput,
+  type DesignJob,
+  type DesignAnode,
+  type DesignSurface,
+  type DesignEnvironment,
+} from './design-input';
+export { protectionCriterionV, ALUMINIUM_PASSIVATION_CHLORIDE_PPM, SEAWATER_RESISTIVITY_CEILING_OHM_M } from './design-checks';
+export {
+  designAnodeSystem,
+  type DesignResult,
+  type GoverningCriterion,
+  type PerAnodeResult,
+  type SurfaceResult,
+} from './design-anode-system';
+export { distributeAnodes, type DistributionInput, type Distribution, type DistributionRow } from './distribute-anodes';
+export type { AnodeModel, AnodeMounting, AnodeDimensions } from './anode-model';
+export { anodeFromModel } from './anode-from-model';
+export { BUILTIN_ANODE_MODELS, builtinAnodeModel } from './builtin-anode-models';
+export { compareOptions, type CompareOptionsInput, type OptionRow, type OptionCost } from './compare-options';
+export {
+  impressedCurrentSummary,
+  IMPRESSED_CURRENT_MARGIN,
+  IMPRESSED_CURRENT_RATING_STEP_A,
+  type ImpressedCurrentInput,
+  type ImpressedCurrentSummary,
+} from './impressed-current';
+export { ceilCount, HOURS_PER_YEAR } from './numeric';
+export * from './units';

@@ -1,0 +1,38 @@
+import { z } from 'zod';
+import { ROLES } from '@/lib/roles';
+import { isCommonPassword } from './common-passwords';
+
+export const emailField = z
+  .string({ error: 'Enter your e-mail address.' })
+  .trim()
+  .toLowerCase()
+  .min(1, 'Enter your e-mail address.')
+  .max(254, 'That e-mail address is too long.')
+  .pipe(z.email('Enter a valid e-mail address, such as name@example.com.'));
+
+export const newPasswordField = z
+  .string({ error: 'Choose a password.' })
+  .min(10, 'Use at least 10 characters.')
+  .max(200, 'Use at most 200 characters.')
+  .refine((p) => !isCommonPassword(p), 'That password is too common; choose another.');
+
+export const nameField = z.string({ error: 'Enter your name.' }).trim().min(1, 'Enter your name.').max(120, 'Use at most 120 characters.');
+
+export const roleField = z.enum(ROLES, { error: 'Choose a role.' });
+
+export const signUpSchema = z.object({ name: nameField, email: emailField, password: newPasswordField });
+export const signInSchema = z.object({ email: emailField, password: z.string().min(1, 'Enter your password.').max(200) });
+export const requestResetSchema = z.object({ email: emailField });
+export const resetPasswordSchema = z.object({ token: z.string().min(10).max(200), password: newPasswordField });
+export const changePasswordSchema = z.object({ currentPassword: z.string().min(1, 'Enter your current password.'), password: newPasswordField });
+export const createOrganisationSchema = z.object({
+  name: z.string().trim().min(2, 'Use at least 2 characters.').max(120, 'Use at most 120 characters.'),
+});
+export const inviteMemberSchema = z.object({ email: emailField, role: roleField });
+export const changeRoleSchema = z.object({ membershipId: z.uuid('Unknown member.'), role: roleField });
+export const memberIdSchema = z.object({ membershipId: z.uuid('Unknown member.') });
+export const invitationIdSchema = z.object({ invitationId: z.uuid('Unknown invitation.') });
+export const acceptInvitationNewUserSchema = z.object({ token: z.string().min(10).max(200), name: nameField, password: newPasswordField });
+export const acceptInvitationSchema = z.object({ token: z.string().min(10).max(200) });
+
+export type SignUpInput = z.infer<typeof signUpSchema>;

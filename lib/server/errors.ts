@@ -1,0 +1,59 @@
+import { ZodError } from 'zod';
+
+// One error type for the whole server side; the code decides the HTTP status and what the user sees.
+export type AppErrorCode = 'unauthenticated' | 'forbidden' | 'not-found' | 'conflict' | 'invalid' | 'rate-limited' | 'read-only' | 'payload-too-large' | 'unsupported';
+
+const STATUS: Record<AppErrorCode, number> = {
+  unauthenticated: 401,
+  forbidden: 403,
+  'not-found': 404,
+  conflict: 409,
+  invalid: 422,
+  'rate-limited': 429,
+  'read-only': 423,
+  'payload-too-large': 413,
+  unsupported: 415,
+};
+
+export class AppError extends Error {
+  constructor(
+    readonly code: AppErrorCode,
+    message: string,
+    readonly fieldErrors: Record<string, string[]> = {},
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+  get status() {
+    return STATUS[this.code];
+  }
+}
+
+export const notFound = (what = 'That item') => new AppError('not-found', `${what} was not found.`);
+
+/** The one shape every failure takes on its way to a client. */
+export interface ErrorBody {
+  error: { code: AppErrorCode | 'internal'; message: string; fieldErrors?: Record<string, string[]> };
+}
+
+export function fieldErrorsFromZod(error: ZodError): Record<string, string[]> {
+  const out: Record<string, string[]> = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.join('.') : '_form';
+    (out[key] ??= []).push(issue.message);
+  }
+  return out;
+}
+
+export function toErrorBody(error: unknown): { status: number; body: ErrorBody } {
+  if (error instanceof AppError) {
+    const fieldErrors = Object.keys(error.fieldErrors).length ? error.fieldErrors : undefined;
+    return { status: error.status, body: { error: { code: error.code, message: error.message, fieldErrors } } };
+  }
+  if (error instanceof ZodError) {
+    return { status: 422, body: { error: { code: 'invalid', message: 'Some fields need attention.', fieldErrors: fieldErrorsFromZod(error) } } };
+  }
+  // Unexpected: log the detail for operators, never send it to the client.
+  console.error('[tidewarden] unexpected error', error);
+  return { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on our side; nothing was changed. Please try again.' } } };
+}

@@ -1,0 +1,31 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { MembershipSchema, OrganisationSchema, UserSchema } from '@/entities';
+import { createOrganisationSchema } from '@/lib/schemas/accounts';
+import { AppError } from '../../errors';
+import { audit } from '../../audit';
+import type { CurrentUser } from '../../org-context';
+
+export function slugify(name: string) {
+  const base = name
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 48);
+  return base.length >= 2 ? base : `org-${base}`;
+}
+
+/** Creates an organisation with the user as its first owner. */
+export async function createOrganisation({ em, user, input, ip }: { em: EntityManager; user: CurrentUser; input: unknown; ip?: string | null }) {
+  const { name } = createOrganisationSchema.parse(input);
+  if (!user.emailVerified) throw new AppError('forbidden', 'Confirm your e-mail address before creating an organisation.');
+  const base = slugify(name);
+  let slug = base;
+  for (let n = 2; await em.count(OrganisationSchema, { slug }); n++) slug = `${base}-${n}`;
+  const organisation = em.create(OrganisationSchema, { slug, name });
+  em.create(MembershipSchema, { organisation, user: em.getReference(UserSchema, user.id), role: 'owner' });
+  audit(em, { organisationId: organisation.id, actor: user, action: 'organisation.created', targetType: 'organisation', targetId: organisation.id, details: { name }, ipAddress: ip });
+  await em.flush();
+  return organisation;
+}

@@ -1,0 +1,23 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { addHours, subMinutes } from 'date-fns';
+import { UserSchema, UserTokenSchema } from '@/entities';
+import { requestResetSchema } from '@/lib/schemas/accounts';
+import { newToken, hashToken } from '../../tokens';
+import { enqueueMail } from '../../mail/outbox';
+import { resetPasswordMail } from '../../mail/templates';
+import { audit } from '../../audit';
+import { getEnv } from '../../env';
+
+/** Always answers the same way, so the form does not reveal which addresses have accounts. */
+export async function requestPasswordReset({ em, input, ip }: { em: EntityManager; input: unknown; ip?: string | null }) {
+  const { email } = requestResetSchema.parse(input);
+  const user = await em.findOne(UserSchema, { email });
+  if (!user) return;
+  const recent = await em.count(UserTokenSchema, { user: user.id, kind: 'reset-password', createdAt: { $gte: subMinutes(new Date(), 1) } });
+  if (recent) return;
+  const token = newToken();
+  em.create(UserTokenSchema, { user, kind: 'reset-password', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 1) });
+  enqueueMail(em, { to: user.email, ...resetPasswordMail(user.name, `${getEnv().APP_URL}/reset/${token}`) });
+  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset-requested', ipAddress: ip });
+  await em.flush();
+}

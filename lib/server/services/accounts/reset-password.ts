@@ -1,0 +1,20 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { SessionSchema } from '@/entities';
+import { resetPasswordSchema } from '@/lib/schemas/accounts';
+import { hashPassword } from '../../auth/password';
+import { audit } from '../../audit';
+import { consumeUserToken } from './use-user-token';
+
+/** Sets a new password from an e-mailed token and signs the user out everywhere. */
+export async function resetPassword({ em, input, ip }: { em: EntityManager; input: unknown; ip?: string | null }) {
+  const { token, password } = resetPasswordSchema.parse(input);
+  const row = await consumeUserToken(em, 'reset-password', token);
+  const user = row.user;
+  user.passwordHash = await hashPassword(password);
+  // The link proved the mailbox, so the address counts as confirmed.
+  user.emailVerifiedAt ??= new Date();
+  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset', ipAddress: ip });
+  await em.flush();
+  await em.nativeDelete(SessionSchema, { user: user.id });
+  return user;
+}

@@ -1,0 +1,32 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { addHours } from 'date-fns';
+import { UserSchema, UserTokenSchema } from '@/entities';
+import { signUpSchema } from '@/lib/schemas/accounts';
+import { AppError } from '../../errors';
+import { hashPassword } from '../../auth/password';
+import { newToken, hashToken } from '../../tokens';
+import { enqueueMail } from '../../mail/outbox';
+import { verifyEmailMail } from '../../mail/templates';
+import { audit } from '../../audit';
+import { getEnv } from '../../env';
+
+export async function signUp({ em, input, ip }: { em: EntityManager; input: unknown; ip?: string | null }) {
+  const data = signUpSchema.parse(input);
+  if (await em.count(UserSchema, { email: data.email })) {
+    throw new AppError('conflict', 'An account with this e-mail address already exists.', {
+      email: ['An account with this e-mail address already exists. Sign in, or reset the password.'],
+    });
+  }
+  const user = em.create(UserSchema, { email: data.email, name: data.name, passwordHash: await hashPassword(data.password), emailVerifiedAt: null });
+  queueVerification(em, user);
+  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.signed-up', targetType: 'user', targetId: user.id, ipAddress: ip });
+  await em.flush();
+  return user;
+}
+
+export function queueVerification(em: EntityManager, user: { id: string; email: string; name: string }) {
+  const token = newToken();
+  em.create(UserTokenSchema, { user: em.getReference(UserSchema, user.id), kind: 'verify-email', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 24) });
+  const mail = verifyEmailMail(user.name, `${getEnv().APP_URL}/verify/${token}`);
+  enqueueMail(em, { to: user.email, ...mail });
+}

@@ -1,0 +1,11 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { audit } from '../../audit';
+import { consumeUserToken } from './use-user-token';
+
+export async function verifyEmail({ em, token }: { em: EntityManager; token: string }) {
+  const row = await consumeUserToken(em, 'verify-email', token);
+  row.user.emailVerifiedAt ??= new Date();
+  audit(em, { actor: { id: row.user.id, email: row.user.email }, action: 'user.email-verified', targetType: 'user', targetId: row.user.id });
+  await em.flush();
+  return row.user;
+}

@@ -1,0 +1,38 @@
+import { addDays } from 'date-fns';
+import { InvitationSchema, MembershipSchema, UserSchema } from '@/entities';
+import { inviteMemberSchema } from '@/lib/schemas/accounts';
+import { AppError } from '../../errors';
+import { newToken, hashToken } from '../../tokens';
+import { enqueueMail } from '../../mail/outbox';
+import { invitationMail } from '../../mail/templates';
+import { audit } from '../../audit';
+import { getEnv } from '../../env';
+import { ROLE_LABELS } from '../../permissions';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+
+export const INVITATION_DAYS = 7;
+
+export async function inviteMember(ctx: OrgContext, input: unknown) {
+  requirePermission(ctx, 'team:manage');
+  const { email, role } = inviteMemberSchema.parse(input);
+  const { em, organisation } = ctx;
+  const existingUser = await em.findOne(UserSchema, { email });
+  if (existingUser && (await em.count(MembershipSchema, { organisation, user: existingUser }))) {
+    throw new AppError('conflict', 'That person is already a member.', { email: ['That person is already a member of this organisation.'] });
+  }
+  // A new invitation replaces any open one for the same address.
+  await em.nativeUpdate(InvitationSchema, { organisation, email, acceptedAt: null, revokedAt: null }, { revokedAt: new Date() });
+  const token = newToken();
+  const invitation = em.create(InvitationSchema, {
+    organisation,
+    email,
+    role,
+    tokenHash: hashToken(token),
+    invitedBy: em.getReference(UserSchema, ctx.user.id),
+    expiresAt: addDays(new Date(), INVITATION_DAYS),
+  });
+  enqueueMail(em, { to: email, organisationId: organisation.id, ...invitationMail(organisation.name, ctx.user.name, ROLE_LABELS[role], `${getEnv().APP_URL}/invite/${token}`) });
+  audit(em, { organisationId: organisation.id, actor: actorOf(ctx), action: 'member.invited', targetType: 'invitation', targetId: invitation.id, details: { email, role }, ipAddress: ctx.ip });
+  await em.flush();
+  return { invitation, token };
+}

@@ -1,0 +1,58 @@
+// The stack both commands bring up: database, migrations, seed, fakes, app. Plain Node.
+import fs from 'node:fs';
+import path from 'node:path';
+import { root, say, startCluster, runTs, startTsChild, waitForPort, requireFreePort, buildIfStale, startNext } from './bootstrap.mjs';
+
+export function demoSignIns() {
+  return JSON.parse(fs.readFileSync(path.join(root, 'scripts', 'demo-sign-ins.json'), 'utf8'));
+}
+
+/**
+ * @param {{ mode: 'development'|'test', ports: { app:number, pg:number, smtp:number, mailApi:number, stripe:number },
+ *           cluster: string, database: string, freshDatabase: boolean, distDir: string }} options
+ */
+export async function bringUp(options) {
+  const { ports } = options;
+  await requireFreePort(ports.app, 'the web app', options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT');
+  await requireFreePort(ports.smtp, 'the SMTP fake', 'FAKE_SMTP_PORT');
+  await requireFreePort(ports.mailApi, 'the SMTP fake inbox', 'FAKE_MAIL_API_PORT');
+
+  let databaseUrl = options.mode === 'development' ? process.env.DATABASE_URL : undefined;
+  let cluster = null;
+  if (databaseUrl) {
+    say('DATABASE_URL is set: using that PostgreSQL, no local cluster.');
+  } else {
+    cluster = await startCluster({ name: options.cluster, port: ports.pg });
+    await cluster.ensureDatabase(options.database, { fresh: options.freshDatabase });
+    databaseUrl = cluster.urlFor(options.database);
+  }
+
+  const appUrl = `http://127.0.0.1:${ports.app}`;
+  const env = {
+    ...process.env,
+    TIDEWARDEN_ENV: options.mode,
+    DATABASE_URL: databaseUrl,
+    APP_URL: process.env.APP_URL && options.mode === 'development' ? process.env.APP_URL : appUrl,
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(ports.smtp),
+    FAKE_SMTP_PORT: String(ports.smtp),
+    FAKE_MAIL_API_PORT: String(ports.mailApi),
+    FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
+    FAKE_STRIPE_PORT: String(ports.stripe),
+    NEXT_TELEMETRY_DISABLED: '1',
+  };
+
+  say('Migrating the database...');
+  runTs('scripts/migrate.ts', ['up'], env, 'The database migration failed; see the message above.');
+  runTs('scripts/seed.ts', [], env, 'Seeding the demo scenario failed; see the message above.');
+
+  const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env);
+  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp);
+
+  startTsChild('worker', 'scripts/worker.ts', env);
+
+  buildIfStale(options.distDir, env);
+  const next = startNext(options.distDir, ports.app, env);
+  await waitForPort(ports.app, 'The web app', 60_000, next);
+  return { env, appUrl, cluster };
+}

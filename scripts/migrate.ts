@@ -1,0 +1,37 @@
+// Migration runner: `tsx scripts/migrate.ts up` applies pending migrations;
+// `tsx scripts/migrate.ts create [name]` writes a new one from the entity/schema difference.
+import { MikroORM } from '@mikro-orm/postgresql';
+import { ormConfig } from '../mikro-orm.config';
+
+async function main() {
+  const command = process.argv[2] ?? 'up';
+  const url = process.env.DATABASE_URL;
+  if (!url) {
+    console.error('DATABASE_URL is not set; run this through `npm start` or set it to a postgres:// URL.');
+    process.exit(2);
+  }
+  const orm = await MikroORM.init(ormConfig(url, { discovery: { disableDynamicFileAccess: false } }));
+  try {
+    const migrator = orm.getMigrator();
+    if (command === 'up') {
+      const done = await migrator.up();
+      console.log(done.length ? `Applied ${done.length} migration(s): ${done.map((m) => m.name).join(', ')}` : 'Database schema is up to date.');
+    } else if (command === 'create') {
+      const result = await migrator.createMigration('migrations', false, false, process.argv[3]);
+      console.log(result.fileName ? `Wrote migrations/${result.fileName}; add it to migrations/index.ts.` : 'No schema changes.');
+    } else if (command === 'pending') {
+      const pending = await migrator.getPendingMigrations();
+      console.log(pending.map((m) => m.name).join('\n') || 'none');
+    } else {
+      console.error(`Unknown command "${command}". Use up, create or pending.`);
+      process.exitCode = 2;
+    }
+  } finally {
+    await orm.close(true);
+  }
+}
+
+main().catch((error) => {
+  console.error(`Migration failed: ${error instanceof Error ? error.message : String(error)}`);
+  process.exit(1);
+});
