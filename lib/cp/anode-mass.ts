@@ -1,5 +1,5 @@
 import { HOURS_PER_YEAR } from './numeric';
-import { nonNegative, positive, unitFraction } from './validate';
+import { assertFiniteResult, nonNegative, positive, unitFraction } from './validate';
 
 export interface NetMassInput {
   meanCurrentA: number;
@@ -14,7 +14,7 @@ export function netAnodeMassKg(input: NetMassInput): number {
   const tf = positive(input?.designLifeYears, 'designLifeYears', 'years');
   const u = unitFraction(input?.utilisationFactor, 'utilisationFactor');
   const eps = positive(input?.capacityAhPerKg, 'capacityAhPerKg', 'Ah/kg');
-  return (icm * tf * HOURS_PER_YEAR) / (u * eps); // DNV-RP-B401 (2010) sec. 7, M = Icm*tf*8760/(u*eps)
+  return assertFiniteResult((icm * tf * HOURS_PER_YEAR) / (u * eps), 'meanCurrentA'); // DNV-RP-B401 (2010) sec. 7, M = Icm*tf*8760/(u*eps)
 }
 
 /** Years an anode mass lasts at a current: Y = eps*W/(8760*I) (handbook practice, published). */
@@ -22,7 +22,7 @@ export function remainingLifeYears(input: { remainingMassKg: number; capacityAhP
   const w = nonNegative(input?.remainingMassKg, 'remainingMassKg', 'kg');
   const eps = positive(input?.capacityAhPerKg, 'capacityAhPerKg', 'Ah/kg');
   const i = positive(input?.currentA, 'currentA', 'A');
-  return (eps * w) / (HOURS_PER_YEAR * i);
+  return assertFiniteResult((eps * w) / (HOURS_PER_YEAR * i), 'remainingMassKg');
 }
 
 /** Consumption rate, kg per ampere-year, of an alloy of a given capacity (8760/eps). */
@@ -44,5 +44,5 @@ export function massFromConsumptionRate(input: { currentA: number; years: number
   const years = positive(input?.years, 'years', 'years');
   const rate = positive(input?.kgPerAYear, 'kgPerAYear', 'kg/A-yr');
   const eff = unitFraction(input?.efficiency, 'efficiency');
-  return (i * years * rate) / eff;
+  return assertFiniteResult((i * years * rate) / eff, 'currentA');
 }

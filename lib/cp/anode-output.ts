@@ -1,5 +1,5 @@
 import { CpInputError } from './errors';
-import { finite, positive } from './validate';
+import { assertFiniteResult, finite, positive } from './validate';
 
 export interface AnodeOutputInput {
   /** Design protective potential Ec, V vs Ag/AgCl/seawater (e.g. -0.80). */
@@ -15,7 +15,7 @@ export function anodeCurrentOutputA(input: AnodeOutputInput): number {
   const ea = finite(input?.anodePotentialV, 'anodePotentialV', 'V');
   const ra = positive(input?.resistanceOhm, 'resistanceOhm', 'ohm');
   const driving = drivingVoltageV(ec, ea, 'anodePotentialV');
-  return driving / ra; // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
+  return assertFiniteResult(driving / ra, 'resistanceOhm'); // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
 }
 
 /** Ec - Ea, V; throws when the anode is not more active than the protective potential. */

@@ -1,7 +1,7 @@
 import { validateShape } from './anode-shape';
 import { isLongFlushValid } from './lookups';
 import type { AnodeShape, LongFlushShape, McCoyShape, ResistanceFormula, SlenderStandoffShape } from './types';
-import { positive, record } from './validate';
+import { assertFiniteResult, positive, record } from './validate';
 
 /** Stand-off at and above which the slender formulas hold, m (El-Reedy (2012) ch. 6). */
 export const FULL_STANDOFF_M = 0.3;
@@ -37,7 +37,9 @@ export function anodeResistanceOhm(input: AnodeResistanceInput): number {
 export function anodeResistanceDetail(input: AnodeResistanceInput): ResistanceDetail {
   const r = record(input, 'input');
   const rho = positive(r.resistivityOhmM, 'resistivityOhmM', 'ohm m');
-  return resistanceOf(validateShape(r.shape, 'shape'), rho);
+  const detail = resistanceOf(validateShape(r.shape, 'shape'), rho);
+  if (!(detail.ohm > 0) || !Number.isFinite(detail.ohm)) assertFiniteResult(Number.NaN, 'shape');
+  return detail;
 }
 
 /** Unchecked core for a validated shape. */
@@ -59,8 +61,10 @@ export function modifiedDwightOhm(rho: number, lengthM: number, radiusM: number)
 export function shortSlenderOhm(rho: number, lengthM: number, radiusM: number): number {
   const x = radiusM / (2 * lengthM);
   const root = Math.sqrt(1 + x * x);
-  // DNV-RP-B401 (2010) Table 10-7, short slender stand-off (L < 4r), from memory
-  return (rho / (2 * Math.PI * lengthM)) * (Math.log(((2 * lengthM) / radiusM) * (1 + root)) + x - root);
+  // DNV-RP-B401 (2010) Table 10-7, short slender stand-off (L < 4r), from memory:
+  // rho/(2 pi L) [ln((2L/r)(1 + root)) + r/2L - root], written as asinh(1/x) - 1/(x + root)
+  // (the same value) so that very short, fat anodes do not lose it to cancellation.
+  return (rho / (2 * Math.PI * lengthM)) * (Math.asinh(1 / x) - 1 / (x + root));
 }
 
 export function longFlushOhm(rho: number, lengthM: number, widthM: number): number {

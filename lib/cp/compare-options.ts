@@ -54,8 +54,9 @@ export function compareOptions(input: CompareOptionsInput): OptionRow[] {
 function optionRow(job: ReturnType<typeof validateJob>, model: AnodeModel, index: number, rate: number | undefined): OptionRow {
   const head = { id: String(model?.id ?? index), designation: String(model?.designation ?? ''), alloy: model?.alloy };
   try {
-    const anode = validateAnode(anodeFromModel(model, job.environment?.water), `models[${index}]`);
-    assertCompatible(job, anode);
+    const field = `models[${index}]`;
+    const anode = validateAnode(anodeFromModel(model, job.environment?.water, field), field);
+    assertCompatible(job, anode, field);
     const d = computeDesign(job, anode);
     const gross = d.anodeCount * (anode.grossMassKg ?? anode.netMassKg);
     const unitPrice = optional(model.unitPrice, (v) => nonNegative(v, `models[${index}].unitPrice`));

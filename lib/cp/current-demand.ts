@@ -1,7 +1,7 @@
 import { BARE_FACTORS, breakdownFactors } from './coating-breakdown';
 import type { BreakdownFactors, Coating, CurrentDensity, CurrentsA } from './types';
 import { CpInputError } from './errors';
-import { nonNegative, positive, record, show } from './validate';
+import { assertFiniteResult, nonNegative, positive, record, show } from './validate';
 
 export interface SurfaceDemandInput {
   areaM2: number;
@@ -16,7 +16,7 @@ export function surfaceCurrentDemand(input: SurfaceDemandInput): CurrentsA {
   const r = record(input, 'input');
   const tf = positive(r.designLifeYears, 'designLifeYears', 'years');
   const { initialA, meanA, finalA } = surfaceDemandDetail(validateSurfaceDemand(r, ''), tf);
-  return { initialA, meanA, finalA };
+  return assertFiniteResult({ initialA, meanA, finalA }, 'areaM2');
 }
 
 export interface CheckedSurfaceDemand {

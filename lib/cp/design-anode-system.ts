@@ -8,6 +8,7 @@ import { shareOut, type Distribution } from './distribute-anodes';
 import { finalShapeOf } from './end-of-life';
 import { CpInputError } from './errors';
 import { ceilCount, HOURS_PER_YEAR } from './numeric';
+import { assertFiniteResult, firstNonFinite } from './validate';
 import { ALLOYS, isMagnesium } from './tables/alloys';
 import type { AnodeShape, BasisEntry, BreakdownFactors, CpWarning, CurrentsA, CurrentDrain } from './types';
 
@@ -73,6 +74,13 @@ export function designAnodeSystem(input: DesignInput): DesignResult {
   return computeDesign(job, anode);
 }
 
+/** Field blamed when extreme inputs overflow: demand and mass from the surfaces, outputs from the anode. */
+function overflowField(r: DesignResult): string {
+  if (firstNonFinite(r.current) || firstNonFinite(r.surfaces) || !Number.isFinite(r.requiredNetMassKg)) return 'surfaces';
+  if (firstNonFinite(r.perAnode) || firstNonFinite(r.exactCountBy)) return 'anode.shape';
+  return 'anode.netMassKg';
+}
+
 /** Design of a validated, compatible job and anode. */
 export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult {
   const tf = job.designLifeYears;
@@ -103,7 +111,7 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
   const distBasis = governingCriterion === 'mass' ? 'mean' : governingCriterion === 'initial-current' ? 'initial' : 'final';
   const demandKey = `${distBasis}A` as const;
 
-  return {
+  const result: DesignResult = {
     current,
     surfaces,
     requiredNetMassKg,
@@ -125,6 +133,7 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
     warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, initialResistance: resistanceOf(anode.shape, job.resistivityOhmM) }),
     basis: basisOf(job, anode, perAnode),
   };
+  return firstNonFinite(result) === null ? result : assertFiniteResult(result, overflowField(result));
 }
 
 function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAnodeResult {

@@ -19,14 +19,14 @@ const SLACK = 1e-9;
 const isAluminiumHull = (job: CheckedJob): boolean => job.protectedMetal === 'aluminium' || job.hullMaterial === 'aluminium';
 
 /** Combinations that are invalid input rather than a caution: they throw. */
-export function assertCompatible(job: CheckedJob, anode: DesignAnode): void {
+export function assertCompatible(job: CheckedJob, anode: DesignAnode, anodeField = 'anode'): void {
   if (isMagnesium(anode.alloy) && isAluminiumHull(job) && !job.allowMagnesiumOnAluminium) {
     throw new CpInputError(
-      'anode.alloy',
+      `${anodeField}.alloy`,
       'Magnesium anodes must not be fitted to an aluminium hull: they drive it beyond -1.10 V into alkaline corrosion. Set allowMagnesiumOnAluminium only for a deliberate, separately justified case.',
     );
   }
-  drivingVoltageV(job.protectivePotentialV, anode.potentialV, 'anode.potentialV');
+  drivingVoltageV(job.protectivePotentialV, anode.potentialV, `${anodeField}.potentialV`);
 }
 
 export interface WarningContext {
@@ -56,7 +56,7 @@ const CHECKS: readonly Check[] = [
     const limit = ALLOYS.zinc.temperatureLimitC ?? Infinity;
     const t = c.job.environment?.temperatureC;
     return c.anode.alloy === 'zinc' && t !== undefined && t > limit
-      ? { code: 'zinc-above-temperature-limit', message: `Zinc anodes above ${limit} C lose capacity and may turn noble to steel; water is ${t} C.` }
+      ? { code: 'zinc-above-temperature-limit', message: `Zinc anodes are not used above about ${limit} C; the water is ${t} C. Use an aluminium alloy qualified for the temperature.` }
       : null;
   },
   (c) =>

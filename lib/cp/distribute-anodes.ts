@@ -1,6 +1,6 @@
 import { CpInputError } from './errors';
 import { ceilCount } from './numeric';
-import { list, nonNegative, record, text, wholeNonNegative } from './validate';
+import { assertFiniteResult, list, nonNegative, record, text, wholeNonNegative } from './validate';
 
 export interface DistributionInput {
   /** The design count to share out. */
@@ -40,7 +40,7 @@ export function distributeAnodes(input: DistributionInput): Distribution {
   if (sum <= 0 && total > 0) {
     throw new CpInputError('surfaces', 'The surfaces have no current demand to share the anodes by.');
   }
-  return shareOut(total, rows, sum);
+  return assertFiniteResult(shareOut(total, rows, sum), 'surfaces');
 }
 
 /** Unchecked core. */

@@ -1,7 +1,7 @@
 import { surfaceDemandDetail, validateSurfaceDemand } from './current-demand';
 import { CpInputError } from './errors';
 import type { CurrentsA } from './types';
-import { list, nonNegative, optional, positive, record, text } from './validate';
+import { assertFiniteResult, list, nonNegative, optional, positive, record, text } from './validate';
 
 /**
  * Margin on the peak demand for the suggested rating (common practice, Tidewarden's
@@ -48,7 +48,7 @@ export function impressedCurrentSummary(input: ImpressedCurrentInput): Impressed
   if (!(peakA > 0)) throw new CpInputError('surfaces', 'The surfaces have no current demand.');
   const step = IMPRESSED_CURRENT_RATING_STEP_A;
   const suggestedRatingA = Math.ceil((peakA * (1 + margin)) / step - 1e-9) * step;
-  return {
+  return assertFiniteResult({
     current,
     peakA,
     peakCondition,
@@ -56,5 +56,5 @@ export function impressedCurrentSummary(input: ImpressedCurrentInput): Impressed
     suggestedRatingA,
     surfaces,
     note: `Rating = peak demand x (1 + ${margin}) rounded up to ${step} A (common practice). The system's anodes, reference electrodes and dielectric shields are designed separately.`,
-  };
+  }, 'surfaces');
 }

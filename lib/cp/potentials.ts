@@ -1,5 +1,5 @@
 import { REFERENCE_ELECTRODES, type ReferenceElectrode } from './tables/reference-electrodes';
-import { finite, oneOf } from './validate';
+import { assertFiniteResult, finite, oneOf } from './validate';
 
 const ELECTRODES = Object.keys(REFERENCE_ELECTRODES) as ReferenceElectrode[];
 
@@ -14,5 +14,5 @@ export function convertPotential({ valueV, from, to }: ConvertPotentialInput): n
   const v = finite(valueV, 'valueV', 'V');
   const a = REFERENCE_ELECTRODES[oneOf(from, ELECTRODES, 'from')].vsSheV;
   const b = REFERENCE_ELECTRODES[oneOf(to, ELECTRODES, 'to')].vsSheV;
-  return v + a - b; // E(vs to) = E(vs from) + E(from vs SHE) - E(to vs SHE)
+  return assertFiniteResult(v + a - b, 'valueV'); // E(vs to) = E(vs from) + E(from vs SHE) - E(to vs SHE)
 }

@@ -75,3 +75,26 @@ export function list(value: unknown, field: string, nonEmpty = true): unknown[] 
   if (nonEmpty && value.length === 0) throw new CpInputError(field, `${field} must hold at least one entry.`);
   return value;
 }
+
+/** Path of the first NaN or infinite number inside a value, or null. */
+export function firstNonFinite(value: unknown, path = ''): string | null {
+  if (typeof value === 'number') return Number.isFinite(value) ? null : path || 'result';
+  if (value === null || typeof value !== 'object') return null;
+  for (const [k, v] of Object.entries(value)) {
+    const found = firstNonFinite(v, Array.isArray(value) ? `${path}[${k}]` : path ? `${path}.${k}` : k);
+    if (found) return found;
+  }
+  return null;
+}
+
+/**
+ * Last line of defence against overflow and underflow from extreme but finite inputs
+ * (areas of 1e300 m2 and the like): a result must never carry NaN or Infinity.
+ */
+export function assertFiniteResult<T>(result: T, field: string): T {
+  const bad = firstNonFinite(result);
+  if (bad !== null) {
+    throw new CpInputError(field, `${field} is too large or too small to give a finite result (${bad}); check the units.`);
+  }
+  return result;
+}

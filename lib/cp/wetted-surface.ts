@@ -1,4 +1,4 @@
-import { nonNegative, positive, unitFraction } from './validate';
+import { assertFiniteResult, nonNegative, positive, unitFraction } from './validate';
 
 export interface HullParticulars {
   lengthM: number;
@@ -10,7 +10,7 @@ export interface HullParticulars {
 /** Wetted surface, m2, by Denny-Mumford: S = L*(1.7*T + CB*B) (= 1.7*L*T + V/T). */
 export function wettedSurfaceDennyMumford(input: HullParticulars): number {
   const p = particulars(input);
-  return p.l * (1.7 * p.t + p.cb * p.b); // Denny-Mumford, published
+  return assertFiniteResult(p.l * (1.7 * p.t + p.cb * p.b), 'lengthM'); // Denny-Mumford, published
 }
 
 export interface HoltropMennenParticulars extends HullParticulars {
@@ -28,7 +28,7 @@ export function wettedSurfaceHoltropMennen(input: HoltropMennenParticulars): num
   const abt = nonNegative(input.bulbAreaM2, 'bulbAreaM2', 'm2');
   // Holtrop & Mennen (1982), wetted surface of the bare hull, from memory
   const hull = l * (2 * t + b) * Math.sqrt(cm) * (0.453 + 0.4425 * cb - 0.2862 * cm - 0.003467 * (b / t) + 0.3696 * cwp);
-  return hull + (2.38 * abt) / cb;
+  return assertFiniteResult(hull + (2.38 * abt) / cb, 'lengthM');
 }
 
 function particulars(input: HullParticulars) {

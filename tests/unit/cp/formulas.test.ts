@@ -77,6 +77,14 @@ describe('anode resistance', () => {
     expect(d.ohm).toBeCloseTo(0.31368, 4); // DNV-RP-B401 (2010) Table 10-7, short slender, from memory
   });
 
+  it('short slender stays positive and finite for a very short, fat anode', () => {
+    const r = R({ kind: 'slender-standoff', lengthM: 1e-6, radiusM: 0.3 });
+    expect(r).toBeGreaterThan(0);
+    expect(Number.isFinite(r)).toBe(true);
+    // for L << r the bracket tends to L/r: rho/(2 pi L) x L/r = rho/(2 pi r) = 0.3/(2 pi 0.3) = 0.15915 ohm
+    expect(r).toBeCloseTo(0.15915, 4);
+  });
+
   it('switches to modified Dwight at L = 4r', () => {
     expect(anodeResistanceDetail({ shape: { kind: 'slender-standoff', lengthM: 0.4, radiusM: 0.1 }, resistivityOhmM: rho }).formula).toBe('modified-dwight');
     expect(anodeResistanceDetail({ shape: { kind: 'slender-standoff', lengthM: 0.39, radiusM: 0.1 }, resistivityOhmM: rho }).formula).toBe('short-slender');

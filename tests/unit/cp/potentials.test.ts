@@ -20,8 +20,10 @@ describe('reference electrode conversion', () => {
   });
 
   it('uses the tabulated SHE offsets', () => {
-    expect(convertPotential({ valueV: 0, from: 'sce', to: 'she' })).toBeCloseTo(0.241, 9); // SCE +0.241 V vs SHE (design basis)
-    expect(convertPotential({ valueV: 0, from: 'ag-agcl-saturated-kcl', to: 'she' })).toBeCloseTo(0.197, 9); // saturated KCl +0.197 V (design basis)
+    expect(convertPotential({ valueV: 0, from: 'sce', to: 'she' })).toBeCloseTo(0.241, 9); // SCE +0.241 V vs SHE, standard electrode tables (design basis), published
+    expect(convertPotential({ valueV: 0, from: 'ag-agcl-saturated-kcl', to: 'she' })).toBeCloseTo(0.197, 9); // Ag/AgCl saturated KCl +0.197 V vs SHE, standard electrode tables (design basis), published
+    expect(convertPotential({ valueV: 0, from: 'ag-agcl-seawater', to: 'she' })).toBeCloseTo(0.25, 9); // Ag/AgCl in seawater about +0.25 V vs SHE, from memory
+    expect(convertPotential({ valueV: 0, from: 'cse', to: 'she' })).toBeCloseTo(0.3, 9); // common practice: +0.30 V keeps the 50 mV rule (strictly +0.316 V)
   });
 
   it('puts the galvanic series in line with the DNV anode potentials', () => {

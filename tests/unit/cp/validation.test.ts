@@ -68,6 +68,12 @@ describe('designAnodeSystem rejects invalid input naming the field', () => {
     expect(fieldOf(() => designAnodeSystem(input))).toBe(field);
   });
 
+  it('extreme but finite values that overflow throw instead of returning Infinity', () => {
+    expect(fieldOf(() => designAnodeSystem(withChange((d: any) => (d.surfaces[0].areaM2 = 1e308))))).toBe('surfaces');
+    expect(fieldOf(() => designAnodeSystem(withChange((d: any) => (d.anode.shape.lengthM = 1e-320))))).toBe('anode.shape');
+    expect(fieldOf(() => surfaceCurrentDemand({ areaM2: 1e308, currentDensity: { initial: 10, mean: 10, final: 10 }, coating: 'bare', designLifeYears: 1 }))).toBe('areaM2');
+  });
+
   it('the clean input itself is accepted', () => {
     expect(designAnodeSystem(cleanDesign()).anodeCount).toBeGreaterThan(0);
   });

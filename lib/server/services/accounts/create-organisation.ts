@@ -5,8 +5,13 @@ import { AppError } from '../../errors';
 import { audit } from '../../audit';
 import type { CurrentUser } from '../../org-context';
 
+// Letters that Unicode decomposition leaves whole, common in harbour and company names.
+const LETTERS: Record<string, string> = { ø: 'o', æ: 'ae', å: 'a', ß: 'ss', œ: 'oe', ł: 'l', đ: 'd', þ: 'th' };
+
 export function slugify(name: string) {
   const base = name
+    .toLowerCase()
+    .replace(/[øæåßœłđþ]/g, (c) => LETTERS[c])
     .normalize('NFKD')
     .replace(/[\u0300-\u036f]/g, '')
     .toLowerCase()

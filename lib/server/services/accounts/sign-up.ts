@@ -1,6 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { addHours } from 'date-fns';
-import { UserSchema, UserTokenSchema } from '@/entities';
+import { UserSchema, UserTokenSchema, type User } from '@/entities';
 import { signUpSchema } from '@/lib/schemas/accounts';
 import { AppError } from '../../errors';
 import { hashPassword } from '../../auth/password';
@@ -24,9 +24,9 @@ export async function signUp({ em, input, ip }: { em: EntityManager; input: unkn
   return user;
 }
 
-export function queueVerification(em: EntityManager, user: { id: string; email: string; name: string }) {
+export function queueVerification(em: EntityManager, user: User) {
   const token = newToken();
-  em.create(UserTokenSchema, { user: em.getReference(UserSchema, user.id), kind: 'verify-email', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 24) });
+  em.create(UserTokenSchema, { user, kind: 'verify-email', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 24) });
   const mail = verifyEmailMail(user.name, `${getEnv().APP_URL}/verify/${token}`);
   enqueueMail(em, { to: user.email, ...mail });
 }

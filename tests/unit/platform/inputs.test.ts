@@ -1,0 +1,66 @@
+import { describe, expect, it } from 'vitest';
+import { signUpSchema, inviteMemberSchema } from '@/lib/schemas/accounts';
+import { isCommonPassword } from '@/lib/schemas/common-passwords';
+import { safeNextPath } from '@/lib/server/safe-redirect';
+import { slugify } from '@/lib/server/services/accounts/create-organisation';
+import { hashToken, newToken } from '@/lib/server/tokens';
+import { fieldErrorsFromZod, toErrorBody, AppError } from '@/lib/server/errors';
+
+describe('account input rules', () => {
+  it('lower-cases and trims e-mail addresses', () => {
+    expect(signUpSchema.parse({ name: ' Ada ', email: '  Ada@Example.COM ', password: 'long-enough-pass' }).email).toBe('ada@example.com');
+  });
+
+  it('names the failing fields', () => {
+    const result = signUpSchema.safeParse({ name: '', email: 'not-an-address', password: 'short' });
+    expect(result.success).toBe(false);
+    const errors = fieldErrorsFromZod(result.error!);
+    expect(Object.keys(errors).sort()).toEqual(['email', 'name', 'password']);
+  });
+
+  it('refuses common and patterned passwords, accepts a passphrase', () => {
+    expect(isCommonPassword('Password123')).toBe(true);
+    expect(isCommonPassword('1234567890')).toBe(true);
+    expect(isCommonPassword('zzzzzzzzzzzz')).toBe(true);
+    expect(isCommonPassword('sacrificial-zinc-on-the-rudder')).toBe(false);
+  });
+
+  it('refuses an unknown role', () => {
+    expect(inviteMemberSchema.safeParse({ email: 'a@b.example', role: 'admiral' }).success).toBe(false);
+  });
+});
+
+describe('small safety helpers', () => {
+  it('only allows same-site return paths', () => {
+    expect(safeNextPath('/o/acme/team')).toBe('/o/acme/team');
+    expect(safeNextPath('//evil.example/x')).toBe('/orgs');
+    expect(safeNextPath('https://evil.example')).toBe('/orgs');
+    expect(safeNextPath('/\\evil.example')).toBe('/orgs');
+    expect(safeNextPath(undefined)).toBe('/orgs');
+  });
+
+  it('makes URL slugs from organisation names', () => {
+    expect(slugify('Østerhavn Havnevæsen & Co.')).toBe('osterhavn-havnevaesen-co');
+    expect(slugify('A')).toBe('org-a');
+  });
+
+  it('makes 256-bit tokens and stores their SHA-256 only', () => {
+    const token = newToken();
+    expect(token).toMatch(/^[\w-]{43}$/);
+    expect(hashToken(token)).toMatch(/^[0-9a-f]{64}$/);
+    expect(hashToken(token)).not.toBe(hashToken(newToken()));
+  });
+
+  it('never sends the text of an unexpected error to the client', () => {
+    const original = console.error;
+    console.error = () => {};
+    try {
+      const { status, body } = toErrorBody(new Error('connection to 10.1.2.3 refused: password authentication failed'));
+      expect(status).toBe(500);
+      expect(body.error.message).not.toMatch(/10\.1|password/);
+    } finally {
+      console.error = original;
+    }
+    expect(toErrorBody(new AppError('forbidden', 'No.')).status).toBe(403);
+  });
+});
