@@ -2,14 +2,12 @@
 // `tsx scripts/migrate.ts create [name]` writes a new one from the entity/schema difference.
 import { MikroORM } from '@mikro-orm/postgresql';
 import { ormConfig } from '../mikro-orm.config';
+import { getEnv } from '../lib/server/env';
+import { describeStartupError } from './lib/describe-error';
 
 async function main() {
   const command = process.argv[2] ?? 'up';
-  const url = process.env.DATABASE_URL;
-  if (!url) {
-    console.error('DATABASE_URL is not set; run this through `npm start` or set it to a postgres:// URL.');
-    process.exit(2);
-  }
+  const url = getEnv().DATABASE_URL;
   const orm = await MikroORM.init(ormConfig(url, { discovery: { disableDynamicFileAccess: false } }));
   try {
     const migrator = orm.getMigrator();
@@ -32,6 +30,6 @@ async function main() {
 }
 
 main().catch((error) => {
-  console.error(`Migration failed: ${error instanceof Error ? error.message : String(error)}`);
+  console.error(`Migration failed: ${describeStartupError(error)}`);
   process.exit(1);
 });

@@ -2,12 +2,14 @@
 // copies: rows are claimed with FOR UPDATE SKIP LOCKED.
 import { MikroORM } from '@mikro-orm/postgresql';
 import { ormConfig } from '../mikro-orm.config';
+import { getEnv } from '../lib/server/env';
+import { describeStartupError } from './lib/describe-error';
 import { deliverDueMail } from '../lib/server/mail/outbox';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
 
 async function main() {
-  const orm = await MikroORM.init(ormConfig(process.env.DATABASE_URL!));
+  const orm = await MikroORM.init(ormConfig(getEnv().DATABASE_URL));
   let stopping = false;
   const stop = async () => {
     stopping = true;
@@ -29,6 +31,6 @@ async function main() {
 }
 
 main().catch((error) => {
-  console.error(`[worker] could not start: ${error instanceof Error ? error.message : String(error)}`);
+  console.error(`[worker] could not start: ${describeStartupError(error)}`);
   process.exit(1);
 });

@@ -1,5 +1,5 @@
 import { drivingVoltageV } from './anode-output';
-import { FULL_STANDOFF_M, MIN_CORRECTED_STANDOFF_M, resistanceOf, type ResistanceDetail } from './anode-resistance';
+import { FULL_STANDOFF_M, MIN_CORRECTED_STANDOFF_M, resistanceOf, type ResistanceDetail, type ResistanceTreatment } from './anode-resistance';
 import { BASIS_ENTRIES, type BasisKey } from './basis';
 import { surfaceDemandDetail } from './current-demand';
 import { assertCompatible, collectWarnings } from './design-checks';
@@ -38,6 +38,8 @@ export interface PerAnodeResult {
   finalShape: AnodeShape;
   /** True when the data-sheet output replaced the computed outputs. */
   ratedOutputUsed: boolean;
+  /** How the initial shape was treated (near-flush slender, short-flush fallback, or as given). */
+  initialTreatment: ResistanceTreatment;
 }
 
 export interface DesignResult {
@@ -130,7 +132,7 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
       basis: distBasis,
       ...shareOut(anodeCount, surfaces.map((s) => ({ name: s.name, demandA: s[demandKey] })), current[demandKey]),
     },
-    warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, initialResistance: resistanceOf(anode.shape, job.resistivityOhmM) }),
+    warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, resistanceTreatment: perAnode.initialTreatment }),
     basis: basisOf(job, anode, perAnode),
   };
   return firstNonFinite(result) === null ? result : assertFiniteResult(result, overflowField(result));
@@ -155,6 +157,7 @@ function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAn
     finalFormula: final.formula,
     finalShape,
     ratedOutputUsed: rated !== undefined,
+    initialTreatment: initial.treatment,
   };
 }
 

@@ -1,5 +1,5 @@
 import { drivingVoltageV } from './anode-output';
-import type { ResistanceDetail } from './anode-resistance';
+import type { ResistanceTreatment } from './anode-resistance';
 import type { CheckedJob, DesignAnode } from './design-input';
 import { CpInputError } from './errors';
 import { utilisationFactorFor } from './lookups';
@@ -35,7 +35,7 @@ export interface WarningContext {
   achievedLifeYears: number;
   requiredCount: number;
   installedCount: number;
-  initialResistance: ResistanceDetail;
+  resistanceTreatment: ResistanceTreatment;
 }
 
 type Check = (c: WarningContext) => CpWarning | null;
@@ -104,11 +104,11 @@ const CHECKS: readonly Check[] = [
       : null;
   },
   (c) =>
-    c.initialResistance.treatment === 'near-flush-slender'
+    c.resistanceTreatment === 'near-flush-slender'
       ? { code: 'standoff-treated-as-flush', message: 'Stand-off below 0.15 m: the slender-anode formulas do not hold; the anode is treated as flush-mounted (higher resistance).' }
       : null,
   (c) =>
-    c.initialResistance.treatment === 'short-flush-fallback'
+    c.resistanceTreatment === 'short-flush-fallback'
       ? { code: 'long-flush-outside-validity', message: 'The plate is shorter than 4 x its width or thickness: the long-flush formula does not hold; McCoy on length x width is used.' }
       : null,
 ];

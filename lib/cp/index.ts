@@ -30,6 +30,22 @@
  * - impressed-current       output an impressed-current system must deliver
  * - units                   US-customary conversions for handbook checks
  * - numeric                 ceilCount (float-safe), HOURS_PER_YEAR
+ *
+ * Decisions (each also documented where it is made)
+ * - Stand-off: not stated = at least 0.30 m (formula as is); 0.15-0.30 m x 1.3; below
+ *   0.15 m the slender anode is treated as a flush plate as wide as its diameter, never
+ *   below the 1.3-corrected value (warning 'standoff-treated-as-flush').
+ * - Long flush needs L >= 4 W (and 4 T when given); else McCoy on L x W (warning).
+ * - End of life: slender 0.9 L, remaining mass m(1-u) round the core (core negligible
+ *   unless coreRadiusM); flush plates and bracelets by uniform recession of face and
+ *   edges (thickness implied by the mass when not given), or, without plan dimensions,
+ *   area x (1-u)^(2/3). At least 2 % of the mass is assumed left (finite at u = 1), and
+ *   the final resistance is never taken below the initial.
+ * - Potentials vs SHE: Ag/AgCl/seawater +0.25, CSE +0.30 (50 mV rule; strictly +0.316),
+ *   SCE +0.241, Ag/AgCl sat. KCl +0.197, zinc -0.80.
+ * - Counts: ceil after snapping float noise within 1e-9 (relative) to the whole number.
+ * - Distribution follows the demand of the governing criterion (mean for mass).
+ * - A total mean demand below 1 nA, or a result that would overflow, is invalid input.
  */
 export { CpInputError } from './errors';
 export { basis, BASIS_ENTRIES, DNV_RP_B401 } from './basis';
