@@ -8,6 +8,10 @@ import { UserTokenSchema } from './user-token.entity';
 import { OutboxMessageSchema } from './outbox-message.entity';
 import { AuditEventSchema } from './audit-event.entity';
 import { SignInAttemptSchema } from './sign-in-attempt.entity';
+import { AssetSchema } from './asset.entity';
+import { ZoneSchema } from './zone.entity';
+import { AnodeModelSchema } from './anode-model.entity';
+import { DesignSchema } from './design.entity';
 
 export * from './user.entity';
 export * from './session.entity';
@@ -18,6 +22,10 @@ export * from './user-token.entity';
 export * from './outbox-message.entity';
 export * from './audit-event.entity';
 export * from './sign-in-attempt.entity';
+export * from './asset.entity';
+export * from './zone.entity';
+export * from './anode-model.entity';
+export * from './design.entity';
 
 export const allEntities = [
   UserSchema,
@@ -29,4 +37,8 @@ export const allEntities = [
   OutboxMessageSchema,
   AuditEventSchema,
   SignInAttemptSchema,
+  AssetSchema,
+  ZoneSchema,
+  AnodeModelSchema,
+  DesignSchema,
 ];

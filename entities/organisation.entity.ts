@@ -1,5 +1,5 @@
 import { defineEntity, type InferEntity } from '@mikro-orm/core';
-import { p, uuidPk, createdAt } from './common';
+import { p, uuidPk, createdAt, double } from './common';
 
 export const OrganisationSchema = defineEntity({
   name: 'Organisation',
@@ -12,7 +12,7 @@ export const OrganisationSchema = defineEntity({
     // Months before a forecast end date by which a renewal must be booked.
     renewalMarginMonths: p.integer().default(6),
     // Cost basis for option comparison, per kg of net anode mass fitted.
-    fittingRatePerKg: p.double().nullable(),
+    fittingRatePerKg: double().nullable(),
     currency: p.string().length(3).default('EUR'),
     createdAt: createdAt(),
   },

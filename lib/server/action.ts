@@ -70,3 +70,22 @@ export function publicAction(body: (args: { em: EntityManager; ip: string; user:
 }
 
 export { redirect };
+
+export type JsonActionResult<T> = { ok: true; data: T } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
+
+/** Server actions called from client code with JSON-like data (not a form): same checks, one result shape. */
+export function orgJsonAction<T>(permission: Permission, body: (ctx: OrgContext, input: unknown) => Promise<T>) {
+  return async (slug: string, input: unknown): Promise<JsonActionResult<T>> => {
+    try {
+      const { user } = await getCurrentSession();
+      if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
+      const ctx = await getOrgContextOrThrow(await getEm(), toCurrentUser(user), slug, await clientAddress());
+      requirePermission(ctx, permission);
+      return { ok: true, data: await body(ctx, input) };
+    } catch (error) {
+      if (isRedirectError(error)) throw error;
+      const { body: errorBody } = toErrorBody(error);
+      return { ok: false, message: errorBody.error.message, fieldErrors: errorBody.error.fieldErrors };
+    }
+  };
+}

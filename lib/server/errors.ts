@@ -1,4 +1,5 @@
 import { ZodError } from 'zod';
+import { CpInputError } from '@/lib/cp/errors';
 
 // One error type for the whole server side; the code decides the HTTP status and what the user sees.
 export type AppErrorCode = 'unauthenticated' | 'forbidden' | 'not-found' | 'conflict' | 'invalid' | 'rate-limited' | 'read-only' | 'payload-too-large' | 'unsupported';
@@ -49,6 +50,9 @@ export function toErrorBody(error: unknown): { status: number; body: ErrorBody }
   if (error instanceof AppError) {
     const fieldErrors = Object.keys(error.fieldErrors).length ? error.fieldErrors : undefined;
     return { status: error.status, body: { error: { code: error.code, message: error.message, fieldErrors } } };
+  }
+  if (error instanceof CpInputError) {
+    return { status: 422, body: { error: { code: 'invalid', message: error.message, fieldErrors: { [error.field]: [error.message] } } } };
   }
   if (error instanceof ZodError) {
     return { status: 422, body: { error: { code: 'invalid', message: 'Some fields need attention.', fieldErrors: fieldErrorsFromZod(error) } } };

@@ -1,0 +1,131 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { AppError } from '@/lib/server/errors';
+import { can } from '@/lib/server/permissions';
+import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
+import { computeDesk } from '@/lib/server/services/designs/compute-design';
+import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
+import { STATUS_LABELS } from '@/lib/design/labels';
+import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { ButtonLink } from '@/components/ui/button';
+import { DesignDesk, type DeskComputed } from '@/components/design-desk/design-desk';
+import { SignatureBlock } from '@/components/design-desk/signature-block';
+import type { DeskState } from '@/components/design-desk/desk-state';
+
+export const metadata: Metadata = { title: 'Design desk' };
+
+export default async function DesignPage({ params }: { params: Promise<{ org: string; designId: string }> }) {
+  const { org, designId } = await params;
+  const ctx = await getPageOrgContext(org);
+  let design;
+  try {
+    design = await getDesignOrThrow(ctx, designId);
+  } catch (error) {
+    if (error instanceof AppError && error.code === 'not-found') notFound();
+    throw error;
+  }
+  const { anodeModelSnapshot: _snapshot, ...inputs } = design.inputs as Record<string, unknown>;
+  const catalogue = await listCatalogue(ctx, { includeArchived: true });
+  let initial: DeskComputed | null = null;
+  try {
+    const desk = await computeDesk(ctx, inputs, { hasImpressedCurrent: Boolean(design.asset.hasImpressedCurrent) });
+    initial = { result: desk.result, error: desk.error, notices: desk.notices, options: desk.options, impressedCurrent: desk.impressedCurrent, model: desk.model };
+  } catch {
+    initial = null; // inputs no longer valid (e.g. a model removed); the desk shows the messages on first change
+  }
+  const approved = design.status === 'approved';
+  const isPreparer = design.preparedBy.id === ctx.user.id;
+  const editable = !approved && can(ctx.role, 'design:write');
+  const asset = design.asset;
+  const reason = approved
+    ? 'This revision is approved and immutable. Make a new revision to change anything.'
+    : isPreparer && can(ctx.role, 'design:approve')
+      ? 'You prepared this revision: a second engineer checks and approves it.'
+      : !can(ctx.role, 'design:write')
+        ? 'Your role reads and prints designs; engineers prepare and approve them.'
+        : null;
+  return (
+    <>
+      <PageHeader
+        title={
+          <span className="flex items-center gap-3">
+            {design.title}
+            <StatusTag tone={approved ? 'sound' : design.status === 'checked' ? 'due' : 'neutral'}>{STATUS_LABELS[design.status]}</StatusTag>
+          </span>
+        }
+        subtitle={
+          <>
+            <Link href={`/o/${org}/designs`} className="text-tide-600 hover:underline">Design desk</Link> · {asset.name} ({asset.kind}) · revision {design.revision}
+            {design.basedOnRevision ? ` (from revision ${design.basedOnRevision})` : ''} · app {design.appVersion}
+          </>
+        }
+        actions={
+          <ButtonLink href={`/api/orgs/${org}/designs/${design.id}/note`} variant="secondary" prefetch={false} target="_blank">
+            Print calculation note (PDF)
+          </ButtonLink>
+        }
+      />
+      <div className="mb-4 grid gap-4 lg:grid-cols-[1fr_26rem]">
+        <Panel title="Asset">
+          <AssetSummary asset={asset} />
+        </Panel>
+        <Panel title="Revision block">
+          <SignatureBlock
+            org={org}
+            designId={design.id}
+            status={design.status}
+            prepared={{ name: design.preparedBy.name, at: design.createdAt.toISOString() }}
+            checked={design.checkedBy ? { name: design.checkedBy.name, at: design.checkedAt?.toISOString() ?? null } : null}
+            approved={design.approvedBy ? { name: design.approvedBy.name, at: design.approvedAt?.toISOString() ?? null } : null}
+            can={{ check: can(ctx.role, 'design:write') && !isPreparer, approve: can(ctx.role, 'design:approve') && !isPreparer, revise: can(ctx.role, 'design:write') }}
+            reason={reason}
+          />
+        </Panel>
+      </div>
+      <DesignDesk
+        key={design.updatedAt.toISOString()}
+        org={org}
+        designId={design.id}
+        initialTitle={design.title}
+        initialInputs={inputs as DeskState}
+        initialComputed={initial}
+        catalogue={catalogue}
+        editable={editable}
+        vessel={asset.kind === 'vessel' ? { lengthBppM: asset.lengthBppM ?? null, beamM: asset.beamM ?? null, draughtM: asset.draughtM ?? null, blockCoefficient: asset.blockCoefficient ?? null } : null}
+      />
+    </>
+  );
+}
+
+function AssetSummary({ asset }: { asset: Awaited<ReturnType<typeof getDesignOrThrow>>['asset'] }) {
+  const rows: [string, string | null | undefined][] =
+    asset.kind === 'vessel'
+      ? [
+          ['Type', asset.vesselType],
+          ['IMO', asset.imoNumber],
+          ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM} × ${asset.draughtM} m` : null],
+          ['Block coefficient', asset.blockCoefficient?.toString()],
+          ['Hull', asset.hullMaterial],
+          ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
+          ['Trading waters', asset.tradingWaters],
+        ]
+      : [
+          ['Type', asset.structureType],
+          ['Location', asset.location],
+          ['Water', asset.waterType],
+          ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
+          ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
+        ];
+  return (
+    <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4">
+      {rows.map(([label, value]) => (
+        <div key={label}>
+          <dt className="text-2xs uppercase tracking-wide text-ink-faint">{label}</dt>
+          <dd>{value ?? '—'}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}

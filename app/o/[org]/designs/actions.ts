@@ -1,0 +1,61 @@
+'use server';
+import { redirect } from 'next/navigation';
+import { z } from 'zod';
+import { orgAction, orgJsonAction, formObject } from '@/lib/server/action';
+import { AppError } from '@/lib/server/errors';
+import { createAsset } from '@/lib/server/services/assets/create-asset';
+import { createDesign } from '@/lib/server/services/designs/create-design';
+import { computeDesk } from '@/lib/server/services/designs/compute-design';
+import { saveDesign } from '@/lib/server/services/designs/save-design';
+import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
+import { newRevision } from '@/lib/server/services/designs/new-revision';
+import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
+
+export const createDesignAction = orgAction('design:write', async (ctx, formData) => {
+  const form = formObject(formData);
+  let assetId = String(form.assetId ?? '');
+  if (assetId === 'new') {
+    const asset = await createAsset(ctx, {
+      ...Object.fromEntries(Object.entries(form).filter(([k]) => k.startsWith('asset.')).map(([k, v]) => [k.slice(6), v])),
+      hasImpressedCurrent: form['asset.hasImpressedCurrent'] === 'on',
+    });
+    assetId = asset.id;
+  }
+  const design = await createDesign(ctx, { assetId, title: form.title || undefined });
+  redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
+});
+
+/** Recomputes the desk's results as the inputs change; writes nothing. */
+export const computeDeskAction = orgJsonAction('org:read', async (ctx, input) => {
+  const { designId, inputs } = z.object({ designId: z.uuid(), inputs: z.unknown() }).parse(input);
+  const design = await getDesignOrThrow(ctx, designId);
+  const desk = await computeDesk(ctx, inputs, { hasImpressedCurrent: Boolean(design.asset.hasImpressedCurrent) });
+  return { result: desk.result, error: desk.error, notices: desk.notices, options: desk.options, impressedCurrent: desk.impressedCurrent, model: desk.model };
+});
+
+export const saveDesignAction = orgJsonAction('design:write', async (ctx, input) => {
+  const { designId, title, inputs } = z.object({ designId: z.uuid(), title: z.unknown(), inputs: z.unknown() }).parse(input);
+  const { design } = await saveDesign(ctx, designId, { title, inputs });
+  return { status: design.status, updatedAt: design.updatedAt.toISOString(), resultError: design.resultError };
+});
+
+const idForm = (formData: FormData) => {
+  const id = formData.get('designId');
+  if (typeof id !== 'string') throw new AppError('invalid', 'Unknown design.');
+  return id;
+};
+
+export const checkDesignAction = orgAction('design:write', async (ctx, formData) => {
+  await checkDesign(ctx, idForm(formData));
+  return { ok: true, message: 'Signed as checker.' };
+});
+
+export const approveDesignAction = orgAction('design:approve', async (ctx, formData) => {
+  await approveDesign(ctx, idForm(formData));
+  return { ok: true, message: 'Approved. This revision can no longer change.' };
+});
+
+export const newRevisionAction = orgAction('design:write', async (ctx, formData) => {
+  const design = await newRevision(ctx, idForm(formData));
+  redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
+});

@@ -1,0 +1,35 @@
+import type { Metadata } from 'next';
+import { AssetSchema } from '@/entities';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { can } from '@/lib/server/permissions';
+import { listDesigns } from '@/lib/server/services/designs/list-designs';
+import { PageHeader, Panel } from '@/components/ui/panel';
+import { DesignsList } from '@/components/design-desk/designs-list';
+import { NewDesignForm } from '@/components/design-desk/new-design-form';
+
+export const metadata: Metadata = { title: 'Design desk' };
+
+export default async function DesignsPage({ params }: { params: Promise<{ org: string }> }) {
+  const { org } = await params;
+  const ctx = await getPageOrgContext(org);
+  const [designs, assets] = await Promise.all([
+    listDesigns(ctx),
+    ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name', 'kind'] }),
+  ]);
+  const canWrite = can(ctx.role, 'design:write');
+  return (
+    <>
+      <PageHeader title="Design desk" subtitle="Sacrificial-anode designs for hulls and harbour structures, by revision, with who prepared, checked and approved each." />
+      <div className={`grid gap-4 ${canWrite ? 'xl:grid-cols-[1fr_24rem]' : ''}`}>
+        <Panel title="Designs">
+          <DesignsList org={org} initial={designs} />
+        </Panel>
+        {canWrite ? (
+          <Panel title="New design">
+            <NewDesignForm org={org} assets={assets.map((a) => ({ id: a.id, name: a.name, kind: a.kind }))} />
+          </Panel>
+        ) : null}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,72 @@
+'use client';
+import { ALLOYS } from '@/lib/cp/tables/alloys';
+import { utilisationFactorFor } from '@/lib/cp/lookups';
+import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
+import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { fmt } from '@/lib/format';
+import type { DeskState, Update } from './desk-state';
+
+interface Props {
+  inputs: DeskState;
+  update: Update;
+  errors: Record<string, string[]>;
+  editable: boolean;
+  catalogue: CatalogueModel[];
+}
+
+export function AnodePicker({ inputs, update, errors, editable, catalogue }: Props) {
+  const model = catalogue.find((m) => m.key === inputs.anodeModelKey);
+  const groups = Object.entries(
+    catalogue.reduce<Record<string, CatalogueModel[]>>((acc, m) => {
+      (acc[`${ALLOY_LABELS[m.alloy]} · ${m.source}`] ??= []).push(m);
+      return acc;
+    }, {}),
+  );
+  const alloy = model ? ALLOYS[model.alloy] : null;
+  return (
+    <div className="flex flex-col gap-3">
+      <label className="flex flex-col gap-0.5 text-xs text-ink-soft">
+        Anode model (catalogue)
+        <select
+          value={inputs.anodeModelKey}
+          disabled={!editable}
+          onChange={(e) => update((s) => ({ ...s, anodeModelKey: e.target.value }))}
+          className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm text-ink ${errors.anodeModelKey ? 'border-state-overdue' : 'border-rule-strong'}`}
+        >
+          {!model ? <option value={inputs.anodeModelKey}>Not in the catalogue: choose one</option> : null}
+          {groups.map(([group, models]) => (
+            <optgroup key={group} label={group}>
+              {models.map((m) => (
+                <option key={m.key} value={m.key}>
+                  {m.designation}: {MOUNTING_LABELS[m.mounting]}, {fmt(m.netMassKg, 1)} kg net
+                </option>
+              ))}
+            </optgroup>
+          ))}
+        </select>
+      </label>
+      {errors.anodeModelKey ? <p role="alert" className="text-xs text-state-overdue">{errors.anodeModelKey[0]}</p> : null}
+      {model && alloy ? (
+        <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm md:grid-cols-4">
+          <Fact label="Alloy" value={ALLOY_LABELS[model.alloy]} />
+          <Fact label="Mounting" value={MOUNTING_LABELS[model.mounting]} />
+          <Fact label="Net / gross mass" value={`${fmt(model.netMassKg, 1)} / ${fmt(model.grossMassKg, 1)} kg`} />
+          <Fact label="Utilisation factor" value={fmt(model.utilisationFactor ?? utilisationFactorFor(model.shape), 2)} />
+          <Fact label="Electrochemical capacity" value={`${fmt(model.capacityAhPerKg ?? alloy.capacityAhPerKg.seawater, 0)} A·h/kg`} />
+          <Fact label="Closed-circuit potential" value={`${fmt(model.potentialV ?? alloy.closedCircuitPotentialV.seawater, 3)} V Ag/AgCl`} />
+          <Fact label="Resistance formula" value={model.shape.kind.replace('-', ' ')} />
+          <Fact label="Rated output" value={model.ratedOutputA ? `${fmt(model.ratedOutputA, 2)} A (data sheet)` : 'computed'} />
+        </dl>
+      ) : null}
+    </div>
+  );
+}
+
+function Fact({ label, value }: { label: string; value: string }) {
+  return (
+    <div>
+      <dt className="text-2xs uppercase tracking-wide text-ink-faint">{label}</dt>
+      <dd className="num text-left">{value}</dd>
+    </div>
+  );
+}

@@ -1,0 +1,148 @@
+'use client';
+import { useCallback, useEffect, useRef, useState, useTransition } from 'react';
+import type { DesignResult, ImpressedCurrentSummary, OptionRow } from '@/lib/cp';
+import type { DeskNotice } from '@/lib/design/build-design-input';
+import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
+import { computeDeskAction, saveDesignAction } from '@/app/o/[org]/designs/actions';
+import { Button } from '@/components/ui/button';
+import { Caution, Panel } from '@/components/ui/panel';
+import { JobFields } from './job-fields';
+import { ZonesTable } from './zones-table';
+import { AnodePicker } from './anode-picker';
+import { ResultsPanel } from './results-panel';
+import { OptionsTable } from './options-table';
+import type { DeskState } from './desk-state';
+
+export interface DeskComputed {
+  result: DesignResult | null;
+  error: { field: string; message: string } | null;
+  notices: DeskNotice[];
+  options: OptionRow[];
+  impressedCurrent: ImpressedCurrentSummary | null;
+  model: CatalogueModel;
+}
+
+interface Props {
+  org: string;
+  designId: string;
+  initialTitle: string;
+  initialInputs: DeskState;
+  initialComputed: DeskComputed | null;
+  catalogue: CatalogueModel[];
+  editable: boolean;
+  vessel: { lengthBppM: number | null; beamM: number | null; draughtM: number | null; blockCoefficient: number | null } | null;
+}
+
+/**
+ * The design desk: inputs on the left, results recomputed by a server action as they change.
+ * Nothing is written until "Save draft"; an approved revision is shown read-only.
+ */
+export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, vessel }: Props) {
+  const [title, setTitle] = useState(initialTitle);
+  const [inputs, setInputs] = useState<DeskState>(initialInputs);
+  const [computed, setComputed] = useState<DeskComputed | null>(initialComputed);
+  const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
+  const [computeMessage, setComputeMessage] = useState<string | null>(null);
+  const [dirty, setDirty] = useState(false);
+  const [saveState, setSaveState] = useState<{ ok: boolean; message: string } | null>(null);
+  const [computing, startCompute] = useTransition();
+  const [saving, startSave] = useTransition();
+  const sequence = useRef(0);
+  const firstRender = useRef(true);
+
+  const update = useCallback((change: (previous: DeskState) => DeskState) => {
+    setInputs((previous) => change(previous));
+    setDirty(true);
+    setSaveState(null);
+  }, []);
+
+  // Recompute shortly after the engineer stops typing; answers to older requests are dropped.
+  useEffect(() => {
+    if (firstRender.current) {
+      firstRender.current = false;
+      return;
+    }
+    const id = ++sequence.current;
+    const timer = setTimeout(() => {
+      startCompute(async () => {
+        const answer = await computeDeskAction(org, { designId, inputs });
+        if (id !== sequence.current) return;
+        if (answer.ok) {
+          setComputed(answer.data);
+          setFieldErrors({});
+          setComputeMessage(null);
+        } else {
+          setFieldErrors(answer.fieldErrors ?? {});
+          setComputeMessage(answer.message);
+        }
+      });
+    }, 250);
+    return () => clearTimeout(timer);
+  }, [inputs, org, designId]);
+
+  useEffect(() => {
+    if (!dirty) return;
+    const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [dirty]);
+
+  const save = () =>
+    startSave(async () => {
+      const answer = await saveDesignAction(org, { designId, title, inputs });
+      if (answer.ok) {
+        setDirty(false);
+        setSaveState({ ok: true, message: `Draft saved ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.` });
+      } else {
+        setFieldErrors(answer.fieldErrors ?? {});
+        setSaveState({ ok: false, message: answer.message });
+      }
+    });
+
+  return (
+    <div className="flex flex-col gap-4">
+      {editable ? (
+        <div className="no-print sticky top-0 z-10 -mx-8 flex flex-wrap items-center gap-3 border-b border-rule bg-paper/95 px-8 py-2 backdrop-blur">
+          <label className="flex min-w-80 flex-1 items-center gap-2 text-xs text-ink-soft">
+            Title
+            <input aria-label="Design title" value={title} onChange={(e) => { setTitle(e.target.value); setDirty(true); }} className="flex-1 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink" />
+          </label>
+          <span role="status" className="text-xs text-ink-faint">
+            {computing ? 'Recomputing…' : dirty ? 'Unsaved changes' : 'All changes saved'}
+          </span>
+          {saveState ? <span role={saveState.ok ? 'status' : 'alert'} className={`text-xs ${saveState.ok ? 'text-state-sound' : 'text-state-overdue'}`}>{saveState.message}</span> : null}
+          <Button onClick={save} disabled={saving || !dirty}>
+            {saving ? 'Saving…' : 'Save draft'}
+          </Button>
+        </div>
+      ) : null}
+      {computeMessage ? (
+        <p role="alert" className="rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
+          {computeMessage} Results below are from the last valid inputs.
+        </p>
+      ) : null}
+      <div className="grid gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+        <div className="flex min-w-0 flex-col gap-4">
+          <Panel title="Job and environment">
+            <JobFields inputs={inputs} update={update} errors={fieldErrors} editable={editable} />
+          </Panel>
+          <Panel title="Zones">
+            <ZonesTable inputs={inputs} update={update} errors={fieldErrors} editable={editable} vessel={vessel} />
+          </Panel>
+          <Panel title="Anode">
+            <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} />
+          </Panel>
+        </div>
+        <div className="flex min-w-0 flex-col gap-4">
+          <ResultsPanel computed={computed} stale={computing} />
+          {computed?.options.length ? (
+            <Panel title="Options compared (same job, every suitable catalogue model)">
+              <OptionsTable options={computed.options} chosenKey={inputs.anodeModelKey} onChoose={editable ? (key) => update((s) => ({ ...s, anodeModelKey: key })) : undefined} />
+            </Panel>
+          ) : null}
+          <Caution />
+        </div>
+      </div>
+    </div>
+  );
+}

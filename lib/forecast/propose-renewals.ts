@@ -1,0 +1,287 @@
+import { addMonthsUTC, dayNumberUTC, isoDay } from './dates';
+import { ForecastInputError } from './errors';
+import { date, list, record, text, whole } from './validate';
+
+/**
+ * Renewal scheduling: which docking (or diving campaign) renews each anode group.
+ *
+ * Rules, applied to each group in this order:
+ * 1. A group with a confirmed renewal is returned as 'kept' with that docking, never
+ *    re-proposed or overwritten by a recompute. It only gets a `warning` when the
+ *    confirmed docking is unknown, cancelled, or after the group's deadline.
+ * 2. A group whose end of life is null (never depletes) is 'sound'.
+ * 3. deadline = end of life - margin (calendar months, default 6, practice).
+ * 4. A deadline before today (by UTC calendar day) is 'no-docking' with
+ *    `needsDockingBy = deadline` and `overdue: true`.
+ * 5. Candidate dockings are those not cancelled, not done (a finished docking cannot
+ *    take a new renewal) and dated today or later. Let the horizon be the last candidate's
+ *    date (today when there is none) plus the typical docking interval (30 months,
+ *    practice; class allows at most 36). A deadline after the horizon means the next
+ *    docking, not yet planned, is expected before the deadline: the group is 'sound',
+ *    nothing to book yet, with `nextReviewBy = deadline`. (The margin is applied here too,
+ *    so a group whose deadline falls between the last planned docking and the next
+ *    expected one is renewed at the last planned docking: "hull anodes that will not
+ *    last to the next docking", design-basis.md, Inspection.)
+ * 6. Otherwise the proposal is the LAST candidate dated on or before the deadline: renew
+ *    at the last opportunity before the anodes run out so their life is used; a docking
+ *    after the deadline is too late. A group that outlives several dockings is proposed
+ *    at the last of them before its deadline. When the group's early date (the early end
+ *    of its forecast band) less the margin is before that docking, `atRisk` is true.
+ * 7. No candidate on or before the deadline: 'no-docking', `needsDockingBy = deadline`,
+ *    `overdue: false`.
+ *
+ * Cost: the dockings of an asset are validated, filtered and sorted once
+ * (O(D log D)); each group is then O(log D) by binary search, so a fleet is
+ * O(groups x log dockings) plus the sorting.
+ */
+
+export type DockingStatus = 'planned' | 'done' | 'cancelled';
+
+export interface DockingInput {
+  id: string;
+  /** Planned or actual start. */
+  date: Date;
+  /** Missing means planned. */
+  status?: DockingStatus;
+}
+
+export interface RenewalGroupInput {
+  id: string;
+  endOfLife: Date | null;
+  /** Early end of the forecast band (GroupForecast.early), for the `atRisk` flag. */
+  early?: Date | null;
+  confirmedRenewal?: { dockingId: string } | null;
+}
+
+export interface RenewalOptions {
+  today: Date;
+  /** Whole months between the deadline and the end of life; default 6 (practice). */
+  marginMonths?: number;
+  /** Expected interval after the last planned docking; default 30 months (practice). */
+  typicalIntervalMonths?: number;
+}
+
+export interface ProposeRenewalsInput extends RenewalOptions {
+  groups: readonly RenewalGroupInput[];
+  dockings: readonly DockingInput[];
+}
+
+export type RenewalStatus = 'proposed' | 'kept' | 'no-docking' | 'sound';
+
+export interface RenewalProposal {
+  groupId: string;
+  status: RenewalStatus;
+  /** 'proposed': the docking chosen; 'kept': the confirmed one. */
+  dockingId?: string;
+  dockingDate?: Date;
+  /** End of life less the margin, for every group that depletes. */
+  deadline?: Date;
+  /** 'no-docking': the date by which a docking is needed (the deadline). */
+  needsDockingBy?: Date;
+  /** 'no-docking': whether that date has already passed. */
+  overdue?: boolean;
+  /** 'sound' with a finite end of life: review (book a docking) by this date. */
+  nextReviewBy?: Date;
+  /** 'proposed': the early end of the band would need renewal before this docking. */
+  atRisk?: boolean;
+  /** One English sentence. */
+  reason: string;
+  /** 'kept' only: the confirmed booking looks wrong (one sentence). */
+  warning?: string;
+}
+
+export const DEFAULT_MARGIN_MONTHS = 6;
+export const DEFAULT_TYPICAL_INTERVAL_MONTHS = 30;
+
+export interface FleetAssetInput {
+  assetId: string;
+  groups: readonly RenewalGroupInput[];
+  dockings: readonly DockingInput[];
+}
+
+export interface FleetAssetProposals {
+  assetId: string;
+  proposals: RenewalProposal[];
+}
+
+const DOCKING_STATUSES: readonly DockingStatus[] = ['planned', 'done', 'cancelled'];
+
+interface Settings {
+  today: Date;
+  todayDay: number;
+  marginMonths: number;
+  intervalMonths: number;
+}
+
+interface PreparedDockings {
+  byId: Map<string, { date: Date; status: DockingStatus }>;
+  /** Candidates sorted by date (ties by id). */
+  ids: string[];
+  dates: Date[];
+  times: Float64Array;
+}
+
+/** Renewal proposals for the groups of one asset (vessel or structure). */
+export function proposeRenewals(input: ProposeRenewalsInput): RenewalProposal[] {
+  const inp = record(input, 'input');
+  const settings = readSettings(inp, '');
+  return proposeForAsset(inp.groups, inp.dockings, settings, '');
+}
+
+/** The same for many assets; options are read once, dockings sorted once per asset. */
+export function proposeRenewalsForFleet(assets: readonly FleetAssetInput[], opts: RenewalOptions): FleetAssetProposals[] {
+  const settings = readSettings(record(opts, 'opts'), 'opts.');
+  return list(assets, 'assets').map((a, i) => {
+    const asset = record(a, `assets[${i}]`);
+    const assetId = text(asset.assetId, `assets[${i}].assetId`);
+    return { assetId, proposals: proposeForAsset(asset.groups, asset.dockings, settings, `assets[${i}].`) };
+  });
+}
+
+function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
+  const today = date(inp.today, `${prefix}today`);
+  const marginMonths = inp.marginMonths === undefined ? DEFAULT_MARGIN_MONTHS : whole(inp.marginMonths, `${prefix}marginMonths`, 0, 120);
+  const intervalMonths =
+    inp.typicalIntervalMonths === undefined
+      ? DEFAULT_TYPICAL_INTERVAL_MONTHS
+      : whole(inp.typicalIntervalMonths, `${prefix}typicalIntervalMonths`, 1, 120);
+  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths };
+}
+
+function prepareDockings(value: unknown, todayDay: number, prefix: string): PreparedDockings {
+  const raw = list(value, `${prefix}dockings`);
+  const byId = new Map<string, { date: Date; status: DockingStatus }>();
+  const candidates: { id: string; date: Date }[] = [];
+  raw.forEach((d, i) => {
+    const field = `${prefix}dockings[${i}]`;
+    const r = record(d, field);
+    const id = text(r.id, `${field}.id`);
+    const when = date(r.date, `${field}.date`);
+    let status: DockingStatus = 'planned';
+    if (r.status !== undefined) {
+      if (typeof r.status !== 'string' || !(DOCKING_STATUSES as readonly string[]).includes(r.status)) {
+        throw new ForecastInputError(`${field}.status`, `${field}.status must be one of 'planned', 'done', 'cancelled'.`);
+      }
+      status = r.status as DockingStatus;
+    }
+    if (byId.has(id)) throw new ForecastInputError(`${field}.id`, `${field}.id ${JSON.stringify(id)} appears twice.`);
+    byId.set(id, { date: when, status });
+    if (status === 'planned' && dayNumberUTC(when) >= todayDay) candidates.push({ id, date: when });
+  });
+  candidates.sort((a, b) => a.date.getTime() - b.date.getTime() || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  const times = new Float64Array(candidates.length);
+  candidates.forEach((c, i) => (times[i] = c.date.getTime()));
+  return { byId, ids: candidates.map((c) => c.id), dates: candidates.map((c) => c.date), times };
+}
+
+/** Index of the last time <= t, or -1. */
+function lastAtOrBefore(times: Float64Array, t: number): number {
+  let lo = 0;
+  let hi = times.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (times[mid] <= t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo - 1;
+}
+
+function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settings, prefix: string): RenewalProposal[] {
+  const groups = list(groupsValue, `${prefix}groups`);
+  const docks = prepareDockings(dockingsValue, s.todayDay, prefix);
+  const n = docks.times.length;
+  const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
+  const horizon = addMonthsUTC(horizonBase, s.intervalMonths).getTime();
+  const horizonText = n > 0 ? `the last planned docking (${docks.ids[n - 1]}, ${isoDay(horizonBase)})` : 'today, with no docking planned';
+  const marginText = `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`;
+
+  return groups.map((g, i): RenewalProposal => {
+    const field = `${prefix}groups[${i}]`;
+    const r = record(g, field);
+    const groupId = text(r.id, `${field}.id`);
+    const endOfLife = r.endOfLife === null ? null : date(r.endOfLife, `${field}.endOfLife`);
+    const early = r.early === undefined || r.early === null ? null : date(r.early, `${field}.early`);
+    let confirmedId: string | null = null;
+    if (r.confirmedRenewal !== undefined && r.confirmedRenewal !== null) {
+      confirmedId = text(record(r.confirmedRenewal, `${field}.confirmedRenewal`).dockingId, `${field}.confirmedRenewal.dockingId`);
+    }
+    const deadline = endOfLife === null ? null : addMonthsUTC(endOfLife, -s.marginMonths);
+    const because = endOfLife === null || deadline === null ? '' : ` (end of life ${isoDay(endOfLife)} less ${marginText})`;
+
+    // Rule 1: a confirmed renewal is kept as it is.
+    if (confirmedId !== null) {
+      const booked = docks.byId.get(confirmedId);
+      const out: RenewalProposal = {
+        groupId,
+        status: 'kept',
+        dockingId: confirmedId,
+        ...(booked ? { dockingDate: booked.date } : {}),
+        ...(deadline ? { deadline } : {}),
+        reason: `The renewal confirmed at docking ${confirmedId} is kept as booked.`,
+      };
+      if (!booked) out.warning = `Docking ${confirmedId} is not among this asset's dockings.`;
+      else if (booked.status === 'cancelled') out.warning = `Docking ${confirmedId} has been cancelled; the renewal needs another docking.`;
+      else if (deadline && booked.date.getTime() > deadline.getTime()) {
+        out.warning = `Docking ${confirmedId} on ${isoDay(booked.date)} is after the deadline ${isoDay(deadline)}${because}.`;
+      }
+      return out;
+    }
+
+    // Rule 2: never depletes.
+    if (endOfLife === null || deadline === null) {
+      return { groupId, status: 'sound', reason: 'At its forecast rate the group never reaches its end of life, so it needs no renewal.' };
+    }
+
+    // Rule 4: the deadline has passed.
+    if (dayNumberUTC(deadline) < s.todayDay) {
+      return {
+        groupId,
+        status: 'no-docking',
+        deadline,
+        needsDockingBy: deadline,
+        overdue: true,
+        reason: `The renewal deadline ${isoDay(deadline)}${because} has passed, so the group needs a docking as soon as possible.`,
+      };
+    }
+
+    // Rule 5: outlives the planned dockings and the next expected one.
+    if (deadline.getTime() > horizon) {
+      return {
+        groupId,
+        status: 'sound',
+        deadline,
+        nextReviewBy: deadline,
+        reason: `The deadline ${isoDay(deadline)}${because} is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
+      };
+    }
+
+    // Rule 6: the last candidate on or before the deadline.
+    const k = lastAtOrBefore(docks.times, deadline.getTime());
+    if (k >= 0) {
+      const dockingDate = docks.dates[k];
+      const earlyDeadline = early ? addMonthsUTC(early, -s.marginMonths) : null;
+      const atRisk = earlyDeadline !== null && dockingDate.getTime() > earlyDeadline.getTime();
+      return {
+        groupId,
+        status: 'proposed',
+        dockingId: docks.ids[k],
+        dockingDate,
+        deadline,
+        ...(atRisk ? { atRisk: true } : {}),
+        reason:
+          `Renew at docking ${docks.ids[k]} on ${isoDay(dockingDate)}, the last docking before the deadline ${isoDay(deadline)}${because}` +
+          (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${isoDay(earlyDeadline)}.` : '.'),
+      };
+    }
+
+    // Rule 7: no docking early enough.
+    return {
+      groupId,
+      status: 'no-docking',
+      deadline,
+      needsDockingBy: deadline,
+      overdue: false,
+      reason: `No planned docking falls on or before the deadline ${isoDay(deadline)}${because}, so the group needs a docking by then.`,
+    };
+  });
+}

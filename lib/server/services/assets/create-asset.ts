@@ -1,0 +1,35 @@
+import { AssetSchema } from '@/entities';
+import { assetSchema } from '@/lib/schemas/assets';
+import { audit } from '../../audit';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+
+export async function createAsset(ctx: OrgContext, input: unknown) {
+  requirePermission(ctx, 'asset:write');
+  const data = assetSchema.parse(input);
+  const asset = ctx.em.create(AssetSchema, { ...blankParticulars(), ...data, organisation: ctx.organisation });
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'asset.created', targetType: 'asset', targetId: asset.id, details: { name: asset.name, kind: asset.kind } });
+  await ctx.em.flush();
+  return asset;
+}
+
+function blankParticulars() {
+  return {
+    imoNumber: null,
+    vesselType: null,
+    lengthBppM: null,
+    beamM: null,
+    draughtM: null,
+    blockCoefficient: null,
+    hullMaterial: null,
+    hasImpressedCurrent: false,
+    tradingWaters: null,
+    structureType: null,
+    location: null,
+    waterType: null,
+    designLifeYears: null,
+    pileCount: null,
+    pileDiameterM: null,
+    notes: null,
+    archivedAt: null,
+  };
+}

@@ -1,0 +1,57 @@
+import { createElement } from 'react';
+import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
+import type { ReactElement } from 'react';
+import type { DesignResult } from '@/lib/cp';
+import { deskInputsSchema } from '@/lib/schemas/design';
+import { CalculationNote, type CalculationNoteData } from '@/components/pdf/calculation-note';
+import { registerPdfFonts } from '@/components/pdf/pdf-kit';
+import { audit } from '../../audit';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { getDesignOrThrow } from './get-design';
+
+/** Renders a design revision's calculation note as PDF bytes, from what is stored with the revision. */
+export async function renderCalculationNote(ctx: OrgContext, designId: string): Promise<{ pdf: Buffer; filename: string }> {
+  requirePermission(ctx, 'org:print');
+  const design = await getDesignOrThrow(ctx, designId);
+  const stored = design.inputs as Record<string, unknown> & { anodeModelSnapshot?: CalculationNoteData['model'] };
+  const inputs = deskInputsSchema.parse(stored);
+  const results = design.results as (DesignResult & { notices?: CalculationNoteData['notices'] }) | null;
+  const asset = design.asset;
+  const particulars: [string, string][] =
+    asset.kind === 'vessel'
+      ? [
+          ['Vessel', `${asset.name}${asset.vesselType ? `, ${asset.vesselType}` : ''}${asset.imoNumber ? `, IMO ${asset.imoNumber}` : ''}`],
+          ['Length between perpendiculars × beam × draught', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM} × ${asset.draughtM} m` : 'not given'],
+          ['Block coefficient', asset.blockCoefficient?.toString() ?? 'not given'],
+          ['Hull material', asset.hullMaterial ?? 'not given'],
+          ['Impressed-current system', asset.hasImpressedCurrent ? 'fitted' : 'none'],
+        ]
+      : [
+          ['Structure', `${asset.name}${asset.structureType ? `, ${asset.structureType}` : ''}`],
+          ['Location', asset.location ?? 'not given'],
+          ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : 'not given'],
+        ];
+  const data: CalculationNoteData = {
+    organisation: ctx.organisation.name,
+    asset: { name: asset.name, kind: asset.kind, particulars },
+    design: { title: design.title, revision: design.revision, status: design.status, appVersion: design.appVersion, basedOnRevision: design.basedOnRevision ?? null },
+    inputs,
+    model: stored.anodeModelSnapshot ?? { designation: inputs.anodeModelKey, alloy: 'al-zn-in', mounting: 'flush-weld', netMassKg: 0, grossMassKg: 0 },
+    result: results,
+    resultError: design.resultError ?? null,
+    notices: results?.notices ?? [],
+    signatures: [
+      { role: 'Prepared', name: design.preparedBy.name, at: design.createdAt },
+      { role: 'Checked', name: design.checkedBy?.name ?? null, at: design.checkedAt ?? null },
+      { role: 'Approved', name: design.approvedBy?.name ?? null, at: design.approvedAt ?? null },
+    ],
+    printedAt: new Date(),
+    printedBy: ctx.user.name,
+  };
+  registerPdfFonts();
+  const pdf = await renderToBuffer(createElement(CalculationNote, { data }) as unknown as ReactElement<DocumentProps>);
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.printed', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
+  await ctx.em.flush();
+  const safeName = asset.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '');
+  return { pdf, filename: `calculation-note-${safeName}-rev${design.revision}.pdf` };
+}

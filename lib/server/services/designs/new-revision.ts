@@ -1,0 +1,34 @@
+import { DesignSchema, UserSchema } from '@/entities';
+import { audit } from '../../audit';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { APP_VERSION } from '../../app-version';
+import { getDesignOrThrow } from './get-design';
+import { nextRevision } from './create-design';
+
+/** A new draft revision carrying over the inputs of any revision (usually the approved one). */
+export async function newRevision(ctx: OrgContext, designId: string) {
+  requirePermission(ctx, 'design:write');
+  const source = await getDesignOrThrow(ctx, designId);
+  const revision = await nextRevision(ctx, source.asset.id);
+  const design = ctx.em.create(DesignSchema, {
+    organisation: ctx.organisation,
+    asset: source.asset,
+    revision,
+    title: source.title,
+    status: 'draft',
+    inputs: structuredClone(source.inputs),
+    results: source.results ? structuredClone(source.results) : null,
+    resultError: source.resultError,
+    basis: source.basis ? structuredClone(source.basis) : null,
+    appVersion: APP_VERSION,
+    preparedBy: ctx.em.getReference(UserSchema, ctx.user.id),
+    basedOnRevision: source.revision,
+    checkedBy: null,
+    approvedBy: null,
+    checkedAt: null,
+    approvedAt: null,
+  });
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.revised', targetType: 'design', targetId: design.id, details: { from: source.revision, to: revision, asset: source.asset.name } });
+  await ctx.em.flush();
+  return design;
+}

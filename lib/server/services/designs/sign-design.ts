@@ -1,0 +1,47 @@
+import { UserSchema } from '@/entities';
+import { AppError } from '../../errors';
+import { audit } from '../../audit';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { getDesignOrThrow } from './get-design';
+import { assertEditable } from './store-results';
+
+function assertSignable(ctx: OrgContext, design: Awaited<ReturnType<typeof getDesignOrThrow>>, what: string) {
+  assertEditable(design);
+  if (design.preparedBy.id === ctx.user.id) {
+    throw new AppError('forbidden', `You prepared revision ${design.revision}; a second engineer must ${what} it.`);
+  }
+  if (!design.results || design.resultError) {
+    throw new AppError('conflict', `Revision ${design.revision} has no valid results to ${what}; correct its inputs first.`);
+  }
+}
+
+/** The checker's signature: any engineer other than the preparer. */
+export async function checkDesign(ctx: OrgContext, designId: string) {
+  requirePermission(ctx, 'design:write');
+  const design = await getDesignOrThrow(ctx, designId);
+  assertSignable(ctx, design, 'check');
+  design.status = 'checked';
+  design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);
+  design.checkedAt = new Date();
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.checked', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
+  await ctx.em.flush();
+  return design;
+}
+
+/** Approval: an engineer other than the preparer; the revision becomes immutable. */
+export async function approveDesign(ctx: OrgContext, designId: string) {
+  requirePermission(ctx, 'design:approve');
+  const design = await getDesignOrThrow(ctx, designId);
+  assertSignable(ctx, design, 'approve');
+  const now = new Date();
+  if (!design.checkedBy) {
+    design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);
+    design.checkedAt = now;
+  }
+  design.status = 'approved';
+  design.approvedBy = ctx.em.getReference(UserSchema, ctx.user.id);
+  design.approvedAt = now;
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.approved', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
+  await ctx.em.flush();
+  return design;
+}
