@@ -10,6 +10,8 @@ export function ormConfig(clientUrl: string, overrides: Partial<Options> = {}): 
     clientUrl,
     entities: allEntities,
     discovery: { disableDynamicFileAccess: true },
+    // Run onCreate hooks in em.create(), so a new entity's UUID is known before the flush (audit rows use it).
+    processOnCreateHooksEarly: true,
     extensions: [Migrator],
     migrations: {
       migrationsList,

@@ -121,7 +121,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
           {computeMessage} Results below are from the last valid inputs.
         </p>
       ) : null}
-      <div className="grid gap-4 2xl:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,11fr)_minmax(0,9fr)]">
         <div className="flex min-w-0 flex-col gap-4">
           <Panel title="Job and environment">
             <JobFields inputs={inputs} update={update} errors={fieldErrors} editable={editable} />
@@ -133,7 +133,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
             <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} />
           </Panel>
         </div>
-        <div className="flex min-w-0 flex-col gap-4">
+        <div className="flex min-w-0 flex-col gap-4 xl:sticky xl:top-12 xl:max-h-[calc(100vh-4rem)] xl:overflow-y-auto">
           <ResultsPanel computed={computed} stale={computing} />
           {computed?.options.length ? (
             <Panel title="Options compared (same job, every suitable catalogue model)">

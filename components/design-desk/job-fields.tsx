@@ -19,7 +19,7 @@ export function JobFields({ inputs, update, errors, editable }: Props) {
   const temperature = Number(inputs.temperatureC);
   const bandFromTemperature = inputs.temperatureC !== null && inputs.temperatureC !== '' && Number.isFinite(temperature) ? climateFromTemperature(temperature) : null;
   return (
-    <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
+    <div className="@container"><div className="grid grid-cols-2 gap-3 @2xl:grid-cols-4">
       <NumberInput label="Design life" unit="years" value={inputs.designLifeYears} onChange={(v) => set('designLifeYears', v)} errors={errors.designLifeYears} disabled={disabled} hint="Usually to the next dry-docking" />
       <NumberInput label="Next docking in" unit="years" value={inputs.nextDockingYears} onChange={(v) => set('nextDockingYears', v)} errors={errors.nextDockingYears} disabled={disabled} hint="Optional; warns if life is shorter" />
       <SelectInput label="Water" value={inputs.water} onChange={(v) => set('water', v as DeskState['water'])} options={optionsFrom(WATER_LABELS, WATER_VALUES)} errors={errors.water} disabled={disabled} />
@@ -60,6 +60,7 @@ export function JobFields({ inputs, update, errors, editable }: Props) {
           <CheckboxInput label="Allow magnesium on this aluminium hull (not recommended)" checked={Boolean(inputs.allowMagnesiumOnAluminium)} onChange={(v) => set('allowMagnesiumOnAluminium', v)} disabled={disabled} />
         ) : null}
       </div>
+    </div>
     </div>
   );
 }

@@ -40,7 +40,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
   const totalArea = inputs.surfaces.reduce((sum, z) => sum + (Number(z.areaM2) || 0), 0);
 
   return (
-    <div className="flex flex-col gap-3">
+    <div className="@container flex flex-col gap-3">
       {errors.surfaces ? <p role="alert" className="text-xs text-state-overdue">{errors.surfaces[0]}</p> : null}
       <ol className="flex flex-col gap-2">
         {inputs.surfaces.map((zone, i) => {
@@ -49,7 +49,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
           const custom = zone.currentDensityOverride;
           return (
             <li key={i} className="rounded-[3px] border border-rule bg-paper px-3 py-2" aria-label={`Zone ${i + 1}`}>
-              <div className="grid grid-cols-2 gap-2 md:grid-cols-6">
+              <div className="grid grid-cols-2 gap-2 @xl:grid-cols-4 @4xl:grid-cols-6">
                 <div className="col-span-2 flex flex-col gap-0.5">
                   <label className="text-xs text-ink-soft" htmlFor={`zone-name-${i}`}>
                     Zone name
@@ -86,7 +86,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                     disabled={disabled}
                   />
                 )}
-                <div className="col-span-2 flex flex-col gap-0.5 md:col-span-4">
+                <div className="col-span-2 flex flex-col gap-0.5 @4xl:col-span-4">
                   <span className="text-xs text-ink-soft">Design current density, bare metal (initial / mean / final)</span>
                   {custom ? (
                     <div className="grid grid-cols-3 gap-2">

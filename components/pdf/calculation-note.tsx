@@ -22,13 +22,13 @@ export interface CalculationNoteData {
 
 const EQUATIONS = [
   ['Current demand of a surface', 'Ic = Ac · fc · ic', 'DNV-RP-B401 (2010) sec. 7'],
-  ['Coating breakdown factor', 'fc = a + b·t; fci = a, fcm = a + b·tf/2, fcf = a + b·tf (≤ 1)', 'DNV-RP-B401 (2010) sec. 7'],
+  ['Coating breakdown factor', 'fc = a + b·t; fci = a, fcm = a + b·tf/2, fcf = a + b·tf (at most 1)', 'DNV-RP-B401 (2010) sec. 7'],
   ['Net anode mass', 'M = Icm · tf · 8760 / (u · ε)', 'DNV-RP-B401 (2010) sec. 7'],
-  ['Anode current output', 'Ia = (Ec − Ea) / Ra', 'DNV-RP-B401 (2010) sec. 7'],
-  ['Resistance, long slender stand-off', 'Ra = ρ/(2πL) · (ln(4L/r) − 1)', 'DNV-RP-B401 (2010) Table 10-7 (modified Dwight)'],
+  ['Anode current output', 'Ia = (Ec - Ea) / Ra', 'DNV-RP-B401 (2010) sec. 7'],
+  ['Resistance, long slender stand-off', 'Ra = ρ/(2πL) · (ln(4L/r) - 1)', 'DNV-RP-B401 (2010) Table 10-7 (modified Dwight)'],
   ['Resistance, long flush', 'Ra = ρ/(2S), S = (L + W)/2', 'DNV-RP-B401 (2010) Table 10-7'],
-  ['Resistance, short flush and bracelet', 'Ra = 0.315 ρ/√A', 'DNV-RP-B401 (2010) Table 10-7 (McCoy)'],
-  ['Count', 'N·m ≥ M; N·Iai ≥ Ici; N·Iaf ≥ Icf', 'DNV-RP-B401 (2010) sec. 7'],
+  ['Resistance, short flush and bracelet', 'Ra = 0.315 ρ / sqrt(A)', 'DNV-RP-B401 (2010) Table 10-7 (McCoy)'],
+  ['Count', 'N·m >= M; N·Iai >= Ici; N·Iaf >= Icf', 'DNV-RP-B401 (2010) sec. 7'],
 ];
 
 /** The calculation note: inputs, equations, results, sources, warnings, revision block and cautions. */
@@ -106,9 +106,9 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
             <PdfTable
               columns={[{ label: 'Criterion', width: 50 }, { label: 'Exact', width: 25, align: 'right' }, { label: 'Count', width: 25, align: 'right' }]}
               rows={[
-                ['Net anode mass (N·m ≥ M)', fmt(result.exactCountBy.mass, 2), result.countBy.mass],
-                ['Initial current (N·Iai ≥ Ici)', fmt(result.exactCountBy.initialCurrent, 2), result.countBy.initialCurrent],
-                ['Final current (N·Iaf ≥ Icf)', fmt(result.exactCountBy.finalCurrent, 2), result.countBy.finalCurrent],
+                ['Net anode mass (N·m >= M)', fmt(result.exactCountBy.mass, 2), result.countBy.mass],
+                ['Initial current (N·Iai >= Ici)', fmt(result.exactCountBy.initialCurrent, 2), result.countBy.initialCurrent],
+                ['Final current (N·Iaf >= Icf)', fmt(result.exactCountBy.finalCurrent, 2), result.countBy.finalCurrent],
               ]}
             />
             <Text style={{ ...pdf.small, marginTop: 6, marginBottom: 2 }}>Current demand and distribution</Text>
@@ -139,7 +139,7 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
               columns={[{ label: 'Quantity', width: 55 }, { label: 'Value', width: 45, align: 'right' }]}
               rows={[
                 ['Required net mass M', `${fmt(result.requiredNetMassKg, 1)} kg`],
-                ['Driving voltage Ec − Ea', `${fmt(result.drivingVoltageV, 3)} V`],
+                ['Driving voltage Ec - Ea', `${fmt(result.drivingVoltageV, 3)} V`],
                 ['Resistance, initial / end of life', `${fmtSig(result.perAnode.initialResistanceOhm, 4)} / ${fmtSig(result.perAnode.finalResistanceOhm, 4)} Ω`],
                 ['Output, initial / end of life', `${fmtSig(result.perAnode.initialOutputA)} / ${fmtSig(result.perAnode.finalOutputA)} A${result.perAnode.ratedOutputUsed ? ' (data sheet)' : ''}`],
                 ['Installed net / gross mass', `${fmt(result.installedNetMassKg, 1)} / ${result.installedGrossMassKg !== null ? fmt(result.installedGrossMassKg, 1) : '–'} kg`],

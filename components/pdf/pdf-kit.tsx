@@ -6,14 +6,17 @@ let registered = false;
 export function registerPdfFonts() {
   if (registered) return;
   const file = (w: number) => path.join(process.cwd(), 'fonts', `inter-latin-${w}-normal.woff`);
+  const greek = (w: number) => path.join(process.cwd(), 'fonts', `inter-greek-${w}-normal.woff`);
   Font.register({ family: 'Inter', fonts: [{ src: file(400), fontWeight: 400 }, { src: file(600), fontWeight: 600 }, { src: file(700), fontWeight: 700 }] });
+  // Greek letters (ρ, ε, π, Ω) come from Inter's Greek subset as a fallback family.
+  Font.register({ family: 'InterGreek', fonts: [{ src: greek(400), fontWeight: 400 }, { src: greek(600), fontWeight: 600 }, { src: greek(700), fontWeight: 700 }] });
   Font.registerHyphenationCallback((word) => [word]);
   registered = true;
 }
 
 export const pdf = StyleSheet.create({
-  page: { fontFamily: 'Inter', fontSize: 8.5, color: '#1c232b', paddingTop: 36, paddingBottom: 48, paddingHorizontal: 36, lineHeight: 1.35 },
-  h1: { fontSize: 15, fontWeight: 700, color: '#1a474b' },
+  page: { fontFamily: ['Inter', 'InterGreek'] as unknown as string, fontSize: 8.5, color: '#1c232b', paddingTop: 36, paddingBottom: 48, paddingHorizontal: 36, lineHeight: 1.35 },
+  h1: { fontSize: 15, fontWeight: 700, color: '#1a474b', lineHeight: 1.25, marginBottom: 3 },
   h2: { fontSize: 10.5, fontWeight: 600, color: '#1a474b', marginTop: 12, marginBottom: 4, borderBottomWidth: 0.6, borderBottomColor: '#b9b3a7', paddingBottom: 2 },
   small: { fontSize: 7.5, color: '#46505b' },
   row: { flexDirection: 'row', borderBottomWidth: 0.4, borderBottomColor: '#d9d5cc', paddingVertical: 2 },

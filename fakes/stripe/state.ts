@@ -306,7 +306,7 @@ export class Store {
         created,
         seq: this.seq,
         name: plan.name,
-        description: `Tidewarden ${plan.name}: up to ${plan.maxAssets === 'unlimited' ? 'any number of' : plan.maxAssets} assets.`,
+        description: `Tidewarden ${plan.name}: ${plan.maxAssets === 'unlimited' ? 'unlimited assets' : `up to ${plan.maxAssets} assets`}.`,
         active: true,
         metadata: { max_assets: plan.maxAssets },
         default_price: plan.price,
@@ -453,22 +453,21 @@ export class Store {
 
   /** Renders any object by id, for `expand[]`. */
   lookupAny(id: string): Json | null {
-    const rec =
-      this.customers.get(id) ??
-      this.products.get(id) ??
-      this.prices.get(id) ??
-      this.checkoutSessions.get(id) ??
-      this.subscriptions.get(id) ??
-      this.invoices.get(id) ??
-      this.portalSessions.get(id);
-    if (!rec) return (this.eventIndex.get(id) as Json | undefined) ?? null;
-    if (this.customers.has(id)) return this.renderCustomer(rec as CustomerRec);
-    if (this.products.has(id)) return this.renderProduct(rec as ProductRec);
-    if (this.prices.has(id)) return this.renderPrice(rec as PriceRec);
-    if (this.checkoutSessions.has(id)) return this.renderCheckoutSession(rec as CheckoutSessionRec);
-    if (this.subscriptions.has(id)) return this.renderSubscription(rec as SubscriptionRec);
-    if (this.invoices.has(id)) return this.renderInvoice(rec as InvoiceRec);
-    return this.renderPortalSession(rec as PortalSessionRec);
+    const customer = this.customers.get(id);
+    if (customer) return this.renderCustomer(customer);
+    const product = this.products.get(id);
+    if (product) return this.renderProduct(product);
+    const price = this.prices.get(id);
+    if (price) return this.renderPrice(price);
+    const session = this.checkoutSessions.get(id);
+    if (session) return this.renderCheckoutSession(session);
+    const subscription = this.subscriptions.get(id);
+    if (subscription) return this.renderSubscription(subscription);
+    const invoice = this.invoices.get(id);
+    if (invoice) return this.renderInvoice(invoice);
+    const portal = this.portalSessions.get(id);
+    if (portal) return this.renderPortalSession(portal);
+    return this.eventIndex.get(id) ?? null;
   }
 
   // ----- rendering --------------------------------------------------------------------------------------
@@ -1011,7 +1010,8 @@ export class Store {
   getCheckoutSession(id: string, expandPaths: string[] = []): Json {
     const rec = this.checkoutSessionRec(id);
     const out = this.renderCheckoutSession(rec);
-    if (expandPaths.includes('line_items')) out.line_items = this.renderCheckoutLineItems(rec);
+    // Not part of the object unless asked for (also for nested paths such as line_items.data.price.product).
+    if (expandPaths.some((p) => p === 'line_items' || p.startsWith('line_items.'))) out.line_items = this.renderCheckoutLineItems(rec);
     return out;
   }
 

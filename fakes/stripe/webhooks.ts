@@ -175,8 +175,9 @@ export class WebhookQueue {
       await response.arrayBuffer().catch(() => undefined);
       return { at, status: response.status };
     } catch (error) {
-      const cause = (error as { cause?: { code?: string } }).cause;
-      return { at, error: cause?.code ?? (error as Error).name ?? 'error' };
+      // fetch() wraps the interesting part (ECONNREFUSED, "bad port", a timeout) in `cause`.
+      const cause = (error as { cause?: { code?: string; message?: string } }).cause;
+      return { at, error: cause?.code ?? cause?.message ?? (error as Error).message ?? 'error' };
     }
   }
 }

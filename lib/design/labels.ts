@@ -28,7 +28,7 @@ export const DEPTH_BAND_LABELS: Record<string, string> = {
 export const COATING_LABELS: Record<string, string> = {
   I: 'Cat. I (about 50 µm)',
   II: 'Cat. II (150–250 µm)',
-  III: 'Cat. III (≥ 300 µm)',
+  III: 'Cat. III (300 µm or more)',
   bare: 'Bare metal',
 };
 export const CRITERION_LABELS: Record<string, string> = {

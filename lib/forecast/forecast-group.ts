@@ -22,7 +22,7 @@ import { date, fraction, list, nonNegative, positive, record, unitFraction, whol
  *       affected by the +/- several per cent of a visual estimate. Evidence outranks the
  *       input: this holds even when currentA is 0.
  *    b. The latest survey is under half a year after installation: too short a baseline
- *       for a rate (a 5 % reading error over 3 months is a 20 %/yr error), so the design
+ *       for a rate (a 0.05 reading error over 3 months is 0.20 per year), so the design
  *       rate continues from the survey point.
  * 3. A latest survey at or below the end fraction (1 - u) means the group is spent: its
  *    end of life is the first time the recorded history (installation and surveys joined

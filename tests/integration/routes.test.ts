@@ -10,9 +10,20 @@ import { cookieJar, nextHeadersMock } from '../fixtures/next-headers-mock';
 vi.mock('next/headers', () => nextHeadersMock);
 
 // Every organisation route handler with the permission it needs; later features add theirs here.
-const ROUTES: { path: string; load: () => Promise<{ GET: Function }>; permission: (role: Role) => boolean }[] = [
+// A sizing every role may run (invented job: 1,000 m² of bare steel, one stand-off anode model).
+const CALCULATION = {
+  designLifeYears: 10,
+  resistivityOhmM: 0.25,
+  protectedMetal: 'steel',
+  surfaces: [{ name: 'Piles', areaM2: 1000, currentDensity: { initial: 0.2, mean: 0.1, final: 0.13 }, coating: 'bare' }],
+  anode: { alloy: 'al-zn-in', capacityAhPerKg: 2000, potentialV: -1.05, utilisationFactor: 0.9, netMassKg: 200, shape: { kind: 'slender-standoff', lengthM: 2, radiusM: 0.1 } },
+};
+type Handler = (req: NextRequest, route: { params: Promise<Record<string, string>> }) => Promise<Response>;
+const ROUTES: { path: string; method?: 'GET' | 'POST'; body?: unknown; load: () => Promise<Record<string, unknown>>; permission: (role: Role) => boolean }[] = [
   { path: 'team', load: () => import('@/app/api/orgs/[org]/team/route'), permission: (r) => r === 'owner' },
   { path: 'audit', load: () => import('@/app/api/orgs/[org]/audit/route'), permission: (r) => r === 'owner' },
+  { path: 'designs', load: () => import('@/app/api/orgs/[org]/designs/route'), permission: () => true },
+  { path: 'calculations', method: 'POST', body: CALCULATION, load: () => import('@/app/api/orgs/[org]/calculations/route'), permission: () => true },
 ];
 
 let home: { organisation: Organisation; users: Record<Role, User> };
@@ -26,9 +37,11 @@ async function signInAs(user: User | null) {
   cookieJar.set(lucia.sessionCookieName, session.id);
 }
 
-async function call(route: (typeof ROUTES)[number], slug: string, search = '') {
-  const { GET } = await route.load();
-  const res: Response = await GET(new NextRequest(`http://127.0.0.1/api/orgs/${slug}/${route.path}${search}`), { params: Promise.resolve({ org: slug }) });
+async function call(route: (typeof ROUTES)[number], slug: string, search = '', body = route.body) {
+  const method = route.method ?? 'GET';
+  const handler = (await route.load())[method] as Handler;
+  const init = method === 'POST' ? { method, body: JSON.stringify(body), headers: { 'content-type': 'application/json' } } : undefined;
+  const res = await handler(new NextRequest(`http://127.0.0.1/api/orgs/${slug}/${route.path}${search}`, init), { params: Promise.resolve({ org: slug }) });
   return { status: res.status, body: await res.json() };
 }
 
@@ -70,15 +83,26 @@ describe('organisation route handlers', () => {
 
   it('the team route lists members with their roles and no secrets', async () => {
     await signInAs(home.users.owner);
-    const { body } = await call(ROUTES[0], home.organisation.slug);
+    const { body } = await call(ROUTES.find((r) => r.path === 'team')!, home.organisation.slug);
     expect(body.members).toHaveLength(ROLES.length);
     expect(body.members.map((m: { role: string }) => m.role).sort()).toEqual([...ROLES].sort());
     expect(JSON.stringify(body)).not.toMatch(/argon2|passwordHash|tokenHash/);
   });
 
+  it('the stateless calculation returns the sizing; invalid input is a 422 naming the field', async () => {
+    await signInAs(home.users.viewer);
+    const calculations = ROUTES.find((r) => r.path === 'calculations')!;
+    const ok = await call(calculations, home.organisation.slug);
+    expect(ok.body.result.current.meanA).toBeCloseTo(100, 6); // 1,000 m² x 0.100 A/m² bare
+    expect(ok.body.result.governingCriterion).toBeTruthy();
+    const bad = await call(calculations, home.organisation.slug, '', { ...CALCULATION, surfaces: [{ ...CALCULATION.surfaces[0], areaM2: -1 }] });
+    expect(bad.status).toBe(422);
+    expect(Object.keys(bad.body.error.fieldErrors)).toEqual(['surfaces[0].areaM2']);
+  });
+
   it('a malformed query is a 422 with the field named', async () => {
     await signInAs(home.users.owner);
-    const { status, body } = await call(ROUTES[1], home.organisation.slug, '?page=-3');
+    const { status, body } = await call(ROUTES.find((r) => r.path === 'audit')!, home.organisation.slug, '?page=-3');
     expect(status).toBe(422);
     expect(body.error.fieldErrors.page).toBeTruthy();
   });
