@@ -12,6 +12,8 @@ import { AssetSchema } from './asset.entity';
 import { ZoneSchema } from './zone.entity';
 import { AnodeModelSchema } from './anode-model.entity';
 import { DesignSchema } from './design.entity';
+import { AnodeGroupSchema, AnodeGroupChangeSchema } from './anode-group.entity';
+import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema } from './survey.entity';
 
 export * from './user.entity';
 export * from './session.entity';
@@ -26,6 +28,8 @@ export * from './asset.entity';
 export * from './zone.entity';
 export * from './anode-model.entity';
 export * from './design.entity';
+export * from './anode-group.entity';
+export * from './survey.entity';
 
 export const allEntities = [
   UserSchema,
@@ -41,4 +45,9 @@ export const allEntities = [
   ZoneSchema,
   AnodeModelSchema,
   DesignSchema,
+  AnodeGroupSchema,
+  AnodeGroupChangeSchema,
+  SurveySchema,
+  SurveyReadingSchema,
+  SurveyAttachmentSchema,
 ];

@@ -133,7 +133,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
             <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} />
           </Panel>
         </div>
-        <div className="flex min-w-0 flex-col gap-4 xl:sticky xl:top-12 xl:max-h-[calc(100vh-4rem)] xl:overflow-y-auto">
+        <div className="flex min-w-0 flex-col gap-4 xl:sticky xl:top-12 xl:max-h-[calc(100vh-4rem)] xl:overflow-y-auto print:static print:max-h-none print:overflow-visible">
           <ResultsPanel computed={computed} stale={computing} />
           {computed?.options.length ? (
             <Panel title="Options compared (same job, every suitable catalogue model)">

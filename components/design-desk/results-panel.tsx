@@ -83,7 +83,6 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 <tr className="border-b border-rule">
                   <th className="py-1 text-left font-medium">Zone</th>
                   <th className="py-1 text-right font-medium">Area m²</th>
-                  <th className="py-1 text-right font-medium">fc i / m / f</th>
                   <th className="py-1 text-right font-medium">Initial A</th>
                   <th className="py-1 text-right font-medium">Mean A</th>
                   <th className="py-1 text-right font-medium">Final A</th>
@@ -93,11 +92,13 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
               <tbody>
                 {result.surfaces.map((s, i) => (
                   <tr key={i} className="border-b border-rule">
-                    <td className="py-1">{s.name}</td>
-                    <td className="num py-1">{fmt(s.areaM2, 1)}</td>
-                    <td className="num py-1">
-                      {`${fmt(s.breakdown.initial, 3)} / ${fmt(s.breakdown.mean, 3)} / ${fmt(s.breakdown.final, 3)}`}
+                    <td className="py-1">
+                      {s.name}
+                      <span className="block text-2xs text-ink-faint">
+                        fc {fmt(s.breakdown.initial, 3)} / {fmt(s.breakdown.mean, 3)} / {fmt(s.breakdown.final, 3)}
+                      </span>
                     </td>
+                    <td className="num py-1">{fmt(s.areaM2, 1)}</td>
                     <td className="num py-1">{fmtSig(s.initialA)}</td>
                     <td className="num py-1">{fmtSig(s.meanA)}</td>
                     <td className="num py-1">{fmtSig(s.finalA)}</td>
@@ -107,7 +108,6 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 <tr className="font-semibold">
                   <td className="py-1">Total</td>
                   <td className="num py-1">{fmt(result.surfaces.reduce((t, s) => t + s.areaM2, 0), 1)}</td>
-                  <td />
                   <td className="num py-1">{fmtSig(result.current.initialA)}</td>
                   <td className="num py-1">{fmtSig(result.current.meanA)}</td>
                   <td className="num py-1">{fmtSig(result.current.finalA)}</td>

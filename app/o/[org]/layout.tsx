@@ -11,7 +11,10 @@ export default async function OrgLayout({ children, params }: { children: React.
   const base = `/o/${org}`;
   const items: NavItem[] = [
     { href: base, label: 'Fleet overview' },
+    { href: `${base}/register`, label: 'Anode register' },
     { href: `${base}/designs`, label: 'Design desk' },
+    { href: `${base}/surveys`, label: 'Surveys' },
+    { href: `${base}/catalogue`, label: 'Catalogue' },
   ];
   if (can(ctx.role, 'team:manage')) items.push({ href: `${base}/team`, label: 'Team' });
   if (can(ctx.role, 'audit:read')) items.push({ href: `${base}/audit`, label: 'Audit log' });

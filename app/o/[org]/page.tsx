@@ -1,24 +1,33 @@
 import type { Metadata } from 'next';
-import { MembershipSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
-import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/server/permissions';
+import { can } from '@/lib/server/permissions';
 import { PageHeader, Panel } from '@/components/ui/panel';
+import { ButtonLink } from '@/components/ui/button';
+import { FleetTable } from '@/components/register/fleet-table';
+import { AssetForm } from '@/components/register/asset-form';
 
 export const metadata: Metadata = { title: 'Fleet overview' };
 
 export default async function FleetOverviewPage({ params }: { params: Promise<{ org: string }> }) {
   const { org } = await params;
   const ctx = await getPageOrgContext(org);
-  const memberCount = await ctx.em.count(MembershipSchema, { organisation: ctx.organisation });
+  const canWrite = can(ctx.role, 'asset:write');
   return (
     <>
-      <PageHeader title="Fleet overview" subtitle={`${ctx.organisation.name} · ${memberCount} member${memberCount === 1 ? '' : 's'}`} />
-      <div className="grid gap-4 lg:grid-cols-2">
-        <Panel title="Your role">
-          <p className="text-sm">
-            <strong>{ROLE_LABELS[ctx.role]}</strong>: {ROLE_DESCRIPTIONS[ctx.role]}
-          </p>
+      <PageHeader
+        title="Fleet overview"
+        subtitle={`${ctx.organisation.name}: every vessel and structure with its anodes and latest survey.`}
+        actions={<ButtonLink href={`/o/${org}/register`} variant="secondary">Anode register</ButtonLink>}
+      />
+      <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+        <Panel title="Assets">
+          <FleetTable org={org} />
         </Panel>
+        {canWrite ? (
+          <Panel title="Add a vessel or structure">
+            <AssetForm org={org} />
+          </Panel>
+        ) : null}
       </div>
     </>
   );

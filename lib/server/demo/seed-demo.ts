@@ -5,6 +5,8 @@ import { audit } from '../audit';
 import type { OrgContext } from '../org-context';
 import { createDesign } from '../services/designs/create-design';
 import { approveDesign } from '../services/designs/sign-design';
+import { createAnodeGroup } from '../services/register/anode-groups';
+import { createSurvey } from '../services/surveys/create-survey';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
 
 type ZoneSeed = {
@@ -148,8 +150,54 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
     await createDesign(engineer, { assetId: assets['Gullhaven Ferry Jetty'], title: 'Ferry jetty piles, 20-year design' });
     // Kittiwake Sound: a draft from the particulars (Denny-Mumford estimate).
     await createDesign(engineer, { assetId: assets['Kittiwake Sound'] });
+
+    await seedRegister(tx, engineer, await ctxFor('inspector@gullhaven.example'), assets, ferry.id);
   });
   return { created: true };
+}
+
+/** Installed anodes and two years of surveys on the invented fleet and jetty. */
+async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: OrgContext, assets: Record<string, string>, ferryDesignId: string) {
+  const zoneId = async (asset: string, name: string) => (await em.findOneOrFail(ZoneSchema, { asset: assets[asset], name })).id;
+  const fit = (asset: string, g: Record<string, unknown>) => createAnodeGroup(engineer, assets[asset], g);
+  // Brindlemoor, fitted at the March 2025 docking from the approved design.
+  const ferryZones: [string, string, number, string][] = [
+    ['Hull bottom', 'Bottom P/S', 22, 'Fr 20-130, bilge strakes P and S, 6 m pitch'],
+    ['Boot-top and sides', 'Sides P/S', 20, 'Fr 18-132 below light waterline, P and S'],
+    ['Rudders (2)', 'Rudders', 1, 'Rudder stocks P and S, both faces'],
+    ['Propellers and shafts', 'Stern frame', 12, 'Stern frame and shaft brackets, clear of propeller tips'],
+    ['Sea chests', 'Sea chests', 1, 'Main sea chest gratings'],
+  ];
+  for (const [zone, label, quantity, positions] of ferryZones) {
+    await fit('Brindlemoor', { zoneId: await zoneId('Brindlemoor', zone), label, anodeModelKey: 'builtin:TW-AW-4020', quantity, positions, installedOn: '2025-03-14', designId: ferryDesignId });
+  }
+  await fit('Kittiwake Sound', { label: 'Hull P/S', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 40, positions: 'Fr 6-60 P and S', installedOn: '2024-10-02', meanCurrentA: 9.5 });
+  await fit('Tern Ledger', { label: 'Hull and nozzles', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 16, positions: 'Bilge keels and nozzle rims', installedOn: '2025-06-20', meanCurrentA: 2.1 });
+  await fit('Wavecrest Minnow', { label: 'Hulls P/S', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 8, positions: 'Transoms and keels, both hulls', installedOn: '2025-04-11', meanCurrentA: 0.9 });
+  const jettyImmersed = await zoneId('Gullhaven Ferry Jetty', 'Piles, immersed (48 × Ø 0.61 m × 9.5 m)');
+  await fit('Gullhaven Ferry Jetty', { zoneId: jettyImmersed, label: 'Bents 1-6', anodeModelKey: 'builtin:TW-AS-2018', quantity: 24, positions: 'B1-A to B6-D, one per pile at -4 m CD', installedOn: '2016-05-10', meanCurrentA: 46 });
+  await fit('Gullhaven Ferry Jetty', { zoneId: jettyImmersed, label: 'Bents 7-12', anodeModelKey: 'builtin:TW-AS-2018', quantity: 24, positions: 'B7-A to B12-D, one per pile at -4 m CD', installedOn: '2016-05-10', meanCurrentA: 52 });
+  await fit('Dolphin North', { label: 'Dolphin N bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'One bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.2 });
+  await fit('Dolphin South', { label: 'Dolphin S bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'One bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.4 });
+  await em.flush();
+
+  const survey = (asset: string, surveyedOn: string, method: string, surveyor: string, readings: Record<string, unknown>[]) =>
+    createSurvey(inspector, { assetId: assets[asset], surveyedOn, method, surveyor, defaultElectrode: 'ag-agcl-seawater', readings });
+  const pile = (location: string, potentialV: number, remainingFraction: number | null = null, group: string | null = null) => ({ location, potentialV, electrode: 'ag-agcl-seawater', anodeGroupLabel: group, remainingFraction, comment: null });
+  await survey('Gullhaven Ferry Jetty', '2024-11-18', 'diver', 'Brannock Kelp Divers', [
+    pile('B1-A', -0.99, 0.52, 'Bents 1-6'), pile('B3-C', -0.97), pile('B6-D', -0.96, 0.5, 'Bents 1-6'),
+    pile('B7-A', -0.95, 0.47, 'Bents 7-12'), pile('B9-B', -0.93), pile('B12-D', -0.9, 0.44, 'Bents 7-12'),
+  ]);
+  await survey('Gullhaven Ferry Jetty', '2025-11-20', 'diver', 'Brannock Kelp Divers', [
+    pile('B1-A', -0.98, 0.45, 'Bents 1-6'), pile('B3-C', -0.95), pile('B6-D', -0.94, 0.43, 'Bents 1-6'),
+    pile('B7-A', -0.9, 0.37, 'Bents 7-12'), pile('B9-B', -0.84), pile('B11-C', -0.78, null), pile('B12-D', -0.81, 0.33, 'Bents 7-12'),
+  ]);
+  await survey('Dolphin North', '2025-11-21', 'diver', 'Brannock Kelp Divers', [pile('DN-1', -1.01, 0.7, 'Dolphin N bracelets'), pile('DN-4', -1.0)]);
+  await survey('Brindlemoor', '2025-09-03', 'drop-cell', 'Ship staff', [pile('Fr 40 P', -0.97), pile('Fr 40 S', -0.98), pile('Fr 110 P', -0.95)]);
+  await survey('Brindlemoor', '2026-06-12', 'diver', 'Brannock Kelp Divers', [
+    pile('Fr 40 P', -0.96, 0.7, 'Bottom P/S'), pile('Fr 110 S', -0.94, 0.66, 'Sides P/S'), pile('Rudder P', -0.93, 0.55, 'Rudders'), pile('Stern frame', -0.91, 0.52, 'Stern frame'),
+  ]);
+  await survey('Wavecrest Minnow', '2026-03-30', 'drop-cell', 'Ship staff', [pile('Transom P', -1.02), pile('Transom S', -1.03)]);
 }
 
 const blank = {

@@ -1,0 +1,17 @@
+import { withOrg, readJson } from '@/lib/server/with-org';
+import { listQuerySchema } from '@/lib/schemas/register';
+import { listAssets } from '@/lib/server/services/assets/list-assets';
+import { createAsset } from '@/lib/server/services/assets/create-asset';
+import { z } from 'zod';
+
+// GET /api/orgs/[org]/assets?page&pageSize&sort&dir&q&archived: the fleet, one page, with register and survey summaries.
+export const GET = withOrg(async ({ ctx, query }) => listAssets(ctx, query), { permission: 'org:read', query: listQuerySchema });
+
+// POST /api/orgs/[org]/assets: a new vessel or structure (engineers).
+export const POST = withOrg(
+  async ({ ctx, req }) => {
+    const asset = await createAsset(ctx, await readJson(req, z.record(z.string(), z.unknown())));
+    return Response.json({ asset: { id: asset.id, name: asset.name, kind: asset.kind } }, { status: 201 });
+  },
+  { permission: 'asset:write' },
+);

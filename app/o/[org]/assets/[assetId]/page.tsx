@@ -1,0 +1,317 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { format } from 'date-fns';
+import { AnodeGroupChangeSchema, DesignSchema, SurveySchema, ZoneSchema } from '@/entities';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { AppError } from '@/lib/server/errors';
+import { can } from '@/lib/server/permissions';
+import { getAssetOrThrow } from '@/lib/server/services/assets/get-asset';
+import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
+import { loadGroupForecasts } from '@/lib/server/services/forecast/group-forecasts';
+import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
+import { fmt } from '@/lib/format';
+import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { ButtonLink } from '@/components/ui/button';
+import { AssetForm } from '@/components/register/asset-form';
+import { ArchiveAssetButton } from '@/components/register/archive-asset-button';
+import { ZoneForm, ArchiveZoneButton } from '@/components/register/zone-form';
+import { AnodeGroupForm, RemoveGroupForm } from '@/components/register/anode-group-form';
+import { RegisterTable } from '@/components/register/register-table';
+import { DepletionChart, type ChartSeries } from '@/components/register/depletion-chart';
+
+export const metadata: Metadata = { title: 'Asset' };
+
+const day = (iso: string) => format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy');
+
+export default async function AssetPage({ params }: { params: Promise<{ org: string; assetId: string }> }) {
+  const { org, assetId } = await params;
+  const ctx = await getPageOrgContext(org);
+  let asset;
+  try {
+    asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
+  } catch (error) {
+    if (error instanceof AppError && error.code === 'not-found') notFound();
+    throw error;
+  }
+  const canWrite = can(ctx.role, 'asset:write') && !asset.archivedAt;
+  const [zones, designs, surveys, forecasts, catalogue] = await Promise.all([
+    ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
+    ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results'] }),
+    ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
+    loadGroupForecasts(ctx, { assetIds: [asset.id] }),
+    canWrite ? listCatalogue(ctx) : Promise.resolve([]),
+  ]);
+  const changes = forecasts.length
+    ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
+    : [];
+
+  const today = new Date();
+  const horizon = new Date(Math.max(today.getTime(), ...forecasts.map((f) => (f.forecast?.endOfLife ?? today).getTime())) + 180 * 86_400_000);
+  const series: ChartSeries[] = forecasts
+    .filter((f) => f.forecast)
+    .map((f) => {
+      const fc = f.forecast!;
+      const start = new Date(`${f.group.installedOn}T00:00:00Z`);
+      return {
+        label: f.group.label,
+        points: fc.remainingSeries(start, horizon, 1).map((p) => ({ date: p.date, kg: p.remainingFraction * fc.installedMassKg })),
+        surveys: f.surveys.map((s) => ({ date: s.date, kg: s.remainingFraction * fc.installedMassKg })),
+        endKg: fc.endFraction * fc.installedMassKg,
+        endOfLife: fc.endOfLife,
+      };
+    });
+
+  const particulars: [string, string | null | undefined][] =
+    asset.kind === 'vessel'
+      ? [
+          ['Type', asset.vesselType],
+          ['IMO number', asset.imoNumber],
+          ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM ?? '?'} × ${asset.draughtM ?? '?'} m` : null],
+          ['Block coefficient', asset.blockCoefficient?.toString()],
+          ['Hull material', asset.hullMaterial],
+          ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
+          ['Trading waters', asset.tradingWaters],
+        ]
+      : [
+          ['Structure', asset.structureType],
+          ['Location', asset.location],
+          ['Water', asset.waterType],
+          ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
+          ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
+        ];
+  const formValues = Object.fromEntries(
+    Object.entries(asset)
+      .filter(([, v]) => v !== null && v !== undefined && typeof v !== 'object')
+      .map(([k, v]) => [k, k === 'hasImpressedCurrent' ? (v ? 'on' : '') : String(v)]),
+  );
+  const activeGroups = forecasts.map((f) => f.group);
+
+  return (
+    <>
+      <PageHeader
+        title={
+          <span className="flex items-center gap-3">
+            {asset.name}
+            {asset.archivedAt ? <StatusTag tone="neutral">Archived</StatusTag> : null}
+          </span>
+        }
+        subtitle={
+          <>
+            <Link href={`/o/${org}`} className="text-tide-600 hover:underline">Fleet overview</Link> · {asset.kind === 'vessel' ? 'Vessel' : 'Structure'}
+            {asset.kind === 'vessel' ? (asset.vesselType ? ` · ${asset.vesselType}` : '') : asset.structureType ? ` · ${asset.structureType}` : ''}
+          </>
+        }
+        actions={
+          <>
+            {can(ctx.role, 'survey:write') && !asset.archivedAt ? <ButtonLink href={`/o/${org}/surveys?assetId=${asset.id}`} variant="secondary">Record a survey</ButtonLink> : null}
+            {can(ctx.role, 'asset:write') ? <ArchiveAssetButton org={org} assetId={asset.id} archived={Boolean(asset.archivedAt)} name={asset.name} /> : null}
+          </>
+        }
+      />
+      <div className="flex flex-col gap-4">
+        <div className="grid items-start gap-4 xl:grid-cols-2">
+          <Panel title="Particulars">
+            <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-3">
+              {particulars.map(([label, value]) => (
+                <div key={label}>
+                  <dt className="text-2xs uppercase tracking-wide text-ink-faint">{label}</dt>
+                  <dd>{value ?? '—'}</dd>
+                </div>
+              ))}
+            </dl>
+            {canWrite ? (
+              <details className="mt-3">
+                <summary className="cursor-pointer text-sm text-tide-600">Edit particulars</summary>
+                <div className="mt-3">
+                  <AssetForm org={org} asset={{ id: asset.id, kind: asset.kind, values: formValues }} />
+                </div>
+              </details>
+            ) : null}
+          </Panel>
+          <Panel title="Designs">
+            {designs.length ? (
+              <ul className="divide-y divide-rule text-sm">
+                {designs.map((d) => (
+                  <li key={d.id} className="flex items-center justify-between gap-3 py-1.5">
+                    <Link href={`/o/${org}/designs/${d.id}`} className="text-tide-600 hover:underline">
+                      Rev. {d.revision}: {d.title}
+                    </Link>
+                    <span className="flex items-center gap-2 text-xs text-ink-soft">
+                      {d.preparedBy.name}
+                      <StatusTag tone={d.status === 'approved' ? 'sound' : d.status === 'checked' ? 'due' : 'neutral'}>{STATUS_LABELS[d.status]}</StatusTag>
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            ) : (
+              <p className="text-sm text-ink-faint">No designs yet.</p>
+            )}
+            {can(ctx.role, 'design:write') && !asset.archivedAt ? (
+              <Link href={`/o/${org}/designs`} className="mt-2 inline-block text-sm text-tide-600 underline">
+                Open a new design on the design desk
+              </Link>
+            ) : null}
+          </Panel>
+        </div>
+
+        <Panel title="Zones">
+          <table className="w-full text-sm" aria-label="Zones">
+            <thead className="text-xs text-ink-soft">
+              <tr className="border-b border-rule">
+                <th className="py-1 text-left font-medium">Zone</th>
+                <th className="py-1 text-left font-medium">Kind</th>
+                <th className="py-1 text-right font-medium">Area m²</th>
+                <th className="py-1 pl-3 text-left font-medium">Coating</th>
+                <th className="py-1 text-left font-medium">Environment</th>
+                <th className="py-1 text-left font-medium">Depth</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {zones.map((z) => (
+                <tr key={z.id} className="border-b border-rule align-top">
+                  <td className="py-1.5">
+                    {z.name}
+                    {canWrite ? (
+                      <details className="mt-1">
+                        <summary className="cursor-pointer text-xs text-tide-600">Edit</summary>
+                        <div className="mt-2 rounded-[3px] border border-rule bg-paper p-3">
+                          <ZoneForm org={org} assetId={asset.id} zone={{ id: z.id, name: z.name, kind: z.kind, areaM2: z.areaM2, coatingCategory: z.coatingCategory, coatingAgeYears: z.coatingAgeYears, waterType: z.waterType, climate: z.climate, depthBand: z.depthBand, drainsCurrent: z.drainsCurrent ?? null }} />
+                        </div>
+                      </details>
+                    ) : null}
+                  </td>
+                  <td className="py-1.5">{ZONE_KIND_LABELS[z.kind] ?? z.kind}</td>
+                  <td className="num py-1.5">{fmt(z.areaM2, 1)}</td>
+                  <td className="py-1.5 pl-3">
+                    {COATING_LABELS[z.coatingCategory] ?? z.coatingCategory}
+                    {z.coatingCategory !== 'bare' && z.coatingAgeYears ? `, ${z.coatingAgeYears} yr old` : ''}
+                    {z.drainsCurrent ? ` · bare ${z.drainsCurrent}` : ''}
+                  </td>
+                  <td className="py-1.5">{z.waterType}, {z.climate}</td>
+                  <td className="py-1.5">{DEPTH_BAND_LABELS[z.depthBand] ?? z.depthBand}</td>
+                  <td className="py-1.5 text-right">{canWrite ? <ArchiveZoneButton org={org} assetId={asset.id} zoneId={z.id} name={z.name} /> : null}</td>
+                </tr>
+              ))}
+              {!zones.length ? (
+                <tr>
+                  <td colSpan={7} className="py-4 text-center text-ink-faint">No zones recorded.</td>
+                </tr>
+              ) : null}
+            </tbody>
+          </table>
+          {canWrite ? (
+            <details className="mt-3">
+              <summary className="cursor-pointer text-sm text-tide-600">Add a zone</summary>
+              <div className="mt-3">
+                <ZoneForm org={org} assetId={asset.id} />
+              </div>
+            </details>
+          ) : null}
+        </Panel>
+
+        <Panel title="Installed anode groups">
+          <RegisterTable org={org} assetId={asset.id} pageSize={25} />
+          {canWrite ? (
+            <div className="mt-4 grid gap-4">
+              <details>
+                <summary className="cursor-pointer text-sm text-tide-600">Record a fitted group</summary>
+                <div className="mt-3">
+                  <AnodeGroupForm
+                    org={org}
+                    assetId={asset.id}
+                    zones={zones.map((z) => ({ id: z.id, name: z.name }))}
+                    models={catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }))}
+                    designs={designs.map((d) => ({ id: d.id, label: `Rev. ${d.revision} (${STATUS_LABELS[d.status]})` }))}
+                  />
+                </div>
+              </details>
+              {activeGroups.length ? (
+                <details>
+                  <summary className="cursor-pointer text-sm text-tide-600">Edit a fitted group</summary>
+                  <div className="mt-3">
+                    <AnodeGroupForm
+                      org={org}
+                      assetId={asset.id}
+                      zones={zones.map((z) => ({ id: z.id, name: z.name }))}
+                      models={catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }))}
+                      designs={[]}
+                      groups={activeGroups.map((g) => ({ id: g.id, label: g.label, zoneId: g.zone?.id ?? null, anodeModelKey: g.model.key, quantity: g.quantity, positions: g.positions ?? null, installedOn: g.installedOn, meanCurrentA: g.meanCurrentA ?? null, notes: g.notes ?? null }))}
+                    />
+                  </div>
+                </details>
+              ) : null}
+              {activeGroups.length ? (
+                <details>
+                  <summary className="cursor-pointer text-sm text-tide-600">Close a group (removed, lost or renewed)</summary>
+                  <div className="mt-3">
+                    <RemoveGroupForm org={org} groups={activeGroups.map((g) => ({ id: g.id, label: g.label }))} />
+                  </div>
+                </details>
+              ) : null}
+            </div>
+          ) : null}
+          {changes.length ? (
+            <details className="mt-3 text-xs text-ink-soft">
+              <summary className="cursor-pointer">History of changes ({changes.length} latest)</summary>
+              <ul className="mt-1 flex flex-col gap-0.5">
+                {changes.map((c) => (
+                  <li key={c.id}>
+                    {format(c.createdAt, 'd MMM yyyy HH:mm')} · {c.group.label} · {c.changedByEmail}:{' '}
+                    {Object.entries(c.changes).map(([field, [from, to]]) => `${field} ${String(from ?? '—')} → ${String(to ?? '—')}`).join('; ')}
+                  </li>
+                ))}
+              </ul>
+            </details>
+          ) : null}
+        </Panel>
+
+        <Panel title="Depletion forecast">
+          <DepletionChart series={series} today={today} />
+          <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
+            <thead className="text-xs text-ink-soft">
+              <tr className="border-b border-rule">
+                <th className="py-1 text-left font-medium">Group</th>
+                <th className="py-1 text-right font-medium">Installed net</th>
+                <th className="py-1 text-right font-medium">Consumption</th>
+                <th className="py-1 pl-3 text-left font-medium">Basis</th>
+                <th className="py-1 text-left font-medium">Reaches utilisation factor</th>
+                <th className="py-1 text-left font-medium">Band (early – late)</th>
+              </tr>
+            </thead>
+            <tbody>
+              {forecasts.map((f) => (
+                <tr key={f.group.id} className="border-b border-rule">
+                  <td className="py-1">{f.group.label}</td>
+                  <td className="num py-1">{fmt(f.group.quantity * f.group.model.netMassKg, 1)} kg</td>
+                  <td className="num py-1">{f.forecast ? `${fmt(f.forecast.ratePerYearKg, 1)} kg/yr` : '—'}</td>
+                  <td className="py-1 pl-3 text-xs">{f.forecast ? (f.forecast.basis === 'survey-corrected' ? 'corrected by survey' : 'design current') : f.noForecastReason}</td>
+                  <td className="py-1">{f.forecast?.endOfLife ? format(f.forecast.endOfLife, 'd MMM yyyy') : f.forecast ? 'does not deplete' : '—'}</td>
+                  <td className="py-1 text-xs">{f.forecast?.early ? `${format(f.forecast.early, 'MMM yyyy')} – ${f.forecast.late ? format(f.forecast.late, 'MMM yyyy') : 'later'}` : '—'}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+          <p className="mt-2 text-xs text-ink-faint">Consumption = I × 8760 / ε per year (handbook practice), from the group’s share of its design’s mean current, corrected by the latest surveyed remaining fraction.</p>
+        </Panel>
+
+        <Panel title="Surveys">
+          {surveys.length ? (
+            <ul className="divide-y divide-rule text-sm">
+              {surveys.map((s) => (
+                <li key={s.id} className="flex items-center justify-between py-1.5">
+                  <Link href={`/o/${org}/surveys/${s.id}`} className="text-tide-600 hover:underline">
+                    {day(s.surveyedOn)}: {s.method} survey{s.surveyor ? ` by ${s.surveyor}` : ''}
+                  </Link>
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-sm text-ink-faint">No surveys yet.</p>
+          )}
+        </Panel>
+      </div>
+    </>
+  );
+}

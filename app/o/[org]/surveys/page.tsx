@@ -1,0 +1,32 @@
+import type { Metadata } from 'next';
+import { AssetSchema } from '@/entities';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { can } from '@/lib/server/permissions';
+import { PageHeader, Panel } from '@/components/ui/panel';
+import { SurveysTable } from '@/components/surveys/surveys-table';
+import { NewSurveyForm } from '@/components/surveys/new-survey-form';
+
+export const metadata: Metadata = { title: 'Surveys' };
+
+export default async function SurveysPage({ params, searchParams }: { params: Promise<{ org: string }>; searchParams: Promise<{ assetId?: string }> }) {
+  const { org } = await params;
+  const { assetId } = await searchParams;
+  const ctx = await getPageOrgContext(org);
+  const canWrite = can(ctx.role, 'survey:write');
+  const assets = canWrite ? await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name'] }) : [];
+  return (
+    <>
+      <PageHeader title="Surveys" subtitle="Diver, drop-cell and ROV surveys: potentials against the protection criteria, and what remains of the anodes." />
+      <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+        <Panel title="All surveys">
+          <SurveysTable org={org} />
+        </Panel>
+        {canWrite ? (
+          <Panel title="Record a survey">
+            <NewSurveyForm org={org} assets={assets.map((a) => ({ id: a.id, name: a.name }))} assetId={assetId} />
+          </Panel>
+        ) : null}
+      </div>
+    </>
+  );
+}

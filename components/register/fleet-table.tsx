@@ -1,0 +1,55 @@
+'use client';
+import Link from 'next/link';
+import { useMemo, useState } from 'react';
+import { createColumnHelper } from '@tanstack/react-table';
+import { format } from 'date-fns';
+import { ServerTable } from '@/components/ui/server-table';
+import { PotentialTag } from './potential-tag';
+import { fmt } from '@/lib/format';
+import { protectedMetalOf } from '@/lib/register/protected-metal';
+import type { AssetRow } from '@/lib/server/services/assets/list-assets';
+
+export function FleetTable({ org }: { org: string }) {
+  const [archived, setArchived] = useState(false);
+  const columns = useMemo(() => {
+    const col = createColumnHelper<AssetRow>();
+    return [
+      col.accessor('name', { id: 'name', header: 'Asset', cell: (c) => <Link className="font-medium text-tide-600 hover:underline" href={`/o/${org}/assets/${c.row.original.id}`}>{c.getValue()}</Link> }),
+      col.accessor('kind', { id: 'kind', header: 'Kind', cell: (c) => `${c.getValue()}${c.row.original.type ? ` · ${c.row.original.type}` : ''}${c.row.original.hullMaterial === 'aluminium' ? ' · aluminium hull' : ''}` }),
+      col.accessor('anodes', { id: 'anodes', header: 'Anodes fitted', meta: { numeric: true }, cell: (c) => `${c.getValue()} in ${c.row.original.groups} group${c.row.original.groups === 1 ? '' : 's'}` }),
+      col.accessor('netMassKg', { id: 'netMass', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 0)} kg` }),
+      col.accessor('lastSurveyedOn', { id: 'lastSurvey', header: 'Last survey', cell: (c) => (c.getValue() ? format(new Date(`${c.getValue()}T00:00:00Z`), 'd MMM yyyy') : 'none') }),
+      col.display({
+        id: 'potentials',
+        header: 'Latest potentials (Ag/AgCl)',
+        cell: (c) => {
+          const r = c.row.original;
+          if (r.lastSurveyLeastNegativeV === null) return <span className="text-ink-faint">—</span>;
+          const metal = protectedMetalOf(r);
+          return (
+            <span className="flex flex-col gap-0.5">
+              <PotentialTag valueV={r.lastSurveyLeastNegativeV} metal={metal} />
+              {r.lastSurveyMostNegativeV !== null && r.lastSurveyMostNegativeV !== r.lastSurveyLeastNegativeV ? <PotentialTag valueV={r.lastSurveyMostNegativeV} metal={metal} /> : null}
+            </span>
+          );
+        },
+      }),
+    ];
+  }, [org]);
+  return (
+    <ServerTable
+      label="Fleet"
+      url={`/api/orgs/${org}/assets`}
+      queryKey={['orgs', org, 'assets']}
+      columns={columns}
+      extraParams={{ archived: archived ? '1' : '0' }}
+      filterPlaceholder="Filter by name, type, location…"
+      empty={archived ? 'No archived assets.' : 'No assets yet.'}
+      toolbar={
+        <label className="flex items-center gap-2 text-xs text-ink-soft">
+          <input type="checkbox" checked={archived} onChange={(e) => setArchived(e.target.checked)} /> Show archived assets
+        </label>
+      }
+    />
+  );
+}

@@ -1,0 +1,46 @@
+'use client';
+import { useRef, useState, useTransition } from 'react';
+import { useRouter } from 'next/navigation';
+import { Button } from '@/components/ui/button';
+
+/** Attaches a JPEG/PNG photo or a PDF report (at most 10 MB); the type is checked from the file's content. */
+export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: string }) {
+  const router = useRouter();
+  const form = useRef<HTMLFormElement>(null);
+  const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
+  const [pending, start] = useTransition();
+  return (
+    <form
+      ref={form}
+      className="flex flex-wrap items-end gap-3"
+      onSubmit={(event) => {
+        event.preventDefault();
+        const data = new FormData(event.currentTarget);
+        const file = data.get('file');
+        if (!(file instanceof File) || !file.size) return setMessage({ ok: false, text: 'Choose a photo or a PDF first.' });
+        start(async () => {
+          const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/attachments`, { method: 'POST', body: data });
+          const body = await res.json().catch(() => null);
+          if (res.ok) {
+            setMessage({ ok: true, text: `${body.attachment.filename} attached.` });
+            form.current?.reset();
+            router.refresh();
+          } else setMessage({ ok: false, text: body?.error?.message ?? `The upload failed (${res.status}).` });
+        });
+      }}
+    >
+      <label className="flex flex-col gap-1 text-xs text-ink-soft">
+        Photo or report
+        <input type="file" name="file" accept="image/jpeg,image/png,application/pdf" className="text-sm text-ink" />
+      </label>
+      <label className="flex flex-col gap-1 text-xs text-ink-soft">
+        Caption
+        <input name="caption" className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink" />
+      </label>
+      <Button type="submit" variant="secondary" disabled={pending}>
+        Attach
+      </Button>
+      {message ? <p role={message.ok ? 'status' : 'alert'} className={`w-full text-sm ${message.ok ? 'text-state-sound' : 'text-state-overdue'}`}>{message.text}</p> : null}
+    </form>
+  );
+}

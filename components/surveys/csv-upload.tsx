@@ -1,0 +1,65 @@
+'use client';
+import { useRef, useState, useTransition } from 'react';
+import { useRouter } from 'next/navigation';
+import { Button } from '@/components/ui/button';
+import { SelectField } from '@/components/ui/field';
+import { ELECTRODE_OPTIONS } from './new-survey-form';
+
+/** Uploads a CSV of readings; errors come back by line and nothing is written until the whole file is valid. */
+export function CsvUpload({ org, surveyId }: { org: string; surveyId: string }) {
+  const router = useRouter();
+  const form = useRef<HTMLFormElement>(null);
+  const [result, setResult] = useState<{ ok: boolean; message: string; lines?: string[] } | null>(null);
+  const [pending, start] = useTransition();
+  const submit = (event: React.FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    const data = new FormData(event.currentTarget);
+    const file = data.get('file');
+    if (!(file instanceof File) || !file.size) {
+      setResult({ ok: false, message: 'Choose a CSV file first.' });
+      return;
+    }
+    start(async () => {
+      const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/readings`, { method: 'POST', body: data });
+      const body = await res.json().catch(() => null);
+      if (res.ok) {
+        setResult({ ok: true, message: `${body.imported} readings imported${body.underProtected ? `; ${body.underProtected} under-protected (the engineers have been told)` : ''}.` });
+        form.current?.reset();
+        router.refresh();
+      } else {
+        setResult({ ok: false, message: body?.error?.message ?? `The upload failed (${res.status}).`, lines: body?.error?.fieldErrors?.csv });
+      }
+    });
+  };
+  return (
+    <form ref={form} onSubmit={submit} className="flex flex-col gap-3">
+      <div className="grid grid-cols-1 gap-3 md:grid-cols-[1fr_14rem]">
+        <label className="flex flex-col gap-1 text-xs text-ink-soft">
+          CSV file of readings (at most 5 MB)
+          <input type="file" name="file" accept=".csv,text/csv" className="text-sm text-ink" />
+        </label>
+        <SelectField label="Electrode where the file leaves it blank" name="defaultElectrode" options={ELECTRODE_OPTIONS} defaultValue="ag-agcl-seawater" />
+      </div>
+      <div className="flex items-center gap-3">
+        <Button type="submit" disabled={pending}>
+          {pending ? 'Checking…' : 'Upload readings'}
+        </Button>
+        <a className="text-sm text-tide-600 underline" href={`/api/orgs/${org}/surveys/template`}>
+          Download the template
+        </a>
+      </div>
+      {result ? (
+        <div role={result.ok ? 'status' : 'alert'} className={`rounded-[3px] border px-3 py-2 text-sm ${result.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-overdue/40 bg-state-overduebg text-state-overdue'}`}>
+          <p>{result.message}</p>
+          {result.lines?.length ? (
+            <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 text-xs">
+              {result.lines.map((line, i) => (
+                <li key={i}>{line}</li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      ) : null}
+    </form>
+  );
+}

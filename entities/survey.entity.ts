@@ -1,0 +1,66 @@
+import { defineEntity, type InferEntity } from '@mikro-orm/core';
+import { p, uuidPk, createdAt, double } from './common';
+import { OrganisationSchema } from './organisation.entity';
+import { AssetSchema } from './asset.entity';
+import { UserSchema } from './user.entity';
+import { AnodeGroupSchema } from './anode-group.entity';
+
+export const SURVEY_METHODS = ['diver', 'drop-cell', 'rov', 'dry-dock', 'other'] as const;
+export type SurveyMethod = (typeof SURVEY_METHODS)[number];
+
+export const SurveySchema = defineEntity({
+  name: 'Survey',
+  tableName: 'survey',
+  indexes: [{ properties: ['organisation', 'surveyedOn'] }, { properties: ['asset', 'surveyedOn'] }],
+  properties: {
+    id: uuidPk(),
+    organisation: p.manyToOne(OrganisationSchema).deleteRule('cascade'),
+    asset: p.manyToOne(AssetSchema).deleteRule('cascade'),
+    surveyedOn: p.date(),
+    method: p.string().length(16).$type<SurveyMethod>(),
+    surveyor: p.string().length(120).nullable(),
+    notes: p.text().nullable(),
+    createdBy: p.manyToOne(UserSchema).deleteRule('restrict'),
+    createdAt: createdAt(),
+  },
+});
+export type Survey = InferEntity<typeof SurveySchema>;
+
+// One reading: a potential (as measured, with its electrode, and converted to Ag/AgCl/seawater)
+// and/or an estimate of an anode group's remaining fraction.
+export const SurveyReadingSchema = defineEntity({
+  name: 'SurveyReading',
+  tableName: 'survey_reading',
+  properties: {
+    id: uuidPk(),
+    survey: p.manyToOne(SurveySchema).deleteRule('cascade').index(),
+    line: p.integer().nullable(),
+    location: p.string().length(80),
+    potentialV: double().nullable(),
+    electrode: p.string().length(24).nullable(),
+    potentialAgAgClV: double().nullable(),
+    anodeGroup: p.manyToOne(AnodeGroupSchema).nullable().deleteRule('set null').index(),
+    remainingFraction: double().nullable(),
+    comment: p.text().nullable(),
+  },
+});
+export type SurveyReading = InferEntity<typeof SurveyReadingSchema>;
+
+// Photos and reports, kept in PostgreSQL so a backup of the database is a backup of everything.
+export const SurveyAttachmentSchema = defineEntity({
+  name: 'SurveyAttachment',
+  tableName: 'survey_attachment',
+  properties: {
+    id: uuidPk(),
+    organisation: p.manyToOne(OrganisationSchema).deleteRule('cascade'),
+    survey: p.manyToOne(SurveySchema).deleteRule('cascade').index(),
+    filename: p.string().length(200),
+    contentType: p.string().length(60),
+    sizeBytes: p.integer(),
+    data: p.blob().lazy(),
+    caption: p.string().length(200).nullable(),
+    uploadedByEmail: p.string().length(254).nullable(),
+    createdAt: createdAt(),
+  },
+});
+export type SurveyAttachment = InferEntity<typeof SurveyAttachmentSchema>;

@@ -1,0 +1,79 @@
+import { z } from 'zod';
+import { ZONE_KIND_VALUES, CLIMATE_VALUES, DEPTH_BAND_VALUES, COATING_VALUES } from './design';
+
+const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
+const text = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
+const number = (label: string, unit: string) =>
+  z.preprocess((v) => (v === '' || v === null ? undefined : v), z.coerce.number({ error: `${label}: enter a number${unit ? ` (${unit})` : ''}.` }).refine(Number.isFinite, `${label}: enter a number.`));
+const isoDate = (label: string) =>
+  z
+    .string({ error: `Enter the ${label}.` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} as a date (YYYY-MM-DD).`)
+    .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), `The ${label} is not a real date.`);
+
+export const zoneSchema = z.object({
+  name: z.string().trim().min(1, 'Name the zone.').max(80, 'Use at most 80 characters.'),
+  kind: z.enum(ZONE_KIND_VALUES, { error: 'Choose a zone kind.' }),
+  areaM2: number('Area', 'm²').pipe(z.number().gt(0, 'The area must be more than 0 m².').max(1_000_000, 'An area above 1,000,000 m² is not plausible.')),
+  coatingCategory: z.enum(COATING_VALUES, { error: 'Choose a coating category or bare.' }),
+  coatingAgeYears: number('Coating age', 'years').pipe(z.number().min(0, 'The coating age cannot be negative.').max(60)).default(0),
+  waterType: z.enum(['seawater', 'brackish', 'fresh', 'sediment'], { error: 'Choose the water type.' }),
+  climate: z.enum(CLIMATE_VALUES, { error: 'Choose the temperature band.' }),
+  depthBand: z.enum(DEPTH_BAND_VALUES, { error: 'Choose the depth band.' }),
+  drainsCurrent: z.preprocess(blankToNull, z.enum(['copper-alloy', 'stainless']).nullable()),
+});
+
+export const anodeGroupSchema = z.object({
+  zoneId: z.preprocess(blankToNull, z.uuid('Choose a zone.').nullable()),
+  label: z.string().trim().min(1, 'Give the group a label (e.g. "Bottom P1" or "Row B").').max(60, 'Use at most 60 characters.'),
+  anodeModelKey: z.string().min(1, 'Choose an anode model.').max(80),
+  quantity: number('Quantity', '').pipe(z.number().int('Enter a whole number of anodes.').min(1, 'At least one anode.').max(10_000, 'At most 10,000 anodes in one group.')),
+  positions: text(2000),
+  installedOn: isoDate('installation date').refine((d) => d <= new Date().toISOString().slice(0, 10), 'The installation date cannot be in the future.'),
+  designId: z.preprocess(blankToNull, z.uuid().nullable()),
+  meanCurrentA: z.preprocess(blankToNull, number('Mean current', 'A').pipe(z.number().min(0, 'The current cannot be negative.').max(10_000)).nullable()),
+  notes: text(2000),
+});
+
+export const removeGroupSchema = z.object({
+  removedOn: isoDate('removal date'),
+  reason: z.string().trim().min(1, 'Say why the group was removed.').max(200),
+});
+
+export const anodeModelSchema = z.object({
+  designation: z.string().trim().min(1, 'Give the model a designation.').max(60),
+  alloy: z.enum(['al-zn-in', 'zinc', 'magnesium', 'magnesium-high-potential'], { error: 'Choose the alloy.' }),
+  mounting: z.enum(['flush-weld', 'flush-bolt', 'standoff', 'bracelet', 'pile-mounted'], { error: 'Choose the mounting.' }),
+  shapeKind: z.enum(['slender-standoff', 'long-flush', 'short-flush', 'bracelet'], { error: 'Choose the resistance formula.' }),
+  lengthM: number('Length', 'm').pipe(z.number().gt(0, 'The length must be more than 0 m.').max(10)),
+  widthM: z.preprocess(blankToNull, number('Width', 'm').pipe(z.number().gt(0).max(5)).nullable()),
+  thicknessM: z.preprocess(blankToNull, number('Thickness', 'm').pipe(z.number().gt(0).max(2)).nullable()),
+  radiusM: z.preprocess(blankToNull, number('Equivalent radius', 'm').pipe(z.number().gt(0).max(2)).nullable()),
+  standoffM: z.preprocess(blankToNull, number('Stand-off', 'm').pipe(z.number().min(0).max(5)).nullable()),
+  exposedAreaM2: z.preprocess(blankToNull, number('Exposed area', 'm²').pipe(z.number().gt(0).max(50)).nullable()),
+  netMassKg: number('Net mass', 'kg').pipe(z.number().gt(0, 'The net mass must be more than 0 kg.').max(5000)),
+  grossMassKg: number('Gross mass', 'kg').pipe(z.number().gt(0, 'The gross mass must be more than 0 kg.').max(6000)),
+  ratedOutputA: z.preprocess(blankToNull, number('Rated output', 'A').pipe(z.number().gt(0).max(100)).nullable()),
+  unitPrice: z.preprocess(blankToNull, number('Unit price', '').pipe(z.number().min(0).max(1_000_000)).nullable()),
+  notes: text(2000),
+});
+
+export const surveySchema = z.object({
+  assetId: z.uuid('Choose an asset.'),
+  surveyedOn: isoDate('survey date').refine((d) => d <= new Date().toISOString().slice(0, 10), 'The survey date cannot be in the future.'),
+  method: z.enum(['diver', 'drop-cell', 'rov', 'dry-dock', 'other'], { error: 'Choose how the survey was made.' }),
+  surveyor: text(120),
+  defaultElectrode: z.enum(['ag-agcl-seawater', 'cse', 'sce', 'zinc'], { error: 'Choose the reference electrode.' }),
+  notes: text(4000),
+});
+
+export const listQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).max(100_000).default(1),
+  pageSize: z.coerce.number().int().min(5).max(200).default(50),
+  sort: z.string().max(40).optional(),
+  dir: z.enum(['asc', 'desc']).default('asc'),
+  q: z.string().trim().max(100).optional(),
+  archived: z.enum(['0', '1']).default('0'),
+  assetId: z.uuid().optional(),
+});
+export type ListQuery = z.infer<typeof listQuerySchema>;

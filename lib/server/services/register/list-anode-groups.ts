@@ -1,0 +1,119 @@
+import type { ListQuery } from '@/lib/schemas/register';
+import type { AnodeGroupModelSnapshot } from '@/entities';
+import { requirePermission, type OrgContext } from '../../org-context';
+
+// Sort keys the client may ask for, mapped to SQL; never interpolate anything else.
+const SORTS: Record<string, string> = {
+  asset: 'a.name',
+  label: 'g.label',
+  zone: 'z.name',
+  model: "g.model->>'designation'",
+  quantity: 'g.quantity',
+  installedOn: 'g.installed_on',
+  remaining: 'r.remaining_fraction',
+  netMass: "g.quantity * (g.model->>'netMassKg')::float8",
+};
+
+export interface AnodeGroupRow {
+  id: string;
+  assetId: string;
+  assetName: string;
+  assetKind: string;
+  zoneName: string | null;
+  label: string;
+  model: AnodeGroupModelSnapshot;
+  quantity: number;
+  positions: string | null;
+  installedOn: string;
+  removedOn: string | null;
+  meanCurrentA: number | null;
+  lastRemainingFraction: number | null;
+  lastSurveyedOn: string | null;
+}
+
+function whereClause(ctx: OrgContext, query: ListQuery) {
+  const clauses = ['g.organisation_id = ?', 'a.archived_at is null', query.archived === '1' ? 'g.removed_on is not null' : 'g.removed_on is null'];
+  const params: unknown[] = [ctx.organisation.id];
+  if (query.assetId) {
+    clauses.push('g.asset_id = ?');
+    params.push(query.assetId);
+  }
+  if (query.q) {
+    clauses.push("(a.name ilike ? or g.label ilike ? or coalesce(z.name, '') ilike ? or g.model->>'designation' ilike ? or coalesce(g.positions, '') ilike ?)");
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    params.push(like, like, like, like, like);
+  }
+  return { sql: clauses.join(' and '), params };
+}
+
+/**
+ * One page of the anode register with the latest surveyed remaining fraction of each group.
+ * Always two statements (a count and the page), whatever the size of the register.
+ */
+export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
+  requirePermission(ctx, 'org:read');
+  const where = whereClause(ctx, query);
+  const order = `${SORTS[query.sort ?? ''] ?? 'a.name'} ${query.dir === 'desc' ? 'desc' : 'asc'} nulls last, g.label asc, g.id asc`;
+  const conn = ctx.em.getConnection();
+  const [countRows, rows] = await Promise.all([
+    conn.execute<{ total: string }[]>(`select count(*) as total from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql}`, where.params),
+    conn.execute<Record<string, unknown>[]>(
+      `select g.id, g.asset_id, a.name as asset_name, a.kind as asset_kind, z.name as zone_name, g.label, g.model, g.quantity, g.positions,
+              to_char(g.installed_on, 'YYYY-MM-DD') as installed_on, to_char(g.removed_on, 'YYYY-MM-DD') as removed_on, g.mean_current_a,
+              r.remaining_fraction, to_char(r.surveyed_on, 'YYYY-MM-DD') as surveyed_on
+         from anode_group g
+         join asset a on a.id = g.asset_id
+         left join zone z on z.id = g.zone_id
+         left join lateral (
+           select sr.remaining_fraction, s.surveyed_on from survey_reading sr join survey s on s.id = sr.survey_id
+            where sr.anode_group_id = g.id and sr.remaining_fraction is not null
+            order by s.surveyed_on desc, sr.remaining_fraction asc limit 1) r on true
+        where ${where.sql}
+        order by ${order}
+        limit ? offset ?`,
+      [...where.params, query.pageSize, (query.page - 1) * query.pageSize],
+    ),
+  ]);
+  return {
+    total: Number(countRows[0]?.total ?? 0),
+    page: query.page,
+    pageSize: query.pageSize,
+    rows: rows.map(
+      (r): AnodeGroupRow => ({
+        id: r.id as string,
+        assetId: r.asset_id as string,
+        assetName: r.asset_name as string,
+        assetKind: r.asset_kind as string,
+        zoneName: (r.zone_name as string) ?? null,
+        label: r.label as string,
+        model: r.model as AnodeGroupModelSnapshot,
+        quantity: Number(r.quantity),
+        positions: (r.positions as string) ?? null,
+        installedOn: r.installed_on as string,
+        removedOn: (r.removed_on as string) ?? null,
+        meanCurrentA: r.mean_current_a === null ? null : Number(r.mean_current_a),
+        lastRemainingFraction: r.remaining_fraction === null ? null : Number(r.remaining_fraction),
+        lastSurveyedOn: (r.surveyed_on as string) ?? null,
+      }),
+    ),
+  };
+}
+
+const csvCell = (v: unknown) => {
+  const s = v === null || v === undefined ? '' : String(v);
+  // Quote when needed; a leading =, +, - or @ is neutralised so spreadsheets do not run it as a formula.
+  const safe = /^[=+\-@]/.test(s) && !/^-?\d/.test(s) ? `'${s}` : s;
+  return /[",\n;]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+};
+
+/** The whole register (fitted groups) as CSV, for spreadsheets and the yard. */
+export async function exportAnodeRegisterCsv(ctx: OrgContext) {
+  const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
+  const header = ['asset', 'asset_kind', 'zone', 'group', 'model', 'alloy', 'mounting', 'quantity', 'net_mass_each_kg', 'gross_mass_each_kg', 'net_mass_total_kg', 'positions', 'installed_on', 'last_remaining_fraction', 'last_surveyed_on'];
+  const lines = rows.map((r) =>
+    [r.assetName, r.assetKind, r.zoneName, r.label, r.model.designation, r.model.alloy, r.model.mounting, r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]
+      .map(csvCell)
+      .join(','),
+  );
+  return [header.join(','), ...lines].join('\r\n') + '\r\n';
+}

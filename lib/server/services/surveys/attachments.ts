@@ -1,0 +1,48 @@
+import { SurveyAttachmentSchema } from '@/entities';
+import { AppError, notFound } from '../../errors';
+import { audit } from '../../audit';
+import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { getSurveyOrThrow } from './survey-access';
+
+export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
+
+/** The content type from the file's first bytes; the name and the browser's claim are not trusted. */
+export function sniffContentType(bytes: Uint8Array): 'image/jpeg' | 'image/png' | 'application/pdf' | null {
+  if (bytes.length >= 3 && bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff) return 'image/jpeg';
+  if (bytes.length >= 8 && [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a].every((b, i) => bytes[i] === b)) return 'image/png';
+  if (bytes.length >= 5 && String.fromCharCode(...bytes.subarray(0, 5)) === '%PDF-') return 'application/pdf';
+  return null;
+}
+
+const EXTENSION = { 'image/jpeg': 'jpg', 'image/png': 'png', 'application/pdf': 'pdf' } as const;
+
+export async function addSurveyAttachment(ctx: OrgContext, surveyId: string, file: { name: string; bytes: Uint8Array }, caption: string | null) {
+  requirePermission(ctx, 'survey:write');
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  if (file.bytes.length === 0) throw new AppError('invalid', 'The file is empty.');
+  if (file.bytes.length > MAX_ATTACHMENT_BYTES) throw new AppError('payload-too-large', `The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB; reduce it and try again.`);
+  const contentType = sniffContentType(file.bytes);
+  if (!contentType) throw new AppError('unsupported', 'Only JPEG and PNG photos and PDF reports can be attached.');
+  const base = file.name.replace(/\.[^.]*$/, '').replace(/[^\w.\- ]+/g, '_').slice(0, 120) || 'attachment';
+  const attachment = ctx.em.create(SurveyAttachmentSchema, {
+    organisation: ctx.organisation,
+    survey,
+    filename: `${base}.${EXTENSION[contentType]}`,
+    contentType,
+    sizeBytes: file.bytes.length,
+    data: Buffer.from(file.bytes),
+    caption: caption?.trim().slice(0, 200) || null,
+    uploadedByEmail: ctx.user.email,
+  });
+  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.attachment-added', targetType: 'survey', targetId: survey.id, details: { file: attachment.filename, bytes: attachment.sizeBytes } });
+  await ctx.em.flush();
+  return attachment;
+}
+
+export async function getSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string) {
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  if (!/^[0-9a-f-]{36}$/i.test(attachmentId)) throw notFound('Attachment');
+  const attachment = await ctx.em.findOne(SurveyAttachmentSchema, { id: attachmentId, survey }, { populate: ['data'] });
+  if (!attachment) throw notFound('Attachment');
+  return attachment;
+}

@@ -1,0 +1,52 @@
+import { AnodeGroupSchema, MembershipSchema, SurveyReadingSchema, type Survey } from '@/entities';
+import { convertPotential } from '@/lib/cp';
+import { classifyPotential } from '@/lib/surveys/criteria';
+import { protectedMetalOf } from '@/lib/register/protected-metal';
+import type { ParsedReading } from '@/lib/surveys/survey-csv';
+import { enqueueMail } from '../../mail/outbox';
+import { getEnv } from '../../env';
+import type { OrgContext } from '../../org-context';
+
+export type ReadingInput = Omit<ParsedReading, 'line' | 'potentialAgAgClV'> & { line?: number | null };
+
+/**
+ * Adds readings to a survey in the caller's unit of work: potentials converted to Ag/AgCl/seawater,
+ * group labels resolved to the asset's fitted groups. When a reading is under-protected, the
+ * organisation's engineers and owners are told once per survey (through the outbox).
+ */
+export async function addReadings(ctx: OrgContext, survey: Survey, readings: ReadingInput[]) {
+  const labels = [...new Set(readings.map((r) => r.anodeGroupLabel).filter((l): l is string => Boolean(l)))];
+  const groups = labels.length ? await ctx.em.find(AnodeGroupSchema, { asset: survey.asset, removedOn: null, label: { $in: labels } }) : [];
+  const byLabel = new Map(groups.map((g) => [g.label, g]));
+  const metal = protectedMetalOf(survey.asset);
+  let under = 0;
+  for (const r of readings) {
+    const agAgCl = r.potentialV !== null && r.electrode ? convertPotential({ valueV: r.potentialV, from: r.electrode, to: 'ag-agcl-seawater' }) : null;
+    if (agAgCl !== null && classifyPotential({ potentialAgAgClV: agAgCl, protectedMetal: metal }).status === 'under-protected') under++;
+    ctx.em.create(SurveyReadingSchema, {
+      survey,
+      line: r.line ?? null,
+      location: r.location,
+      potentialV: r.potentialV,
+      electrode: r.electrode,
+      potentialAgAgClV: agAgCl === null ? null : Math.round(agAgCl * 1e6) / 1e6,
+      anodeGroup: r.anodeGroupLabel ? (byLabel.get(r.anodeGroupLabel) ?? null) : null,
+      remainingFraction: r.remainingFraction,
+      comment: r.comment,
+    });
+  }
+  if (under) {
+    const recipients = await ctx.em.find(MembershipSchema, { organisation: ctx.organisation, role: { $in: ['engineer', 'owner'] } }, { populate: ['user'] });
+    const url = `${getEnv().APP_URL}/o/${ctx.organisation.slug}/surveys/${survey.id}`;
+    for (const m of recipients) {
+      enqueueMail(ctx.em, {
+        to: m.user.email,
+        organisationId: ctx.organisation.id,
+        dedupeKey: `survey-under-protection:${survey.id}:${m.user.id}`,
+        subject: `Under-protection found on ${survey.asset.name} (survey of ${survey.surveyedOn})`,
+        text: `${under} reading(s) of the ${survey.method} survey of ${survey.asset.name} on ${survey.surveyedOn} are less negative than the protection criterion.\n\nSee the readings: ${url}\n\nCheck the anodes and their electrical continuity; verify against the governing standard before acting.\n\n— Tidewarden`,
+      });
+    }
+  }
+  return { under };
+}
