@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Field, FormMessage, SelectField } from '@/components/ui/field';
 import type { ActionState } from '@/lib/server/action';
 import { createAnodeGroupAction, removeAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
@@ -32,6 +33,7 @@ interface Props {
 export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }: Props) {
   const editing = Boolean(groups);
   const [state, action, pending] = useActionState((editing ? updateAnodeGroupAction : createAnodeGroupAction).bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'anode-groups'], ['orgs', org, 'assets']);
   const [groupId, setGroupId] = useState(groups?.[0]?.id ?? '');
   const group = groups?.find((g) => g.id === groupId);
   const fallback: Record<string, string | undefined> = group
@@ -71,6 +73,7 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
 
 export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: string; label: string }[] }) {
   const [state, action, pending] = useActionState(removeAnodeGroupAction.bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'anode-groups'], ['orgs', org, 'assets']);
   if (!groups.length) return null;
   return (
     <form action={action} className="grid grid-cols-2 gap-3 md:grid-cols-4" noValidate>

@@ -6,12 +6,15 @@ import type { ActionState } from '@/lib/server/action';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { createAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
 
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
 
 /** An organisation's own anode model, with the dimensions its resistance formula needs. */
 export function AnodeModelForm({ org }: { org: string }) {
   const [state, action, pending] = useActionState(createAnodeModelAction.bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'catalogue']);
   const v = !state.ok && state.values ? state.values : {};
   const [shape, setShape] = useState(v.shapeKind ?? 'short-flush');
   const e = (n: string) => state.fieldErrors?.[n];

@@ -6,11 +6,14 @@ import type { ActionState } from '@/lib/server/action';
 import { createAssetAction, updateAssetAction } from '@/app/o/[org]/assets/actions';
 import { AssetFields } from './asset-fields';
 
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 /** Create a vessel or structure, or edit one's particulars (then the kind is fixed). */
 export function AssetForm({ org, asset }: { org: string; asset?: { id: string; kind: string; values: Record<string, string | undefined> } }) {
   const [state, action, pending] = useActionState((asset ? updateAssetAction : createAssetAction).bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'assets']);
   const [kind, setKind] = useState(asset?.kind ?? state.values?.kind ?? 'vessel');
   const values = state.ok || !state.values ? (asset?.values ?? {}) : state.values;
   return (

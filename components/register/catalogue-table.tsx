@@ -11,6 +11,7 @@ import { fmt } from '@/lib/format';
 import type { ActionState } from '@/lib/server/action';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { archiveAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
@@ -23,7 +24,8 @@ function dimensions(m: CatalogueModel) {
 }
 
 function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
-  const [, action, pending] = useActionState(archiveAnodeModelAction.bind(null, org) as Bound, { ok: false });
+  const [state, action, pending] = useActionState(archiveAnodeModelAction.bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'catalogue']);
   return (
     <form action={action}>
       <input type="hidden" name="modelId" value={model.id} />

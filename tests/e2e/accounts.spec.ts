@@ -28,7 +28,7 @@ test('sign up, confirm the e-mail, create an organisation, invite an engineer wh
   await page.getByRole('link', { name: 'Team' }).click();
   const engineerEmail = uniqueEmail('engineer');
   await page.getByLabel('E-mail').fill(engineerEmail);
-  await page.getByLabel('Role').selectOption('engineer');
+  await page.getByLabel('Role', { exact: true }).selectOption('engineer');
   await page.getByRole('button', { name: 'Send invitation' }).click();
   await expect(page.getByText(`Invitation sent to ${engineerEmail}`)).toBeVisible();
   await expect(page.getByRole('table', { name: 'Open invitations' })).toContainText(engineerEmail);

@@ -23,6 +23,11 @@ const ROUTES: { path: string; method?: 'GET' | 'POST'; body?: unknown; load: () 
   { path: 'team', load: () => import('@/app/api/orgs/[org]/team/route'), permission: (r) => r === 'owner' },
   { path: 'audit', load: () => import('@/app/api/orgs/[org]/audit/route'), permission: (r) => r === 'owner' },
   { path: 'designs', load: () => import('@/app/api/orgs/[org]/designs/route'), permission: () => true },
+  { path: 'assets', load: () => import('@/app/api/orgs/[org]/assets/route'), permission: () => true },
+  { path: 'anode-groups', load: () => import('@/app/api/orgs/[org]/anode-groups/route'), permission: () => true },
+  { path: 'surveys', load: () => import('@/app/api/orgs/[org]/surveys/route'), permission: () => true },
+  { path: 'catalogue', load: () => import('@/app/api/orgs/[org]/catalogue/route'), permission: () => true },
+  { path: 'assets', method: 'POST', body: { kind: 'vessel', name: 'Route Test Boat', hullMaterial: 'steel' }, load: () => import('@/app/api/orgs/[org]/assets/route'), permission: (r) => r === 'owner' || r === 'engineer' },
   { path: 'calculations', method: 'POST', body: CALCULATION, load: () => import('@/app/api/orgs/[org]/calculations/route'), permission: () => true },
 ];
 
@@ -53,7 +58,7 @@ afterAll(async () => (await getOrm()).close(true));
 
 describe('organisation route handlers', () => {
   for (const route of ROUTES) {
-    it(`${route.path}: 401 without a session`, async () => {
+    it(`${route.method ?? 'GET'} ${route.path}: 401 without a session`, async () => {
       await signInAs(null);
       const { status, body } = await call(route, home.organisation.slug);
       expect(status).toBe(401);
@@ -61,13 +66,13 @@ describe('organisation route handlers', () => {
     });
 
     for (const role of ROLES) {
-      it(`${route.path}: ${role} of the organisation gets ${route.permission(role) ? 200 : 403}`, async () => {
+      it(`${route.method ?? 'GET'} ${route.path}: ${role} of the organisation gets ${route.permission(role) ? 200 : 403}`, async () => {
         await signInAs(home.users[role]);
         const { status } = await call(route, home.organisation.slug);
-        expect(status).toBe(route.permission(role) ? 200 : 403);
+        expect(status).toBe(route.permission(role) ? (route.method === 'POST' && route.path !== 'calculations' ? 201 : 200) : 403);
       });
 
-      it(`${route.path}: ${role} of another organisation gets 404, never the data`, async () => {
+      it(`${route.method ?? 'GET'} ${route.path}: ${role} of another organisation gets 404, never the data`, async () => {
         await signInAs(other.users[role]);
         const { status, body } = await call(route, home.organisation.slug);
         expect(status).toBe(404);
@@ -75,7 +80,7 @@ describe('organisation route handlers', () => {
       });
     }
 
-    it(`${route.path}: an unknown organisation is 404 too`, async () => {
+    it(`${route.method ?? 'GET'} ${route.path}: an unknown organisation is 404 too`, async () => {
       await signInAs(home.users.owner);
       expect((await call(route, 'no-such-org')).status).toBe(404);
     });
