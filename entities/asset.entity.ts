@@ -34,6 +34,10 @@ export const AssetSchema = defineEntity({
     designLifeYears: double().nullable(),
     pileCount: p.integer().nullable(),
     pileDiameterM: double().nullable(),
+    // The protection outlook last computed (sound, renew at next docking, overdue, under-protected),
+    // kept so the weekly digest can tell what changed.
+    outlook: p.string().length(32).nullable(),
+    outlookChangedAt: p.datetime().nullable(),
     archivedAt: p.datetime().nullable(),
     createdAt: createdAt(),
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),

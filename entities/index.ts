@@ -14,6 +14,9 @@ import { AnodeModelSchema } from './anode-model.entity';
 import { DesignSchema } from './design.entity';
 import { AnodeGroupSchema, AnodeGroupChangeSchema } from './anode-group.entity';
 import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema } from './survey.entity';
+import { StripeEventSchema } from './stripe-event.entity';
+import { DockingSchema } from './docking.entity';
+import { RenewalSchema } from './renewal.entity';
 
 export * from './user.entity';
 export * from './session.entity';
@@ -30,6 +33,9 @@ export * from './anode-model.entity';
 export * from './design.entity';
 export * from './anode-group.entity';
 export * from './survey.entity';
+export * from './stripe-event.entity';
+export * from './docking.entity';
+export * from './renewal.entity';
 
 export const allEntities = [
   UserSchema,
@@ -50,4 +56,7 @@ export const allEntities = [
   SurveySchema,
   SurveyReadingSchema,
   SurveyAttachmentSchema,
+  StripeEventSchema,
+  DockingSchema,
+  RenewalSchema,
 ];

@@ -14,6 +14,16 @@ export const OrganisationSchema = defineEntity({
     // Cost basis for option comparison, per kg of net anode mass fitted.
     fittingRatePerKg: double().nullable(),
     currency: p.string().length(3).default('EUR'),
+    // Subscription, mirrored from the payment service by signed webhooks (never from the browser).
+    plan: p.string().length(16).nullable().$type<'harbour' | 'fleet' | 'armada'>(),
+    subscriptionStatus: p.string().length(24).default('trialing'),
+    trialEndsAt: p.datetime().nullable(),
+    stripeCustomerId: p.string().length(64).nullable().unique(),
+    stripeSubscriptionId: p.string().length(64).nullable(),
+    currentPeriodEnd: p.datetime().nullable(),
+    cancelAtPeriodEnd: p.boolean().default(false),
+    pastDueSince: p.datetime().nullable(),
+    lastDigestAt: p.datetime().nullable(),
     createdAt: createdAt(),
   },
 });

@@ -2,10 +2,14 @@ import type { MigrationObject } from '@mikro-orm/core';
 import { Migration20261201174640_initial } from './Migration20261201174640_initial';
 import { Migration20261201175515_register_and_designs } from './Migration20261201175515_register_and_designs';
 import { Migration20261201180718_register_and_surveys } from './Migration20261201180718_register_and_surveys';
+import { Migration20261201181934_billing } from './Migration20261201181934_billing';
+import { Migration20261201182920_dockings_and_renewals } from './Migration20261201182920_dockings_and_renewals';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201174640_initial', class: Migration20261201174640_initial },
   { name: 'Migration20261201175515_register_and_designs', class: Migration20261201175515_register_and_designs },
   { name: 'Migration20261201180718_register_and_surveys', class: Migration20261201180718_register_and_surveys },
+  { name: 'Migration20261201181934_billing', class: Migration20261201181934_billing },
+  { name: 'Migration20261201182920_dockings_and_renewals', class: Migration20261201182920_dockings_and_renewals },
 ];

@@ -1,24 +1,50 @@
-// Background worker: delivers the e-mail outbox (and, later, scheduled jobs). Safe to run in several
-// copies: rows are claimed with FOR UPDATE SKIP LOCKED.
+// Background worker, started by `npm start`. It delivers the e-mail outbox (rows claimed with
+// FOR UPDATE SKIP LOCKED) and runs the scheduled jobs through pg-boss, a job queue kept in
+// PostgreSQL: its schedules fire once per tick however many workers run, and the reminders
+// themselves are queued with dedupe keys, so each is sent exactly once.
 import { MikroORM } from '@mikro-orm/postgresql';
+import PgBoss from 'pg-boss';
 import { ormConfig } from '../mikro-orm.config';
 import { getEnv } from '../lib/server/env';
-import { describeStartupError } from './lib/describe-error';
 import { deliverDueMail } from '../lib/server/mail/outbox';
+import { queueDockingReminders } from '../lib/server/services/reminders/docking-reminders';
+import { queueWeeklyDigests } from '../lib/server/services/reminders/weekly-digest';
+import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
+export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest' } as const;
 
 async function main() {
-  const orm = await MikroORM.init(ormConfig(getEnv().DATABASE_URL));
+  const env = getEnv();
+  const orm = await MikroORM.init(ormConfig(env.DATABASE_URL));
+  const boss = new PgBoss({ connectionString: env.DATABASE_URL, schema: 'pgboss', max: 3 });
+  boss.on('error', (error) => console.error('[worker] job queue error:', error.message));
+  await boss.start();
+  for (const name of Object.values(JOBS)) await boss.createQueue(name);
+  await boss.schedule(JOBS.reminders, '*/15 * * * *', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.digest, '0 7 * * 1', {}, { tz: 'UTC' });
+  await boss.work(JOBS.reminders, async () => {
+    const { queued } = await queueDockingReminders(orm.em.fork());
+    if (queued) console.log(`[worker] docking reminders queued: ${queued}`);
+  });
+  await boss.work(JOBS.digest, async () => {
+    const { queued } = await queueWeeklyDigests(orm.em.fork());
+    console.log(`[worker] weekly digests queued: ${queued}`);
+  });
+  // One reminder pass soon after start, shared by every worker that starts within five minutes.
+  await boss.send(JOBS.reminders, {}, { singletonKey: 'startup', singletonSeconds: 300 });
+
   let stopping = false;
   const stop = async () => {
+    if (stopping) return;
     stopping = true;
+    await boss.stop({ graceful: true, timeout: 5000 }).catch(() => undefined);
     await orm.close(true);
     process.exit(0);
   };
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);
-  console.log('[worker] started');
+  console.log('[worker] started: outbox delivery and scheduled jobs');
   while (!stopping) {
     try {
       const result = await deliverDueMail(orm.em.fork());

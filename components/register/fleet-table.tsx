@@ -7,15 +7,47 @@ import { ServerTable } from '@/components/ui/server-table';
 import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
 import { protectedMetalOf } from '@/lib/register/protected-metal';
-import type { AssetRow } from '@/lib/server/services/assets/list-assets';
+import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
+import { StatusTag } from '@/components/ui/panel';
 
 export function FleetTable({ org }: { org: string }) {
   const [archived, setArchived] = useState(false);
   const columns = useMemo(() => {
-    const col = createColumnHelper<AssetRow>();
+    const col = createColumnHelper<FleetRow>();
     return [
       col.accessor('name', { id: 'name', header: 'Asset', cell: (c) => <Link className="font-medium text-tide-600 hover:underline" href={`/o/${org}/assets/${c.row.original.id}`}>{c.getValue()}</Link> }),
       col.accessor('kind', { id: 'kind', header: 'Kind', cell: (c) => `${c.getValue()}${c.row.original.type ? ` · ${c.row.original.type}` : ''}${c.row.original.hullMaterial === 'aluminium' ? ' · aluminium hull' : ''}` }),
+      col.accessor('outlookWords', {
+        id: 'outlook',
+        header: 'Protection outlook',
+        enableSorting: false,
+        cell: (c) => {
+          const o = c.row.original.outlook;
+          if (!o) return '—';
+          const tone = o === 'sound' ? 'sound' : o === 'renew-at-next-docking' ? 'due' : o === 'overdue' ? 'overdue' : 'under';
+          return (
+            <span className="flex flex-col gap-0.5">
+              <StatusTag tone={tone}>{c.getValue()}</StatusTag>
+              {c.row.original.needsDockingBy ? <span className="text-2xs text-state-overdue">needs a docking by {format(new Date(`${c.row.original.needsDockingBy}T00:00:00Z`), 'd MMM yyyy')}</span> : null}
+            </span>
+          );
+        },
+      }),
+      col.accessor((r) => r.nextDocking?.date ?? null, {
+        id: 'nextDocking',
+        header: 'Next docking',
+        enableSorting: false,
+        cell: (c) => {
+          const d = c.row.original.nextDocking;
+          if (!d) return <span className="text-ink-faint">none planned</span>;
+          return (
+            <span className="flex flex-col">
+              <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{format(new Date(`${d.date}T00:00:00Z`), 'd MMM yyyy')}</Link>
+              <span className="num text-left text-2xs text-ink-soft">{fmt(c.row.original.massDueAtNextDockingKg, 0)} kg anodes due</span>
+            </span>
+          );
+        },
+      }),
       col.accessor('anodes', { id: 'anodes', header: 'Anodes fitted', meta: { numeric: true }, cell: (c) => `${c.getValue()} in ${c.row.original.groups} group${c.row.original.groups === 1 ? '' : 's'}` }),
       col.accessor('netMassKg', { id: 'netMass', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 0)} kg` }),
       col.accessor('lastSurveyedOn', { id: 'lastSurvey', header: 'Last survey', cell: (c) => (c.getValue() ? format(new Date(`${c.getValue()}T00:00:00Z`), 'd MMM yyyy') : 'none') }),

@@ -192,7 +192,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
   const n = docks.times.length;
   const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
   const horizon = addMonthsUTC(horizonBase, s.intervalMonths).getTime();
-  const horizonText = n > 0 ? `the last planned docking (${docks.ids[n - 1]}, ${isoDay(horizonBase)})` : 'today, with no docking planned';
+  const horizonText = n > 0 ? `the last planned docking (${isoDay(horizonBase)})` : 'today, with no docking planned';
   const marginText = `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`;
 
   return groups.map((g, i): RenewalProposal => {
@@ -217,12 +217,12 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         dockingId: confirmedId,
         ...(booked ? { dockingDate: booked.date } : {}),
         ...(deadline ? { deadline } : {}),
-        reason: `The renewal confirmed at docking ${confirmedId} is kept as booked.`,
+        reason: booked ? `The renewal confirmed at the docking of ${isoDay(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
       };
-      if (!booked) out.warning = `Docking ${confirmedId} is not among this asset's dockings.`;
-      else if (booked.status === 'cancelled') out.warning = `Docking ${confirmedId} has been cancelled; the renewal needs another docking.`;
+      if (!booked) out.warning = "The confirmed renewal's docking is not among this asset's dockings.";
+      else if (booked.status === 'cancelled') out.warning = `The docking of ${isoDay(booked.date)} has been cancelled; the renewal needs another docking.`;
       else if (deadline && booked.date.getTime() > deadline.getTime()) {
-        out.warning = `Docking ${confirmedId} on ${isoDay(booked.date)} is after the deadline ${isoDay(deadline)}${because}.`;
+        out.warning = `The docking of ${isoDay(booked.date)} is after the deadline ${isoDay(deadline)}${because}.`;
       }
       return out;
     }
@@ -269,7 +269,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         deadline,
         ...(atRisk ? { atRisk: true } : {}),
         reason:
-          `Renew at docking ${docks.ids[k]} on ${isoDay(dockingDate)}, the last docking before the deadline ${isoDay(deadline)}${because}` +
+          `Renew at the docking of ${isoDay(dockingDate)}, the last docking before the deadline ${isoDay(deadline)}${because}` +
           (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${isoDay(earlyDeadline)}.` : '.'),
       };
     }

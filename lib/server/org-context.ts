@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { MembershipSchema, type Membership, type Organisation, type Role } from '@/entities';
 import { AppError, notFound } from './errors';
 import { can, type Permission } from './permissions';
+import { readOnlyReason } from '@/lib/billing/plans';
 
 export interface CurrentUser {
   id: string;
@@ -30,10 +31,33 @@ export async function getOrgContextOrThrow(em: EntityManager, user: CurrentUser,
   return { em, user, organisation: membership.organisation, membership, role: membership.role, ip };
 }
 
-export function requirePermission(ctx: Pick<OrgContext, 'role'>, permission: Permission) {
+// What stays possible while the organisation is read-only (lapsed subscription): reading, printing,
+// exports, and the owner's way back (billing, team).
+const ALLOWED_WHEN_READ_ONLY: ReadonlySet<Permission> = new Set(['org:read', 'org:print', 'audit:read', 'billing:manage', 'team:manage']);
+
+export function requirePermission(ctx: Pick<OrgContext, 'role'> & { organisation?: Organisation }, permission: Permission) {
   if (!can(ctx.role, permission)) {
     throw new AppError('forbidden', 'Your role in this organisation does not allow that.');
   }
+  const reason = ctx.organisation && !ALLOWED_WHEN_READ_ONLY.has(permission) ? organisationReadOnlyReason(ctx.organisation) : null;
+  if (reason) {
+    throw new AppError('read-only', `${reason} The organisation is read-only until the subscription is renewed; nothing has been deleted.${can(ctx.role, 'billing:manage') ? ' Renew it on the Billing page.' : ' Ask an owner to renew it.'}`);
+  }
+}
+
+export function organisationReadOnlyReason(organisation: Organisation): string | null {
+  return readOnlyReason({
+    plan: organisation.plan ?? null,
+    subscriptionStatus: organisation.subscriptionStatus,
+    trialEndsAt: organisation.trialEndsAt ?? null,
+    stripeSubscriptionId: organisation.stripeSubscriptionId ?? null,
+    pastDueSince: organisation.pastDueSince ?? null,
+  });
+}
+
+/** For screens: may this member do this now (role and read-only mode together)? */
+export function allowed(ctx: Pick<OrgContext, 'role' | 'organisation'>, permission: Permission): boolean {
+  return can(ctx.role, permission) && (ALLOWED_WHEN_READ_ONLY.has(permission) || !organisationReadOnlyReason(ctx.organisation));
 }
 
 export const actorOf = (ctx: Pick<OrgContext, 'user'>) => ({ id: ctx.user.id, email: ctx.user.email });

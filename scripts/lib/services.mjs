@@ -16,6 +16,7 @@ export async function bringUp(options) {
   await requireFreePort(ports.app, 'the web app', options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT');
   await requireFreePort(ports.smtp, 'the SMTP fake', 'FAKE_SMTP_PORT');
   await requireFreePort(ports.mailApi, 'the SMTP fake inbox', 'FAKE_MAIL_API_PORT');
+  await requireFreePort(ports.stripe, 'the Stripe fake', 'FAKE_STRIPE_PORT');
 
   let databaseUrl = options.mode === 'development' ? process.env.DATABASE_URL : undefined;
   let cluster = null;
@@ -39,15 +40,26 @@ export async function bringUp(options) {
     FAKE_MAIL_API_PORT: String(ports.mailApi),
     FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
     FAKE_STRIPE_PORT: String(ports.stripe),
+    FAKE_STRIPE_WEBHOOK_URL: `${appUrl}/api/webhooks/stripe`,
+    FAKE_STRIPE_PUBLIC_URL: `http://127.0.0.1:${ports.stripe}`,
+    FAKE_STRIPE_STATE_FILE: path.join(root, '.data', `stripe-${options.mode}.json`),
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: String(ports.stripe),
+    STRIPE_API_PROTOCOL: 'http',
+    STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
+    STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET || 'whsec_tidewarden_local',
     NEXT_TELEMETRY_DISABLED: '1',
   };
+  // The fakes start first: the seed sets up the demo subscription through the Stripe fake.
+  if (options.freshDatabase) fs.rmSync(env.FAKE_STRIPE_STATE_FILE, { force: true });
+  const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env);
+  const stripe = startTsChild('fake-stripe', 'fakes/stripe/server.ts', env);
+  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp);
+  await waitForPort(ports.stripe, 'The Stripe fake', 30_000, stripe);
 
   say('Migrating the database...');
   runTs('scripts/migrate.ts', ['up'], env, 'The database migration failed; see the message above.');
   runTs('scripts/seed.ts', [], env, 'Seeding the demo scenario failed; see the message above.');
-
-  const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env);
-  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp);
 
   startTsChild('worker', 'scripts/worker.ts', env);
 

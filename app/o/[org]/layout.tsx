@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { can } from '@/lib/server/permissions';
+import { organisationReadOnlyReason } from '@/lib/server/org-context';
 import { ROLE_LABELS } from '@/lib/server/permissions';
 import { OrgNav, type NavItem } from '@/components/shell/org-nav';
 import { signOutAction } from '@/app/orgs/actions';
@@ -9,14 +10,17 @@ export default async function OrgLayout({ children, params }: { children: React.
   const { org } = await params;
   const ctx = await getPageOrgContext(org);
   const base = `/o/${org}`;
+  const readOnly = organisationReadOnlyReason(ctx.organisation);
   const items: NavItem[] = [
     { href: base, label: 'Fleet overview' },
     { href: `${base}/register`, label: 'Anode register' },
     { href: `${base}/designs`, label: 'Design desk' },
+    { href: `${base}/dockings`, label: 'Docking planner' },
     { href: `${base}/surveys`, label: 'Surveys' },
     { href: `${base}/catalogue`, label: 'Catalogue' },
   ];
   if (can(ctx.role, 'team:manage')) items.push({ href: `${base}/team`, label: 'Team' });
+  if (can(ctx.role, 'billing:manage')) items.push({ href: `${base}/billing`, label: 'Billing' });
   if (can(ctx.role, 'audit:read')) items.push({ href: `${base}/audit`, label: 'Audit log' });
   items.push({ href: `${base}/account`, label: 'My account' });
   return (
@@ -43,7 +47,21 @@ export default async function OrgLayout({ children, params }: { children: React.
           </form>
         </div>
       </aside>
-      <main className="min-w-0 flex-1 px-8 py-6">{children}</main>
+      <main className="min-w-0 flex-1 px-8 py-6">
+        {readOnly ? (
+          <div role="alert" className="no-print mb-4 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-4 py-2 text-sm text-state-overdue">
+            <strong>Read-only.</strong> {readOnly} You can read, print and export everything; nothing has been deleted.{' '}
+            {can(ctx.role, 'billing:manage') ? (
+              <Link href={`${base}/billing`} className="font-semibold underline">
+                Renew the subscription
+              </Link>
+            ) : (
+              'An owner of the organisation can renew the subscription.'
+            )}
+          </div>
+        ) : null}
+        {children}
+      </main>
     </div>
   );
 }

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { getPageOrgContext } from '@/lib/server/page-context';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { FleetTable } from '@/components/register/fleet-table';
@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: 'Fleet overview' };
 export default async function FleetOverviewPage({ params }: { params: Promise<{ org: string }> }) {
   const { org } = await params;
   const ctx = await getPageOrgContext(org);
-  const canWrite = can(ctx.role, 'asset:write');
+  const canWrite = allowed(ctx, 'asset:write');
   return (
     <>
       <PageHeader

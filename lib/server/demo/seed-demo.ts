@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { AssetSchema, MembershipSchema, OrganisationSchema, UserSchema, ZoneSchema, type Organisation, type Role, type User } from '@/entities';
+import { AssetSchema, DockingSchema, MembershipSchema, OrganisationSchema, UserSchema, ZoneSchema, type Organisation, type Role, type User } from '@/entities';
 import { hashPassword } from '../auth/password';
 import { audit } from '../audit';
 import type { OrgContext } from '../org-context';
@@ -7,7 +7,13 @@ import { createDesign } from '../services/designs/create-design';
 import { approveDesign } from '../services/designs/sign-design';
 import { createAnodeGroup } from '../services/register/anode-groups';
 import { createSurvey } from '../services/surveys/create-survey';
+import { recomputeRenewals } from '../services/planner/recompute-renewals';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
+import { addDays } from 'date-fns';
+import { PLANS, TRIAL_DAYS } from '@/lib/billing/plans';
+import { getEnv } from '../env';
+import { getStripe } from '../billing/stripe';
+import { applySubscription } from '../services/billing/sync-subscription';
 
 type ZoneSeed = {
   name: string;
@@ -109,7 +115,7 @@ const STRUCTURES = [
 export async function seedDemo(em: EntityManager): Promise<{ created: boolean }> {
   if (await em.count(OrganisationSchema, { slug: demo.organisation.slug })) return { created: false };
   await em.transactional(async (tx) => {
-    const organisation = tx.create(OrganisationSchema, { slug: demo.organisation.slug, name: demo.organisation.name, fittingRatePerKg: 14 });
+    const organisation = tx.create(OrganisationSchema, { slug: demo.organisation.slug, name: demo.organisation.name, fittingRatePerKg: 14, subscriptionStatus: 'trialing', trialEndsAt: addDays(new Date(), TRIAL_DAYS) });
     const passwordHash = await hashPassword(demo.password);
     const people: Record<string, User> = {};
     for (const person of demo.users) {
@@ -152,8 +158,24 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
     await createDesign(engineer, { assetId: assets['Kittiwake Sound'] });
 
     await seedRegister(tx, engineer, await ctxFor('inspector@gullhaven.example'), assets, ferry.id);
+    await seedSubscription(organisation as Organisation);
   });
   return { created: true };
+}
+
+/** The demo organisation pays for the Fleet plan, through the payment service (the local fake in development). */
+async function seedSubscription(organisation: Organisation) {
+  if (!getEnv().STRIPE_API_HOST) return; // no payment service configured: the demo stays on its trial
+  try {
+    const stripe = getStripe();
+    const customer = await stripe.customers.create({ name: organisation.name, email: 'owner@gullhaven.example', metadata: { organisationId: organisation.id } });
+    const price = (await stripe.prices.list({ lookup_keys: [PLANS.fleet.lookupKey] })).data[0];
+    const sub = await stripe.subscriptions.create({ customer: customer.id, items: [{ price: price.id, quantity: 1 }], metadata: { organisationId: organisation.id, plan: 'fleet' } });
+    organisation.stripeCustomerId = customer.id;
+    applySubscription(organisation, sub);
+  } catch (error) {
+    console.warn(`[tidewarden] The demo subscription was not set up (${error instanceof Error ? error.message : error}); the demo organisation stays on its trial.`);
+  }
 }
 
 /** Installed anodes and two years of surveys on the invented fleet and jetty. */
@@ -195,9 +217,25 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   await survey('Dolphin North', '2025-11-21', 'diver', 'Brannock Kelp Divers', [pile('DN-1', -1.01, 0.7, 'Dolphin N bracelets'), pile('DN-4', -1.0)]);
   await survey('Brindlemoor', '2025-09-03', 'drop-cell', 'Ship staff', [pile('Fr 40 P', -0.97), pile('Fr 40 S', -0.98), pile('Fr 110 P', -0.95)]);
   await survey('Brindlemoor', '2026-06-12', 'diver', 'Brannock Kelp Divers', [
-    pile('Fr 40 P', -0.96, 0.7, 'Bottom P/S'), pile('Fr 110 S', -0.94, 0.66, 'Sides P/S'), pile('Rudder P', -0.93, 0.55, 'Rudders'), pile('Stern frame', -0.91, 0.52, 'Stern frame'),
+    pile('Fr 40 P', -0.96, 0.84, 'Bottom P/S'), pile('Fr 110 S', -0.94, 0.82, 'Sides P/S'), pile('Rudder P', -0.93, 0.72, 'Rudders'), pile('Stern frame', -0.91, 0.7, 'Stern frame'),
   ]);
   await survey('Wavecrest Minnow', '2026-03-30', 'drop-cell', 'Ship staff', [pile('Transom P', -1.02), pile('Transom S', -1.03)]);
+
+  // Dockings and campaigns: the last ones done, the next ones planned (dates relative to the seeding day).
+  const plan = async (asset: string, kind: string, plannedStart: string, yard: string, status: 'planned' | 'done' = 'planned') => {
+    const docking = em.create(DockingSchema, { organisation: engineer.organisation, asset: assets[asset], kind: kind as never, status, plannedStart, plannedEnd: null, actualStart: status === 'done' ? plannedStart : null, actualEnd: null, yard, reference: null, notes: null });
+    return docking;
+  };
+  const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+  await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Harrowgate Dry Dock', 'done');
+  await plan('Brindlemoor', 'intermediate', inDays(640), 'Harrowgate Dry Dock');
+  await plan('Kittiwake Sound', 'intermediate', inDays(75), 'Corrie Point Shiprepair');
+  await plan('Tern Ledger', 'intermediate', inDays(200), 'Corrie Point Shiprepair');
+  await plan('Wavecrest Minnow', 'unplanned', inDays(29), 'Harrowgate Dry Dock');
+  await plan('Gullhaven Ferry Jetty', 'campaign', inDays(150), 'Brannock Kelp Divers');
+  await plan('Dolphin North', 'campaign', inDays(150), 'Brannock Kelp Divers');
+  await em.flush();
+  await recomputeRenewals(engineer);
 }
 
 const blank = {

@@ -26,6 +26,20 @@ export function enqueueMail(em: EntityManager, mail: MailInput) {
   });
 }
 
+/**
+ * Queues a message at most once for its dedupe key, even when two schedulers run at the same time:
+ * the unique key makes the second insert a no-op. Returns whether this call queued it.
+ */
+export async function enqueueMailOnce(em: EntityManager, mail: MailInput & { dedupeKey: string }): Promise<boolean> {
+  const rows = await em.execute<{ id: string }[]>(
+    `insert into outbox_message (id, organisation_id, to_address, subject, text_body, html_body, attachments, dedupe_key, status, attempts, next_attempt_at, created_at)
+     values (gen_random_uuid(), ?, ?, ?, ?, ?, ?::jsonb, ?, 'pending', 0, now(), now())
+     on conflict (dedupe_key) do nothing returning id`,
+    [mail.organisationId ?? null, mail.to, mail.subject, mail.text, mail.html ?? null, mail.attachments ? JSON.stringify(mail.attachments) : null, mail.dedupeKey],
+  );
+  return rows.length > 0;
+}
+
 export const MAX_ATTEMPTS = 12;
 
 /** Back-off after the n-th failed attempt: 10 s, 20 s, 40 s ... capped at one hour. */
@@ -46,7 +60,7 @@ interface ClaimedRow {
  * two minutes, so several app instances and workers can run this at once without double sending.
  */
 export async function deliverDueMail(em: EntityManager, { limit = 25 }: { limit?: number } = {}) {
-  const claimed: ClaimedRow[] = await em.getConnection().execute(
+  const claimed: ClaimedRow[] = await em.execute(
     `update outbox_message set attempts = attempts + 1, next_attempt_at = now() + interval '2 minutes'
      where id in (select id from outbox_message where status = 'pending' and next_attempt_at <= now()
                   order by next_attempt_at limit ? for update skip locked)
@@ -67,13 +81,13 @@ export async function deliverDueMail(em: EntityManager, { limit = 25 }: { limit?
         html: row.html_body ?? undefined,
         attachments: (row.attachments ?? []).map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.content, 'base64') })),
       });
-      await em.getConnection().execute(`update outbox_message set status = 'sent', sent_at = now(), last_error = null where id = ?`, [row.id]);
+      await em.execute(`update outbox_message set status = 'sent', sent_at = now(), last_error = null where id = ?`, [row.id]);
       sent++;
     } catch (error) {
       failed++;
       const message = error instanceof Error ? error.message.slice(0, 500) : String(error);
       const giveUp = row.attempts >= MAX_ATTEMPTS;
-      await em.getConnection().execute(
+      await em.execute(
         `update outbox_message set status = ?, last_error = ?, next_attempt_at = now() + (? * interval '1 millisecond') where id = ?`,
         [giveUp ? 'failed' : 'pending', message, retryDelayMs(row.attempts), row.id],
       );

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { getPageOrgContext } from '@/lib/server/page-context';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { CatalogueTable } from '@/components/register/catalogue-table';
@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: 'Catalogue' };
 export default async function CataloguePage({ params }: { params: Promise<{ org: string }> }) {
   const { org } = await params;
   const ctx = await getPageOrgContext(org);
-  const canWrite = can(ctx.role, 'catalogue:write');
+  const canWrite = allowed(ctx, 'catalogue:write');
   const models = await listCatalogue(ctx, { includeArchived: true });
   return (
     <>

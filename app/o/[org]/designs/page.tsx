@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { AssetSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { listDesigns } from '@/lib/server/services/designs/list-designs';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { DesignsList } from '@/components/design-desk/designs-list';
@@ -16,7 +16,7 @@ export default async function DesignsPage({ params }: { params: Promise<{ org: s
     listDesigns(ctx),
     ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name', 'kind'] }),
   ]);
-  const canWrite = can(ctx.role, 'design:write');
+  const canWrite = allowed(ctx, 'design:write');
   return (
     <>
       <PageHeader title="Design desk" subtitle="Sacrificial-anode designs for hulls and harbour structures, by revision, with who prepared, checked and approved each." />

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { AssetSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { SurveysTable } from '@/components/surveys/surveys-table';
 import { NewSurveyForm } from '@/components/surveys/new-survey-form';
@@ -12,7 +12,7 @@ export default async function SurveysPage({ params, searchParams }: { params: Pr
   const { org } = await params;
   const { assetId } = await searchParams;
   const ctx = await getPageOrgContext(org);
-  const canWrite = can(ctx.role, 'survey:write');
+  const canWrite = allowed(ctx, 'survey:write');
   const assets = canWrite ? await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name'] }) : [];
   return (
     <>

@@ -1,4 +1,6 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
+import { addDays } from 'date-fns';
+import { TRIAL_DAYS } from '@/lib/billing/plans';
 import { MembershipSchema, OrganisationSchema, UserSchema } from '@/entities';
 import { createOrganisationSchema } from '@/lib/schemas/accounts';
 import { AppError } from '../../errors';
@@ -28,7 +30,8 @@ export async function createOrganisation({ em, user, input, ip }: { em: EntityMa
   const base = slugify(name);
   let slug = base;
   for (let n = 2; await em.count(OrganisationSchema, { slug }); n++) slug = `${base}-${n}`;
-  const organisation = em.create(OrganisationSchema, { slug, name });
+  // Every new organisation starts with the free trial; the plan is chosen on the Billing page.
+  const organisation = em.create(OrganisationSchema, { slug, name, subscriptionStatus: 'trialing', trialEndsAt: addDays(new Date(), TRIAL_DAYS) });
   em.create(MembershipSchema, { organisation, user: em.getReference(UserSchema, user.id), role: 'owner' });
   audit(em, { organisationId: organisation.id, actor: user, action: 'organisation.created', targetType: 'organisation', targetId: organisation.id, details: { name }, ipAddress: ip });
   await em.flush();

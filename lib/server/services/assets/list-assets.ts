@@ -41,7 +41,7 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
   }
   const where = clauses.join(' and ');
   const order = `${SORTS[query.sort ?? ''] ?? 'a.name'} ${query.dir === 'desc' ? 'desc' : 'asc'} nulls last, a.name asc, a.id asc`;
-  const conn = ctx.em.getConnection();
+  const conn = ctx.em;
   const [countRows, rows] = await Promise.all([
     conn.execute<{ total: string }[]>(`select count(*) as total from asset a where ${where}`, params),
     conn.execute<Record<string, unknown>[]>(

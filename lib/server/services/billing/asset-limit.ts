@@ -1,7 +1,16 @@
+import { AssetSchema } from '@/entities';
+import { assetLimitOf, PLANS, TRIAL_PLAN } from '@/lib/billing/plans';
+import { AppError } from '../../errors';
 import type { OrgContext } from '../../org-context';
 
-/**
- * The plan's limit on active assets, checked when an asset is created or restored.
- * Until subscriptions exist every organisation is unlimited.
- */
-export async function assertAssetLimit(_ctx: OrgContext): Promise<void> {}
+/** The plan's limit on active assets, checked when an asset is created or restored. */
+export async function assertAssetLimit(ctx: OrgContext): Promise<void> {
+  const org = ctx.organisation;
+  const limit = assetLimitOf({ plan: org.plan ?? null, subscriptionStatus: org.subscriptionStatus, trialEndsAt: org.trialEndsAt ?? null, stripeSubscriptionId: org.stripeSubscriptionId ?? null, pastDueSince: org.pastDueSince ?? null });
+  if (limit === null) return;
+  const active = await ctx.em.count(AssetSchema, { organisation: org, archivedAt: null });
+  if (active >= limit) {
+    const planName = PLANS[org.plan ?? TRIAL_PLAN].name;
+    throw new AppError('conflict', `Your ${planName} plan${org.plan ? '' : ' (trial)'} covers ${limit} active vessels and structures and ${active} are in use. Archive one, or move to a larger plan on the Billing page.`);
+  }
+}

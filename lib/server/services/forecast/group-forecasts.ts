@@ -20,7 +20,7 @@ export async function loadGroupForecasts(ctx: OrgContext, { assetIds }: { assetI
     { populate: ['zone', 'asset'], orderBy: { label: 'asc' } },
   );
   if (!groups.length) return [];
-  const readings = await ctx.em.getConnection().execute<{ anode_group_id: string; surveyed_on: string; remaining_fraction: number }[]>(
+  const readings = await ctx.em.execute<{ anode_group_id: string; surveyed_on: string; remaining_fraction: number }[]>(
     `select r.anode_group_id, to_char(s.surveyed_on, 'YYYY-MM-DD') as surveyed_on, r.remaining_fraction
        from survey_reading r join survey s on s.id = r.survey_id
       where r.remaining_fraction is not null and s.organisation_id = ? and r.anode_group_id = any(?::uuid[])

@@ -6,6 +6,7 @@ import { audit } from '../../audit';
 import { actorOf, requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
 import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
+import { recomputeRenewals } from '../planner/recompute-renewals';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
   const alloy = ALLOYS[model.alloy];
@@ -70,6 +71,7 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
   });
   audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.fitted', targetType: 'anode-group', targetId: group.id, details: { asset: asset.name, label: group.label, quantity: group.quantity, model: model.designation } });
   await ctx.em.flush();
+  await recomputeRenewals(ctx, [asset.id]);
   return group;
 }
 
@@ -98,6 +100,7 @@ export async function updateAnodeGroup(ctx: OrgContext, groupId: string, input: 
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes });
   audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.updated', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, fields: Object.keys(changes).join(', ') } });
   await ctx.em.flush();
+  await recomputeRenewals(ctx, [group.asset.id]);
   return group;
 }
 
@@ -113,5 +116,6 @@ export async function removeAnodeGroup(ctx: OrgContext, groupId: string, input: 
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes: { removedOn: [null, removedOn], removalReason: [null, reason] } });
   audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.removed', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, reason } });
   await ctx.em.flush();
+  await recomputeRenewals(ctx, [group.asset.id]);
   return group;
 }

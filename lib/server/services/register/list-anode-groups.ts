@@ -53,24 +53,28 @@ function whereClause(ctx: OrgContext, query: ListQuery) {
 export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
   requirePermission(ctx, 'org:read');
   const where = whereClause(ctx, query);
+  const byRemaining = query.sort === 'remaining';
   const order = `${SORTS[query.sort ?? ''] ?? 'a.name'} ${query.dir === 'desc' ? 'desc' : 'asc'} nulls last, g.label asc, g.id asc`;
-  const conn = ctx.em.getConnection();
+  const conn = ctx.em;
   const [countRows, rows] = await Promise.all([
     conn.execute<{ total: string }[]>(`select count(*) as total from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql}`, where.params),
     conn.execute<Record<string, unknown>[]>(
-      `select g.id, g.asset_id, a.name as asset_name, a.kind as asset_kind, z.name as zone_name, g.label, g.model, g.quantity, g.positions,
+      // The page is chosen first and the latest survey looked up for its rows only, unless the
+      // remaining fraction itself is the sort key; so the cost follows the page, not the register.
+      `${byRemaining ? '' : `with page as (select g.id from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql} order by ${order} limit ? offset ?)`}
+       select g.id, g.asset_id, a.name as asset_name, a.kind as asset_kind, z.name as zone_name, g.label, g.model, g.quantity, g.positions,
               to_char(g.installed_on, 'YYYY-MM-DD') as installed_on, to_char(g.removed_on, 'YYYY-MM-DD') as removed_on, g.mean_current_a,
               r.remaining_fraction, to_char(r.surveyed_on, 'YYYY-MM-DD') as surveyed_on
-         from anode_group g
+         from ${byRemaining ? 'anode_group g' : 'page p join anode_group g on g.id = p.id'}
          join asset a on a.id = g.asset_id
          left join zone z on z.id = g.zone_id
          left join lateral (
            select sr.remaining_fraction, s.surveyed_on from survey_reading sr join survey s on s.id = sr.survey_id
             where sr.anode_group_id = g.id and sr.remaining_fraction is not null
             order by s.surveyed_on desc, sr.remaining_fraction asc limit 1) r on true
-        where ${where.sql}
+        ${byRemaining ? `where ${where.sql}` : ''}
         order by ${order}
-        limit ? offset ?`,
+        ${byRemaining ? 'limit ? offset ?' : ''}`,
       [...where.params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
   ]);

@@ -5,6 +5,7 @@ import { notFound } from '../../errors';
 import { audit } from '../../audit';
 import { actorOf, requirePermission, type OrgContext } from '../../org-context';
 import { addReadings, type ReadingInput } from './record-readings';
+import { recomputeRenewals } from '../planner/recompute-renewals';
 
 const readingSchema = z
   .object({
@@ -37,6 +38,8 @@ export async function createSurvey(ctx: OrgContext, input: unknown) {
   const { under } = await addReadings(ctx, survey, readings);
   audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.recorded', targetType: 'survey', targetId: survey.id, details: { asset: asset.name, date: data.surveyedOn, readings: readings.length, underProtected: under } });
   await ctx.em.flush();
+  // A survey can move a group's end of life: bring the renewal proposals up to date.
+  await recomputeRenewals(ctx, [asset.id]);
   return survey;
 }
 

@@ -5,6 +5,7 @@ import { audit } from '../../audit';
 import { actorOf, requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
 import { addReadings } from './record-readings';
+import { recomputeRenewals } from '../planner/recompute-renewals';
 
 export const MAX_CSV_BYTES = 5 * 1024 * 1024;
 
@@ -29,5 +30,6 @@ export async function importSurveyCsv(ctx: OrgContext, surveyId: string, bytes: 
   const { under } = await addReadings(ctx, survey, parsed.rows);
   audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.readings-imported', targetType: 'survey', targetId: survey.id, details: { rows: parsed.rows.length, underProtected: under } });
   await ctx.em.flush();
+  await recomputeRenewals(ctx, [survey.asset.id]);
   return { imported: parsed.rows.length, underProtected: under };
 }

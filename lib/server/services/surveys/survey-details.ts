@@ -71,7 +71,7 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
   const sorts: Record<string, string> = { asset: 'a.name', surveyedOn: 's.surveyed_on', method: 's.method' };
   const order = query.sort && sorts[query.sort] ? `${sorts[query.sort]} ${query.dir}` : 's.surveyed_on desc';
   const where = clauses.join(' and ');
-  const conn = ctx.em.getConnection();
+  const conn = ctx.em;
   const [countRows, rows] = await Promise.all([
     conn.execute<{ total: string }[]>(`select count(*) as total from survey s join asset a on a.id = s.asset_id where ${where}`, params),
     conn.execute<Record<string, unknown>[]>(

@@ -1,11 +1,11 @@
 import { withOrg, readJson } from '@/lib/server/with-org';
 import { listQuerySchema } from '@/lib/schemas/register';
-import { listAssets } from '@/lib/server/services/assets/list-assets';
+import { listFleet } from '@/lib/server/services/assets/list-fleet';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { z } from 'zod';
 
-// GET /api/orgs/[org]/assets?page&pageSize&sort&dir&q&archived: the fleet, one page, with register and survey summaries.
-export const GET = withOrg(async ({ ctx, query }) => listAssets(ctx, query), { permission: 'org:read', query: listQuerySchema });
+// GET /api/orgs/[org]/assets?page&pageSize&sort&dir&q&archived: the fleet, one page, with register and survey summaries and each asset's outlook.
+export const GET = withOrg(async ({ ctx, query }) => listFleet(ctx, query), { permission: 'org:read', query: listQuerySchema });
 
 // POST /api/orgs/[org]/assets: a new vessel or structure (engineers).
 export const POST = withOrg(

@@ -5,7 +5,7 @@ import { format } from 'date-fns';
 import { AnodeGroupChangeSchema, DesignSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { getAssetOrThrow } from '@/lib/server/services/assets/get-asset';
 import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
 import { loadGroupForecasts } from '@/lib/server/services/forecast/group-forecasts';
@@ -34,7 +34,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const canWrite = can(ctx.role, 'asset:write') && !asset.archivedAt;
+  const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
   const [zones, designs, surveys, forecasts, catalogue] = await Promise.all([
     ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
     ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results'] }),
@@ -104,8 +104,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         }
         actions={
           <>
-            {can(ctx.role, 'survey:write') && !asset.archivedAt ? <ButtonLink href={`/o/${org}/surveys?assetId=${asset.id}`} variant="secondary">Record a survey</ButtonLink> : null}
-            {can(ctx.role, 'asset:write') ? <ArchiveAssetButton org={org} assetId={asset.id} archived={Boolean(asset.archivedAt)} name={asset.name} /> : null}
+            {allowed(ctx, 'survey:write') && !asset.archivedAt ? <ButtonLink href={`/o/${org}/surveys?assetId=${asset.id}`} variant="secondary">Record a survey</ButtonLink> : null}
+            {allowed(ctx, 'asset:write') ? <ArchiveAssetButton org={org} assetId={asset.id} archived={Boolean(asset.archivedAt)} name={asset.name} /> : null}
           </>
         }
       />
@@ -147,7 +147,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
             ) : (
               <p className="text-sm text-ink-faint">No designs yet.</p>
             )}
-            {can(ctx.role, 'design:write') && !asset.archivedAt ? (
+            {allowed(ctx, 'design:write') && !asset.archivedAt ? (
               <Link href={`/o/${org}/designs`} className="mt-2 inline-block text-sm text-tide-600 underline">
                 Open a new design on the design desk
               </Link>

@@ -3,7 +3,7 @@ import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
 import { computeDesk } from '@/lib/server/services/designs/compute-design';
 import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
@@ -37,13 +37,13 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
   }
   const approved = design.status === 'approved';
   const isPreparer = design.preparedBy.id === ctx.user.id;
-  const editable = !approved && can(ctx.role, 'design:write');
+  const editable = !approved && allowed(ctx, 'design:write');
   const asset = design.asset;
   const reason = approved
     ? 'This revision is approved and immutable. Make a new revision to change anything.'
-    : isPreparer && can(ctx.role, 'design:approve')
+    : isPreparer && allowed(ctx, 'design:approve')
       ? 'You prepared this revision: a second engineer checks and approves it.'
-      : !can(ctx.role, 'design:write')
+      : !allowed(ctx, 'design:write')
         ? 'Your role reads and prints designs; engineers prepare and approve them.'
         : null;
   return (
@@ -79,7 +79,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
             prepared={{ name: design.preparedBy.name, at: design.createdAt.toISOString() }}
             checked={design.checkedBy ? { name: design.checkedBy.name, at: design.checkedAt?.toISOString() ?? null } : null}
             approved={design.approvedBy ? { name: design.approvedBy.name, at: design.approvedAt?.toISOString() ?? null } : null}
-            can={{ check: can(ctx.role, 'design:write') && !isPreparer, approve: can(ctx.role, 'design:approve') && !isPreparer, revise: can(ctx.role, 'design:write') }}
+            can={{ check: allowed(ctx, 'design:write') && !isPreparer, approve: allowed(ctx, 'design:approve') && !isPreparer, revise: allowed(ctx, 'design:write') }}
             reason={reason}
           />
         </Panel>

@@ -5,7 +5,7 @@ import { format } from 'date-fns';
 import { AnodeGroupSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
-import { can } from '@/lib/server/permissions';
+import { allowed } from '@/lib/server/org-context';
 import { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ReadingsTable } from '@/components/surveys/readings-table';
@@ -27,7 +27,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
     throw error;
   }
   const { survey, readings, counts, attachments } = details;
-  const canWrite = can(ctx.role, 'survey:write');
+  const canWrite = allowed(ctx, 'survey:write');
   const groups = canWrite ? (await ctx.em.find(AnodeGroupSchema, { asset: survey.assetId, removedOn: null }, { fields: ['label'], orderBy: { label: 'asc' } })).map((g) => g.label) : [];
   return (
     <>

@@ -1,0 +1,5 @@
+import { withOrg } from '@/lib/server/with-org';
+import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
+
+// GET /api/orgs/[org]/dockings/[dockingId]/renewals: the renewals booked at a docking.
+export const GET = withOrg(async ({ ctx, params }) => ({ renewals: (await listDockingRenewals(ctx, params.dockingId)).rows }), { permission: 'org:read' });

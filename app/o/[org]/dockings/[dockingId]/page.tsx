@@ -1,0 +1,75 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { notFound } from 'next/navigation';
+import { format } from 'date-fns';
+import { AnodeGroupSchema } from '@/entities';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { AppError } from '@/lib/server/errors';
+import { allowed } from '@/lib/server/org-context';
+import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
+import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { ButtonLink } from '@/components/ui/button';
+import { RenewalsTable } from '@/components/planner/renewals-table';
+import { AddRenewalForm, DockingEditForm } from '@/components/planner/docking-edit-form';
+
+export const metadata: Metadata = { title: 'Docking' };
+
+const KIND: Record<string, string> = { intermediate: 'Intermediate docking', 'renewal-survey': 'Renewal-survey docking', unplanned: 'Unplanned docking', campaign: 'Diving or works campaign' };
+
+export default async function DockingPage({ params }: { params: Promise<{ org: string; dockingId: string }> }) {
+  const { org, dockingId } = await params;
+  const ctx = await getPageOrgContext(org);
+  let data;
+  try {
+    data = await listDockingRenewals(ctx, dockingId);
+  } catch (error) {
+    if (error instanceof AppError && error.code === 'not-found') notFound();
+    throw error;
+  }
+  const { docking, rows } = data;
+  const canPlan = allowed(ctx, 'docking:write');
+  const canRenew = allowed(ctx, 'renewal:write');
+  const groups = canRenew ? await ctx.em.find(AnodeGroupSchema, { asset: docking.asset, removedOn: null }, { orderBy: { label: 'asc' }, fields: ['id', 'label'] }) : [];
+  const start = docking.actualStart ?? docking.plannedStart;
+  const listBase = `/api/orgs/${org}/dockings/${docking.id}/anode-list`;
+  return (
+    <>
+      <PageHeader
+        title={`${docking.asset.name}: ${KIND[docking.kind] ?? docking.kind} of ${format(new Date(`${start}T00:00:00Z`), 'd MMM yyyy')}`}
+        subtitle={
+          <>
+            <Link href={`/o/${org}/dockings`} className="text-tide-600 hover:underline">Docking planner</Link> · <Link href={`/o/${org}/assets/${docking.asset.id}`} className="text-tide-600 hover:underline">{docking.asset.name}</Link>
+            {docking.yard ? ` · ${docking.yard}` : ''} · <StatusTag tone={docking.status === 'planned' ? 'due' : docking.status === 'done' ? 'sound' : 'neutral'}>{docking.status}</StatusTag>
+          </>
+        }
+        actions={
+          <>
+            <ButtonLink href={`${listBase}?format=pdf`} variant="secondary" prefetch={false} target="_blank">Print the anode list (PDF)</ButtonLink>
+            <ButtonLink href={`${listBase}?format=csv`} variant="secondary" prefetch={false}>Anode list (CSV)</ButtonLink>
+          </>
+        }
+      />
+      <div className="flex flex-col gap-4">
+        <Panel title="Renewals">
+          <RenewalsTable org={org} dockingId={docking.id} initial={rows} canEdit={canRenew} />
+        </Panel>
+        <div className="grid items-start gap-4 xl:grid-cols-2">
+          {canPlan ? (
+            <Panel title="Dates, yard and status">
+              <DockingEditForm
+                org={org}
+                docking={{ id: docking.id, kind: docking.kind, status: docking.status, plannedStart: docking.plannedStart, plannedEnd: docking.plannedEnd ?? null, actualStart: docking.actualStart ?? null, actualEnd: docking.actualEnd ?? null, yard: docking.yard ?? null, reference: docking.reference ?? null, notes: docking.notes ?? null }}
+              />
+            </Panel>
+          ) : null}
+          {canRenew && docking.status === 'planned' ? (
+            <Panel title="Book another renewal">
+              <AddRenewalForm org={org} dockingId={docking.id} groups={groups.map((g) => ({ id: g.id, label: g.label }))} />
+            </Panel>
+          ) : null}
+        </div>
+        <Caution>Renewal dates come from a forecast of anode consumption: confirm quantities against a diver or dry-dock inspection, and verify against the governing standard and class rules before ordering.</Caution>
+      </div>
+    </>
+  );
+}

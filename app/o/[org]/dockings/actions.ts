@@ -1,0 +1,44 @@
+'use server';
+import { redirect } from 'next/navigation';
+import { revalidatePath } from 'next/cache';
+import { orgAction, formObject } from '@/lib/server/action';
+import { AppError } from '@/lib/server/errors';
+import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
+import { addRenewal, cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered, updateRenewal } from '@/lib/server/services/planner/renewals';
+
+const id = (formData: FormData, name: string) => {
+  const value = formData.get(name);
+  if (typeof value !== 'string' || !value) throw new AppError('invalid', 'The form is missing an identifier; reload the page.');
+  return value;
+};
+
+export const createDockingAction = orgAction('docking:write', async (ctx, formData) => {
+  const docking = await createDocking(ctx, formObject(formData));
+  redirect(`/o/${ctx.organisation.slug}/dockings/${docking.id}`);
+});
+
+export const updateDockingAction = orgAction('docking:write', async (ctx, formData) => {
+  const docking = await updateDocking(ctx, id(formData, 'dockingId'), formObject(formData));
+  revalidatePath(`/o/${ctx.organisation.slug}/dockings/${docking.id}`);
+  return { ok: true, message: 'Docking saved; renewal proposals were recomputed.' };
+});
+
+/** One action for the renewal row buttons, so the table stays a single form per row. */
+export const renewalStepAction = orgAction('renewal:write', async (ctx, formData) => {
+  const renewalId = id(formData, 'renewalId');
+  const step = formData.get('step');
+  if (step === 'confirm') await confirmRenewal(ctx, renewalId);
+  else if (step === 'ordered') await markRenewalOrdered(ctx, renewalId);
+  else if (step === 'fitted') await markRenewalFitted(ctx, renewalId, formObject(formData));
+  else if (step === 'cancel') await cancelRenewal(ctx, renewalId);
+  else if (step === 'update') await updateRenewal(ctx, renewalId, formObject(formData));
+  else throw new AppError('invalid', 'Unknown step.');
+  revalidatePath(`/o/${ctx.organisation.slug}/dockings`);
+  return { ok: true, message: step === 'fitted' ? 'Recorded as fitted: the new anodes are in the register and the old group is closed.' : 'Saved.' };
+});
+
+export const addRenewalAction = orgAction('renewal:write', async (ctx, formData) => {
+  const renewal = await addRenewal(ctx, id(formData, 'dockingId'), formObject(formData));
+  revalidatePath(`/o/${ctx.organisation.slug}/dockings/${renewal.docking.id}`);
+  return { ok: true, message: 'Renewal booked.' };
+});

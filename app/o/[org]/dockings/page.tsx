@@ -1,0 +1,96 @@
+import type { Metadata } from 'next';
+import Link from 'next/link';
+import { format } from 'date-fns';
+import { getPageOrgContext } from '@/lib/server/page-context';
+import { allowed } from '@/lib/server/org-context';
+import { getPlannerView } from '@/lib/server/services/planner/planner-view';
+import { fmt } from '@/lib/format';
+import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { Timeline } from '@/components/planner/timeline';
+import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
+
+export const metadata: Metadata = { title: 'Docking planner' };
+
+const day = (iso: string) => format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy');
+const KIND: Record<string, string> = { intermediate: 'Intermediate', 'renewal-survey': 'Renewal survey', unplanned: 'Unplanned', campaign: 'Campaign' };
+
+export default async function DockingsPage({ params }: { params: Promise<{ org: string }> }) {
+  const { org } = await params;
+  const ctx = await getPageOrgContext(org);
+  const today = new Date();
+  const view = await getPlannerView(ctx, today);
+  const canPlan = allowed(ctx, 'docking:write');
+  const upcoming = view.dockings.filter((d) => d.status === 'planned');
+  return (
+    <>
+      <PageHeader title="Docking planner" subtitle="Dry-dockings and diving campaigns across the fleet, the anode renewals booked at each, and where a docking is needed." />
+      <div className="flex flex-col gap-4">
+        <Panel title="Timeline">
+          <Timeline org={org} assets={view.assets} dockings={view.dockings} needsDocking={view.needsDocking} today={today} />
+        </Panel>
+        {view.needsDocking.length ? (
+          <Panel title="Groups that cannot reach a planned docking">
+            <ul className="flex flex-col gap-1 text-sm">
+              {view.needsDocking.map((n, i) => (
+                <li key={i} className="flex flex-wrap items-center gap-2">
+                  <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
+                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group} needs renewal by <strong>{day(n.by)}</strong>
+                </li>
+              ))}
+            </ul>
+          </Panel>
+        ) : null}
+        <div className={`grid items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+          <Panel title="Planned dockings and campaigns">
+            <table className="w-full text-sm" aria-label="Planned dockings">
+              <thead className="text-xs text-ink-soft">
+                <tr className="border-b border-rule">
+                  <th className="py-1 text-left font-medium">Start</th>
+                  <th className="py-1 text-left font-medium">Asset</th>
+                  <th className="py-1 text-left font-medium">Kind</th>
+                  <th className="py-1 text-left font-medium">Yard or contractor</th>
+                  <th className="py-1 text-right font-medium">Renewals</th>
+                  <th className="py-1 text-right font-medium">Anode mass due</th>
+                </tr>
+              </thead>
+              <tbody>
+                {upcoming.map((d) => (
+                  <tr key={d.id} className="border-b border-rule">
+                    <td className="py-1.5"><Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{day(d.start)}</Link></td>
+                    <td className="py-1.5">{d.assetName}</td>
+                    <td className="py-1.5">{KIND[d.kind] ?? d.kind}</td>
+                    <td className="py-1.5">{d.yard ?? '—'}</td>
+                    <td className="num py-1.5">{d.openRenewals}</td>
+                    <td className="num py-1.5">{fmt(d.massDueKg, 0)} kg</td>
+                  </tr>
+                ))}
+                {!upcoming.length ? (
+                  <tr><td colSpan={6} className="py-4 text-center text-ink-faint">No dockings planned.</td></tr>
+                ) : null}
+              </tbody>
+            </table>
+            {view.suggestions.length ? (
+              <div className="mt-4">
+                <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Suggested under class practice (bottom inspections no more than 36 months apart, two in each five years)</h3>
+                <ul className="flex flex-col gap-1 text-sm">
+                  {view.suggestions.map((s, i) => (
+                    <li key={i} className="flex flex-wrap items-center gap-2">
+                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} about <strong>{day(s.date)}</strong></span>
+                      <span className="text-xs text-ink-faint">{s.reason}</span>
+                      {canPlan ? <AcceptSuggestion org={org} assetId={s.assetId} date={s.date} kind={s.kind} /> : null}
+                    </li>
+                  ))}
+                </ul>
+              </div>
+            ) : null}
+          </Panel>
+          {canPlan ? (
+            <Panel title="Plan a docking or campaign">
+              <DockingForm org={org} assets={view.assets} />
+            </Panel>
+          ) : null}
+        </div>
+      </div>
+    </>
+  );
+}

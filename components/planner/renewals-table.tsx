@@ -1,0 +1,82 @@
+'use client';
+import { useActionState, useMemo } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { createColumnHelper } from '@tanstack/react-table';
+import { DataTable } from '@/components/ui/data-table';
+import { Button } from '@/components/ui/button';
+import { StatusTag } from '@/components/ui/panel';
+import { fetchJson } from '@/lib/client/query-client';
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+import { fmt } from '@/lib/format';
+import type { ActionState } from '@/lib/server/action';
+import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-renewals';
+import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
+
+type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
+const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
+const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted', cancelled: 'Cancelled' };
+
+function Steps({ org, row, dockingId, canEdit }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean }) {
+  const [state, action, pending] = useActionState(renewalStepAction.bind(null, org) as Bound, { ok: false });
+  useInvalidateOnSuccess(state, ['orgs', org, 'dockings', dockingId, 'renewals']);
+  if (!canEdit || row.status === 'fitted' || row.status === 'cancelled') return null;
+  const today = new Date().toISOString().slice(0, 10);
+  return (
+    <form action={action} className="flex flex-wrap items-center gap-1">
+      <input type="hidden" name="renewalId" value={row.id} />
+      {row.status === 'proposed' ? (
+        <Button type="submit" name="step" value="confirm" className="px-2 py-0.5 text-xs" disabled={pending} aria-label={`Confirm renewal of ${row.groupLabel}`}>
+          Confirm
+        </Button>
+      ) : null}
+      {row.status === 'confirmed' ? (
+        <Button type="submit" name="step" value="ordered" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
+          Mark ordered
+        </Button>
+      ) : null}
+      {row.status === 'confirmed' || row.status === 'ordered' ? (
+        <>
+          <input type="date" name="fittedOn" defaultValue={today} max={today} aria-label={`Fitted on, ${row.groupLabel}`} className="rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs" />
+          <Button type="submit" name="step" value="fitted" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
+            Fitted
+          </Button>
+        </>
+      ) : null}
+      <Button type="submit" name="step" value="cancel" variant="ghost" className="px-2 py-0.5 text-xs" disabled={pending}>
+        Cancel
+      </Button>
+      {state.message && !state.ok ? <span role="alert" className="w-full text-xs text-state-overdue">{state.message}</span> : null}
+    </form>
+  );
+}
+
+export function RenewalsTable({ org, dockingId, initial, canEdit }: { org: string; dockingId: string; initial: DockingRenewalRow[]; canEdit: boolean }) {
+  const query = useQuery({
+    queryKey: ['orgs', org, 'dockings', dockingId, 'renewals'],
+    queryFn: async () => (await fetchJson<{ renewals: DockingRenewalRow[] }>(`/api/orgs/${org}/dockings/${dockingId}/renewals`)).renewals,
+    initialData: initial,
+  });
+  const columns = useMemo(() => {
+    const col = createColumnHelper<DockingRenewalRow>();
+    return [
+      col.accessor('zone', { header: 'Zone', cell: (c) => c.getValue() ?? '—' }),
+      col.accessor('groupLabel', { header: 'Group' }),
+      col.accessor('designation', { header: 'Model' }),
+      col.accessor('quantity', { header: 'Qty', meta: { numeric: true } }),
+      col.accessor((r) => r.quantity * r.netMassKg, { id: 'net', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 1)} kg` }),
+      col.accessor('reason', { header: 'Reason', cell: (c) => <span title={c.row.original.rationale ?? undefined}>{c.getValue().replace(/-/g, ' ')}</span> }),
+      col.accessor('status', { header: 'Status', cell: (c) => <StatusTag tone={STATUS_TONE[c.getValue()] ?? 'neutral'}>{STATUS_WORDS[c.getValue()] ?? c.getValue()}</StatusTag> }),
+      col.display({ id: 'steps', header: '', cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} /> }),
+    ];
+  }, [org, dockingId, canEdit]);
+  const rows = query.data ?? [];
+  const open = rows.filter((r) => r.status !== 'cancelled' && r.status !== 'fitted');
+  return (
+    <div className="flex flex-col gap-2">
+      <DataTable label="Renewals" data={rows} columns={columns} pageSize={100} empty="No renewals booked at this docking." filterPlaceholder="Filter by zone, group, model…" />
+      <p className="num text-left text-xs text-ink-soft">
+        Open: {open.reduce((t, r) => t + r.quantity, 0)} anodes, {fmt(open.reduce((t, r) => t + r.quantity * r.netMassKg, 0), 1)} kg net. Proposals are the scheduler&apos;s and follow the forecast; a confirmed renewal is never changed by it.
+      </p>
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+/**
+ * The dry-dock anode list: what a yard orders and fits at one docking.
+ *
+ * - build-anode-list      buildAnodeList (pure): validation, zones, subtotals, totals by model
+ * - anode-list-csv        anodeListCsv (pure): CSV for spreadsheets, formula-safe
+ * - fitting-notes         FITTING_NOTES and fittingNotesFor
+ * - errors                AnodeListInputError, with `field`
+ * - render-anode-list-pdf renderAnodeListPdf (server only, react-pdf): import it from its own
+ *                         path so client bundles never pull in the PDF renderer.
+ */
+export { AnodeListInputError } from './errors';
+export {
+  ANODE_LIST_ALLOYS,
+  ANODE_LIST_MOUNTINGS,
+  ANODE_LIST_STATUSES,
+  buildAnodeList,
+  roundKg,
+  type AnodeList,
+  type AnodeListInput,
+  type AnodeListLine,
+  type AnodeListOrderLine,
+  type AnodeListRenewalInput,
+  type AnodeListTotals,
+  type AnodeListZone,
+} from './build-anode-list';
+export { ANODE_LIST_CSV_HEADER, ANODE_LIST_CSV_ORDER_HEADER, anodeListCsv, csvField } from './anode-list-csv';
+export { FITTING_NOTES, fittingNotesFor, type FittingNote, type FittingNoteScope } from './fitting-notes';

@@ -1,0 +1,14 @@
+import { createElement, type ReactElement } from 'react';
+import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
+import { AnodeListDocument } from '@/components/pdf/anode-list';
+import { registerPdfFonts } from '@/components/pdf/pdf-kit';
+import type { AnodeList } from './build-anode-list';
+
+/**
+ * The dry-dock anode list as PDF bytes. Server only (react-pdf, fonts read from
+ * `<cwd>/fonts`): a route handler or a script, both run with the repository as cwd.
+ */
+export async function renderAnodeListPdf(list: AnodeList): Promise<Buffer> {
+  registerPdfFonts();
+  return renderToBuffer(createElement(AnodeListDocument, { list }) as unknown as ReactElement<DocumentProps>);
+}

@@ -1,0 +1,53 @@
+import { z } from 'zod';
+
+const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
+const isoDate = (label: string) =>
+  z
+    .string({ error: `Enter the ${label}.` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} as a date (YYYY-MM-DD).`)
+    .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), `The ${label} is not a real date.`);
+const optionalDate = (label: string) => z.preprocess(blankToNull, isoDate(label).nullable());
+const text = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
+
+export const dockingSchema = z
+  .object({
+    assetId: z.uuid('Choose an asset.'),
+    kind: z.enum(['intermediate', 'renewal-survey', 'unplanned', 'campaign'], { error: 'Choose the kind of docking or campaign.' }),
+    plannedStart: isoDate('planned start'),
+    plannedEnd: optionalDate('planned end'),
+    yard: text(120),
+    reference: text(60),
+    notes: text(2000),
+  })
+  .refine((d) => !d.plannedEnd || d.plannedEnd >= d.plannedStart, { message: 'The planned end is before the start.', path: ['plannedEnd'] });
+
+export const dockingUpdateSchema = z
+  .object({
+    kind: z.enum(['intermediate', 'renewal-survey', 'unplanned', 'campaign'], { error: 'Choose the kind.' }),
+    status: z.enum(['planned', 'done', 'cancelled'], { error: 'Choose the status.' }),
+    plannedStart: isoDate('planned start'),
+    plannedEnd: optionalDate('planned end'),
+    actualStart: optionalDate('actual start'),
+    actualEnd: optionalDate('actual end'),
+    yard: text(120),
+    reference: text(60),
+    notes: text(2000),
+  })
+  .refine((d) => !d.plannedEnd || d.plannedEnd >= d.plannedStart, { message: 'The planned end is before the start.', path: ['plannedEnd'] })
+  .refine((d) => !d.actualEnd || !d.actualStart || d.actualEnd >= d.actualStart, { message: 'The actual end is before the start.', path: ['actualEnd'] })
+  .refine((d) => d.status !== 'done' || d.actualStart, { message: 'Enter the actual start of a docking that is done.', path: ['actualStart'] });
+
+export const renewalUpdateSchema = z.object({
+  quantity: z.coerce.number({ error: 'Enter the quantity.' }).int('Enter a whole number.').min(1, 'At least one anode.').max(10_000),
+  dockingId: z.uuid('Choose a docking.'),
+  notes: text(2000),
+});
+
+export const fittedSchema = z.object({ fittedOn: isoDate('fitting date') });
+
+export const manualRenewalSchema = z.object({
+  groupId: z.uuid('Choose an anode group.'),
+  reason: z.enum(['survey-finding', 'damage', 'other', 'forecast-depletion'], { error: 'Choose the reason.' }),
+  quantity: z.preprocess(blankToNull, z.coerce.number().int().min(1).max(10_000).nullable()),
+  notes: text(2000),
+});

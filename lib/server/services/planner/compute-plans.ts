@@ -1,0 +1,77 @@
+import { AssetSchema, DockingSchema, RenewalSchema, type Asset, type Docking, type Renewal } from '@/entities';
+import { assetOutlook, massDueKg, proposeRenewals, type AssetOutlook, type MassDue, type RenewalProposal } from '@/lib/forecast';
+import { classifyPotential } from '@/lib/surveys/criteria';
+import { protectedMetalOf } from '@/lib/register/protected-metal';
+import type { OrgContext } from '../../org-context';
+import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
+
+export interface AssetPlan {
+  asset: Asset;
+  groups: (GroupWithForecast & { proposal: RenewalProposal | null; booked: Renewal | null })[];
+  dockings: Docking[];
+  nextDocking: Docking | null;
+  outlook: AssetOutlook;
+  underProtectedBySurvey: boolean;
+  massDue: MassDue[];
+}
+
+const day = (iso: string) => new Date(`${iso}T00:00:00Z`);
+/** The date a docking counts from: its actual start once known, else the planned one. */
+export const dockingDate = (d: Pick<Docking, 'plannedStart' | 'actualStart'>) => day(d.actualStart ?? d.plannedStart);
+
+/**
+ * Forecast, renewal proposals and protection outlook for some assets (or the whole organisation),
+ * in a fixed number of statements whatever the fleet size.
+ */
+export async function computePlans(ctx: OrgContext, { assetIds, today = new Date() }: { assetIds?: string[]; today?: Date } = {}): Promise<AssetPlan[]> {
+  const assets = await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) }, { orderBy: { name: 'asc' } });
+  if (!assets.length) return [];
+  const ids = assets.map((a) => a.id);
+  const [forecasts, dockings, booked, latest] = await Promise.all([
+    loadGroupForecasts(ctx, { assetIds: ids }),
+    ctx.em.find(DockingSchema, { asset: { $in: ids }, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
+    ctx.em.find(RenewalSchema, { organisation: ctx.organisation, status: { $in: ['confirmed', 'ordered'] }, group: { asset: { $in: ids } } }, { populate: ['docking'] }),
+    ctx.em.execute<{ asset_id: string; least_negative: number | null }[]>(
+      `select distinct on (s.asset_id) s.asset_id, (select max(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as least_negative
+         from survey s where s.organisation_id = ? and s.asset_id = any(?::uuid[]) order by s.asset_id, s.surveyed_on desc, s.created_at desc`,
+      [ctx.organisation.id, `{${ids.join(',')}}`],
+    ),
+  ]);
+  const leastNegative = new Map(latest.map((r) => [r.asset_id, r.least_negative === null ? null : Number(r.least_negative)]));
+  const bookedByGroup = new Map(booked.map((r) => [r.group.id, r]));
+  return assets.map((asset) => {
+    const groups = forecasts.filter((f) => f.group.asset.id === asset.id);
+    const assetDockings = dockings.filter((d) => d.asset.id === asset.id);
+    const usable = assetDockings.filter((d) => d.status === 'planned');
+    const proposals = proposeRenewals({
+      today,
+      marginMonths: ctx.organisation.renewalMarginMonths ?? 6,
+      dockings: usable.map((d) => ({ id: d.id, date: dockingDate(d), status: d.status })),
+      groups: groups
+        .filter((g) => g.forecast)
+        .map((g) => ({ id: g.group.id, endOfLife: g.forecast!.endOfLife, early: g.forecast!.early, confirmedRenewal: bookedByGroup.has(g.group.id) ? { dockingId: bookedByGroup.get(g.group.id)!.docking.id } : null })),
+    });
+    const byGroup = new Map(proposals.map((p) => [p.groupId, p]));
+    const nextDocking = usable.find((d) => dockingDate(d).getTime() >= today.getTime() - 86_400_000) ?? null;
+    const potential = leastNegative.get(asset.id);
+    const underProtectedBySurvey = potential !== null && potential !== undefined && classifyPotential({ potentialAgAgClV: potential, protectedMetal: protectedMetalOf(asset) }).status === 'under-protected';
+    const outlook = assetOutlook({ groupStatuses: proposals, underProtectedBySurvey, today, nextDockingId: nextDocking?.id ?? null });
+    const netMass = new Map(groups.map((g) => [g.group.id, g.group.quantity * g.group.model.netMassKg]));
+    return {
+      asset,
+      groups: groups.map((g) => ({ ...g, proposal: byGroup.get(g.group.id) ?? null, booked: bookedByGroup.get(g.group.id) ?? null })),
+      dockings: assetDockings,
+      nextDocking,
+      outlook,
+      underProtectedBySurvey,
+      massDue: massDueKg(proposals, netMass),
+    };
+  });
+}
+
+export const OUTLOOK_WORDS: Record<AssetOutlook, string> = {
+  sound: 'Sound',
+  'renew-at-next-docking': 'Renew at next docking',
+  overdue: 'Overdue',
+  'under-protected': 'Under-protected by survey',
+};

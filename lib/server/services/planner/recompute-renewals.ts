@@ -1,0 +1,50 @@
+import { RenewalSchema } from '@/entities';
+import type { OrgContext } from '../../org-context';
+import { classifyRemaining } from '@/lib/surveys/criteria';
+import { computePlans } from './compute-plans';
+
+/**
+ * Brings the scheduler's proposals up to date for some assets: a group gets a 'proposed' renewal at
+ * the docking the forecast picks, a stale proposal is withdrawn, and anything a planner has
+ * confirmed, ordered, fitted or cancelled is never touched. Also records each asset's outlook.
+ */
+export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], today = new Date()) {
+  const plans = await computePlans(ctx, { assetIds, today });
+  const groupIds = plans.flatMap((p) => p.groups.map((g) => g.group.id));
+  const [proposed, cancelled] = groupIds.length
+    ? await Promise.all([ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'proposed' }), ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'cancelled' }, { fields: ['group', 'docking'] })])
+    : [[], []];
+  // A planner who cancelled a proposal at a docking has decided: it is not proposed there again.
+  const rejected = new Set(cancelled.map((r) => `${r.group.id}:${r.docking.id}`));
+  const proposedByGroup = new Map<string, typeof proposed>();
+  for (const r of proposed) proposedByGroup.set(r.group.id, [...(proposedByGroup.get(r.group.id) ?? []), r]);
+  let created = 0;
+  let withdrawn = 0;
+  for (const plan of plans) {
+    for (const g of plan.groups) {
+      const existing = proposedByGroup.get(g.group.id) ?? [];
+      const p = g.proposal;
+      if (p?.status === 'proposed' && p.dockingId && !g.booked && !rejected.has(`${g.group.id}:${p.dockingId}`)) {
+        const keep = existing.find((r) => r.docking.id === p.dockingId);
+        for (const r of existing) if (r !== keep) (ctx.em.remove(r), withdrawn++);
+        const latest = g.surveys.at(-1);
+        const reason = latest && classifyRemaining(latest.remainingFraction, g.group.model.utilisationFactor) !== 'sound' ? 'survey-finding' : 'forecast-depletion';
+        if (keep) {
+          keep.rationale = p.reason;
+          keep.reason = reason;
+        } else {
+          ctx.em.create(RenewalSchema, { organisation: ctx.organisation, docking: p.dockingId, group: g.group, status: 'proposed', reason, quantity: g.group.quantity, rationale: p.reason, notes: null, confirmedByEmail: null, confirmedAt: null, fittedOn: null, newGroupId: null });
+          created++;
+        }
+      } else {
+        for (const r of existing) (ctx.em.remove(r), withdrawn++);
+      }
+    }
+    if (plan.asset.outlook !== plan.outlook) {
+      plan.asset.outlook = plan.outlook;
+      plan.asset.outlookChangedAt = today;
+    }
+  }
+  await ctx.em.flush();
+  return { plans, created, withdrawn };
+}

@@ -1,0 +1,45 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { differenceInCalendarDays, format } from 'date-fns';
+import { DockingSchema, MembershipSchema } from '@/entities';
+import { enqueueMailOnce } from '../../mail/outbox';
+import { getEnv } from '../../env';
+import { anodeListPdf } from '../planner/anode-list';
+import { systemContext } from './system-context';
+
+/** Reminders go 90 and 30 days before a planned docking (the yard needs the anode list to order). */
+export const REMINDER_DAYS = [90, 30] as const;
+
+/**
+ * Queues the docking reminders that are due: for each planned docking starting within 90 (or 30) days,
+ * each planner and owner gets one e-mail with the anode list attached. The dedupe key (docking, its
+ * date, the threshold, the person) makes each reminder exactly once, however often this runs.
+ */
+export async function queueDockingReminders(em: EntityManager, now = new Date()) {
+  const horizon = new Date(now.getTime() + 91 * 86_400_000).toISOString().slice(0, 10);
+  const today = now.toISOString().slice(0, 10);
+  const dockings = await em.find(DockingSchema, { status: 'planned', plannedStart: { $gte: today, $lte: horizon }, asset: { archivedAt: null } }, { populate: ['asset', 'organisation'] });
+  let queued = 0;
+  for (const docking of dockings) {
+    const days = differenceInCalendarDays(new Date(`${docking.plannedStart}T00:00:00Z`), new Date(`${today}T00:00:00Z`));
+    const threshold = REMINDER_DAYS.filter((t) => days <= t).at(-1);
+    if (threshold === undefined) continue;
+    const recipients = await em.find(MembershipSchema, { organisation: docking.organisation, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });
+    if (!recipients.length) continue;
+    const ctx = systemContext(em.fork(), docking.organisation);
+    const { pdf, filename } = await anodeListPdf(ctx, docking.id);
+    const url = `${getEnv().APP_URL}/o/${docking.organisation.slug}/dockings/${docking.id}`;
+    const when = format(new Date(`${docking.plannedStart}T00:00:00Z`), 'd MMMM yyyy');
+    for (const m of recipients) {
+      const sent = await enqueueMailOnce(em, {
+        to: m.user.email,
+        organisationId: docking.organisation.id,
+        dedupeKey: `docking-reminder:${docking.id}:${docking.plannedStart}:${threshold}:${m.user.id}`,
+        subject: `${docking.asset.name} docks in ${days} days (${when}): anode list attached`,
+        text: `${docking.asset.name} is planned to dock on ${when}${docking.yard ? ` at ${docking.yard}` : ''}, in ${days} days.\n\nThe anode list for ordering and fitting is attached. Review and confirm the proposed renewals before ordering:\n${url}\n\nVerify the list against the latest survey and the governing standard before ordering.\n\n— Tidewarden`,
+        attachments: [{ filename, contentType: 'application/pdf', content: pdf.toString('base64') }],
+      });
+      if (sent) queued++;
+    }
+  }
+  return { queued };
+}

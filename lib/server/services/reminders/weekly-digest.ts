@@ -1,0 +1,43 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { format, getISOWeek, getISOWeekYear, subDays } from 'date-fns';
+import { MembershipSchema, OrganisationSchema } from '@/entities';
+import { enqueueMailOnce } from '../../mail/outbox';
+import { getEnv } from '../../env';
+import { recomputeRenewals } from '../planner/recompute-renewals';
+import { OUTLOOK_WORDS } from '../planner/compute-plans';
+import { systemContext } from './system-context';
+
+/**
+ * Once a week: recompute every organisation's outlooks and tell its planners and owners which assets
+ * changed since the last digest. Nothing is sent when nothing changed. Exactly once per ISO week and person.
+ */
+export async function queueWeeklyDigests(em: EntityManager, now = new Date()) {
+  const organisations = await em.find(OrganisationSchema, {});
+  let queued = 0;
+  const week = `${getISOWeekYear(now)}-W${String(getISOWeek(now)).padStart(2, '0')}`;
+  for (const organisation of organisations) {
+    const ctx = systemContext(em.fork(), await em.fork().findOneOrFail(OrganisationSchema, { id: organisation.id }));
+    const since = organisation.lastDigestAt ?? subDays(now, 7);
+    const { plans } = await recomputeRenewals(ctx, undefined, now);
+    const changed = plans.filter((p) => p.asset.outlookChangedAt && p.asset.outlookChangedAt.getTime() > since.getTime());
+    if (changed.length) {
+      const recipients = await em.find(MembershipSchema, { organisation: organisation.id, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });
+      const base = `${getEnv().APP_URL}/o/${organisation.slug}`;
+      const lines = changed.map((p) => `- ${p.asset.name}: ${OUTLOOK_WORDS[p.outlook]}${p.nextDocking ? ` (next docking ${p.nextDocking.plannedStart})` : ''}\n  ${base}/assets/${p.asset.id}`);
+      for (const m of recipients) {
+        if (
+          await enqueueMailOnce(em, {
+            to: m.user.email,
+            organisationId: organisation.id,
+            dedupeKey: `weekly-digest:${organisation.id}:${week}:${m.user.id}`,
+            subject: `Tidewarden weekly: ${changed.length} asset${changed.length === 1 ? '' : 's'} changed outlook (${organisation.name})`,
+            text: `Since ${format(since, 'd MMM yyyy')}, the protection outlook changed for:\n\n${lines.join('\n')}\n\nThe docking planner: ${base}/dockings\n\n— Tidewarden`,
+          })
+        )
+          queued++;
+      }
+    }
+    await em.nativeUpdate(OrganisationSchema, { id: organisation.id }, { lastDigestAt: now });
+  }
+  return { queued };
+}

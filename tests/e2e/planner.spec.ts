@@ -1,0 +1,43 @@
+import { expect, test } from '@playwright/test';
+import { demo, demoUser, signIn } from './helpers';
+import { pdfText } from '../fixtures/pdf-text';
+
+test('a planner opens a docking, confirms the proposed renewals and prints the anode list', async ({ page }) => {
+  await signIn(page, demoUser('planner').email);
+  await page.goto(`/o/${demo.organisation.slug}/dockings`);
+  await expect(page.getByRole('img', { name: 'Docking timeline' })).toBeVisible();
+  await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Wavecrest Minnow/ }).getByRole('link').click();
+  await expect(page.getByRole('heading', { name: /Wavecrest Minnow: Unplanned docking/ })).toBeVisible();
+
+  const renewals = page.getByRole('table', { name: 'Renewals' });
+  await expect(renewals).toContainText('Proposed');
+  const proposed = await page.getByRole('button', { name: /^Confirm renewal of / }).count();
+  expect(proposed).toBeGreaterThan(0);
+  for (let i = 0; i < proposed; i++) {
+    await page.getByRole('button', { name: /^Confirm renewal of / }).first().click();
+    await expect(page.getByRole('button', { name: /^Confirm renewal of / })).toHaveCount(proposed - i - 1);
+  }
+  await expect(renewals).not.toContainText('Proposed');
+  await expect(renewals).toContainText('Confirmed');
+
+  // 8 x TW-ZB-2510 at 4.7 kg net each (the demo's crew boat) = 37.6 kg.
+  const href = await page.getByRole('link', { name: 'Print the anode list (PDF)' }).getAttribute('href');
+  const response = await page.request.get(href!);
+  expect(response.headers()['content-type']).toBe('application/pdf');
+  const text = (await pdfText(await response.body())).replace(/\s+/g, ' ');
+  expect(text).toContain('Wavecrest Minnow');
+  expect(text).toMatch(/37\.6\s*kg/);
+  expect(text).toContain('Harrowgate Dry Dock');
+
+  const csv = await page.request.get(href!.replace('format=pdf', 'format=csv'));
+  expect(await csv.text()).toContain('TW-ZB-2510');
+});
+
+test('an engineer may read the planner but not confirm renewals', async ({ page }) => {
+  await signIn(page, demoUser('engineer').email);
+  await page.goto(`/o/${demo.organisation.slug}/dockings`);
+  await expect(page.getByRole('heading', { name: 'Plan a docking or campaign' })).toHaveCount(0);
+  await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Tern Ledger/ }).getByRole('link').click();
+  await expect(page.getByRole('table', { name: 'Renewals' })).toContainText('TW-ZB-2510');
+  await expect(page.getByRole('button', { name: /^Confirm renewal of / })).toHaveCount(0);
+});
