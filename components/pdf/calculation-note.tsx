@@ -175,9 +175,10 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
           rows={data.signatures.map((s) => [s.role, s.name ?? '', s.at ? format(s.at, 'd MMM yyyy HH:mm') : ''])}
         />
         <Text style={pdf.caution}>{CAUTION_TEXT}</Text>
+        {/* A static footer: react-pdf 4.9 drops a fixed footer that uses render() on pages it splits itself. */}
         <View style={pdf.footer} fixed>
           <Text>{footer}</Text>
-          <Text render={({ pageNumber, totalPages }) => `Printed ${format(data.printedAt, 'd MMM yyyy HH:mm')} by ${data.printedBy} · page ${pageNumber} of ${totalPages}`} />
+          <Text>{`Printed ${format(data.printedAt, 'd MMM yyyy HH:mm')} by ${data.printedBy}`}</Text>
         </View>
       </Page>
     </Document>

@@ -24,6 +24,16 @@ function Steps({ org, row, dockingId, canEdit }: { org: string; row: DockingRene
   return (
     <form action={action} className="flex flex-wrap items-center gap-1">
       <input type="hidden" name="renewalId" value={row.id} />
+      <input type="hidden" name="dockingId" value={dockingId} />
+      <input type="hidden" name="notes" value={row.notes ?? ''} />
+      {row.status === 'proposed' || row.status === 'confirmed' ? (
+        <>
+          <input type="number" name="quantity" min={1} step={1} defaultValue={row.quantity} aria-label={`Quantity to renew, ${row.groupLabel}`} className="num w-14 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs" />
+          <Button type="submit" name="step" value="update" variant="ghost" className="px-1.5 py-0.5 text-xs" disabled={pending}>
+            Set qty
+          </Button>
+        </>
+      ) : null}
       {row.status === 'proposed' ? (
         <Button type="submit" name="step" value="confirm" className="px-2 py-0.5 text-xs" disabled={pending} aria-label={`Confirm renewal of ${row.groupLabel}`}>
           Confirm

@@ -58,7 +58,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
             </text>
           </g>
         ))}
-        {dockings.map((d, i) => (
+        {dockings.filter((d) => d.date.getTime() >= t0 && d.date.getTime() <= t1).map((d, i) => (
           <g key={i}>
             <line x1={x(d.date.getTime())} x2={x(d.date.getTime())} y1={pad.top} y2={height - pad.bottom} stroke="#a67a2c" strokeDasharray="4 3" />
             <text x={x(d.date.getTime()) + 3} y={pad.top + 10 + (i % 2) * 11} fontSize="9.5" fill="#7a5718">

@@ -1,6 +1,6 @@
 'use client';
-import { useActionState, useEffect, useMemo } from 'react';
-import { useQueryClient } from '@tanstack/react-query';
+import { useActionState, useMemo } from 'react';
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 import { createColumnHelper } from '@tanstack/react-table';
 import { format } from 'date-fns';
 import { DataTable } from '@/components/ui/data-table';
@@ -18,11 +18,8 @@ const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
 /** Runs a bound server action and refreshes the team query when it succeeds. */
 function useTeamAction(org: string, action: (slug: string, state: ActionState, formData: FormData) => Promise<ActionState>) {
-  const client = useQueryClient();
   const [state, run, pending] = useActionState(action.bind(null, org) as BoundAction, { ok: false });
-  useEffect(() => {
-    if (state.ok) client.invalidateQueries({ queryKey: queryKeys.team(org) });
-  }, [state, client, org]);
+  useInvalidateOnSuccess(state, queryKeys.team(org));
   return [state, run, pending] as const;
 }
 

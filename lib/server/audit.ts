@@ -3,7 +3,7 @@ import { AuditEventSchema } from '@/entities';
 
 export interface AuditInput {
   organisationId?: string | null;
-  actor?: { id: string; email: string } | null;
+  actor?: { id: string | null; email: string } | null;
   action: string;
   targetType?: string;
   targetId?: string;

@@ -17,7 +17,6 @@ const envSchema = z.object({
   STRIPE_API_PORT: z.coerce.number().int().optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   STRIPE_WEBHOOK_SECRET: z.string().default('whsec_tidewarden_local'),
-  UPLOAD_DIR: z.string().default('.data/uploads'),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -163,7 +163,10 @@ describe('the calculation note', () => {
     const { pdf, filename } = await renderCalculationNote(await ctx('viewer'), design.id);
     expect(filename).toMatch(/\.pdf$/);
     expect(Buffer.from(pdf.subarray(0, 5)).toString()).toBe('%PDF-');
-    const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
+    const pages = (await pdfText(pdf)).split('\n');
+    // The footer (organisation, asset, revision, who printed it) is on every page.
+    for (const page of pages) expect(page).toMatch(/Printed .* by/);
+    const text = pages.join(' ').replace(/\s+/g, ' ');
     expect(text).toContain('Test Ferry');
     expect(text).toContain('Note test design');
     expect(text).toMatch(/governing criterion: (Net anode mass|Initial current output|Final current output)/);

@@ -1,4 +1,4 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { OutboxMessageSchema } from '@/entities';
 import { getEm, getOrm } from '@/lib/server/db';
 import { deliverDueMail, enqueueMail, retryDelayMs } from '@/lib/server/mail/outbox';
@@ -7,6 +7,14 @@ import { uniqueEmail } from '../fixtures/factories';
 const api = process.env.FAKE_MAIL_API!;
 const setFake = (state: 'up' | 'down') => fetch(`${api}/control/${state}`, { method: 'POST' });
 const received = async (to: string) => (await (await fetch(`${api}/messages?to=${encodeURIComponent(to)}`)).json()) as { subject: string; attachments: { filename: string }[] }[];
+
+/** Delivers whatever other tests left queued, so each test here sees only its own messages. */
+async function drain() {
+  await setFake('up');
+  for (let i = 0; i < 100; i++) if ((await deliverDueMail(await getEm(), { limit: 100 })).claimed === 0) return;
+}
+
+beforeEach(drain);
 
 afterAll(async () => {
   await setFake('up');

@@ -105,6 +105,19 @@ describe('invitations', () => {
   });
 });
 
+describe('audit log', () => {
+  it("shows owners their members' sign-ins and lock-outs, and nothing of other organisations' members", async () => {
+    const { signIn } = await import('@/lib/server/services/accounts/sign-in');
+    await signIn({ em: await getEm(), input: { email: users.planner.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.50' });
+    const outsider = await makeUser(await getEm());
+    await signIn({ em: await getEm(), input: { email: outsider.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.51' });
+    const log = await getAuditLog(await ctx('owner'), { pageSize: 200 });
+    const signIns = log.rows.filter((r) => r.action === 'user.signed-in').map((r) => r.actor);
+    expect(signIns).toContain(users.planner.email);
+    expect(signIns).not.toContain(outsider.email);
+  });
+});
+
 describe('roles and removal', () => {
   it('changes a role and records who did it', async () => {
     const { organisation: org, users: u } = await makeOrgWithRoles(await getEm(), 'Role Change Marine');

@@ -19,7 +19,7 @@ export async function signIn({ em, input, ip }: { em: EntityManager; input: unkn
     em.count(SignInAttemptSchema, { ipAddress: ip, succeeded: false, createdAt: { $gte: since } }),
   ]);
   if (accountFailures >= MAX_FAILURES_PER_ACCOUNT || addressFailures >= MAX_FAILURES_PER_ADDRESS) {
-    audit(em, { action: 'user.sign-in-locked', details: { email, byAccount: accountFailures >= MAX_FAILURES_PER_ACCOUNT }, ipAddress: ip });
+    audit(em, { action: 'user.sign-in-locked', actor: { id: null, email }, details: { email, byAccount: accountFailures >= MAX_FAILURES_PER_ACCOUNT }, ipAddress: ip });
     await em.flush();
     throw new AppError('rate-limited', `Too many failed sign-ins. Wait ${SIGN_IN_WINDOW_MINUTES} minutes and try again, or reset your password.`);
   }

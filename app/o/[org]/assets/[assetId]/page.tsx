@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
-import { AnodeGroupChangeSchema, DesignSchema, SurveySchema, ZoneSchema } from '@/entities';
+import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
@@ -35,12 +35,13 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     throw error;
   }
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, forecasts, catalogue] = await Promise.all([
+  const [zones, designs, surveys, forecasts, catalogue, dockings] = await Promise.all([
     ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
     ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results'] }),
     ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
     loadGroupForecasts(ctx, { assetIds: [asset.id] }),
     canWrite ? listCatalogue(ctx) : Promise.resolve([]),
+    ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
   ]);
   const changes = forecasts.length
     ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
@@ -268,7 +269,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         </Panel>
 
         <Panel title="Depletion forecast">
-          <DepletionChart series={series} today={today} />
+          <DepletionChart
+            series={series}
+            today={today}
+            dockings={dockings.map((d) => ({ date: new Date(`${d.actualStart ?? d.plannedStart}T00:00:00Z`), label: `${d.kind === 'campaign' ? 'Campaign' : 'Docking'} ${d.actualStart ?? d.plannedStart}${d.status === 'done' ? ' (done)' : ''}` }))}
+          />
           <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
             <thead className="text-xs text-ink-soft">
               <tr className="border-b border-rule">
