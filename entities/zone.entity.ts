@@ -1,21 +1,9 @@
 import { defineEntity, type InferEntity } from '@mikro-orm/core';
 import { p, uuidPk, createdAt, double } from './common';
 import { AssetSchema } from './asset.entity';
+import type { ZONE_KIND_VALUES } from '@/lib/schemas/design';
 
-export const ZONE_KINDS = [
-  'hull-bottom',
-  'boot-top-sides',
-  'rudder',
-  'propeller-shaft',
-  'sea-chest',
-  'thruster-tunnel',
-  'pile-immersed',
-  'pile-mud',
-  'sheet-pile-water',
-  'sheet-pile-mud',
-  'other',
-] as const;
-export type ZoneKind = (typeof ZONE_KINDS)[number];
+export type ZoneKind = (typeof ZONE_KIND_VALUES)[number];
 
 // A surface of an asset protected together, with what the calculation needs to know about it.
 export const ZoneSchema = defineEntity({

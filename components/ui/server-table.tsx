@@ -1,7 +1,8 @@
 'use client';
+import { TableView } from './table-view';
 import { useEffect, useState } from 'react';
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
+import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
 import { fetchJson } from '@/lib/client/query-client';
 
 export interface Page<T> {
@@ -66,54 +67,7 @@ export function ServerTable<T>({ label, url, queryKey, columns, extraParams = {}
         {toolbar}
       </div>
       {query.isError ? <p role="alert" className="text-sm text-state-overdue">{query.error.message}</p> : null}
-      <div className="overflow-x-auto rounded-[3px] border border-rule">
-        <table aria-label={label} aria-busy={query.isFetching} className="w-full border-collapse text-sm">
-          <thead className="bg-paper-sunk text-xs text-ink-soft">
-            {table.getHeaderGroups().map((group) => (
-              <tr key={group.id}>
-                {group.headers.map((header) => {
-                  const meta = header.column.columnDef.meta as { numeric?: boolean } | undefined;
-                  const sorted = header.column.getIsSorted();
-                  return (
-                    <th key={header.id} scope="col" className={`border-b border-rule px-3 py-2 font-medium ${meta?.numeric ? 'text-right' : 'text-left'}`}>
-                      {header.column.getCanSort() ? (
-                        <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex items-center gap-1 hover:text-ink">
-                          {flexRender(header.column.columnDef.header, header.getContext())}
-                          <span aria-hidden className="text-2xs">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
-                        </button>
-                      ) : (
-                        flexRender(header.column.columnDef.header, header.getContext())
-                      )}
-                    </th>
-                  );
-                })}
-              </tr>
-            ))}
-          </thead>
-          <tbody className={query.isFetching && query.isPlaceholderData ? 'opacity-60' : ''}>
-            {table.getRowModel().rows.length ? (
-              table.getRowModel().rows.map((row) => (
-                <tr key={row.id} className="border-b border-rule last:border-0 hover:bg-tide-50/50">
-                  {row.getVisibleCells().map((cell) => {
-                    const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
-                    return (
-                      <td key={cell.id} className={`px-3 py-1.5 align-middle ${meta?.numeric ? 'num' : ''}`}>
-                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                      </td>
-                    );
-                  })}
-                </tr>
-              ))
-            ) : (
-              <tr>
-                <td colSpan={columns.length} className="px-3 py-6 text-center text-sm text-ink-faint">
-                  {query.isLoading ? 'Loading…' : empty}
-                </td>
-              </tr>
-            )}
-          </tbody>
-        </table>
-      </div>
+      <TableView table={table} label={label} empty={query.isLoading ? 'Loading…' : empty} busy={query.isFetching} dimmed={query.isFetching && query.isPlaceholderData} />
       <div className="no-print flex items-center gap-3 text-xs text-ink-soft">
         <span className="num text-left">{total.toLocaleString('en-GB')} in all</span>
         <button type="button" className="underline disabled:opacity-40" onClick={() => setPage((p) => p - 1)} disabled={page <= 1}>

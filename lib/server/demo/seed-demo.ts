@@ -6,6 +6,7 @@ import type { OrgContext } from '../org-context';
 import { createDesign } from '../services/designs/create-design';
 import { approveDesign } from '../services/designs/sign-design';
 import { createAnodeGroup } from '../services/register/anode-groups';
+import { blankParticulars } from '../services/assets/create-asset';
 import { createSurvey } from '../services/surveys/create-survey';
 import { recomputeRenewals } from '../services/planner/recompute-renewals';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
@@ -137,13 +138,13 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
     const assets: Record<string, string> = {};
     for (const v of VESSELS) {
       const { zones, ...particulars } = v;
-      const asset = tx.create(AssetSchema, { ...blank, ...particulars, kind: 'vessel', organisation });
+      const asset = tx.create(AssetSchema, { ...blankParticulars(), ...particulars, kind: 'vessel', organisation });
       addZones(tx, asset, zones);
       assets[v.name] = asset.id;
     }
     for (const s of STRUCTURES) {
       const { zones, ...particulars } = s;
-      const asset = tx.create(AssetSchema, { ...blank, ...particulars, kind: 'structure', organisation });
+      const asset = tx.create(AssetSchema, { ...blankParticulars(), ...particulars, kind: 'structure', organisation });
       addZones(tx, asset, zones);
       assets[s.name] = asset.id;
     }
@@ -238,25 +239,6 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   await recomputeRenewals(engineer);
 }
 
-const blank = {
-  imoNumber: null,
-  vesselType: null,
-  lengthBppM: null,
-  beamM: null,
-  draughtM: null,
-  blockCoefficient: null,
-  hullMaterial: null,
-  hasImpressedCurrent: false,
-  tradingWaters: null,
-  structureType: null,
-  location: null,
-  waterType: null,
-  designLifeYears: null,
-  pileCount: null,
-  pileDiameterM: null,
-  notes: null,
-  archivedAt: null,
-};
 
 function addZones(em: EntityManager, asset: { id: string }, zones: ZoneSeed[]) {
   zones.forEach((z, i) =>

@@ -14,7 +14,8 @@ export async function createAsset(ctx: OrgContext, input: unknown) {
   return asset;
 }
 
-function blankParticulars() {
+/** Every optional particular of an asset, empty; a vessel or structure fills in its own. */
+export function blankParticulars() {
   return {
     imoNumber: null,
     vesselType: null,

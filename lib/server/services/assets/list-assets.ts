@@ -1,5 +1,6 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { ilikePattern } from '../../sql';
 
 const SORTS: Record<string, string> = {
   name: 'a.name',
@@ -36,7 +37,7 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
   const params: unknown[] = [ctx.organisation.id];
   if (query.q) {
     clauses.push("(a.name ilike ? or coalesce(a.vessel_type, '') ilike ? or coalesce(a.structure_type, '') ilike ? or coalesce(a.location, '') ilike ?)");
-    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const like = ilikePattern(query.q);
     params.push(like, like, like, like);
   }
   const where = clauses.join(' and ');

@@ -1,6 +1,7 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { ilikePattern } from '../../sql';
 
 // Sort keys the client may ask for, mapped to SQL; never interpolate anything else.
 const SORTS: Record<string, string> = {
@@ -40,7 +41,7 @@ function whereClause(ctx: OrgContext, query: ListQuery) {
   }
   if (query.q) {
     clauses.push("(a.name ilike ? or g.label ilike ? or coalesce(z.name, '') ilike ? or g.model->>'designation' ilike ? or coalesce(g.positions, '') ilike ?)");
-    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const like = ilikePattern(query.q);
     params.push(like, like, like, like, like);
   }
   return { sql: clauses.join(' and '), params };

@@ -5,6 +5,7 @@ import { protectedMetalOf } from '@/lib/register/protected-metal';
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
+import { ilikePattern } from '../../sql';
 
 /** A survey with its readings judged against the asset's criteria, and its attachments (without their bytes). */
 export async function getSurveyDetails(ctx: OrgContext, surveyId: string) {
@@ -65,7 +66,7 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
   }
   if (query.q) {
     clauses.push("(a.name ilike ? or coalesce(s.surveyor, '') ilike ? or s.method ilike ?)");
-    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const like = ilikePattern(query.q);
     params.push(like, like, like);
   }
   const sorts: Record<string, string> = { asset: 'a.name', surveyedOn: 's.surveyed_on', method: 's.method' };

@@ -87,6 +87,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
       .map(([k, v]) => [k, k === 'hasImpressedCurrent' ? (v ? 'on' : '') : String(v)]),
   );
   const activeGroups = forecasts.map((f) => f.group);
+  const modelChoices = catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }));
+  const zoneChoices = zones.map((z) => ({ id: z.id, name: z.name }));
 
   return (
     <>
@@ -222,8 +224,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                   <AnodeGroupForm
                     org={org}
                     assetId={asset.id}
-                    zones={zones.map((z) => ({ id: z.id, name: z.name }))}
-                    models={catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }))}
+                    zones={zoneChoices}
+                    models={modelChoices}
                     designs={designs.map((d) => ({ id: d.id, label: `Rev. ${d.revision} (${STATUS_LABELS[d.status]})` }))}
                   />
                 </div>
@@ -235,8 +237,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                     <AnodeGroupForm
                       org={org}
                       assetId={asset.id}
-                      zones={zones.map((z) => ({ id: z.id, name: z.name }))}
-                      models={catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }))}
+                      zones={zoneChoices}
+                      models={modelChoices}
                       designs={[]}
                       groups={activeGroups.map((g) => ({ id: g.id, label: g.label, zoneId: g.zone?.id ?? null, anodeModelKey: g.model.key, quantity: g.quantity, positions: g.positions ?? null, installedOn: g.installedOn, meanCurrentA: g.meanCurrentA ?? null, notes: g.notes ?? null }))}
                     />
