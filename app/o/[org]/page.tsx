@@ -19,15 +19,18 @@ export default async function FleetOverviewPage({ params }: { params: Promise<{ 
         subtitle={`${ctx.organisation.name}: every vessel and structure with its anodes and latest survey.`}
         actions={<ButtonLink href={`/o/${org}/register`} variant="secondary">Anode register</ButtonLink>}
       />
-      <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+      <div className="flex flex-col gap-4">
+        {canWrite ? (
+          <details className="rounded-[4px] border border-rule bg-paper-raised">
+            <summary className="cursor-pointer px-4 py-2.5 text-sm font-semibold text-tide-700">Add a vessel or structure</summary>
+            <div className="max-w-2xl px-4 pb-4">
+              <AssetForm org={org} />
+            </div>
+          </details>
+        ) : null}
         <Panel title="Assets">
           <FleetTable org={org} />
         </Panel>
-        {canWrite ? (
-          <Panel title="Add a vessel or structure">
-            <AssetForm org={org} />
-          </Panel>
-        ) : null}
       </div>
     </>
   );
