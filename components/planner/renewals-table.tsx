@@ -1,6 +1,6 @@
 'use client';
-import { useActionState, useMemo } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { useActionState, useEffect, useMemo } from 'react';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
@@ -16,7 +16,7 @@ type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
 const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted', cancelled: 'Cancelled' };
 
-function Steps({ org, row, dockingId, canEdit }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean }) {
+function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
   const [state, action, pending] = useActionState(renewalStepAction.bind(null, org) as Bound, { ok: false });
   useInvalidateOnSuccess(state, ['orgs', org, 'dockings', dockingId, 'renewals']);
   if (!canEdit || row.status === 'fitted' || row.status === 'cancelled') return null;
@@ -24,16 +24,24 @@ function Steps({ org, row, dockingId, canEdit }: { org: string; row: DockingRene
   return (
     <form action={action} className="flex flex-wrap items-center gap-1">
       <input type="hidden" name="renewalId" value={row.id} />
-      <input type="hidden" name="dockingId" value={dockingId} />
       <input type="hidden" name="notes" value={row.notes ?? ''} />
       {row.status === 'proposed' || row.status === 'confirmed' ? (
         <>
           <input type="number" name="quantity" min={1} step={1} defaultValue={row.quantity} aria-label={`Quantity to renew, ${row.groupLabel}`} className="num w-14 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs" />
+          <select name="dockingId" defaultValue={dockingId} aria-label={`Docking for ${row.groupLabel}`} className="max-w-36 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs">
+            {dockings.map((d) => (
+              <option key={d.id} value={d.id}>
+                {d.label}
+              </option>
+            ))}
+          </select>
           <Button type="submit" name="step" value="update" variant="ghost" className="px-1.5 py-0.5 text-xs" disabled={pending}>
-            Set qty
+            Save
           </Button>
         </>
-      ) : null}
+      ) : (
+        <input type="hidden" name="dockingId" value={dockingId} />
+      )}
       {row.status === 'proposed' ? (
         <Button type="submit" name="step" value="confirm" className="px-2 py-0.5 text-xs" disabled={pending} aria-label={`Confirm renewal of ${row.groupLabel}`}>
           Confirm
@@ -60,9 +68,15 @@ function Steps({ org, row, dockingId, canEdit }: { org: string; row: DockingRene
   );
 }
 
-export function RenewalsTable({ org, dockingId, initial, canEdit }: { org: string; dockingId: string; initial: DockingRenewalRow[]; canEdit: boolean }) {
+export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { org: string; dockingId: string; initial: DockingRenewalRow[]; canEdit: boolean; dockings: { id: string; label: string }[] }) {
+  const client = useQueryClient();
+  const key = useMemo(() => ['orgs', org, 'dockings', dockingId, 'renewals'] as const, [org, dockingId]);
+  // After a server action the page is rendered again with fresh rows: they replace the cached ones.
+  useEffect(() => {
+    client.setQueryData(key, initial);
+  }, [client, key, initial]);
   const query = useQuery({
-    queryKey: ['orgs', org, 'dockings', dockingId, 'renewals'],
+    queryKey: key,
     queryFn: async () => (await fetchJson<{ renewals: DockingRenewalRow[] }>(`/api/orgs/${org}/dockings/${dockingId}/renewals`)).renewals,
     initialData: initial,
   });
@@ -76,9 +90,11 @@ export function RenewalsTable({ org, dockingId, initial, canEdit }: { org: strin
       col.accessor((r) => r.quantity * r.netMassKg, { id: 'net', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 1)} kg` }),
       col.accessor('reason', { header: 'Reason', cell: (c) => <span title={c.row.original.rationale ?? undefined}>{c.getValue().replace(/-/g, ' ')}</span> }),
       col.accessor('status', { header: 'Status', cell: (c) => <StatusTag tone={STATUS_TONE[c.getValue()] ?? 'neutral'}>{STATUS_WORDS[c.getValue()] ?? c.getValue()}</StatusTag> }),
-      col.display({ id: 'steps', header: '', cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} /> }),
+      col.display({ id: 'steps', header: '', cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} dockings={dockings} /> }),
     ];
-  }, [org, dockingId, canEdit]);
+    // The docking choices are compared by content: a refreshed page passes an equal but new array.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [org, dockingId, canEdit, JSON.stringify(dockings)]);
   const rows = query.data ?? [];
   const open = rows.filter((r) => r.status !== 'cancelled' && r.status !== 'fitted');
   return (

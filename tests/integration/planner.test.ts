@@ -6,7 +6,7 @@ import { getEm, getOrm } from '@/lib/server/db';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
-import { cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered } from '@/lib/server/services/planner/renewals';
+import { cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered, updateRenewal } from '@/lib/server/services/planner/renewals';
 import { recomputeRenewals } from '@/lib/server/services/planner/recompute-renewals';
 import { anodeListPdf } from '@/lib/server/services/planner/anode-list';
 import { queueDockingReminders } from '@/lib/server/services/reminders/docking-reminders';
@@ -96,6 +96,25 @@ describe('renewal proposals', () => {
     await recomputeRenewals(await ctx('planner'), [vesselId]);
     const rows = await renewalsOf();
     expect(rows.map((x) => x.status)).toEqual(['cancelled']);
+  });
+});
+
+describe('editing a renewal', () => {
+  it('a planner moves a proposal to another docking of the asset with a new quantity; it becomes the planner\'s own', async () => {
+    const boat = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Movable', hullMaterial: 'steel' });
+    const group = await createAnodeGroup(await ctx('engineer'), boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 });
+    const early = await createDocking(await ctx('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(100) });
+    const late = await createDocking(await ctx('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(300) });
+    const other = await createDocking(await ctx('planner'), { assetId: vesselId, kind: 'unplanned', plannedStart: day(120) });
+    const [proposal] = await renewalsOf(group.id);
+    expect(proposal.status).toBe('proposed');
+    const target = proposal.docking.id === early.id ? late.id : early.id;
+    const refused = await updateRenewal(await ctx('planner'), proposal.id, { quantity: 10, dockingId: other.id }).catch((e) => e);
+    expect(refused.code).toBe('invalid');
+    await updateRenewal(await ctx('planner'), proposal.id, { quantity: 10, dockingId: target, notes: 'Yard has the slot' });
+    await recomputeRenewals(await ctx('planner'), [boat.id]);
+    const rows = await renewalsOf(group.id);
+    expect(rows.map((r) => [r.status, r.docking.id, r.quantity])).toEqual([['confirmed', target, 10]]);
   });
 });
 

@@ -2,7 +2,7 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
-import { AnodeGroupSchema } from '@/entities';
+import { AnodeGroupSchema, DockingSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
@@ -29,7 +29,13 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
   const { docking, rows } = data;
   const canPlan = allowed(ctx, 'docking:write');
   const canRenew = allowed(ctx, 'renewal:write');
-  const groups = canRenew ? await ctx.em.find(AnodeGroupSchema, { asset: docking.asset, removedOn: null }, { orderBy: { label: 'asc' }, fields: ['id', 'label'] }) : [];
+  const [groups, planned] = canRenew
+    ? await Promise.all([
+        ctx.em.find(AnodeGroupSchema, { asset: docking.asset, removedOn: null }, { orderBy: { label: 'asc' }, fields: ['id', 'label'] }),
+        ctx.em.find(DockingSchema, { asset: docking.asset, status: 'planned' }, { orderBy: { plannedStart: 'asc' } }),
+      ])
+    : [[], []];
+  const dockingChoices = planned.map((d) => ({ id: d.id, label: `${format(new Date(`${d.plannedStart}T00:00:00Z`), 'd MMM yyyy')}${d.yard ? `, ${d.yard}` : ''}` }));
   const start = docking.actualStart ?? docking.plannedStart;
   const listBase = `/api/orgs/${org}/dockings/${docking.id}/anode-list`;
   return (
@@ -51,7 +57,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
       />
       <div className="flex flex-col gap-4">
         <Panel title="Renewals">
-          <RenewalsTable org={org} dockingId={docking.id} initial={rows} canEdit={canRenew} />
+          <RenewalsTable org={org} dockingId={docking.id} initial={rows} canEdit={canRenew} dockings={dockingChoices} />
         </Panel>
         <div className="grid items-start gap-4 xl:grid-cols-2">
           {canPlan ? (
