@@ -118,6 +118,27 @@ describe('editing a renewal', () => {
   });
 });
 
+describe('the renewal margin', () => {
+  it('an owner widens the margin and the proposal moves to the earlier docking; others may not change it', async () => {
+    const fleet = await makeOrgWithRoles(await getEm(), 'Margin Marine');
+    const as = async (role: Role) => ctxFor(await getEm(), fleet.organisation, fleet.users[role]);
+    const boat = await createAsset(await as('engineer'), { kind: 'vessel', name: 'Margin Boat', hullMaterial: 'steel' });
+    // 12 x TW-ZW-3015 (8.4 kg, zinc 780 Ah/kg: DNV-RP-B401 (2010) Table 10-6, from memory) at 2 A: 22.46 kg/yr,
+    // usable 0.8 x 100.8 kg -> 3.59 years; installed 400 days ago -> end of life about today + 912 days.
+    const group = await createAnodeGroup(await as('engineer'), boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 });
+    const d500 = await createDocking(await as('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(500) });
+    const d700 = await createDocking(await as('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(700) });
+    // Margin 6 months: deadline about today + 730 days -> the docking at 700 days.
+    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d700.id]);
+    const { updateOrganisationSettings } = await import('@/lib/server/services/accounts/update-organisation-settings');
+    const refused = await updateOrganisationSettings(await as('planner'), { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '', currency: 'EUR' }).catch((e) => e);
+    expect(refused.code).toBe('forbidden');
+    // Margin 12 months: deadline about today + 547 days -> the docking at 500 days.
+    await updateOrganisationSettings(await as('owner'), { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '14.5', currency: 'EUR' });
+    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d500.id]);
+  });
+});
+
 describe('anode list and reminders', () => {
   let soonId: string;
   beforeAll(async () => {

@@ -5,6 +5,7 @@ import { changeMemberRole } from '@/lib/server/services/team/change-member-role'
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { kickOutbox } from '@/lib/server/mail/outbox';
+import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
 import { getEm } from '@/lib/server/db';
 
 export const inviteMemberAction = orgAction('team:manage', async (ctx, formData) => {
@@ -26,4 +27,9 @@ export const removeMemberAction = orgAction('team:manage', async (ctx, formData)
 export const revokeInvitationAction = orgAction('team:manage', async (ctx, formData) => {
   await revokeInvitation(ctx, formObject(formData));
   return { ok: true, message: 'Invitation withdrawn.' };
+});
+
+export const updateSettingsAction = orgAction('team:manage', async (ctx, formData) => {
+  await updateOrganisationSettings(ctx, formObject(formData));
+  return { ok: true, message: 'Settings saved.' };
 });
