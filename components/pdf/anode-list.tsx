@@ -309,7 +309,7 @@ function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: 
 const TITLE_LEFT_SHARE = 0.72;
 const titleLine = (list: AnodeList) => {
   const d = list.docking;
-  return `${list.asset.name} (${list.asset.kind}) · ${humanise(d.kind)} docking from ${dayText(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
+  return `${list.asset.name} (${list.asset.kind}) · ${d.kind === 'campaign' ? 'Diving or works campaign' : `${humanise(d.kind)} docking`} from ${dayText(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
 };
 const titleHeight = (list: AnodeList) =>
   Math.max(
@@ -564,7 +564,7 @@ const PAGE_STYLE = [pdf.page, StyleSheet.create({ p: { fontFeatureSettings: { ca
  */
 export function AnodeListDocument({ list, pagination = 'planned' }: { list: AnodeList; pagination?: 'planned' | 'checked' }) {
   const d = list.docking;
-  const footer = `${list.organisation.name} · ${list.asset.name} · dry-dock anode list, docking from ${dayText(d.plannedStart)} · revision ${list.revision.number}`;
+  const footer = `${list.organisation.name} · ${list.asset.name} · ${d.kind === 'campaign' ? 'anode list, campaign' : 'dry-dock anode list, docking'} from ${dayText(d.plannedStart)} · revision ${list.revision.number}`;
   const printed = `Printed ${format(list.printedAt, 'd MMM yyyy HH:mm')} by ${list.printedBy}`;
   const plan = planAnodeListPages(list);
   // Should an estimate ever exceed a sheet, let react-pdf continue it rather than cut text off.

@@ -1,4 +1,5 @@
 import { ZodError } from 'zod';
+import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { CpInputError } from '@/lib/cp/errors';
 
 // One error type for the whole server side; the code decides the HTTP status and what the user sees.
@@ -53,6 +54,10 @@ export function toErrorBody(error: unknown): { status: number; body: ErrorBody }
   }
   if (error instanceof CpInputError) {
     return { status: 422, body: { error: { code: 'invalid', message: error.message, fieldErrors: { [error.field]: [error.message] } } } };
+  }
+  if (error instanceof UniqueConstraintViolationException) {
+    // Two requests raced to create the same thing; the database kept one and refused the other.
+    return { status: 409, body: { error: { code: 'conflict', message: 'That already exists (it was just created by another request). Reload and check.' } } };
   }
   if (error instanceof ZodError) {
     return { status: 422, body: { error: { code: 'invalid', message: 'Some fields need attention.', fieldErrors: fieldErrorsFromZod(error) } } };

@@ -23,6 +23,17 @@ describe('MikroORM on the real PostgreSQL', () => {
     expect(await (await getEm()).count(UserSchema, { email })).toBe(1);
   });
 
+  it('a lost race on a unique value becomes a 409 with a plain message, not a 500', async () => {
+    const { toErrorBody } = await import('@/lib/server/errors');
+    const email = uniqueEmail();
+    await makeUser(await getEm(), { email });
+    const error = await makeUser(await getEm(), { email }).catch((e) => e);
+    const { status, body } = toErrorBody(error);
+    expect(status).toBe(409);
+    expect(body.error.code).toBe('conflict');
+    expect(body.error.message).not.toMatch(/duplicate key|app_user/);
+  });
+
   it('never serialises the password hash', async () => {
     const user = await makeUser(await getEm());
     const json = JSON.stringify((await getEm()).getReference(UserSchema, user.id)) + JSON.stringify(user);

@@ -13,14 +13,12 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   const particulars: [string, string][] =
     a.kind === 'vessel'
       ? [
-          ['Name', a.name],
           ['Type', a.vesselType ?? '—'],
           ['IMO number', a.imoNumber ?? '—'],
           ['Length between perpendiculars × beam × draught', a.lengthBppM ? `${a.lengthBppM} × ${a.beamM ?? '?'} × ${a.draughtM ?? '?'} m` : '—'],
           ['Hull', a.hullMaterial ?? '—'],
         ]
       : [
-          ['Name', a.name],
           ['Structure', a.structureType ?? '—'],
           ['Location', a.location ?? '—'],
           ['Piles', a.pileCount ? `${a.pileCount} × Ø ${a.pileDiameterM ?? '?'} m` : '—'],
