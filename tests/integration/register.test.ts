@@ -169,6 +169,50 @@ describe('survey CSV upload', () => {
   });
 });
 
+describe('survey photos and reports', () => {
+  async function upload(file: File, caption = 'Pile B1-A after cleaning') {
+    const { POST } = await import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/route');
+    const form = new FormData();
+    form.set('file', file);
+    form.set('caption', caption);
+    const res = await POST(new NextRequest(`http://127.0.0.1/api/orgs/${home.organisation.slug}/surveys/${surveyId}/attachments`, { method: 'POST', body: form }), {
+      params: Promise.resolve({ org: home.organisation.slug, surveyId }),
+    });
+    return { status: res.status, body: await res.json() };
+  }
+  // The first bytes of a JPEG (SOI + APP0 marker): enough for the content sniffer.
+  const jpegBytes = new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10, 0x4a, 0x46, 0x49, 0x46, 0x00, 0x01, 0x01, 0x00, 0x00, 0x01]);
+
+  it('stores a photo by its real content type and serves it back unchanged', async () => {
+    await signInAs(home.users.inspector);
+    const { status, body } = await upload(new File([jpegBytes], 'B1-A.png', { type: 'image/png' }));
+    expect(status).toBe(201);
+    expect(body.attachment.contentType).toBe('image/jpeg'); // sniffed, not the browser's claim
+    expect(body.attachment.filename).toBe('B1-A.jpg');
+    const { GET } = await import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/[attachmentId]/route');
+    await signInAs(home.users.viewer);
+    const res = await GET(new NextRequest('http://127.0.0.1/x'), { params: Promise.resolve({ org: home.organisation.slug, surveyId, attachmentId: body.attachment.id }) });
+    expect(res.headers.get('content-type')).toBe('image/jpeg');
+    expect(res.headers.get('x-content-type-options')).toBe('nosniff');
+    expect(new Uint8Array(await res.arrayBuffer())).toEqual(jpegBytes);
+  });
+
+  it('refuses a file that is not a JPEG, PNG or PDF whatever its name, and one over 10 MB', async () => {
+    await signInAs(home.users.inspector);
+    expect((await upload(new File(['<html>not a photo</html>'], 'photo.jpg', { type: 'image/jpeg' }))).status).toBe(415);
+    const big = new Uint8Array(11 * 1024 * 1024);
+    big.set(jpegBytes);
+    const refused = await upload(new File([big], 'huge.jpg', { type: 'image/jpeg' }));
+    expect(refused.status).toBe(413);
+    expect(refused.body.error.message).toMatch(/10 MB/);
+  });
+
+  it('a viewer cannot attach anything', async () => {
+    await signInAs(home.users.viewer);
+    expect((await upload(new File([jpegBytes], 'x.jpg'))).status).toBe(403);
+  });
+});
+
 describe('the register list', () => {
   it('answers in the same number of SQL statements whatever the size of the register', async () => {
     const statementsFor = async () => {
