@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, FormMessage, SelectField } from '@/components/ui/field';
@@ -11,7 +12,7 @@ type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 export function DockingEditForm({ org, docking }: { org: string; docking: Record<string, string | null> & { id: string } }) {
   const [state, action, pending] = useActionState(updateDockingAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'dockings', docking.id, 'renewals']);
+  useInvalidateOnSuccess(state, queryKeys.dockingRenewals(org, docking.id));
   const v = !state.ok && state.values ? state.values : (Object.fromEntries(Object.entries(docking).map(([k, val]) => [k, val ?? ''])) as Record<string, string>);
   const e = (n: string) => state.fieldErrors?.[n];
   return (
@@ -38,7 +39,7 @@ export function DockingEditForm({ org, docking }: { org: string; docking: Record
 
 export function AddRenewalForm({ org, dockingId, groups }: { org: string; dockingId: string; groups: { id: string; label: string }[] }) {
   const [state, action, pending] = useActionState(addRenewalAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'dockings', dockingId, 'renewals']);
+  useInvalidateOnSuccess(state, queryKeys.dockingRenewals(org, dockingId));
   const e = (n: string) => state.fieldErrors?.[n];
   if (!groups.length) return <p className="text-sm text-ink-faint">No fitted groups on this asset.</p>;
   return (

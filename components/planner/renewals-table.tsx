@@ -5,7 +5,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
 import { StatusTag } from '@/components/ui/panel';
-import { fetchJson } from '@/lib/client/query-client';
+import { fetchJson, queryKeys } from '@/lib/client/query-client';
 import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 import { fmt } from '@/lib/format';
 import type { ActionState } from '@/lib/server/action';
@@ -18,7 +18,7 @@ const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 
 
 function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
   const [state, action, pending] = useActionState(renewalStepAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'dockings', dockingId, 'renewals']);
+  useInvalidateOnSuccess(state, queryKeys.dockingRenewals(org, dockingId));
   if (!canEdit || row.status === 'fitted' || row.status === 'cancelled') return null;
   const today = new Date().toISOString().slice(0, 10);
   return (
@@ -70,7 +70,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
 
 export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { org: string; dockingId: string; initial: DockingRenewalRow[]; canEdit: boolean; dockings: { id: string; label: string }[] }) {
   const client = useQueryClient();
-  const key = useMemo(() => ['orgs', org, 'dockings', dockingId, 'renewals'] as const, [org, dockingId]);
+  const key = useMemo(() => queryKeys.dockingRenewals(org, dockingId), [org, dockingId]);
   // After a server action the page is rendered again with fresh rows: they replace the cached ones.
   useEffect(() => {
     client.setQueryData(key, initial);

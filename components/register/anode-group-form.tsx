@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import { useActionState, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, FormMessage, SelectField } from '@/components/ui/field';
@@ -33,7 +34,7 @@ interface Props {
 export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }: Props) {
   const editing = Boolean(groups);
   const [state, action, pending] = useActionState((editing ? updateAnodeGroupAction : createAnodeGroupAction).bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'anode-groups'], ['orgs', org, 'assets']);
+  useInvalidateOnSuccess(state, queryKeys.anodeGroups(org), queryKeys.assets(org));
   const [groupId, setGroupId] = useState(groups?.[0]?.id ?? '');
   const group = groups?.find((g) => g.id === groupId);
   const fallback: Record<string, string | undefined> = group
@@ -73,7 +74,7 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
 
 export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: string; label: string }[] }) {
   const [state, action, pending] = useActionState(removeAnodeGroupAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'anode-groups'], ['orgs', org, 'assets']);
+  useInvalidateOnSuccess(state, queryKeys.anodeGroups(org), queryKeys.assets(org));
   if (!groups.length) return null;
   return (
     <form action={action} className="grid grid-cols-2 gap-3 md:grid-cols-4" noValidate>

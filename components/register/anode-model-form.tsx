@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import { useActionState, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, FormMessage, SelectField } from '@/components/ui/field';
@@ -14,7 +15,7 @@ const opts = (labels: Record<string, string>) => Object.entries(labels).map(([va
 /** An organisation's own anode model, with the dimensions its resistance formula needs. */
 export function AnodeModelForm({ org }: { org: string }) {
   const [state, action, pending] = useActionState(createAnodeModelAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'catalogue']);
+  useInvalidateOnSuccess(state, queryKeys.catalogue(org));
   const v = !state.ok && state.values ? state.values : {};
   const [shape, setShape] = useState(v.shapeKind ?? 'short-flush');
   const e = (n: string) => state.fieldErrors?.[n];

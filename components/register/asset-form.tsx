@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import { useActionState, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { FormMessage, SelectField } from '@/components/ui/field';
@@ -13,7 +14,7 @@ type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 /** Create a vessel or structure, or edit one's particulars (then the kind is fixed). */
 export function AssetForm({ org, asset }: { org: string; asset?: { id: string; kind: string; values: Record<string, string | undefined> } }) {
   const [state, action, pending] = useActionState((asset ? updateAssetAction : createAssetAction).bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'assets']);
+  useInvalidateOnSuccess(state, queryKeys.assets(org));
   const [kind, setKind] = useState(asset?.kind ?? state.values?.kind ?? 'vessel');
   const values = state.ok || !state.values ? (asset?.values ?? {}) : state.values;
   return (

@@ -5,7 +5,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
 import { StatusTag } from '@/components/ui/panel';
-import { fetchJson } from '@/lib/client/query-client';
+import { fetchJson, queryKeys } from '@/lib/client/query-client';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
 import type { ActionState } from '@/lib/server/action';
@@ -25,7 +25,7 @@ function dimensions(m: CatalogueModel) {
 
 function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
   const [state, action, pending] = useActionState(archiveAnodeModelAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, ['orgs', org, 'catalogue']);
+  useInvalidateOnSuccess(state, queryKeys.catalogue(org));
   return (
     <form action={action}>
       <input type="hidden" name="modelId" value={model.id} />
@@ -38,7 +38,7 @@ function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
 }
 
 export function CatalogueTable({ org, initial, canWrite }: { org: string; initial: CatalogueModel[]; canWrite: boolean }) {
-  const query = useQuery({ queryKey: ['orgs', org, 'catalogue'], queryFn: async () => (await fetchJson<{ models: CatalogueModel[] }>(`/api/orgs/${org}/catalogue`)).models, initialData: initial });
+  const query = useQuery({ queryKey: queryKeys.catalogue(org), queryFn: async () => (await fetchJson<{ models: CatalogueModel[] }>(`/api/orgs/${org}/catalogue`)).models, initialData: initial });
   const columns = useMemo(() => {
     const col = createColumnHelper<CatalogueModel>();
     return [

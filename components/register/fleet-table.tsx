@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
@@ -72,7 +73,7 @@ export function FleetTable({ org }: { org: string }) {
     <ServerTable
       label="Fleet"
       url={`/api/orgs/${org}/assets`}
-      queryKey={['orgs', org, 'assets']}
+      queryKey={queryKeys.assets(org)}
       columns={columns}
       extraParams={{ archived: archived ? '1' : '0' }}
       filterPlaceholder="Filter by name, type, location…"

@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
@@ -48,7 +49,7 @@ export function RegisterTable({ org, assetId, pageSize = 50 }: { org: string; as
     <ServerTable
       label="Anode register"
       url={`/api/orgs/${org}/anode-groups`}
-      queryKey={['orgs', org, 'anode-groups']}
+      queryKey={queryKeys.anodeGroups(org)}
       columns={columns}
       pageSize={pageSize}
       extraParams={{ archived: removed ? '1' : '0', ...(assetId ? { assetId } : {}) }}

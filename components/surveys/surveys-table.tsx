@@ -1,4 +1,5 @@
 'use client';
+import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
@@ -26,5 +27,5 @@ export function SurveysTable({ org, assetId }: { org: string; assetId?: string }
       }),
     ];
   }, [org]);
-  return <ServerTable label="Surveys" url={`/api/orgs/${org}/surveys`} queryKey={['orgs', org, 'surveys']} columns={columns} extraParams={assetId ? { assetId } : {}} filterPlaceholder="Filter by asset, surveyor, method…" empty="No surveys yet." />;
+  return <ServerTable label="Surveys" url={`/api/orgs/${org}/surveys`} queryKey={queryKeys.surveys(org)} columns={columns} extraParams={assetId ? { assetId } : {}} filterPlaceholder="Filter by asset, surveyor, method…" empty="No surveys yet." />;
 }

@@ -7,8 +7,12 @@ export function makeQueryClient() {
 /** Every query key in one place. */
 export const queryKeys = {
   team: (org: string) => ['orgs', org, 'team'] as const,
-  audit: (org: string, page: number) => ['orgs', org, 'audit', page] as const,
   designs: (org: string) => ['orgs', org, 'designs'] as const,
+  assets: (org: string) => ['orgs', org, 'assets'] as const,
+  anodeGroups: (org: string) => ['orgs', org, 'anode-groups'] as const,
+  catalogue: (org: string) => ['orgs', org, 'catalogue'] as const,
+  surveys: (org: string) => ['orgs', org, 'surveys'] as const,
+  dockingRenewals: (org: string, dockingId: string) => ['orgs', org, 'dockings', dockingId, 'renewals'] as const,
 };
 
 export class ApiError extends Error {

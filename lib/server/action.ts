@@ -1,4 +1,3 @@
-import { redirect } from 'next/navigation';
 import { isRedirectError } from 'next/dist/client/components/redirect-error';
 import { getEm } from './db';
 import { AppError, toErrorBody } from './errors';
@@ -69,7 +68,6 @@ export function publicAction(body: (args: { em: EntityManager; ip: string; user:
   };
 }
 
-export { redirect };
 
 export type JsonActionResult<T> = { ok: true; data: T } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
 

@@ -36,4 +36,3 @@ export function getEnv(): Env {
   return cached;
 }
 
-export const isProductionLike = () => getEnv().TIDEWARDEN_ENV === 'production';

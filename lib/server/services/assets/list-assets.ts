@@ -1,6 +1,6 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { ilikePattern } from '../../sql';
+import { ilikePattern, toPage } from '../../sql';
 
 const SORTS: Record<string, string> = {
   name: 'a.name',
@@ -65,12 +65,7 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
       [...params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
   ]);
-  return {
-    total: Number(countRows[0]?.total ?? 0),
-    page: query.page,
-    pageSize: query.pageSize,
-    rows: rows.map(
-      (r): AssetRow => ({
+  return toPage(countRows, query, rows, (r): AssetRow => ({
         id: r.id as string,
         name: r.name as string,
         kind: r.kind as AssetRow['kind'],
@@ -85,7 +80,5 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
         lastSurveyLeastNegativeV: r.least_negative === null || r.least_negative === undefined ? null : Number(r.least_negative),
         lastSurveyMostNegativeV: r.most_negative === null || r.most_negative === undefined ? null : Number(r.most_negative),
         archived: r.archived_at !== null,
-      }),
-    ),
-  };
+      }));
 }

@@ -1,7 +1,7 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { ilikePattern } from '../../sql';
+import { ilikePattern, toPage } from '../../sql';
 
 // Sort keys the client may ask for, mapped to SQL; never interpolate anything else.
 const SORTS: Record<string, string> = {
@@ -79,12 +79,7 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
       [...where.params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
   ]);
-  return {
-    total: Number(countRows[0]?.total ?? 0),
-    page: query.page,
-    pageSize: query.pageSize,
-    rows: rows.map(
-      (r): AnodeGroupRow => ({
+  return toPage(countRows, query, rows, (r): AnodeGroupRow => ({
         id: r.id as string,
         assetId: r.asset_id as string,
         assetName: r.asset_name as string,
@@ -99,9 +94,7 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
         meanCurrentA: r.mean_current_a === null ? null : Number(r.mean_current_a),
         lastRemainingFraction: r.remaining_fraction === null ? null : Number(r.remaining_fraction),
         lastSurveyedOn: (r.surveyed_on as string) ?? null,
-      }),
-    ),
-  };
+      }));
 }
 
 const csvCell = (v: unknown) => {

@@ -18,12 +18,16 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
   const horizon = new Date(now.getTime() + 91 * 86_400_000).toISOString().slice(0, 10);
   const today = now.toISOString().slice(0, 10);
   const dockings = await em.find(DockingSchema, { status: 'planned', plannedStart: { $gte: today, $lte: horizon }, asset: { archivedAt: null } }, { populate: ['asset', 'organisation'] });
+  // Planners and owners of every organisation concerned, in one query rather than one per docking.
+  const members = dockings.length
+    ? await em.find(MembershipSchema, { organisation: { $in: [...new Set(dockings.map((d) => d.organisation.id))] }, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] })
+    : [];
   let queued = 0;
   for (const docking of dockings) {
     const days = differenceInCalendarDays(new Date(`${docking.plannedStart}T00:00:00Z`), new Date(`${today}T00:00:00Z`));
     const threshold = REMINDER_DAYS.filter((t) => days <= t).at(-1);
     if (threshold === undefined) continue;
-    const recipients = await em.find(MembershipSchema, { organisation: docking.organisation, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });
+    const recipients = members.filter((m) => m.organisation.id === docking.organisation.id);
     if (!recipients.length) continue;
     const ctx = systemContext(em.fork(), docking.organisation);
     const { pdf, filename } = await anodeListPdf(ctx, docking.id);

@@ -5,7 +5,7 @@ import { protectedMetalOf } from '@/lib/register/protected-metal';
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
-import { ilikePattern } from '../../sql';
+import { ilikePattern, toPage } from '../../sql';
 
 /** A survey with its readings judged against the asset's criteria, and its attachments (without their bytes). */
 export async function getSurveyDetails(ctx: OrgContext, surveyId: string) {
@@ -88,12 +88,7 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
       [protectionCriterionV({ protectedMetal: 'aluminium' }), protectionCriterionV({ protectedMetal: 'steel' }), ...params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
   ]);
-  return {
-    total: Number(countRows[0]?.total ?? 0),
-    page: query.page,
-    pageSize: query.pageSize,
-    rows: rows.map(
-      (r): SurveyListRow => ({
+  return toPage(countRows, query, rows, (r): SurveyListRow => ({
         id: r.id as string,
         assetId: r.asset_id as string,
         assetName: r.asset_name as string,
@@ -103,7 +98,5 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
         readings: Number(r.readings),
         underProtected: Number(r.under),
         leastNegativeV: r.least_negative === null ? null : Number(r.least_negative),
-      }),
-    ),
-  };
+      }));
 }
