@@ -1,0 +1,54 @@
+// Developer shortcut: runs vitest (unit and integration) with its arguments against a local PostgreSQL
+// cluster and the two fakes on ports of their own, without building or starting the app.
+//   node scripts/dev/vitest.mjs tests/integration/register.test.ts
+// Ports: TIDEWARDEN_DEV_IT_BASE (default 14000) + 0..3; the cluster is named by DEV_IT_CLUSTER (default devit),
+// so several developers can run at once on separate bases and clusters.
+import path from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { root, ensureNodeModules, startCluster, startTsChild, waitForPort, stopAll, onShutdown, portFrom, say } from '../lib/bootstrap.mjs';
+
+const base = portFrom('TIDEWARDEN_DEV_IT_BASE', 14000);
+const clusterName = process.env.DEV_IT_CLUSTER || 'devit';
+const ports = { pg: base, smtp: base + 1, mailApi: base + 2, stripe: base + 3 };
+
+async function main() {
+  ensureNodeModules();
+  onShutdown(stopAll);
+  const cluster = await startCluster({ name: clusterName, port: ports.pg });
+  const database = `${clusterName}_it`;
+  const env = {
+    ...process.env,
+    TIDEWARDEN_ENV: 'test',
+    DATABASE_URL: cluster.urlFor(database),
+    TIDEWARDEN_IT_DATABASE_URL: cluster.urlFor(database),
+    APP_URL: 'http://127.0.0.1:1',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(ports.smtp),
+    FAKE_SMTP_PORT: String(ports.smtp),
+    FAKE_MAIL_API_PORT: String(ports.mailApi),
+    FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
+    FAKE_STRIPE_PORT: String(ports.stripe),
+    FAKE_STRIPE_WEBHOOK_URL: 'http://127.0.0.1:1/api/webhooks/stripe',
+    FAKE_STRIPE_PUBLIC_URL: `http://127.0.0.1:${ports.stripe}`,
+    FAKE_STRIPE_STATE_FILE: path.join(root, '.data', `stripe-${clusterName}.json`),
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: String(ports.stripe),
+    STRIPE_API_PROTOCOL: 'http',
+    STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
+    STRIPE_WEBHOOK_SECRET: 'whsec_tidewarden_local',
+  };
+  const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env, { quiet: true });
+  const stripe = startTsChild('fake-stripe', 'fakes/stripe/server.ts', env, { quiet: true });
+  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp);
+  await waitForPort(ports.stripe, 'The Stripe fake', 30_000, stripe);
+  const result = spawnSync(process.execPath, [path.join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', ...process.argv.slice(2)], { cwd: root, env, stdio: 'inherit' });
+  await stopAll();
+  say(`vitest exited ${result.status}.`);
+  process.exit(result.status ?? 1);
+}
+
+main().catch(async (error) => {
+  process.stderr.write(`${error?.stack ?? error}\n`);
+  await stopAll();
+  process.exit(1);
+});
