@@ -5,8 +5,6 @@ import { AppError } from '@/lib/server/errors';
 import { endSession } from '@/lib/server/auth/session';
 import { createOrganisation } from '@/lib/server/services/accounts/create-organisation';
 import { resendVerification } from '@/lib/server/services/accounts/resend-verification';
-import { kickOutbox } from '@/lib/server/mail/outbox';
-import { getEm } from '@/lib/server/db';
 
 export const createOrganisationAction = publicAction(async ({ em, ip, user }, formData) => {
   if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
@@ -14,10 +12,9 @@ export const createOrganisationAction = publicAction(async ({ em, ip, user }, fo
   redirect(`/o/${organisation.slug}`);
 });
 
-export const resendVerificationAction = publicAction(async ({ em, user }) => {
+export const resendVerificationAction = publicAction(async ({ em, effects, user }) => {
   if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
-  const { alreadyVerified } = await resendVerification({ em, userId: user.id });
-  kickOutbox(getEm);
+  const { alreadyVerified } = await resendVerification({ em, effects, userId: user.id });
   return { ok: true, message: alreadyVerified ? 'Your address is already confirmed.' : `A new confirmation link is on its way to ${user.email}.` };
 });
 

@@ -1,8 +1,8 @@
 import { isRedirectError } from 'next/dist/client/components/redirect-error';
-import { getEm } from './db';
 import { AppError, toErrorBody } from './errors';
 import { getCurrentSession, toCurrentUser, clientAddress } from './auth/session';
-import { getOrgContextOrThrow, requirePermission, type OrgContext, type CurrentUser } from './org-context';
+import type { OrgContext, CurrentUser } from './org-context';
+import { runInOrg, runUnitOfWork, type Effects } from './unit-of-work';
 import type { Permission } from './permissions';
 import type { EntityManager } from '@mikro-orm/postgresql';
 
@@ -36,50 +36,71 @@ async function toState(error: unknown, formData?: FormData): Promise<ActionState
 }
 
 /**
- * The one wrapper for organisation server actions (bind the slug from the page's URL as the first argument).
- * Same checks as withOrg: session, membership, permission, a fresh EntityManager, one error shape.
+ * Runs an action's body in the organisation's unit of work. A redirect thrown by the body (Next's way
+ * of navigating after an action) means success: it is held until the transaction has committed.
  */
-export function orgAction(
-  permission: Permission,
-  body: (ctx: OrgContext, formData: FormData) => Promise<ActionState | void>,
-) {
+async function runOrgActionBody<T>(slug: string, permission: Permission, body: (ctx: OrgContext) => Promise<T>): Promise<T | undefined> {
+  const { user } = await getCurrentSession();
+  if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
+  let redirectAfterCommit: unknown = null;
+  const value = await runInOrg({ user: toCurrentUser(user), slug, permission, ip: await clientAddress() }, async (ctx) => {
+    try {
+      return await body(ctx);
+    } catch (error) {
+      if (!isRedirectError(error)) throw error;
+      redirectAfterCommit = error;
+      return undefined;
+    }
+  });
+  if (redirectAfterCommit) throw redirectAfterCommit;
+  return value;
+}
+
+/**
+ * The one wrapper for organisation server actions (bind the slug from the page's URL as the first argument).
+ * Same way in as withOrg: session, membership, permission, one transaction, effects after commit, one error shape.
+ */
+export function orgAction(permission: Permission, body: (ctx: OrgContext, formData: FormData) => Promise<ActionState | void>) {
   return async (slug: string, _previous: ActionState, formData: FormData): Promise<ActionState> => {
     try {
-      const { user } = await getCurrentSession();
-      if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
-      const ctx = await getOrgContextOrThrow(await getEm(), toCurrentUser(user), slug, await clientAddress());
-      requirePermission(ctx, permission);
-      return (await body(ctx, formData)) ?? { ok: true };
+      return (await runOrgActionBody(slug, permission, (ctx) => body(ctx, formData))) ?? { ok: true };
     } catch (error) {
       return toState(error, formData);
     }
   };
 }
 
-/** For actions outside an organisation (sign-in, sign-up, invitations...). */
-export function publicAction(body: (args: { em: EntityManager; ip: string; user: CurrentUser | null }, formData: FormData) => Promise<ActionState | void>) {
+/** For actions outside an organisation (sign-in, sign-up, invitations...): one transaction as well. */
+export function publicAction(body: (args: { em: EntityManager; effects: Effects; ip: string; user: CurrentUser | null }, formData: FormData) => Promise<ActionState | void>) {
   return async (_previous: ActionState, formData: FormData): Promise<ActionState> => {
     try {
       const { user } = await getCurrentSession();
-      return (await body({ em: await getEm(), ip: await clientAddress(), user: user ? toCurrentUser(user) : null }, formData)) ?? { ok: true };
+      const ip = await clientAddress();
+      let redirectAfterCommit: unknown = null;
+      const state = await runUnitOfWork(async (em, effects) => {
+        try {
+          return await body({ em, effects, ip, user: user ? toCurrentUser(user) : null }, formData);
+        } catch (error) {
+          if (!isRedirectError(error)) throw error;
+          redirectAfterCommit = error;
+          return undefined;
+        }
+      });
+      if (redirectAfterCommit) throw redirectAfterCommit;
+      return state ?? { ok: true };
     } catch (error) {
       return toState(error, formData);
     }
   };
 }
 
-
 export type JsonActionResult<T> = { ok: true; data: T } | { ok: false; message: string; fieldErrors?: Record<string, string[]> };
 
-/** Server actions called from client code with JSON-like data (not a form): same checks, one result shape. */
+/** Server actions called from client code with JSON-like data (not a form): same way in, one result shape. */
 export function orgJsonAction<T>(permission: Permission, body: (ctx: OrgContext, input: unknown) => Promise<T>) {
   return async (slug: string, input: unknown): Promise<JsonActionResult<T>> => {
     try {
-      const { user } = await getCurrentSession();
-      if (!user) throw new AppError('unauthenticated', 'Your session has ended; sign in again.');
-      const ctx = await getOrgContextOrThrow(await getEm(), toCurrentUser(user), slug, await clientAddress());
-      requirePermission(ctx, permission);
-      return { ok: true, data: await body(ctx, input) };
+      return { ok: true, data: (await runOrgActionBody(slug, permission, (ctx) => body(ctx, input))) as T };
     } catch (error) {
       if (isRedirectError(error)) throw error;
       const { body: errorBody } = toErrorBody(error);

@@ -3,6 +3,7 @@ import { MembershipSchema, type Membership, type Organisation, type Role } from 
 import { AppError, notFound } from './errors';
 import { can, type Permission } from './permissions';
 import { readOnlyReason } from '@/lib/billing/plans';
+import type { Effects } from './unit-of-work';
 
 export interface CurrentUser {
   id: string;
@@ -19,16 +20,20 @@ export interface OrgContext {
   membership: Membership;
   role: Role;
   ip: string | null;
+  /** What this change asks to happen because of it (recompute, mail, revalidation); see unit-of-work.ts. */
+  effects: Effects;
 }
 
 /**
  * Resolves the organisation from the URL slug and the signed-in user's membership.
  * A non-member gets "not found", never "forbidden", so the organisation's existence is not revealed.
  */
-export async function getOrgContextOrThrow(em: EntityManager, user: CurrentUser, slug: string, ip: string | null = null): Promise<OrgContext> {
+export async function getOrgContextOrThrow(em: EntityManager, user: CurrentUser, slug: string, ip: string | null, effects: Effects): Promise<OrgContext> {
   const membership = await em.findOne(MembershipSchema, { user: user.id, organisation: { slug } }, { populate: ['organisation'] });
   if (!membership) throw notFound('Organisation');
-  return { em, user, organisation: membership.organisation, membership, role: membership.role, ip };
+  const ctx: OrgContext = { em, user, organisation: membership.organisation, membership, role: membership.role, ip, effects };
+  effects.ctx = ctx;
+  return ctx;
 }
 
 // What stays possible while the organisation is read-only (lapsed subscription): reading, printing,

@@ -1,10 +1,10 @@
 import { NextResponse, type NextRequest } from 'next/server';
 import type { z } from 'zod';
-import { getEm } from './db';
 import { AppError, toErrorBody } from './errors';
 import { getCurrentSession, toCurrentUser, clientAddress } from './auth/session';
-import { getOrgContextOrThrow, requirePermission, type OrgContext } from './org-context';
+import type { OrgContext } from './org-context';
 import type { Permission } from './permissions';
+import { runInOrg } from './unit-of-work';
 
 type Params = Record<string, string>;
 
@@ -21,9 +21,9 @@ export interface OrgRouteArgs<Q> {
 }
 
 /**
- * The one wrapper for organisation route handlers: authenticates, resolves the organisation from the
- * URL and the membership (never from client input), checks the permission, forks the EntityManager,
- * validates the query with zod and maps every failure to one JSON error shape.
+ * The one wrapper for organisation route handlers: authenticates, then hands the work to runInOrg
+ * (membership from the URL, permission, one transaction, effects after commit), validates the query
+ * with zod and maps every failure to one JSON error shape.
  */
 export function withOrg<Q extends z.ZodType | undefined = undefined>(
   handler: (args: OrgRouteArgs<Q extends z.ZodType ? z.infer<Q> : undefined>) => Promise<unknown>,
@@ -34,11 +34,10 @@ export function withOrg<Q extends z.ZodType | undefined = undefined>(
       const params = await route.params;
       const { user } = await getCurrentSession();
       if (!user) throw new AppError('unauthenticated', 'Sign in to continue.');
-      const em = await getEm();
-      const ctx = await getOrgContextOrThrow(em, toCurrentUser(user), params.org ?? '', await clientAddress());
-      requirePermission(ctx, options.permission);
-      const query = options.query ? options.query.parse(Object.fromEntries(req.nextUrl.searchParams)) : undefined;
-      const result = await handler({ req, ctx, params, query: query as never });
+      const result = await runInOrg({ user: toCurrentUser(user), slug: params.org ?? '', permission: options.permission, ip: await clientAddress() }, async (ctx) => {
+        const query = options.query ? options.query.parse(Object.fromEntries(req.nextUrl.searchParams)) : undefined;
+        return handler({ req, ctx, params, query: query as never });
+      });
       return result instanceof Response ? result : NextResponse.json(result);
     } catch (error) {
       const { status, body } = toErrorBody(error);

@@ -11,7 +11,7 @@ import { resetPassword } from '@/lib/server/services/accounts/reset-password';
 import { changePassword } from '@/lib/server/services/accounts/change-password';
 import { createOrganisation } from '@/lib/server/services/accounts/create-organisation';
 import { hashToken } from '@/lib/server/tokens';
-import { makeUser, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
+import { inUnitOfWork, makeUser, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
 
 afterAll(async () => (await getOrm()).close(true));
 
@@ -34,7 +34,7 @@ async function expectAppError(promise: Promise<unknown>, code: string, message?:
 describe('sign-up and e-mail verification', () => {
   it('creates an unverified user with an argon2id hash and queues a confirmation e-mail', async () => {
     const email = uniqueEmail('signup');
-    const user = await signUp({ em: await getEm(), input: { name: 'Ada Keel', email: email.toUpperCase(), password: 'brass-rudder-stock-7' } });
+    const user = await inUnitOfWork((w) => signUp({ ...w, input: { name: 'Ada Keel', email: email.toUpperCase(), password: 'brass-rudder-stock-7' } }));
     const stored = await (await getEm()).findOneOrFail(UserSchema, { id: user.id });
     expect(stored.email).toBe(email); // lower-cased
     expect(stored.passwordHash).toMatch(/^\$argon2id\$/);
@@ -45,7 +45,7 @@ describe('sign-up and e-mail verification', () => {
   it('refuses a duplicate e-mail with a field message and changes nothing', async () => {
     const email = uniqueEmail('dup');
     await makeUser(await getEm(), { email });
-    const error = await expectAppError(signUp({ em: await getEm(), input: { name: 'Second', email, password: 'brass-rudder-stock-7' } }), 'conflict');
+    const error = await expectAppError(inUnitOfWork((w) => signUp({ ...w, input: { name: 'Second', email, password: 'brass-rudder-stock-7' } })), 'conflict');
     expect(error.fieldErrors.email?.[0]).toMatch(/already exists/);
     expect(await (await getEm()).count(UserSchema, { email })).toBe(1);
     expect(await (await getEm()).count(OutboxMessageSchema, { toAddress: email })).toBe(0);
@@ -57,43 +57,43 @@ describe('sign-up and e-mail verification', () => {
     ['repeated', 'aaaaaaaaaaaa', /too common/],
   ])('refuses a weak password (%s) and creates nothing', async (_label, password, message) => {
     const email = uniqueEmail('weak');
-    const error = await signUp({ em: await getEm(), input: { name: 'Weak', email, password } }).catch((e) => e);
+    const error = await inUnitOfWork((w) => signUp({ ...w, input: { name: 'Weak', email, password } })).catch((e) => e);
     expect(error.issues?.[0]?.message ?? '').toMatch(message);
     expect(await (await getEm()).count(UserSchema, { email })).toBe(0);
   });
 
   it('verifies once; a reused link is refused', async () => {
     const email = uniqueEmail('verify');
-    await signUp({ em: await getEm(), input: { name: 'V', email, password: 'brass-rudder-stock-7' } });
+    await inUnitOfWork((w) => signUp({ ...w, input: { name: 'V', email, password: 'brass-rudder-stock-7' } }));
     const token = await tokenFromOutbox(email, 'verify');
-    const user = await verifyEmail({ em: await getEm(), token });
+    const user = await inUnitOfWork((w) => verifyEmail({ ...w, token }));
     expect(user.emailVerifiedAt).toBeInstanceOf(Date);
-    await expectAppError(verifyEmail({ em: await getEm(), token }), 'invalid', /already used/);
+    await expectAppError(inUnitOfWork((w) => verifyEmail({ ...w, token })), 'invalid', /already used/);
   });
 
   it('refuses an expired verification link', async () => {
     const email = uniqueEmail('expired');
-    await signUp({ em: await getEm(), input: { name: 'E', email, password: 'brass-rudder-stock-7' } });
+    await inUnitOfWork((w) => signUp({ ...w, input: { name: 'E', email, password: 'brass-rudder-stock-7' } }));
     const token = await tokenFromOutbox(email, 'verify');
     await (await getEm()).nativeUpdate(UserTokenSchema, { tokenHash: hashToken(token) }, { expiresAt: subHours(new Date(), 1) });
-    await expectAppError(verifyEmail({ em: await getEm(), token }), 'invalid', /expired/);
+    await expectAppError(inUnitOfWork((w) => verifyEmail({ ...w, token })), 'invalid', /expired/);
     const user = await (await getEm()).findOneOrFail(UserSchema, { email });
     expect(user.emailVerifiedAt).toBeNull();
   });
 
   it('an unknown token is refused', async () => {
-    await expectAppError(verifyEmail({ em: await getEm(), token: 'x'.repeat(43) }), 'invalid');
+    await expectAppError(inUnitOfWork((w) => verifyEmail({ ...w, token: 'x'.repeat(43) })), 'invalid');
   });
 
   it('an unverified user cannot create an organisation; a verified one becomes its owner', async () => {
     const unverified = await makeUser(await getEm(), { verified: false });
     await expectAppError(
-      createOrganisation({ em: await getEm(), user: { id: unverified.id, email: unverified.email, name: 'U', emailVerified: false }, input: { name: 'Quayside Survey Ltd' } }),
+      inUnitOfWork((w) => createOrganisation({ ...w, user: { id: unverified.id, email: unverified.email, name: 'U', emailVerified: false }, input: { name: 'Quayside Survey Ltd' } })),
       'forbidden',
     );
     const verified = await makeUser(await getEm());
-    const org = await createOrganisation({ em: await getEm(), user: { id: verified.id, email: verified.email, name: 'V', emailVerified: true }, input: { name: 'Quayside Survey Ltd' } });
-    const second = await createOrganisation({ em: await getEm(), user: { id: verified.id, email: verified.email, name: 'V', emailVerified: true }, input: { name: 'Quayside Survey Ltd' } });
+    const org = await inUnitOfWork((w) => createOrganisation({ ...w, user: { id: verified.id, email: verified.email, name: 'V', emailVerified: true }, input: { name: 'Quayside Survey Ltd' } }));
+    const second = await inUnitOfWork((w) => createOrganisation({ ...w, user: { id: verified.id, email: verified.email, name: 'V', emailVerified: true }, input: { name: 'Quayside Survey Ltd' } }));
     expect(org.slug).toBe('quayside-survey-ltd');
     // The audit row names the new organisation (its id exists before the flush).
     expect(await (await getEm()).count(AuditEventSchema, { organisationId: org.id, action: 'organisation.created' })).toBe(1);
@@ -104,36 +104,36 @@ describe('sign-up and e-mail verification', () => {
 describe('sign-in with rate limits', () => {
   it('signs in with the right password and records an audit event', async () => {
     const user = await makeUser(await getEm());
-    const signedIn = await signIn({ em: await getEm(), input: { email: user.email, password: TEST_PASSWORD }, ip: '198.51.100.1' });
+    const signedIn = await inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: TEST_PASSWORD }, ip: '198.51.100.1' }));
     expect(signedIn.id).toBe(user.id);
     expect(await (await getEm()).count(AuditEventSchema, { actorUserId: user.id, action: 'user.signed-in' })).toBe(1);
   });
 
   it('gives the same message for an unknown account and a wrong password', async () => {
     const user = await makeUser(await getEm());
-    const a = await expectAppError(signIn({ em: await getEm(), input: { email: user.email, password: 'wrong-password-1' }, ip: '198.51.100.2' }), 'invalid');
-    const b = await expectAppError(signIn({ em: await getEm(), input: { email: uniqueEmail('nobody'), password: 'wrong-password-1' }, ip: '198.51.100.2' }), 'invalid');
+    const a = await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-password-1' }, ip: '198.51.100.2' })), 'invalid');
+    const b = await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: uniqueEmail('nobody'), password: 'wrong-password-1' }, ip: '198.51.100.2' })), 'invalid');
     expect(a.message).toBe(b.message);
   });
 
   it(`locks an account after ${MAX_FAILURES_PER_ACCOUNT} failures, even with the right password, and logs the lock-out`, async () => {
     const user = await makeUser(await getEm());
     for (let i = 0; i < MAX_FAILURES_PER_ACCOUNT; i++) {
-      await expectAppError(signIn({ em: await getEm(), input: { email: user.email, password: 'wrong-password-1' }, ip: `198.51.100.${10 + i}` }), 'invalid');
+      await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-password-1' }, ip: `198.51.100.${10 + i}` })), 'invalid');
     }
-    await expectAppError(signIn({ em: await getEm(), input: { email: user.email, password: TEST_PASSWORD }, ip: '198.51.100.99' }), 'rate-limited', /Too many failed sign-ins/);
+    await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: TEST_PASSWORD }, ip: '198.51.100.99' })), 'rate-limited', /Too many failed sign-ins/);
     expect(await (await getEm()).count(AuditEventSchema, { action: 'user.sign-in-locked' })).toBeGreaterThan(0);
   });
 
   it(`limits one client address after ${MAX_FAILURES_PER_ADDRESS} failures across accounts`, async () => {
     const ip = '203.0.113.77';
     for (let i = 0; i < MAX_FAILURES_PER_ADDRESS; i++) {
-      await expectAppError(signIn({ em: await getEm(), input: { email: uniqueEmail('spray'), password: 'wrong-password-1' }, ip }), 'invalid');
+      await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: uniqueEmail('spray'), password: 'wrong-password-1' }, ip })), 'invalid');
     }
     const user = await makeUser(await getEm());
-    await expectAppError(signIn({ em: await getEm(), input: { email: user.email, password: TEST_PASSWORD }, ip }), 'rate-limited');
+    await expectAppError(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: TEST_PASSWORD }, ip })), 'rate-limited');
     // Another address is not affected.
-    await expect(signIn({ em: await getEm(), input: { email: user.email, password: TEST_PASSWORD }, ip: '203.0.113.78' })).resolves.toBeTruthy();
+    await expect(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: TEST_PASSWORD }, ip: '203.0.113.78' }))).resolves.toBeTruthy();
   });
 });
 
@@ -148,37 +148,37 @@ describe('password reset and change', () => {
     const user = await makeUser(await getEm());
     await sessionFor(user.id);
     await sessionFor(user.id);
-    await requestPasswordReset({ em: await getEm(), input: { email: user.email } });
+    await inUnitOfWork((w) => requestPasswordReset({ ...w, input: { email: user.email } }));
     const token = await tokenFromOutbox(user.email, 'reset');
-    await resetPassword({ em: await getEm(), input: { token, password: 'new-keel-plate-42' } });
+    await inUnitOfWork((w) => resetPassword({ ...w, input: { token, password: 'new-keel-plate-42' } }));
     expect(await (await getEm()).count(SessionSchema, { user: user.id })).toBe(0);
-    await expect(signIn({ em: await getEm(), input: { email: user.email, password: 'new-keel-plate-42' }, ip: '192.0.2.1' })).resolves.toBeTruthy();
-    await expectAppError(resetPassword({ em: await getEm(), input: { token, password: 'another-keel-43' } }), 'invalid', /already used/);
+    await expect(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'new-keel-plate-42' }, ip: '192.0.2.1' }))).resolves.toBeTruthy();
+    await expectAppError(inUnitOfWork((w) => resetPassword({ ...w, input: { token, password: 'another-keel-43' } })), 'invalid', /already used/);
   });
 
   it('refuses an expired reset token (older than one hour) and keeps the old password', async () => {
     const user = await makeUser(await getEm());
-    await requestPasswordReset({ em: await getEm(), input: { email: user.email } });
+    await inUnitOfWork((w) => requestPasswordReset({ ...w, input: { email: user.email } }));
     const token = await tokenFromOutbox(user.email, 'reset');
     const row = await (await getEm()).findOneOrFail(UserTokenSchema, { tokenHash: hashToken(token) });
     expect(Math.abs(row.expiresAt.getTime() - row.createdAt.getTime() - 3_600_000)).toBeLessThan(1000); // one hour
     await (await getEm()).nativeUpdate(UserTokenSchema, { id: row.id }, { expiresAt: new Date(Date.now() - 1000) });
-    await expectAppError(resetPassword({ em: await getEm(), input: { token, password: 'new-keel-plate-42' } }), 'invalid', /expired/);
-    await expect(signIn({ em: await getEm(), input: { email: user.email, password: TEST_PASSWORD }, ip: '192.0.2.2' })).resolves.toBeTruthy();
+    await expectAppError(inUnitOfWork((w) => resetPassword({ ...w, input: { token, password: 'new-keel-plate-42' } })), 'invalid', /expired/);
+    await expect(inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: TEST_PASSWORD }, ip: '192.0.2.2' }))).resolves.toBeTruthy();
   });
 
   it('says nothing about unknown addresses and queues nothing for them', async () => {
     const email = uniqueEmail('ghost');
-    await expect(requestPasswordReset({ em: await getEm(), input: { email } })).resolves.toBeUndefined();
+    await expect(inUnitOfWork((w) => requestPasswordReset({ ...w, input: { email } }))).resolves.toBeUndefined();
     expect(await (await getEm()).count(OutboxMessageSchema, { toAddress: email })).toBe(0);
   });
 
   it('a password change needs the current password and ends all sessions', async () => {
     const user = await makeUser(await getEm());
     await sessionFor(user.id);
-    await expectAppError(changePassword({ em: await getEm(), userId: user.id, input: { currentPassword: 'not-it-at-all', password: 'fresh-anode-bolt-1' } }), 'invalid');
+    await expectAppError(inUnitOfWork((w) => changePassword({ ...w, userId: user.id, input: { currentPassword: 'not-it-at-all', password: 'fresh-anode-bolt-1' } })), 'invalid');
     expect(await (await getEm()).count(SessionSchema, { user: user.id })).toBe(1);
-    await changePassword({ em: await getEm(), userId: user.id, input: { currentPassword: TEST_PASSWORD, password: 'fresh-anode-bolt-1' } });
+    await inUnitOfWork((w) => changePassword({ ...w, userId: user.id, input: { currentPassword: TEST_PASSWORD, password: 'fresh-anode-bolt-1' } }));
     expect(await (await getEm()).count(SessionSchema, { user: user.id })).toBe(0);
   });
 });

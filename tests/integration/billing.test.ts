@@ -8,7 +8,7 @@ import { getStripe } from '@/lib/server/billing/stripe';
 import { setCancelAtPeriodEnd, startCheckout } from '@/lib/server/services/billing/manage-subscription';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { exportAnodeRegisterCsv } from '@/lib/server/services/register/list-anode-groups';
-import { ctxFor, makeOrgWithRoles } from '../fixtures/factories';
+import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 
 // These tests drive the local Stripe fake (started by `npm test`) through the official SDK, then hand the
 // events it recorded to our webhook endpoint, signed the way the payment service signs them.
@@ -54,7 +54,7 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
 
   it('checkout with a card that succeeds, then the signed webhook, makes the plan active', async () => {
     since = Math.floor(Date.now() / 1000) - 1;
-    const url = await startCheckout(await ctx(), { plan: 'harbour' });
+    const url = await runAs(ctx(), (c) => startCheckout(c, { plan: 'harbour' }));
     expect(url).toMatch(/\/checkout\/cs_/);
     const paid = await pay(url, '4242424242424242');
     expect(paid.status).toBe(303);
@@ -96,15 +96,15 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
   });
 
   it('enforces the plan limit on active assets (Harbour: 3)', async () => {
-    for (let i = 1; i <= 3; i++) await createAsset(await ctx('engineer'), { kind: 'vessel', name: `Limit boat ${i}`, hullMaterial: 'steel' });
-    const refused = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Limit boat 4', hullMaterial: 'steel' }).catch((e) => e);
+    for (let i = 1; i <= 3; i++) await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: `Limit boat ${i}`, hullMaterial: 'steel' }));
+    const refused = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Limit boat 4', hullMaterial: 'steel' })).catch((e) => e);
     expect(refused.code).toBe('conflict');
     expect(refused.message).toMatch(/Harbour plan covers 3/);
   });
 
   it('a declined card leaves the subscription as it was', async () => {
     const before = await reload();
-    const url = await startCheckout(await ctx(), { plan: 'armada' });
+    const url = await runAs(ctx(), (c) => startCheckout(c, { plan: 'armada' }));
     const declined = await pay(url, '4000000000000002');
     expect(declined.status).toBe(402);
     expect(await declined.text()).toContain('Your card was declined.');
@@ -115,7 +115,7 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
   });
 
   it('cancelling at period end keeps it active until then; events out of order still leave the current state', async () => {
-    await setCancelAtPeriodEnd(await ctx(), true);
+    await runAs(ctx(), (c) => setCancelAtPeriodEnd(c, true));
     expect((await reload()).cancelAtPeriodEnd).toBe(true);
     const o = await reload();
     // The period ends: the subscription is deleted at the payment service.
@@ -133,13 +133,13 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
   });
 
   it('a lapsed subscription makes the organisation read-only; reading and exports still work, nothing is deleted', async () => {
-    const refused = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'After lapse', hullMaterial: 'steel' }).catch((e) => e);
+    const refused = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'After lapse', hullMaterial: 'steel' })).catch((e) => e);
     expect(refused.code).toBe('read-only');
     expect(refused.message).toMatch(/read-only/);
-    const csv = await exportAnodeRegisterCsv(await ctx('viewer'));
+    const csv = await runAs(ctx('viewer'), (c) => exportAnodeRegisterCsv(c));
     expect(csv.split('\r\n')[0]).toMatch(/^asset,asset_kind/);
     // The owner can still reach billing to renew.
-    const url = await startCheckout(await ctx(), { plan: 'fleet' });
+    const url = await runAs(ctx(), (c) => startCheckout(c, { plan: 'fleet' }));
     expect(url).toMatch(/\/checkout\/cs_/);
   });
 
@@ -147,7 +147,7 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
     const fresh = await makeOrgWithRoles(await getEm(), 'Past Due Marine');
     const owner = await ctxFor(await getEm(), fresh.organisation, fresh.users.owner);
     const t = Math.floor(Date.now() / 1000) - 1;
-    const url = await startCheckout(owner, { plan: 'fleet' });
+    const url = await runAs(owner, (c) => startCheckout(c, { plan: 'fleet' }));
     await pay(url, '4242424242424242');
     const customer = (await (await getEm()).findOneOrFail(OrganisationSchema, { id: fresh.organisation.id })).stripeCustomerId!;
     await deliverAll(customer, t);
@@ -159,6 +159,6 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
     expect(o.subscriptionStatus).toBe('past_due');
     expect(o.pastDueSince).toBeInstanceOf(Date);
     const engineer = await ctxFor(await getEm(), o, fresh.users.engineer);
-    await expect(createAsset(engineer, { kind: 'vessel', name: 'Within grace', hullMaterial: 'steel' })).resolves.toBeTruthy();
+    await expect(runAs(engineer, (c) => createAsset(c, { kind: 'vessel', name: 'Within grace', hullMaterial: 'steel' }))).resolves.toBeTruthy();
   });
 });

@@ -10,7 +10,7 @@ import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
 import { newRevision } from '@/lib/server/services/designs/new-revision';
 import { renderCalculationNote } from '@/lib/server/services/designs/calculation-note';
-import { ctxFor, makeOrgWithRoles, makeUser } from '../fixtures/factories';
+import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 import { MembershipSchema, OrganisationSchema } from '@/entities';
 import { pdfText } from '../fixtures/pdf-text';
 
@@ -29,14 +29,14 @@ beforeAll(async () => {
   em.create(MembershipSchema, { organisation: em.getReference(OrganisationSchema, organisation.id), user: secondEngineer, role: 'engineer' });
   await em.flush();
   // Invented particulars for the test: a 90 m ferry.
-  const vessel = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Test Ferry', lengthBppM: 90, beamM: 16, draughtM: 4.2, blockCoefficient: 0.6, hullMaterial: 'steel' });
+  const vessel = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Test Ferry', lengthBppM: 90, beamM: 16, draughtM: 4.2, blockCoefficient: 0.6, hullMaterial: 'steel' }));
   vesselId = vessel.id;
 });
 afterAll(async () => (await getOrm()).close(true));
 
 describe('design revisions', () => {
   it('a new design starts from Denny-Mumford zones and stores inputs, results, basis and app version together', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
     const stored = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
     expect(stored.revision).toBe(1);
     expect(stored.status).toBe('draft');
@@ -50,18 +50,18 @@ describe('design revisions', () => {
   });
 
   it('saving recomputes the results; invalid inputs are refused with the field named and nothing changes', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
     const before = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
     const inputs = structuredClone(before.inputs) as ReturnType<typeof defaultInputs>;
     const countBefore = (before.results as { anodeCount: number }).anodeCount;
     inputs.surfaces[0].areaM2 *= 3;
-    await saveDesign(await ctx('engineer'), design.id, { title: 'Bigger bottom', inputs });
+    await runAs(ctx('engineer'), (c) => saveDesign(c, design.id, { title: 'Bigger bottom', inputs }));
     const after = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
     expect((after.results as { anodeCount: number }).anodeCount).toBeGreaterThan(countBefore);
 
     const bad = structuredClone(inputs);
     bad.surfaces[0].areaM2 = -5;
-    const error = await saveDesign(await ctx('engineer'), design.id, { title: 'Bad', inputs: bad }).catch((e) => e);
+    const error = await runAs(ctx('engineer'), (c) => saveDesign(c, design.id, { title: 'Bad', inputs: bad })).catch((e) => e);
     expect(error.issues?.[0]?.path).toEqual(['inputs', 'surfaces', 0, 'areaM2']);
     const unchanged = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
     expect(unchanged.title).toBe('Bigger bottom');
@@ -69,24 +69,24 @@ describe('design revisions', () => {
   });
 
   it('the preparer never approves their own revision; a second engineer does, and the revision becomes immutable', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
-    expect(await code(approveDesign(await ctx('engineer'), design.id))).toBe('forbidden');
-    expect(await code(checkDesign(await ctx('engineer'), design.id))).toBe('forbidden');
-    await checkDesign(await ctx(secondEngineer), design.id);
-    const approved = await approveDesign(await ctx(secondEngineer), design.id);
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
+    expect(await code(runAs(ctx('engineer'), (c) => approveDesign(c, design.id)))).toBe('forbidden');
+    expect(await code(runAs(ctx('engineer'), (c) => checkDesign(c, design.id)))).toBe('forbidden');
+    await runAs(ctx(secondEngineer), (c) => checkDesign(c, design.id));
+    const approved = await runAs(ctx(secondEngineer), (c) => approveDesign(c, design.id));
     expect(approved.status).toBe('approved');
     expect(approved.approvedBy?.id).toBe(secondEngineer.id);
     expect(approved.checkedBy?.id).toBe(secondEngineer.id);
     const stored = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
-    expect(await code(saveDesign(await ctx('engineer'), design.id, { title: 'Change', inputs: stored.inputs }))).toBe('conflict');
-    expect(await code(approveDesign(await ctx('owner'), design.id))).toBe('conflict');
+    expect(await code(runAs(ctx('engineer'), (c) => saveDesign(c, design.id, { title: 'Change', inputs: stored.inputs })))).toBe('conflict');
+    expect(await code(runAs(ctx('owner'), (c) => approveDesign(c, design.id)))).toBe('conflict');
     expect(await (await getEm()).count(AuditEventSchema, { organisationId: organisation.id, action: 'design.approved', targetId: design.id })).toBe(1);
   });
 
   it('a change to an approved design makes a new revision with the same inputs', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
-    await approveDesign(await ctx(secondEngineer), design.id);
-    const revised = await newRevision(await ctx('engineer'), design.id);
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
+    await runAs(ctx(secondEngineer), (c) => approveDesign(c, design.id));
+    const revised = await runAs(ctx('engineer'), (c) => newRevision(c, design.id));
     const [a, b] = await Promise.all([(await getEm()).findOneOrFail(DesignSchema, { id: design.id }), (await getEm()).findOneOrFail(DesignSchema, { id: revised.id })]);
     expect(b.revision).toBeGreaterThan(a.revision);
     expect(b.basedOnRevision).toBe(a.revision);
@@ -96,10 +96,10 @@ describe('design revisions', () => {
   });
 
   it('a checked draft that changes needs checking again', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
-    await checkDesign(await ctx(secondEngineer), design.id);
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
+    await runAs(ctx(secondEngineer), (c) => checkDesign(c, design.id));
     const stored = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
-    await saveDesign(await ctx('engineer'), design.id, { title: 'Edited after check', inputs: stored.inputs });
+    await runAs(ctx('engineer'), (c) => saveDesign(c, design.id, { title: 'Edited after check', inputs: stored.inputs }));
     const after = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
     expect(after.status).toBe('draft');
     expect(after.checkedBy).toBeNull();
@@ -107,20 +107,20 @@ describe('design revisions', () => {
 
   it('only engineers and owners write designs; only they approve', async () => {
     for (const role of ['planner', 'inspector', 'viewer'] as const) {
-      expect(await code(createDesign(await ctx(role), { assetId: vesselId }))).toBe('forbidden');
+      expect(await code(runAs(ctx(role), (c) => createDesign(c, { assetId: vesselId })))).toBe('forbidden');
     }
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
     for (const role of ['planner', 'inspector', 'viewer'] as const) {
-      expect(await code(approveDesign(await ctx(role), design.id))).toBe('forbidden');
+      expect(await code(runAs(ctx(role), (c) => approveDesign(c, design.id)))).toBe('forbidden');
     }
-    expect(await code(approveDesign(await ctx('owner'), design.id))).toBe('ok');
+    expect(await code(runAs(ctx('owner'), (c) => approveDesign(c, design.id)))).toBe('ok');
   });
 
   it('another organisation cannot see or use an asset or design (not found)', async () => {
     const other = await makeOrgWithRoles(await getEm(), 'Elsewhere Marine');
     const outsider = await ctxFor(await getEm(), other.organisation, other.users.engineer);
     expect(await code(createDesign(outsider, { assetId: vesselId }))).toBe('not-found');
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId });
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId }));
     expect(await code(approveDesign(outsider, design.id))).toBe('not-found');
     expect(await code(renderCalculationNote(outsider, design.id))).toBe('not-found');
   });
@@ -130,27 +130,27 @@ describe('the desk computation', () => {
   it('explains inputs that cannot be sized instead of failing, and compares every suitable model', async () => {
     const vessel = await (await getEm()).findOneOrFail(AssetSchema, { id: vesselId });
     const inputs = defaultInputs(vessel, []);
-    const desk = await computeDesk(await ctx('viewer'), inputs);
+    const desk = await runAs(ctx('viewer'), (c) => computeDesk(c, inputs));
     expect(desk.result?.anodeCount).toBeGreaterThan(0);
     // Magnesium is not offered in seawater (practice: it over-protects and wastes fast).
     expect(desk.options.some((o) => o.alloy === 'magnesium')).toBe(false);
     expect(desk.options.filter((o) => o.suitable).length).toBeGreaterThan(5);
 
     const magnesiumOnAluminium = { ...inputs, hullMaterial: 'aluminium', protectedMetal: 'aluminium', anodeModelKey: 'builtin:TW-MB-3015' };
-    const refused = await computeDesk(await ctx('viewer'), magnesiumOnAluminium);
+    const refused = await runAs(ctx('viewer'), (c) => computeDesk(c, magnesiumOnAluminium));
     expect(refused.result).toBeNull();
     expect(refused.error?.message).toMatch(/magnesium/i);
   });
 
   it('notes table current densities used outside seawater', async () => {
     const vessel = await (await getEm()).findOneOrFail(AssetSchema, { id: vesselId });
-    const desk = await computeDesk(await ctx('viewer'), { ...defaultInputs(vessel, []), water: 'fresh', resistivityOhmM: 30, anodeModelKey: 'builtin:TW-MB-3015' });
+    const desk = await runAs(ctx('viewer'), (c) => computeDesk(c, { ...defaultInputs(vessel, []), water: 'fresh', resistivityOhmM: 30, anodeModelKey: 'builtin:TW-MB-3015' }));
     expect(desk.notices.map((n) => n.code)).toContain('table-density-outside-seawater');
   });
 
   it('refuses an anode model that is not in the catalogue', async () => {
     const vessel = await (await getEm()).findOneOrFail(AssetSchema, { id: vesselId });
-    const error = await computeDesk(await ctx('viewer'), { ...defaultInputs(vessel, []), anodeModelKey: 'builtin:NOPE' }).catch((e) => e);
+    const error = await runAs(ctx('viewer'), (c) => computeDesk(c, { ...defaultInputs(vessel, []), anodeModelKey: 'builtin:NOPE' })).catch((e) => e);
     expect(error.code).toBe('invalid');
     expect(error.fieldErrors.anodeModelKey).toBeTruthy();
   });
@@ -158,9 +158,9 @@ describe('the desk computation', () => {
 
 describe('the calculation note', () => {
   it('prints inputs, results, the governing criterion, signatures and the cautions', async () => {
-    const design = await createDesign(await ctx('engineer'), { assetId: vesselId, title: 'Note test design' });
-    await approveDesign(await ctx(secondEngineer), design.id);
-    const { pdf, filename } = await renderCalculationNote(await ctx('viewer'), design.id);
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId, title: 'Note test design' }));
+    await runAs(ctx(secondEngineer), (c) => approveDesign(c, design.id));
+    const { pdf, filename } = await runAs(ctx('viewer'), (c) => renderCalculationNote(c, design.id));
     expect(filename).toMatch(/\.pdf$/);
     expect(Buffer.from(pdf.subarray(0, 5)).toString()).toBe('%PDF-');
     const pages = (await pdfText(pdf)).split('\n');

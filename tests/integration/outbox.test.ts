@@ -1,6 +1,7 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { OutboxMessageSchema } from '@/entities';
 import { getEm, getOrm } from '@/lib/server/db';
+import { Effects } from '@/lib/server/unit-of-work';
 import { deliverDueMail, enqueueMail, retryDelayMs } from '@/lib/server/mail/outbox';
 import { uniqueEmail } from '../fixtures/factories';
 
@@ -25,7 +26,7 @@ describe('the e-mail outbox', () => {
   it('keeps a message while the SMTP server is down and delivers it once it is back', async () => {
     const to = uniqueEmail('outbox');
     const em = await getEm();
-    const message = enqueueMail(em, { to, subject: 'Docking reminder', text: 'Anode list attached.', attachments: [{ filename: 'list.csv', contentType: 'text/csv', content: Buffer.from('a,b').toString('base64') }] });
+    const message = enqueueMail({ em, effects: new Effects() }, { to, subject: 'Docking reminder', text: 'Anode list attached.', attachments: [{ filename: 'list.csv', contentType: 'text/csv', content: Buffer.from('a,b').toString('base64') }] });
     await em.flush();
 
     await setFake('down');
@@ -62,7 +63,7 @@ describe('the e-mail outbox', () => {
   it('two deliverers running at once send each message exactly once', async () => {
     const to = uniqueEmail('race');
     const em = await getEm();
-    for (let i = 0; i < 6; i++) enqueueMail(em, { to, subject: `Message ${i}`, text: 'x' });
+    for (let i = 0; i < 6; i++) enqueueMail({ em, effects: new Effects() }, { to, subject: `Message ${i}`, text: 'x' });
     await em.flush();
     await Promise.all([deliverDueMail(await getEm()), deliverDueMail(await getEm()), deliverDueMail(await getEm())]);
     expect(await received(to)).toHaveLength(6);

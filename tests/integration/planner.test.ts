@@ -11,7 +11,7 @@ import { recomputeRenewals } from '@/lib/server/services/planner/recompute-renew
 import { anodeListPdf } from '@/lib/server/services/planner/anode-list';
 import { queueDockingReminders } from '@/lib/server/services/reminders/docking-reminders';
 import { queueWeeklyDigests } from '@/lib/server/services/reminders/weekly-digest';
-import { ctxFor, makeOrgWithRoles } from '../fixtures/factories';
+import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { pdfText } from '../fixtures/pdf-text';
 
 let org: { organisation: Organisation; users: Record<Role, User> };
@@ -23,16 +23,16 @@ const dockings: Record<string, string> = {};
 
 beforeAll(async () => {
   org = await makeOrgWithRoles(await getEm(), 'Planner Test Shipping');
-  const vessel = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Plannable', hullMaterial: 'steel', lengthBppM: 60, beamM: 12, draughtM: 3.5, blockCoefficient: 0.6 });
+  const vessel = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Plannable', hullMaterial: 'steel', lengthBppM: 60, beamM: 12, draughtM: 3.5, blockCoefficient: 0.6 }));
   vesselId = vessel.id;
   // Hand check (invented group): 10 x TW-AW-4020, 7.7 kg net each = 77 kg; u = 0.80 (short flush, DNV-RP-B401 (2010)
   // Table 10-8, from memory); eps = 2000 Ah/kg (DNV-RP-B401 (2010) Table 10-6, from memory); mean current 5 A.
   // Consumption I x 8760 / eps = 21.9 kg/yr (handbook practice); usable 0.8 x 77 = 61.6 kg -> life 2.813 years.
   // Installed 365 days ago: end of life about today + 662 days; deadline (6-month margin) about today + 480 days.
-  const group = await createAnodeGroup(await ctx('engineer'), vesselId, { label: 'Bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 });
+  const group = await runAs(ctx('engineer'), (c) => createAnodeGroup(c, vesselId, { label: 'Bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 }));
   groupId = group.id;
   for (const [name, offset] of [['D1', 200], ['D2', 400], ['D3', 600]] as const) {
-    dockings[name] = (await createDocking(await ctx('planner'), { assetId: vesselId, kind: 'intermediate', plannedStart: day(offset), yard: `Yard ${name}` })).id;
+    dockings[name] = (await runAs(ctx('planner'), (c) => createDocking(c, { assetId: vesselId, kind: 'intermediate', plannedStart: day(offset), yard: `Yard ${name}` }))).id;
   }
 });
 afterAll(async () => (await getOrm()).close(true));
@@ -51,13 +51,13 @@ describe('renewal proposals', () => {
 
   it('moves a proposal when the dockings change, but never a confirmed renewal', async () => {
     // D2 slips past the deadline: the proposal moves back to D1.
-    await updateDocking(await ctx('planner'), dockings.D2, { kind: 'intermediate', status: 'planned', plannedStart: day(520) });
+    await runAs(ctx('planner'), (c) => updateDocking(c, dockings.D2, { kind: 'intermediate', status: 'planned', plannedStart: day(520) }));
     let rows = await renewalsOf();
     expect(rows.map((r) => [r.status, r.docking.id])).toEqual([['proposed', dockings.D1]]);
-    await confirmRenewal(await ctx('planner'), rows[0].id);
+    await runAs(ctx('planner'), (c) => confirmRenewal(c, rows[0].id));
     // D2 comes back before the deadline; a recompute would now pick D2, but the confirmed booking stays at D1.
-    await updateDocking(await ctx('planner'), dockings.D2, { kind: 'intermediate', status: 'planned', plannedStart: day(400) });
-    await recomputeRenewals(await ctx('planner'), [vesselId]);
+    await runAs(ctx('planner'), (c) => updateDocking(c, dockings.D2, { kind: 'intermediate', status: 'planned', plannedStart: day(400) }));
+    await runAs(ctx('planner'), (c) => recomputeRenewals(c, [vesselId]));
     rows = await renewalsOf();
     expect(rows.map((r) => [r.status, r.docking.id])).toEqual([['confirmed', dockings.D1]]);
   });
@@ -65,16 +65,16 @@ describe('renewal proposals', () => {
   it('only planners and owners change renewals', async () => {
     const [r] = await renewalsOf();
     for (const role of ['engineer', 'inspector', 'viewer'] as const) {
-      const error = await markRenewalOrdered(await ctx(role), r.id).catch((e) => e);
+      const error = await runAs(ctx(role), (c) => markRenewalOrdered(c, r.id)).catch((e) => e);
       expect(error.code).toBe('forbidden');
     }
-    await markRenewalOrdered(await ctx('planner'), r.id);
+    await runAs(ctx('planner'), (c) => markRenewalOrdered(c, r.id));
     expect((await renewalsOf())[0].status).toBe('ordered');
   });
 
   it('fitting creates the new group and closes the old one, keeping the link', async () => {
     const [r] = await renewalsOf();
-    const { newGroup } = await markRenewalFitted(await ctx('planner'), r.id, { fittedOn: day(0) });
+    const { newGroup } = await runAs(ctx('planner'), (c) => markRenewalFitted(c, r.id, { fittedOn: day(0) }));
     const old = await (await getEm()).findOneOrFail(AnodeGroupSchema, { id: groupId });
     expect(old.removedOn).toBe(day(0));
     const fresh = await (await getEm()).findOneOrFail(AnodeGroupSchema, { id: newGroup.id });
@@ -92,8 +92,8 @@ describe('renewal proposals', () => {
 
   it('a proposal the planner cancels is not proposed again at the same docking', async () => {
     const [r] = await renewalsOf();
-    await cancelRenewal(await ctx('planner'), r.id);
-    await recomputeRenewals(await ctx('planner'), [vesselId]);
+    await runAs(ctx('planner'), (c) => cancelRenewal(c, r.id));
+    await runAs(ctx('planner'), (c) => recomputeRenewals(c, [vesselId]));
     const rows = await renewalsOf();
     expect(rows.map((x) => x.status)).toEqual(['cancelled']);
   });
@@ -101,18 +101,18 @@ describe('renewal proposals', () => {
 
 describe('editing a renewal', () => {
   it('a planner moves a proposal to another docking of the asset with a new quantity; it becomes the planner\'s own', async () => {
-    const boat = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Movable', hullMaterial: 'steel' });
-    const group = await createAnodeGroup(await ctx('engineer'), boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 });
-    const early = await createDocking(await ctx('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(100) });
-    const late = await createDocking(await ctx('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(300) });
-    const other = await createDocking(await ctx('planner'), { assetId: vesselId, kind: 'unplanned', plannedStart: day(120) });
+    const boat = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Movable', hullMaterial: 'steel' }));
+    const group = await runAs(ctx('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 }));
+    const early = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(100) }));
+    const late = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(300) }));
+    const other = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: vesselId, kind: 'unplanned', plannedStart: day(120) }));
     const [proposal] = await renewalsOf(group.id);
     expect(proposal.status).toBe('proposed');
     const target = proposal.docking.id === early.id ? late.id : early.id;
-    const refused = await updateRenewal(await ctx('planner'), proposal.id, { quantity: 10, dockingId: other.id }).catch((e) => e);
+    const refused = await runAs(ctx('planner'), (c) => updateRenewal(c, proposal.id, { quantity: 10, dockingId: other.id })).catch((e) => e);
     expect(refused.code).toBe('invalid');
-    await updateRenewal(await ctx('planner'), proposal.id, { quantity: 10, dockingId: target, notes: 'Yard has the slot' });
-    await recomputeRenewals(await ctx('planner'), [boat.id]);
+    await runAs(ctx('planner'), (c) => updateRenewal(c, proposal.id, { quantity: 10, dockingId: target, notes: 'Yard has the slot' }));
+    await runAs(ctx('planner'), (c) => recomputeRenewals(c, [boat.id]));
     const rows = await renewalsOf(group.id);
     expect(rows.map((r) => [r.status, r.docking.id, r.quantity])).toEqual([['confirmed', target, 10]]);
   });
@@ -122,19 +122,19 @@ describe('the renewal margin', () => {
   it('an owner widens the margin and the proposal moves to the earlier docking; others may not change it', async () => {
     const fleet = await makeOrgWithRoles(await getEm(), 'Margin Marine');
     const as = async (role: Role) => ctxFor(await getEm(), fleet.organisation, fleet.users[role]);
-    const boat = await createAsset(await as('engineer'), { kind: 'vessel', name: 'Margin Boat', hullMaterial: 'steel' });
+    const boat = await runAs(as('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Margin Boat', hullMaterial: 'steel' }));
     // 12 x TW-ZW-3015 (8.4 kg, zinc 780 Ah/kg: DNV-RP-B401 (2010) Table 10-6, from memory) at 2 A: 22.46 kg/yr,
     // usable 0.8 x 100.8 kg -> 3.59 years; installed 400 days ago -> end of life about today + 912 days.
-    const group = await createAnodeGroup(await as('engineer'), boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 });
-    const d500 = await createDocking(await as('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(500) });
-    const d700 = await createDocking(await as('planner'), { assetId: boat.id, kind: 'intermediate', plannedStart: day(700) });
+    const group = await runAs(as('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 }));
+    const d500 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(500) }));
+    const d700 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(700) }));
     // Margin 6 months: deadline about today + 730 days -> the docking at 700 days.
     expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d700.id]);
     const { updateOrganisationSettings } = await import('@/lib/server/services/accounts/update-organisation-settings');
-    const refused = await updateOrganisationSettings(await as('planner'), { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '', currency: 'EUR' }).catch((e) => e);
+    const refused = await runAs(as('planner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '', currency: 'EUR' })).catch((e) => e);
     expect(refused.code).toBe('forbidden');
     // Margin 12 months: deadline about today + 547 days -> the docking at 500 days.
-    await updateOrganisationSettings(await as('owner'), { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '14.5', currency: 'EUR' });
+    await runAs(as('owner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '14.5', currency: 'EUR' }));
     expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d500.id]);
   });
 });
@@ -142,13 +142,13 @@ describe('the renewal margin', () => {
 describe('anode list and reminders', () => {
   let soonId: string;
   beforeAll(async () => {
-    const boat = await createAsset(await ctx('engineer'), { kind: 'vessel', name: 'Soon Docking', hullMaterial: 'steel' });
-    await createAnodeGroup(await ctx('engineer'), boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 20, installedOn: day(-700), meanCurrentA: 2.5 });
-    soonId = (await createDocking(await ctx('planner'), { assetId: boat.id, kind: 'unplanned', plannedStart: day(25), yard: 'Quayside Works' })).id;
+    const boat = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Soon Docking', hullMaterial: 'steel' }));
+    await runAs(ctx('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 20, installedOn: day(-700), meanCurrentA: 2.5 }));
+    soonId = (await runAs(ctx('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'unplanned', plannedStart: day(25), yard: 'Quayside Works' }))).id;
   });
 
   it('prints the anode list with the vessel, the yard and the total net mass', async () => {
-    const { pdf } = await anodeListPdf(await ctx('viewer'), soonId);
+    const { pdf } = await runAs(ctx('viewer'), (c) => anodeListPdf(c, soonId));
     const text = (await pdfText(pdf)).replace(/\s+/g, ' ');
     expect(text).toContain('Soon Docking');
     expect(text).toContain('Quayside Works');

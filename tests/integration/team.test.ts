@@ -12,7 +12,7 @@ import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { getTeam } from '@/lib/server/services/team/get-team';
 import { getAuditLog } from '@/lib/server/services/accounts/get-audit-log';
 import { hashToken } from '@/lib/server/tokens';
-import { ctxFor, makeOrgWithRoles, makeUser, uniqueEmail } from '../fixtures/factories';
+import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, uniqueEmail, runAs } from '../fixtures/factories';
 
 let organisation: Organisation;
 let users: Record<Role, User>;
@@ -52,12 +52,12 @@ describe('team permissions by role', () => {
 describe('invitations', () => {
   it('a new person accepts: the account is created confirmed, with the invited role, and the link then stops working', async () => {
     const email = uniqueEmail('newcomer');
-    const { token } = await inviteMember(await ctx('owner'), { email, role: 'engineer' });
-    const { user } = await acceptInvitationAsNewUser({ em: await getEm(), input: { token, name: 'New Comer', password: 'jetty-pile-bent-4B' } });
+    const { token } = await runAs(ctx('owner'), (c) => inviteMember(c, { email, role: 'engineer' }));
+    const { user } = await inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: 'New Comer', password: 'jetty-pile-bent-4B' } }));
     const membership = await (await getEm()).findOneOrFail(MembershipSchema, { user: user.id, organisation });
     expect(membership.role).toBe('engineer');
     expect((await (await getEm()).findOneOrFail(UserSchema, { id: user.id })).emailVerifiedAt).not.toBeNull();
-    const again = await acceptInvitationAsNewUser({ em: await getEm(), input: { token, name: 'X', password: 'jetty-pile-bent-4B' } }).catch((e) => e);
+    const again = await inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: 'X', password: 'jetty-pile-bent-4B' } })).catch((e) => e);
     expect(again).toBeInstanceOf(AppError);
     expect(again.message).toMatch(/already accepted/);
   });
@@ -65,17 +65,17 @@ describe('invitations', () => {
   it('an existing user accepts with the invited address; another address is refused', async () => {
     const existing = await makeUser(await getEm());
     const stranger = await makeUser(await getEm());
-    const { token } = await inviteMember(await ctx('owner'), { email: existing.email, role: 'planner' });
-    const refused = await acceptInvitationAsUser({ em: await getEm(), user: currentUser(stranger), input: { token } }).catch((e) => e);
+    const { token } = await runAs(ctx('owner'), (c) => inviteMember(c, { email: existing.email, role: 'planner' }));
+    const refused = await inUnitOfWork((w) => acceptInvitationAsUser({ ...w, user: currentUser(stranger), input: { token } })).catch((e) => e);
     expect(refused).toBeInstanceOf(AppError);
     expect(refused.code).toBe('forbidden');
     expect(await (await getEm()).count(MembershipSchema, { user: stranger.id })).toBe(0);
-    await acceptInvitationAsUser({ em: await getEm(), user: currentUser(existing), input: { token } });
+    await inUnitOfWork((w) => acceptInvitationAsUser({ ...w, user: currentUser(existing), input: { token } }));
     expect((await (await getEm()).findOneOrFail(MembershipSchema, { user: existing.id, organisation })).role).toBe('planner');
   });
 
   it('stores only the hash of the token, and expires after 7 days', async () => {
-    const { token, invitation } = await inviteMember(await ctx('owner'), { email: uniqueEmail('hash'), role: 'viewer' });
+    const { token, invitation } = await runAs(ctx('owner'), (c) => inviteMember(c, { email: uniqueEmail('hash'), role: 'viewer' }));
     const row = await (await getEm()).findOneOrFail(InvitationSchema, { id: invitation.id });
     expect(row.tokenHash).toBe(hashToken(token));
     expect(row.tokenHash).not.toContain(token);
@@ -84,22 +84,22 @@ describe('invitations', () => {
 
   it('refuses an expired invitation and creates nothing', async () => {
     const email = uniqueEmail('late');
-    const { token, invitation } = await inviteMember(await ctx('owner'), { email, role: 'viewer' });
+    const { token, invitation } = await runAs(ctx('owner'), (c) => inviteMember(c, { email, role: 'viewer' }));
     await (await getEm()).nativeUpdate(InvitationSchema, { id: invitation.id }, { expiresAt: subDays(new Date(), 1) });
-    const error = await acceptInvitationAsNewUser({ em: await getEm(), input: { token, name: 'Late', password: 'jetty-pile-bent-4B' } }).catch((e) => e);
+    const error = await inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: 'Late', password: 'jetty-pile-bent-4B' } })).catch((e) => e);
     expect(error.message).toMatch(/expired/);
     expect(await (await getEm()).count(UserSchema, { email })).toBe(0);
   });
 
   it('a withdrawn invitation is refused; an unknown token is not found', async () => {
-    const { token, invitation } = await inviteMember(await ctx('owner'), { email: uniqueEmail('withdrawn'), role: 'viewer' });
-    await revokeInvitation(await ctx('owner'), { invitationId: invitation.id });
-    expect((await acceptInvitationAsNewUser({ em: await getEm(), input: { token, name: 'W', password: 'jetty-pile-bent-4B' } }).catch((e) => e)).message).toMatch(/withdrawn/);
-    expect((await acceptInvitationAsNewUser({ em: await getEm(), input: { token: 'y'.repeat(43), name: 'W', password: 'jetty-pile-bent-4B' } }).catch((e) => e)).code).toBe('not-found');
+    const { token, invitation } = await runAs(ctx('owner'), (c) => inviteMember(c, { email: uniqueEmail('withdrawn'), role: 'viewer' }));
+    await runAs(ctx('owner'), (c) => revokeInvitation(c, { invitationId: invitation.id }));
+    expect((await inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: 'W', password: 'jetty-pile-bent-4B' } })).catch((e) => e)).message).toMatch(/withdrawn/);
+    expect((await inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token: 'y'.repeat(43), name: 'W', password: 'jetty-pile-bent-4B' } })).catch((e) => e)).code).toBe('not-found');
   });
 
   it('refuses to invite someone who is already a member', async () => {
-    const error = await inviteMember(await ctx('owner'), { email: users.viewer.email, role: 'engineer' }).catch((e) => e);
+    const error = await runAs(ctx('owner'), (c) => inviteMember(c, { email: users.viewer.email, role: 'engineer' })).catch((e) => e);
     expect(error.code).toBe('conflict');
     expect(error.fieldErrors.email[0]).toMatch(/already a member/);
   });
@@ -108,10 +108,10 @@ describe('invitations', () => {
 describe('audit log', () => {
   it("shows owners their members' sign-ins and lock-outs, and nothing of other organisations' members", async () => {
     const { signIn } = await import('@/lib/server/services/accounts/sign-in');
-    await signIn({ em: await getEm(), input: { email: users.planner.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.50' });
+    await inUnitOfWork((w) => signIn({ ...w, input: { email: users.planner.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.50' }));
     const outsider = await makeUser(await getEm());
-    await signIn({ em: await getEm(), input: { email: outsider.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.51' });
-    const log = await getAuditLog(await ctx('owner'), { pageSize: 200 });
+    await inUnitOfWork((w) => signIn({ ...w, input: { email: outsider.email, password: 'Harbour-anodes-9921' }, ip: '192.0.2.51' }));
+    const log = await runAs(ctx('owner'), (c) => getAuditLog(c, { pageSize: 200 }));
     const signIns = log.rows.filter((r) => r.action === 'user.signed-in').map((r) => r.actor);
     expect(signIns).toContain(users.planner.email);
     expect(signIns).not.toContain(outsider.email);
@@ -122,7 +122,8 @@ describe('roles and removal', () => {
   it('changes a role and records who did it', async () => {
     const { organisation: org, users: u } = await makeOrgWithRoles(await getEm(), 'Role Change Marine');
     const owner = await ctxFor(await getEm(), org, u.owner);
-    await changeMemberRole(owner, { membershipId: (await ctxFor(await getEm(), org, u.viewer)).membership.id, role: 'inspector' });
+    const viewerMembership = (await ctxFor(await getEm(), org, u.viewer)).membership.id;
+    await runAs(owner, (c) => changeMemberRole(c, { membershipId: viewerMembership, role: 'inspector' }));
     expect((await (await getEm()).findOneOrFail(MembershipSchema, { user: u.viewer.id, organisation: org })).role).toBe('inspector');
     const event = await (await getEm()).findOneOrFail(AuditEventSchema, { organisationId: org.id, action: 'member.role-changed' });
     expect(event.actorEmail).toBe(u.owner.email);
@@ -134,19 +135,20 @@ describe('roles and removal', () => {
     const owner = await ctxFor(await getEm(), org, u.owner);
     const demote = await changeMemberRole(owner, { membershipId: owner.membership.id, role: 'viewer' }).catch((e) => e);
     expect(demote.code).toBe('conflict');
-    const remove = await removeMember(await ctxFor(await getEm(), org, u.owner), { membershipId: owner.membership.id }).catch((e) => e);
+    const remove = await runAs(ctxFor(await getEm(), org, u.owner), (c) => removeMember(c, { membershipId: owner.membership.id })).catch((e) => e);
     expect(remove.code).toBe('conflict');
     expect(await (await getEm()).count(MembershipSchema, { organisation: org, role: 'owner' })).toBe(1);
     // With a second owner, the first may step down.
-    await changeMemberRole(await ctxFor(await getEm(), org, u.owner), { membershipId: (await ctxFor(await getEm(), org, u.engineer)).membership.id, role: 'owner' });
-    await changeMemberRole(await ctxFor(await getEm(), org, u.owner), { membershipId: owner.membership.id, role: 'viewer' });
+    const engineerMembership = (await ctxFor(await getEm(), org, u.engineer)).membership.id;
+    await runAs(ctxFor(await getEm(), org, u.owner), (c) => changeMemberRole(c, { membershipId: engineerMembership, role: 'owner' }));
+    await runAs(ctxFor(await getEm(), org, u.owner), (c) => changeMemberRole(c, { membershipId: owner.membership.id, role: 'viewer' }));
     expect(await (await getEm()).count(MembershipSchema, { organisation: org, role: 'owner' })).toBe(1);
   });
 
   it('cannot touch a membership of another organisation (not found)', async () => {
     const other = await makeOrgWithRoles(await getEm(), 'Other Harbour');
     const foreign = await ctxFor(await getEm(), other.organisation, other.users.viewer);
-    const error = await removeMember(await ctx('owner'), { membershipId: foreign.membership.id }).catch((e) => e);
+    const error = await runAs(ctx('owner'), (c) => removeMember(c, { membershipId: foreign.membership.id })).catch((e) => e);
     expect(error.code).toBe('not-found');
     expect(await (await getEm()).count(MembershipSchema, { id: foreign.membership.id })).toBe(1);
   });

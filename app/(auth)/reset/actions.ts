@@ -3,12 +3,9 @@ import { redirect } from 'next/navigation';
 import { publicAction } from '@/lib/server/action';
 import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
 import { resetPassword } from '@/lib/server/services/accounts/reset-password';
-import { kickOutbox } from '@/lib/server/mail/outbox';
-import { getEm } from '@/lib/server/db';
 
-export const requestResetAction = publicAction(async ({ em, ip }, formData) => {
-  await requestPasswordReset({ em, ip, input: { email: formData.get('email') } });
-  kickOutbox(getEm);
+export const requestResetAction = publicAction(async ({ em, effects, ip }, formData) => {
+  await requestPasswordReset({ em, effects, ip, input: { email: formData.get('email') } });
   return { ok: true, message: 'If an account exists for that address, a reset link is on its way. It works once, for one hour.' };
 });
 

@@ -5,8 +5,8 @@ import { startSession } from '@/lib/server/auth/session';
 import { signIn } from '@/lib/server/services/accounts/sign-in';
 import { safeNextPath } from '@/lib/server/safe-redirect';
 
-export const signInAction = publicAction(async ({ em, ip }, formData) => {
+export const signInAction = publicAction(async ({ em, effects, ip }, formData) => {
   const user = await signIn({ em, ip, input: { email: formData.get('email'), password: formData.get('password') } });
-  await startSession(user.id);
+  effects.onCommit(() => startSession(user.id));
   redirect(safeNextPath(formData.get('next')));
 });

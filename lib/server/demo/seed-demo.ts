@@ -1,14 +1,14 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { AssetSchema, DockingSchema, MembershipSchema, OrganisationSchema, UserSchema, ZoneSchema, type Organisation, type Role, type User } from '@/entities';
 import { hashPassword } from '../auth/password';
-import { audit } from '../audit';
+import { auditEvent } from '../audit';
 import type { OrgContext } from '../org-context';
 import { createDesign } from '../services/designs/create-design';
 import { approveDesign } from '../services/designs/sign-design';
 import { createAnodeGroup } from '../services/register/anode-groups';
 import { blankParticulars } from '../services/assets/create-asset';
 import { createSurvey } from '../services/surveys/create-survey';
-import { recomputeRenewals } from '../services/planner/recompute-renewals';
+import { runUnitOfWork } from '../unit-of-work';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
 import { addDays } from 'date-fns';
 import { PLANS, TRIAL_DAYS } from '@/lib/billing/plans';
@@ -115,7 +115,7 @@ const STRUCTURES = [
  */
 export async function seedDemo(em: EntityManager): Promise<{ created: boolean }> {
   if (await em.count(OrganisationSchema, { slug: demo.organisation.slug })) return { created: false };
-  await em.transactional(async (tx) => {
+  await runUnitOfWork(async (tx, effects) => {
     const organisation = tx.create(OrganisationSchema, { slug: demo.organisation.slug, name: demo.organisation.name, fittingRatePerKg: 14, subscriptionStatus: 'trialing', trialEndsAt: addDays(new Date(), TRIAL_DAYS) });
     const passwordHash = await hashPassword(demo.password);
     const people: Record<string, User> = {};
@@ -124,15 +124,18 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
       tx.create(MembershipSchema, { organisation, user, role: person.role as Role });
       people[person.email] = user;
     }
-    audit(tx, { organisationId: organisation.id, action: 'organisation.seeded', details: { scenario: 'demo' } });
+    auditEvent(tx, { organisationId: organisation.id, action: 'organisation.seeded', details: { scenario: 'demo' } });
     await tx.flush();
 
     const ctxFor = async (email: string): Promise<OrgContext> => {
       const user = people[email];
       const membership = await tx.findOneOrFail(MembershipSchema, { organisation, user });
-      return { em: tx, organisation: organisation as Organisation, membership, role: membership.role, user: { id: user.id, email: user.email, name: user.name, emailVerified: true }, ip: null };
+      return { em: tx, organisation: organisation as Organisation, membership, role: membership.role, user: { id: user.id, email: user.email, name: user.name, emailVerified: true }, ip: null, effects };
     };
     const engineer = await ctxFor('engineer@gullhaven.example');
+    // Every asset's proposals and outlook are computed once, before the seed commits.
+    effects.ctx = engineer;
+    effects.organisationChanged();
     const checker = await ctxFor('checker@gullhaven.example');
 
     const assets: Record<string, string> = {};
@@ -160,7 +163,7 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
 
     await seedRegister(tx, engineer, await ctxFor('inspector@gullhaven.example'), assets, ferry.id);
     await seedSubscription(organisation as Organisation);
-  });
+  }, { em });
   return { created: true };
 }
 
@@ -235,8 +238,6 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   await plan('Wavecrest Minnow', 'unplanned', inDays(29), 'Harrowgate Dry Dock');
   await plan('Gullhaven Ferry Jetty', 'campaign', inDays(150), 'Brannock Kelp Divers');
   await plan('Dolphin North', 'campaign', inDays(150), 'Brannock Kelp Divers');
-  await em.flush();
-  await recomputeRenewals(engineer);
 }
 
 

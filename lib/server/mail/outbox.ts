@@ -2,6 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { OutboxMessageSchema, type OutboxAttachment } from '@/entities';
 import { getEnv } from '../env';
 import { getTransport } from './transport';
+import type { Work } from '../unit-of-work';
 
 export interface MailInput {
   to: string;
@@ -13,9 +14,13 @@ export interface MailInput {
   dedupeKey?: string;
 }
 
-/** Queues a message; it is written with the caller's flush, so it exists exactly when the change does. */
-export function enqueueMail(em: EntityManager, mail: MailInput) {
-  return em.create(OutboxMessageSchema, {
+/**
+ * Queues a message in the caller's unit of work, so it exists exactly when the change does, and asks
+ * for delivery right after the commit.
+ */
+export function enqueueMail(work: Pick<Work, 'em' | 'effects'>, mail: MailInput) {
+  work.effects.mailQueued();
+  return work.em.create(OutboxMessageSchema, {
     toAddress: mail.to,
     subject: mail.subject,
     textBody: mail.text,
@@ -96,15 +101,20 @@ export async function deliverDueMail(em: EntityManager, { limit = 25 }: { limit?
   return { claimed: claimed.length, sent, failed };
 }
 
-let kickRunning = false;
+let kickInFlight: Promise<void> | null = null;
 /** Tries to deliver right away after a change queued mail; the worker's loop catches anything missed. */
 export function kickOutbox(getEm: () => Promise<EntityManager>) {
-  if (kickRunning) return;
-  kickRunning = true;
-  getEm()
+  if (kickInFlight) return;
+  kickInFlight = getEm()
     .then((em) => deliverDueMail(em))
+    .then(() => undefined)
     .catch((error) => console.error('[tidewarden] outbox delivery failed', error instanceof Error ? error.message : error))
     .finally(() => {
-      kickRunning = false;
+      kickInFlight = null;
     });
+}
+
+/** Resolves when a delivery started by kickOutbox has finished (tests measure with nothing in flight). */
+export async function outboxSettled() {
+  await kickInFlight;
 }

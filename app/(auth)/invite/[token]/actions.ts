@@ -11,8 +11,9 @@ export const acceptInvitationAction = publicAction(async ({ em, ip, user }, form
   redirect(`/o/${organisation.slug}`);
 });
 
-export const acceptInvitationNewUserAction = publicAction(async ({ em, ip }, formData) => {
+export const acceptInvitationNewUserAction = publicAction(async ({ em, effects, ip }, formData) => {
   const { user, organisation } = await acceptInvitationAsNewUser({ em, ip, input: { token: formData.get('token'), name: formData.get('name'), password: formData.get('password') } });
-  await startSession(user.id);
+  // The session row refers to the new user, so it is written once the account is committed.
+  effects.onCommit(() => startSession(user.id));
   redirect(`/o/${organisation.slug}`);
 });

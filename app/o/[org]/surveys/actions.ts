@@ -22,8 +22,7 @@ export const addReadingAction = orgAction('survey:write', async (ctx, formData) 
   const form = formObject(formData);
   const reading = readingSchema.parse({ ...form, remainingFraction: form.remainingPercent === '' || form.remainingPercent === undefined ? null : Number(form.remainingPercent) / 100 }) as ReadingInput;
   const { under } = await addReadings(ctx, survey, [reading]);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: { id: ctx.user.id, email: ctx.user.email }, action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { location: reading.location } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { location: reading.location } });
   if (under) kickOutbox(getEm);
   revalidatePath(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
   return { ok: true, message: under ? 'Reading added: it is under-protected; the engineers have been told.' : 'Reading added.' };

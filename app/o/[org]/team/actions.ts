@@ -4,14 +4,11 @@ import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { changeMemberRole } from '@/lib/server/services/team/change-member-role';
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
-import { kickOutbox } from '@/lib/server/mail/outbox';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
-import { getEm } from '@/lib/server/db';
 
 export const inviteMemberAction = orgAction('team:manage', async (ctx, formData) => {
   const { invitation } = await inviteMember(ctx, formObject(formData));
-  kickOutbox(getEm);
-  return { ok: true, message: `Invitation sent to ${invitation.email}. The link expires in 7 days.` };
+  return { ok: true, message: `Invitation to ${invitation.email} queued for sending. The link expires in 7 days.` };
 });
 
 export const changeMemberRoleAction = orgAction('team:manage', async (ctx, formData) => {

@@ -3,7 +3,7 @@ import { SessionSchema, UserSchema } from '@/entities';
 import { changePasswordSchema } from '@/lib/schemas/accounts';
 import { AppError } from '../../errors';
 import { hashPassword, verifyPassword } from '../../auth/password';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 
 /** Changes the password and ends every session of the user; the caller opens a new one. */
 export async function changePassword({ em, userId, input, ip }: { em: EntityManager; userId: string; input: unknown; ip?: string | null }) {
@@ -13,8 +13,7 @@ export async function changePassword({ em, userId, input, ip }: { em: EntityMana
     throw new AppError('invalid', 'The current password is not right.', { currentPassword: ['The current password is not right.'] });
   }
   user.passwordHash = await hashPassword(password);
-  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.password-changed', ipAddress: ip });
-  await em.flush();
+  auditEvent(em, { actor: { id: user.id, email: user.email }, action: 'user.password-changed', ipAddress: ip });
   await em.nativeDelete(SessionSchema, { user: user.id });
   return user;
 }

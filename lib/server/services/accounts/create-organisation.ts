@@ -4,7 +4,7 @@ import { TRIAL_DAYS } from '@/lib/billing/plans';
 import { MembershipSchema, OrganisationSchema, UserSchema } from '@/entities';
 import { createOrganisationSchema } from '@/lib/schemas/accounts';
 import { AppError } from '../../errors';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import type { CurrentUser } from '../../org-context';
 
 // Letters that Unicode decomposition leaves whole, common in harbour and company names.
@@ -33,7 +33,6 @@ export async function createOrganisation({ em, user, input, ip }: { em: EntityMa
   // Every new organisation starts with the free trial; the plan is chosen on the Billing page.
   const organisation = em.create(OrganisationSchema, { slug, name, subscriptionStatus: 'trialing', trialEndsAt: addDays(new Date(), TRIAL_DAYS) });
   em.create(MembershipSchema, { organisation, user: em.getReference(UserSchema, user.id), role: 'owner' });
-  audit(em, { organisationId: organisation.id, actor: user, action: 'organisation.created', targetType: 'organisation', targetId: organisation.id, details: { name }, ipAddress: ip });
-  await em.flush();
+  auditEvent(em, { organisationId: organisation.id, actor: user, action: 'organisation.created', targetType: 'organisation', targetId: organisation.id, details: { name }, ipAddress: ip });
   return organisation;
 }

@@ -1,15 +1,15 @@
-import type { EntityManager } from '@mikro-orm/postgresql';
 import { addHours, subMinutes } from 'date-fns';
 import { UserSchema, UserTokenSchema } from '@/entities';
 import { requestResetSchema } from '@/lib/schemas/accounts';
 import { newToken, hashToken } from '../../tokens';
 import { enqueueMail } from '../../mail/outbox';
 import { resetPasswordMail } from '../../mail/templates';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import { getEnv } from '../../env';
+import type { Work } from '../../unit-of-work';
 
 /** Always answers the same way, so the form does not reveal which addresses have accounts. */
-export async function requestPasswordReset({ em, input, ip }: { em: EntityManager; input: unknown; ip?: string | null }) {
+export async function requestPasswordReset({ em, effects, input, ip }: Work & { input: unknown; ip?: string | null }) {
   const { email } = requestResetSchema.parse(input);
   const user = await em.findOne(UserSchema, { email });
   if (!user) return;
@@ -17,7 +17,6 @@ export async function requestPasswordReset({ em, input, ip }: { em: EntityManage
   if (recent) return;
   const token = newToken();
   em.create(UserTokenSchema, { user, kind: 'reset-password', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 1) });
-  enqueueMail(em, { to: user.email, ...resetPasswordMail(user.name, `${getEnv().APP_URL}/reset/${token}`) });
-  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset-requested', ipAddress: ip });
-  await em.flush();
+  enqueueMail({ em, effects }, { to: user.email, ...resetPasswordMail(user.name, `${getEnv().APP_URL}/reset/${token}`) });
+  auditEvent(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset-requested', ipAddress: ip });
 }

@@ -2,7 +2,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { SessionSchema } from '@/entities';
 import { resetPasswordSchema } from '@/lib/schemas/accounts';
 import { hashPassword } from '../../auth/password';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import { consumeUserToken } from './use-user-token';
 
 /** Sets a new password from an e-mailed token and signs the user out everywhere. */
@@ -13,8 +13,7 @@ export async function resetPassword({ em, input, ip }: { em: EntityManager; inpu
   user.passwordHash = await hashPassword(password);
   // The link proved the mailbox, so the address counts as confirmed.
   user.emailVerifiedAt ??= new Date();
-  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset', ipAddress: ip });
-  await em.flush();
+  auditEvent(em, { actor: { id: user.id, email: user.email }, action: 'user.password-reset', ipAddress: ip });
   await em.nativeDelete(SessionSchema, { user: user.id });
   return user;
 }

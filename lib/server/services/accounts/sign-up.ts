@@ -1,4 +1,3 @@
-import type { EntityManager } from '@mikro-orm/postgresql';
 import { addHours } from 'date-fns';
 import { UserSchema, UserTokenSchema, type User } from '@/entities';
 import { signUpSchema } from '@/lib/schemas/accounts';
@@ -7,10 +6,11 @@ import { hashPassword } from '../../auth/password';
 import { newToken, hashToken } from '../../tokens';
 import { enqueueMail } from '../../mail/outbox';
 import { verifyEmailMail } from '../../mail/templates';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import { getEnv } from '../../env';
+import type { Work } from '../../unit-of-work';
 
-export async function signUp({ em, input, ip }: { em: EntityManager; input: unknown; ip?: string | null }) {
+export async function signUp({ em, effects, input, ip }: Work & { input: unknown; ip?: string | null }) {
   const data = signUpSchema.parse(input);
   if (await em.count(UserSchema, { email: data.email })) {
     throw new AppError('conflict', 'An account with this e-mail address already exists.', {
@@ -18,15 +18,14 @@ export async function signUp({ em, input, ip }: { em: EntityManager; input: unkn
     });
   }
   const user = em.create(UserSchema, { email: data.email, name: data.name, passwordHash: await hashPassword(data.password), emailVerifiedAt: null });
-  queueVerification(em, user);
-  audit(em, { actor: { id: user.id, email: user.email }, action: 'user.signed-up', targetType: 'user', targetId: user.id, ipAddress: ip });
-  await em.flush();
+  queueVerification({ em, effects }, user);
+  auditEvent(em, { actor: { id: user.id, email: user.email }, action: 'user.signed-up', targetType: 'user', targetId: user.id, ipAddress: ip });
   return user;
 }
 
-export function queueVerification(em: EntityManager, user: User) {
+export function queueVerification({ em, effects }: Work, user: User) {
   const token = newToken();
   em.create(UserTokenSchema, { user, kind: 'verify-email', tokenHash: hashToken(token), expiresAt: addHours(new Date(), 24) });
   const mail = verifyEmailMail(user.name, `${getEnv().APP_URL}/verify/${token}`);
-  enqueueMail(em, { to: user.email, ...mail });
+  enqueueMail({ em, effects }, { to: user.email, ...mail });
 }

@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
-import { recomputeRenewals } from '../planner/recompute-renewals';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export const organisationSettingsSchema = z.object({
   name: z.string().trim().min(2, 'Use at least 2 characters.').max(120, 'Use at most 120 characters.'),
@@ -18,9 +17,8 @@ export async function updateOrganisationSettings(ctx: OrgContext, input: unknown
   const marginChanged = data.renewalMarginMonths !== org.renewalMarginMonths;
   const before = { name: org.name, renewalMarginMonths: org.renewalMarginMonths, fittingRatePerKg: org.fittingRatePerKg ?? null, currency: org.currency };
   ctx.em.assign(org, data);
-  audit(ctx.em, { organisationId: org.id, actor: actorOf(ctx), action: 'organisation.settings-changed', targetType: 'organisation', targetId: org.id, details: { from: before, to: data } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'organisation.settings-changed', targetType: 'organisation', targetId: org.id, details: { from: before, to: data } });
   // A different margin moves every deadline: the proposals follow.
-  if (marginChanged) await recomputeRenewals(ctx);
+  if (marginChanged) ctx.effects.organisationChanged();
   return org;
 }

@@ -1,7 +1,7 @@
 import { AssetSchema } from '@/entities';
 import { assetSchema } from '@/lib/schemas/assets';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { assertAssetLimit } from '../billing/asset-limit';
 
 export async function createAsset(ctx: OrgContext, input: unknown) {
@@ -9,8 +9,7 @@ export async function createAsset(ctx: OrgContext, input: unknown) {
   const data = assetSchema.parse(input);
   await assertAssetLimit(ctx);
   const asset = ctx.em.create(AssetSchema, { ...blankParticulars(), ...data, organisation: ctx.organisation });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'asset.created', targetType: 'asset', targetId: asset.id, details: { name: asset.name, kind: asset.kind } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'asset.created', targetType: 'asset', targetId: asset.id, details: { name: asset.name, kind: asset.kind } });
   return asset;
 }
 

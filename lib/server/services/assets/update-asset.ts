@@ -1,7 +1,7 @@
 import { assetSchema } from '@/lib/schemas/assets';
 import { AppError } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { assertAssetLimit } from '../billing/asset-limit';
 
@@ -11,8 +11,7 @@ export async function updateAsset(ctx: OrgContext, assetId: string, input: unkno
   const data = assetSchema.parse(input);
   if (data.kind !== asset.kind) throw new AppError('invalid', 'A vessel cannot become a structure or the other way round.');
   ctx.em.assign(asset, data);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'asset.updated', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'asset.updated', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
   return asset;
 }
 
@@ -22,7 +21,6 @@ export async function setAssetArchived(ctx: OrgContext, assetId: string, archive
   const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
   if (!archived && asset.archivedAt) await assertAssetLimit(ctx);
   asset.archivedAt = archived ? new Date() : null;
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: archived ? 'asset.archived' : 'asset.restored', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: archived ? 'asset.archived' : 'asset.restored', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
   return asset;
 }

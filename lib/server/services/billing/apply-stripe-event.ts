@@ -1,7 +1,7 @@
 import type Stripe from 'stripe';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { OrganisationSchema, type Organisation } from '@/entities';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import { getStripe } from '../../billing/stripe';
 import { syncSubscription } from './sync-subscription';
 
@@ -64,7 +64,7 @@ export async function applyStripeEvent(em: EntityManager, event: Stripe.Event): 
       detail = 'event type not used';
     }
     if (org && outcome === 'applied') {
-      audit(tx, { organisationId: org.id, action: 'billing.event-applied', details: { type: event.type, status: org.subscriptionStatus, plan: org.plan } });
+      auditEvent(tx, { organisationId: org.id, action: 'billing.event-applied', details: { type: event.type, status: org.subscriptionStatus, plan: org.plan } });
     }
     await tx.flush();
     await tx.execute(`update stripe_event set outcome = ?, organisation_id = ?, detail = ? where id = ?`, [outcome, org?.id ?? null, detail, event.id]);

@@ -4,7 +4,7 @@ import { AppError } from '../../errors';
 import { audit } from '../../audit';
 import { getEnv } from '../../env';
 import { getStripe } from '../../billing/stripe';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { syncSubscription } from './sync-subscription';
 
 /** The organisation's customer at the payment service, created on first need. */
@@ -12,7 +12,6 @@ async function customerId(ctx: OrgContext) {
   if (ctx.organisation.stripeCustomerId) return ctx.organisation.stripeCustomerId;
   const customer = await getStripe().customers.create({ name: ctx.organisation.name, email: ctx.user.email, metadata: { organisationId: ctx.organisation.id } });
   ctx.organisation.stripeCustomerId = customer.id;
-  await ctx.em.flush();
   return customer.id;
 }
 
@@ -38,8 +37,7 @@ export async function startCheckout(ctx: OrgContext, input: unknown): Promise<st
     metadata: { organisationId: ctx.organisation.id, plan },
     subscription_data: { metadata: { organisationId: ctx.organisation.id, plan } },
   });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'billing.checkout-started', details: { plan } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'billing.checkout-started', details: { plan } });
   if (!session.url) throw new AppError('conflict', 'The payment service did not return a checkout page.');
   return session.url;
 }
@@ -59,8 +57,7 @@ export async function setCancelAtPeriodEnd(ctx: OrgContext, cancel: boolean) {
   if (!id) throw new AppError('conflict', 'There is no subscription to cancel.');
   await getStripe().subscriptions.update(id, { cancel_at_period_end: cancel });
   await syncSubscription(ctx.organisation, id);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: cancel ? 'billing.cancel-requested' : 'billing.cancel-withdrawn' });
-  await ctx.em.flush();
+  audit(ctx, { action: cancel ? 'billing.cancel-requested' : 'billing.cancel-withdrawn' });
 }
 
 /** After the browser comes back from checkout: read the session and record it (webhooks do the same; both are idempotent). */
@@ -70,7 +67,6 @@ export async function confirmCheckout(ctx: OrgContext, sessionId: string) {
   const session = await getStripe().checkout.sessions.retrieve(sessionId);
   if (session.client_reference_id !== ctx.organisation.id || typeof session.subscription !== 'string') return;
   await syncSubscription(ctx.organisation, session.subscription);
-  await ctx.em.flush();
 }
 
 export async function getBillingOverview(ctx: OrgContext) {

@@ -3,7 +3,7 @@ import { anodeResistanceOhm, type AnodeShape } from '@/lib/cp';
 import { anodeModelSchema } from '@/lib/schemas/register';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { z } from 'zod';
 
 type ModelInput = z.infer<typeof anodeModelSchema>;
@@ -48,8 +48,7 @@ export async function createAnodeModel(ctx: OrgContext, input: unknown) {
     notes: d.notes,
     archivedAt: null,
   });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'catalogue.model-added', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'catalogue.model-added', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });
   return model;
 }
 
@@ -59,7 +58,6 @@ export async function setAnodeModelArchived(ctx: OrgContext, modelId: string, ar
   const model = /^[0-9a-f-]{36}$/i.test(modelId) ? await ctx.em.findOne(AnodeModelSchema, { id: modelId, organisation: ctx.organisation }) : null;
   if (!model) throw notFound('Anode model');
   model.archivedAt = archived ? new Date() : null;
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: archived ? 'catalogue.model-archived' : 'catalogue.model-restored', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });
-  await ctx.em.flush();
+  audit(ctx, { action: archived ? 'catalogue.model-archived' : 'catalogue.model-restored', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });
   return model;
 }

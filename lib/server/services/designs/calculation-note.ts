@@ -6,7 +6,7 @@ import { deskInputsSchema } from '@/lib/schemas/design';
 import { CalculationNote, type CalculationNoteData } from '@/components/pdf/calculation-note';
 import { registerPdfFonts } from '@/components/pdf/pdf-kit';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 
 /** Renders a design revision's calculation note as PDF bytes, from what is stored with the revision. */
@@ -50,8 +50,7 @@ export async function renderCalculationNote(ctx: OrgContext, designId: string): 
   };
   registerPdfFonts();
   const pdf = await renderToBuffer(createElement(CalculationNote, { data }) as unknown as ReactElement<DocumentProps>);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.printed', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.printed', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
   const safeName = asset.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '');
   return { pdf, filename: `calculation-note-${safeName}-rev${design.revision}.pdf` };
 }

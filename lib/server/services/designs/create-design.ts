@@ -5,7 +5,7 @@ import { defaultStructureZones, defaultVesselZones } from '@/lib/design/default-
 import type { DeskInputs, DeskSurface } from '@/lib/schemas/design';
 import { notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { APP_VERSION } from '../../app-version';
 import { storeResults } from './store-results';
 
@@ -86,7 +86,6 @@ export async function createDesign(ctx: OrgContext, input: unknown) {
     basis: null,
   });
   await storeResults(ctx, design, inputs);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.created', targetType: 'design', targetId: design.id, details: { asset: asset.name, revision } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.created', targetType: 'design', targetId: design.id, details: { asset: asset.name, revision } });
   return design;
 }

@@ -1,6 +1,6 @@
 import { DesignSchema, UserSchema } from '@/entities';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { APP_VERSION } from '../../app-version';
 import { getDesignOrThrow } from './get-design';
 import { nextRevision } from './create-design';
@@ -28,7 +28,6 @@ export async function newRevision(ctx: OrgContext, designId: string) {
     checkedAt: null,
     approvedAt: null,
   });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.revised', targetType: 'design', targetId: design.id, details: { from: source.revision, to: revision, asset: source.asset.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.revised', targetType: 'design', targetId: design.id, details: { from: source.revision, to: revision, asset: source.asset.name } });
   return design;
 }

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { deskInputsSchema } from '@/lib/schemas/design';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 import { assertEditable, storeResults } from './store-results';
 
@@ -20,7 +20,6 @@ export async function saveDesign(ctx: OrgContext, designId: string, input: unkno
     design.checkedBy = null;
     design.checkedAt = null;
   }
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.saved', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.saved', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
   return { design, desk };
 }

@@ -1,7 +1,7 @@
 import { UserSchema } from '@/entities';
 import { AppError } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 import { assertEditable } from './store-results';
 
@@ -23,8 +23,7 @@ export async function checkDesign(ctx: OrgContext, designId: string) {
   design.status = 'checked';
   design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);
   design.checkedAt = new Date();
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.checked', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.checked', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
   return design;
 }
 
@@ -41,7 +40,6 @@ export async function approveDesign(ctx: OrgContext, designId: string) {
   design.status = 'approved';
   design.approvedBy = ctx.em.getReference(UserSchema, ctx.user.id);
   design.approvedAt = now;
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'design.approved', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'design.approved', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
   return design;
 }

@@ -2,7 +2,7 @@ import { format } from 'date-fns';
 import { buildAnodeList, anodeListCsv, type AnodeListInput } from '@/lib/anode-list';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { listDockingRenewals } from './docking-renewals';
 
 /** The dry-dock anode list of a docking: every renewal not cancelled, with the asset's particulars. */
@@ -54,8 +54,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
 export async function anodeListPdf(ctx: OrgContext, dockingId: string) {
   const { list, filename } = await anodeListFor(ctx, dockingId);
   const pdf = await renderAnodeListPdf(list);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'docking.anode-list-printed', targetType: 'docking', targetId: dockingId, details: { printedAt: format(new Date(), 'yyyy-MM-dd HH:mm') } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'docking.anode-list-printed', targetType: 'docking', targetId: dockingId, details: { printedAt: format(new Date(), 'yyyy-MM-dd HH:mm') } });
   return { pdf, filename: `${filename}.pdf` };
 }
 

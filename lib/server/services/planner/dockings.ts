@@ -2,8 +2,7 @@ import { AssetSchema, DockingSchema } from '@/entities';
 import { dockingSchema, dockingUpdateSchema } from '@/lib/schemas/planner';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
-import { recomputeRenewals } from './recompute-renewals';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export async function getDockingOrThrow(ctx: OrgContext, dockingId: string) {
   requirePermission(ctx, 'org:read');
@@ -22,9 +21,8 @@ export async function createDocking(ctx: OrgContext, input: unknown) {
   if (asset.kind === 'vessel' && data.kind === 'campaign') throw new AppError('invalid', 'A vessel is dry-docked: choose intermediate, renewal survey or unplanned.', { kind: ['Choose a docking kind for a vessel.'] });
   const { assetId: _assetId, ...fields } = data;
   const docking = ctx.em.create(DockingSchema, { ...fields, organisation: ctx.organisation, asset, status: 'planned', actualStart: null, actualEnd: null });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'docking.planned', targetType: 'docking', targetId: docking.id, details: { asset: asset.name, start: data.plannedStart, kind: data.kind } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [asset.id]);
+  audit(ctx, { action: 'docking.planned', targetType: 'docking', targetId: docking.id, details: { asset: asset.name, start: data.plannedStart, kind: data.kind } });
+  ctx.effects.assetChanged(asset.id);
   return docking;
 }
 
@@ -34,8 +32,7 @@ export async function updateDocking(ctx: OrgContext, dockingId: string, input: u
   const data = dockingUpdateSchema.parse(input);
   const before = { start: docking.plannedStart, status: docking.status };
   ctx.em.assign(docking, data);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'docking.updated', targetType: 'docking', targetId: docking.id, details: { asset: docking.asset.name, from: before, to: { start: data.plannedStart, status: data.status } } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [docking.asset.id]);
+  audit(ctx, { action: 'docking.updated', targetType: 'docking', targetId: docking.id, details: { asset: docking.asset.name, from: before, to: { start: data.plannedStart, status: data.status } } });
+  ctx.effects.assetChanged(docking.asset.id);
   return docking;
 }

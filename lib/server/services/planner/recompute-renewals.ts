@@ -7,6 +7,8 @@ import { computePlans } from './compute-plans';
  * Brings the scheduler's proposals up to date for some assets: a group gets a 'proposed' renewal at
  * the docking the forecast picks, a stale proposal is withdrawn, and anything a planner has
  * confirmed, ordered, fitted or cancelled is never touched. Also records each asset's outlook.
+ * Runs inside the caller's unit of work (see unit-of-work.ts): services record ctx.effects.assetChanged
+ * and the unit of work calls this before commit.
  */
 export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], today = new Date()) {
   const plans = await computePlans(ctx, { assetIds, today });
@@ -45,6 +47,5 @@ export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], to
       plan.asset.outlookChangedAt = today;
     }
   }
-  await ctx.em.flush();
   return { plans, created, withdrawn };
 }

@@ -2,9 +2,8 @@ import { AnodeGroupSchema, DockingSchema, RenewalSchema } from '@/entities';
 import { fittedSchema, manualRenewalSchema, renewalUpdateSchema } from '@/lib/schemas/planner';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getDockingOrThrow } from './dockings';
-import { recomputeRenewals } from './recompute-renewals';
 
 async function getRenewalOrThrow(ctx: OrgContext, renewalId: string) {
   if (!/^[0-9a-f-]{36}$/i.test(renewalId)) throw notFound('Renewal');
@@ -14,7 +13,7 @@ async function getRenewalOrThrow(ctx: OrgContext, renewalId: string) {
 }
 
 const log = (ctx: OrgContext, action: string, r: { id: string; group: { label: string }; docking: { asset: { name: string } } }, details: Record<string, unknown> = {}) =>
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action, targetType: 'renewal', targetId: r.id, details: { asset: r.docking.asset.name, group: r.group.label, ...details } });
+  audit(ctx, { action, targetType: 'renewal', targetId: r.id, details: { asset: r.docking.asset.name, group: r.group.label, ...details } });
 
 /** The planner accepts the scheduler's proposal: from now on it is never changed by a recompute. */
 export async function confirmRenewal(ctx: OrgContext, renewalId: string) {
@@ -25,7 +24,6 @@ export async function confirmRenewal(ctx: OrgContext, renewalId: string) {
   r.confirmedByEmail = ctx.user.email;
   r.confirmedAt = new Date();
   log(ctx, 'renewal.confirmed', r);
-  await ctx.em.flush();
   return r;
 }
 
@@ -46,7 +44,6 @@ export async function updateRenewal(ctx: OrgContext, renewalId: string, input: u
     r.confirmedAt = new Date();
   }
   log(ctx, 'renewal.updated', r, { quantity: data.quantity });
-  await ctx.em.flush();
   return r;
 }
 
@@ -56,7 +53,6 @@ export async function markRenewalOrdered(ctx: OrgContext, renewalId: string) {
   if (r.status !== 'confirmed') throw new AppError('conflict', r.status === 'proposed' ? 'Confirm the renewal before ordering.' : `This renewal is ${r.status}.`);
   r.status = 'ordered';
   log(ctx, 'renewal.ordered', r);
-  await ctx.em.flush();
   return r;
 }
 
@@ -94,8 +90,7 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
   r.fittedOn = fittedOn;
   r.newGroupId = fresh.id;
   log(ctx, 'renewal.fitted', r, { fittedOn, quantity: r.quantity });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [r.docking.asset.id]);
+  ctx.effects.assetChanged(r.docking.asset.id);
   return { renewal: r, newGroup: fresh };
 }
 
@@ -105,7 +100,6 @@ export async function cancelRenewal(ctx: OrgContext, renewalId: string) {
   if (r.status === 'fitted' || r.status === 'cancelled') throw new AppError('conflict', `This renewal is already ${r.status}.`);
   r.status = 'cancelled';
   log(ctx, 'renewal.cancelled', r);
-  await ctx.em.flush();
   return r;
 }
 
@@ -121,8 +115,7 @@ export async function addRenewal(ctx: OrgContext, dockingId: string, input: unkn
   if (open) throw new AppError('conflict', `Group "${group.label}" is already booked for renewal.`);
   await ctx.em.nativeDelete(RenewalSchema, { group, status: 'proposed' });
   const r = ctx.em.create(RenewalSchema, { organisation: ctx.organisation, docking, group, status: 'confirmed', reason: data.reason, quantity: data.quantity ?? group.quantity, notes: data.notes, rationale: null, confirmedByEmail: ctx.user.email, confirmedAt: new Date(), fittedOn: null, newGroupId: null });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'renewal.booked', targetType: 'renewal', targetId: r.id, details: { asset: docking.asset.name, group: group.label, reason: data.reason } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'renewal.booked', targetType: 'renewal', targetId: r.id, details: { asset: docking.asset.name, group: group.label, reason: data.reason } });
   return r;
 }
 

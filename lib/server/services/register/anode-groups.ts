@@ -3,10 +3,9 @@ import { ALLOYS, utilisationFactorFor } from '@/lib/cp';
 import { anodeGroupSchema, removeGroupSchema } from '@/lib/schemas/register';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
 import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
-import { recomputeRenewals } from '../planner/recompute-renewals';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
   const alloy = ALLOYS[model.alloy];
@@ -69,9 +68,8 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
     replacesGroupId: null,
     notes: data.notes,
   });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.fitted', targetType: 'anode-group', targetId: group.id, details: { asset: asset.name, label: group.label, quantity: group.quantity, model: model.designation } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [asset.id]);
+  audit(ctx, { action: 'anode-group.fitted', targetType: 'anode-group', targetId: group.id, details: { asset: asset.name, label: group.label, quantity: group.quantity, model: model.designation } });
+  ctx.effects.assetChanged(asset.id);
   return group;
 }
 
@@ -98,9 +96,8 @@ export async function updateAnodeGroup(ctx: OrgContext, groupId: string, input: 
   if (!Object.keys(changes).length) return group;
   ctx.em.assign(group, { label: data.label, zone, model, quantity: data.quantity, positions: data.positions, installedOn: data.installedOn, meanCurrentA: next.meanCurrentA, notes: data.notes });
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.updated', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, fields: Object.keys(changes).join(', ') } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [group.asset.id]);
+  audit(ctx, { action: 'anode-group.updated', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, fields: Object.keys(changes).join(', ') } });
+  ctx.effects.assetChanged(group.asset.id);
   return group;
 }
 
@@ -114,8 +111,7 @@ export async function removeAnodeGroup(ctx: OrgContext, groupId: string, input: 
   group.removedOn = removedOn;
   group.removalReason = reason;
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes: { removedOn: [null, removedOn], removalReason: [null, reason] } });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'anode-group.removed', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, reason } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [group.asset.id]);
+  audit(ctx, { action: 'anode-group.removed', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, reason } });
+  ctx.effects.assetChanged(group.asset.id);
   return group;
 }

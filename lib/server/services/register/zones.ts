@@ -2,7 +2,7 @@ import { ZoneSchema } from '@/entities';
 import { zoneSchema } from '@/lib/schemas/register';
 import { notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
 
 // Zones store their design current density in A/m2 (the desk shows mA/m2).
@@ -13,8 +13,7 @@ export async function createZone(ctx: OrgContext, assetId: string, input: unknow
   const data = zoneSchema.parse(input);
   const count = await ctx.em.count(ZoneSchema, { asset });
   const zone = ctx.em.create(ZoneSchema, { ...data, asset, areaSource: 'entered', temperatureC: null, currentDensityOverride: null, sortOrder: count, archivedAt: null });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'zone.created', targetType: 'zone', targetId: zone.id, details: { asset: asset.name, zone: zone.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'zone.created', targetType: 'zone', targetId: zone.id, details: { asset: asset.name, zone: zone.name } });
   return zone;
 }
 
@@ -28,8 +27,7 @@ export async function updateZone(ctx: OrgContext, zoneId: string, input: unknown
   requirePermission(ctx, 'asset:write');
   const zone = await getZoneOrThrow(ctx, zoneId);
   ctx.em.assign(zone, { ...zoneSchema.parse(input), areaSource: 'entered' });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'zone.updated', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'zone.updated', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
   return zone;
 }
 
@@ -37,6 +35,5 @@ export async function archiveZone(ctx: OrgContext, zoneId: string) {
   requirePermission(ctx, 'asset:write');
   const zone = await getZoneOrThrow(ctx, zoneId);
   zone.archivedAt = new Date();
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'zone.archived', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'zone.archived', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
 }

@@ -4,7 +4,7 @@ import { DockingSchema, MembershipSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { anodeListPdf } from '../planner/anode-list';
-import { systemContext } from './system-context';
+import { runAsSystem } from '../../unit-of-work';
 
 /** Reminders go 90 and 30 days before a planned docking (the yard needs the anode list to order). */
 export const REMINDER_DAYS = [90, 30] as const;
@@ -29,8 +29,7 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     if (threshold === undefined) continue;
     const recipients = members.filter((m) => m.organisation.id === docking.organisation.id);
     if (!recipients.length) continue;
-    const ctx = systemContext(em.fork(), docking.organisation);
-    const { pdf, filename } = await anodeListPdf(ctx, docking.id);
+    const { pdf, filename } = await runAsSystem(docking.organisation.id, (ctx) => anodeListPdf(ctx, docking.id), { em: em.fork() });
     const url = `${getEnv().APP_URL}/o/${docking.organisation.slug}/dockings/${docking.id}`;
     const when = format(new Date(`${docking.plannedStart}T00:00:00Z`), 'd MMMM yyyy');
     for (const m of recipients) {

@@ -4,8 +4,8 @@ import { MembershipSchema, OrganisationSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { recomputeRenewals } from '../planner/recompute-renewals';
+import { runAsSystem } from '../../unit-of-work';
 import { OUTLOOK_WORDS } from '../planner/compute-plans';
-import { systemContext } from './system-context';
 
 /**
  * Once a week: recompute every organisation's outlooks and tell its planners and owners which assets
@@ -16,9 +16,9 @@ export async function queueWeeklyDigests(em: EntityManager, now = new Date()) {
   let queued = 0;
   const week = `${getISOWeekYear(now)}-W${String(getISOWeek(now)).padStart(2, '0')}`;
   for (const organisation of organisations) {
-    const ctx = systemContext(em.fork(), await em.fork().findOneOrFail(OrganisationSchema, { id: organisation.id }));
     const since = organisation.lastDigestAt ?? subDays(now, 7);
-    const { plans } = await recomputeRenewals(ctx, undefined, now);
+    // Each organisation's recompute commits on its own: one organisation's failure does not undo another's.
+    const { plans } = await runAsSystem(organisation.id, (ctx) => recomputeRenewals(ctx, undefined, now), { em: em.fork() });
     const changed = plans.filter((p) => p.asset.outlookChangedAt && p.asset.outlookChangedAt.getTime() > since.getTime());
     if (changed.length) {
       const recipients = await em.find(MembershipSchema, { organisation: organisation.id, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });

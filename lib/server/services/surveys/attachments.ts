@@ -1,7 +1,7 @@
 import { SurveyAttachmentSchema } from '@/entities';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
 
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
@@ -34,8 +34,7 @@ export async function addSurveyAttachment(ctx: OrgContext, surveyId: string, fil
     caption: caption?.trim().slice(0, 200) || null,
     uploadedByEmail: ctx.user.email,
   });
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.attachment-added', targetType: 'survey', targetId: survey.id, details: { file: attachment.filename, bytes: attachment.sizeBytes } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'survey.attachment-added', targetType: 'survey', targetId: survey.id, details: { file: attachment.filename, bytes: attachment.sizeBytes } });
   return attachment;
 }
 

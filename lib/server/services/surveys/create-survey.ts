@@ -3,9 +3,8 @@ import { AssetSchema, SurveySchema, UserSchema } from '@/entities';
 import { surveySchema } from '@/lib/schemas/register';
 import { notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { addReadings, type ReadingInput } from './record-readings';
-import { recomputeRenewals } from '../planner/recompute-renewals';
 
 const readingSchema = z
   .object({
@@ -36,10 +35,9 @@ export async function createSurvey(ctx: OrgContext, input: unknown) {
     createdBy: ctx.em.getReference(UserSchema, ctx.user.id),
   });
   const { under } = await addReadings(ctx, survey, readings);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.recorded', targetType: 'survey', targetId: survey.id, details: { asset: asset.name, date: data.surveyedOn, readings: readings.length, underProtected: under } });
-  await ctx.em.flush();
+  audit(ctx, { action: 'survey.recorded', targetType: 'survey', targetId: survey.id, details: { asset: asset.name, date: data.surveyedOn, readings: readings.length, underProtected: under } });
   // A survey can move a group's end of life: bring the renewal proposals up to date.
-  await recomputeRenewals(ctx, [asset.id]);
+  ctx.effects.assetChanged(asset.id);
   return survey;
 }
 

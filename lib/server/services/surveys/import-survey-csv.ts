@@ -2,10 +2,9 @@ import { AnodeGroupSchema } from '@/entities';
 import { checkCsvBytes, parseSurveyCsv, type Electrode } from '@/lib/surveys/survey-csv';
 import { AppError } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
 import { addReadings } from './record-readings';
-import { recomputeRenewals } from '../planner/recompute-renewals';
 
 export const MAX_CSV_BYTES = 5 * 1024 * 1024;
 
@@ -28,8 +27,7 @@ export async function importSurveyCsv(ctx: OrgContext, surveyId: string, bytes: 
   if (!parsed.ok) throw new CsvRowsError(parsed.errors);
   if (!parsed.rows.length) throw new AppError('invalid', 'The file has a header but no readings.');
   const { under } = await addReadings(ctx, survey, parsed.rows);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'survey.readings-imported', targetType: 'survey', targetId: survey.id, details: { rows: parsed.rows.length, underProtected: under } });
-  await ctx.em.flush();
-  await recomputeRenewals(ctx, [survey.asset.id]);
+  audit(ctx, { action: 'survey.readings-imported', targetType: 'survey', targetId: survey.id, details: { rows: parsed.rows.length, underProtected: under } });
+  ctx.effects.assetChanged(survey.asset.id);
   return { imported: parsed.rows.length, underProtected: under };
 }

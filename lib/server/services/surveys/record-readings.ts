@@ -39,7 +39,7 @@ export async function addReadings(ctx: OrgContext, survey: Survey, readings: Rea
     const recipients = await ctx.em.find(MembershipSchema, { organisation: ctx.organisation, role: { $in: ['engineer', 'owner'] } }, { populate: ['user'] });
     const url = `${getEnv().APP_URL}/o/${ctx.organisation.slug}/surveys/${survey.id}`;
     for (const m of recipients) {
-      enqueueMail(ctx.em, {
+      enqueueMail(ctx, {
         to: m.user.email,
         organisationId: ctx.organisation.id,
         dedupeKey: `survey-under-protection:${survey.id}:${m.user.id}`,

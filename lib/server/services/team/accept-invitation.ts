@@ -3,7 +3,7 @@ import { MembershipSchema, UserSchema } from '@/entities';
 import { acceptInvitationNewUserSchema, acceptInvitationSchema } from '@/lib/schemas/accounts';
 import { AppError } from '../../errors';
 import { hashPassword } from '../../auth/password';
-import { audit } from '../../audit';
+import { auditEvent } from '../../audit';
 import type { CurrentUser } from '../../org-context';
 import { findOpenInvitationOrThrow } from './find-invitation';
 
@@ -19,8 +19,7 @@ export async function acceptInvitationAsUser({ em, user, input, ip }: { em: Enti
   invitation.acceptedAt = new Date();
   const dbUser = await em.findOneOrFail(UserSchema, { id: user.id });
   dbUser.emailVerifiedAt ??= new Date(); // the link proved the mailbox
-  audit(em, { organisationId: invitation.organisation.id, actor: user, action: 'member.joined', targetType: 'invitation', targetId: invitation.id, details: { role: invitation.role }, ipAddress: ip });
-  await em.flush();
+  auditEvent(em, { organisationId: invitation.organisation.id, actor: user, action: 'member.joined', targetType: 'invitation', targetId: invitation.id, details: { role: invitation.role }, ipAddress: ip });
   return invitation.organisation;
 }
 
@@ -34,7 +33,6 @@ export async function acceptInvitationAsNewUser({ em, input, ip }: { em: EntityM
   const user = em.create(UserSchema, { email: invitation.email, name, passwordHash: await hashPassword(password), emailVerifiedAt: new Date() });
   em.create(MembershipSchema, { organisation: invitation.organisation, user, role: invitation.role });
   invitation.acceptedAt = new Date();
-  audit(em, { organisationId: invitation.organisation.id, actor: { id: user.id, email: user.email }, action: 'member.joined', targetType: 'invitation', targetId: invitation.id, details: { role: invitation.role, newAccount: true }, ipAddress: ip });
-  await em.flush();
+  auditEvent(em, { organisationId: invitation.organisation.id, actor: { id: user.id, email: user.email }, action: 'member.joined', targetType: 'invitation', targetId: invitation.id, details: { role: invitation.role, newAccount: true }, ipAddress: ip });
   return { user, organisation: invitation.organisation };
 }

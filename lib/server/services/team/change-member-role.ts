@@ -2,7 +2,7 @@ import { MembershipSchema } from '@/entities';
 import { changeRoleSchema } from '@/lib/schemas/accounts';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export async function assertNotLastOwner(ctx: OrgContext, membership: { role: string; id: string }) {
   if (membership.role !== 'owner') return;
@@ -19,7 +19,6 @@ export async function changeMemberRole(ctx: OrgContext, input: unknown) {
   if (role !== 'owner') await assertNotLastOwner(ctx, membership);
   const from = membership.role;
   membership.role = role;
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'member.role-changed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, from, to: role }, ipAddress: ctx.ip });
-  await ctx.em.flush();
+  audit(ctx, { action: 'member.role-changed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, from, to: role } });
   return membership;
 }

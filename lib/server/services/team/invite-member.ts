@@ -8,7 +8,7 @@ import { invitationMail } from '../../mail/templates';
 import { audit } from '../../audit';
 import { getEnv } from '../../env';
 import { ROLE_LABELS } from '../../permissions';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export const INVITATION_DAYS = 7;
 
@@ -31,8 +31,7 @@ export async function inviteMember(ctx: OrgContext, input: unknown) {
     invitedBy: em.getReference(UserSchema, ctx.user.id),
     expiresAt: addDays(new Date(), INVITATION_DAYS),
   });
-  enqueueMail(em, { to: email, organisationId: organisation.id, ...invitationMail(organisation.name, ctx.user.name, ROLE_LABELS[role], `${getEnv().APP_URL}/invite/${token}`) });
-  audit(em, { organisationId: organisation.id, actor: actorOf(ctx), action: 'member.invited', targetType: 'invitation', targetId: invitation.id, details: { email, role }, ipAddress: ctx.ip });
-  await em.flush();
+  enqueueMail(ctx, { to: email, organisationId: organisation.id, ...invitationMail(organisation.name, ctx.user.name, ROLE_LABELS[role], `${getEnv().APP_URL}/invite/${token}`) });
+  audit(ctx, { action: 'member.invited', targetType: 'invitation', targetId: invitation.id, details: { email, role } });
   return { invitation, token };
 }

@@ -2,7 +2,7 @@ import { MembershipSchema } from '@/entities';
 import { memberIdSchema } from '@/lib/schemas/accounts';
 import { notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { assertNotLastOwner } from './change-member-role';
 
 export async function removeMember(ctx: OrgContext, input: unknown) {
@@ -11,7 +11,6 @@ export async function removeMember(ctx: OrgContext, input: unknown) {
   const membership = await ctx.em.findOne(MembershipSchema, { id: membershipId, organisation: ctx.organisation }, { populate: ['user'] });
   if (!membership) throw notFound('Member');
   await assertNotLastOwner(ctx, membership);
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'member.removed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, role: membership.role }, ipAddress: ctx.ip });
+  audit(ctx, { action: 'member.removed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, role: membership.role } });
   ctx.em.remove(membership);
-  await ctx.em.flush();
 }

@@ -2,7 +2,7 @@ import { InvitationSchema } from '@/entities';
 import { invitationIdSchema } from '@/lib/schemas/accounts';
 import { notFound } from '../../errors';
 import { audit } from '../../audit';
-import { actorOf, requirePermission, type OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export async function revokeInvitation(ctx: OrgContext, input: unknown) {
   requirePermission(ctx, 'team:manage');
@@ -10,6 +10,5 @@ export async function revokeInvitation(ctx: OrgContext, input: unknown) {
   const invitation = await ctx.em.findOne(InvitationSchema, { id: invitationId, organisation: ctx.organisation, acceptedAt: null, revokedAt: null });
   if (!invitation) throw notFound('Open invitation');
   invitation.revokedAt = new Date();
-  audit(ctx.em, { organisationId: ctx.organisation.id, actor: actorOf(ctx), action: 'invitation.revoked', targetType: 'invitation', targetId: invitation.id, details: { email: invitation.email }, ipAddress: ctx.ip });
-  await ctx.em.flush();
+  audit(ctx, { action: 'invitation.revoked', targetType: 'invitation', targetId: invitation.id, details: { email: invitation.email } });
 }
