@@ -1,9 +1,9 @@
 // The fake's own browser pages: hosted checkout, billing portal and invoice. Deliberately plain forms of
 // our own design; they only need to be clickable by people and by Playwright (stable button texts).
-import type { CheckoutSessionRec, CustomerRec, InvoiceRec, PortalSessionRec, SubscriptionRec } from './state';
-import { formatMoney } from './state';
+import { formatMoney } from './api';
+import type { CheckoutSessionRec, CustomerRec, InvoiceRec, PortalSessionRec, SubscriptionRec } from './store';
 
-export function escapeHtml(value: unknown): string {
+function escapeHtml(value: unknown): string {
   return String(value ?? '')
     .replaceAll('&', '&amp;')
     .replaceAll('<', '&lt;')
@@ -52,11 +52,8 @@ ${body}
 </html>`;
 }
 
-export function messagePage(title: string, message: string, link?: { href: string; label: string }): string {
-  return layout(
-    title,
-    `<h1>${escapeHtml(title)}</h1><section><p>${escapeHtml(message)}</p>${link ? `<p><a href="${escapeHtml(link.href)}">${escapeHtml(link.label)}</a></p>` : ''}</section>`,
-  );
+export function messagePage(title: string, message: string): string {
+  return layout(title, `<h1>${escapeHtml(title)}</h1><section><p>${escapeHtml(message)}</p></section>`);
 }
 
 // ----- checkout -------------------------------------------------------------------------------------------
@@ -68,9 +65,9 @@ export interface CheckoutView {
   total: number;
 }
 
-export const CHECKOUT_TITLE = 'Test checkout — local payment stand-in';
-export const SUCCEED_LABEL = 'Pay with test card 4242 4242 4242 4242 (succeeds)';
-export const DECLINE_LABEL = 'Pay with test card 4000 0000 0000 0002 (declined)';
+const CHECKOUT_TITLE = 'Test checkout — local payment stand-in';
+const SUCCEED_LABEL = 'Pay with test card 4242 4242 4242 4242 (succeeds)';
+const DECLINE_LABEL = 'Pay with test card 4000 0000 0000 0002 (declined)';
 
 export function checkoutPage(view: CheckoutView, error?: string): string {
   const { session } = view;
@@ -128,7 +125,7 @@ export interface PortalView {
   plans: { priceId: string; name: string; unitAmount: number; currency: string; maxAssets: string }[];
 }
 
-export const PORTAL_TITLE = 'Billing settings — local payment stand-in';
+const PORTAL_TITLE = 'Billing settings — local payment stand-in';
 
 function subscriptionBlock(view: PortalView, sub: PortalView['subscriptions'][number]): string {
   const { rec } = sub;

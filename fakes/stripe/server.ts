@@ -20,7 +20,16 @@ import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
 import { FormParseError, Params, parseForm } from './form';
-import { API_VERSION, ApiError, applyExpand, newId, Store, type Json, type StateFile } from './state';
+import { API_VERSION, ApiError, newId, type Json } from './api';
+import { Store, type StateFile } from './store';
+import { createCustomer, getCustomer, listCustomers, updateCustomer } from './customers';
+import { getPrice, listPrices } from './prices';
+import { checkoutView, createCheckoutSession, getCheckoutSession, payCheckout } from './checkout-sessions';
+import { advance, cancelSubscription, createSubscription, getSubscription, listSubscriptions, updateSubscription } from './subscriptions';
+import { createPortalSession, portalCancel, portalChangePlan, portalView } from './portal-sessions';
+import { invoiceView, listInvoices } from './invoices';
+import { eventPayload, listEvents, takeEmitted } from './events';
+import { applyExpand } from './expand';
 import { checkoutPage, invoicePage, messagePage, portalPage } from './pages';
 import { WebhookQueue, type Delivery } from './webhooks';
 
@@ -53,7 +62,7 @@ const log = (line: string) => console.log(`${LOG_PREFIX} ${line}`);
 
 // ----- state and persistence ------------------------------------------------------------------------------
 
-const store = new Store({ publicUrl: env.FAKE_STRIPE_PUBLIC_URL?.replace(/\/+$/, '') || `http://127.0.0.1:${requestedPort}` });
+const store = new Store(env.FAKE_STRIPE_PUBLIC_URL?.replace(/\/+$/, '') || `http://127.0.0.1:${requestedPort}`);
 
 interface PersistedFile {
   store: StateFile;
@@ -90,7 +99,7 @@ const queue = new WebhookQueue({
   secret: webhookSecret,
   retryDelaysMs,
   timeoutMs: 10_000,
-  payloadFor: (id) => store.eventPayload(id),
+  payloadFor: (id) => eventPayload(store, id),
   onUpdate: () => scheduleSave(),
   log,
 });
@@ -101,7 +110,7 @@ function loadState(): void {
   store.load(data.store);
   queue.restore(data.deliveries ?? {});
   // Deliveries cut short by a restart are attempted again, in their original order.
-  for (const event of store.allEvents()) {
+  for (const event of store.events) {
     if (data.deliveries?.[event.id as string]?.state === 'pending') void queue.enqueue(event.id as string);
   }
 }
@@ -111,7 +120,7 @@ function loadState(): void {
  * resolves when each of them has been attempted once; API handlers do not wait for it.
  */
 function flushEvents(): { ids: string[]; attempted: Promise<void> } {
-  const ids = store.takeEmitted();
+  const ids = takeEmitted(store);
   const attempts = ids.map((id) => queue.enqueue(id));
   scheduleSave();
   return { ids, attempted: Promise.all(attempts).then(() => undefined) };
@@ -191,33 +200,28 @@ const routes: { method: string; pattern: RegExp; handler: Handler }[] = [];
 const route = (method: string, pathPattern: string, handler: Handler) =>
   routes.push({ method, pattern: new RegExp(`^${pathPattern}$`), handler });
 
-route('POST', '/v1/customers', ({ params }) => store.createCustomer(params));
-route('GET', '/v1/customers', ({ params }) => store.listCustomers(params));
-route('GET', `/v1/customers/${ID}`, ({ match }) => store.getCustomer(match[1]));
-route('POST', `/v1/customers/${ID}`, ({ params, match }) => store.updateCustomer(match[1], params));
+route('POST', '/v1/customers', ({ params }) => createCustomer(store, params));
+route('GET', '/v1/customers', ({ params }) => listCustomers(store, params));
+route('GET', `/v1/customers/${ID}`, ({ match }) => getCustomer(store, match[1]));
+route('POST', `/v1/customers/${ID}`, ({ params, match }) => updateCustomer(store, match[1], params));
 
-route('GET', '/v1/prices', ({ params }) => store.listPrices(params));
-route('GET', `/v1/prices/${ID}`, ({ match }) => store.getPrice(match[1]));
-route('GET', `/v1/products/${ID}`, ({ match }) => store.getProduct(match[1]));
+route('GET', '/v1/prices', ({ params }) => listPrices(store, params));
+route('GET', `/v1/prices/${ID}`, ({ match }) => getPrice(store, match[1]));
 
-route('POST', '/v1/checkout/sessions', ({ params }) => store.createCheckoutSession(params));
-route('GET', `/v1/checkout/sessions/${ID}`, ({ params, match }) => store.getCheckoutSession(match[1], params.stringArray('expand') ?? []));
-route('GET', `/v1/checkout/sessions/${ID}/line_items`, ({ params, match }) => store.listCheckoutLineItems(match[1], params));
-route('POST', `/v1/checkout/sessions/${ID}/expire`, ({ match }) => store.expireCheckoutSession(match[1]));
+route('POST', '/v1/checkout/sessions', ({ params }) => createCheckoutSession(store, params));
+route('GET', `/v1/checkout/sessions/${ID}`, ({ params, match }) => getCheckoutSession(store, match[1], params.stringArray('expand') ?? []));
 
-route('POST', '/v1/subscriptions', ({ params }) => store.createSubscription(params));
-route('GET', '/v1/subscriptions', ({ params }) => store.listSubscriptions(params));
-route('GET', `/v1/subscriptions/${ID}`, ({ match }) => store.getSubscription(match[1]));
-route('POST', `/v1/subscriptions/${ID}`, ({ params, match }) => store.updateSubscription(match[1], params));
-route('DELETE', `/v1/subscriptions/${ID}`, ({ match }) => store.cancelSubscription(match[1]));
+route('POST', '/v1/subscriptions', ({ params }) => createSubscription(store, params));
+route('GET', '/v1/subscriptions', ({ params }) => listSubscriptions(store, params));
+route('GET', `/v1/subscriptions/${ID}`, ({ match }) => getSubscription(store, match[1]));
+route('POST', `/v1/subscriptions/${ID}`, ({ params, match }) => updateSubscription(store, match[1], params));
+route('DELETE', `/v1/subscriptions/${ID}`, ({ match }) => cancelSubscription(store, match[1]));
 
-route('POST', '/v1/billing_portal/sessions', ({ params }) => store.createPortalSession(params));
+route('POST', '/v1/billing_portal/sessions', ({ params }) => createPortalSession(store, params));
 
-route('GET', '/v1/invoices', ({ params }) => store.listInvoices(params));
-route('GET', `/v1/invoices/${ID}`, ({ match }) => store.getInvoice(match[1]));
+route('GET', '/v1/invoices', ({ params }) => listInvoices(store, params));
 
-route('GET', '/v1/events', ({ params }) => store.listEvents(params));
-route('GET', `/v1/events/${ID}`, ({ match }) => store.getEvent(match[1]));
+route('GET', '/v1/events', ({ params }) => listEvents(store, params));
 
 /** Accepts `Authorization: Bearer sk_test_...` (what the SDK sends) and curl's `-u sk_test_...:`. */
 function apiKeyOf(req: http.IncomingMessage): string | null {
@@ -298,7 +302,7 @@ async function handleApi(req: http.IncomingMessage, res: http.ServerResponse, ur
     const match = found.pattern.exec(url.pathname)!.map((part) => decodeURIComponent(part ?? ''));
     const value = found.handler({ params, match });
     const expand = params.stringArray('expand') ?? [];
-    result = applyExpand(value, expand, (id) => store.lookupAny(id));
+    result = applyExpand(store, value, expand);
   } catch (error) {
     const apiError = toApiError(error);
     status = apiError.status;
@@ -325,7 +329,7 @@ async function handlePages(req: http.IncomingMessage, res: http.ServerResponse, 
   let m: RegExpExecArray | null;
 
   if ((m = /^\/checkout\/([A-Za-z0-9_]+)$/.exec(url.pathname)) && method === 'GET') {
-    const view = store.checkoutView(m[1]);
+    const view = checkoutView(store, m[1]);
     void flushEvents(); // viewing can expire the session
     if (!view) sendHtml(res, 404, messagePage('Checkout not found', 'There is no checkout session with this address.'));
     else sendHtml(res, 200, checkoutPage(view));
@@ -334,24 +338,24 @@ async function handlePages(req: http.IncomingMessage, res: http.ServerResponse, 
 
   if ((m = /^\/checkout\/([A-Za-z0-9_]+)\/pay$/.exec(url.pathname)) && method === 'POST') {
     const form = await readForm(req);
-    const view = store.checkoutView(m[1]);
+    const view = checkoutView(store, m[1]);
     if (!view) {
       sendHtml(res, 404, messagePage('Checkout not found', 'There is no checkout session with this address.'));
       return true;
     }
-    const outcome = store.payCheckout(m[1], form.string('card') ?? '');
+    const outcome = payCheckout(store, m[1], form.string('card') ?? '');
     if (outcome.ok) {
       await flushEventsAndWait();
       redirect(res, outcome.redirect);
     } else {
       void flushEvents();
-      sendHtml(res, outcome.status, checkoutPage(store.checkoutView(m[1])!, outcome.message));
+      sendHtml(res, outcome.status, checkoutPage(checkoutView(store, m[1])!, outcome.message));
     }
     return true;
   }
 
   if ((m = /^\/portal\/([A-Za-z0-9_]+)$/.exec(url.pathname)) && method === 'GET') {
-    const view = store.portalView(m[1]);
+    const view = portalView(store, m[1]);
     if (!view) {
       sendHtml(res, 404, messagePage('Billing portal not found', 'There is no billing portal session with this address.'));
       return true;
@@ -374,17 +378,17 @@ async function handlePages(req: http.IncomingMessage, res: http.ServerResponse, 
       const subscription = form.requiredString('subscription');
       let done: string;
       if (action === 'change') {
-        store.portalChangePlan(portalId, subscription, form.requiredString('price'));
+        portalChangePlan(store, portalId, subscription, form.requiredString('price'));
         done = 'changed';
       } else {
         done = form.oneOf('when', ['period_end', 'now', 'resume'] as const) ?? 'period_end';
-        store.portalCancel(portalId, subscription, done as 'period_end' | 'now' | 'resume');
+        portalCancel(store, portalId, subscription, done as 'period_end' | 'now' | 'resume');
       }
       await flushEventsAndWait();
       redirect(res, `/portal/${portalId}?done=${done}`);
     } catch (error) {
       const apiError = toApiError(error);
-      const view = store.portalView(portalId);
+      const view = portalView(store, portalId);
       if (!view) sendHtml(res, 404, messagePage('Billing portal not found', 'There is no billing portal session with this address.'));
       else sendHtml(res, apiError.status, portalPage(view, { kind: 'error', text: apiError.message }));
     }
@@ -392,7 +396,7 @@ async function handlePages(req: http.IncomingMessage, res: http.ServerResponse, 
   }
 
   if ((m = /^\/invoice\/([A-Za-z0-9_]+)$/.exec(url.pathname)) && method === 'GET') {
-    const view = store.invoiceView(m[1]);
+    const view = invoiceView(store, m[1]);
     if (!view) sendHtml(res, 404, messagePage('Invoice not found', 'There is no invoice with this address.'));
     else sendHtml(res, 200, invoicePage(view.invoice, view.customer));
     return true;
@@ -439,7 +443,7 @@ async function handleControl(req: http.IncomingMessage, res: http.ServerResponse
     const outcome = input.outcome ?? 'paid';
     if (outcome !== 'paid' && outcome !== 'failed') return fail(400, 'outcome must be "paid" or "failed".');
     try {
-      const result = store.advance(input.subscription, outcome);
+      const result = advance(store, input.subscription, outcome);
       const { ids, attempted } = flushEvents();
       if (wait) await attempted;
       return sendJson(res, 200, { ...result, event_ids: ids });
@@ -451,8 +455,7 @@ async function handleControl(req: http.IncomingMessage, res: http.ServerResponse
 
   if (url.pathname === '/__control/events' && method === 'GET') {
     const type = url.searchParams.get('type');
-    const data = store
-      .allEvents()
+    const data = store.events
       .filter((e) => !type || e.type === type)
       .map((e) => ({ ...e, delivery: queue.deliveryOf(e.id as string) ?? { state: webhookUrl ? 'pending' : 'not_configured', attempts: [] } }));
     return sendJson(res, 200, { object: 'list', data, webhook_url: webhookUrl });
@@ -460,7 +463,7 @@ async function handleControl(req: http.IncomingMessage, res: http.ServerResponse
 
   if ((m = /^\/__control\/resend\/([A-Za-z0-9_]+)$/.exec(url.pathname)) && method === 'POST') {
     const eventId = m[1];
-    if (!store.findEvent(eventId)) return fail(404, `No such event: '${eventId}'`);
+    if (!store.eventIndex.has(eventId)) return fail(404, `No such event: '${eventId}'`);
     if (!webhookUrl) return fail(409, 'FAKE_STRIPE_WEBHOOK_URL is not set, so there is nowhere to send the event.');
     const delivered = queue.enqueue(eventId);
     if (wait) await delivered;
@@ -509,7 +512,7 @@ try {
 
 server.listen(requestedPort, '127.0.0.1', () => {
   const port = (server.address() as { port: number }).port;
-  if (!env.FAKE_STRIPE_PUBLIC_URL) store.setPublicUrl(`http://127.0.0.1:${port}`);
+  if (!env.FAKE_STRIPE_PUBLIC_URL) store.publicUrl = `http://127.0.0.1:${port}`;
   log(
     `listening on http://127.0.0.1:${port} (hosted pages at ${store.publicUrl}; webhooks ${webhookUrl ? `→ ${webhookUrl}` : 'recorded, not posted'}; state ${stateFile ?? 'in memory'})`,
   );

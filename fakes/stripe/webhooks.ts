@@ -8,12 +8,12 @@
 // error, then marked failed. Events behind it wait, so the app always sees them in order.
 import { createHmac } from 'node:crypto';
 
-export function signatureHeader(payload: string, secret: string, timestamp = Math.floor(Date.now() / 1000)): string {
+function signatureHeader(payload: string, secret: string, timestamp = Math.floor(Date.now() / 1000)): string {
   const v1 = createHmac('sha256', secret).update(`${timestamp}.${payload}`, 'utf8').digest('hex');
   return `t=${timestamp},v1=${v1}`;
 }
 
-export interface DeliveryAttempt {
+interface DeliveryAttempt {
   at: number; // unix ms
   status?: number; // HTTP status of the app's answer
   error?: string; // connection error or timeout
@@ -24,7 +24,7 @@ export interface Delivery {
   attempts: DeliveryAttempt[];
 }
 
-export interface QueueOptions {
+interface QueueOptions {
   url: string | null;
   secret: string;
   retryDelaysMs: number[];
@@ -52,10 +52,6 @@ export class WebhookQueue {
   private readonly deliveries = new Map<string, Delivery>();
 
   constructor(private readonly options: QueueOptions) {}
-
-  get url(): string | null {
-    return this.options.url;
-  }
 
   deliveryOf(eventId: string): Delivery | undefined {
     return this.deliveries.get(eventId);

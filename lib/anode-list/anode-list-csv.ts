@@ -1,8 +1,11 @@
+import { writeCsv, type CsvCell } from '@/lib/csv/write-csv';
 import type { AnodeList } from './build-anode-list';
 
 /**
- * The dry-dock anode list as CSV for the yard's spreadsheet (RFC 4180: CRLF line ends,
- * fields quoted when they hold a quote, comma, semicolon or line break).
+ * The dry-dock anode list as CSV for the yard's spreadsheet, written by lib/csv/write-csv
+ * (RFC 4180: CRLF line ends, fields quoted when they hold a quote, comma, semicolon or line
+ * break; texts a spreadsheet would run as a formula prefixed with an apostrophe, as positions
+ * and group labels are typed by users).
  *
  * Layout
  *   1. header, then one row per line of the list (zone by zone, in the list's order);
@@ -38,53 +41,36 @@ export const ANODE_LIST_CSV_ORDER_HEADER = [
   'gross_mass_total_kg',
 ] as const;
 
-const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-/**
- * One CSV field. A text that starts with =, +, -, @ (or a tab or carriage return) and is not a
- * number is prefixed with an apostrophe, so a spreadsheet shows it instead of running it as a
- * formula (CSV injection): positions and group labels are typed by users.
- */
-export function csvField(value: string | number | null | undefined): string {
-  if (value === null || value === undefined) return '';
-  const s = typeof value === 'number' ? String(value) : value;
-  const safe = /^[=+\-@\t\r]/.test(s) && !NUMBER.test(s) ? `'${s}` : s;
-  return /[",;\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-}
-
 /** kg as a plain number with at most 3 decimals ("92.4", not "92.39999999999999"). */
 const kg = (x: number): string => String(Math.round(x * 1000) / 1000);
 
 export function anodeListCsv(list: AnodeList): string {
-  const row = (cells: (string | number | null)[]) => cells.map(csvField).join(',');
-  const out: string[] = [row([...ANODE_LIST_CSV_HEADER])];
+  const out: CsvCell[][] = [[...ANODE_LIST_CSV_HEADER]];
   for (const zone of list.zones) {
     for (const l of zone.lines) {
-      out.push(
-        row([
-          l.zone,
-          l.groupLabel,
-          l.designation,
-          l.alloy,
-          l.mounting,
-          l.quantity,
-          kg(l.netMassEachKg),
-          kg(l.grossMassEachKg),
-          kg(l.netMassTotalKg),
-          kg(l.grossMassTotalKg),
-          l.positions,
-          l.reason,
-          l.status,
-        ]),
-      );
+      out.push([
+        l.zone,
+        l.groupLabel,
+        l.designation,
+        l.alloy,
+        l.mounting,
+        l.quantity,
+        kg(l.netMassEachKg),
+        kg(l.grossMassEachKg),
+        kg(l.netMassTotalKg),
+        kg(l.grossMassTotalKg),
+        l.positions,
+        l.reason,
+        l.status,
+      ]);
     }
   }
-  out.push('');
-  out.push(row(['ordering totals']));
-  out.push(row([...ANODE_LIST_CSV_ORDER_HEADER]));
+  out.push([]);
+  out.push(['ordering totals']);
+  out.push([...ANODE_LIST_CSV_ORDER_HEADER]);
   for (const o of list.orderTotals) {
-    out.push(row([o.designation, o.alloy, o.mounting, o.quantity, kg(o.netMassEachKg), kg(o.grossMassEachKg), kg(o.netMassTotalKg), kg(o.grossMassTotalKg)]));
+    out.push([o.designation, o.alloy, o.mounting, o.quantity, kg(o.netMassEachKg), kg(o.grossMassEachKg), kg(o.netMassTotalKg), kg(o.grossMassTotalKg)]);
   }
-  out.push(row(['total', '', '', list.totals.quantity, '', '', kg(list.totals.netMassKg), kg(list.totals.grossMassKg)]));
-  return out.join('\r\n') + '\r\n';
+  out.push(['total', '', '', list.totals.quantity, '', '', kg(list.totals.netMassKg), kg(list.totals.grossMassKg)]);
+  return writeCsv(out);
 }

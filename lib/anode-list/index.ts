@@ -23,5 +23,7 @@ export {
   type AnodeListTotals,
   type AnodeListZone,
 } from './build-anode-list';
-export { ANODE_LIST_CSV_HEADER, ANODE_LIST_CSV_ORDER_HEADER, anodeListCsv, csvField } from './anode-list-csv';
+export { ANODE_LIST_CSV_HEADER, ANODE_LIST_CSV_ORDER_HEADER, anodeListCsv } from './anode-list-csv';
+// csvField lives in lib/csv (shared with the register export); re-exported for existing callers.
+export { csvField } from '@/lib/csv/write-csv';
 export { FITTING_NOTES, fittingNotesFor, type FittingNote, type FittingNoteScope } from './fitting-notes';

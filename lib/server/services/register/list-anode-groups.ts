@@ -1,5 +1,6 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
+import { writeCsv } from '@/lib/csv/write-csv';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { ilikePattern, toPage } from '../../sql';
 
@@ -97,21 +98,12 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
       }));
 }
 
-const csvCell = (v: unknown) => {
-  const s = v === null || v === undefined ? '' : String(v);
-  // Quote when needed; a leading =, +, - or @ is neutralised so spreadsheets do not run it as a formula.
-  const safe = /^[=+\-@]/.test(s) && !/^-?\d/.test(s) ? `'${s}` : s;
-  return /[",\n;]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
-};
-
-/** The whole register (fitted groups) as CSV, for spreadsheets and the yard. */
+/** The whole register (fitted groups) as CSV, for spreadsheets and the yard; formula-safe (lib/csv/write-csv). */
 export async function exportAnodeRegisterCsv(ctx: OrgContext) {
   const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
   const header = ['asset', 'asset_kind', 'zone', 'group', 'model', 'alloy', 'mounting', 'quantity', 'net_mass_each_kg', 'gross_mass_each_kg', 'net_mass_total_kg', 'positions', 'installed_on', 'last_remaining_fraction', 'last_surveyed_on'];
-  const lines = rows.map((r) =>
-    [r.assetName, r.assetKind, r.zoneName, r.label, r.model.designation, r.model.alloy, r.model.mounting, r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]
-      .map(csvCell)
-      .join(','),
-  );
-  return [header.join(','), ...lines].join('\r\n') + '\r\n';
+  return writeCsv([
+    header,
+    ...rows.map((r) => [r.assetName, r.assetKind, r.zoneName, r.label, r.model.designation, r.model.alloy, r.model.mounting, r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]),
+  ]);
 }

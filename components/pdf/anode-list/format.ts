@@ -1,0 +1,33 @@
+/*
+ * How the anode list writes days, masses and counts. Shared by the page plan, which measures
+ * these texts, and the rendering, which prints them: both must see the same strings.
+ */
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** '2027-03-14' -> '14 Mar 2027', read as a calendar day (no time-zone shift). */
+export function dayText(iso: string | null): string {
+  if (!iso) return '–';
+  const [y, m, d] = iso.split('-').map(Number);
+  return `${d} ${MONTHS[m - 1]} ${y}`;
+}
+
+// Formatters made once: Number.toLocaleString builds a new one on every call, which showed in the profile.
+const KG_1 = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });
+const KG_2 = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+const COUNT = new Intl.NumberFormat('en-GB', { maximumFractionDigits: 0 });
+
+/** kg with one decimal, two when the value needs them (a 0.25 kg anode stays 0.25 kg); the style of lib/format's fmt. */
+export function kgText(x: number): string {
+  if (!Number.isFinite(x)) return '–';
+  const oneDecimal = Math.abs(x * 10 - Math.round(x * 10)) < 1e-6;
+  return `${(oneDecimal ? KG_1 : KG_2).format(x)} kg`;
+}
+
+export const count = (n: number) => COUNT.format(n);
+
+/** 'special-survey' -> 'Special survey'. */
+export function humanise(s: string): string {
+  const t = s.replace(/[-_]+/g, ' ').trim();
+  return t ? t[0].toUpperCase() + t.slice(1) : t;
+}

@@ -1,0 +1,306 @@
+import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
+import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { CAUTION_TEXT } from '../pdf-kit';
+import { count, dayText, humanise, kgText } from './format';
+import { FONT, lineCount, wrapLines } from './measure-text';
+
+/*
+ * The page plan of the dry-dock anode list, A4 LANDSCAPE: geometry, columns, the texts of
+ * every cell, and where the sheets break. render.tsx draws what this plans.
+ *
+ * Why landscape: each line has eleven columns, one of them free-text positions
+ * ("Fr 144-150 P/S, 2.5 m above keel"). In portrait (523 pt of width) the positions column
+ * would be about 85 pt and most lines would wrap to two or three rows, so a 300-line list
+ * would run to twice the pages and the yard would read across broken rows. Landscape
+ * (770 pt) keeps nearly every line on one row, and the sheet still prints and files on A4.
+ *
+ * Why the sheets are planned here rather than by react-pdf:
+ * 1. Speed. react-pdf 4.9 paginates a <Page> by laying out everything not yet placed again
+ *    for every sheet it cuts off (twice with a page-number footer): a 300-line list in one
+ *    <Page> took about 1.6-2 s on two cores and grows with pages x lines.
+ * 2. Page numbers. In react-pdf 4.9 a `render` (page number) node inside a <Page> that
+ *    wraps is dropped together with its fixed footer; it is printed only on pages that do
+ *    not wrap.
+ * So planAnodeListPages estimates every block's height from Inter's glyph widths (rounded up,
+ * measure-text.ts) and cuts the list into sheets itself; each sheet is a <Page wrap={false}>
+ * with its number written in. Rows and warnings taller than a sheet are cut into parts at line
+ * breaks, so every block fits. A test renders the same plan with wrapping pages
+ * (`pagination="checked"`) and checks react-pdf needs no more sheets than planned, i.e. the
+ * estimate never runs short.
+ */
+
+// ---------- geometry (points) ----------
+const PAGE_WIDTH = 841.89;
+const PAGE_HEIGHT = 595.28;
+export const CONTENT_WIDTH = PAGE_WIDTH - 2 * 36; // pdf.page paddingHorizontal
+/** pdf.page paddingTop 36 and paddingBottom 48, less a little slack. */
+const CONTENT_HEIGHT = PAGE_HEIGHT - 36 - 48 - 6;
+const LINE = FONT * 1.35; // pdf.page lineHeight
+export const CELL_PAD = 3;
+/** Share of the content width taken by the left (organisation and title) half of the title block. */
+export const TITLE_LEFT_SHARE = 0.72;
+
+// ---------- tables ----------
+interface Col {
+  label: string;
+  /** Fraction of the content width. */
+  share: number;
+  right?: boolean;
+  /** Extra left padding (the positions column, right after right-aligned numbers). */
+  gap?: boolean;
+}
+
+export type TableKind = 'line' | 'order' | 'asset' | 'docking';
+
+export const COLUMNS: Record<TableKind, Col[]> = {
+  line: [
+    { label: 'Group', share: 0.1 },
+    { label: 'Model', share: 0.09 },
+    { label: 'Alloy', share: 0.08 },
+    { label: 'Mounting', share: 0.09 },
+    { label: 'Qty', share: 0.045, right: true },
+    { label: 'Net each', share: 0.07, right: true },
+    { label: 'Gross each', share: 0.075, right: true },
+    { label: 'Net total', share: 0.08, right: true },
+    { label: 'Gross total', share: 0.085, right: true },
+    { label: 'Positions', share: 0.205, gap: true },
+    { label: 'Status', share: 0.08 },
+  ],
+  order: [
+    { label: 'Model', share: 0.14 },
+    { label: 'Alloy', share: 0.15 },
+    { label: 'Mounting', share: 0.13 },
+    { label: 'Quantity', share: 0.1, right: true },
+    { label: 'Net each', share: 0.11, right: true },
+    { label: 'Gross each', share: 0.11, right: true },
+    { label: 'Net total', share: 0.13, right: true },
+    { label: 'Gross total', share: 0.13, right: true },
+  ],
+  // The two header tables sit side by side, each 49 % of the width.
+  asset: [
+    { label: 'Particular', share: 0.49 * 0.45 },
+    { label: 'Value', share: 0.49 * 0.55 },
+  ],
+  docking: [
+    { label: 'Item', share: 0.49 * 0.35 },
+    { label: 'Value', share: 0.49 * 0.65 },
+  ],
+};
+
+export const colWidth = (c: Col) => c.share * CONTENT_WIDTH;
+/** Room for text inside a cell. */
+const textRoom = (c: Col) => colWidth(c) - CELL_PAD - (c.gap ? CELL_PAD * 2 : 0);
+
+// Heights the plan uses, from the styles in render.tsx and pdf-kit's (font size x line height
+// + padding + border): change one and the other together, or the plan runs short.
+const H = {
+  row: (lines: number) => lines * LINE + 4 + 0.4,
+  totalRow: (lines: number) => lines * LINE + 4 + 0.8,
+  head: LINE + 4 + 0.8,
+  zoneTitle: (lines: number) => lines * 9.5 * 1.35 + 6 + 2,
+  section: 10.5 * 1.35 + 12 + 4 + 2 + 0.6,
+  warning: (lines: number) => lines * 8 * 1.35 + 8 + 3,
+};
+
+// ---------- cell texts (measured here, printed by render.tsx) ----------
+const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted' };
+const zoneName = (zone: string | null) => zone ?? 'No zone';
+
+const lineCells = (l: AnodeListLine): string[] => [
+  l.groupLabel,
+  l.designation,
+  ALLOY_LABELS[l.alloy] ?? l.alloy,
+  MOUNTING_LABELS[l.mounting] ?? l.mounting,
+  count(l.quantity),
+  kgText(l.netMassEachKg),
+  kgText(l.grossMassEachKg),
+  kgText(l.netMassTotalKg),
+  kgText(l.grossMassTotalKg),
+  l.positions ?? '–',
+  STATUS_WORDS[l.status] ?? l.status,
+];
+const subtotalCells = (t: AnodeListTotals): string[] => ['Subtotal', '', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg), '', ''];
+const orderCells = (o: AnodeListOrderLine): string[] => [
+  o.designation,
+  ALLOY_LABELS[o.alloy] ?? o.alloy,
+  MOUNTING_LABELS[o.mounting] ?? o.mounting,
+  count(o.quantity),
+  kgText(o.netMassEachKg),
+  kgText(o.grossMassEachKg),
+  kgText(o.netMassTotalKg),
+  kgText(o.grossMassTotalKg),
+];
+const grandTotalCells = (t: AnodeListTotals): string[] => ['Grand total', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg)];
+
+export function dockingRows(list: AnodeList): string[][] {
+  const d = list.docking;
+  return [
+    ['Kind', humanise(d.kind)],
+    ['Planned', d.plannedEnd ? `${dayText(d.plannedStart)} to ${dayText(d.plannedEnd)}` : `from ${dayText(d.plannedStart)}`],
+    ...(d.actualStart ? [['Actual start', dayText(d.actualStart)]] : []),
+    ['Yard', d.yard ?? 'not yet chosen'],
+    ...(d.reference ? [['Reference', d.reference]] : []),
+    ['Anodes to fit', `${count(list.totals.quantity)} on ${count(list.lineCount)} line${list.lineCount === 1 ? '' : 's'}`],
+    ['Net / gross mass', `${kgText(list.totals.netMassKg)} / ${kgText(list.totals.grossMassKg)}`],
+  ];
+}
+export const assetRows = (list: AnodeList): string[][] => [['Name', list.asset.name], ...list.asset.particulars];
+export const assetTitle = (list: AnodeList) => (list.asset.kind === 'vessel' ? 'Vessel' : 'Structure');
+
+export const titleLine = (list: AnodeList) => {
+  const d = list.docking;
+  return `${list.asset.name} (${list.asset.kind}) · ${d.kind === 'campaign' ? 'Diving or works campaign' : `${humanise(d.kind)} docking`} from ${dayText(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
+};
+const titleHeight = (list: AnodeList) =>
+  Math.max(
+    lineCount(list.organisation.name, CONTENT_WIDTH * TITLE_LEFT_SHARE, 7.5) * 7.5 * 1.35 + 15 * 1.25 + 3 + lineCount(titleLine(list), CONTENT_WIDTH * TITLE_LEFT_SHARE) * LINE,
+    LINE + lineCount(`Docking reference ${list.docking.reference ?? ''}`, CONTENT_WIDTH * (1 - TITLE_LEFT_SHARE), 7.5) * 7.5 * 1.35,
+  );
+
+// ---------- page plan ----------
+export type PlanItem =
+  | { kind: 'title' }
+  | { kind: 'header-tables' }
+  | { kind: 'warning'; text: string; first: boolean }
+  | { kind: 'section'; title: string }
+  | { kind: 'zone-title'; title: string; continued: boolean; withSection: boolean }
+  | { kind: 'head'; table: TableKind }
+  | { kind: 'row'; table: TableKind; cells: string[]; total: boolean }
+  | { kind: 'empty' }
+  | { kind: 'notes' }
+  | { kind: 'signatures' };
+
+export interface AnodeListPagePlan {
+  pages: PlanItem[][];
+  /** Estimated content height of each sheet, pt. */
+  heights: number[];
+  /** Every sheet's estimate within the content area (always, as tall blocks are cut). */
+  fits: boolean;
+}
+
+interface PlannedRow {
+  cells: string[];
+  total: boolean;
+  height: number;
+}
+
+/** A table row, cut into parts at line breaks when it is taller than `maxHeight`. */
+function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: number): PlannedRow[] {
+  const cols = COLUMNS[table];
+  const wrapped = cells.map((c, i) => wrapLines(c, textRoom(cols[i])));
+  const lines = Math.max(...wrapped.map((w) => w.length));
+  const height = (n: number) => (total ? H.totalRow(n) : H.row(n));
+  if (height(lines) <= maxHeight) return [{ cells, total, height: height(lines) }];
+  const perPart = Math.max(1, Math.floor((maxHeight - height(0)) / LINE));
+  const parts: PlannedRow[] = [];
+  for (let k = 0; k * perPart < lines; k++) {
+    const slice = wrapped.map((w) => w.slice(k * perPart, (k + 1) * perPart).join('\n'));
+    parts.push({ cells: slice, total, height: height(Math.min(perPart, lines - k * perPart)) });
+  }
+  return parts;
+}
+
+/**
+ * Cuts the list into sheets. Tables continue over sheets with their title (marked
+ * "continued") and column heads repeated; a title never ends a sheet; a subtotal or grand
+ * total stays with the row above it; the fitting notes, and the signatures with the cautions,
+ * are kept whole. Heights are estimates that never run short (see the file comment).
+ */
+export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
+  const pages: PlanItem[][] = [[]];
+  const heights: number[] = [0];
+  let used = 0;
+  const newPage = () => {
+    pages.push([]);
+    heights.push(0);
+    used = 0;
+  };
+  const put = (item: PlanItem, height: number) => {
+    pages[pages.length - 1].push(item);
+    used += height;
+    heights[heights.length - 1] = used;
+  };
+  /** Starts a new sheet unless `height` still fits (an empty sheet takes anything). */
+  const ensure = (height: number) => {
+    if (used > 0 && used + height > CONTENT_HEIGHT) newPage();
+  };
+
+  /** A table under a title that is repeated, marked continued, on each further sheet. */
+  const table = (kind: TableKind, rows: { cells: string[]; total?: boolean }[], title: (continued: boolean) => { item: PlanItem; height: number }) => {
+    const lead = Math.max(title(false).height, title(true).height) + H.head;
+    // A part must fit a fresh sheet under the title, with room for a total row after it.
+    const maxRow = CONTENT_HEIGHT - lead - H.totalRow(1);
+    const planned = rows.flatMap((r) => rowParts(r.cells, kind, r.total ?? false, maxRow));
+    planned.forEach((row, i) => {
+      const next = planned[i + 1];
+      const need = row.height + (next?.total ? next.height : 0);
+      if (i === 0) {
+        const first = title(false);
+        ensure(first.height + H.head + need);
+        put(first.item, first.height);
+        put({ kind: 'head', table: kind }, H.head);
+      } else if (!row.total && used + need > CONTENT_HEIGHT) {
+        newPage();
+        const again = title(true);
+        put(again.item, again.height);
+        put({ kind: 'head', table: kind }, H.head);
+      }
+      put({ kind: 'row', table: kind, cells: row.cells, total: row.total }, row.height);
+    });
+  };
+  const section = (name: string) => (continued: boolean) => ({ item: { kind: 'section', title: continued ? `${name} (continued)` : name } as PlanItem, height: H.section });
+
+  // Title, then the two particulars tables side by side, or one under the other if too tall together.
+  put({ kind: 'title' }, titleHeight(list));
+  const sideHeight = (kind: TableKind, rows: string[][]) => H.section + H.head + rows.reduce((sum, cells) => sum + rowParts(cells, kind, false, Infinity)[0].height, 0);
+  const sideBySide = Math.max(sideHeight('asset', assetRows(list)), sideHeight('docking', dockingRows(list)));
+  if (used + sideBySide <= CONTENT_HEIGHT) {
+    put({ kind: 'header-tables' }, sideBySide);
+  } else {
+    table('asset', assetRows(list).map((cells) => ({ cells })), section(assetTitle(list)));
+    table('docking', dockingRows(list).map((cells) => ({ cells })), section('Docking'));
+  }
+
+  list.warnings.forEach((w, i) => {
+    const lines = wrapLines(`Warning: ${w}`, CONTENT_WIDTH - 8, 8);
+    const perPart = Math.floor((CONTENT_HEIGHT - H.warning(0) - 8) / (8 * 1.35));
+    for (let k = 0; k * perPart < lines.length; k++) {
+      const part = lines.slice(k * perPart, (k + 1) * perPart);
+      const first = i === 0 && k === 0;
+      const h = H.warning(part.length) + (first ? 8 : 0);
+      ensure(h);
+      put({ kind: 'warning', text: part.join(lines.length > perPart ? '\n' : ' '), first }, h);
+    }
+  });
+
+  if (list.zones.length === 0) {
+    ensure(H.section + LINE);
+    put({ kind: 'section', title: 'Anodes to fit, by zone' }, H.section);
+    put({ kind: 'empty' }, LINE);
+  }
+  list.zones.forEach((z, zi) => {
+    const name = `${zoneName(z.zone)} · ${count(z.subtotal.quantity)} anode${z.subtotal.quantity === 1 ? '' : 's'}`;
+    const zoneTitleHeight = (continued: boolean) => H.zoneTitle(lineCount(continued ? `${name} (continued)` : name, CONTENT_WIDTH, 9.5));
+    const rows = [...z.lines.map((l) => ({ cells: lineCells(l) })), { cells: subtotalCells(z.subtotal), total: true }];
+    // The section title goes above the first zone, on the same sheet.
+    const withSection = (continued: boolean) => zi === 0 && !continued;
+    table('line', rows, (continued) => ({
+      item: { kind: 'zone-title', title: name, continued, withSection: withSection(continued) },
+      height: zoneTitleHeight(continued) + (withSection(continued) ? H.section : 0),
+    }));
+  });
+
+  if (list.orderTotals.length > 0) {
+    const rows = [...list.orderTotals.map((o) => ({ cells: orderCells(o) })), { cells: grandTotalCells(list.totals), total: true }];
+    table('order', rows, section('Totals by model, for ordering'));
+  }
+
+  const notes = H.section + list.fittingNotes.reduce((sum, n) => sum + lineCount(n, CONTENT_WIDTH - 14) * LINE + 2, 0);
+  ensure(notes);
+  put({ kind: 'notes' }, notes);
+  const signatures = H.section + H.head + 5 * (10 + LINE + 0.6 + 2) + 10 + 12 + lineCount(CAUTION_TEXT, CONTENT_WIDTH - 12, 8) * 8 * 1.35;
+  ensure(signatures);
+  put({ kind: 'signatures' }, signatures);
+
+  return { pages, heights, fits: heights.every((h) => h <= CONTENT_HEIGHT) };
+}

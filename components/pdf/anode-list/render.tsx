@@ -1,0 +1,205 @@
+import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { format } from 'date-fns';
+import type { AnodeList } from '@/lib/anode-list/build-anode-list';
+import { CAUTION_TEXT, pdf } from '../pdf-kit';
+import { dayText } from './format';
+import { assetRows, assetTitle, CELL_PAD, colWidth, COLUMNS, CONTENT_WIDTH, dockingRows, planAnodeListPages, TITLE_LEFT_SHARE, titleLine, type PlanItem, type TableKind } from './layout';
+
+/*
+ * The react-pdf components of the dry-dock anode list. They draw the sheets layout.ts plans;
+ * the heights the plan assumes (its `H`) follow the styles here, so change them together.
+ */
+
+// Number columns use tabular figures so right-aligned digits line up (Inter's tnum also widens
+// hyphens, which is why it is not set for the whole page).
+const NUMBER_FEATURES = { calt: false, tnum: true };
+// Styles made once: react-pdf resolves every style object it meets, so shared objects are cheaper.
+const CELL_STYLES = Object.fromEntries(
+  (Object.keys(COLUMNS) as TableKind[]).map((kind) => [
+    kind,
+    COLUMNS[kind].map(
+      (c) =>
+        StyleSheet.create({
+          s: c.right
+            ? { width: colWidth(c), textAlign: 'right', paddingRight: CELL_PAD, fontFeatureSettings: NUMBER_FEATURES }
+            : { width: colWidth(c), textAlign: 'left', paddingRight: CELL_PAD, paddingLeft: c.gap ? CELL_PAD * 2 : 0 },
+        }).s,
+    ),
+  ]),
+) as Record<TableKind, ReturnType<typeof StyleSheet.create>[string][]>;
+
+const s = StyleSheet.create({
+  row: { flexDirection: 'row', borderBottomWidth: 0.4, borderBottomColor: '#d9d5cc', paddingVertical: 2 },
+  totalRow: { flexDirection: 'row', borderBottomWidth: 0.8, borderBottomColor: '#7b8590', paddingVertical: 2, fontWeight: 600 },
+  headRow: { flexDirection: 'row', borderBottomWidth: 0.8, borderBottomColor: '#7b8590', paddingVertical: 2, fontWeight: 600 },
+  zoneTitle: { fontWeight: 600, fontSize: 9.5, marginTop: 6, marginBottom: 2 },
+  continued: { fontWeight: 400, color: '#46505b' },
+  warning: { ...pdf.warning },
+  firstWarning: { ...pdf.warning, marginTop: 8 },
+});
+
+const when = (d: Date | null) => (d ? format(d, 'd MMM yyyy') : '');
+
+// ---------- blocks ----------
+function Row({ table, cells, rowStyle }: { table: TableKind; cells: string[]; rowStyle: typeof s.row }) {
+  const styles = CELL_STYLES[table];
+  return (
+    <View style={rowStyle} wrap={false}>
+      {cells.map((cell, i) => (
+        <Text key={i} style={styles[i]}>
+          {cell}
+        </Text>
+      ))}
+    </View>
+  );
+}
+
+function SmallTable({ table, title, rows }: { table: TableKind; title: string; rows: string[][] }) {
+  return (
+    <View>
+      <Text style={pdf.h2}>{title}</Text>
+      <Row table={table} cells={COLUMNS[table].map((c) => c.label)} rowStyle={s.headRow} />
+      {rows.map((cells, i) => (
+        <Row key={i} table={table} cells={cells} rowStyle={s.row} />
+      ))}
+    </View>
+  );
+}
+
+function Title({ list }: { list: AnodeList }) {
+  const d = list.docking;
+  return (
+    <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-end' }}>
+      <View style={{ width: CONTENT_WIDTH * TITLE_LEFT_SHARE }}>
+        <Text style={pdf.small}>{list.organisation.name}</Text>
+        <Text style={pdf.h1}>Dry-dock anode list</Text>
+        <Text>{titleLine(list)}</Text>
+      </View>
+      <View style={{ width: CONTENT_WIDTH * (1 - TITLE_LEFT_SHARE), alignItems: 'flex-end' }}>
+        <Text style={{ fontWeight: 600 }}>{`Revision ${list.revision.number}`}</Text>
+        {d.reference ? <Text style={[pdf.small, { textAlign: 'right' }]}>{`Docking reference ${d.reference}`}</Text> : null}
+      </View>
+    </View>
+  );
+}
+
+function Signatures({ list }: { list: AnodeList }) {
+  const r = list.revision;
+  const rows: [string, string, string][] = [
+    ['Prepared', r.preparedBy ?? '', when(r.preparedAt)],
+    ['Checked', r.checkedBy ?? '', when(r.checkedAt)],
+    ['Approved', r.approvedBy ?? '', when(r.approvedAt)],
+    ['Fitted by (yard)', '', ''],
+    ['Accepted by (owner)', '', ''],
+  ];
+  const cell = (share: number) => ({ width: share * CONTENT_WIDTH, paddingRight: 8 });
+  const line = { borderBottomWidth: 0.6, borderBottomColor: '#7b8590' };
+  return (
+    <View wrap={false}>
+      <Text style={pdf.h2}>{`Revision ${r.number} and signatures`}</Text>
+      <View style={s.headRow}>
+        <Text style={cell(0.2)}>Role</Text>
+        <Text style={cell(0.3)}>Name</Text>
+        <Text style={cell(0.16)}>Date</Text>
+        <Text style={cell(0.34)}>Signature</Text>
+      </View>
+      {rows.map(([role, name, date]) => (
+        <View key={role} style={{ flexDirection: 'row', alignItems: 'flex-end', paddingTop: 10, paddingBottom: 2 }}>
+          <Text style={{ ...cell(0.2), fontWeight: 600 }}>{role}</Text>
+          <View style={cell(0.3)}>
+            <Text style={line}>{name || ' '}</Text>
+          </View>
+          <View style={cell(0.16)}>
+            <Text style={line}>{date || ' '}</Text>
+          </View>
+          <View style={cell(0.34)}>
+            <Text style={line}> </Text>
+          </View>
+        </View>
+      ))}
+      <Text style={pdf.caution}>{CAUTION_TEXT}</Text>
+    </View>
+  );
+}
+
+function PlanItemView({ item, list }: { item: PlanItem; list: AnodeList }) {
+  switch (item.kind) {
+    case 'title':
+      return <Title list={list} />;
+    case 'header-tables':
+      return (
+        <View style={{ flexDirection: 'row', justifyContent: 'space-between' }}>
+          <SmallTable table="asset" title={assetTitle(list)} rows={assetRows(list)} />
+          <SmallTable table="docking" title="Docking" rows={dockingRows(list)} />
+        </View>
+      );
+    case 'warning':
+      return <Text style={item.first ? s.firstWarning : s.warning}>{item.text}</Text>;
+    case 'section':
+      return <Text style={pdf.h2}>{item.title}</Text>;
+    case 'zone-title':
+      return (
+        <View>
+          {item.withSection ? <Text style={pdf.h2}>Anodes to fit, by zone</Text> : null}
+          <Text style={s.zoneTitle}>
+            {item.title}
+            {item.continued ? <Text style={s.continued}> (continued)</Text> : null}
+          </Text>
+        </View>
+      );
+    case 'head':
+      return <Row table={item.table} cells={COLUMNS[item.table].map((c) => c.label)} rowStyle={s.headRow} />;
+    case 'row':
+      return <Row table={item.table} cells={item.cells} rowStyle={item.total ? s.totalRow : s.row} />;
+    case 'empty':
+      return <Text>No renewals are booked for this docking.</Text>;
+    case 'notes':
+      return (
+        <View wrap={false}>
+          <Text style={pdf.h2}>Fitting notes</Text>
+          {list.fittingNotes.map((note, i) => (
+            <View key={i} style={{ flexDirection: 'row', marginBottom: 2 }}>
+              <Text style={{ width: 14 }}>{`${i + 1}.`}</Text>
+              <Text style={{ flex: 1 }}>{note}</Text>
+            </View>
+          ))}
+        </View>
+      );
+    case 'signatures':
+      return <Signatures list={list} />;
+  }
+}
+
+// Inter's contextual alternates (calt) change nothing in these texts but took about a fifth of
+// the text-shaping time in the profile of a 300-line list: off for the whole document.
+const PAGE_STYLE = [pdf.page, StyleSheet.create({ p: { fontFeatureSettings: { calt: false } } }).p];
+
+/**
+ * The dry-dock anode list: per zone what to fit, totals by model for ordering, fitting notes,
+ * signatures and cautions, one <Page> per planned sheet with "page N of M" written in.
+ * `pagination="checked"` lets every sheet wrap instead, so a test can compare react-pdf's page
+ * count with the plan (the numbers printed are still the plan's).
+ */
+export function AnodeListDocument({ list, pagination = 'planned' }: { list: AnodeList; pagination?: 'planned' | 'checked' }) {
+  const d = list.docking;
+  const footer = `${list.organisation.name} · ${list.asset.name} · ${d.kind === 'campaign' ? 'anode list, campaign' : 'dry-dock anode list, docking'} from ${dayText(d.plannedStart)} · revision ${list.revision.number}`;
+  const printed = `Printed ${format(list.printedAt, 'd MMM yyyy HH:mm')} by ${list.printedBy}`;
+  const plan = planAnodeListPages(list);
+  // Should an estimate ever exceed a sheet, let react-pdf continue it rather than cut text off.
+  const wrap = pagination === 'checked' || !plan.fits;
+  return (
+    <Document title={`Dry-dock anode list: ${list.asset.name}, ${d.plannedStart}, revision ${list.revision.number}`} author="Tidewarden" subject="Sacrificial anodes to order and fit at a docking">
+      {plan.pages.map((items, p) => (
+        <Page key={p} size="A4" orientation="landscape" style={PAGE_STYLE} wrap={wrap}>
+          {items.map((item, i) => (
+            <PlanItemView key={i} item={item} list={list} />
+          ))}
+          <View style={pdf.footer} fixed>
+            <Text>{footer}</Text>
+            <Text>{`${printed} · page ${p + 1} of ${plan.pages.length}`}</Text>
+          </View>
+        </Page>
+      ))}
+    </Document>
+  );
+}
