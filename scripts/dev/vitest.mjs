@@ -5,14 +5,14 @@
 // so several developers can run at once on separate bases and clusters.
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
-import { root, ensureNodeModules, startCluster, startTsChild, waitForPort, stopAll, onShutdown, portFrom, say } from '../lib/bootstrap.mjs';
+import { root, startCluster, startTsChild, waitForPort, stopAll, onShutdown, portFrom, say } from '../lib/bootstrap.mjs';
 
 const base = portFrom('TIDEWARDEN_DEV_IT_BASE', 14000);
 const clusterName = process.env.DEV_IT_CLUSTER || 'devit';
 const ports = { pg: base, smtp: base + 1, mailApi: base + 2, stripe: base + 3 };
 
 async function main() {
-  ensureNodeModules();
+  // No npm ci here: a worktree whose node_modules links to another checkout would empty that one.
   onShutdown(stopAll);
   const cluster = await startCluster({ name: clusterName, port: ports.pg });
   const database = `${clusterName}_it`;
