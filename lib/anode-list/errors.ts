@@ -1,13 +1,9 @@
-/**
- * The one error for invalid anode-list input. `field` is a dotted path to the offending
- * value (for example `renewals[3].quantity`) so a route handler can put the message beside it.
- */
-export class AnodeListInputError extends Error {
-  readonly field: string;
+import { InputError } from '@/lib/errors/input-error';
 
+/** Invalid input to the anode list; one kind of InputError, so it maps to 422 with the field named. */
+export class AnodeListInputError extends InputError {
   constructor(field: string, message: string) {
-    super(message);
+    super(field, message);
     this.name = 'AnodeListInputError';
-    this.field = field;
   }
 }

@@ -1,13 +1,9 @@
-/**
- * The single error type for invalid input. `field` is a dotted path to the offending
- * value (for example `surfaces[2].areaM2`) so a form can put the message beside it.
- */
-export class CpInputError extends Error {
-  readonly field: string;
+import { InputError } from '@/lib/errors/input-error';
 
+/** Invalid input to the engineering core; one kind of InputError, so it maps to 422 with the field named. */
+export class CpInputError extends InputError {
   constructor(field: string, message: string) {
-    super(message);
+    super(field, message);
     this.name = 'CpInputError';
-    this.field = field;
   }
 }

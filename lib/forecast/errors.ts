@@ -1,14 +1,9 @@
-/**
- * The one error for invalid forecast or scheduling input. `field` is a dotted path to
- * the offending value (for example `groups[3].endOfLife`) so a form or an API error
- * body can put the message beside it.
- */
-export class ForecastInputError extends Error {
-  readonly field: string;
+import { InputError } from '@/lib/errors/input-error';
 
+/** Invalid input to the forecast and scheduling; one kind of InputError, so it maps to 422 with the field named. */
+export class ForecastInputError extends InputError {
   constructor(field: string, message: string) {
-    super(message);
+    super(field, message);
     this.name = 'ForecastInputError';
-    this.field = field;
   }
 }

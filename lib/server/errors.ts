@@ -1,6 +1,6 @@
 import { ZodError } from 'zod';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
-import { CpInputError } from '@/lib/cp/errors';
+import { InputError } from '@/lib/errors/input-error';
 
 // One error type for the whole server side; the code decides the HTTP status and what the user sees.
 export type AppErrorCode = 'unauthenticated' | 'forbidden' | 'not-found' | 'conflict' | 'invalid' | 'rate-limited' | 'read-only' | 'payload-too-large' | 'unsupported';
@@ -52,7 +52,7 @@ export function toErrorBody(error: unknown): { status: number; body: ErrorBody }
     const fieldErrors = Object.keys(error.fieldErrors).length ? error.fieldErrors : undefined;
     return { status: error.status, body: { error: { code: error.code, message: error.message, fieldErrors } } };
   }
-  if (error instanceof CpInputError) {
+  if (error instanceof InputError) {
     return { status: 422, body: { error: { code: 'invalid', message: error.message, fieldErrors: { [error.field]: [error.message] } } } };
   }
   if (error instanceof UniqueConstraintViolationException) {

@@ -2,6 +2,7 @@ import { AnodeModelSchema, type AnodeModelRow } from '@/entities';
 import { BUILTIN_ANODE_MODELS, type AnodeModel } from '@/lib/cp';
 import { AppError } from '../../errors';
 import type { OrgContext } from '../../org-context';
+import { isUuid } from '../../ids';
 
 /** Catalogue keys say where a model lives: `builtin:<designation>` or `org:<uuid>`. */
 export const builtinKey = (id: string) => `builtin:${id}`;
@@ -42,7 +43,7 @@ export async function resolveAnodeModel(ctx: OrgContext, key: string): Promise<C
   if (source === 'builtin') {
     const model = BUILTIN_ANODE_MODELS.find((m) => m.id === id);
     if (model) return { ...model, key, source: 'built-in', archived: false };
-  } else if (source === 'org' && /^[0-9a-f-]{36}$/.test(id)) {
+  } else if (source === 'org' && isUuid(id)) {
     const row = await ctx.em.findOne(AnodeModelSchema, { id, organisation: ctx.organisation });
     if (row) return { ...toCpModel(row), key, source: 'organisation', archived: row.archivedAt != null };
   }

@@ -5,6 +5,7 @@ import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { z } from 'zod';
+import { isUuid } from '../../ids';
 
 type ModelInput = z.infer<typeof anodeModelSchema>;
 
@@ -55,7 +56,7 @@ export async function createAnodeModel(ctx: OrgContext, input: unknown) {
 /** Models already used stay readable in designs and the register (they keep a snapshot); archiving hides them from new choices. */
 export async function setAnodeModelArchived(ctx: OrgContext, modelId: string, archived: boolean) {
   requirePermission(ctx, 'catalogue:write');
-  const model = /^[0-9a-f-]{36}$/i.test(modelId) ? await ctx.em.findOne(AnodeModelSchema, { id: modelId, organisation: ctx.organisation }) : null;
+  const model = isUuid(modelId) ? await ctx.em.findOne(AnodeModelSchema, { id: modelId, organisation: ctx.organisation }) : null;
   if (!model) throw notFound('Anode model');
   model.archivedAt = archived ? new Date() : null;
   audit(ctx, { action: archived ? 'catalogue.model-archived' : 'catalogue.model-restored', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });

@@ -3,10 +3,11 @@ import { dockingSchema, dockingUpdateSchema } from '@/lib/schemas/planner';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { uuidOrNotFound } from '../../ids';
 
 export async function getDockingOrThrow(ctx: OrgContext, dockingId: string) {
   requirePermission(ctx, 'org:read');
-  if (!/^[0-9a-f-]{36}$/i.test(dockingId)) throw notFound('Docking');
+  uuidOrNotFound(dockingId, 'Docking');
   const docking = await ctx.em.findOne(DockingSchema, { id: dockingId, organisation: ctx.organisation }, { populate: ['asset'] });
   if (!docking) throw notFound('Docking');
   return docking;

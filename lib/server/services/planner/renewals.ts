@@ -4,9 +4,10 @@ import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDockingOrThrow } from './dockings';
+import { uuidOrNotFound } from '../../ids';
 
 async function getRenewalOrThrow(ctx: OrgContext, renewalId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(renewalId)) throw notFound('Renewal');
+  uuidOrNotFound(renewalId, 'Renewal');
   const renewal = await ctx.em.findOne(RenewalSchema, { id: renewalId, organisation: ctx.organisation }, { populate: ['group', 'group.zone', 'docking', 'docking.asset'] });
   if (!renewal) throw notFound('Renewal');
   return renewal;

@@ -6,6 +6,7 @@ import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
 import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
+import { uuidOrNotFound } from '../../ids';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
   const alloy = ALLOYS[model.alloy];
@@ -74,7 +75,7 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
 }
 
 export async function getAnodeGroupOrThrow(ctx: OrgContext, groupId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(groupId)) throw notFound('Anode group');
+  uuidOrNotFound(groupId, 'Anode group');
   const group = await ctx.em.findOne(AnodeGroupSchema, { id: groupId, organisation: ctx.organisation }, { populate: ['asset', 'zone'] });
   if (!group) throw notFound('Anode group');
   return group;

@@ -4,6 +4,7 @@ import { notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
+import { uuidOrNotFound } from '../../ids';
 
 // Zones store their design current density in A/m2 (the desk shows mA/m2).
 
@@ -18,6 +19,7 @@ export async function createZone(ctx: OrgContext, assetId: string, input: unknow
 }
 
 async function getZoneOrThrow(ctx: OrgContext, zoneId: string) {
+  uuidOrNotFound(zoneId, 'Zone');
   const zone = await ctx.em.findOne(ZoneSchema, { id: zoneId, asset: { organisation: ctx.organisation } }, { populate: ['asset'] });
   if (!zone) throw notFound('Zone');
   return zone;

@@ -3,6 +3,7 @@ import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
+import { uuidOrNotFound } from '../../ids';
 
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
 
@@ -40,7 +41,7 @@ export async function addSurveyAttachment(ctx: OrgContext, surveyId: string, fil
 
 export async function getSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string) {
   const survey = await getSurveyOrThrow(ctx, surveyId);
-  if (!/^[0-9a-f-]{36}$/i.test(attachmentId)) throw notFound('Attachment');
+  uuidOrNotFound(attachmentId, 'Attachment');
   const attachment = await ctx.em.findOne(SurveyAttachmentSchema, { id: attachmentId, survey }, { populate: ['data'] });
   if (!attachment) throw notFound('Attachment');
   return attachment;

@@ -2,13 +2,10 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
-import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
-import { getAssetOrThrow } from '@/lib/server/services/assets/get-asset';
-import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
-import { loadGroupForecasts } from '@/lib/server/services/forecast/group-forecasts';
+import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
@@ -18,7 +15,7 @@ import { ArchiveAssetButton } from '@/components/register/archive-asset-button';
 import { ZoneForm, ArchiveZoneButton } from '@/components/register/zone-form';
 import { AnodeGroupForm, RemoveGroupForm } from '@/components/register/anode-group-form';
 import { RegisterTable } from '@/components/register/register-table';
-import { DepletionChart, type ChartSeries } from '@/components/register/depletion-chart';
+import { DepletionChart } from '@/components/register/depletion-chart';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -27,42 +24,14 @@ const day = (iso: string) => format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy');
 export default async function AssetPage({ params }: { params: Promise<{ org: string; assetId: string }> }) {
   const { org, assetId } = await params;
   const ctx = await getPageOrgContext(org);
-  let asset;
+  let page;
   try {
-    asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
+    page = await getAssetPage(ctx, assetId);
   } catch (error) {
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, forecasts, catalogue, dockings] = await Promise.all([
-    ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
-    ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results'] }),
-    ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
-    loadGroupForecasts(ctx, { assetIds: [asset.id] }),
-    canWrite ? listCatalogue(ctx) : Promise.resolve([]),
-    ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
-  ]);
-  const changes = forecasts.length
-    ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
-    : [];
-
-  const today = new Date();
-  const horizon = new Date(Math.max(today.getTime(), ...forecasts.map((f) => (f.forecast?.endOfLife ?? today).getTime())) + 180 * 86_400_000);
-  const series: ChartSeries[] = forecasts
-    .filter((f) => f.forecast)
-    .map((f) => {
-      const fc = f.forecast!;
-      const start = new Date(`${f.group.installedOn}T00:00:00Z`);
-      return {
-        label: f.group.label,
-        points: fc.remainingSeries(start, horizon, 1).map((p) => ({ date: p.date, kg: p.remainingFraction * fc.installedMassKg })),
-        surveys: f.surveys.map((s) => ({ date: s.date, kg: s.remainingFraction * fc.installedMassKg })),
-        endKg: fc.endFraction * fc.installedMassKg,
-        endOfLife: fc.endOfLife,
-      };
-    });
-
+  const { today, asset, canWrite, zones, designs, surveys, forecasts, catalogue, dockings, changes, series } = page;
   const particulars: [string, string | null | undefined][] =
     asset.kind === 'vessel'
       ? [
