@@ -8,6 +8,7 @@ import { StatusTag } from '@/components/ui/panel';
 import { fetchJson, queryKeys } from '@/lib/client/query-client';
 import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 import { fmt } from '@/lib/format';
+import { todayDateOnly } from '@/lib/dates/date-only';
 import type { ActionState } from '@/lib/server/action';
 import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-renewals';
 import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
@@ -20,7 +21,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
   const [state, action, pending] = useActionState(renewalStepAction.bind(null, org) as Bound, { ok: false });
   useInvalidateOnSuccess(state, queryKeys.dockingRenewals(org, dockingId));
   if (!canEdit || row.status === 'fitted' || row.status === 'cancelled') return null;
-  const today = new Date().toISOString().slice(0, 10);
+  const today = todayDateOnly();
   return (
     <form action={action} className="flex flex-wrap items-center gap-1">
       <input type="hidden" name="renewalId" value={row.id} />

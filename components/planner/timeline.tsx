@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
 import type { PlannerDocking } from '@/lib/server/services/planner/planner-view';
 
 interface Props {
@@ -22,7 +23,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
   const end = Date.UTC(new Date(start).getUTCFullYear(), new Date(start).getUTCMonth() + months, 1);
   const width = labelW + months * monthW;
   const height = 24 + assets.length * rowH;
-  const x = (iso: string | number) => labelW + ((typeof iso === 'number' ? iso : Date.parse(`${iso}T00:00:00Z`)) - start) / (end - start) * months * monthW;
+  const x = (iso: string | number) => labelW + ((typeof iso === 'number' ? iso : parseDateOnly(iso).getTime()) - start) / (end - start) * months * monthW;
   const monthTicks = Array.from({ length: months }, (_, i) => Date.UTC(new Date(start).getUTCFullYear(), new Date(start).getUTCMonth() + i, 1));
   return (
     <div className="overflow-x-auto">
@@ -33,7 +34,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
             <g key={t}>
               <line x1={x(t)} x2={x(t)} y1={0} y2={height} stroke={d.getUTCMonth() === 0 ? '#b9b3a7' : '#eeece6'} />
               <text x={x(t) + 3} y={14} fontSize="9.5" fill="#7b8590">
-                {d.getUTCMonth() === 0 ? d.getUTCFullYear() : d.toLocaleString('en-GB', { month: 'short', timeZone: 'UTC' }).slice(0, 3)}
+                {d.getUTCMonth() === 0 ? d.getUTCFullYear() : formatDateOnly(d, 'MMM')}
               </text>
             </g>
           );
@@ -58,7 +59,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
                   return (
                     <Link key={d.id} href={`/o/${org}/dockings/${d.id}`}>
                       <rect x={x1} y={y + 5} width={x2 - x1} height={rowH - 10} rx={2} fill={KIND_FILL[d.kind] ?? '#46505b'} opacity={d.status === 'done' ? 0.45 : 1}>
-                        <title>{`${a.name}: ${d.kind} ${d.start}${d.yard ? ` at ${d.yard}` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)`}</title>
+                        <title>{`${a.name}: ${d.kind} ${formatDateOnly(d.start)}${d.yard ? ` at ${d.yard}` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)`}</title>
                       </rect>
                       <text x={x2 + 3} y={y + 19} fontSize="10" fill="#1c232b">
                         {d.massDueKg > 0 ? `${Math.round(d.massDueKg)} kg` : d.status === 'done' ? 'done' : ''}
@@ -71,7 +72,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
                 .map((n, j) => (
                   <g key={j}>
                     <path d={`M ${Math.max(labelW + 4, x(n.by))} ${y + 6} l 6 9 l -6 9 l -6 -9 z`} fill="#a8322e">
-                      <title>{`${n.group}: needs a docking by ${n.by}${n.overdue ? ' (already passed)' : ''}`}</title>
+                      <title>{`${n.group}: needs a docking by ${formatDateOnly(n.by)}${n.overdue ? ' (already passed)' : ''}`}</title>
                     </path>
                   </g>
                 ))}

@@ -6,6 +6,7 @@ import { Field, FormMessage, SelectField } from '@/components/ui/field';
 import type { ActionState } from '@/lib/server/action';
 import { createAnodeGroupAction, removeAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
 import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+import { todayDateOnly } from '@/lib/dates/date-only';
 
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
@@ -39,7 +40,7 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
   const group = groups?.find((g) => g.id === groupId);
   const fallback: Record<string, string | undefined> = group
     ? { label: group.label, zoneId: group.zoneId ?? '', anodeModelKey: group.anodeModelKey, quantity: String(group.quantity), positions: group.positions ?? '', installedOn: group.installedOn, meanCurrentA: group.meanCurrentA === null ? '' : String(group.meanCurrentA), notes: group.notes ?? '' }
-    : { installedOn: new Date().toISOString().slice(0, 10) };
+    : { installedOn: todayDateOnly() };
   const v = !state.ok && state.values ? state.values : fallback;
   const e = (name: string) => state.fieldErrors?.[name];
   if (editing && !groups!.length) return <p className="text-sm text-ink-faint">No fitted groups to edit.</p>;
@@ -82,7 +83,7 @@ export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: st
         <FormMessage state={state} />
       </div>
       <SelectField label="Group" name="groupId" options={groups.map((g) => ({ value: g.id, label: g.label }))} defaultValue={state.values?.groupId} />
-      <Field label="Removed on" name="removedOn" type="date" defaultValue={state.values?.removedOn ?? new Date().toISOString().slice(0, 10)} errors={state.fieldErrors?.removedOn} />
+      <Field label="Removed on" name="removedOn" type="date" defaultValue={state.values?.removedOn ?? todayDateOnly()} errors={state.fieldErrors?.removedOn} />
       <Field label="Reason" name="reason" defaultValue={state.values?.reason} errors={state.fieldErrors?.reason} placeholder="e.g. renewed at docking, lost, damaged" />
       <div className="flex items-end">
         <Button type="submit" variant="danger" disabled={pending}>

@@ -1,4 +1,4 @@
-import { format } from 'date-fns';
+import { formatDateOnly } from '@/lib/dates/date-only';
 
 export interface ChartSeries {
   label: string;
@@ -77,14 +77,14 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
               <polyline fill="none" stroke={colour} strokeWidth="1.8" strokeDasharray={DASHES[Math.floor(i / COLOURS.length) % DASHES.length] || DASHES[i % DASHES.length]} points={s.points.map((p) => `${x(p.date.getTime())},${y(p.kg)}`).join(' ')} />
               {s.surveys.map((p, j) => (
                 <circle key={j} cx={x(p.date.getTime())} cy={y(p.kg)} r="3.5" fill="#fff" stroke={colour} strokeWidth="1.8">
-                  <title>{`${s.label}: surveyed ${format(p.date, 'd MMM yyyy')}, ${Math.round(p.kg)} kg`}</title>
+                  <title>{`${s.label}: surveyed ${formatDateOnly(p.date)}, ${Math.round(p.kg)} kg`}</title>
                 </circle>
               ))}
               {s.endOfLife && s.endOfLife.getTime() <= t1 ? (
                 <g>
                   <line x1={x(s.endOfLife.getTime()) - 4} x2={x(s.endOfLife.getTime()) + 4} y1={y(s.endKg) - 4} y2={y(s.endKg) + 4} stroke={colour} strokeWidth="2" />
                   <line x1={x(s.endOfLife.getTime()) - 4} x2={x(s.endOfLife.getTime()) + 4} y1={y(s.endKg) + 4} y2={y(s.endKg) - 4} stroke={colour} strokeWidth="2" />
-                  <title>{`${s.label}: reaches its utilisation factor ${format(s.endOfLife, 'd MMM yyyy')}`}</title>
+                  <title>{`${s.label}: reaches its utilisation factor ${formatDateOnly(s.endOfLife)}`}</title>
                 </g>
               ) : null}
             </g>
@@ -98,7 +98,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
               <line x1="0" x2="22" y1="4" y2="4" stroke={COLOURS[i % COLOURS.length]} strokeWidth="2" strokeDasharray={DASHES[i % DASHES.length]} />
             </svg>
             {s.label}
-            {s.endOfLife ? ` (end of life ${format(s.endOfLife, 'MMM yyyy')})` : ''}
+            {s.endOfLife ? ` (end of life ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
         <span>○ survey estimate · × utilisation factor reached · dashed brass lines: dockings</span>

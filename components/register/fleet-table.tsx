@@ -3,10 +3,10 @@ import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
-import { format } from 'date-fns';
 import { ServerTable } from '@/components/ui/server-table';
 import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { protectedMetalOf } from '@/lib/register/protected-metal';
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
 import { StatusTag } from '@/components/ui/panel';
@@ -29,7 +29,7 @@ export function FleetTable({ org }: { org: string }) {
           return (
             <span className="flex flex-col gap-0.5">
               <StatusTag tone={tone}>{c.getValue()}</StatusTag>
-              {c.row.original.needsDockingBy ? <span className="text-2xs text-state-overdue">needs a docking by {format(new Date(`${c.row.original.needsDockingBy}T00:00:00Z`), 'd MMM yyyy')}</span> : null}
+              {c.row.original.needsDockingBy ? <span className="text-2xs text-state-overdue">needs a docking by {formatDateOnly(c.row.original.needsDockingBy)}</span> : null}
             </span>
           );
         },
@@ -43,7 +43,7 @@ export function FleetTable({ org }: { org: string }) {
           if (!d) return <span className="text-ink-faint">none planned</span>;
           return (
             <span className="flex flex-col">
-              <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{format(new Date(`${d.date}T00:00:00Z`), 'd MMM yyyy')}</Link>
+              <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{formatDateOnly(d.date)}</Link>
               <span className="num text-left text-2xs text-ink-soft">{fmt(c.row.original.massDueAtNextDockingKg, 0)} kg anodes due</span>
             </span>
           );
@@ -51,7 +51,7 @@ export function FleetTable({ org }: { org: string }) {
       }),
       col.accessor('anodes', { id: 'anodes', header: 'Anodes fitted', meta: { numeric: true }, cell: (c) => `${c.getValue()} in ${c.row.original.groups} group${c.row.original.groups === 1 ? '' : 's'}` }),
       col.accessor('netMassKg', { id: 'netMass', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 0)} kg` }),
-      col.accessor('lastSurveyedOn', { id: 'lastSurvey', header: 'Last survey', cell: (c) => (c.getValue() ? format(new Date(`${c.getValue()}T00:00:00Z`), 'd MMM yyyy') : 'none') }),
+      col.accessor('lastSurveyedOn', { id: 'lastSurvey', header: 'Last survey', cell: (c) => { const day = c.getValue(); return day ? formatDateOnly(day) : 'none'; } }),
       col.display({
         id: 'potentials',
         header: 'Latest potentials (Ag/AgCl)',

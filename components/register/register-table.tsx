@@ -3,15 +3,15 @@ import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
-import { format } from 'date-fns';
 import { ServerTable } from '@/components/ui/server-table';
 import { StatusTag } from '@/components/ui/panel';
 import { ALLOY_LABELS } from '@/lib/design/labels';
 import { classifyRemaining, REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
 import { fmt } from '@/lib/format';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import type { AnodeGroupRow } from '@/lib/server/services/register/list-anode-groups';
 
-const day = (iso: string | null) => (iso ? format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy') : '—');
+const day = (iso: string | null) => (iso ? formatDateOnly(iso) : '—');
 
 /** The anode register: every fitted group, paged and sorted on the server. */
 export function RegisterTable({ org, assetId, pageSize = 50 }: { org: string; assetId?: string; pageSize?: number }) {

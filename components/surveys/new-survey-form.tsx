@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Field, FormMessage, SelectField } from '@/components/ui/field';
 import type { ActionState } from '@/lib/server/action';
 import { createSurveyAction } from '@/app/o/[org]/surveys/actions';
+import { todayDateOnly } from '@/lib/dates/date-only';
 
 type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
@@ -23,7 +24,7 @@ export function NewSurveyForm({ org, assets, assetId }: { org: string; assets: {
       <FormMessage state={state} />
       <SelectField label="Asset" name="assetId" defaultValue={v.assetId ?? assetId ?? assets[0]?.id} options={assets.map((a) => ({ value: a.id, label: a.name }))} errors={e('assetId')} />
       <div className="grid grid-cols-2 gap-3">
-        <Field label="Surveyed on" name="surveyedOn" type="date" defaultValue={v.surveyedOn ?? new Date().toISOString().slice(0, 10)} errors={e('surveyedOn')} />
+        <Field label="Surveyed on" name="surveyedOn" type="date" defaultValue={v.surveyedOn ?? todayDateOnly()} errors={e('surveyedOn')} />
         <SelectField
           label="Method"
           name="method"

@@ -3,7 +3,7 @@ import { queryKeys } from '@/lib/client/query-client';
 import Link from 'next/link';
 import { useMemo } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
-import { format } from 'date-fns';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { ServerTable } from '@/components/ui/server-table';
 import { StatusTag } from '@/components/ui/panel';
 import { fmt } from '@/lib/format';
@@ -13,7 +13,7 @@ export function SurveysTable({ org, assetId }: { org: string; assetId?: string }
   const columns = useMemo(() => {
     const col = createColumnHelper<SurveyListRow>();
     return [
-      col.accessor('surveyedOn', { id: 'surveyedOn', header: 'Date', cell: (c) => <Link className="text-tide-600 hover:underline" href={`/o/${org}/surveys/${c.row.original.id}`}>{format(new Date(`${c.getValue()}T00:00:00Z`), 'd MMM yyyy')}</Link> }),
+      col.accessor('surveyedOn', { id: 'surveyedOn', header: 'Date', cell: (c) => <Link className="text-tide-600 hover:underline" href={`/o/${org}/surveys/${c.row.original.id}`}>{formatDateOnly(c.getValue())}</Link> }),
       col.accessor('assetName', { id: 'asset', header: 'Asset' }),
       col.accessor('method', { id: 'method', header: 'Method' }),
       col.accessor('surveyor', { id: 'surveyor', header: 'Surveyor', enableSorting: false, cell: (c) => c.getValue() ?? '—' }),

@@ -1,3 +1,4 @@
+import { compareDateOnly, isDateOnly } from '../dates/date-only';
 import { AnodeListInputError } from './errors';
 import { fittingNotesFor } from './fitting-notes';
 
@@ -168,7 +169,7 @@ export function buildAnodeList(input: AnodeListInput): AnodeList {
 
   const plannedStart = isoDay(docking.plannedStart, 'docking.plannedStart');
   const plannedEnd = nullable(docking.plannedEnd, (v) => isoDay(v, 'docking.plannedEnd'));
-  if (plannedEnd !== null && plannedEnd < plannedStart) {
+  if (plannedEnd !== null && compareDateOnly(plannedEnd, plannedStart) < 0) {
     throw new AnodeListInputError('docking.plannedEnd', `docking.plannedEnd (${plannedEnd}) must not be before docking.plannedStart (${plannedStart}).`);
   }
 
@@ -362,8 +363,7 @@ function date(value: unknown, field: string): Date {
 /** A calendar day written YYYY-MM-DD that exists (no 2027-02-30). */
 function isoDay(value: unknown, field: string): string {
   if (typeof value !== 'string' || !/^\d{4}-\d{2}-\d{2}$/.test(value)) fail(field, `${field} must be a date written YYYY-MM-DD (got ${show(value)}).`);
-  const d = new Date(`${value}T00:00:00Z`);
-  if (!Number.isFinite(d.getTime()) || d.toISOString().slice(0, 10) !== value) fail(field, `${field} is not a real date (got ${show(value)}).`);
+  if (!isDateOnly(value)) fail(field, `${field} is not a real date (got ${show(value)}).`);
   return value;
 }
 

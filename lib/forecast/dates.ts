@@ -53,8 +53,3 @@ export function startOfDayUTC(d: Date): Date {
 export function dayNumberUTC(d: Date): number {
   return Math.floor(d.getTime() / MS_PER_DAY);
 }
-
-/** ISO calendar day, `YYYY-MM-DD`, for messages and reasons. */
-export function isoDay(d: Date): string {
-  return d.toISOString().slice(0, 10);
-}

@@ -18,7 +18,6 @@ export {
   addMonthsUTC,
   addYears8760,
   dayNumberUTC,
-  isoDay,
   startOfDayUTC,
   yearsBetween,
 } from './dates';

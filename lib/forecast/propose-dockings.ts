@@ -1,4 +1,5 @@
-import { MS_PER_DAY, addMonthsUTC, dayNumberUTC, isoDay } from './dates';
+import { MS_PER_DAY, addMonthsUTC, dayNumberUTC } from './dates';
+import { formatDateOnly } from '../dates/date-only';
 import { date, finite, record, whole } from './validate';
 import { ForecastInputError } from './errors';
 
@@ -97,7 +98,7 @@ export function proposeNextDockings(input: ProposeNextDockingsInput): ProposedDo
       out.push({
         date: dayDate(aDay),
         kind: 'renewal-survey',
-        reason: `Renewal survey ${5 * k} years after the renewal survey of ${isoDay(lastRenewal)}, with the bottom inspected in dry dock.`,
+        reason: `Renewal survey ${5 * k} years after the renewal survey of ${formatDateOnly(lastRenewal)}, with the bottom inspected in dry dock.`,
       });
       prevDay = aDay;
       prevDate = dayDate(aDay);

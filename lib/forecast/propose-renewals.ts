@@ -1,4 +1,5 @@
-import { addMonthsUTC, dayNumberUTC, isoDay } from './dates';
+import { addMonthsUTC, dayNumberUTC } from './dates';
+import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
 import { date, list, record, text, whole } from './validate';
 
@@ -192,7 +193,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
   const n = docks.times.length;
   const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
   const horizon = addMonthsUTC(horizonBase, s.intervalMonths).getTime();
-  const horizonText = n > 0 ? `the last planned docking (${isoDay(horizonBase)})` : 'today, with no docking planned';
+  const horizonText = n > 0 ? `the last planned docking (${formatDateOnly(horizonBase)})` : 'today, with no docking planned';
   const marginText = `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`;
 
   return groups.map((g, i): RenewalProposal => {
@@ -206,7 +207,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       confirmedId = text(record(r.confirmedRenewal, `${field}.confirmedRenewal`).dockingId, `${field}.confirmedRenewal.dockingId`);
     }
     const deadline = endOfLife === null ? null : addMonthsUTC(endOfLife, -s.marginMonths);
-    const because = endOfLife === null || deadline === null ? '' : ` (end of life ${isoDay(endOfLife)} less ${marginText})`;
+    const because = endOfLife === null || deadline === null ? '' : ` (end of life ${formatDateOnly(endOfLife)} less ${marginText})`;
 
     // Rule 1: a confirmed renewal is kept as it is.
     if (confirmedId !== null) {
@@ -217,12 +218,12 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         dockingId: confirmedId,
         ...(booked ? { dockingDate: booked.date } : {}),
         ...(deadline ? { deadline } : {}),
-        reason: booked ? `The renewal confirmed at the docking of ${isoDay(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
+        reason: booked ? `The renewal confirmed at the docking of ${formatDateOnly(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
       };
       if (!booked) out.warning = "The confirmed renewal's docking is not among this asset's dockings.";
-      else if (booked.status === 'cancelled') out.warning = `The docking of ${isoDay(booked.date)} has been cancelled; the renewal needs another docking.`;
+      else if (booked.status === 'cancelled') out.warning = `The docking of ${formatDateOnly(booked.date)} has been cancelled; the renewal needs another docking.`;
       else if (deadline && booked.date.getTime() > deadline.getTime()) {
-        out.warning = `The docking of ${isoDay(booked.date)} is after the deadline ${isoDay(deadline)}${because}.`;
+        out.warning = `The docking of ${formatDateOnly(booked.date)} is after the deadline ${formatDateOnly(deadline)}${because}.`;
       }
       return out;
     }
@@ -240,7 +241,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         deadline,
         needsDockingBy: deadline,
         overdue: true,
-        reason: `The renewal deadline ${isoDay(deadline)}${because} has passed, so the group needs a docking as soon as possible.`,
+        reason: `The renewal deadline ${formatDateOnly(deadline)}${because} has passed, so the group needs a docking as soon as possible.`,
       };
     }
 
@@ -251,7 +252,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         status: 'sound',
         deadline,
         nextReviewBy: deadline,
-        reason: `The deadline ${isoDay(deadline)}${because} is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
+        reason: `The deadline ${formatDateOnly(deadline)}${because} is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
       };
     }
 
@@ -269,8 +270,8 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         deadline,
         ...(atRisk ? { atRisk: true } : {}),
         reason:
-          `Renew at the docking of ${isoDay(dockingDate)}, the last docking before the deadline ${isoDay(deadline)}${because}` +
-          (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${isoDay(earlyDeadline)}.` : '.'),
+          `Renew at the docking of ${formatDateOnly(dockingDate)}, the last docking before the deadline ${formatDateOnly(deadline)}${because}` +
+          (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${formatDateOnly(earlyDeadline)}.` : '.'),
       };
     }
 
@@ -281,7 +282,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       deadline,
       needsDockingBy: deadline,
       overdue: false,
-      reason: `No planned docking falls on or before the deadline ${isoDay(deadline)}${because}, so the group needs a docking by then.`,
+      reason: `No planned docking falls on or before the deadline ${formatDateOnly(deadline)}${because}, so the group needs a docking by then.`,
     };
   });
 }

@@ -1,31 +1,27 @@
 import { z } from 'zod';
+import { dateOnlyField, daysInOrder } from './date-only-field';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
-const isoDate = (label: string) =>
-  z
-    .string({ error: `Enter the ${label}.` })
-    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} as a date (YYYY-MM-DD).`)
-    .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), `The ${label} is not a real date.`);
-const optionalDate = (label: string) => z.preprocess(blankToNull, isoDate(label).nullable());
+const optionalDate = (label: string) => z.preprocess(blankToNull, dateOnlyField(label).nullable());
 const text = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 
 export const dockingSchema = z
   .object({
     assetId: z.uuid('Choose an asset.'),
     kind: z.enum(['intermediate', 'renewal-survey', 'unplanned', 'campaign'], { error: 'Choose the kind of docking or campaign.' }),
-    plannedStart: isoDate('planned start'),
+    plannedStart: dateOnlyField('planned start'),
     plannedEnd: optionalDate('planned end'),
     yard: text(120),
     reference: text(60),
     notes: text(2000),
   })
-  .refine((d) => !d.plannedEnd || d.plannedEnd >= d.plannedStart, { message: 'The planned end is before the start.', path: ['plannedEnd'] });
+  .refine((d) => daysInOrder(d.plannedStart, d.plannedEnd), { message: 'The planned end is before the start.', path: ['plannedEnd'] });
 
 export const dockingUpdateSchema = z
   .object({
     kind: z.enum(['intermediate', 'renewal-survey', 'unplanned', 'campaign'], { error: 'Choose the kind.' }),
     status: z.enum(['planned', 'done', 'cancelled'], { error: 'Choose the status.' }),
-    plannedStart: isoDate('planned start'),
+    plannedStart: dateOnlyField('planned start'),
     plannedEnd: optionalDate('planned end'),
     actualStart: optionalDate('actual start'),
     actualEnd: optionalDate('actual end'),
@@ -33,8 +29,8 @@ export const dockingUpdateSchema = z
     reference: text(60),
     notes: text(2000),
   })
-  .refine((d) => !d.plannedEnd || d.plannedEnd >= d.plannedStart, { message: 'The planned end is before the start.', path: ['plannedEnd'] })
-  .refine((d) => !d.actualEnd || !d.actualStart || d.actualEnd >= d.actualStart, { message: 'The actual end is before the start.', path: ['actualEnd'] })
+  .refine((d) => daysInOrder(d.plannedStart, d.plannedEnd), { message: 'The planned end is before the start.', path: ['plannedEnd'] })
+  .refine((d) => daysInOrder(d.actualStart, d.actualEnd), { message: 'The actual end is before the start.', path: ['actualEnd'] })
   .refine((d) => d.status !== 'done' || d.actualStart, { message: 'Enter the actual start of a docking that is done.', path: ['actualStart'] });
 
 export const renewalUpdateSchema = z.object({
@@ -43,7 +39,7 @@ export const renewalUpdateSchema = z.object({
   notes: text(2000),
 });
 
-export const fittedSchema = z.object({ fittedOn: isoDate('fitting date') });
+export const fittedSchema = z.object({ fittedOn: dateOnlyField('fitting date') });
 
 export const manualRenewalSchema = z.object({
   groupId: z.uuid('Choose an anode group.'),

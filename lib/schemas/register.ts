@@ -1,15 +1,11 @@
 import { z } from 'zod';
 import { ZONE_KIND_VALUES, CLIMATE_VALUES, DEPTH_BAND_VALUES, COATING_VALUES } from './design';
+import { dateOnlyField, pastDateOnlyField } from './date-only-field';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 const text = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 const number = (label: string, unit: string) =>
   z.preprocess((v) => (v === '' || v === null ? undefined : v), z.coerce.number({ error: `${label}: enter a number${unit ? ` (${unit})` : ''}.` }).refine(Number.isFinite, `${label}: enter a number.`));
-const isoDate = (label: string) =>
-  z
-    .string({ error: `Enter the ${label}.` })
-    .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} as a date (YYYY-MM-DD).`)
-    .refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)), `The ${label} is not a real date.`);
 
 export const zoneSchema = z.object({
   name: z.string().trim().min(1, 'Name the zone.').max(80, 'Use at most 80 characters.'),
@@ -29,14 +25,14 @@ export const anodeGroupSchema = z.object({
   anodeModelKey: z.string().min(1, 'Choose an anode model.').max(80),
   quantity: number('Quantity', '').pipe(z.number().int('Enter a whole number of anodes.').min(1, 'At least one anode.').max(10_000, 'At most 10,000 anodes in one group.')),
   positions: text(2000),
-  installedOn: isoDate('installation date').refine((d) => d <= new Date().toISOString().slice(0, 10), 'The installation date cannot be in the future.'),
+  installedOn: pastDateOnlyField('installation date'),
   designId: z.preprocess(blankToNull, z.uuid().nullable()),
   meanCurrentA: z.preprocess(blankToNull, number('Mean current', 'A').pipe(z.number().min(0, 'The current cannot be negative.').max(10_000)).nullable()),
   notes: text(2000),
 });
 
 export const removeGroupSchema = z.object({
-  removedOn: isoDate('removal date'),
+  removedOn: dateOnlyField('removal date'),
   reason: z.string().trim().min(1, 'Say why the group was removed.').max(200),
 });
 
@@ -60,7 +56,7 @@ export const anodeModelSchema = z.object({
 
 export const surveySchema = z.object({
   assetId: z.uuid('Choose an asset.'),
-  surveyedOn: isoDate('survey date').refine((d) => d <= new Date().toISOString().slice(0, 10), 'The survey date cannot be in the future.'),
+  surveyedOn: pastDateOnlyField('survey date'),
   method: z.enum(['diver', 'drop-cell', 'rov', 'dry-dock', 'other'], { error: 'Choose how the survey was made.' }),
   surveyor: text(120),
   defaultElectrode: z.enum(['ag-agcl-seawater', 'cse', 'sce', 'zinc'], { error: 'Choose the reference electrode.' }),

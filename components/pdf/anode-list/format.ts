@@ -1,16 +1,7 @@
 /*
- * How the anode list writes days, masses and counts. Shared by the page plan, which measures
+ * How the anode list writes masses and counts (days: formatDateOnly from lib/dates/date-only). Shared by the page plan, which measures
  * these texts, and the rendering, which prints them: both must see the same strings.
  */
-
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
-/** '2027-03-14' -> '14 Mar 2027', read as a calendar day (no time-zone shift). */
-export function dayText(iso: string | null): string {
-  if (!iso) return '–';
-  const [y, m, d] = iso.split('-').map(Number);
-  return `${d} ${MONTHS[m - 1]} ${y}`;
-}
 
 // Formatters made once: Number.toLocaleString builds a new one on every call, which showed in the profile.
 const KG_1 = new Intl.NumberFormat('en-GB', { minimumFractionDigits: 1, maximumFractionDigits: 1 });

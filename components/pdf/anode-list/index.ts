@@ -3,10 +3,10 @@
  *
  * - layout        page geometry, columns, cell texts and the page plan (planAnodeListPages)
  * - measure-text  text widths and word wrap in Inter, rounded up so plans never run short
- * - format        days, masses and counts as the list prints them
+ * - format        masses and counts as the list prints them
  * - render        AnodeListDocument, the react-pdf components drawing the plan
  */
 export { AnodeListDocument } from './render';
 export { planAnodeListPages, type AnodeListPagePlan, type PlanItem } from './layout';
 export { lineCount, textWidth, wrapLines } from './measure-text';
-export { dayText, kgText } from './format';
+export { kgText } from './format';

@@ -1,7 +1,8 @@
 import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { CAUTION_TEXT } from '../pdf-kit';
-import { count, dayText, humanise, kgText } from './format';
+import { formatDateOnly } from '@/lib/dates/date-only';
+import { count, humanise, kgText } from './format';
 import { FONT, lineCount, wrapLines } from './measure-text';
 
 /*
@@ -136,8 +137,8 @@ export function dockingRows(list: AnodeList): string[][] {
   const d = list.docking;
   return [
     ['Kind', humanise(d.kind)],
-    ['Planned', d.plannedEnd ? `${dayText(d.plannedStart)} to ${dayText(d.plannedEnd)}` : `from ${dayText(d.plannedStart)}`],
-    ...(d.actualStart ? [['Actual start', dayText(d.actualStart)]] : []),
+    ['Planned', d.plannedEnd ? `${formatDateOnly(d.plannedStart)} to ${formatDateOnly(d.plannedEnd)}` : `from ${formatDateOnly(d.plannedStart)}`],
+    ...(d.actualStart ? [['Actual start', formatDateOnly(d.actualStart)]] : []),
     ['Yard', d.yard ?? 'not yet chosen'],
     ...(d.reference ? [['Reference', d.reference]] : []),
     ['Anodes to fit', `${count(list.totals.quantity)} on ${count(list.lineCount)} line${list.lineCount === 1 ? '' : 's'}`],
@@ -149,7 +150,7 @@ export const assetTitle = (list: AnodeList) => (list.asset.kind === 'vessel' ? '
 
 export const titleLine = (list: AnodeList) => {
   const d = list.docking;
-  return `${list.asset.name} (${list.asset.kind}) · ${d.kind === 'campaign' ? 'Diving or works campaign' : `${humanise(d.kind)} docking`} from ${dayText(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
+  return `${list.asset.name} (${list.asset.kind}) · ${d.kind === 'campaign' ? 'Diving or works campaign' : `${humanise(d.kind)} docking`} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
 };
 const titleHeight = (list: AnodeList) =>
   Math.max(

@@ -2,7 +2,7 @@ import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
 import { CAUTION_TEXT, pdf } from '../pdf-kit';
-import { dayText } from './format';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { assetRows, assetTitle, CELL_PAD, colWidth, COLUMNS, CONTENT_WIDTH, dockingRows, planAnodeListPages, TITLE_LEFT_SHARE, titleLine, type PlanItem, type TableKind } from './layout';
 
 /*
@@ -182,13 +182,13 @@ const PAGE_STYLE = [pdf.page, StyleSheet.create({ p: { fontFeatureSettings: { ca
  */
 export function AnodeListDocument({ list, pagination = 'planned' }: { list: AnodeList; pagination?: 'planned' | 'checked' }) {
   const d = list.docking;
-  const footer = `${list.organisation.name} · ${list.asset.name} · ${d.kind === 'campaign' ? 'anode list, campaign' : 'dry-dock anode list, docking'} from ${dayText(d.plannedStart)} · revision ${list.revision.number}`;
+  const footer = `${list.organisation.name} · ${list.asset.name} · ${d.kind === 'campaign' ? 'anode list, campaign' : 'dry-dock anode list, docking'} from ${formatDateOnly(d.plannedStart)} · revision ${list.revision.number}`;
   const printed = `Printed ${format(list.printedAt, 'd MMM yyyy HH:mm')} by ${list.printedBy}`;
   const plan = planAnodeListPages(list);
   // Should an estimate ever exceed a sheet, let react-pdf continue it rather than cut text off.
   const wrap = pagination === 'checked' || !plan.fits;
   return (
-    <Document title={`Dry-dock anode list: ${list.asset.name}, ${d.plannedStart}, revision ${list.revision.number}`} author="Tidewarden" subject="Sacrificial anodes to order and fit at a docking">
+    <Document title={`Dry-dock anode list: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject="Sacrificial anodes to order and fit at a docking">
       {plan.pages.map((items, p) => (
         <Page key={p} size="A4" orientation="landscape" style={PAGE_STYLE} wrap={wrap}>
           {items.map((item, i) => (

@@ -11,6 +11,7 @@ import { createSurvey } from '../services/surveys/create-survey';
 import { runUnitOfWork } from '../unit-of-work';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
 import { addDays } from 'date-fns';
+import { toDateOnly } from '@/lib/dates/date-only';
 import { PLANS, TRIAL_DAYS } from '@/lib/billing/plans';
 import { getEnv } from '../env';
 import { getStripe } from '../billing/stripe';
@@ -230,7 +231,7 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
     const docking = em.create(DockingSchema, { organisation: engineer.organisation, asset: assets[asset], kind: kind as never, status, plannedStart, plannedEnd: null, actualStart: status === 'done' ? plannedStart : null, actualEnd: null, yard, reference: null, notes: null });
     return docking;
   };
-  const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+  const inDays = (n: number) => toDateOnly(new Date(Date.now() + n * 86_400_000));
   await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Harrowgate Dry Dock', 'done');
   await plan('Brindlemoor', 'intermediate', inDays(640), 'Harrowgate Dry Dock');
   await plan('Kittiwake Sound', 'intermediate', inDays(75), 'Corrie Point Shiprepair');

@@ -1,5 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { MS_PER_YEAR, addMonthsUTC, addYears8760, isoDay } from '@/lib/forecast';
+import { MS_PER_YEAR, addMonthsUTC, addYears8760 } from '@/lib/forecast';
+import { toDateOnly } from '@/lib/dates/date-only';
 import { utc } from './helpers';
 
 describe('addMonthsUTC', () => {
@@ -33,6 +34,6 @@ describe('addMonthsUTC', () => {
 describe('8760-hour years', () => {
   it('one consumption year is 365 days', () => {
     expect(MS_PER_YEAR).toBe(365 * 86_400_000);
-    expect(isoDay(addYears8760(utc('2023-03-01'), 1))).toBe('2024-02-29');
+    expect(toDateOnly(addYears8760(utc('2023-03-01'), 1))).toBe('2024-02-29');
   });
 });

@@ -1,17 +1,16 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { format } from 'date-fns';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { allowed } from '@/lib/server/org-context';
 import { getPlannerView } from '@/lib/server/services/planner/planner-view';
 import { fmt } from '@/lib/format';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
 
 export const metadata: Metadata = { title: 'Docking planner' };
 
-const day = (iso: string) => format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy');
 const KIND: Record<string, string> = { intermediate: 'Intermediate', 'renewal-survey': 'Renewal survey', unplanned: 'Unplanned', campaign: 'Campaign' };
 
 export default async function DockingsPage({ params }: { params: Promise<{ org: string }> }) {
@@ -34,7 +33,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
               {view.needsDocking.map((n, i) => (
                 <li key={i} className="flex flex-wrap items-center gap-2">
                   <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
-                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group} needs renewal by <strong>{day(n.by)}</strong>
+                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group} needs renewal by <strong>{formatDateOnly(n.by)}</strong>
                 </li>
               ))}
             </ul>
@@ -56,7 +55,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
               <tbody>
                 {upcoming.map((d) => (
                   <tr key={d.id} className="border-b border-rule">
-                    <td className="py-1.5"><Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{day(d.start)}</Link></td>
+                    <td className="py-1.5"><Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{formatDateOnly(d.start)}</Link></td>
                     <td className="py-1.5">{d.assetName}</td>
                     <td className="py-1.5">{KIND[d.kind] ?? d.kind}</td>
                     <td className="py-1.5">{d.yard ?? '—'}</td>
@@ -75,7 +74,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 <ul className="flex flex-col gap-1 text-sm">
                   {view.suggestions.map((s, i) => (
                     <li key={i} className="flex flex-wrap items-center gap-2">
-                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} about <strong>{day(s.date)}</strong></span>
+                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} about <strong>{formatDateOnly(s.date)}</strong></span>
                       <span className="text-xs text-ink-faint">{s.reason}</span>
                       {canPlan ? <AcceptSuggestion org={org} assetId={s.assetId} date={s.date} kind={s.kind} /> : null}
                     </li>

@@ -1,4 +1,5 @@
 import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
+import { parseDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';
@@ -39,7 +40,7 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
     .filter((f) => f.forecast)
     .map((f) => {
       const fc = f.forecast!;
-      const start = new Date(`${f.group.installedOn}T00:00:00Z`);
+      const start = parseDateOnly(f.group.installedOn);
       return {
         label: f.group.label,
         points: fc.remainingSeries(start, horizon, 1).map((p) => ({ date: p.date, kg: p.remainingFraction * fc.installedMassKg })),

@@ -8,6 +8,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
+import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { AssetForm } from '@/components/register/asset-form';
@@ -18,8 +19,6 @@ import { RegisterTable } from '@/components/register/register-table';
 import { DepletionChart } from '@/components/register/depletion-chart';
 
 export const metadata: Metadata = { title: 'Asset' };
-
-const day = (iso: string) => format(new Date(`${iso}T00:00:00Z`), 'd MMM yyyy');
 
 export default async function AssetPage({ params }: { params: Promise<{ org: string; assetId: string }> }) {
   const { org, assetId } = await params;
@@ -243,7 +242,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           <DepletionChart
             series={series}
             today={today}
-            dockings={dockings.map((d) => ({ date: new Date(`${d.actualStart ?? d.plannedStart}T00:00:00Z`), label: `${d.kind === 'campaign' ? 'Campaign' : 'Docking'} ${d.actualStart ?? d.plannedStart}${d.status === 'done' ? ' (done)' : ''}` }))}
+            dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${d.kind === 'campaign' ? 'Campaign' : 'Docking'} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
           />
           <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
             <thead className="text-xs text-ink-soft">
@@ -263,8 +262,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                   <td className="num py-1">{fmt(f.group.quantity * f.group.model.netMassKg, 1)} kg</td>
                   <td className="num py-1">{f.forecast ? `${fmt(f.forecast.ratePerYearKg, 1)} kg/yr` : '—'}</td>
                   <td className="py-1 pl-3 text-xs">{f.forecast ? (f.forecast.basis === 'survey-corrected' ? 'corrected by survey' : 'design current') : f.noForecastReason}</td>
-                  <td className="py-1">{f.forecast?.endOfLife ? format(f.forecast.endOfLife, 'd MMM yyyy') : f.forecast ? 'does not deplete' : '—'}</td>
-                  <td className="py-1 text-xs">{f.forecast?.early ? `${format(f.forecast.early, 'MMM yyyy')} – ${f.forecast.late ? format(f.forecast.late, 'MMM yyyy') : 'later'}` : '—'}</td>
+                  <td className="py-1">{f.forecast?.endOfLife ? formatDateOnly(f.forecast.endOfLife) : f.forecast ? 'does not deplete' : '—'}</td>
+                  <td className="py-1 text-xs">{f.forecast?.early ? `${formatDateOnly(f.forecast.early, 'MMM yyyy')} – ${f.forecast.late ? formatDateOnly(f.forecast.late, 'MMM yyyy') : 'later'}` : '—'}</td>
                 </tr>
               ))}
             </tbody>
@@ -278,7 +277,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               {surveys.map((s) => (
                 <li key={s.id} className="flex items-center justify-between py-1.5">
                   <Link href={`/o/${org}/surveys/${s.id}`} className="text-tide-600 hover:underline">
-                    {day(s.surveyedOn)}: {s.method} survey{s.surveyor ? ` by ${s.surveyor}` : ''}
+                    {formatDateOnly(s.surveyedOn)}: {s.method} survey{s.surveyor ? ` by ${s.surveyor}` : ''}
                   </Link>
                 </li>
               ))}

@@ -1,12 +1,12 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { format } from 'date-fns';
 import { AnodeGroupSchema, DockingSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { RenewalsTable } from '@/components/planner/renewals-table';
@@ -35,13 +35,13 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
         ctx.em.find(DockingSchema, { asset: docking.asset, status: 'planned' }, { orderBy: { plannedStart: 'asc' } }),
       ])
     : [[], []];
-  const dockingChoices = planned.map((d) => ({ id: d.id, label: `${format(new Date(`${d.plannedStart}T00:00:00Z`), 'd MMM yyyy')}${d.yard ? `, ${d.yard}` : ''}` }));
+  const dockingChoices = planned.map((d) => ({ id: d.id, label: `${formatDateOnly(d.plannedStart)}${d.yard ? `, ${d.yard}` : ''}` }));
   const start = docking.actualStart ?? docking.plannedStart;
   const listBase = `/api/orgs/${org}/dockings/${docking.id}/anode-list`;
   return (
     <>
       <PageHeader
-        title={`${docking.asset.name}: ${KIND[docking.kind] ?? docking.kind} of ${format(new Date(`${start}T00:00:00Z`), 'd MMM yyyy')}`}
+        title={`${docking.asset.name}: ${KIND[docking.kind] ?? docking.kind} of ${formatDateOnly(start)}`}
         subtitle={
           <>
             <Link href={`/o/${org}/dockings`} className="text-tide-600 hover:underline">Docking planner</Link> · <Link href={`/o/${org}/assets/${docking.asset.id}`} className="text-tide-600 hover:underline">{docking.asset.name}</Link>

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { format } from 'date-fns';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { AnodeGroupSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
@@ -32,7 +32,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
   return (
     <>
       <PageHeader
-        title={`${survey.assetName}: ${survey.method} survey of ${format(new Date(`${survey.surveyedOn}T00:00:00Z`), 'd MMM yyyy')}`}
+        title={`${survey.assetName}: ${survey.method} survey of ${formatDateOnly(survey.surveyedOn)}`}
         subtitle={
           <>
             <Link href={`/o/${org}/surveys`} className="text-tide-600 hover:underline">Surveys</Link> · <Link href={`/o/${org}/assets/${survey.assetId}`} className="text-tide-600 hover:underline">{survey.assetName}</Link>
