@@ -1,6 +1,5 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { MembershipSchema } from '@/entities';
 import { getEm } from '@/lib/server/db';
 import { requireUser } from '@/lib/server/auth/session';
 import { ROLE_LABELS } from '@/lib/server/permissions';
@@ -8,14 +7,14 @@ import { Panel } from '@/components/ui/panel';
 import { Button } from '@/components/ui/button';
 import { CreateOrganisationForm, ResendVerificationForm } from '@/components/auth/orgs-forms';
 import { signOutAction } from './actions';
+import { listMyOrganisations } from '@/lib/server/services/accounts/list-my-organisations';
 
 export const metadata: Metadata = { title: 'Your organisations' };
 
 export default async function OrgsPage({ searchParams }: { searchParams: Promise<{ verified?: string }> }) {
   const user = await requireUser('/orgs');
   const { verified } = await searchParams;
-  const em = await getEm();
-  const memberships = await em.find(MembershipSchema, { user: user.id }, { populate: ['organisation'], orderBy: { organisation: { name: 'asc' } } });
+  const memberships = await listMyOrganisations(await getEm(), user);
   return (
     <div className="min-h-screen bg-paper-sunk">
       <header className="border-b border-rule bg-paper-raised">

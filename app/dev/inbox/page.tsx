@@ -1,8 +1,8 @@
 import type { Metadata } from 'next';
 import { notFound } from 'next/navigation';
 import { getEnv } from '@/lib/server/env';
-import { OutboxMessageSchema } from '@/entities';
 import { getEm } from '@/lib/server/db';
+import { listWaitingMail } from '@/lib/server/mail/outbox';
 
 export const metadata: Metadata = { title: 'Dev inbox' };
 export const dynamic = 'force-dynamic';
@@ -40,8 +40,7 @@ export default async function DevInboxPage() {
   } catch {
     unreachable = true;
   }
-  const em = await getEm();
-  const waiting = await em.find(OutboxMessageSchema, { status: { $ne: 'sent' } }, { orderBy: { createdAt: 'desc' }, limit: 50 });
+  const waiting = await listWaitingMail(await getEm());
   return (
     <main className="mx-auto max-w-4xl px-6 py-8">
       <h1 className="text-2xl font-semibold">Dev inbox</h1>

@@ -118,3 +118,8 @@ export function kickOutbox(getEm: () => Promise<EntityManager>) {
 export async function outboxSettled() {
   await kickInFlight;
 }
+
+/** Messages not yet sent, newest first (the development inbox shows what is waiting and why). */
+export function listWaitingMail(em: EntityManager, limit = 50) {
+  return em.find(OutboxMessageSchema, { status: { $ne: 'sent' } }, { orderBy: { createdAt: 'desc' }, limit });
+}

@@ -1,10 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { UserSchema } from '@/entities';
 import { getEm } from '@/lib/server/db';
 import { AppError } from '@/lib/server/errors';
 import { getCurrentUser } from '@/lib/server/auth/session';
-import { findOpenInvitationOrThrow } from '@/lib/server/services/team/find-invitation';
+import { describeInvitation } from '@/lib/server/services/team/find-invitation';
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/server/permissions';
 import { TokenConfirmForm } from '@/components/auth/token-confirm-form';
 import { AcceptInvitationNewUserForm } from '@/components/auth/accept-invitation-form';
@@ -15,9 +14,9 @@ export const metadata: Metadata = { title: 'Invitation' };
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const em = await getEm();
-  let invitation;
+  let found;
   try {
-    invitation = await findOpenInvitationOrThrow(em, token);
+    found = await describeInvitation(em, token);
   } catch (error) {
     if (!(error instanceof AppError)) throw error;
     return (
@@ -29,7 +28,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     );
   }
   const user = await getCurrentUser();
-  const hasAccount = (await em.count(UserSchema, { email: invitation.email })) > 0;
+  const { invitation, hasAccount } = found;
   return (
     <>
       <h1 className="mb-1 text-xl font-semibold">Join {invitation.organisation.name}</h1>

@@ -1,6 +1,5 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { revalidatePath } from 'next/cache';
 import { orgAction, formObject } from '@/lib/server/action';
 import { AppError } from '@/lib/server/errors';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
@@ -14,7 +13,6 @@ const field = (formData: FormData, name: string) => {
   return value;
 };
 const assetInput = (formData: FormData) => ({ ...formObject(formData), hasImpressedCurrent: formData.get('hasImpressedCurrent') === 'on' });
-const refresh = (slug: string, assetId: string) => revalidatePath(`/o/${slug}/assets/${assetId}`);
 
 export const createAssetAction = orgAction('asset:write', async (ctx, formData) => {
   const asset = await createAsset(ctx, assetInput(formData));
@@ -23,51 +21,51 @@ export const createAssetAction = orgAction('asset:write', async (ctx, formData) 
 
 export const updateAssetAction = orgAction('asset:write', async (ctx, formData) => {
   const asset = await updateAsset(ctx, field(formData, 'assetId'), assetInput(formData));
-  refresh(ctx.organisation.slug, asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${asset.id}`);
   return { ok: true, message: 'Particulars saved.' };
 });
 
 export const archiveAssetAction = orgAction('asset:write', async (ctx, formData) => {
   const archive = formData.get('archive') === '1';
   const asset = await setAssetArchived(ctx, field(formData, 'assetId'), archive);
-  refresh(ctx.organisation.slug, asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${asset.id}`);
   return { ok: true, message: archive ? `${asset.name} is archived; restore it at any time.` : `${asset.name} is restored.` };
 });
 
 export const createZoneAction = orgAction('asset:write', async (ctx, formData) => {
   const assetId = field(formData, 'assetId');
   const zone = await createZone(ctx, assetId, formObject(formData));
-  refresh(ctx.organisation.slug, assetId);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${assetId}`);
   return { ok: true, message: `Zone "${zone.name}" added.` };
 });
 
 export const updateZoneAction = orgAction('asset:write', async (ctx, formData) => {
   const zone = await updateZone(ctx, field(formData, 'zoneId'), formObject(formData));
-  refresh(ctx.organisation.slug, zone.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${zone.asset.id}`);
   return { ok: true, message: `Zone "${zone.name}" saved.` };
 });
 
 export const archiveZoneAction = orgAction('asset:write', async (ctx, formData) => {
-  await archiveZone(ctx, field(formData, 'zoneId'));
-  refresh(ctx.organisation.slug, field(formData, 'assetId'));
+  const zone = await archiveZone(ctx, field(formData, 'zoneId'));
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${zone.asset.id}`);
   return { ok: true, message: 'Zone archived.' };
 });
 
 export const createAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
   const assetId = field(formData, 'assetId');
   const group = await createAnodeGroup(ctx, assetId, formObject(formData));
-  refresh(ctx.organisation.slug, assetId);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${assetId}`);
   return { ok: true, message: `${group.quantity} × ${group.model.designation} recorded as "${group.label}".` };
 });
 
 export const updateAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
   const group = await updateAnodeGroup(ctx, field(formData, 'groupId'), formObject(formData));
-  refresh(ctx.organisation.slug, group.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${group.asset.id}`);
   return { ok: true, message: `Group "${group.label}" saved; the change is in its history.` };
 });
 
 export const removeAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
   const group = await removeAnodeGroup(ctx, field(formData, 'groupId'), formObject(formData));
-  refresh(ctx.organisation.slug, group.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${group.asset.id}`);
   return { ok: true, message: `Group "${group.label}" closed as removed on ${group.removedOn}.` };
 });

@@ -1,6 +1,5 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { revalidatePath } from 'next/cache';
 import { orgAction, formObject } from '@/lib/server/action';
 import { openPortal, setCancelAtPeriodEnd, startCheckout } from '@/lib/server/services/billing/manage-subscription';
 
@@ -15,6 +14,6 @@ export const portalAction = orgAction('billing:manage', async (ctx) => {
 export const cancelAction = orgAction('billing:manage', async (ctx, formData) => {
   const cancel = formData.get('cancel') === '1';
   await setCancelAtPeriodEnd(ctx, cancel);
-  revalidatePath(`/o/${ctx.organisation.slug}/billing`);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/billing`);
   return { ok: true, message: cancel ? 'The subscription ends at the end of the paid period. Nothing is deleted.' : 'The cancellation is withdrawn.' };
 });

@@ -1,6 +1,5 @@
 import type { Metadata } from 'next';
 import { format } from 'date-fns';
-import { AssetSchema } from '@/entities';
 import { getPageOrgContextWith } from '@/lib/server/page-context';
 import { organisationReadOnlyReason } from '@/lib/server/org-context';
 import { confirmCheckout, getBillingOverview } from '@/lib/server/services/billing/manage-subscription';
@@ -8,6 +7,7 @@ import { PLAN_IDS, PLANS, STATUS_WORDS, TRIAL_PLAN, assetLimitOf } from '@/lib/b
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
+import { countActiveAssets } from '@/lib/server/services/assets/list-asset-choices';
 
 export const metadata: Metadata = { title: 'Billing' };
 export const dynamic = 'force-dynamic';
@@ -20,7 +20,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
     await confirmCheckout(ctx, sessionId).catch((error) => console.error('[tidewarden] checkout confirmation failed', error instanceof Error ? error.message : error));
   }
   const o = ctx.organisation;
-  const [{ invoices, invoicesError }, activeAssets] = await Promise.all([getBillingOverview(ctx), ctx.em.count(AssetSchema, { organisation: o, archivedAt: null })]);
+  const [{ invoices, invoicesError }, activeAssets] = await Promise.all([getBillingOverview(ctx), countActiveAssets(ctx)]);
   const readOnly = organisationReadOnlyReason(o);
   const limit = assetLimitOf({ plan: o.plan ?? null, subscriptionStatus: o.subscriptionStatus, trialEndsAt: o.trialEndsAt ?? null, stripeSubscriptionId: o.stripeSubscriptionId ?? null, pastDueSince: o.pastDueSince ?? null });
   const status = STATUS_WORDS[o.subscriptionStatus] ?? o.subscriptionStatus;

@@ -3,25 +3,16 @@ import { redirect } from 'next/navigation';
 import { z } from 'zod';
 import { orgAction, orgJsonAction, formObject } from '@/lib/server/action';
 import { AppError } from '@/lib/server/errors';
-import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { computeDesk } from '@/lib/server/services/designs/compute-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
 import { newRevision } from '@/lib/server/services/designs/new-revision';
 import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
+import { startDesign } from '@/lib/server/services/designs/start-design';
 
 export const createDesignAction = orgAction('design:write', async (ctx, formData) => {
-  const form = formObject(formData);
-  let assetId = String(form.assetId ?? '');
-  if (assetId === 'new') {
-    const asset = await createAsset(ctx, {
-      ...Object.fromEntries(Object.entries(form).filter(([k]) => k.startsWith('asset.')).map(([k, v]) => [k.slice(6), v])),
-      hasImpressedCurrent: form['asset.hasImpressedCurrent'] === 'on',
-    });
-    assetId = asset.id;
-  }
-  const design = await createDesign(ctx, { assetId, title: form.title || undefined });
+  const design = await startDesign(ctx, formObject(formData));
   redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
 });
 

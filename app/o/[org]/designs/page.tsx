@@ -1,11 +1,11 @@
 import type { Metadata } from 'next';
-import { AssetSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { allowed } from '@/lib/server/org-context';
 import { listDesigns } from '@/lib/server/services/designs/list-designs';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { DesignsList } from '@/components/design-desk/designs-list';
 import { NewDesignForm } from '@/components/design-desk/new-design-form';
+import { listAssetChoices } from '@/lib/server/services/assets/list-asset-choices';
 
 export const metadata: Metadata = { title: 'Design desk' };
 
@@ -14,7 +14,7 @@ export default async function DesignsPage({ params }: { params: Promise<{ org: s
   const ctx = await getPageOrgContext(org);
   const [designs, assets] = await Promise.all([
     listDesigns(ctx),
-    ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name', 'kind'] }),
+    listAssetChoices(ctx),
   ]);
   const canWrite = allowed(ctx, 'design:write');
   return (

@@ -1,6 +1,5 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { revalidatePath } from 'next/cache';
 import { orgAction, formObject } from '@/lib/server/action';
 import { AppError } from '@/lib/server/errors';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
@@ -19,7 +18,7 @@ export const createDockingAction = orgAction('docking:write', async (ctx, formDa
 
 export const updateDockingAction = orgAction('docking:write', async (ctx, formData) => {
   const docking = await updateDocking(ctx, id(formData, 'dockingId'), formObject(formData));
-  revalidatePath(`/o/${ctx.organisation.slug}/dockings/${docking.id}`);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/dockings/${docking.id}`);
   return { ok: true, message: 'Docking saved; renewal proposals were recomputed.' };
 });
 
@@ -33,12 +32,12 @@ export const renewalStepAction = orgAction('renewal:write', async (ctx, formData
   else if (step === 'cancel') await cancelRenewal(ctx, renewalId);
   else if (step === 'update') await updateRenewal(ctx, renewalId, formObject(formData));
   else throw new AppError('invalid', 'Unknown step.');
-  revalidatePath(`/o/${ctx.organisation.slug}/dockings`);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/dockings`);
   return { ok: true, message: step === 'fitted' ? 'Recorded as fitted: the new anodes are in the register and the old group is closed.' : 'Saved.' };
 });
 
 export const addRenewalAction = orgAction('renewal:write', async (ctx, formData) => {
   const renewal = await addRenewal(ctx, id(formData, 'dockingId'), formObject(formData));
-  revalidatePath(`/o/${ctx.organisation.slug}/dockings/${renewal.docking.id}`);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/dockings/${renewal.docking.id}`);
   return { ok: true, message: 'Renewal booked.' };
 });

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next';
-import { AssetSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { allowed } from '@/lib/server/org-context';
 import { PageHeader, Panel } from '@/components/ui/panel';
 import { SurveysTable } from '@/components/surveys/surveys-table';
 import { NewSurveyForm } from '@/components/surveys/new-survey-form';
+import { listAssetChoices } from '@/lib/server/services/assets/list-asset-choices';
 
 export const metadata: Metadata = { title: 'Surveys' };
 
@@ -13,7 +13,7 @@ export default async function SurveysPage({ params, searchParams }: { params: Pr
   const { assetId } = await searchParams;
   const ctx = await getPageOrgContext(org);
   const canWrite = allowed(ctx, 'survey:write');
-  const assets = canWrite ? await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null }, { orderBy: { name: 'asc' }, fields: ['id', 'name'] }) : [];
+  const assets = canWrite ? await listAssetChoices(ctx) : [];
   return (
     <>
       <PageHeader title="Surveys" subtitle="Diver, drop-cell and ROV surveys: potentials against the protection criteria, and what remains of the anodes." />

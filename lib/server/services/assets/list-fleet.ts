@@ -1,5 +1,5 @@
 import type { ListQuery } from '@/lib/schemas/register';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, OUTLOOK_WORDS } from '../planner/compute-plans';
 import { listAssets, type AssetRow } from './list-assets';
 
@@ -13,6 +13,7 @@ export interface FleetRow extends AssetRow {
 
 /** The fleet overview page: the asset list with each asset's protection outlook, next docking and mass due there. */
 export async function listFleet(ctx: OrgContext, query: ListQuery) {
+  requirePermission(ctx, 'org:read');
   const page = await listAssets(ctx, query);
   const plans = query.archived === '1' ? [] : await computePlans(ctx, { assetIds: page.rows.map((r) => r.id) });
   const byAsset = new Map(plans.map((p) => [p.asset.id, p]));

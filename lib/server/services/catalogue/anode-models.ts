@@ -1,7 +1,7 @@
 import { AnodeModelSchema, type AnodeModelRow } from '@/entities';
 import { BUILTIN_ANODE_MODELS, type AnodeModel } from '@/lib/cp';
 import { AppError } from '../../errors';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { isUuid } from '../../ids';
 
 /** Catalogue keys say where a model lives: `builtin:<designation>` or `org:<uuid>`. */
@@ -31,6 +31,7 @@ export function toCpModel(row: AnodeModelRow): AnodeModel {
 
 /** The built-in generic models and the organisation's own, as one list. */
 export async function listCatalogue(ctx: OrgContext, { includeArchived = false } = {}): Promise<CatalogueModel[]> {
+  requirePermission(ctx, 'org:read');
   const rows = await ctx.em.find(AnodeModelSchema, { organisation: ctx.organisation, ...(includeArchived ? {} : { archivedAt: null }) }, { orderBy: { designation: 'asc' } });
   return [
     ...BUILTIN_ANODE_MODELS.map((m) => ({ ...m, key: builtinKey(m.id), source: 'built-in' as const, archived: false })),
@@ -39,6 +40,7 @@ export async function listCatalogue(ctx: OrgContext, { includeArchived = false }
 }
 
 export async function resolveAnodeModel(ctx: OrgContext, key: string): Promise<CatalogueModel> {
+  requirePermission(ctx, 'org:read');
   const [source, id] = [key.slice(0, key.indexOf(':')), key.slice(key.indexOf(':') + 1)];
   if (source === 'builtin') {
     const model = BUILTIN_ANODE_MODELS.find((m) => m.id === id);

@@ -2,7 +2,7 @@ import { CpInputError, compareOptions, designAnodeSystem, impressedCurrentSummar
 import { buildDesignInput, buildDesignJob, deskNotices, type DeskNotice } from '@/lib/design/build-design-input';
 import { deskInputsSchema, type DeskInputs } from '@/lib/schemas/design';
 import { listCatalogue, resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export interface DeskResult {
   inputs: DeskInputs;
@@ -20,6 +20,7 @@ export interface DeskResult {
  * catalogue model side by side, and, for a vessel with an impressed-current system, its output.
  */
 export async function computeDesk(ctx: OrgContext, rawInputs: unknown, { hasImpressedCurrent = false } = {}): Promise<DeskResult> {
+  requirePermission(ctx, 'org:read');
   const inputs = deskInputsSchema.parse(rawInputs);
   const model = await resolveAnodeModel(ctx, inputs.anodeModelKey);
   const notices = deskNotices(inputs);

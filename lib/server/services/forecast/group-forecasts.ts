@@ -1,6 +1,6 @@
 import { AnodeGroupSchema, type AnodeGroup } from '@/entities';
 import { forecastGroup, ForecastInputError, type GroupForecast } from '@/lib/forecast';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 
 export interface GroupWithForecast {
   group: AnodeGroup;
@@ -14,6 +14,7 @@ const utc = (isoDate: string) => new Date(`${isoDate}T00:00:00Z`);
 
 /** Forecasts for the fitted groups of some assets (or all), with their surveyed remaining fractions; three statements. */
 export async function loadGroupForecasts(ctx: OrgContext, { assetIds }: { assetIds?: string[] } = {}): Promise<GroupWithForecast[]> {
+  requirePermission(ctx, 'org:read');
   const groups = await ctx.em.find(
     AnodeGroupSchema,
     { organisation: ctx.organisation, removedOn: null, asset: { archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) } },

@@ -2,7 +2,7 @@ import { AssetSchema, DockingSchema, RenewalSchema, type Asset, type Docking, ty
 import { assetOutlook, massDueKg, proposeRenewals, type AssetOutlook, type MassDue, type RenewalProposal } from '@/lib/forecast';
 import { classifyPotential } from '@/lib/surveys/criteria';
 import { protectedMetalOf } from '@/lib/register/protected-metal';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
 
 export interface AssetPlan {
@@ -24,6 +24,7 @@ export const dockingDate = (d: Pick<Docking, 'plannedStart' | 'actualStart'>) =>
  * in a fixed number of statements whatever the fleet size.
  */
 export async function computePlans(ctx: OrgContext, { assetIds, today = new Date() }: { assetIds?: string[]; today?: Date } = {}): Promise<AssetPlan[]> {
+  requirePermission(ctx, 'org:read');
   const assets = await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) }, { orderBy: { name: 'asc' } });
   if (!assets.length) return [];
   const ids = assets.map((a) => a.id);

@@ -1,9 +1,10 @@
 import { RenewalSchema } from '@/entities';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { getDockingOrThrow } from './dockings';
 
 /** The renewals booked at a docking, as plain rows for the renewals table and the anode list. */
 export async function listDockingRenewals(ctx: OrgContext, dockingId: string) {
+  requirePermission(ctx, 'org:read');
   const docking = await getDockingOrThrow(ctx, dockingId);
   const renewals = await ctx.em.find(RenewalSchema, { docking }, { populate: ['group', 'group.zone'], orderBy: { createdAt: 'asc' } });
   const rows = renewals

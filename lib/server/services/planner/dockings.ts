@@ -37,3 +37,10 @@ export async function updateDocking(ctx: OrgContext, dockingId: string, input: u
   ctx.effects.assetChanged(docking.asset.id);
   return docking;
 }
+
+/** An asset's planned dockings or campaigns, soonest first (where a renewal may be moved to). */
+export async function listPlannedDockings(ctx: OrgContext, assetId: string) {
+  requirePermission(ctx, 'org:read');
+  uuidOrNotFound(assetId, 'Asset');
+  return ctx.em.find(DockingSchema, { asset: assetId, organisation: ctx.organisation, status: 'planned' }, { orderBy: { plannedStart: 'asc' } });
+}

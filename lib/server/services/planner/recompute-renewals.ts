@@ -1,5 +1,5 @@
 import { RenewalSchema } from '@/entities';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { classifyRemaining } from '@/lib/surveys/criteria';
 import { computePlans } from './compute-plans';
 
@@ -11,6 +11,8 @@ import { computePlans } from './compute-plans';
  * and the unit of work calls this before commit.
  */
 export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], today = new Date()) {
+  // Derived data that any member's permitted change may refresh (an inspector's survey moves proposals).
+  requirePermission(ctx, 'org:read');
   const plans = await computePlans(ctx, { assetIds, today });
   const groupIds = plans.flatMap((p) => p.groups.map((g) => g.group.id));
   const [proposed, cancelled] = groupIds.length

@@ -5,6 +5,7 @@ import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDockingOrThrow } from './dockings';
 import { uuidOrNotFound } from '../../ids';
+import { compareDateOnly, todayDateOnly } from '@/lib/dates/date-only';
 
 async function getRenewalOrThrow(ctx: OrgContext, renewalId: string) {
   uuidOrNotFound(renewalId, 'Renewal');
@@ -67,7 +68,7 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
   if (r.status !== 'confirmed' && r.status !== 'ordered') throw new AppError('conflict', r.status === 'proposed' ? 'Confirm the renewal before recording it as fitted.' : `This renewal is ${r.status}.`);
   const { fittedOn } = fittedSchema.parse(input);
   if (fittedOn < r.group.installedOn) throw new AppError('invalid', 'The fitting date is before the old anodes were installed.', { fittedOn: ['The fitting date is before the old anodes were installed.'] });
-  if (fittedOn > new Date().toISOString().slice(0, 10)) throw new AppError('invalid', 'The fitting date cannot be in the future.', { fittedOn: ['The fitting date cannot be in the future.'] });
+  if (compareDateOnly(fittedOn, todayDateOnly()) > 0) throw new AppError('invalid', 'The fitting date cannot be in the future.', { fittedOn: ['The fitting date cannot be in the future.'] });
   const old = r.group;
   const fresh = ctx.em.create(AnodeGroupSchema, {
     organisation: ctx.organisation,

@@ -38,4 +38,5 @@ export async function archiveZone(ctx: OrgContext, zoneId: string) {
   const zone = await getZoneOrThrow(ctx, zoneId);
   zone.archivedAt = new Date();
   audit(ctx, { action: 'zone.archived', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
+  return zone;
 }

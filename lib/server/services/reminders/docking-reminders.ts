@@ -1,10 +1,10 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { differenceInCalendarDays, format } from 'date-fns';
 import { DockingSchema, MembershipSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { anodeListPdf } from '../planner/anode-list';
 import { runAsSystem } from '../../unit-of-work';
+import { formatDateOnly, parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
 
 /** Reminders go 90 and 30 days before a planned docking (the yard needs the anode list to order). */
 export const REMINDER_DAYS = [90, 30] as const;
@@ -15,8 +15,8 @@ export const REMINDER_DAYS = [90, 30] as const;
  * date, the threshold, the person) makes each reminder exactly once, however often this runs.
  */
 export async function queueDockingReminders(em: EntityManager, now = new Date()) {
-  const horizon = new Date(now.getTime() + 91 * 86_400_000).toISOString().slice(0, 10);
-  const today = now.toISOString().slice(0, 10);
+  const horizon = toDateOnly(new Date(now.getTime() + 91 * 86_400_000));
+  const today = toDateOnly(now);
   const dockings = await em.find(DockingSchema, { status: 'planned', plannedStart: { $gte: today, $lte: horizon }, asset: { archivedAt: null } }, { populate: ['asset', 'organisation'] });
   // Planners and owners of every organisation concerned, in one query rather than one per docking.
   const members = dockings.length
@@ -24,14 +24,15 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     : [];
   let queued = 0;
   for (const docking of dockings) {
-    const days = differenceInCalendarDays(new Date(`${docking.plannedStart}T00:00:00Z`), new Date(`${today}T00:00:00Z`));
+    // Whole UTC days between two date-only values, whatever the server's time zone.
+    const days = Math.round((parseDateOnly(docking.plannedStart).getTime() - parseDateOnly(today).getTime()) / 86_400_000);
     const threshold = REMINDER_DAYS.filter((t) => days <= t).at(-1);
     if (threshold === undefined) continue;
     const recipients = members.filter((m) => m.organisation.id === docking.organisation.id);
     if (!recipients.length) continue;
     const { pdf, filename } = await runAsSystem(docking.organisation.id, (ctx) => anodeListPdf(ctx, docking.id), { em: em.fork() });
     const url = `${getEnv().APP_URL}/o/${docking.organisation.slug}/dockings/${docking.id}`;
-    const when = format(new Date(`${docking.plannedStart}T00:00:00Z`), 'd MMMM yyyy');
+    const when = formatDateOnly(docking.plannedStart);
     for (const m of recipients) {
       const sent = await enqueueMailOnce(em, {
         to: m.user.email,

@@ -1,11 +1,12 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { format, getISOWeek, getISOWeekYear, subDays } from 'date-fns';
+import { getISOWeek, getISOWeekYear, subDays } from 'date-fns';
 import { MembershipSchema, OrganisationSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
 import { OUTLOOK_WORDS } from '../planner/compute-plans';
+import { formatDateOnly, toDateOnly } from '@/lib/dates/date-only';
 
 /**
  * Once a week: recompute every organisation's outlooks and tell its planners and owners which assets
@@ -23,7 +24,7 @@ export async function queueWeeklyDigests(em: EntityManager, now = new Date()) {
     if (changed.length) {
       const recipients = await em.find(MembershipSchema, { organisation: organisation.id, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });
       const base = `${getEnv().APP_URL}/o/${organisation.slug}`;
-      const lines = changed.map((p) => `- ${p.asset.name}: ${OUTLOOK_WORDS[p.outlook]}${p.nextDocking ? ` (next docking ${p.nextDocking.plannedStart})` : ''}\n  ${base}/assets/${p.asset.id}`);
+      const lines = changed.map((p) => `- ${p.asset.name}: ${OUTLOOK_WORDS[p.outlook]}${p.nextDocking ? ` (next docking ${formatDateOnly(p.nextDocking.plannedStart)})` : ''}\n  ${base}/assets/${p.asset.id}`);
       for (const m of recipients) {
         if (
           await enqueueMailOnce(em, {
@@ -31,7 +32,7 @@ export async function queueWeeklyDigests(em: EntityManager, now = new Date()) {
             organisationId: organisation.id,
             dedupeKey: `weekly-digest:${organisation.id}:${week}:${m.user.id}`,
             subject: `Tidewarden weekly: ${changed.length} asset${changed.length === 1 ? '' : 's'} changed outlook (${organisation.name})`,
-            text: `Since ${format(since, 'd MMM yyyy')}, the protection outlook changed for:\n\n${lines.join('\n')}\n\nThe docking planner: ${base}/dockings\n\n— Tidewarden`,
+            text: `Since ${formatDateOnly(toDateOnly(since))}, the protection outlook changed for:\n\n${lines.join('\n')}\n\nThe docking planner: ${base}/dockings\n\n— Tidewarden`,
           })
         )
           queued++;

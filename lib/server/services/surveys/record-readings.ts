@@ -5,7 +5,10 @@ import { protectedMetalOf } from '@/lib/register/protected-metal';
 import type { ParsedReading } from '@/lib/surveys/survey-csv';
 import { enqueueMail } from '../../mail/outbox';
 import { getEnv } from '../../env';
-import type { OrgContext } from '../../org-context';
+import { requirePermission, type OrgContext } from '../../org-context';
+import { audit } from '../../audit';
+import { getSurveyOrThrow } from './survey-access';
+import { readingSchema } from '@/lib/schemas/register';
 
 export type ReadingInput = Omit<ParsedReading, 'line' | 'potentialAgAgClV'> & { line?: number | null };
 
@@ -49,4 +52,18 @@ export async function addReadings(ctx: OrgContext, survey: Survey, readings: Rea
     }
   }
   return { under };
+}
+
+/** One reading typed in by hand (a drop-cell reading at a berth, a diver's call over the radio). */
+export async function addReading(ctx: OrgContext, surveyId: string, form: Record<string, unknown>) {
+  requirePermission(ctx, 'survey:write');
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  // The form asks for the remaining anode mass in per cent; the register keeps a fraction.
+  const percent = form.remainingPercent;
+  const reading = readingSchema.parse({ ...form, remainingFraction: percent === '' || percent === undefined || percent === null ? null : Number(percent) / 100 }) as ReadingInput;
+  const { under } = await addReadings(ctx, survey, [reading]);
+  audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { location: reading.location } });
+  ctx.effects.assetChanged(survey.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  return { survey, under };
 }

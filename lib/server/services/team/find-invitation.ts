@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { InvitationSchema } from '@/entities';
+import { InvitationSchema, UserSchema } from '@/entities';
 import { AppError } from '../../errors';
 import { hashToken } from '../../tokens';
 
@@ -11,4 +11,11 @@ export async function findOpenInvitationOrThrow(em: EntityManager, token: string
   if (invitation.revokedAt) throw new AppError('invalid', 'This invitation was withdrawn. Ask the organisation owner for a new one.');
   if (invitation.expiresAt.getTime() <= Date.now()) throw new AppError('invalid', 'This invitation has expired. Ask the organisation owner for a new one.');
   return invitation;
+}
+
+/** What the invitation page shows: the open invitation and whether its address already has an account. */
+export async function describeInvitation(em: EntityManager, token: string) {
+  const invitation = await findOpenInvitationOrThrow(em, token);
+  const hasAccount = (await em.count(UserSchema, { email: invitation.email })) > 0;
+  return { invitation, hasAccount };
 }

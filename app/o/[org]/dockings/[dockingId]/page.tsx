@@ -1,7 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
-import { AnodeGroupSchema, DockingSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
@@ -11,6 +10,8 @@ import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { RenewalsTable } from '@/components/planner/renewals-table';
 import { AddRenewalForm, DockingEditForm } from '@/components/planner/docking-edit-form';
+import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
+import { listPlannedDockings } from '@/lib/server/services/planner/dockings';
 
 export const metadata: Metadata = { title: 'Docking' };
 
@@ -31,8 +32,8 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
   const canRenew = allowed(ctx, 'renewal:write');
   const [groups, planned] = canRenew
     ? await Promise.all([
-        ctx.em.find(AnodeGroupSchema, { asset: docking.asset, removedOn: null }, { orderBy: { label: 'asc' }, fields: ['id', 'label'] }),
-        ctx.em.find(DockingSchema, { asset: docking.asset, status: 'planned' }, { orderBy: { plannedStart: 'asc' } }),
+        listGroupChoices(ctx, docking.asset.id),
+        listPlannedDockings(ctx, docking.asset.id),
       ])
     : [[], []];
   const dockingChoices = planned.map((d) => ({ id: d.id, label: `${formatDateOnly(d.plannedStart)}${d.yard ? `, ${d.yard}` : ''}` }));

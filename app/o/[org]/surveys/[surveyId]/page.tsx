@@ -2,7 +2,6 @@ import type { Metadata } from 'next';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { AnodeGroupSchema } from '@/entities';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
@@ -13,6 +12,7 @@ import { CsvUpload } from '@/components/surveys/csv-upload';
 import { ReadingForm } from '@/components/surveys/reading-form';
 import { AttachmentUpload } from '@/components/surveys/attachment-upload';
 import { SURVEY_CSV_COLUMNS } from '@/lib/surveys/survey-csv';
+import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
 
 export const metadata: Metadata = { title: 'Survey' };
 
@@ -28,7 +28,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
   }
   const { survey, readings, counts, attachments } = details;
   const canWrite = allowed(ctx, 'survey:write');
-  const groups = canWrite ? (await ctx.em.find(AnodeGroupSchema, { asset: survey.assetId, removedOn: null }, { fields: ['label'], orderBy: { label: 'asc' } })).map((g) => g.label) : [];
+  const groups = canWrite ? (await listGroupChoices(ctx, survey.assetId)).map((g) => g.label) : [];
   return (
     <>
       <PageHeader
