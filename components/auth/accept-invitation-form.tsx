@@ -1,21 +1,20 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { acceptInvitationNewUserAction } from '@/app/(auth)/invite/[token]/actions';
 
 export function AcceptInvitationNewUserForm({ token, email }: { token: string; email: string }) {
-  const [state, action, pending] = useActionState(acceptInvitationNewUserAction, { ok: false });
+  const form = useBoundAction(acceptInvitationNewUserAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
       <input type="hidden" name="token" value={token} />
       <Field label="E-mail" name="email-shown" value={email} readOnly disabled />
-      <Field label="Your name" name="name" autoComplete="name" required defaultValue={state.values?.name} errors={state.fieldErrors?.name} />
-      <Field label="Choose a password" name="password" type="password" autoComplete="new-password" required hint="At least 10 characters; not a commonly used password." errors={state.fieldErrors?.password} />
-      <Button type="submit" disabled={pending}>
+      <Field label="Your name" {...form.field('name')} autoComplete="name" required />
+      <Field label="Choose a password" name="password" type="password" autoComplete="new-password" required hint="At least 10 characters; not a commonly used password." errors={form.errors('password')} />
+      <Button type="submit" disabled={form.pending}>
         Create my account and join
       </Button>
-    </form>
+    </ActionForm>
   );
 }

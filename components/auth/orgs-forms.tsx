@@ -1,30 +1,28 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createOrganisationAction, resendVerificationAction } from '@/app/orgs/actions';
 
 export function CreateOrganisationForm() {
-  const [state, action, pending] = useActionState(createOrganisationAction, { ok: false });
+  const form = useBoundAction(createOrganisationAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
-      <Field label="Organisation name" name="name" required placeholder="e.g. your fleet operator, port authority or consultancy" defaultValue={state.values?.name} errors={state.fieldErrors?.name} />
-      <Button type="submit" disabled={pending}>
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
+      <Field label="Organisation name" {...form.field('name')} required placeholder="e.g. your fleet operator, port authority or consultancy" />
+      <Button type="submit" disabled={form.pending}>
         Create organisation
       </Button>
-    </form>
+    </ActionForm>
   );
 }
 
 export function ResendVerificationForm() {
-  const [state, action, pending] = useActionState(resendVerificationAction, { ok: false });
+  const form = useBoundAction(resendVerificationAction);
   return (
-    <form action={action} className="flex flex-col gap-2">
-      <FormMessage state={state} />
-      <Button type="submit" variant="secondary" disabled={pending}>
+    <ActionForm form={form} className="flex flex-col gap-2">
+      <Button type="submit" variant="secondary" disabled={form.pending}>
         Send the link again
       </Button>
-    </form>
+    </ActionForm>
   );
 }

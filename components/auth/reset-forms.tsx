@@ -1,33 +1,31 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { requestResetAction, resetPasswordAction } from '@/app/(auth)/reset/actions';
 
 export function RequestResetForm() {
-  const [state, action, pending] = useActionState(requestResetAction, { ok: false });
+  const form = useBoundAction(requestResetAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
-      <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={state.values?.email} errors={state.fieldErrors?.email} />
-      <Button type="submit" disabled={pending}>
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
+      <Field label="E-mail" {...form.field('email')} type="email" autoComplete="email" required />
+      <Button type="submit" disabled={form.pending}>
         Send me a reset link
       </Button>
-    </form>
+    </ActionForm>
   );
 }
 
 export function ResetPasswordForm({ token }: { token: string }) {
-  const [state, action, pending] = useActionState(resetPasswordAction, { ok: false });
+  const form = useBoundAction(resetPasswordAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
       <input type="hidden" name="token" value={token} />
-      <Field label="New password" name="password" type="password" autoComplete="new-password" required hint="At least 10 characters; not a commonly used password." errors={state.fieldErrors?.password} />
-      <Button type="submit" disabled={pending}>
+      <Field label="New password" name="password" type="password" autoComplete="new-password" required hint="At least 10 characters; not a commonly used password." errors={form.errors('password')} />
+      <Button type="submit" disabled={form.pending}>
         Set the new password
       </Button>
       <p className="text-xs text-ink-faint">Every device signed in to your account will be signed out.</p>
-    </form>
+    </ActionForm>
   );
 }

@@ -1,20 +1,19 @@
 'use client';
 import Link from 'next/link';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { signInAction } from '@/app/(auth)/sign-in/actions';
 
 export function SignInForm({ next }: { next?: string }) {
-  const [state, action, pending] = useActionState(signInAction, { ok: false });
+  const form = useBoundAction(signInAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
       <input type="hidden" name="next" value={next ?? ''} />
-      <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={state.values?.email} errors={state.fieldErrors?.email} />
-      <Field label="Password" name="password" type="password" autoComplete="current-password" required errors={state.fieldErrors?.password} />
-      <Button type="submit" disabled={pending}>
-        {pending ? 'Signing in…' : 'Sign in'}
+      <Field label="E-mail" {...form.field('email')} type="email" autoComplete="email" required />
+      <Field label="Password" name="password" type="password" autoComplete="current-password" required errors={form.errors('password')} />
+      <Button type="submit" disabled={form.pending}>
+        {form.pending ? 'Signing in…' : 'Sign in'}
       </Button>
       <div className="flex justify-between text-xs">
         <Link href="/reset" className="text-tide-600 hover:underline">
@@ -24,6 +23,6 @@ export function SignInForm({ next }: { next?: string }) {
           Create an account
         </Link>
       </div>
-    </form>
+    </ActionForm>
   );
 }

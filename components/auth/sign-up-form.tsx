@@ -1,17 +1,16 @@
 'use client';
 import Link from 'next/link';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage } from '@/components/ui/field';
+import { Field } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { signUpAction } from '@/app/(auth)/sign-up/actions';
 
 export function SignUpForm() {
-  const [state, action, pending] = useActionState(signUpAction, { ok: false });
+  const form = useBoundAction(signUpAction);
   return (
-    <form action={action} className="flex flex-col gap-3" noValidate>
-      <FormMessage state={state} />
-      <Field label="Your name" name="name" autoComplete="name" required defaultValue={state.values?.name} errors={state.fieldErrors?.name} />
-      <Field label="Work e-mail" name="email" type="email" autoComplete="email" required defaultValue={state.values?.email} errors={state.fieldErrors?.email} />
+    <ActionForm form={form} className="flex flex-col gap-3" noValidate>
+      <Field label="Your name" {...form.field('name')} autoComplete="name" required />
+      <Field label="Work e-mail" {...form.field('email')} type="email" autoComplete="email" required />
       <Field
         label="Password"
         name="password"
@@ -19,10 +18,10 @@ export function SignUpForm() {
         autoComplete="new-password"
         required
         hint="At least 10 characters; not a commonly used password."
-        errors={state.fieldErrors?.password}
+        errors={form.errors('password')}
       />
-      <Button type="submit" disabled={pending}>
-        {pending ? 'Creating…' : 'Create account'}
+      <Button type="submit" disabled={form.pending}>
+        {form.pending ? 'Creating…' : 'Create account'}
       </Button>
       <p className="text-xs text-ink-soft">
         We send a link to confirm your address; then you create your organisation.{' '}
@@ -30,6 +29,6 @@ export function SignUpForm() {
           I already have an account
         </Link>
       </p>
-    </form>
+    </ActionForm>
   );
 }

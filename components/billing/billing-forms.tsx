@@ -1,52 +1,45 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { FormMessage } from '@/components/ui/field';
-import type { ActionState } from '@/lib/server/action';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { cancelAction, checkoutAction, portalAction } from '@/app/o/[org]/billing/actions';
 
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
-
 export function ChoosePlanButton({ org, plan, label, current }: { org: string; plan: string; label: string; current: boolean }) {
-  const [state, action, pending] = useActionState(checkoutAction.bind(null, org) as Bound, { ok: false });
+  const form = useBoundAction(checkoutAction.bind(null, org));
   return (
-    <form action={action} className="flex flex-col gap-2">
-      <FormMessage state={state} />
+    <ActionForm form={form} className="flex flex-col gap-2">
       <input type="hidden" name="plan" value={plan} />
-      <Button type="submit" variant={current ? 'secondary' : 'primary'} disabled={pending || current}>
-        {current ? 'Your plan' : pending ? 'Opening checkout…' : label}
+      <Button type="submit" variant={current ? 'secondary' : 'primary'} disabled={form.pending || current}>
+        {current ? 'Your plan' : form.pending ? 'Opening checkout…' : label}
       </Button>
-    </form>
+    </ActionForm>
   );
 }
 
 export function PortalButton({ org }: { org: string }) {
-  const [state, action, pending] = useActionState(portalAction.bind(null, org) as Bound, { ok: false });
+  const form = useBoundAction(portalAction.bind(null, org));
   return (
-    <form action={action} className="flex flex-col gap-2">
-      <FormMessage state={state} />
-      <Button type="submit" variant="secondary" disabled={pending}>
+    <ActionForm form={form} className="flex flex-col gap-2">
+      <Button type="submit" variant="secondary" disabled={form.pending}>
         Manage the subscription and payment
       </Button>
-    </form>
+    </ActionForm>
   );
 }
 
 export function CancelButton({ org, cancelling }: { org: string; cancelling: boolean }) {
-  const [state, action, pending] = useActionState(cancelAction.bind(null, org) as Bound, { ok: false });
+  const form = useBoundAction(cancelAction.bind(null, org));
   return (
-    <form
-      action={action}
+    <ActionForm
+      form={form}
       className="flex flex-col gap-2"
       onSubmit={(e) => {
         if (!cancelling && !confirm('Cancel at the end of the paid period? The organisation then becomes read-only; nothing is deleted.')) e.preventDefault();
       }}
     >
-      <FormMessage state={state} />
       <input type="hidden" name="cancel" value={cancelling ? '0' : '1'} />
-      <Button type="submit" variant={cancelling ? 'secondary' : 'danger'} disabled={pending}>
+      <Button type="submit" variant={cancelling ? 'secondary' : 'danger'} disabled={form.pending}>
         {cancelling ? 'Keep the subscription' : 'Cancel at period end'}
       </Button>
-    </form>
+    </ActionForm>
   );
 }

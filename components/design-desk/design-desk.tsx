@@ -1,9 +1,9 @@
 'use client';
-import { useCallback, useEffect, useRef, useState, useTransition } from 'react';
-import type { DesignResult, ImpressedCurrentSummary, OptionRow } from '@/lib/cp';
-import type { DeskNotice } from '@/lib/design/build-design-input';
+import { useCallback, useEffect, useState, useTransition } from 'react';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
-import { computeDeskAction, saveDesignAction } from '@/app/o/[org]/designs/actions';
+import type { DeskComputed } from '@/lib/client/desk-calculation';
+import { useDeskCalculation } from '@/lib/client/use-desk-calculation';
+import { saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
 import { Caution, Panel } from '@/components/ui/panel';
 import { JobFields } from './job-fields';
@@ -13,14 +13,7 @@ import { ResultsPanel } from './results-panel';
 import { OptionsTable } from './options-table';
 import type { DeskState } from './desk-state';
 
-export interface DeskComputed {
-  result: DesignResult | null;
-  error: { field: string; message: string } | null;
-  notices: DeskNotice[];
-  options: OptionRow[];
-  impressedCurrent: ImpressedCurrentSummary | null;
-  model: CatalogueModel;
-}
+export type { DeskComputed } from '@/lib/client/desk-calculation';
 
 interface Props {
   org: string;
@@ -34,51 +27,24 @@ interface Props {
 }
 
 /**
- * The design desk: inputs on the left, results recomputed by a server action as they change.
+ * The design desk: inputs on the left, results recomputed by the server as they change (useDeskCalculation).
  * Nothing is written until "Save draft"; an approved revision is shown read-only.
  */
 export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, vessel }: Props) {
   const [title, setTitle] = useState(initialTitle);
   const [inputs, setInputs] = useState<DeskState>(initialInputs);
-  const [computed, setComputed] = useState<DeskComputed | null>(initialComputed);
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
-  const [computeMessage, setComputeMessage] = useState<string | null>(null);
   const [dirty, setDirty] = useState(false);
-  const [saveState, setSaveState] = useState<{ ok: boolean; message: string } | null>(null);
-  const [computing, startCompute] = useTransition();
+  const [saveState, setSaveState] = useState<{ ok: boolean; message: string; fieldErrors?: Record<string, string[]> } | null>(null);
   const [saving, startSave] = useTransition();
-  const sequence = useRef(0);
-  const firstRender = useRef(true);
+  const { computed, fieldErrors: computeErrors, message: computeMessage, computing } = useDeskCalculation({ org, designId, inputs, initialInputs, initialComputed });
+  // A refused save's field messages stand until the next edit; then the recompute's do.
+  const fieldErrors = saveState?.fieldErrors ?? computeErrors;
 
   const update = useCallback((change: (previous: DeskState) => DeskState) => {
     setInputs((previous) => change(previous));
     setDirty(true);
     setSaveState(null);
   }, []);
-
-  // Recompute shortly after the engineer stops typing; answers to older requests are dropped.
-  useEffect(() => {
-    if (firstRender.current) {
-      firstRender.current = false;
-      return;
-    }
-    const id = ++sequence.current;
-    const timer = setTimeout(() => {
-      startCompute(async () => {
-        const answer = await computeDeskAction(org, { designId, inputs });
-        if (id !== sequence.current) return;
-        if (answer.ok) {
-          setComputed(answer.data);
-          setFieldErrors({});
-          setComputeMessage(null);
-        } else {
-          setFieldErrors(answer.fieldErrors ?? {});
-          setComputeMessage(answer.message);
-        }
-      });
-    }, 250);
-    return () => clearTimeout(timer);
-  }, [inputs, org, designId]);
 
   useEffect(() => {
     if (!dirty) return;
@@ -94,8 +60,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
         setDirty(false);
         setSaveState({ ok: true, message: `Draft saved ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.` });
       } else {
-        setFieldErrors(answer.fieldErrors ?? {});
-        setSaveState({ ok: false, message: answer.message });
+        setSaveState({ ok: false, message: answer.message, fieldErrors: answer.fieldErrors });
       }
     });
 

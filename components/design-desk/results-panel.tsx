@@ -2,7 +2,7 @@
 import { CRITERION_LABELS } from '@/lib/design/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
-import type { DeskComputed } from './design-desk';
+import type { DeskComputed } from '@/lib/client/desk-calculation';
 
 const FORMULA_LABELS: Record<string, string> = {
   'modified-dwight': 'modified Dwight (long slender stand-off)',

@@ -1,12 +1,9 @@
 'use client';
-import { useActionState } from 'react';
 import { format } from 'date-fns';
 import { Button } from '@/components/ui/button';
 import { FormMessage } from '@/components/ui/field';
-import type { ActionState } from '@/lib/server/action';
+import { useBoundAction } from '@/components/ui/action-form';
 import { approveDesignAction, checkDesignAction, newRevisionAction } from '@/app/o/[org]/designs/actions';
-
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 interface Props {
   org: string;
@@ -23,9 +20,9 @@ const when = (iso: string | null) => (iso ? format(new Date(iso), 'd MMM yyyy HH
 
 /** Prepared / checked / approved, with the actions the signed-in member may take. */
 export function SignatureBlock({ org, designId, status, prepared, checked, approved, can, reason }: Props) {
-  const [checkState, check, checking] = useActionState(checkDesignAction.bind(null, org) as Bound, { ok: false });
-  const [approveState, approve, approving] = useActionState(approveDesignAction.bind(null, org) as Bound, { ok: false });
-  const [reviseState, revise, revising] = useActionState(newRevisionAction.bind(null, org) as Bound, { ok: false });
+  const check = useBoundAction(checkDesignAction.bind(null, org));
+  const approve = useBoundAction(approveDesignAction.bind(null, org));
+  const revise = useBoundAction(newRevisionAction.bind(null, org));
   return (
     <div className="flex flex-col gap-3">
       <table className="w-full text-sm" aria-label="Revision block">
@@ -47,26 +44,26 @@ export function SignatureBlock({ org, designId, status, prepared, checked, appro
           </tr>
         </tbody>
       </table>
-      <FormMessage state={checkState} />
-      <FormMessage state={approveState} />
-      <FormMessage state={reviseState} />
+      <FormMessage state={check.state} />
+      <FormMessage state={approve.state} />
+      <FormMessage state={revise.state} />
       <div className="no-print flex flex-wrap gap-2">
         {can.check && status === 'draft' ? (
-          <form action={check}>
+          <form action={check.action}>
             <input type="hidden" name="designId" value={designId} />
-            <Button type="submit" variant="secondary" disabled={checking}>Sign as checker</Button>
+            <Button type="submit" variant="secondary" disabled={check.pending}>Sign as checker</Button>
           </form>
         ) : null}
         {can.approve && status !== 'approved' ? (
-          <form action={approve} onSubmit={(e) => { if (!confirm('Approve this revision? It cannot change afterwards.')) e.preventDefault(); }}>
+          <form action={approve.action} onSubmit={(e) => { if (!confirm('Approve this revision? It cannot change afterwards.')) e.preventDefault(); }}>
             <input type="hidden" name="designId" value={designId} />
-            <Button type="submit" disabled={approving}>Approve revision</Button>
+            <Button type="submit" disabled={approve.pending}>Approve revision</Button>
           </form>
         ) : null}
         {can.revise ? (
-          <form action={revise}>
+          <form action={revise.action}>
             <input type="hidden" name="designId" value={designId} />
-            <Button type="submit" variant="secondary" disabled={revising}>Make a new revision</Button>
+            <Button type="submit" variant="secondary" disabled={revise.pending}>Make a new revision</Button>
           </form>
         ) : null}
       </div>

@@ -1,25 +1,22 @@
 'use client';
-import { useActionState, useEffect, useMemo } from 'react';
+import { useEffect, useMemo } from 'react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
+import { ActionError, useBoundAction } from '@/components/ui/action-form';
 import { StatusTag } from '@/components/ui/panel';
 import { fetchJson, queryKeys } from '@/lib/client/query-client';
-import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 import { fmt } from '@/lib/format';
 import { todayDateOnly } from '@/lib/dates/date-only';
-import type { ActionState } from '@/lib/server/action';
 import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-renewals';
 import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
 
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
 const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted', cancelled: 'Cancelled' };
 
 function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
-  const [state, action, pending] = useActionState(renewalStepAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.dockingRenewals(org, dockingId));
+  const { state, action, pending } = useBoundAction(renewalStepAction.bind(null, org), { invalidate: [queryKeys.dockingRenewals(org, dockingId)] });
   if (!canEdit || row.status === 'fitted' || row.status === 'cancelled') return null;
   const today = todayDateOnly();
   return (
@@ -64,7 +61,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
       <Button type="submit" name="step" value="cancel" variant="ghost" className="px-2 py-0.5 text-xs" disabled={pending}>
         Cancel
       </Button>
-      {state.message && !state.ok ? <span role="alert" className="w-full text-xs text-state-overdue">{state.message}</span> : null}
+      <ActionError state={state} className="w-full" />
     </form>
   );
 }

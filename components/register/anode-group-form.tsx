@@ -1,14 +1,11 @@
 'use client';
 import { queryKeys } from '@/lib/client/query-client';
-import { useActionState, useState } from 'react';
+import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage, SelectField } from '@/components/ui/field';
-import type { ActionState } from '@/lib/server/action';
+import { Field, SelectField } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createAnodeGroupAction, removeAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
-import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
 import { todayDateOnly } from '@/lib/dates/date-only';
-
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 export interface GroupChoice {
   id: string;
@@ -34,62 +31,55 @@ interface Props {
 /** Record anodes fitted on a zone (new group), or edit a fitted group; edits are kept in its history. */
 export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }: Props) {
   const editing = Boolean(groups);
-  const [state, action, pending] = useActionState((editing ? updateAnodeGroupAction : createAnodeGroupAction).bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.anodeGroups(org), queryKeys.assets(org));
   const [groupId, setGroupId] = useState(groups?.[0]?.id ?? '');
   const group = groups?.find((g) => g.id === groupId);
-  const fallback: Record<string, string | undefined> = group
-    ? { label: group.label, zoneId: group.zoneId ?? '', anodeModelKey: group.anodeModelKey, quantity: String(group.quantity), positions: group.positions ?? '', installedOn: group.installedOn, meanCurrentA: group.meanCurrentA === null ? '' : String(group.meanCurrentA), notes: group.notes ?? '' }
-    : { installedOn: todayDateOnly() };
-  const v = !state.ok && state.values ? state.values : fallback;
-  const e = (name: string) => state.fieldErrors?.[name];
+  const form = useBoundAction((editing ? updateAnodeGroupAction : createAnodeGroupAction).bind(null, org), {
+    initial: group
+      ? { label: group.label, zoneId: group.zoneId ?? '', anodeModelKey: group.anodeModelKey, quantity: String(group.quantity), positions: group.positions ?? '', installedOn: group.installedOn, meanCurrentA: group.meanCurrentA === null ? '' : String(group.meanCurrentA), notes: group.notes ?? '' }
+      : { installedOn: todayDateOnly() },
+    invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)],
+  });
+  const f = form.field;
   if (editing && !groups!.length) return <p className="text-sm text-ink-faint">No fitted groups to edit.</p>;
   return (
-    <form key={groupId} action={action} className="grid grid-cols-2 gap-3 md:grid-cols-4" noValidate>
-      <div className="col-span-2 md:col-span-4">
-        <FormMessage state={state} />
-      </div>
+    <ActionForm key={groupId} form={form} className="grid grid-cols-2 gap-3 md:grid-cols-4" messageClassName="col-span-2 md:col-span-4" noValidate>
       <input type="hidden" name="assetId" value={assetId} />
       {editing ? (
         <SelectField className="col-span-2 md:col-span-4" label="Group to edit" name="groupId" value={groupId} onChange={(ev) => setGroupId(ev.target.value)} options={groups!.map((g) => ({ value: g.id, label: g.label }))} />
       ) : null}
-      <Field label="Group label" name="label" defaultValue={v.label} errors={e('label')} hint="Used in survey files" />
-      <SelectField label="Zone" name="zoneId" defaultValue={v.zoneId ?? zones[0]?.id ?? ''} options={[{ value: '', label: 'No particular zone' }, ...zones.map((z) => ({ value: z.id, label: z.name }))]} errors={e('zoneId')} />
-      <SelectField className="col-span-2" label="Anode model" name="anodeModelKey" defaultValue={v.anodeModelKey ?? models[0]?.key} options={models.map((m) => ({ value: m.key, label: m.label }))} errors={e('anodeModelKey')} />
-      <Field label="Quantity" name="quantity" type="number" step="1" defaultValue={v.quantity} errors={e('quantity')} />
-      <Field label="Installed on" name="installedOn" type="date" defaultValue={v.installedOn} errors={e('installedOn')} />
+      <Field label="Group label" {...f('label')} hint="Used in survey files" />
+      <SelectField label="Zone" {...f('zoneId', zones[0]?.id ?? '')} options={[{ value: '', label: 'No particular zone' }, ...zones.map((z) => ({ value: z.id, label: z.name }))]} />
+      <SelectField className="col-span-2" label="Anode model" {...f('anodeModelKey', models[0]?.key)} options={models.map((m) => ({ value: m.key, label: m.label }))} />
+      <Field label="Quantity" {...f('quantity')} type="number" step="1" />
+      <Field label="Installed on" {...f('installedOn')} type="date" />
       {!editing ? (
-        <SelectField label="From design" name="designId" defaultValue={v.designId ?? designs[0]?.id ?? ''} options={[{ value: '', label: 'None' }, ...designs.map((d) => ({ value: d.id, label: d.label }))]} errors={e('designId')} />
+        <SelectField label="From design" {...f('designId', designs[0]?.id ?? '')} options={[{ value: '', label: 'None' }, ...designs.map((d) => ({ value: d.id, label: d.label }))]} />
       ) : null}
-      <Field label="Mean current (optional)" name="meanCurrentA" type="number" step="any" unit="A" defaultValue={v.meanCurrentA} errors={e('meanCurrentA')} hint={editing ? 'Drives the forecast' : 'Blank: the design’s share'} />
-      <Field className="col-span-2" label="Positions" name="positions" defaultValue={v.positions} errors={e('positions')} hint="Frame numbers on a hull (Fr 12–18 P/S); pile ids by bent and letter on a jetty" />
-      <Field className="col-span-2" label="Notes" name="notes" defaultValue={v.notes} errors={e('notes')} />
+      <Field label="Mean current (optional)" {...f('meanCurrentA')} type="number" step="any" unit="A" hint={editing ? 'Drives the forecast' : 'Blank: the design’s share'} />
+      <Field className="col-span-2" label="Positions" {...f('positions')} hint="Frame numbers on a hull (Fr 12–18 P/S); pile ids by bent and letter on a jetty" />
+      <Field className="col-span-2" label="Notes" {...f('notes')} />
       <div className="col-span-2 flex items-end md:col-span-4">
-        <Button type="submit" disabled={pending}>
+        <Button type="submit" disabled={form.pending}>
           {editing ? 'Save the group' : 'Record the fitted group'}
         </Button>
       </div>
-    </form>
+    </ActionForm>
   );
 }
 
 export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: string; label: string }[] }) {
-  const [state, action, pending] = useActionState(removeAnodeGroupAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.anodeGroups(org), queryKeys.assets(org));
+  const form = useBoundAction(removeAnodeGroupAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
   if (!groups.length) return null;
   return (
-    <form action={action} className="grid grid-cols-2 gap-3 md:grid-cols-4" noValidate>
-      <div className="col-span-2 md:col-span-4">
-        <FormMessage state={state} />
-      </div>
-      <SelectField label="Group" name="groupId" options={groups.map((g) => ({ value: g.id, label: g.label }))} defaultValue={state.values?.groupId} />
-      <Field label="Removed on" name="removedOn" type="date" defaultValue={state.values?.removedOn ?? todayDateOnly()} errors={state.fieldErrors?.removedOn} />
-      <Field label="Reason" name="reason" defaultValue={state.values?.reason} errors={state.fieldErrors?.reason} placeholder="e.g. renewed at docking, lost, damaged" />
+    <ActionForm form={form} className="grid grid-cols-2 gap-3 md:grid-cols-4" messageClassName="col-span-2 md:col-span-4" noValidate>
+      <SelectField label="Group" name="groupId" options={groups.map((g) => ({ value: g.id, label: g.label }))} defaultValue={form.values.groupId} />
+      <Field label="Removed on" {...form.field('removedOn', todayDateOnly())} type="date" />
+      <Field label="Reason" {...form.field('reason')} placeholder="e.g. renewed at docking, lost, damaged" />
       <div className="flex items-end">
-        <Button type="submit" variant="danger" disabled={pending}>
+        <Button type="submit" variant="danger" disabled={form.pending}>
           Close the group
         </Button>
       </div>
-    </form>
+    </ActionForm>
   );
 }

@@ -1,32 +1,24 @@
 'use client';
 import { queryKeys } from '@/lib/client/query-client';
-import { useActionState, useState } from 'react';
+import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage, SelectField } from '@/components/ui/field';
-import type { ActionState } from '@/lib/server/action';
+import { Field, SelectField } from '@/components/ui/field';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { createAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
 
-import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
-
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
 
 /** An organisation's own anode model, with the dimensions its resistance formula needs. */
 export function AnodeModelForm({ org }: { org: string }) {
-  const [state, action, pending] = useActionState(createAnodeModelAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.catalogue(org));
-  const v = !state.ok && state.values ? state.values : {};
-  const [shape, setShape] = useState(v.shapeKind ?? 'short-flush');
-  const e = (n: string) => state.fieldErrors?.[n];
+  const form = useBoundAction(createAnodeModelAction.bind(null, org), { invalidate: [queryKeys.catalogue(org)] });
+  const [shape, setShape] = useState(form.values.shapeKind ?? 'short-flush');
+  const f = form.field;
   return (
-    <form action={action} className="grid grid-cols-2 gap-3" noValidate>
-      <div className="col-span-2">
-        <FormMessage state={state} />
-      </div>
-      <Field className="col-span-2" label="Designation" name="designation" defaultValue={v.designation} errors={e('designation')} />
-      <SelectField label="Alloy" name="alloy" defaultValue={v.alloy ?? 'al-zn-in'} options={opts(ALLOY_LABELS)} errors={e('alloy')} />
-      <SelectField label="Mounting" name="mounting" defaultValue={v.mounting ?? 'flush-weld'} options={opts(MOUNTING_LABELS)} errors={e('mounting')} />
+    <ActionForm form={form} className="grid grid-cols-2 gap-3" messageClassName="col-span-2" noValidate>
+      <Field className="col-span-2" label="Designation" {...f('designation')} />
+      <SelectField label="Alloy" {...f('alloy', 'al-zn-in')} options={opts(ALLOY_LABELS)} />
+      <SelectField label="Mounting" {...f('mounting', 'flush-weld')} options={opts(MOUNTING_LABELS)} />
       <SelectField
         className="col-span-2"
         label="Resistance formula (DNV-RP-B401)"
@@ -39,30 +31,30 @@ export function AnodeModelForm({ org }: { org: string }) {
           { value: 'short-flush', label: 'Short flush (McCoy)' },
           { value: 'bracelet', label: 'Bracelet (McCoy)' },
         ]}
-        errors={e('shapeKind')}
+        errors={form.errors('shapeKind')}
       />
-      <Field label="Length" name="lengthM" type="number" step="any" unit="m" defaultValue={v.lengthM} errors={e('lengthM')} />
+      <Field label="Length" {...f('lengthM')} type="number" step="any" unit="m" />
       {shape === 'slender-standoff' ? (
         <>
-          <Field label="Equivalent radius" name="radiusM" type="number" step="any" unit="m" defaultValue={v.radiusM} errors={e('radiusM')} hint="Non-round: perimeter / 2π" />
-          <Field label="Stand-off" name="standoffM" type="number" step="any" unit="m" defaultValue={v.standoffM} errors={e('standoffM')} hint="Blank: 0.30 m or more" />
+          <Field label="Equivalent radius" {...f('radiusM')} type="number" step="any" unit="m" hint="Non-round: perimeter / 2π" />
+          <Field label="Stand-off" {...f('standoffM')} type="number" step="any" unit="m" hint="Blank: 0.30 m or more" />
         </>
       ) : (
         <>
-          <Field label="Width" name="widthM" type="number" step="any" unit="m" defaultValue={v.widthM} errors={e('widthM')} />
-          <Field label="Thickness" name="thicknessM" type="number" step="any" unit="m" defaultValue={v.thicknessM} errors={e('thicknessM')} />
-          {shape !== 'long-flush' ? <Field label="Exposed area" name="exposedAreaM2" type="number" step="any" unit="m²" defaultValue={v.exposedAreaM2} errors={e('exposedAreaM2')} /> : null}
+          <Field label="Width" {...f('widthM')} type="number" step="any" unit="m" />
+          <Field label="Thickness" {...f('thicknessM')} type="number" step="any" unit="m" />
+          {shape !== 'long-flush' ? <Field label="Exposed area" {...f('exposedAreaM2')} type="number" step="any" unit="m²" /> : null}
         </>
       )}
-      <Field label="Net mass" name="netMassKg" type="number" step="any" unit="kg" defaultValue={v.netMassKg} errors={e('netMassKg')} />
-      <Field label="Gross mass" name="grossMassKg" type="number" step="any" unit="kg" defaultValue={v.grossMassKg} errors={e('grossMassKg')} />
-      <Field label="Rated output (optional)" name="ratedOutputA" type="number" step="any" unit="A" defaultValue={v.ratedOutputA} errors={e('ratedOutputA')} />
-      <Field label="Unit price (optional)" name="unitPrice" type="number" step="any" defaultValue={v.unitPrice} errors={e('unitPrice')} />
+      <Field label="Net mass" {...f('netMassKg')} type="number" step="any" unit="kg" />
+      <Field label="Gross mass" {...f('grossMassKg')} type="number" step="any" unit="kg" />
+      <Field label="Rated output (optional)" {...f('ratedOutputA')} type="number" step="any" unit="A" />
+      <Field label="Unit price (optional)" {...f('unitPrice')} type="number" step="any" />
       <div className="col-span-2">
-        <Button type="submit" disabled={pending}>
+        <Button type="submit" disabled={form.pending}>
           Add to the catalogue
         </Button>
       </div>
-    </form>
+    </ActionForm>
   );
 }

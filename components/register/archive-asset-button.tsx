@@ -1,14 +1,11 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import type { ActionState } from '@/lib/server/action';
+import { ActionError, useBoundAction } from '@/components/ui/action-form';
 import { archiveAssetAction } from '@/app/o/[org]/assets/actions';
-
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 /** Archive (never delete) or restore an asset. */
 export function ArchiveAssetButton({ org, assetId, archived, name }: { org: string; assetId: string; archived: boolean; name: string }) {
-  const [state, action, pending] = useActionState(archiveAssetAction.bind(null, org) as Bound, { ok: false });
+  const { state, action, pending } = useBoundAction(archiveAssetAction.bind(null, org));
   return (
     <form
       action={action}
@@ -19,7 +16,7 @@ export function ArchiveAssetButton({ org, assetId, archived, name }: { org: stri
     >
       <input type="hidden" name="assetId" value={assetId} />
       <input type="hidden" name="archive" value={archived ? '0' : '1'} />
-      {state.message && !state.ok ? <span role="alert" className="text-xs text-state-overdue">{state.message}</span> : null}
+      <ActionError state={state} />
       <Button type="submit" variant={archived ? 'secondary' : 'danger'} disabled={pending}>
         {archived ? 'Restore' : 'Archive'}
       </Button>

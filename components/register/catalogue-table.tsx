@@ -1,19 +1,16 @@
 'use client';
-import { useActionState, useMemo } from 'react';
+import { useMemo } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
+import { useBoundAction } from '@/components/ui/action-form';
 import { StatusTag } from '@/components/ui/panel';
 import { fetchJson, queryKeys } from '@/lib/client/query-client';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
-import type { ActionState } from '@/lib/server/action';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { archiveAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
-import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
-
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 
 function dimensions(m: CatalogueModel) {
   const d = m.dimensions;
@@ -24,8 +21,7 @@ function dimensions(m: CatalogueModel) {
 }
 
 function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
-  const [state, action, pending] = useActionState(archiveAnodeModelAction.bind(null, org) as Bound, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.catalogue(org));
+  const { action, pending } = useBoundAction(archiveAnodeModelAction.bind(null, org), { invalidate: [queryKeys.catalogue(org)] });
   return (
     <form action={action}>
       <input type="hidden" name="modelId" value={model.id} />

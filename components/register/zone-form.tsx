@@ -1,12 +1,10 @@
 'use client';
-import { useActionState } from 'react';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage, SelectField } from '@/components/ui/field';
-import type { ActionState } from '@/lib/server/action';
+import { Field, SelectField } from '@/components/ui/field';
+import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
 import { archiveZoneAction, createZoneAction, updateZoneAction } from '@/app/o/[org]/assets/actions';
 
-type Bound = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
 
 export interface ZoneValues {
@@ -24,36 +22,34 @@ export interface ZoneValues {
 
 /** Add a zone to an asset, or edit one; the same fields the design desk uses. */
 export function ZoneForm({ org, assetId, zone }: { org: string; assetId: string; zone?: ZoneValues }) {
-  const [state, action, pending] = useActionState((zone ? updateZoneAction : createZoneAction).bind(null, org) as Bound, { ok: false });
-  const v: Record<string, string | undefined> = !state.ok && state.values ? state.values : zone ? Object.fromEntries(Object.entries(zone).map(([k, val]) => [k, val === null ? '' : String(val)])) : {};
-  const e = (name: string) => state.fieldErrors?.[name];
+  const form = useBoundAction((zone ? updateZoneAction : createZoneAction).bind(null, org), {
+    initial: zone ? Object.fromEntries(Object.entries(zone).map(([k, val]) => [k, val === null ? '' : String(val)])) : {},
+  });
+  const f = form.field;
   return (
-    <form action={action} className="grid grid-cols-2 gap-3 md:grid-cols-4" noValidate>
-      <div className="col-span-2 md:col-span-4">
-        <FormMessage state={state} />
-      </div>
+    <ActionForm form={form} className="grid grid-cols-2 gap-3 md:grid-cols-4" messageClassName="col-span-2 md:col-span-4" noValidate>
       <input type="hidden" name="assetId" value={assetId} />
       {zone?.id ? <input type="hidden" name="zoneId" value={zone.id} /> : null}
-      <Field className="col-span-2" label="Zone name" name="name" defaultValue={v.name} errors={e('name')} />
-      <SelectField label="Kind" name="kind" defaultValue={v.kind ?? 'hull-bottom'} options={opts(ZONE_KIND_LABELS)} errors={e('kind')} />
-      <Field label="Wetted area" name="areaM2" type="number" step="any" unit="m²" defaultValue={v.areaM2} errors={e('areaM2')} />
-      <SelectField label="Coating" name="coatingCategory" defaultValue={v.coatingCategory ?? 'II'} options={opts(COATING_LABELS)} errors={e('coatingCategory')} />
-      <Field label="Coating age" name="coatingAgeYears" type="number" step="any" unit="yr" defaultValue={v.coatingAgeYears ?? '0'} errors={e('coatingAgeYears')} />
-      <SelectField label="Environment" name="waterType" defaultValue={v.waterType ?? 'seawater'} options={[{ value: 'seawater', label: 'Seawater' }, { value: 'brackish', label: 'Brackish' }, { value: 'fresh', label: 'Fresh water' }, { value: 'sediment', label: 'Sediment / mud' }]} errors={e('waterType')} />
-      <SelectField label="Temperature band" name="climate" defaultValue={v.climate ?? 'temperate'} options={opts(CLIMATE_LABELS)} errors={e('climate')} />
-      <SelectField label="Depth" name="depthBand" defaultValue={v.depthBand ?? '0-30'} options={opts(DEPTH_BAND_LABELS)} errors={e('depthBand')} />
-      <SelectField label="Bare item draining current" name="drainsCurrent" defaultValue={v.drainsCurrent ?? ''} options={[{ value: '', label: 'None' }, { value: 'copper-alloy', label: 'Copper alloy (propeller)' }, { value: 'stainless', label: 'Stainless (shaft)' }]} errors={e('drainsCurrent')} />
+      <Field className="col-span-2" label="Zone name" {...f('name')} />
+      <SelectField label="Kind" {...f('kind', 'hull-bottom')} options={opts(ZONE_KIND_LABELS)} />
+      <Field label="Wetted area" {...f('areaM2')} type="number" step="any" unit="m²" />
+      <SelectField label="Coating" {...f('coatingCategory', 'II')} options={opts(COATING_LABELS)} />
+      <Field label="Coating age" {...f('coatingAgeYears', '0')} type="number" step="any" unit="yr" />
+      <SelectField label="Environment" {...f('waterType', 'seawater')} options={[{ value: 'seawater', label: 'Seawater' }, { value: 'brackish', label: 'Brackish' }, { value: 'fresh', label: 'Fresh water' }, { value: 'sediment', label: 'Sediment / mud' }]} />
+      <SelectField label="Temperature band" {...f('climate', 'temperate')} options={opts(CLIMATE_LABELS)} />
+      <SelectField label="Depth" {...f('depthBand', '0-30')} options={opts(DEPTH_BAND_LABELS)} />
+      <SelectField label="Bare item draining current" {...f('drainsCurrent', '')} options={[{ value: '', label: 'None' }, { value: 'copper-alloy', label: 'Copper alloy (propeller)' }, { value: 'stainless', label: 'Stainless (shaft)' }]} />
       <div className="col-span-2 flex items-end md:col-span-2">
-        <Button type="submit" disabled={pending}>
+        <Button type="submit" disabled={form.pending}>
           {zone ? 'Save zone' : 'Add zone'}
         </Button>
       </div>
-    </form>
+    </ActionForm>
   );
 }
 
 export function ArchiveZoneButton({ org, assetId, zoneId, name }: { org: string; assetId: string; zoneId: string; name: string }) {
-  const [state, action, pending] = useActionState(archiveZoneAction.bind(null, org) as Bound, { ok: false });
+  const { state, action, pending } = useBoundAction(archiveZoneAction.bind(null, org));
   return (
     <form action={action} onSubmit={(ev) => { if (!confirm(`Archive the zone "${name}"? Designs that used it keep their copy.`)) ev.preventDefault(); }}>
       <input type="hidden" name="assetId" value={assetId} />
@@ -61,7 +57,7 @@ export function ArchiveZoneButton({ org, assetId, zoneId, name }: { org: string;
       <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
         Archive
       </Button>
-      {state.message && !state.ok ? <span role="alert" className="ml-2 text-xs text-state-overdue">{state.message}</span> : null}
+      <ActionError state={state} className="ml-2" />
     </form>
   );
 }

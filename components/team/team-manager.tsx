@@ -1,32 +1,23 @@
 'use client';
-import { useActionState, useMemo } from 'react';
-import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+import { useMemo } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { format } from 'date-fns';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
-import { Field, FormMessage, SelectField } from '@/components/ui/field';
+import { Field, SelectField } from '@/components/ui/field';
+import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { Panel } from '@/components/ui/panel';
 import { queryKeys } from '@/lib/client/query-client';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
 import { ROLES, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
-import type { ActionState } from '@/lib/server/action';
 import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
 
-type BoundAction = (state: ActionState, formData: FormData) => Promise<ActionState>;
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
-/** Runs a bound server action and refreshes the team query when it succeeds. */
-function useTeamAction(org: string, action: (slug: string, state: ActionState, formData: FormData) => Promise<ActionState>) {
-  const [state, run, pending] = useActionState(action.bind(null, org) as BoundAction, { ok: false });
-  useInvalidateOnSuccess(state, queryKeys.team(org));
-  return [state, run, pending] as const;
-}
-
 function RoleCell({ org, member }: { org: string; member: TeamMember }) {
-  const [state, run, pending] = useTeamAction(org, changeMemberRoleAction);
+  const { state, action, pending } = useBoundAction(changeMemberRoleAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
   return (
-    <form action={run} className="flex items-center gap-1.5">
+    <form action={action} className="flex items-center gap-1.5">
       <input type="hidden" name="membershipId" value={member.id} />
       <select name="role" defaultValue={member.role} aria-label={`Role of ${member.email}`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-1.5 py-0.5 text-sm">
         {roleOptions.map((o) => (
@@ -38,16 +29,16 @@ function RoleCell({ org, member }: { org: string; member: TeamMember }) {
       <Button type="submit" variant="secondary" disabled={pending} className="px-2 py-0.5 text-xs">
         Save
       </Button>
-      {state.message && !state.ok ? <span role="alert" className="text-xs text-state-overdue">{state.message}</span> : null}
+      <ActionError state={state} />
     </form>
   );
 }
 
 function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
-  const [state, run, pending] = useTeamAction(org, removeMemberAction);
+  const { state, action, pending } = useBoundAction(removeMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
   return (
     <form
-      action={run}
+      action={action}
       onSubmit={(e) => {
         if (!confirm(`Remove ${member.name} (${member.email}) from the organisation?`)) e.preventDefault();
       }}
@@ -56,15 +47,15 @@ function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
         Remove
       </Button>
-      {state.message && !state.ok ? <span role="alert" className="ml-1 text-xs text-state-overdue">{state.message}</span> : null}
+      <ActionError state={state} className="ml-1" />
     </form>
   );
 }
 
 function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitation }) {
-  const [, run, pending] = useTeamAction(org, revokeInvitationAction);
+  const { action, pending } = useBoundAction(revokeInvitationAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
   return (
-    <form action={run}>
+    <form action={action}>
       <input type="hidden" name="invitationId" value={invitation.id} />
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
         Withdraw
@@ -75,7 +66,7 @@ function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitati
 
 export function TeamManager({ org }: { org: string }) {
   const team = useTeam(org);
-  const [inviteState, invite, inviting] = useTeamAction(org, inviteMemberAction);
+  const invite = useBoundAction(inviteMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
 
   const memberColumns = useMemo(() => {
     const col = createColumnHelper<TeamMember>();
@@ -109,14 +100,13 @@ export function TeamManager({ org }: { org: string }) {
         </Panel>
       </div>
       <Panel title="Invite someone">
-        <form action={invite} className="flex flex-col gap-3" noValidate>
-          <FormMessage state={inviteState} />
-          <Field label="E-mail" name="email" type="email" required defaultValue={inviteState.ok ? '' : inviteState.values?.email} errors={inviteState.fieldErrors?.email} />
-          <SelectField label="Role" name="role" options={roleOptions} defaultValue={inviteState.values?.role ?? 'engineer'} errors={inviteState.fieldErrors?.role} />
-          <Button type="submit" disabled={inviting}>
-            {inviting ? 'Sending…' : 'Send invitation'}
+        <ActionForm form={invite} className="flex flex-col gap-3" noValidate>
+          <Field label="E-mail" {...invite.field('email')} type="email" required />
+          <SelectField label="Role" {...invite.field('role', 'engineer')} options={roleOptions} />
+          <Button type="submit" disabled={invite.pending}>
+            {invite.pending ? 'Sending…' : 'Send invitation'}
           </Button>
-        </form>
+        </ActionForm>
         <dl className="mt-4 flex flex-col gap-1.5 text-xs text-ink-soft">
           {ROLES.map((r) => (
             <div key={r}>

@@ -13,6 +13,8 @@ export const queryKeys = {
   catalogue: (org: string) => ['orgs', org, 'catalogue'] as const,
   surveys: (org: string) => ['orgs', org, 'surveys'] as const,
   dockingRenewals: (org: string, dockingId: string) => ['orgs', org, 'dockings', dockingId, 'renewals'] as const,
+  /** The desk's results for one set of inputs (kept apart from 'designs' so invalidating the list leaves them). */
+  deskCalculation: (org: string, designId: string, inputs: unknown) => ['orgs', org, 'desk-calculation', designId, inputs] as const,
 };
 
 export class ApiError extends Error {

@@ -1,0 +1,68 @@
+'use client';
+import { useActionState } from 'react';
+import type { ActionState } from '@/lib/server/action';
+import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+import { FormMessage } from './field';
+
+/** A server action as a form runs it: an organisation action with its slug bound (`action.bind(null, org)`), or a public one. */
+export type BoundAction = (state: ActionState, formData: FormData) => Promise<ActionState>;
+
+type QueryKey = readonly unknown[];
+
+interface Options {
+  /** What the fields show before anything is submitted, and again after a success. */
+  initial?: Record<string, string | undefined>;
+  /** Cached queries the action changes: dropped when it succeeds so tables fetch them again. */
+  invalidate?: readonly QueryKey[];
+}
+
+export interface BoundForm {
+  state: ActionState;
+  action: (formData: FormData) => void;
+  pending: boolean;
+  /** The values typed before a refused submit (never passwords), else `initial`. */
+  values: Record<string, string | undefined>;
+  errors: (name: string) => string[] | undefined;
+  /** name, kept value and errors for a Field or SelectField: `<Field label="…" {...form.field('yard')} />`. */
+  field: (name: string, fallback?: string) => { name: string; defaultValue: string | undefined; errors: string[] | undefined };
+}
+
+/**
+ * The one wiring between a server action and its form: useActionState, the field errors, the values
+ * kept after a refusal (the server only sends them back with `ok: false`) and, on success, the
+ * cached lists to refresh.
+ */
+export function useBoundAction(bound: BoundAction, { initial = {}, invalidate = [] }: Options = {}): BoundForm {
+  const [state, action, pending] = useActionState(bound, { ok: false });
+  useInvalidateOnSuccess(state, ...invalidate);
+  const values = state.values ?? initial;
+  const errors = (name: string) => state.fieldErrors?.[name];
+  return { state, action, pending, values, errors, field: (name, fallback) => ({ name, defaultValue: values[name] ?? fallback, errors: errors(name) }) };
+}
+
+interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>, 'action'> {
+  form: Pick<BoundForm, 'state' | 'action'>;
+  /** Wraps the message in a div with this class (e.g. a column span in a grid form). */
+  messageClassName?: string;
+}
+
+/** A form posting to its bound action, with the action's message (role status or alert) first. */
+export function ActionForm({ form, messageClassName, children, ...props }: ActionFormProps) {
+  const message = <FormMessage state={form.state} />;
+  return (
+    <form action={form.action} {...props}>
+      {messageClassName ? <div className={messageClassName}>{message}</div> : message}
+      {children}
+    </form>
+  );
+}
+
+/** A refusal beside a small button form (archive, remove, accept…); nothing when the action succeeded. */
+export function ActionError({ state, className }: { state: ActionState; className?: string }) {
+  if (!state.message || state.ok) return null;
+  return (
+    <span role="alert" className={className ? `${className} text-xs text-state-overdue` : 'text-xs text-state-overdue'}>
+      {state.message}
+    </span>
+  );
+}
