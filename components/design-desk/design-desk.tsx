@@ -1,7 +1,7 @@
 'use client';
 import { useCallback, useEffect, useRef, useState, useTransition } from 'react';
-import type { DesignResult, ImpressedCurrentSummary, OptionRow } from '@/lib/cp';
-import type { DeskNotice } from '@/lib/design/build-design-input';
+import type { DeskComputed } from '@/lib/design/desk-computed';
+import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { computeDeskAction, saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
@@ -13,14 +13,7 @@ import { ResultsPanel } from './results-panel';
 import { OptionsTable } from './options-table';
 import type { DeskState } from './desk-state';
 
-export interface DeskComputed {
-  result: DesignResult | null;
-  error: { field: string; message: string } | null;
-  notices: DeskNotice[];
-  options: OptionRow[];
-  impressedCurrent: ImpressedCurrentSummary | null;
-  model: CatalogueModel;
-}
+export type { DeskComputed };
 
 interface Props {
   org: string;
@@ -30,6 +23,8 @@ interface Props {
   initialComputed: DeskComputed | null;
   catalogue: CatalogueModel[];
   editable: boolean;
+  /** A signed revision: its model key and stored snapshot (null when none was kept), shown instead of the catalogue's entry. */
+  storedModel?: { key: string; model: AnodeModelSnapshot | null };
   vessel: { lengthBppM: number | null; beamM: number | null; draughtM: number | null; blockCoefficient: number | null } | null;
 }
 
@@ -37,7 +32,7 @@ interface Props {
  * The design desk: inputs on the left, results recomputed by a server action as they change.
  * Nothing is written until "Save draft"; an approved revision is shown read-only.
  */
-export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, vessel }: Props) {
+export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, storedModel, vessel }: Props) {
   const [title, setTitle] = useState(initialTitle);
   const [inputs, setInputs] = useState<DeskState>(initialInputs);
   const [computed, setComputed] = useState<DeskComputed | null>(initialComputed);
@@ -130,7 +125,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
             <ZonesTable inputs={inputs} update={update} errors={fieldErrors} editable={editable} vessel={vessel} />
           </Panel>
           <Panel title="Anode">
-            <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} />
+            <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} stored={storedModel} />
           </Panel>
         </div>
         <div className="flex min-w-0 flex-col gap-4 xl:sticky xl:top-12 xl:max-h-[calc(100vh-4rem)] xl:overflow-y-auto print:static print:max-h-none print:overflow-visible">
