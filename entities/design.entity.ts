@@ -7,8 +7,10 @@ import { UserSchema } from './user.entity';
 export const DESIGN_STATUSES = ['draft', 'checked', 'approved'] as const;
 export type DesignStatus = (typeof DESIGN_STATUSES)[number];
 
-// One revision of an asset's anode design: inputs, results, basis and app version stored together.
-// An approved revision is immutable; a change makes a new revision.
+// One revision of an asset's anode design: inputs, anode model snapshot, results, basis and app version
+// stored together. An approved revision is immutable; a change makes a new revision.
+// The record columns are typed unknown on purpose: they are read through readDesignRecord (a zod parse,
+// lib/schemas/design-record.ts) so that a row written under another version fails loudly.
 export const DesignSchema = defineEntity({
   name: 'Design',
   tableName: 'design',
@@ -21,11 +23,14 @@ export const DesignSchema = defineEntity({
     revision: p.integer(),
     title: p.string().length(160),
     status: p.string().length(12).$type<DesignStatus>().default('draft'),
-    inputs: p.json<Record<string, unknown>>(),
-    results: p.json<Record<string, unknown>>().nullable(),
+    // Which version of lib/schemas/design-record.ts the record columns follow.
+    schemaVersion: p.integer(),
+    inputs: p.json<unknown>(),
+    anodeModel: p.json<unknown>().nullable(),
+    results: p.json<unknown>().nullable(),
     // Set when the inputs cannot be computed (kept so a draft is never lost).
     resultError: p.text().nullable(),
-    basis: p.json<unknown[]>().nullable(),
+    basis: p.json<unknown>().nullable(),
     appVersion: p.string().length(32),
     preparedBy: p.manyToOne(UserSchema).deleteRule('restrict'),
     checkedBy: p.manyToOne(UserSchema).nullable().deleteRule('restrict'),

@@ -2,6 +2,7 @@
 import { ALLOYS } from '@/lib/cp/tables/alloys';
 import { utilisationFactorFor } from '@/lib/cp/lookups';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
+import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
 import type { DeskState, Update } from './desk-state';
@@ -12,10 +13,14 @@ interface Props {
   errors: Record<string, string[]>;
   editable: boolean;
   catalogue: CatalogueModel[];
+  /** A signed revision's stored model: while its key is chosen, its snapshot is shown, not today's catalogue entry. */
+  stored?: { key: string; model: AnodeModelSnapshot | null };
 }
 
-export function AnodePicker({ inputs, update, errors, editable, catalogue }: Props) {
-  const model = catalogue.find((m) => m.key === inputs.anodeModelKey);
+export function AnodePicker({ inputs, update, errors, editable, catalogue, stored: signed }: Props) {
+  const listed = catalogue.find((m) => m.key === inputs.anodeModelKey);
+  const stored = signed && signed.key === inputs.anodeModelKey ? signed : null;
+  const model: AnodeModelSnapshot | undefined = stored ? (stored.model ?? undefined) : listed;
   const groups = Object.entries(
     catalogue.reduce<Record<string, CatalogueModel[]>>((acc, m) => {
       (acc[`${ALLOY_LABELS[m.alloy]} · ${m.source}`] ??= []).push(m);
@@ -33,7 +38,8 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue }: Pro
           onChange={(e) => update((s) => ({ ...s, anodeModelKey: e.target.value }))}
           className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm text-ink ${errors.anodeModelKey ? 'border-state-overdue' : 'border-rule-strong'}`}
         >
-          {!model ? <option value={inputs.anodeModelKey}>Not in the catalogue: choose one</option> : null}
+          {stored && !listed ? <option value={inputs.anodeModelKey}>{stored.model ? `${stored.model.designation} (as stored with this revision)` : inputs.anodeModelKey}</option> : null}
+          {!stored && !listed ? <option value={inputs.anodeModelKey}>Not in the catalogue: choose one</option> : null}
           {groups.map(([group, models]) => (
             <optgroup key={group} label={group}>
               {models.map((m) => (
@@ -46,6 +52,7 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue }: Pro
         </select>
       </label>
       {errors.anodeModelKey ? <p role="alert" className="text-xs text-state-overdue">{errors.anodeModelKey[0]}</p> : null}
+      {stored && !stored.model ? <p className="text-xs text-ink-soft">The model&apos;s details were not recorded with this revision.</p> : null}
       {model && alloy ? (
         <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm md:grid-cols-4">
           <Fact label="Alloy" value={ALLOY_LABELS[model.alloy]} />

@@ -1,5 +1,6 @@
 'use client';
 import { useCallback, useEffect, useState, useTransition } from 'react';
+import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
 import { useDeskCalculation } from '@/lib/client/use-desk-calculation';
@@ -23,6 +24,8 @@ interface Props {
   initialComputed: DeskComputed | null;
   catalogue: CatalogueModel[];
   editable: boolean;
+  /** A signed revision: its model key and stored snapshot (null when none was kept), shown instead of the catalogue's entry. */
+  storedModel?: { key: string; model: AnodeModelSnapshot | null };
   vessel: { lengthBppM: number | null; beamM: number | null; draughtM: number | null; blockCoefficient: number | null } | null;
 }
 
@@ -30,7 +33,7 @@ interface Props {
  * The design desk: inputs on the left, results recomputed by the server as they change (useDeskCalculation).
  * Nothing is written until "Save draft"; an approved revision is shown read-only.
  */
-export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, vessel }: Props) {
+export function DesignDesk({ org, designId, initialTitle, initialInputs, initialComputed, catalogue, editable, storedModel, vessel }: Props) {
   const [title, setTitle] = useState(initialTitle);
   const [inputs, setInputs] = useState<DeskState>(initialInputs);
   const [dirty, setDirty] = useState(false);
@@ -95,7 +98,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
             <ZonesTable inputs={inputs} update={update} errors={fieldErrors} editable={editable} vessel={vessel} />
           </Panel>
           <Panel title="Anode">
-            <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} />
+            <AnodePicker inputs={inputs} update={update} errors={fieldErrors} editable={editable} catalogue={catalogue} stored={storedModel} />
           </Panel>
         </div>
         <div className="flex min-w-0 flex-col gap-4 xl:sticky xl:top-12 xl:max-h-[calc(100vh-4rem)] xl:overflow-y-auto print:static print:max-h-none print:overflow-visible">

@@ -30,7 +30,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 {result.anodeCount}
               </p>
               <p className="text-sm text-ink-soft">
-                anodes of {computed.model.designation}; governed by <strong className="text-ink">{CRITERION_LABELS[result.governingCriterion]}</strong>
+                anodes of {computed.model?.designation ?? 'a model not recorded with this revision'}; governed by <strong className="text-ink">{CRITERION_LABELS[result.governingCriterion]}</strong>
               </p>
             </div>
             <table className="mt-2 w-full text-sm" aria-label="Count by criterion">

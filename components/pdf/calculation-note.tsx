@@ -1,7 +1,6 @@
 import { Document, Page, Text, View } from '@react-pdf/renderer';
 import { format } from 'date-fns';
-import type { DesignResult } from '@/lib/cp';
-import type { DeskInputs } from '@/lib/schemas/design';
+import type { AnodeModelSnapshot, StoredDesignResult, StoredInputs } from '@/lib/schemas/design-record';
 import { ALLOY_LABELS, CLIMATE_LABELS, COATING_LABELS, CRITERION_LABELS, DEPTH_BAND_LABELS, METAL_LABELS, MOUNTING_LABELS, STATUS_LABELS, WATER_LABELS } from '@/lib/design/labels';
 import { fmt, fmtSig } from '@/lib/format';
 import { CAUTION_TEXT, PdfTable, pdf } from './pdf-kit';
@@ -10,9 +9,12 @@ export interface CalculationNoteData {
   organisation: string;
   asset: { name: string; kind: string; particulars: [string, string][] };
   design: { title: string; revision: number; status: string; appVersion: string; basedOnRevision: number | null };
-  inputs: DeskInputs;
-  model: { designation: string; alloy: string; mounting: string; netMassKg: number; grossMassKg: number };
-  result: DesignResult | null;
+  inputs: StoredInputs;
+  /** Null when the revision was stored without a model snapshot: the note says so and substitutes nothing. */
+  model: AnodeModelSnapshot | null;
+  /** Whether the results are the revision's stored record (signed revisions) or recomputed at printing (drafts). */
+  source: 'stored' | 'recomputed';
+  result: StoredDesignResult | null;
   resultError: string | null;
   notices: { code: string; message: string }[];
   signatures: { role: string; name: string | null; at: Date | null }[];
@@ -31,9 +33,16 @@ const EQUATIONS = [
   ['Count', 'N·m >= M; N·Iai >= Ici; N·Iaf >= Icf', 'DNV-RP-B401 (2010) sec. 7'],
 ];
 
+/** What the note says of the anode model: the stored snapshot, or plainly that there is none. */
+function modelLine(model: CalculationNoteData['model'], key: string) {
+  if (!model) return `${key}: not recorded with this revision (no model snapshot was stored; the catalogue's current entry is not substituted)`;
+  return `${model.designation}: ${ALLOY_LABELS[model.alloy]}, ${MOUNTING_LABELS[model.mounting]}, net ${fmt(model.netMassKg, 1)} kg, gross ${fmt(model.grossMassKg, 1)} kg`;
+}
+
 /** The calculation note: inputs, equations, results, sources, warnings, revision block and cautions. */
 export function CalculationNote({ data }: { data: CalculationNoteData }) {
   const { inputs, result } = data;
+  const designation = data.model?.designation ?? `${inputs.anodeModelKey} (model not recorded with this revision)`;
   const footer = `${data.organisation} · ${data.asset.name} · ${data.design.title} · revision ${data.design.revision} (${STATUS_LABELS[data.design.status]})`;
   return (
     <Document title={`Calculation note: ${data.asset.name}, revision ${data.design.revision}`} author="Tidewarden" subject="Sacrificial-anode cathodic protection design">
@@ -68,7 +77,7 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
             ['Protected metal', METAL_LABELS[inputs.protectedMetal]],
             ['Hull material', inputs.hullMaterial ?? 'not a hull'],
             ['Interval to next docking', inputs.nextDockingYears ? `${inputs.nextDockingYears} years` : 'not given'],
-            ['Anode model', `${data.model.designation}: ${ALLOY_LABELS[data.model.alloy]}, ${MOUNTING_LABELS[data.model.mounting]}, net ${fmt(data.model.netMassKg, 1)} kg, gross ${fmt(data.model.grossMassKg, 1)} kg`],
+            ['Anode model', modelLine(data.model, inputs.anodeModelKey)],
           ]}
         />
         <Text style={{ ...pdf.small, marginTop: 6, marginBottom: 2 }}>Zones</Text>
@@ -98,10 +107,15 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
         <Text style={{ ...pdf.small, marginTop: 2 }}>Section and table numbers of DNV-RP-B401 are given from memory; confirm them against the licensed edition.</Text>
 
         <Text style={pdf.h2}>4. Results</Text>
+        <Text style={{ ...pdf.small, marginBottom: 4 }}>
+          {data.source === 'stored'
+            ? `As stored with revision ${data.design.revision} (Tidewarden ${data.design.appVersion}); not recomputed.`
+            : "Recomputed from the draft's inputs at printing; a signed revision prints its stored results."}
+        </Text>
         {result ? (
           <View>
             <Text style={{ fontSize: 11, fontWeight: 700, marginBottom: 4 }}>
-              {result.anodeCount} anodes of {data.model.designation}; governing criterion: {CRITERION_LABELS[result.governingCriterion]}
+              {result.anodeCount} anodes of {designation}; governing criterion: {CRITERION_LABELS[result.governingCriterion]}
             </Text>
             <PdfTable
               columns={[{ label: 'Criterion', width: 50 }, { label: 'Exact', width: 25, align: 'right' }, { label: 'Count', width: 25, align: 'right' }]}

@@ -1,16 +1,7 @@
-import type { DesignResult, ImpressedCurrentSummary, OptionRow } from '@/lib/cp';
-import type { DeskNotice } from '@/lib/design/build-design-input';
-import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 
 /** What the server answers for one set of desk inputs (computeDeskAction; nothing is stored). */
-export interface DeskComputed {
-  result: DesignResult | null;
-  error: { field: string; message: string } | null;
-  notices: DeskNotice[];
-  options: OptionRow[];
-  impressedCurrent: ImpressedCurrentSummary | null;
-  model: CatalogueModel;
-}
+export type { DeskComputed } from '@/lib/design/desk-computed';
+import type { DeskComputed } from '@/lib/design/desk-computed';
 
 /** A recompute the server refused: its sentence, and the messages per field path ("surfaces.2.areaM2"). */
 export class DeskCalculationError extends Error {

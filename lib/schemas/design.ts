@@ -20,6 +20,10 @@ export const DEPTH_BAND_VALUES = ['0-30', '30-100', '100-300', '300+', 'sediment
 export const COATING_VALUES = ['I', 'II', 'III', 'bare'] as const;
 export const WATER_VALUES = ['seawater', 'brackish', 'fresh'] as const;
 export const PROTECTED_METAL_VALUES = ['steel', 'high-strength-steel', 'aluminium', 'stainless', 'copper-alloy'] as const;
+export const HULL_MATERIAL_VALUES = ['steel', 'aluminium'] as const;
+export const CURRENT_DRAIN_VALUES = ['copper-alloy', 'stainless'] as const;
+export const ANODE_ALLOY_VALUES = ['al-zn-in', 'zinc', 'magnesium', 'magnesium-high-potential'] as const;
+export const ANODE_MOUNTING_VALUES = ['flush-weld', 'flush-bolt', 'standoff', 'bracelet', 'pile-mounted'] as const;
 
 // Form fields arrive as strings; an empty one is "not given", never zero.
 const num = (label: string, unit: string) =>
@@ -45,7 +49,7 @@ export const deskSurfaceSchema = z.object({
   coatingAgeYears: num('Coating age', 'years').pipe(z.number().min(0, 'The coating age cannot be negative.').max(60, 'A coating older than 60 years is not plausible.')).default(0),
   /** Entered design current density (bare metal), mA/m2, replacing the DNV table value. */
   currentDensityOverride: z.preprocess(blankToNull, currentDensityMa.nullable()),
-  drainsCurrent: z.preprocess(blankToNull, z.enum(['copper-alloy', 'stainless']).nullable()),
+  drainsCurrent: z.preprocess(blankToNull, z.enum(CURRENT_DRAIN_VALUES).nullable()),
 });
 
 export const deskInputsSchema = z.object({
@@ -57,7 +61,7 @@ export const deskInputsSchema = z.object({
   resistivityOhmM: num('Resistivity', 'Ω·m').pipe(z.number().gt(0, 'The resistivity must be more than 0 Ω·m.').max(10000, 'A resistivity above 10,000 Ω·m is not plausible.')),
   protectivePotentialV: num('Protective potential', 'V').pipe(z.number().min(-1.3, 'Use a protective potential of at least -1.3 V.').max(-0.5, 'Use a protective potential of at most -0.5 V.')),
   protectedMetal: z.enum(PROTECTED_METAL_VALUES, { error: 'Choose the protected metal.' }),
-  hullMaterial: z.preprocess(blankToNull, z.enum(['steel', 'aluminium']).nullable()),
+  hullMaterial: z.preprocess(blankToNull, z.enum(HULL_MATERIAL_VALUES).nullable()),
   anaerobic: z.boolean().default(false),
   nextDockingYears: z.preprocess(blankToNull, num('Next docking', 'years').pipe(z.number().gt(0, 'The interval to the next docking must be more than 0 years.').max(50, 'Use at most 50 years.')).nullable()),
   allowMagnesiumOnAluminium: z.boolean().default(false),

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ZONE_KIND_VALUES, CLIMATE_VALUES, DEPTH_BAND_VALUES, COATING_VALUES } from './design';
+import { ZONE_KIND_VALUES, CLIMATE_VALUES, DEPTH_BAND_VALUES, COATING_VALUES, ANODE_ALLOY_VALUES, ANODE_MOUNTING_VALUES } from './design';
 import { dateOnlyField, pastDateOnlyField } from './date-only-field';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
@@ -38,8 +38,8 @@ export const removeGroupSchema = z.object({
 
 export const anodeModelSchema = z.object({
   designation: z.string().trim().min(1, 'Give the model a designation.').max(60),
-  alloy: z.enum(['al-zn-in', 'zinc', 'magnesium', 'magnesium-high-potential'], { error: 'Choose the alloy.' }),
-  mounting: z.enum(['flush-weld', 'flush-bolt', 'standoff', 'bracelet', 'pile-mounted'], { error: 'Choose the mounting.' }),
+  alloy: z.enum(ANODE_ALLOY_VALUES, { error: 'Choose the alloy.' }),
+  mounting: z.enum(ANODE_MOUNTING_VALUES, { error: 'Choose the mounting.' }),
   shapeKind: z.enum(['slender-standoff', 'long-flush', 'short-flush', 'bracelet'], { error: 'Choose the resistance formula.' }),
   lengthM: number('Length', 'm').pipe(z.number().gt(0, 'The length must be more than 0 m.').max(10)),
   widthM: z.preprocess(blankToNull, number('Width', 'm').pipe(z.number().gt(0).max(5)).nullable()),

@@ -3,15 +3,14 @@ import { AssetSchema, AuditEventSchema, DesignSchema, type Organisation, type Us
 import type { Role } from '@/lib/roles';
 import { getEm, getOrm } from '@/lib/server/db';
 import { AppError } from '@/lib/server/errors';
-import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createDesign, defaultInputs } from '@/lib/server/services/designs/create-design';
 import { computeDesk } from '@/lib/server/services/designs/compute-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
 import { newRevision } from '@/lib/server/services/designs/new-revision';
 import { renderCalculationNote } from '@/lib/server/services/designs/calculation-note';
-import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
-import { MembershipSchema, OrganisationSchema } from '@/entities';
+import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
+import { makeDesignOrg } from '../fixtures/design-org';
 import { pdfText } from '../fixtures/pdf-text';
 
 let organisation: Organisation;
@@ -23,14 +22,8 @@ const ctx = async (who: Role | User) => ctxFor(await getEm(), organisation, type
 const code = async (p: Promise<unknown>) => ((await p.then(() => null, (e) => e)) as AppError | null)?.code ?? 'ok';
 
 beforeAll(async () => {
-  ({ organisation, users } = await makeOrgWithRoles(await getEm(), 'Design Test Shipping'));
-  const em = await getEm();
-  secondEngineer = await makeUser(em, { name: 'Second Engineer' });
-  em.create(MembershipSchema, { organisation: em.getReference(OrganisationSchema, organisation.id), user: secondEngineer, role: 'engineer' });
-  await em.flush();
   // Invented particulars for the test: a 90 m ferry.
-  const vessel = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Test Ferry', lengthBppM: 90, beamM: 16, draughtM: 4.2, blockCoefficient: 0.6, hullMaterial: 'steel' }));
-  vesselId = vessel.id;
+  ({ organisation, users, checker: secondEngineer, vesselId } = await makeDesignOrg({ organisationName: 'Design Test Shipping', checkerName: 'Second Engineer', vesselName: 'Test Ferry' }));
 });
 afterAll(async () => (await getOrm()).close(true));
 

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { orgAction, orgJsonAction, formObject } from '@/lib/server/action';
 import { AppError } from '@/lib/server/errors';
 import { createDesign } from '@/lib/server/services/designs/create-design';
-import { computeDesk } from '@/lib/server/services/designs/compute-design';
+import { computeDesk, toDeskComputed } from '@/lib/server/services/designs/compute-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
 import { newRevision } from '@/lib/server/services/designs/new-revision';
@@ -20,8 +20,7 @@ export const createDesignAction = orgAction('design:write', async (ctx, formData
 export const computeDeskAction = orgJsonAction('org:read', async (ctx, input) => {
   const { designId, inputs } = z.object({ designId: z.uuid(), inputs: z.unknown() }).parse(input);
   const design = await getDesignOrThrow(ctx, designId);
-  const desk = await computeDesk(ctx, inputs, { hasImpressedCurrent: Boolean(design.asset.hasImpressedCurrent) });
-  return { result: desk.result, error: desk.error, notices: desk.notices, options: desk.options, impressedCurrent: desk.impressedCurrent, model: desk.model };
+  return toDeskComputed(await computeDesk(ctx, inputs, { hasImpressedCurrent: Boolean(design.asset.hasImpressedCurrent) }));
 });
 
 export const saveDesignAction = orgJsonAction('design:write', async (ctx, input) => {

@@ -1,21 +1,21 @@
 import { createElement } from 'react';
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import type { ReactElement } from 'react';
-import type { DesignResult } from '@/lib/cp';
-import { deskInputsSchema } from '@/lib/schemas/design';
 import { CalculationNote, type CalculationNoteData } from '@/components/pdf/calculation-note';
 import { registerPdfFonts } from '@/components/pdf/pdf-kit';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
+import { shownRevision } from './design-view';
 
-/** Renders a design revision's calculation note as PDF bytes, from what is stored with the revision. */
+/**
+ * Renders a design revision's calculation note as PDF bytes: a checked or approved revision from its
+ * stored record only (the screen shows the same), a draft recomputed as its page shows it.
+ */
 export async function renderCalculationNote(ctx: OrgContext, designId: string): Promise<{ pdf: Buffer; filename: string }> {
   requirePermission(ctx, 'org:print');
   const design = await getDesignOrThrow(ctx, designId);
-  const stored = design.inputs as Record<string, unknown> & { anodeModelSnapshot?: CalculationNoteData['model'] };
-  const inputs = deskInputsSchema.parse(stored);
-  const results = design.results as (DesignResult & { notices?: CalculationNoteData['notices'] }) | null;
+  const { record, computed, source, recomputeError } = await shownRevision(ctx, design);
   const asset = design.asset;
   const particulars: [string, string][] =
     asset.kind === 'vessel'
@@ -35,11 +35,13 @@ export async function renderCalculationNote(ctx: OrgContext, designId: string): 
     organisation: ctx.organisation.name,
     asset: { name: asset.name, kind: asset.kind, particulars },
     design: { title: design.title, revision: design.revision, status: design.status, appVersion: design.appVersion, basedOnRevision: design.basedOnRevision ?? null },
-    inputs,
-    model: stored.anodeModelSnapshot ?? { designation: inputs.anodeModelKey, alloy: 'al-zn-in', mounting: 'flush-weld', netMassKg: 0, grossMassKg: 0 },
-    result: results,
-    resultError: design.resultError ?? null,
-    notices: results?.notices ?? [],
+    inputs: record.inputs,
+    // A revision stored without a snapshot prints that it has none; no model is made up for it.
+    model: computed ? computed.model : record.anodeModel,
+    source,
+    result: computed?.result ?? null,
+    resultError: computed?.error ? `${computed.error.field}: ${computed.error.message}` : recomputeError,
+    notices: computed?.notices ?? [],
     signatures: [
       { role: 'Prepared', name: design.preparedBy.name, at: design.createdAt },
       { role: 'Checked', name: design.checkedBy?.name ?? null, at: design.checkedAt ?? null },

@@ -1,5 +1,6 @@
 import { CpInputError, compareOptions, designAnodeSystem, impressedCurrentSummary, type DesignResult, type OptionRow, type ImpressedCurrentSummary } from '@/lib/cp';
 import { buildDesignInput, buildDesignJob, deskNotices, type DeskNotice } from '@/lib/design/build-design-input';
+import type { DeskComputed } from '@/lib/design/desk-computed';
 import { deskInputsSchema, type DeskInputs } from '@/lib/schemas/design';
 import { listCatalogue, resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
 import { requirePermission, type OrgContext } from '../../org-context';
@@ -43,6 +44,11 @@ export async function computeDesk(ctx: OrgContext, rawInputs: unknown, { hasImpr
     if (!(e instanceof CpInputError)) throw e;
   }
   return { inputs, model, result, error, notices, options, impressedCurrent };
+}
+
+/** What the desk shows of a calculation (the inputs stay with the desk). */
+export function toDeskComputed({ result, error, notices, options, impressedCurrent, model }: DeskResult): DeskComputed {
+  return { result, error, notices, options, impressedCurrent, model };
 }
 
 /** Magnesium is for fresh and brackish water; zinc and aluminium for sea and brackish water (practice). */

@@ -7,7 +7,7 @@ import { notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { APP_VERSION } from '../../app-version';
-import { storeResults } from './store-results';
+import { computeRecord } from './store-results';
 
 const createDesignSchema = z.object({
   assetId: z.uuid('Choose an asset.'),
@@ -67,13 +67,14 @@ export async function createDesign(ctx: OrgContext, input: unknown) {
   const inputs = defaultInputs(asset, zones.map(zoneToDeskSurface));
   if (inputs.temperatureC !== null) inputs.climate = climateFromTemperature(inputs.temperatureC);
   const revision = await nextRevision(ctx, asset.id);
+  const { record } = await computeRecord(ctx, asset, inputs, `New revision ${revision} of ${asset.name}`);
   const design = ctx.em.create(DesignSchema, {
     organisation: ctx.organisation,
     asset,
     revision,
     title: title || `${asset.name}: anode design`,
     status: 'draft',
-    inputs,
+    ...record,
     appVersion: APP_VERSION,
     preparedBy: ctx.em.getReference(UserSchema, ctx.user.id),
     basedOnRevision: null,
@@ -81,11 +82,7 @@ export async function createDesign(ctx: OrgContext, input: unknown) {
     approvedBy: null,
     checkedAt: null,
     approvedAt: null,
-    results: null,
-    resultError: null,
-    basis: null,
   });
-  await storeResults(ctx, design, inputs);
   audit(ctx, { action: 'design.created', targetType: 'design', targetId: design.id, details: { asset: asset.name, revision } });
   return design;
 }

@@ -1,5 +1,6 @@
 import { DesignSchema } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { readDesignResults } from './read-design-record';
 
 export async function listDesigns(ctx: OrgContext, { assetId }: { assetId?: string } = {}) {
   requirePermission(ctx, 'org:read');
@@ -9,7 +10,7 @@ export async function listDesigns(ctx: OrgContext, { assetId }: { assetId?: stri
     { populate: ['asset', 'preparedBy', 'approvedBy'], orderBy: { updatedAt: 'desc' }, exclude: ['inputs', 'basis'] },
   );
   return designs.map((d) => {
-    const results = d.results as { anodeCount?: number; governingCriterion?: string; installedNetMassKg?: number; warnings?: unknown[] } | null;
+    const results = readDesignResults(d);
     return {
       id: d.id,
       assetId: d.asset.id,

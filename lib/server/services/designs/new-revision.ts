@@ -4,11 +4,14 @@ import { requirePermission, type OrgContext } from '../../org-context';
 import { APP_VERSION } from '../../app-version';
 import { getDesignOrThrow } from './get-design';
 import { nextRevision } from './create-design';
+import { readDesignRecord } from './read-design-record';
 
 /** A new draft revision carrying over the inputs of any revision (usually the approved one). */
 export async function newRevision(ctx: OrgContext, designId: string) {
   requirePermission(ctx, 'design:write');
   const source = await getDesignOrThrow(ctx, designId);
+  // Parsed on the way out of the source row; the parse returns fresh objects, so nothing is shared between the rows.
+  const record = readDesignRecord(source);
   const revision = await nextRevision(ctx, source.asset.id);
   const design = ctx.em.create(DesignSchema, {
     organisation: ctx.organisation,
@@ -16,10 +19,7 @@ export async function newRevision(ctx: OrgContext, designId: string) {
     revision,
     title: source.title,
     status: 'draft',
-    inputs: structuredClone(source.inputs),
-    results: source.results ? structuredClone(source.results) : null,
-    resultError: source.resultError,
-    basis: source.basis ? structuredClone(source.basis) : null,
+    ...record,
     appVersion: APP_VERSION,
     preparedBy: ctx.em.getReference(UserSchema, ctx.user.id),
     basedOnRevision: source.revision,

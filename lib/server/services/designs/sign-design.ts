@@ -3,14 +3,19 @@ import { AppError } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
-import { assertEditable } from './store-results';
+import { assertEditable, storeResults } from './store-results';
+import { readDesignRecord } from './read-design-record';
 
-function assertSignable(ctx: OrgContext, design: Awaited<ReturnType<typeof getDesignOrThrow>>, what: string) {
+async function assertSignable(ctx: OrgContext, design: Awaited<ReturnType<typeof getDesignOrThrow>>, what: string) {
   assertEditable(design);
   if (design.preparedBy.id === ctx.user.id) {
     throw new AppError('forbidden', `You prepared revision ${design.revision}; a second engineer must ${what} it.`);
   }
-  if (!design.results || design.resultError) {
+  // A draft's page shows its inputs recomputed, so the signer saw today's calculation: that is what gets
+  // stored and frozen. A checked revision is already shown from its stored record and keeps it.
+  if (design.status === 'draft') await storeResults(ctx, design, readDesignRecord(design).inputs);
+  const { results, resultError } = readDesignRecord(design);
+  if (!results || resultError) {
     throw new AppError('conflict', `Revision ${design.revision} has no valid results to ${what}; correct its inputs first.`);
   }
 }
@@ -19,7 +24,7 @@ function assertSignable(ctx: OrgContext, design: Awaited<ReturnType<typeof getDe
 export async function checkDesign(ctx: OrgContext, designId: string) {
   requirePermission(ctx, 'design:write');
   const design = await getDesignOrThrow(ctx, designId);
-  assertSignable(ctx, design, 'check');
+  await assertSignable(ctx, design, 'check');
   design.status = 'checked';
   design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);
   design.checkedAt = new Date();
@@ -31,7 +36,7 @@ export async function checkDesign(ctx: OrgContext, designId: string) {
 export async function approveDesign(ctx: OrgContext, designId: string) {
   requirePermission(ctx, 'design:approve');
   const design = await getDesignOrThrow(ctx, designId);
-  assertSignable(ctx, design, 'approve');
+  await assertSignable(ctx, design, 'approve');
   const now = new Date();
   if (!design.checkedBy) {
     design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);

@@ -5,8 +5,10 @@ import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from '../assets/get-asset';
+import type { StoredResults } from '@/lib/schemas/design-record';
 import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
 import { uuidOrNotFound } from '../../ids';
+import { readDesignResults } from '../designs/read-design-record';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
   const alloy = ALLOYS[model.alloy];
@@ -27,13 +29,12 @@ export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
  * A group's share of its design's mean current: the zone's mean demand divided among the anodes the
  * design gives that zone (DNV-RP-B401 distribution in proportion to demand), times the group's quantity.
  */
-export function shareOfDesignCurrent(results: unknown, zoneName: string | null, quantity: number): number | null {
-  const r = results as { surfaces?: { name: string; meanA: number }[]; distribution?: { surfaces: { name: string; count: number }[] }; current?: { meanA: number }; anodeCount?: number } | null;
-  if (!r?.surfaces || !r.distribution) return null;
-  const surface = zoneName ? r.surfaces.find((s) => s.name === zoneName) : null;
-  const row = zoneName ? r.distribution.surfaces.find((s) => s.name === zoneName) : null;
+export function shareOfDesignCurrent(results: StoredResults | null, zoneName: string | null, quantity: number): number | null {
+  if (!results) return null;
+  const surface = zoneName ? results.surfaces.find((s) => s.name === zoneName) : null;
+  const row = zoneName ? results.distribution.surfaces.find((s) => s.name === zoneName) : null;
   if (surface && row && row.count > 0) return (surface.meanA / row.count) * quantity;
-  if (r.current && r.anodeCount) return (r.current.meanA / r.anodeCount) * quantity;
+  if (results.anodeCount) return (results.current.meanA / results.anodeCount) * quantity;
   return null;
 }
 
@@ -52,7 +53,7 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
   if (data.designId && !design) throw new AppError('invalid', 'That design is not for this asset.', { designId: ['Choose a design of this asset.'] });
   await assertLabelFree(ctx, asset.id, data.label);
   const model = await resolveAnodeModel(ctx, data.anodeModelKey);
-  const meanCurrentA = data.meanCurrentA ?? (design ? shareOfDesignCurrent(design.results, zone?.name ?? null, data.quantity) : null);
+  const meanCurrentA = data.meanCurrentA ?? (design ? shareOfDesignCurrent(readDesignResults(design), zone?.name ?? null, data.quantity) : null);
   const group = ctx.em.create(AnodeGroupSchema, {
     organisation: ctx.organisation,
     asset,

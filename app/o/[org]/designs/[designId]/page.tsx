@@ -4,13 +4,11 @@ import { notFound } from 'next/navigation';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
-import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
-import { computeDesk } from '@/lib/server/services/designs/compute-design';
-import { listCatalogue } from '@/lib/server/services/catalogue/anode-models';
+import { getDesignDesk, type DesignDesk as DesignDeskView } from '@/lib/server/services/designs/design-view';
 import { STATUS_LABELS } from '@/lib/design/labels';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
-import { DesignDesk, type DeskComputed } from '@/components/design-desk/design-desk';
+import { DesignDesk } from '@/components/design-desk/design-desk';
 import { SignatureBlock } from '@/components/design-desk/signature-block';
 import type { DeskState } from '@/components/design-desk/desk-state';
 
@@ -19,22 +17,15 @@ export const metadata: Metadata = { title: 'Design desk' };
 export default async function DesignPage({ params }: { params: Promise<{ org: string; designId: string }> }) {
   const { org, designId } = await params;
   const ctx = await getPageOrgContext(org);
-  let design;
+  let view: DesignDeskView;
   try {
-    design = await getDesignOrThrow(ctx, designId);
+    view = await getDesignDesk(ctx, designId);
   } catch (error) {
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { anodeModelSnapshot: _snapshot, ...inputs } = design.inputs as Record<string, unknown>;
-  const catalogue = await listCatalogue(ctx, { includeArchived: true });
-  let initial: DeskComputed | null = null;
-  try {
-    const desk = await computeDesk(ctx, inputs, { hasImpressedCurrent: Boolean(design.asset.hasImpressedCurrent) });
-    initial = { result: desk.result, error: desk.error, notices: desk.notices, options: desk.options, impressedCurrent: desk.impressedCurrent, model: desk.model };
-  } catch {
-    initial = null; // inputs no longer valid (e.g. a model removed); the desk shows the messages on first change
-  }
+  // A signed revision comes back as stored, a draft recomputed (see shownRevision); the page computes nothing.
+  const { design, record, computed, source, recomputeError, catalogue } = view;
   const approved = design.status === 'approved';
   const isPreparer = design.preparedBy.id === ctx.user.id;
   const editable = !approved && allowed(ctx, 'design:write');
@@ -59,6 +50,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
           <>
             <Link href={`/o/${org}/designs`} className="text-tide-600 hover:underline">Design desk</Link> · {asset.name} ({asset.kind}) · revision {design.revision}
             {design.basedOnRevision ? ` (from revision ${design.basedOnRevision})` : ''} · app {design.appVersion}
+            {source === 'stored' ? ' · results as stored with this revision, not recomputed' : ''}
           </>
         }
         actions={
@@ -84,22 +76,28 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
           />
         </Panel>
       </div>
+      {recomputeError ? (
+        <p role="alert" className="mb-4 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
+          This draft&apos;s stored inputs cannot be computed today: {recomputeError}
+        </p>
+      ) : null}
       <DesignDesk
         key={design.updatedAt.toISOString()}
         org={org}
         designId={design.id}
         initialTitle={design.title}
-        initialInputs={inputs as DeskState}
-        initialComputed={initial}
+        initialInputs={record.inputs as DeskState}
+        initialComputed={computed}
         catalogue={catalogue}
         editable={editable}
+        storedModel={source === 'stored' ? { key: record.inputs.anodeModelKey, model: record.anodeModel } : undefined}
         vessel={asset.kind === 'vessel' ? { lengthBppM: asset.lengthBppM ?? null, beamM: asset.beamM ?? null, draughtM: asset.draughtM ?? null, blockCoefficient: asset.blockCoefficient ?? null } : null}
       />
     </>
   );
 }
 
-function AssetSummary({ asset }: { asset: Awaited<ReturnType<typeof getDesignOrThrow>>['asset'] }) {
+function AssetSummary({ asset }: { asset: DesignDeskView['design']['asset'] }) {
   const rows: [string, string | null | undefined][] =
     asset.kind === 'vessel'
       ? [
