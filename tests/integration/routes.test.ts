@@ -1,15 +1,25 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { NextRequest } from 'next/server';
-import type { Organisation, User } from '@/entities';
+import { addDays } from 'date-fns';
+import { StripeEventSchema, SurveyReadingSchema, type Organisation, type User } from '@/entities';
 import { ROLES, type Role } from '@/lib/roles';
 import { getEm, getOrm } from '@/lib/server/db';
-import { getLucia } from '@/lib/server/auth/lucia';
-import { makeOrgWithRoles } from '../fixtures/factories';
-import { cookieJar, nextHeadersMock } from '../fixtures/next-headers-mock';
+import { createAsset } from '@/lib/server/services/assets/create-asset';
+import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { createDesign } from '@/lib/server/services/designs/create-design';
+import { createDocking } from '@/lib/server/services/planner/dockings';
+import { addRenewal } from '@/lib/server/services/planner/renewals';
+import { createSurvey } from '@/lib/server/services/surveys/create-survey';
+import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
+import { nextHeadersMock } from '../fixtures/next-headers-mock';
+import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs } from '../fixtures/entry-points';
+import { pdfText } from '../fixtures/pdf-text';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
-// Every organisation route handler with the permission it needs; later features add theirs here.
+// Every organisation route handler (each exported method of each route.ts under app/api/orgs/[org]) with the
+// roles it admits; a test below fails when a route file exports a method this table does not list.
 // A sizing every role may run (invented job: 1,000 m² of bare steel, one stand-off anode model).
 const CALCULATION = {
   designLifeYears: 10,
@@ -18,71 +28,253 @@ const CALCULATION = {
   surfaces: [{ name: 'Piles', areaM2: 1000, currentDensity: { initial: 0.2, mean: 0.1, final: 0.13 }, coating: 'bare' }],
   anode: { alloy: 'al-zn-in', capacityAhPerKg: 2000, potentialV: -1.05, utilisationFactor: 0.9, netMassKg: 200, shape: { kind: 'slender-standoff', lengthM: 2, radiusM: 0.1 } },
 };
+// The first bytes of a PNG (signature and IHDR length/type): enough for the content sniffer.
+const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52]);
+const VESSEL = 'Route Test Vessel';
+const day = (offset: number) => addDays(new Date(), offset).toISOString().slice(0, 10);
+
+type Ids = Record<'designId' | 'dockingId' | 'surveyId' | 'attachmentId' | 'assetId', string>;
+type Method = (typeof HTTP_METHODS)[number];
 type Handler = (req: NextRequest, route: { params: Promise<Record<string, string>> }) => Promise<Response>;
-const ROUTES: { path: string; method?: 'GET' | 'POST'; body?: unknown; load: () => Promise<Record<string, unknown>>; permission: (role: Role) => boolean }[] = [
-  { path: 'team', load: () => import('@/app/api/orgs/[org]/team/route'), permission: (r) => r === 'owner' },
-  { path: 'audit', load: () => import('@/app/api/orgs/[org]/audit/route'), permission: (r) => r === 'owner' },
-  { path: 'designs', load: () => import('@/app/api/orgs/[org]/designs/route'), permission: () => true },
-  { path: 'assets', load: () => import('@/app/api/orgs/[org]/assets/route'), permission: () => true },
-  { path: 'anode-groups', load: () => import('@/app/api/orgs/[org]/anode-groups/route'), permission: () => true },
-  { path: 'surveys', load: () => import('@/app/api/orgs/[org]/surveys/route'), permission: () => true },
-  { path: 'catalogue', load: () => import('@/app/api/orgs/[org]/catalogue/route'), permission: () => true },
-  { path: 'assets', method: 'POST', body: { kind: 'vessel', name: 'Route Test Boat', hullMaterial: 'steel' }, load: () => import('@/app/api/orgs/[org]/assets/route'), permission: (r) => r === 'owner' || r === 'engineer' },
-  { path: 'calculations', method: 'POST', body: CALCULATION, load: () => import('@/app/api/orgs/[org]/calculations/route'), permission: () => true },
+interface Called {
+  status: number;
+  type: string;
+  bytes: Uint8Array;
+  text: string;
+  body: any;
+}
+interface Route {
+  /** The route's folder under app/api/orgs/[org], with its dynamic segments as named there. */
+  path: string;
+  method: Method;
+  load: () => Promise<Record<string, unknown>>;
+  permission: (role: Role) => boolean;
+  /** The status a permitted member gets (200 unless stated). */
+  status?: number;
+  /** A request body: plain objects are sent as JSON, strings with `contentType`, FormData as multipart. */
+  body?: () => unknown;
+  contentType?: string;
+  /** What a permitted member receives. */
+  check?: (res: Called, role: Role) => void | Promise<void>;
+}
+
+const all = () => true;
+const owner = (r: Role) => r === 'owner';
+const engineers = (r: Role) => r === 'owner' || r === 'engineer';
+const surveyors = (r: Role) => r === 'owner' || r === 'engineer' || r === 'inspector';
+const isPdf = async (res: Called, role: Role) => {
+  expect(res.type).toBe('application/pdf');
+  expect(res.text.slice(0, 5)).toBe('%PDF-');
+  // Reading the text back is slow; once per route is enough.
+  if (role === 'viewer') expect(await pdfText(res.bytes)).toContain(VESSEL);
+};
+
+const ROUTES: Route[] = [
+  { path: 'team', method: 'GET', load: () => import('@/app/api/orgs/[org]/team/route'), permission: owner, check: (r) => expect(r.body.members).toHaveLength(ROLES.length) },
+  { path: 'audit', method: 'GET', load: () => import('@/app/api/orgs/[org]/audit/route'), permission: owner },
+  { path: 'designs', method: 'GET', load: () => import('@/app/api/orgs/[org]/designs/route'), permission: all, check: (r) => expect(r.body.designs.map((d: { id: string }) => d.id)).toContain(ids.designId) },
+  {
+    path: 'designs',
+    method: 'POST',
+    status: 201,
+    body: () => ({ assetId: ids.assetId, title: 'Route test revision' }),
+    load: () => import('@/app/api/orgs/[org]/designs/route'),
+    permission: engineers,
+    check: (r) => expect(r.body.design.title).toBe('Route test revision'),
+  },
+  { path: 'designs/[designId]', method: 'GET', load: () => import('@/app/api/orgs/[org]/designs/[designId]/route'), permission: all, check: (r) => expect(r.body.design.id).toBe(ids.designId) },
+  { path: 'designs/[designId]/note', method: 'GET', load: () => import('@/app/api/orgs/[org]/designs/[designId]/note/route'), permission: all, check: isPdf },
+  { path: 'assets', method: 'GET', load: () => import('@/app/api/orgs/[org]/assets/route'), permission: all, check: (r) => expect(r.text).toContain(VESSEL) },
+  {
+    path: 'assets',
+    method: 'POST',
+    status: 201,
+    body: () => ({ kind: 'vessel', name: 'Route Test Boat', hullMaterial: 'steel' }),
+    load: () => import('@/app/api/orgs/[org]/assets/route'),
+    permission: engineers,
+    check: (r) => expect(r.body.asset).toMatchObject({ name: 'Route Test Boat', kind: 'vessel' }),
+  },
+  { path: 'anode-groups', method: 'GET', load: () => import('@/app/api/orgs/[org]/anode-groups/route'), permission: all, check: (r) => expect(r.text).toContain('Route bottom') },
+  {
+    path: 'anode-groups/export',
+    method: 'GET',
+    load: () => import('@/app/api/orgs/[org]/anode-groups/export/route'),
+    permission: all,
+    check: (r) => {
+      expect(r.type).toBe('text/csv; charset=utf-8');
+      expect(r.text.split('\r\n')[0]).toMatch(/^asset,asset_kind,/);
+      expect(r.text).toContain(`${VESSEL},vessel,`);
+    },
+  },
+  { path: 'calculations', method: 'POST', body: () => CALCULATION, load: () => import('@/app/api/orgs/[org]/calculations/route'), permission: all, check: (r) => expect(r.body.result.anodeCount).toBeGreaterThan(0) },
+  { path: 'surveys', method: 'GET', load: () => import('@/app/api/orgs/[org]/surveys/route'), permission: all, check: (r) => expect(r.text).toContain(ids.surveyId) },
+  {
+    path: 'surveys',
+    method: 'POST',
+    status: 201,
+    body: () => ({ assetId: ids.assetId, surveyedOn: day(-1), method: 'drop-cell', defaultElectrode: 'ag-agcl-seawater', readings: [{ location: 'Stern', potentialV: -0.98, electrode: 'ag-agcl-seawater' }] }),
+    load: () => import('@/app/api/orgs/[org]/surveys/route'),
+    permission: surveyors,
+    check: (r) => expect(r.body.survey.id).toMatch(/^[0-9a-f-]{36}$/),
+  },
+  {
+    path: 'surveys/[surveyId]/readings',
+    method: 'POST',
+    body: () => 'location,potential_v,electrode,remaining\nFr 20 P,-0.97,ag-agcl-seawater,\nFr 20 S,,,70%\n',
+    contentType: 'text/csv',
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/readings/route'),
+    permission: surveyors,
+    check: (r) => expect(r.body).toEqual({ imported: 2, underProtected: 0 }),
+  },
+  {
+    path: 'surveys/[surveyId]/attachments',
+    method: 'POST',
+    status: 201,
+    body: () => {
+      const form = new FormData();
+      form.set('file', new File([PNG], 'stern-tube.png', { type: 'image/png' }));
+      form.set('caption', 'Stern tube anode');
+      return form;
+    },
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/route'),
+    permission: surveyors,
+    check: (r) => expect(r.body.attachment).toMatchObject({ filename: 'stern-tube.png', contentType: 'image/png', sizeBytes: PNG.length }),
+  },
+  {
+    path: 'surveys/[surveyId]/attachments/[attachmentId]',
+    method: 'GET',
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/[attachmentId]/route'),
+    permission: all,
+    check: (r) => {
+      expect(r.type).toBe('image/png');
+      expect(r.bytes).toEqual(PNG);
+    },
+  },
+  {
+    path: 'surveys/template',
+    method: 'GET',
+    load: () => import('@/app/api/orgs/[org]/surveys/template/route'),
+    permission: all,
+    check: (r) => {
+      expect(r.type).toBe('text/csv; charset=utf-8');
+      expect(r.text.split('\r\n')[0]).toBe('location,potential_v,electrode,anode_group,remaining,comment');
+    },
+  },
+  { path: 'catalogue', method: 'GET', load: () => import('@/app/api/orgs/[org]/catalogue/route'), permission: all, check: (r) => expect(r.body.models.length).toBeGreaterThan(0) },
+  { path: 'dockings/[dockingId]/anode-list', method: 'GET', load: () => import('@/app/api/orgs/[org]/dockings/[dockingId]/anode-list/route'), permission: all, check: isPdf },
+  {
+    path: 'dockings/[dockingId]/renewals',
+    method: 'GET',
+    load: () => import('@/app/api/orgs/[org]/dockings/[dockingId]/renewals/route'),
+    permission: all,
+    check: (r) => expect(r.body.renewals.map((x: { groupLabel: string }) => x.groupLabel)).toEqual(['Route bottom']),
+  },
 ];
 
 let home: { organisation: Organisation; users: Record<Role, User> };
 let other: { organisation: Organisation; users: Record<Role, User> };
+let ids: Ids;
 
-async function signInAs(user: User | null) {
-  cookieJar.clear();
-  if (!user) return;
-  const lucia = getLucia();
-  const session = await lucia.createSession(user.id, {});
-  cookieJar.set(lucia.sessionCookieName, session.id);
+const paramsOf = (path: string): Record<string, string> =>
+  Object.fromEntries([...path.matchAll(/\[(\w+)\]/g)].map(([, name]) => [name, ids[name as keyof Ids]]));
+const urlOf = (path: string) => path.replace(/\[(\w+)\]/g, (_, name: keyof Ids) => ids[name]);
+
+function requestInit(method: Method, body: unknown, contentType?: string): RequestInit | undefined {
+  if (body === undefined) return method === 'GET' ? undefined : { method };
+  if (body instanceof FormData) return { method, body };
+  if (typeof body === 'string') return { method, body, headers: contentType ? { 'content-type': contentType } : {} };
+  return { method, body: JSON.stringify(body), headers: { 'content-type': 'application/json' } };
 }
 
-async function call(route: (typeof ROUTES)[number], slug: string, search = '', body = route.body) {
-  const method = route.method ?? 'GET';
-  const handler = (await route.load())[method] as Handler;
-  const init = method === 'POST' ? { method, body: JSON.stringify(body), headers: { 'content-type': 'application/json' } } : undefined;
-  const res = await handler(new NextRequest(`http://127.0.0.1/api/orgs/${slug}/${route.path}${search}`, init), { params: Promise.resolve({ org: slug }) });
-  return { status: res.status, body: await res.json() };
+async function call(route: Route, slug: string, search = '', body = route.body?.()): Promise<Called> {
+  const handler = (await route.load())[route.method] as Handler;
+  const req = new NextRequest(`http://127.0.0.1/api/orgs/${slug}/${urlOf(route.path)}${search}`, requestInit(route.method, body, route.contentType) as ConstructorParameters<typeof NextRequest>[1]);
+  const res = await handler(req, { params: Promise.resolve({ org: slug, ...paramsOf(route.path) }) });
+  const type = res.headers.get('content-type') ?? '';
+  const bytes = new Uint8Array(await res.arrayBuffer());
+  const text = new TextDecoder().decode(bytes);
+  return { status: res.status, type, bytes, text, body: type.startsWith('application/json') ? JSON.parse(text) : undefined };
+}
+
+/** A refused request answers and writes nothing. */
+async function refused(route: Route, slug: string) {
+  const before = await databaseFingerprint();
+  const res = await call(route, slug);
+  expect(await databaseFingerprint()).toEqual(before);
+  return res;
 }
 
 beforeAll(async () => {
   home = await makeOrgWithRoles(await getEm(), 'Home Port');
   other = await makeOrgWithRoles(await getEm(), 'Other Port');
+  const as = async (role: Role) => ctxFor(await getEm(), home.organisation, home.users[role]);
+  const vessel = await runAs(as('engineer'), (c) => createAsset(c, { kind: 'vessel', name: VESSEL, hullMaterial: 'steel', lengthBppM: 60, beamM: 12, draughtM: 3.5, blockCoefficient: 0.6 }));
+  const group = await runAs(as('engineer'), (c) => createAnodeGroup(c, vessel.id, { label: 'Route bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 }));
+  const design = await runAs(as('engineer'), (c) => createDesign(c, { assetId: vessel.id }));
+  const docking = await runAs(as('planner'), (c) => createDocking(c, { assetId: vessel.id, kind: 'intermediate', plannedStart: day(200), yard: 'Route Yard' }));
+  await runAs(as('planner'), (c) => addRenewal(c, docking.id, { groupId: group.id, reason: 'damage' }));
+  const survey = await runAs(as('inspector'), (c) => createSurvey(c, { assetId: vessel.id, surveyedOn: day(-10), method: 'diver', defaultElectrode: 'ag-agcl-seawater' }));
+  const attachment = await runAs(as('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'bow.png', bytes: PNG }, 'Bow thruster'));
+  ids = { assetId: vessel.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id };
 });
 afterAll(async () => (await getOrm()).close(true));
 
 describe('organisation route handlers', () => {
+  it('the table lists every exported method of every route file under app/api/orgs, and nothing else', async () => {
+    const found: string[] = [];
+    for (const file of await filesNamed('app/api/orgs', 'route.ts')) {
+      const mod = await importFile(file);
+      const path = file.replace(/^app\/api\/orgs\/\[org\]\//, '').replace(/\/route\.ts$/, '');
+      for (const method of HTTP_METHODS) {
+        if (typeof mod[method] !== 'function') continue;
+        found.push(`${method} ${path}`);
+        const listed = ROUTES.find((r) => r.path === path && r.method === method);
+        if (listed) expect((await listed.load())[method], `${method} ${path} is loaded from its own file`).toBe(mod[method]);
+      }
+    }
+    const listed = ROUTES.map((r) => `${r.method} ${r.path}`);
+    expect(found.filter((f) => !listed.includes(f)), 'route methods missing from ROUTES').toEqual([]);
+    expect(listed.filter((l) => !found.includes(l)), 'ROUTES entries without a route').toEqual([]);
+    expect(new Set(listed).size).toBe(listed.length);
+  });
+
   for (const route of ROUTES) {
-    it(`${route.method ?? 'GET'} ${route.path}: 401 without a session`, async () => {
+    const name = `${route.method} ${route.path}`;
+    it(`${name}: 401 without a session, nothing written`, async () => {
       await signInAs(null);
-      const { status, body } = await call(route, home.organisation.slug);
+      const { status, body } = await refused(route, home.organisation.slug);
       expect(status).toBe(401);
       expect(body.error.code).toBe('unauthenticated');
     });
 
     for (const role of ROLES) {
-      it(`${route.method ?? 'GET'} ${route.path}: ${role} of the organisation gets ${route.permission(role) ? 200 : 403}`, async () => {
+      const status = route.permission(role) ? (route.status ?? 200) : 403;
+      it(`${name}: ${role} of the organisation gets ${status}${status === 403 ? ', nothing written' : ''}`, async () => {
         await signInAs(home.users[role]);
-        const { status } = await call(route, home.organisation.slug);
-        expect(status).toBe(route.permission(role) ? (route.method === 'POST' && route.path !== 'calculations' ? 201 : 200) : 403);
+        if (status === 403) {
+          const res = await refused(route, home.organisation.slug);
+          expect(res.status).toBe(403);
+          expect(res.body.error.code).toBe('forbidden');
+          return;
+        }
+        const res = await call(route, home.organisation.slug);
+        expect(res.status, res.text.slice(0, 300)).toBe(status);
+        await route.check?.(res, role);
       });
 
-      it(`${route.method ?? 'GET'} ${route.path}: ${role} of another organisation gets 404, never the data`, async () => {
+      it(`${name}: ${role} of another organisation gets 404, never the data, nothing written`, async () => {
         await signInAs(other.users[role]);
-        const { status, body } = await call(route, home.organisation.slug);
+        const { status, body, text } = await refused(route, home.organisation.slug);
         expect(status).toBe(404);
+        expect(body.error.code).toBe('not-found');
         expect(JSON.stringify(body)).not.toContain(home.users.owner.email);
+        for (const secret of [VESSEL, home.organisation.name, 'Route bottom', '%PDF-']) expect(text).not.toContain(secret);
       });
     }
 
-    it(`${route.method ?? 'GET'} ${route.path}: an unknown organisation is 404 too`, async () => {
+    it(`${name}: an unknown organisation is 404 too`, async () => {
       await signInAs(home.users.owner);
-      expect((await call(route, 'no-such-org')).status).toBe(404);
+      expect((await refused(route, 'no-such-org')).status).toBe(404);
     });
   }
 
@@ -110,5 +302,79 @@ describe('organisation route handlers', () => {
     const { status, body } = await call(ROUTES.find((r) => r.path === 'audit')!, home.organisation.slug, '?page=-3');
     expect(status).toBe(422);
     expect(body.error.fieldErrors.page).toBeTruthy();
+  });
+
+  it('the anode list comes as CSV when asked, with the booked group', async () => {
+    await signInAs(home.users.viewer);
+    const res = await call(ROUTES.find((r) => r.path === 'dockings/[dockingId]/anode-list')!, home.organisation.slug, '?format=csv');
+    expect(res.status).toBe(200);
+    expect(res.type).toBe('text/csv; charset=utf-8');
+    expect(res.text).toContain('Route bottom');
+    expect((await call(ROUTES.find((r) => r.path === 'dockings/[dockingId]/anode-list')!, home.organisation.slug, '?format=xml')).status).toBe(422);
+  });
+
+  it('survey readings also come as a multipart upload, with the upload naming the electrode', async () => {
+    await signInAs(home.users.inspector);
+    const form = new FormData();
+    form.set('file', new File(['location,potential_v\nMultipart 1,-1.00\n'], 'readings.csv', { type: 'text/csv' }));
+    form.set('defaultElectrode', 'cse');
+    const res = await call(ROUTES.find((r) => r.path === 'surveys/[surveyId]/readings')!, home.organisation.slug, '', form);
+    expect(res.status, res.text).toBe(200);
+    expect(res.body).toEqual({ imported: 1, underProtected: 0 });
+    const [reading] = await (await getEm()).find(SurveyReadingSchema, { survey: ids.surveyId, location: 'Multipart 1' });
+    expect(reading.electrode).toBe('cse');
+    // -1.00 V CSE is about -0.95 V Ag/AgCl/seawater (50 mV between them): common practice
+    expect(reading.potentialAgAgClV).toBeCloseTo(-0.95, 2);
+  });
+
+  it("an id that names nothing, or another organisation's record, is 404 on every parameterised route", async () => {
+    const outsider = async (role: Role) => ctxFor(await getEm(), other.organisation, other.users[role]);
+    const boat = await runAs(outsider('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Foreign Boat', hullMaterial: 'steel' }));
+    const design = await runAs(outsider('engineer'), (c) => createDesign(c, { assetId: boat.id }));
+    const docking = await runAs(outsider('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'unplanned', plannedStart: day(30) }));
+    const survey = await runAs(outsider('inspector'), (c) => createSurvey(c, { assetId: boat.id, surveyedOn: day(-1), method: 'diver', defaultElectrode: 'cse' }));
+    const attachment = await runAs(outsider('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'foreign.png', bytes: PNG }, null));
+    const foreign: Ids = { assetId: boat.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id };
+    await signInAs(home.users.owner);
+    const saved = ids;
+    try {
+      for (const route of ROUTES.filter((r) => r.path.includes('['))) {
+        for (const replacement of ['not-a-uuid', '00000000-0000-4000-8000-000000000000', 'foreign'] as const) {
+          ids = Object.fromEntries(Object.entries(saved).map(([k, v]) => [k, route.path.includes(`[${k}]`) ? (replacement === 'foreign' ? foreign[k as keyof Ids] : replacement) : v])) as Ids;
+          const res = await refused(route, home.organisation.slug);
+          expect(res.status, `${route.method} ${route.path} with ${replacement} ids: ${res.text.slice(0, 200)}`).toBe(404);
+          expect(res.text).not.toContain('Foreign Boat');
+        }
+      }
+      // The attachment of another survey of the same organisation is not served through this survey either.
+      ids = { ...saved, surveyId: (await runAs(ctxFor(await getEm(), home.organisation, home.users.inspector), (c) => createSurvey(c, { assetId: saved.assetId, surveyedOn: day(-2), method: 'rov', defaultElectrode: 'cse' }))).id };
+      await signInAs(home.users.owner);
+      expect((await refused(ROUTES.find((r) => r.path === 'surveys/[surveyId]/attachments/[attachmentId]')!, home.organisation.slug)).status).toBe(404);
+    } finally {
+      ids = saved;
+    }
+  });
+});
+
+describe('public route handlers', () => {
+  it('GET /api/health answers without a session: the app and the database are up', async () => {
+    await signInAs(null);
+    const { GET } = await import('@/app/api/health/route');
+    const res = await GET();
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body).toMatchObject({ status: 'ok', app: { status: 'ok' }, database: { status: 'ok' } });
+  });
+
+  it('POST /api/webhooks/stripe refuses an unsigned body with 400 and records nothing, without any session', async () => {
+    await signInAs(null);
+    const { POST } = await import('@/app/api/webhooks/stripe/route');
+    const before = await databaseFingerprint();
+    const payload = JSON.stringify({ id: 'evt_unsigned_route_test', object: 'event', type: 'customer.subscription.deleted', data: { object: { id: 'sub_x', object: 'subscription', customer: 'cus_x', status: 'canceled' } } });
+    const res = await POST(new Request('http://127.0.0.1/api/webhooks/stripe', { method: 'POST', body: payload, headers: { 'content-type': 'application/json' } }));
+    expect(res.status).toBe(400);
+    expect((await res.json()).error.code).toBe('invalid');
+    expect(await databaseFingerprint()).toEqual(before);
+    expect(await (await getEm()).count(StripeEventSchema, { id: 'evt_unsigned_route_test' })).toBe(0);
   });
 });
