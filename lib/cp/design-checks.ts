@@ -3,6 +3,7 @@ import type { ResistanceTreatment } from './anode-resistance';
 import type { CheckedJob, DesignAnode } from './design-input';
 import { CpInputError } from './errors';
 import { utilisationFactorFor } from './lookups';
+import { currentDensityWarning, resistivityWarning } from './plausibility';
 import { ALLOYS, isMagnesium } from './tables/alloys';
 import { ANAEROBIC_STEEL_PROTECTION_POTENTIAL_V, MINIMUM_PROTECTION_POTENTIAL, OVER_PROTECTION_LIMIT } from './tables/potential-limits';
 import type { CpWarning } from './types';
@@ -111,6 +112,9 @@ const CHECKS: readonly Check[] = [
     c.resistanceTreatment === 'short-flush-fallback'
       ? { code: 'long-flush-outside-validity', message: 'The plate is shorter than 4 x its width or thickness: the long-flush formula does not hold; McCoy on length x width is used.' }
       : null,
+  // Figures that do not fit the water or look like a unit slip (lib/cp/plausibility.ts).
+  (c) => (c.job.environment ? resistivityWarning(c.job.environment.water, c.job.resistivityOhmM) : null),
+  (c) => currentDensityWarning(c.job.surfaces),
 ];
 
 function overProtection(c: WarningContext, metal: 'high-strength-steel' | 'aluminium', code: CpWarning['code'], harm: string): CpWarning | null {

@@ -1,6 +1,7 @@
 import { validateShape } from './anode-shape';
 import { validateSurfaceDemand } from './current-demand';
 import { CpInputError } from './errors';
+import { plausibleAnodePotential, plausibleCapacity } from './plausibility';
 import type {
   AnodeAlloy,
   AnodeShape,
@@ -34,8 +35,9 @@ export interface DesignSurface {
 
 export interface DesignAnode {
   alloy: AnodeAlloy;
+  /** Ah/kg; never above the theoretical capacity of the alloy's metal (Faraday's law). */
   capacityAhPerKg: number;
-  /** Closed-circuit potential, V vs Ag/AgCl/seawater. */
+  /** Closed-circuit potential, V vs Ag/AgCl/seawater, within -1.8 to -0.7 V (ANODE_POTENTIAL_RANGE_V). */
   potentialV: number;
   utilisationFactor: number;
   netMassKg: number;
@@ -125,10 +127,11 @@ export function validateAnode(value: unknown, field: string): DesignAnode {
   if (grossMassKg !== undefined && grossMassKg < netMassKg) {
     throw new CpInputError(f('grossMassKg'), `${f('grossMassKg')} (${grossMassKg} kg) cannot be less than the net mass (${netMassKg} kg).`);
   }
+  const alloy = oneOf(r.alloy, ALLOY_NAMES, f('alloy'));
   return {
-    alloy: oneOf(r.alloy, ALLOY_NAMES, f('alloy')),
-    capacityAhPerKg: positive(r.capacityAhPerKg, f('capacityAhPerKg'), 'Ah/kg'),
-    potentialV: finite(r.potentialV, f('potentialV'), 'V'),
+    alloy,
+    capacityAhPerKg: plausibleCapacity(positive(r.capacityAhPerKg, f('capacityAhPerKg'), 'Ah/kg'), alloy, f('capacityAhPerKg')),
+    potentialV: plausibleAnodePotential(finite(r.potentialV, f('potentialV'), 'V'), f('potentialV')),
     utilisationFactor: unitFraction(r.utilisationFactor, f('utilisationFactor')),
     netMassKg,
     grossMassKg,

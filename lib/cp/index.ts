@@ -20,7 +20,13 @@
  * - end-of-life             the anode's shape when consumed to its utilisation factor
  * - anode-output            Ia = (Ec - Ea)/Ra, driving voltage
  * - wetted-surface          Denny-Mumford and Holtrop-Mennen hull areas
- * - potentials              reference electrode conversion
+ * - potentials              reference electrode conversion, chloride correction of
+ *                           Ag/AgCl/seawater readings (Nernst)
+ * - practical-salinity      PSS-78 at zero pressure: salinity <-> conductivity, resistivity
+ * - water-type              fresh / brackish / seawater from salinity, chlorinity
+ * - physical-constants      SI 2019 defining constants, Faraday and gas constants
+ * - theoretical-capacity    Faraday's-law capacity of each anode alloy's metal
+ * - plausibility            refusals (capacity, anode potential) and unit-slip warnings
  * - design-input            design input types and validation
  * - design-checks           invalid combinations (throw) and warnings
  * - design-anode-system     the full sizing
@@ -42,7 +48,12 @@
  *   area x (1-u)^(2/3). At least 2 % of the mass is assumed left (finite at u = 1), and
  *   the final resistance is never taken below the initial.
  * - Potentials vs SHE: Ag/AgCl/seawater +0.25, CSE +0.30 (50 mV rule; strictly +0.316),
- *   SCE +0.241, Ag/AgCl sat. KCl +0.197, zinc -0.80.
+ *   SCE +0.241, Ag/AgCl sat. KCl +0.197, zinc -0.80. The Ag/AgCl/seawater value holds at
+ *   35 PSU; a salinity given with a reading moves it by -0.05916 log10(S/35) V.
+ * - Water: PSS-78 temperature taken as given (IPTS-68 vs ITS-90 under 0.01 C); water type
+ *   by the Venice system (fresh < 0.5 <= brackish < 30 <= seawater, PSU).
+ * - Plausibility: capacity above Faraday's-law value and anode potential outside -1.8 to
+ *   -0.7 V throw; resistivity unfit for the water and current densities above 1 A/m2 warn.
  * - Counts: ceil after snapping float noise within 1e-9 (relative) to the whole number.
  * - Distribution follows the demand of the governing criterion (mean for mass).
  * - A total mean demand below 1 nA, or a result that would overflow, is invalid input.
@@ -105,7 +116,42 @@ export {
   type HullParticulars,
   type HoltropMennenParticulars,
 } from './wetted-surface';
-export { convertPotential, type ConvertPotentialInput } from './potentials';
+export {
+  convertPotential,
+  nernstSlopeV,
+  agAgClSeawaterShiftV,
+  AG_AGCL_SEAWATER_CALIBRATION_PSU,
+  AG_AGCL_SEAWATER_SALINITY_RANGE_PSU,
+  CHLORIDE_CORRECTION_TEMPERATURE_C,
+  type ConvertPotentialInput,
+} from './potentials';
+export {
+  seawaterConductivitySPerM,
+  seawaterResistivityOhmM,
+  practicalSalinity,
+  PSS78_REFERENCE_CONDUCTIVITY_S_PER_M,
+  PSS78_SALINITY_RANGE_PSU,
+  PSS78_TEMPERATURE_RANGE_C,
+  type SeawaterStateInput,
+  type PracticalSalinityInput,
+} from './practical-salinity';
+export { waterTypeFromSalinity, chlorinityGPerKg, WATER_TYPE_SALINITY_LIMITS_PSU, SALINITY_PER_CHLORINITY } from './water-type';
+export {
+  ELEMENTARY_CHARGE_C,
+  AVOGADRO_PER_MOL,
+  BOLTZMANN_J_PER_K,
+  FARADAY_C_PER_MOL,
+  GAS_CONSTANT_J_PER_MOL_K,
+  ZERO_CELSIUS_K,
+  SECONDS_PER_HOUR,
+} from './physical-constants';
+export { theoreticalCapacityAhPerKg, ANODE_METALS, type AnodeMetal } from './theoretical-capacity';
+export {
+  ANODE_POTENTIAL_RANGE_V,
+  SEAWATER_RESISTIVITY_RANGE_OHM_M,
+  FRESH_WATER_MIN_RESISTIVITY_OHM_M,
+  MAX_PLAUSIBLE_CURRENT_DENSITY_A_PER_M2,
+} from './plausibility';
 export {
   DEFAULT_PROTECTIVE_POTENTIAL_V,
   type DesignInput,

@@ -113,7 +113,11 @@ export type WarningCode =
   | 'protective-potential-less-negative-than-criterion'
   | 'utilisation-above-table'
   | 'standoff-treated-as-flush'
-  | 'long-flush-outside-validity';
+  | 'long-flush-outside-validity'
+  | 'resistivity-high-for-seawater'
+  | 'resistivity-low-for-seawater'
+  | 'resistivity-low-for-fresh-water'
+  | 'current-density-looks-like-ma-per-m2';
 
 /** One line of the calculation basis: what was used and where it comes from. */
 export interface BasisEntry {

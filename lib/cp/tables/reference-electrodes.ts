@@ -15,7 +15,11 @@ export interface ElectrodeOffset {
  */
 export const REFERENCE_ELECTRODES: Readonly<Record<ReferenceElectrode, ElectrodeOffset>> = {
   she: { vsSheV: 0, flag: 'published', note: 'By definition.' },
-  'ag-agcl-seawater': { vsSheV: 0.25, flag: 'memory', note: 'Depends on salinity; about +0.25 V.' },
+  'ag-agcl-seawater': {
+    vsSheV: 0.25,
+    flag: 'memory',
+    note: 'About +0.25 V in full-strength seawater (35 PSU); depends on chloride: convertPotential corrects it for the salinity given (Nernst).',
+  },
   'ag-agcl-saturated-kcl': { vsSheV: 0.197, flag: 'published', note: 'Saturated KCl filling.' },
   cse: {
     vsSheV: 0.3,

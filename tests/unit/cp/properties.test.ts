@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { CpInputError, designAnodeSystem, type AnodeShape, type DesignInput, type DesignSurface } from '@/lib/cp';
+import { CpInputError, designAnodeSystem, theoreticalCapacityAhPerKg, type AnodeShape, type DesignInput, type DesignSurface } from '@/lib/cp';
 import { nonFinitePaths } from './helpers';
 
 const pos = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
@@ -42,6 +42,7 @@ const design: fc.Arbitrary<DesignInput> = fc.record(
     allowMagnesiumOnAluminium: fc.constant(true),
     nextDockingYears: pos(0.5, 10),
     environment: fc.record({ water: fc.constantFrom('seawater' as const, 'brackish' as const, 'fresh' as const, 'sediment' as const), temperatureC: pos(-2, 80) }),
+    // a capacity above the alloy's theoretical value (Faraday's law) is invalid input: clamped to it
     anode: fc.record(
       {
         alloy: fc.constantFrom('al-zn-in' as const, 'zinc' as const, 'magnesium' as const, 'magnesium-high-potential' as const),
@@ -53,7 +54,7 @@ const design: fc.Arbitrary<DesignInput> = fc.record(
         ratedOutputA: pos(0.05, 10),
       },
       { requiredKeys: ['alloy', 'capacityAhPerKg', 'potentialV', 'utilisationFactor', 'netMassKg', 'shape'] },
-    ),
+    ).map((a) => ({ ...a, capacityAhPerKg: Math.min(a.capacityAhPerKg, theoreticalCapacityAhPerKg(a.alloy)) })),
   },
   { requiredKeys: ['designLifeYears', 'resistivityOhmM', 'protectedMetal', 'surfaces', 'allowMagnesiumOnAluminium', 'anode'] },
 );

@@ -44,6 +44,11 @@ const cases: Array<[string, (d: any) => void, string]> = [
   ['gross below net', (d) => (d.anode.grossMassKg = 100), 'anode.grossMassKg'],
   ['capacity NaN', (d) => (d.anode.capacityAhPerKg = Number.NaN), 'anode.capacityAhPerKg'],
   ['anode potential infinite', (d) => (d.anode.potentialV = Number.NEGATIVE_INFINITY), 'anode.potentialV'],
+  ['capacity above aluminium by Faraday', (d) => (d.anode.capacityAhPerKg = 3000), 'anode.capacityAhPerKg'], // Al 2980 Ah/kg, computed from Faraday's law
+  ['zinc capacity of aluminium', (d) => (d.anode = { ...d.anode, alloy: 'zinc', potentialV: -1.03, capacityAhPerKg: 2000 }), 'anode.capacityAhPerKg'], // Zn 820 Ah/kg, computed from Faraday's law
+  ['anode potential in mV', (d) => (d.anode.potentialV = -1050), 'anode.potentialV'],
+  ['anode potential without its sign', (d) => (d.anode.potentialV = 1.05), 'anode.potentialV'],
+  ['anode potential beyond magnesium', (d) => (d.anode.potentialV = -1.85), 'anode.potentialV'],
   ['anode not more active', (d) => (d.anode.potentialV = -0.75), 'anode.potentialV'],
   ['anode equal to the protective potential', (d) => (d.anode.potentialV = -0.8), 'anode.potentialV'],
   ['protective potential NaN', (d) => (d.protectivePotentialV = Number.NaN), 'protectivePotentialV'],

@@ -57,6 +57,16 @@ describe('warnings', () => {
     ['protective-potential-less-negative-than-criterion', (d) => (d.environment.anaerobic = true), (d) => { d.environment.anaerobic = true; d.protectivePotentialV = -0.9; }], // -0.90 V anaerobic, published
     ['utilisation-above-table', (d) => (d.anode.utilisationFactor = 0.95), (d) => (d.anode.utilisationFactor = 0.9)], // 0.90 long slender, DNV-RP-B401 (2010) Table 10-8
     ['standoff-treated-as-flush', (d) => (d.anode.shape.standoffM = 0.1), (d) => (d.anode.shape.standoffM = 0.2)],
+    // seawater 0.13-0.42 ohm m over 30-42 PSU and -2 to 35 C, computed from the scale (PSS-78); 25 ohm cm = 0.25 ohm m
+    ['resistivity-high-for-seawater', (d) => (d.resistivityOhmM = 25), (d) => (d.resistivityOhmM = 0.35)],
+    ['resistivity-high-for-seawater', (d) => (d.resistivityOhmM = 1.2), (d) => { d.resistivityOhmM = 1.2; d.environment.water = 'brackish'; }],
+    ['resistivity-low-for-seawater', (d) => (d.resistivityOhmM = 0.05), (d) => (d.resistivityOhmM = 0.15)],
+    // fresh water 10-100+ ohm m, common practice; no check without a stated water type
+    ['resistivity-low-for-fresh-water', (d) => { magnesium(d); d.environment.water = 'fresh'; d.resistivityOhmM = 2; }, (d) => { magnesium(d); d.environment.water = 'fresh'; d.resistivityOhmM = 20; }],
+    ['resistivity-low-for-fresh-water', (d) => { magnesium(d); d.environment.water = 'fresh'; }, (d) => { magnesium(d); delete d.environment; }],
+    // bare steel at most 0.25 A/m2 (DNV-RP-B401 (2010) Tables 10-1/10-2, from memory); propeller 0.5 A/m2 (published, design basis)
+    ['current-density-looks-like-ma-per-m2', (d) => (d.surfaces[0].currentDensity = { initial: 200, mean: 100, final: 130 }), (d) => (d.surfaces[0].currentDensity = { initial: 0.5, mean: 0.5, final: 0.5 })],
+    ['current-density-looks-like-ma-per-m2', (d) => (d.surfaces[1].currentDensity.final = 1.3), (d) => (d.surfaces[1].currentDensity.final = 1.0)],
     [
       'long-flush-outside-validity',
       (d) => { d.anode.shape = { kind: 'long-flush', lengthM: 0.6, widthM: 0.2 }; d.anode.utilisationFactor = 0.8; },
