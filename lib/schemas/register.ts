@@ -32,7 +32,7 @@ export const anodeGroupSchema = z.object({
 });
 
 export const removeGroupSchema = z.object({
-  removedOn: dateOnlyField('removal date'),
+  removedOn: pastDateOnlyField('removal date'),
   reason: z.string().trim().min(1, 'Say why the group was removed.').max(200),
 });
 

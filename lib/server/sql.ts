@@ -5,3 +5,14 @@ export const ilikePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${
 export function toPage<R, T>(countRows: { total: string | number }[], query: { page: number; pageSize: number }, rows: R[], map: (row: R) => T) {
   return { total: Number(countRows[0]?.total ?? 0), page: query.page, pageSize: query.pageSize, rows: rows.map(map) };
 }
+
+/**
+ * Runs queries one after another and returns their results as a tuple. Inside a unit of work every
+ * query goes through the transaction's one connection, which takes one query at a time: Promise.all
+ * would only queue them (and pg deprecates that).
+ */
+export async function inSequence<T extends readonly (() => Promise<unknown>)[]>(...steps: T): Promise<{ -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> }> {
+  const results: unknown[] = [];
+  for (const step of steps) results.push(await step());
+  return results as { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
+}

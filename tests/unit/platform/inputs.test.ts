@@ -34,6 +34,13 @@ describe('small safety helpers', () => {
   it('only allows same-site return paths', () => {
     expect(safeNextPath('/o/acme/team')).toBe('/o/acme/team');
     expect(safeNextPath('//evil.example/x')).toBe('/orgs');
+    // Browsers drop tabs and newlines from URLs: each of these would leave the site (common practice, WHATWG URL parsing).
+    for (const hostile of ['/\t/evil.example/steal', '/\n/evil.example', '/\r\n/evil.example', '/\\evil.example', '/%09/evil.example'.replace('%09', '\t'), 'https://evil.example', '/\u0000x', ' /orgs']) {
+      expect(safeNextPath(hostile), JSON.stringify(hostile)).toBe('/orgs');
+    }
+    // Encoded characters stay encoded in the path: they never become a second slash.
+    expect(safeNextPath('/%2F%2Fevil.example')).toBe('/%2F%2Fevil.example');
+    expect(safeNextPath('/o/acme/dockings?view=list#d1')).toBe('/o/acme/dockings?view=list#d1');
     expect(safeNextPath('https://evil.example')).toBe('/orgs');
     expect(safeNextPath('/\\evil.example')).toBe('/orgs');
     expect(safeNextPath(undefined)).toBe('/orgs');

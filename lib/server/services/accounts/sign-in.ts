@@ -6,6 +6,7 @@ import { AppError } from '../../errors';
 import { burnVerifyTime, verifyPassword } from '../../auth/password';
 import { auditEvent } from '../../audit';
 import { getEm } from '../../db';
+import { inSequence } from '../../sql';
 
 export const SIGN_IN_WINDOW_MINUTES = 15;
 export const MAX_FAILURES_PER_ACCOUNT = 5;
@@ -25,10 +26,10 @@ async function recordRefusal(write: (em: EntityManager) => unknown) {
 export async function signIn({ em, input, ip }: { em: EntityManager; input: unknown; ip: string }) {
   const { email, password } = signInSchema.parse(input);
   const since = subMinutes(new Date(), SIGN_IN_WINDOW_MINUTES);
-  const [accountFailures, addressFailures] = await Promise.all([
-    em.count(SignInAttemptSchema, { email, succeeded: false, createdAt: { $gte: since } }),
-    em.count(SignInAttemptSchema, { ipAddress: ip, succeeded: false, createdAt: { $gte: since } }),
-  ]);
+  const [accountFailures, addressFailures] = await inSequence(
+    () => em.count(SignInAttemptSchema, { email, succeeded: false, createdAt: { $gte: since } }),
+    () => em.count(SignInAttemptSchema, { ipAddress: ip, succeeded: false, createdAt: { $gte: since } }),
+  );
   if (accountFailures >= MAX_FAILURES_PER_ACCOUNT || addressFailures >= MAX_FAILURES_PER_ADDRESS) {
     await recordRefusal((own) => auditEvent(own, { action: 'user.sign-in-locked', actor: { id: null, email }, details: { email, byAccount: accountFailures >= MAX_FAILURES_PER_ACCOUNT }, ipAddress: ip }));
     throw new AppError('rate-limited', `Too many failed sign-ins. Wait ${SIGN_IN_WINDOW_MINUTES} minutes and try again, or reset your password.`);

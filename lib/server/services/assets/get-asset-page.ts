@@ -4,6 +4,7 @@ import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';
 import { loadGroupForecasts } from '../forecast/group-forecasts';
+import { inSequence } from '../../sql';
 
 export interface DepletionSeries {
   label: string;
@@ -22,14 +23,14 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   requirePermission(ctx, 'org:read');
   const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, forecasts, catalogue, dockings] = await Promise.all([
-    ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
-    ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results'] }),
-    ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
-    loadGroupForecasts(ctx, { assetIds: [asset.id] }),
-    canWrite ? listCatalogue(ctx) : Promise.resolve([]),
-    ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
-  ]);
+  const [zones, designs, surveys, forecasts, catalogue, dockings] = await inSequence(
+    () => ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
+    () => ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results', 'anodeModel'] }),
+    () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
+    () => loadGroupForecasts(ctx, { assetIds: [asset.id] }),
+    () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
+    () => ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
+  );
   const changes = forecasts.length
     ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
     : [];

@@ -1,6 +1,6 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { ilikePattern, toPage } from '../../sql';
+import { ilikePattern, toPage, inSequence } from '../../sql';
 
 const SORTS: Record<string, string> = {
   name: 'a.name',
@@ -43,9 +43,9 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
   const where = clauses.join(' and ');
   const order = `${SORTS[query.sort ?? ''] ?? 'a.name'} ${query.dir === 'desc' ? 'desc' : 'asc'} nulls last, a.name asc, a.id asc`;
   const conn = ctx.em;
-  const [countRows, rows] = await Promise.all([
-    conn.execute<{ total: string }[]>(`select count(*) as total from asset a where ${where}`, params),
-    conn.execute<Record<string, unknown>[]>(
+  const [countRows, rows] = await inSequence(
+    () => conn.execute<{ total: string }[]>(`select count(*) as total from asset a where ${where}`, params),
+    () => conn.execute<Record<string, unknown>[]>(
       `select a.id, a.name, a.kind, coalesce(a.vessel_type, a.structure_type) as type, a.hull_material, a.has_impressed_current, a.archived_at,
               (select count(*) from zone z where z.asset_id = a.id and z.archived_at is null) as zones,
               coalesce(g.groups, 0) as groups, coalesce(g.anodes, 0) as anodes, coalesce(g.net_mass, 0) as net_mass,
@@ -64,7 +64,7 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
         limit ? offset ?`,
       [...params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
-  ]);
+  );
   return toPage(countRows, query, rows, (r): AssetRow => ({
         id: r.id as string,
         name: r.name as string,

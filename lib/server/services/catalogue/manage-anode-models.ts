@@ -1,5 +1,6 @@
 import { AnodeModelSchema } from '@/entities';
 import { anodeResistanceOhm, type AnodeShape } from '@/lib/cp';
+import { CpInputError } from '@/lib/cp/errors';
 import { anodeModelSchema } from '@/lib/schemas/register';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
@@ -30,8 +31,13 @@ export async function createAnodeModel(ctx: OrgContext, input: unknown) {
   const d = anodeModelSchema.parse(input);
   if (d.grossMassKg < d.netMassKg) throw new AppError('invalid', 'The gross mass includes the core and cannot be less than the net mass.', { grossMassKg: ['The gross mass cannot be less than the net mass.'] });
   const shape = shapeFromForm(d);
-  // Reject shapes the resistance formulas cannot take, with lib/cp's own message.
-  anodeResistanceOhm({ shape, resistivityOhmM: 0.25 });
+  // Reject shapes the resistance formulas cannot take, with lib/cp's own message, named by the form's field.
+  try {
+    anodeResistanceOhm({ shape, resistivityOhmM: 0.25 });
+  } catch (error) {
+    if (error instanceof CpInputError) throw new CpInputError(error.field.replace(/^shape\./, ''), error.message);
+    throw error;
+  }
   if (await ctx.em.count(AnodeModelSchema, { organisation: ctx.organisation, designation: d.designation })) {
     throw new AppError('conflict', 'A model with that designation exists.', { designation: ['Your catalogue already has a model with that designation.'] });
   }

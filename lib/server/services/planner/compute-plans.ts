@@ -4,6 +4,7 @@ import { classifyPotential } from '@/lib/surveys/criteria';
 import { protectedMetalOf } from '@/lib/register/protected-metal';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
+import { inSequence } from '../../sql';
 
 export interface AssetPlan {
   asset: Asset;
@@ -28,16 +29,16 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
   const assets = await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) }, { orderBy: { name: 'asc' } });
   if (!assets.length) return [];
   const ids = assets.map((a) => a.id);
-  const [forecasts, dockings, booked, latest] = await Promise.all([
-    loadGroupForecasts(ctx, { assetIds: ids }),
-    ctx.em.find(DockingSchema, { asset: { $in: ids }, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
-    ctx.em.find(RenewalSchema, { organisation: ctx.organisation, status: { $in: ['confirmed', 'ordered'] }, group: { asset: { $in: ids } } }, { populate: ['docking'] }),
-    ctx.em.execute<{ asset_id: string; least_negative: number | null }[]>(
+  const [forecasts, dockings, booked, latest] = await inSequence(
+    () => loadGroupForecasts(ctx, { assetIds: ids }),
+    () => ctx.em.find(DockingSchema, { asset: { $in: ids }, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
+    () => ctx.em.find(RenewalSchema, { organisation: ctx.organisation, status: { $in: ['confirmed', 'ordered'] }, group: { asset: { $in: ids } } }, { populate: ['docking'] }),
+    () => ctx.em.execute<{ asset_id: string; least_negative: number | null }[]>(
       `select distinct on (s.asset_id) s.asset_id, (select max(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as least_negative
          from survey s where s.organisation_id = ? and s.asset_id = any(?::uuid[]) order by s.asset_id, s.surveyed_on desc, s.created_at desc`,
       [ctx.organisation.id, `{${ids.join(',')}}`],
     ),
-  ]);
+  );
   const leastNegative = new Map(latest.map((r) => [r.asset_id, r.least_negative === null ? null : Number(r.least_negative)]));
   const bookedByGroup = new Map(booked.map((r) => [r.group.id, r]));
   return assets.map((asset) => {

@@ -2,6 +2,7 @@ import { RenewalSchema } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { classifyRemaining } from '@/lib/surveys/criteria';
 import { computePlans } from './compute-plans';
+import { inSequence } from '../../sql';
 
 /**
  * Brings the scheduler's proposals up to date for some assets: a group gets a 'proposed' renewal at
@@ -16,7 +17,7 @@ export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], to
   const plans = await computePlans(ctx, { assetIds, today });
   const groupIds = plans.flatMap((p) => p.groups.map((g) => g.group.id));
   const [proposed, cancelled] = groupIds.length
-    ? await Promise.all([ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'proposed' }), ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'cancelled' }, { fields: ['group', 'docking'] })])
+    ? await inSequence(() => ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'proposed' }), () => ctx.em.find(RenewalSchema, { group: { $in: groupIds }, status: 'cancelled' }, { fields: ['group', 'docking'] }))
     : [[], []];
   // A planner who cancelled a proposal at a docking has decided: it is not proposed there again.
   const rejected = new Set(cancelled.map((r) => `${r.group.id}:${r.docking.id}`));

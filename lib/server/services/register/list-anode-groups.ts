@@ -2,7 +2,7 @@ import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { writeCsv } from '@/lib/csv/write-csv';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { ilikePattern, toPage } from '../../sql';
+import { ilikePattern, toPage, inSequence } from '../../sql';
 
 // Sort keys the client may ask for, mapped to SQL; never interpolate anything else.
 const SORTS: Record<string, string> = {
@@ -58,9 +58,9 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
   const byRemaining = query.sort === 'remaining';
   const order = `${SORTS[query.sort ?? ''] ?? 'a.name'} ${query.dir === 'desc' ? 'desc' : 'asc'} nulls last, g.label asc, g.id asc`;
   const conn = ctx.em;
-  const [countRows, rows] = await Promise.all([
-    conn.execute<{ total: string }[]>(`select count(*) as total from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql}`, where.params),
-    conn.execute<Record<string, unknown>[]>(
+  const [countRows, rows] = await inSequence(
+    () => conn.execute<{ total: string }[]>(`select count(*) as total from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql}`, where.params),
+    () => conn.execute<Record<string, unknown>[]>(
       // The page is chosen first and the latest survey looked up for its rows only, unless the
       // remaining fraction itself is the sort key; so the cost follows the page, not the register.
       `${byRemaining ? '' : `with page as (select g.id from anode_group g join asset a on a.id = g.asset_id left join zone z on z.id = g.zone_id where ${where.sql} order by ${order} limit ? offset ?)`}
@@ -79,7 +79,7 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
         ${byRemaining ? 'limit ? offset ?' : ''}`,
       [...where.params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
-  ]);
+  );
   return toPage(countRows, query, rows, (r): AnodeGroupRow => ({
         id: r.id as string,
         assetId: r.asset_id as string,

@@ -5,15 +5,15 @@ import { protectedMetalOf } from '@/lib/register/protected-metal';
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
-import { ilikePattern, toPage } from '../../sql';
+import { ilikePattern, toPage, inSequence } from '../../sql';
 
 /** A survey with its readings judged against the asset's criteria, and its attachments (without their bytes). */
 export async function getSurveyDetails(ctx: OrgContext, surveyId: string) {
   const survey = await getSurveyOrThrow(ctx, surveyId);
-  const [readings, attachments] = await Promise.all([
-    ctx.em.find(SurveyReadingSchema, { survey }, { populate: ['anodeGroup'], orderBy: { line: 'asc', location: 'asc' } }),
-    ctx.em.find(SurveyAttachmentSchema, { survey }, { orderBy: { createdAt: 'asc' } }),
-  ]);
+  const [readings, attachments] = await inSequence(
+    () => ctx.em.find(SurveyReadingSchema, { survey }, { populate: ['anodeGroup'], orderBy: { line: 'asc', location: 'asc' } }),
+    () => ctx.em.find(SurveyAttachmentSchema, { survey }, { orderBy: { createdAt: 'asc' } }),
+  );
   const metal = protectedMetalOf(survey.asset);
   const rows = readings.map((r) => {
     const potential = r.potentialAgAgClV === null || r.potentialAgAgClV === undefined ? null : classifyPotential({ potentialAgAgClV: r.potentialAgAgClV, protectedMetal: metal });
@@ -73,9 +73,9 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
   const order = query.sort && sorts[query.sort] ? `${sorts[query.sort]} ${query.dir}` : 's.surveyed_on desc';
   const where = clauses.join(' and ');
   const conn = ctx.em;
-  const [countRows, rows] = await Promise.all([
-    conn.execute<{ total: string }[]>(`select count(*) as total from survey s join asset a on a.id = s.asset_id where ${where}`, params),
-    conn.execute<Record<string, unknown>[]>(
+  const [countRows, rows] = await inSequence(
+    () => conn.execute<{ total: string }[]>(`select count(*) as total from survey s join asset a on a.id = s.asset_id where ${where}`, params),
+    () => conn.execute<Record<string, unknown>[]>(
       `select s.id, s.asset_id, a.name as asset_name, a.kind, a.hull_material, to_char(s.surveyed_on, 'YYYY-MM-DD') as surveyed_on, s.method, s.surveyor,
               count(r.id) as readings, max(r.potential_ag_ag_cl_v) as least_negative,
               count(*) filter (where r.potential_ag_ag_cl_v > case when a.kind = 'vessel' and a.hull_material = 'aluminium' then ?::float8 else ?::float8 end) as under
@@ -87,7 +87,7 @@ export async function listSurveys(ctx: OrgContext, query: ListQuery) {
       // Criteria from lib/cp (aluminium hull, steel), passed in so SQL never restates them.
       [protectionCriterionV({ protectedMetal: 'aluminium' }), protectionCriterionV({ protectedMetal: 'steel' }), ...params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
-  ]);
+  );
   return toPage(countRows, query, rows, (r): SurveyListRow => ({
         id: r.id as string,
         assetId: r.asset_id as string,
