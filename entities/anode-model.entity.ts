@@ -20,6 +20,8 @@ export const AnodeModelSchema = defineEntity({
     netMassKg: double(),
     grossMassKg: double(),
     ratedOutputA: double().nullable(),
+    /** Resistivity, ohm m, the data-sheet output was stated at; the design scales the output to the job's. */
+    ratedAtResistivityOhmM: double().nullable(),
     unitPrice: double().nullable(),
     notes: p.text().nullable(),
     archivedAt: p.datetime().nullable(),

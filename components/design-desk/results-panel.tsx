@@ -27,10 +27,10 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
           <section aria-label="Anode count">
             <div className="flex items-baseline gap-3">
               <p className="text-3xl font-semibold text-tide-700" data-testid="anode-count">
-                {result.anodeCount}
+                {result.anodesToFit}
               </p>
               <p className="text-sm text-ink-soft">
-                anodes of {computed.model?.designation ?? 'a model not recorded with this revision'}; governed by <strong className="text-ink">{CRITERION_LABELS[result.governingCriterion]}</strong>
+                anodes of {computed.model?.designation ?? 'a model not recorded with this revision'} to fit; at least {result.anodeCount} by <strong className="text-ink">{CRITERION_LABELS[result.governingCriterion]}</strong>, which governs
               </p>
             </div>
             <table className="mt-2 w-full text-sm" aria-label="Count by criterion">
@@ -38,7 +38,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 <tr className="border-b border-rule">
                   <th className="py-1 text-left font-medium">Criterion</th>
                   <th className="py-1 text-right font-medium">Exact</th>
-                  <th className="py-1 text-right font-medium">Count</th>
+                  <th className="py-1 text-right font-medium">Minimum</th>
                   <th className="py-1 text-right font-medium"></th>
                 </tr>
               </thead>
@@ -115,10 +115,13 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 </tr>
               </tbody>
             </table>
-            {result.distribution.distributedCount > result.anodeCount ? (
+            {result.anodesToFit > result.anodeCount ? (
               <p className="mt-1 text-xs text-ink-soft">
-                Distributing {result.anodeCount} anodes in proportion to each zone&apos;s {result.distribution.basis} demand and rounding up per zone gives {result.distribution.distributedCount} to fit.
+                Sharing the minimum of {result.anodeCount} in proportion to each zone&apos;s {result.distribution.basis} demand and rounding up per zone gives {result.anodesToFit} to fit.
               </p>
+            ) : null}
+            {result.distribution.surfaces.some((s) => s.anodesAllowed === false) ? (
+              <p className="mt-1 text-xs text-ink-soft">No anodes go in the mud: its demand is carried by the anodes in the water.</p>
             ) : null}
           </section>
 

@@ -115,7 +115,7 @@ export function CalculationNote({ data }: { data: CalculationNoteData }) {
         {result ? (
           <View>
             <Text style={{ fontSize: 11, fontWeight: 700, marginBottom: 4 }}>
-              {result.anodeCount} anodes of {designation}; governing criterion: {CRITERION_LABELS[result.governingCriterion]}
+              {result.anodesToFit} anodes of {designation} to fit (at least {result.anodeCount} by the governing criterion: {CRITERION_LABELS[result.governingCriterion]})
             </Text>
             <PdfTable
               columns={[{ label: 'Criterion', width: 50 }, { label: 'Exact', width: 25, align: 'right' }, { label: 'Count', width: 25, align: 'right' }]}

@@ -49,6 +49,7 @@ export function AnodeModelForm({ org }: { org: string }) {
       <Field label="Net mass" {...f('netMassKg')} type="number" step="any" unit="kg" />
       <Field label="Gross mass" {...f('grossMassKg')} type="number" step="any" unit="kg" />
       <Field label="Rated output (optional)" {...f('ratedOutputA')} type="number" step="any" unit="A" />
+      <Field label="Rated at resistivity (optional)" {...f('ratedAtResistivityOhmM')} type="number" step="any" unit="Ω·m" hint="The data sheet's water; the output is scaled to the job's resistivity" />
       <Field label="Unit price (optional)" {...f('unitPrice')} type="number" step="any" />
       <div className="col-span-2">
         <Button type="submit" disabled={form.pending}>

@@ -27,5 +27,6 @@ export function anodeFromModel(model: AnodeModel, water?: WaterType, field = 'mo
     grossMassKg: model.grossMassKg,
     shape,
     ratedOutputA: model.ratedOutputA,
+    ratedAtResistivityOhmM: model.ratedAtResistivityOhmM,
   };
 }

@@ -24,6 +24,8 @@ export interface AnodeModel {
   /** Net mass plus the steel core, strap or insert, kg. */
   grossMassKg: number;
   ratedOutputA?: number;
+  /** Resistivity, ohm m, the data-sheet output was stated for. */
+  ratedAtResistivityOhmM?: number;
   /** Price of one anode in the organisation's currency; absent in the built-in catalogue. */
   unitPrice?: number;
   /** Data-sheet overrides of the alloy table. */

@@ -38,6 +38,8 @@ export interface PerAnodeResult {
   finalShape: AnodeShape;
   /** True when the data-sheet output replaced the computed outputs. */
   ratedOutputUsed: boolean;
+  /** How a data-sheet output was used: scaled to the job's resistivity (Ohm's law), or as given (no resistivity stated). */
+  ratedOutputScaling?: 'scaled' | 'unscaled';
   /** How the initial shape was treated (near-flush slender, short-flush fallback, or as given). */
   initialTreatment: ResistanceTreatment;
 }
@@ -52,9 +54,15 @@ export interface DesignResult {
   /** Counts before rounding up. */
   exactCountBy: { mass: number; initialCurrent: number; finalCurrent: number };
   countBy: { mass: number; initialCurrent: number; finalCurrent: number };
+  /** The largest count of the three criteria: the minimum the design needs. */
   anodeCount: number;
+  /**
+   * The one number to fit: the count after sharing over the surfaces, each share rounded up (never
+   * below anodeCount). The headline, the calculation note, the register and the anode list use it.
+   */
+  anodesToFit: number;
   governingCriterion: GoverningCriterion;
-  /** The count the life and mass figures refer to: installedCount when given, else anodeCount. */
+  /** The count the life and mass figures refer to: installedCount when given, else anodesToFit. */
   installedCount: number;
   installedNetMassKg: number;
   installedGrossMassKg: number | null;
@@ -107,11 +115,29 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
   const countBy = { mass: ceilCount(exactCountBy.mass), initialCurrent: ceilCount(exactCountBy.initialCurrent), finalCurrent: ceilCount(exactCountBy.finalCurrent) };
   const { anodeCount, governingCriterion } = governing(countBy);
 
-  const installedCount = job.installedCount ?? anodeCount;
+  const distBasis: 'initial' | 'mean' | 'final' = governingCriterion === 'mass' ? 'mean' : governingCriterion === 'initial-current' ? 'initial' : 'final';
+  const demandKey = `${distBasis}A` as const;
+  // No anode sits in the mud: the demand there is met by the anodes in the water, shared over the
+  // surfaces that take anodes in proportion to their own demand (common practice).
+  const placeable = surfaces.filter((s, i) => job.surfaces[i].anodesAllowed !== false);
+  if (!placeable.length) throw new CpInputError('surfaces', 'Every surface is marked as taking no anodes (mud or sediment): add the surface in the water where the anodes are fitted.');
+  const placeableDemand = placeable.reduce((acc, s) => acc + s[demandKey], 0);
+  const shared = shareOut(anodeCount, placeable.map((s) => ({ name: s.name, demandA: s[demandKey] })), placeableDemand);
+  const distribution = {
+    basis: distBasis,
+    designCount: shared.designCount,
+    distributedCount: shared.distributedCount,
+    surfaces: surfaces.map((s, i) =>
+      job.surfaces[i].anodesAllowed === false
+        ? { name: s.name, demandA: s[demandKey], share: 0, exactCount: 0, count: 0, anodesAllowed: false }
+        : shared.surfaces.find((row) => row.name === s.name) ?? { name: s.name, demandA: s[demandKey], share: 0, exactCount: 0, count: 0 },
+    ),
+  };
+  const anodesToFit = Math.max(anodeCount, shared.distributedCount);
+
+  const installedCount = job.installedCount ?? anodesToFit;
   const installedNetMassKg = installedCount * anode.netMassKg;
   const achievedLifeYears = (installedNetMassKg * u * anode.capacityAhPerKg) / (current.meanA * HOURS_PER_YEAR); // DNV-RP-B401 (2010) sec. 7, mass equation solved for tf
-  const distBasis = governingCriterion === 'mass' ? 'mean' : governingCriterion === 'initial-current' ? 'initial' : 'final';
-  const demandKey = `${distBasis}A` as const;
 
   const result: DesignResult = {
     current,
@@ -123,16 +149,14 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
     exactCountBy,
     countBy,
     anodeCount,
+    anodesToFit,
     governingCriterion,
     installedCount,
     installedNetMassKg,
     installedGrossMassKg: anode.grossMassKg === undefined ? null : installedCount * anode.grossMassKg,
     achievedLifeYears,
-    distribution: {
-      basis: distBasis,
-      ...shareOut(anodeCount, surfaces.map((s) => ({ name: s.name, demandA: s[demandKey] })), current[demandKey]),
-    },
-    warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, resistanceTreatment: perAnode.initialTreatment }),
+    distribution,
+    warnings: collectWarnings({ job, anode, achievedLifeYears, requiredCount: anodeCount, installedCount, resistanceTreatment: perAnode.initialTreatment, ratedOutputScaling: perAnode.ratedOutputScaling }),
     basis: basisOf(job, anode, perAnode),
   };
   return firstNonFinite(result) === null ? result : assertFiniteResult(result, overflowField(result));
@@ -147,18 +171,34 @@ function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAn
   // into another formula family (e.g. long flush -> McCoy) the families disagree at their
   // boundary, so the final resistance is never taken below the initial (conservative).
   const finalOhm = Math.max(final.ohm, initial.ohm);
-  const rated = anode.ratedOutputA;
+  const rated = ratedOutputs(anode, job.resistivityOhmM, initial.ohm, finalOhm);
   return {
     initialResistanceOhm: initial.ohm,
     finalResistanceOhm: finalOhm,
-    initialOutputA: rated ?? driving / initial.ohm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
-    finalOutputA: rated ?? driving / finalOhm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
+    initialOutputA: rated?.initialA ?? driving / initial.ohm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
+    finalOutputA: rated?.finalA ?? driving / finalOhm, // DNV-RP-B401 (2010) sec. 7, Ia = (Ec - Ea)/Ra
     initialFormula: initial.formula,
     finalFormula: final.formula,
     finalShape,
-    ratedOutputUsed: rated !== undefined,
+    ratedOutputUsed: rated !== null,
+    ...(rated ? { ratedOutputScaling: rated.scaling } : {}),
     initialTreatment: initial.treatment,
   };
+}
+
+/**
+ * A data-sheet output holds for the resistivity it was stated at: at the same driving voltage the
+ * output is inversely proportional to the resistance, and the resistance to the resistivity (Ohm's
+ * law), so it scales by rated resistivity / job resistivity; the final output also by the ratio of
+ * the new to the consumed anode's resistance. Without a stated resistivity it is used as given (and
+ * the design warns).
+ */
+function ratedOutputs(anode: DesignAnode, resistivityOhmM: number, initialOhm: number, finalOhm: number) {
+  const rated = anode.ratedOutputA;
+  if (rated === undefined) return null;
+  if (anode.ratedAtResistivityOhmM === undefined) return { initialA: rated, finalA: rated, scaling: 'unscaled' as const };
+  const initialA = (rated * anode.ratedAtResistivityOhmM) / resistivityOhmM;
+  return { initialA, finalA: (initialA * initialOhm) / finalOhm, scaling: 'scaled' as const };
 }
 
 function totalOf(rows: readonly CurrentsA[]): CurrentsA {

@@ -14,6 +14,9 @@ export const ALUMINIUM_PASSIVATION_CHLORIDE_PPM = 1450;
 /** Where the water type is not stated, a resistivity below this is taken as seawater, ohm m (seawater 0.15-0.30). */
 export const SEAWATER_RESISTIVITY_CEILING_OHM_M = 0.5;
 
+/** Al-Zn-In capacity is derated above this water temperature, C (DNV-RP-B401, from memory). */
+export const AL_ZN_IN_DERATING_ABOVE_C = 25;
+
 /** Float slack for "less than" comparisons of lives and potentials. */
 const SLACK = 1e-9;
 
@@ -37,6 +40,7 @@ export interface WarningContext {
   requiredCount: number;
   installedCount: number;
   resistanceTreatment: ResistanceTreatment;
+  ratedOutputScaling?: 'scaled' | 'unscaled';
 }
 
 type Check = (c: WarningContext) => CpWarning | null;
@@ -112,6 +116,29 @@ const CHECKS: readonly Check[] = [
     c.resistanceTreatment === 'short-flush-fallback'
       ? { code: 'long-flush-outside-validity', message: 'The plate is shorter than 4 x its width or thickness: the long-flush formula does not hold; McCoy on length x width is used.' }
       : null,
+  (c) =>
+    c.ratedOutputScaling === 'unscaled'
+      ? { code: 'rated-output-unscaled', message: `The data-sheet output ${c.anode.ratedOutputA} A is used unscaled: the data sheet's resistivity is not given, so it cannot be scaled to the ${c.job.resistivityOhmM} Ω·m of this job. Enter the resistivity it was stated at, or leave the output blank to compute it.` }
+      : null,
+  // Interlocks: choices that are allowed but dangerous for the asset.
+  (c) =>
+    isMagnesium(c.anode.alloy) && c.job.surfaces.some((s) => s.coating !== 'bare') && (c.job.protectedMetal === 'steel' || c.job.protectedMetal === 'high-strength-steel')
+      ? { code: 'magnesium-on-coated-steel', message: 'Magnesium on coated steel drives the potential beyond -1.05 V: the coating disbonds (cathodic disbondment) and blisters. Use zinc or aluminium on coated steel in sea or brackish water.' }
+      : null,
+  (c) =>
+    isMagnesium(c.anode.alloy) && c.job.environment?.water === 'brackish'
+      ? { code: 'magnesium-in-brackish-water', message: 'Magnesium in brackish water over-protects the steel and is consumed fast; zinc or aluminium suit brackish water better where the chloride allows.' }
+      : null,
+  (c) =>
+    c.anode.alloy === 'zinc' && c.job.environment?.temperatureC === undefined
+      ? { code: 'zinc-temperature-unknown', message: `Zinc anodes lose capacity and may reverse polarity above about ${ALLOYS.zinc.temperatureLimitC ?? 50} C; no water temperature is given. Enter it (cooling-water outlets and tropical harbours can be warm).` }
+      : null,
+  (c) => {
+    const t = c.job.environment?.temperatureC;
+    return c.anode.alloy === 'al-zn-in' && t !== undefined && t > AL_ZN_IN_DERATING_ABOVE_C
+      ? { code: 'al-zn-in-warm-water', message: `Al-Zn-In capacity falls in warm water (${t} C; derating above about ${AL_ZN_IN_DERATING_ABOVE_C} C, from memory): take the capacity from the supplier's data for this temperature.` }
+      : null;
+  },
   // Figures that do not fit the water or look like a unit slip (lib/cp/plausibility.ts).
   (c) => (c.job.environment ? resistivityWarning(c.job.environment.water, c.job.resistivityOhmM) : null),
   (c) => currentDensityWarning(c.job.surfaces),

@@ -2,6 +2,7 @@ import { validateShape } from './anode-shape';
 import { validateSurfaceDemand } from './current-demand';
 import { CpInputError } from './errors';
 import { plausibleAnodePotential, plausibleCapacity } from './plausibility';
+import { protectionCriterionV } from './design-checks';
 import type {
   AnodeAlloy,
   AnodeShape,
@@ -31,6 +32,11 @@ export interface DesignSurface {
   coating: Coating;
   /** Marks a bare non-steel item (bronze propeller, stainless shaft) that drains current. */
   drainsCurrent?: CurrentDrain;
+  /**
+   * False where no anode is placed (steel in the mud or sediment): its demand is met by the anodes in
+   * the water, which are shared over the other surfaces (common practice for piles and sheet piling).
+   */
+  anodesAllowed?: boolean;
 }
 
 export interface DesignAnode {
@@ -46,6 +52,8 @@ export interface DesignAnode {
   shape: AnodeShape;
   /** Data-sheet output, A; replaces the computed initial and final outputs. */
   ratedOutputA?: number;
+  /** Resistivity, ohm m, at which the data-sheet output was stated; the output is scaled to the job's. */
+  ratedAtResistivityOhmM?: number;
   /** Alloy density, kg/m3, for end-of-life dimensions; defaults to the alloy table. */
   densityKgM3?: number;
 }
@@ -87,7 +95,8 @@ export function validateJob(input: unknown): CheckedJob {
   const r = record(input, 'input');
   return {
     designLifeYears: positive(r.designLifeYears, 'designLifeYears', 'years'),
-    protectivePotentialV: optional(r.protectivePotentialV, (v) => finite(v, 'protectivePotentialV', 'V')) ?? DEFAULT_PROTECTIVE_POTENTIAL_V,
+    // Not given: the criterion that governs for the metal and the environment (anaerobic steel -0.90 V).
+    protectivePotentialV: optional(r.protectivePotentialV, (v) => finite(v, 'protectivePotentialV', 'V')) ?? protectionCriterionV({ protectedMetal: oneOf(r.protectedMetal, PROTECTED_METALS, 'protectedMetal'), environment: optional(r.environment, (v) => validateEnvironment(v)) }),
     resistivityOhmM: positive(r.resistivityOhmM, 'resistivityOhmM', 'ohm m'),
     protectedMetal: oneOf(r.protectedMetal, PROTECTED_METALS, 'protectedMetal'),
     surfaces: list(r.surfaces, 'surfaces').map((s, i) => validateSurface(s, `surfaces[${i}]`)),
@@ -105,6 +114,7 @@ function validateSurface(value: unknown, field: string): DesignSurface {
     name: text(r.name, `${field}.name`),
     ...validateSurfaceDemand(r, `${field}.`),
     drainsCurrent: optional(r.drainsCurrent, (v) => oneOf(v, DRAINS, `${field}.drainsCurrent`)),
+    anodesAllowed: optional(r.anodesAllowed, (v) => bool(v, `${field}.anodesAllowed`)),
   };
 }
 
@@ -137,6 +147,7 @@ export function validateAnode(value: unknown, field: string): DesignAnode {
     grossMassKg,
     shape: validateShape(r.shape, f('shape')),
     ratedOutputA: optional(r.ratedOutputA, (v) => positive(v, f('ratedOutputA'), 'A')),
+    ratedAtResistivityOhmM: optional(r.ratedAtResistivityOhmM, (v) => positive(v, f('ratedAtResistivityOhmM'), 'ohm m')),
     densityKgM3: optional(r.densityKgM3, (v) => positive(v, f('densityKgM3'), 'kg/m3')),
   };
 }

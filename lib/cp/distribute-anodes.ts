@@ -16,6 +16,8 @@ export interface DistributionRow {
   /** Share of the design count before rounding up. */
   exactCount: number;
   count: number;
+  /** False for a surface that takes no anodes (mud): its demand is met from the water. */
+  anodesAllowed?: boolean;
 }
 
 export interface Distribution {

@@ -70,6 +70,7 @@ export * from './tables/resistivity';
 export * from './tables/potential-limits';
 export * from './tables/harbour';
 export * from './tables/hull';
+export * from './tables/metallic-coatings';
 export * from './tables/reference-electrodes';
 
 export {

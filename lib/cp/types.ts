@@ -117,7 +117,12 @@ export type WarningCode =
   | 'resistivity-high-for-seawater'
   | 'resistivity-low-for-seawater'
   | 'resistivity-low-for-fresh-water'
-  | 'current-density-looks-like-ma-per-m2';
+  | 'current-density-looks-like-ma-per-m2'
+  | 'rated-output-unscaled'
+  | 'magnesium-on-coated-steel'
+  | 'magnesium-in-brackish-water'
+  | 'zinc-temperature-unknown'
+  | 'al-zn-in-warm-water';
 
 /** One line of the calculation basis: what was used and where it comes from. */
 export interface BasisEntry {

@@ -30,7 +30,24 @@ export const COATING_LABELS: Record<string, string> = {
   II: 'Cat. II (150–250 µm)',
   III: 'Cat. III (300 µm or more)',
   bare: 'Bare metal',
+  tsa: 'Thermally sprayed aluminium',
+  tsz: 'Thermally sprayed zinc',
+  hdg: 'Hot-dip galvanised',
+  'noble-plating': 'Noble plating (tin, nickel, chromium)',
 };
+export const DEMAND_METHOD_LABELS: Record<string, string> = {
+  'ship-hull': 'Ship-hull practice',
+  harbour: 'Harbour practice',
+  'offshore-table': 'Offshore-structure table (DNV-RP-B401)',
+};
+export const HULL_CONDITION_LABELS: Record<string, string> = {
+  new: 'New, intact (about 10 mA/m²)',
+  good: 'Good (about 15 mA/m²)',
+  fair: 'Fair (about 20 mA/m²)',
+  poor: 'Poor or old hull (about 30 mA/m²)',
+};
+export const RESISTIVITY_SOURCE_LABELS: Record<string, string> = { water: 'From the water (PSS-78)', measured: 'Measured' };
+export const POTENTIAL_SOURCE_LABELS: Record<string, string> = { criterion: 'Criterion for the metal', entered: 'Entered' };
 export const CRITERION_LABELS: Record<string, string> = {
   mass: 'Net anode mass',
   'initial-current': 'Initial current output',

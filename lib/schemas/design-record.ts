@@ -10,6 +10,10 @@ import {
   HULL_MATERIAL_VALUES,
   PROTECTED_METAL_VALUES,
   WATER_VALUES,
+  DEMAND_METHOD_VALUES,
+  HULL_CONDITION_VALUES,
+  RESISTIVITY_SOURCE_VALUES,
+  POTENTIAL_SOURCE_VALUES,
   ZONE_KIND_VALUES,
   type DeskInputs,
 } from './design';
@@ -19,9 +23,12 @@ import {
  * and basis columns, read and written together.
  * 1: the anode model snapshot lived inside inputs as `anodeModelSnapshot` (no schema_version column).
  * 2: the snapshot has its own column (Migration20261202003500_design_record).
+ * 3: inputs name the demand method, hull coating condition, service speed, salinity and where the
+ *    resistivity and protective potential come from; results carry the one count to fit
+ *    (Migration20261202011500_demand_method; earlier rows keep the offshore table they were sized with).
  * Bump it, with a migration for the rows, whenever a stored field changes shape or meaning.
  */
-export const DESIGN_SCHEMA_VERSION = 2;
+export const DESIGN_SCHEMA_VERSION = 3;
 
 // Stored values are checked for shape only, never against today's plausibility limits: a limit
 // tightened later must not make an approved revision unreadable.
@@ -57,6 +64,12 @@ export const storedInputsSchema = z.object({
   anaerobic: z.boolean(),
   nextDockingYears: num.nullable(),
   allowMagnesiumOnAluminium: z.boolean(),
+  demandMethod: z.enum(DEMAND_METHOD_VALUES),
+  hullCoatingCondition: z.enum(HULL_CONDITION_VALUES),
+  serviceSpeedKnots: num.nullable(),
+  salinityPsu: num.nullable(),
+  resistivitySource: z.enum(RESISTIVITY_SOURCE_VALUES),
+  potentialSource: z.enum(POTENTIAL_SOURCE_VALUES),
   anodeModelKey: z.string().min(1),
   surfaces: z.array(storedSurfaceSchema).min(1),
 });
@@ -80,6 +93,7 @@ export const anodeModelSnapshotSchema = z.object({
   netMassKg: num,
   grossMassKg: num,
   ratedOutputA: opt,
+  ratedAtResistivityOhmM: opt,
   unitPrice: opt,
   capacityAhPerKg: opt,
   potentialV: opt,
@@ -110,11 +124,13 @@ export const storedDesignResultSchema = z.object({
     finalFormula: formula,
     finalShape: anodeShapeSchema,
     ratedOutputUsed: z.boolean(),
+    ratedOutputScaling: z.enum(['scaled', 'unscaled']).optional(),
     initialTreatment: z.enum(['as-given', 'near-flush-slender', 'short-flush-fallback']),
   }),
   exactCountBy: counts,
   countBy: counts,
   anodeCount: z.number().int(),
+  anodesToFit: z.number().int(),
   governingCriterion: criterion,
   installedCount: z.number().int(),
   installedNetMassKg: num,
@@ -123,7 +139,7 @@ export const storedDesignResultSchema = z.object({
   distribution: z.object({
     designCount: z.number().int(),
     distributedCount: z.number().int(),
-    surfaces: z.array(z.object({ name: z.string(), demandA: num, share: num, exactCount: num, count: z.number().int() })),
+    surfaces: z.array(z.object({ name: z.string(), demandA: num, share: num, exactCount: num, count: z.number().int(), anodesAllowed: z.boolean().optional() })),
     basis: z.enum(['initial', 'mean', 'final']),
   }),
   warnings: z.array(messageSchema),

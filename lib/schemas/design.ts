@@ -17,7 +17,15 @@ export const ZONE_KIND_VALUES = [
 ] as const;
 export const CLIMATE_VALUES = ['tropical', 'sub-tropical', 'temperate', 'arctic'] as const;
 export const DEPTH_BAND_VALUES = ['0-30', '30-100', '100-300', '300+', 'sediment'] as const;
-export const COATING_VALUES = ['I', 'II', 'III', 'bare'] as const;
+/** Paint categories, bare metal, sacrificial metallic layers (thermally sprayed Al or Zn, hot-dip galvanised) and noble platings. */
+export const COATING_VALUES = ['I', 'II', 'III', 'bare', 'tsa', 'tsz', 'hdg', 'noble-plating'] as const;
+/** How the zones' current demand is found: ship-hull practice, harbour practice, or the offshore-structure table (DNV-RP-B401). */
+export const DEMAND_METHOD_VALUES = ['ship-hull', 'harbour', 'offshore-table'] as const;
+export const HULL_CONDITION_VALUES = ['new', 'good', 'fair', 'poor'] as const;
+/** Resistivity from the water (PSS-78 from temperature and salinity) or as measured. */
+export const RESISTIVITY_SOURCE_VALUES = ['water', 'measured'] as const;
+/** Protective potential from the criterion for the metal and environment, or as entered. */
+export const POTENTIAL_SOURCE_VALUES = ['criterion', 'entered'] as const;
 export const WATER_VALUES = ['seawater', 'brackish', 'fresh'] as const;
 export const PROTECTED_METAL_VALUES = ['steel', 'high-strength-steel', 'aluminium', 'stainless', 'copper-alloy'] as const;
 export const HULL_MATERIAL_VALUES = ['steel', 'aluminium'] as const;
@@ -65,6 +73,12 @@ export const deskInputsSchema = z.object({
   anaerobic: z.boolean().default(false),
   nextDockingYears: z.preprocess(blankToNull, num('Next docking', 'years').pipe(z.number().gt(0, 'The interval to the next docking must be more than 0 years.').max(50, 'Use at most 50 years.')).nullable()),
   allowMagnesiumOnAluminium: z.boolean().default(false),
+  demandMethod: z.enum(DEMAND_METHOD_VALUES, { error: 'Choose how the current demand is found.' }).default('offshore-table'),
+  hullCoatingCondition: z.enum(HULL_CONDITION_VALUES, { error: 'Choose the condition of the hull coating.' }).default('good'),
+  serviceSpeedKnots: z.preprocess(blankToNull, num('Service speed', 'knots').pipe(z.number().min(0, 'The speed cannot be negative.').max(60, 'A service speed above 60 knots is outside this tool.')).nullable()).default(null),
+  salinityPsu: z.preprocess(blankToNull, num('Salinity', 'PSU').pipe(z.number().min(0, 'The salinity cannot be negative.').max(42, 'Salinity above 42 PSU is outside the Practical Salinity Scale.')).nullable()).default(null),
+  resistivitySource: z.enum(RESISTIVITY_SOURCE_VALUES).default('measured'),
+  potentialSource: z.enum(POTENTIAL_SOURCE_VALUES).default('entered'),
   anodeModelKey: z.string().min(1, 'Choose an anode model.').max(80),
   surfaces: z.array(deskSurfaceSchema).min(1, 'Add at least one zone.').max(200, 'Use at most 200 zones.'),
 });

@@ -50,6 +50,7 @@ export const anodeModelSchema = z.object({
   netMassKg: number('Net mass', 'kg').pipe(z.number().gt(0, 'The net mass must be more than 0 kg.').max(5000)),
   grossMassKg: number('Gross mass', 'kg').pipe(z.number().gt(0, 'The gross mass must be more than 0 kg.').max(6000)),
   ratedOutputA: z.preprocess(blankToNull, number('Rated output', 'A').pipe(z.number().gt(0).max(100)).nullable()),
+  ratedAtResistivityOhmM: z.preprocess(blankToNull, number('Resistivity of the rated output', 'Ω·m').pipe(z.number().gt(0).max(10000)).nullable()).default(null),
   unitPrice: z.preprocess(blankToNull, number('Unit price', '').pipe(z.number().min(0).max(1_000_000)).nullable()),
   notes: text(2000),
 });

@@ -13,6 +13,8 @@ import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-d
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createZone } from '@/lib/server/services/register/zones';
 import { Migration20261202003500_design_record } from '@/migrations/Migration20261202003500_design_record';
+import { Migration20261202011500_demand_method } from '@/migrations/Migration20261202011500_demand_method';
+import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { ctxFor, runAs } from '../fixtures/factories';
 import { makeDesignOrg } from '../fixtures/design-org';
 import { pdfText } from '../fixtures/pdf-text';
@@ -44,7 +46,12 @@ const noteText = async (id: string) => {
   const { pdf } = await runAs(ctx('viewer'), (c) => renderCalculationNote(c, id));
   return (await pdfText(pdf)).replace(/\s+/g, ' ');
 };
-const newDesign = (title: string, assetId = vesselId) => runAs(ctx('engineer'), (c) => createDesign(c, { assetId, title }));
+// The mocked table is the offshore-structure table (DNV-RP-B401): these designs are sized by that method.
+const newDesign = async (title: string, assetId = vesselId) => {
+  const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId, title }));
+  await runAs(ctx('engineer'), (c) => saveDesign(c, design.id, { title, inputs: { ...(design.inputs as object), demandMethod: 'offshore-table' } }));
+  return design;
+};
 
 beforeAll(async () => {
   // Invented particulars: a 90 m ferry, default zones from Denny-Mumford, a flush Al-Zn-In anode.
@@ -74,7 +81,7 @@ describe('a signed revision is shown and printed from its stored record', () => 
     expect(view.computed?.result?.current).toEqual(kept.current);
     expect(view.computed?.options).toEqual(kept.options);
     expect(view.computed?.model?.designation).toBe('TW-AW-4020');
-    expect(note).toContain(`${kept.anodeCount} anodes of TW-AW-4020`);
+    expect(note).toContain(`${kept.anodesToFit} anodes of TW-AW-4020`);
     expect(note).toContain(`Required net mass M ${fmt(kept.requiredNetMassKg, 1)} kg`);
     expect(note).toContain('not recomputed');
 
@@ -84,9 +91,9 @@ describe('a signed revision is shown and printed from its stored record', () => 
     const recomputed = draftView.computed!.result!;
     expect(recomputed.anodeCount).toBeGreaterThan(kept.anodeCount);
     expect(recomputed.requiredNetMassKg).toBeGreaterThan(kept.requiredNetMassKg); // the propeller keeps its entered density
-    expect(note).not.toContain(`${recomputed.anodeCount} anodes of`);
+    expect(note).not.toContain(`${recomputed.anodesToFit} anodes of`);
     const draftNote = await noteText(draft.id);
-    expect(draftNote).toContain(`${recomputed.anodeCount} anodes of TW-AW-4020`);
+    expect(draftNote).toContain(`${recomputed.anodesToFit} anodes of TW-AW-4020`);
     expect(draftNote).toContain(`Required net mass M ${fmt(recomputed.requiredNetMassKg, 1)} kg`);
     // Looking at a draft stores nothing: its record still holds what was saved.
     expect((await stored(draft.id)).results?.anodeCount).toBe(kept.anodeCount);
@@ -102,7 +109,7 @@ describe('a signed revision is shown and printed from its stored record', () => 
     expect(view.design.status).toBe('checked');
     expect(view.source).toBe('stored');
     expect(view.computed?.result?.anodeCount).toBe(kept.anodeCount);
-    expect(await noteText(design.id)).toContain(`${kept.anodeCount} anodes of`);
+    expect(await noteText(design.id)).toContain(`${kept.anodesToFit} anodes of`);
     expect(table.lookups).toBe(0);
   });
 
@@ -110,23 +117,25 @@ describe('a signed revision is shown and printed from its stored record', () => 
     const design = await newDesign('Saved before the table changed, approved after');
     const saved = (await stored(design.id)).results!.anodeCount;
     table.factor = 3;
-    const shown = (await runAs(ctx(checker), (c) => getDesignDesk(c, design.id))).computed!.result!.anodeCount;
+    const shownResult = (await runAs(ctx(checker), (c) => getDesignDesk(c, design.id))).computed!.result!;
+    const shown = shownResult.anodeCount;
     expect(shown).toBeGreaterThan(saved);
     await runAs(ctx(checker), (c) => approveDesign(c, design.id));
     expect((await stored(design.id)).results!.anodeCount).toBe(shown);
     table.factor = 1;
     expect((await runAs(ctx('viewer'), (c) => getDesignDesk(c, design.id))).computed?.result?.anodeCount).toBe(shown);
-    expect(await noteText(design.id)).toContain(`${shown} anodes of`);
+    expect(await noteText(design.id)).toContain(`${shownResult.anodesToFit} anodes of`);
   });
 
   it('a revision stored without a model snapshot says so on the page and the note; no model is made up', async () => {
     const design = await newDesign('Stored before snapshots were kept');
     await runAs(ctx(checker), (c) => approveDesign(c, design.id));
-    const count = (await stored(design.id)).results!.anodeCount;
+    const kept = (await stored(design.id)).results!;
+    const count = kept.anodesToFit;
     await (await getEm()).execute(`update design set anode_model = null where id = ?`, [design.id]);
     const view = await runAs(ctx('viewer'), (c) => getDesignDesk(c, design.id));
     expect(view.computed?.model).toBeNull();
-    expect(view.computed?.result?.anodeCount).toBe(count);
+    expect(view.computed?.result?.anodeCount).toBe(kept.anodeCount);
     const note = await noteText(design.id);
     expect(note).toContain('builtin:TW-AW-4020: not recorded with this revision');
     expect(note).toContain(`${count} anodes of builtin:TW-AW-4020 (model not recorded with this revision)`);
@@ -178,14 +187,16 @@ describe('the design-record migration', () => {
 
     const orm = await getOrm();
     const migration = new Migration20261202003500_design_record(orm.em.getDriver(), orm.config);
+    const later = new Migration20261202011500_demand_method(orm.em.getDriver(), orm.config);
     // Everything runs in one transaction that is rolled back, so the other tests' schema is untouched.
     await (await getEm())
       .transactional(async (tx) => {
-        const run = async (step: 'up' | 'down') => {
-          migration.reset();
-          await migration[step]();
-          for (const sql of migration.getQueries()) await tx.execute(sql as string);
+        const run = async (step: 'up' | 'down', which: typeof migration | typeof later = migration) => {
+          which.reset();
+          await which[step]();
+          for (const sql of which.getQueries()) await tx.execute(sql as string);
         };
+        await run('down', later);
         await run('down');
         const legacy = await tx.execute(`select id, inputs -> 'anodeModelSnapshot' ->> 'designation' as designation from design where id in (?, ?)`, [approved.id, draft.id]);
         expect(legacy.map((r) => r.designation)).toEqual(['TW-AW-4020', 'TW-AW-4020']);
@@ -195,10 +206,14 @@ describe('the design-record migration', () => {
         await run('up');
         const rows = await tx.execute(`select id, schema_version, (inputs -> 'anodeModelSnapshot') is not null as nested from design where id in (?, ?, ?)`, [approved.id, draft.id, bare.id]);
         expect(rows.every((r) => r.schema_version === 2 && r.nested === false)).toBe(true);
+        await run('up', later);
+        expect((await tx.execute(`select schema_version from design where id in (?, ?, ?)`, [approved.id, draft.id, bare.id])).every((r) => r.schema_version === 3)).toBe(true);
         const read = async (id: string) => readDesignRecord(await tx.findOneOrFail(DesignSchema, { id }));
-        expect(await read(approved.id)).toEqual(before.approved);
-        expect(await read(draft.id)).toEqual(before.draft);
-        expect(await read(bare.id)).toEqual({ ...before.bare, anodeModel: null });
+        // Version-2 rows were all sized by the offshore table with entered values: version 3 says so.
+        const asVersion2 = (r: typeof before.approved) => ({ ...r, inputs: { ...r.inputs, demandMethod: 'offshore-table', hullCoatingCondition: 'good', serviceSpeedKnots: null, salinityPsu: null, resistivitySource: 'measured', potentialSource: 'entered' } });
+        expect(await read(approved.id)).toEqual(asVersion2(before.approved));
+        expect(await read(draft.id)).toEqual(asVersion2(before.draft));
+        expect(await read(bare.id)).toEqual({ ...asVersion2(before.bare), anodeModel: null });
         const viewer = await ctxFor(tx, organisation, users.viewer);
         const view = await getDesignDesk(viewer, approved.id);
         expect(view.source).toBe('stored');

@@ -135,9 +135,9 @@ describe('the desk computation', () => {
     expect(refused.error?.message).toMatch(/magnesium/i);
   });
 
-  it('notes table current densities used outside seawater', async () => {
+  it('notes the offshore table\'s current densities used outside seawater', async () => {
     const vessel = await (await getEm()).findOneOrFail(AssetSchema, { id: vesselId });
-    const desk = await runAs(ctx('viewer'), (c) => computeDesk(c, { ...defaultInputs(vessel, []), water: 'fresh', resistivityOhmM: 30, anodeModelKey: 'builtin:TW-MB-3015' }));
+    const desk = await runAs(ctx('viewer'), (c) => computeDesk(c, { ...defaultInputs(vessel, []), demandMethod: 'offshore-table', water: 'fresh', resistivitySource: 'measured', resistivityOhmM: 30, anodeModelKey: 'builtin:TW-MB-3015' }));
     expect(desk.notices.map((n) => n.code)).toContain('table-density-outside-seawater');
   });
 
@@ -166,6 +166,6 @@ describe('the calculation note', () => {
     expect(text).toContain('qualified corrosion engineer');
     expect(text).toContain('Second Engineer');
     const stored = await (await getEm()).findOneOrFail(DesignSchema, { id: design.id });
-    expect(text).toContain(`${(stored.results as { anodeCount: number }).anodeCount} anodes of`);
+    expect(text).toContain(`${(stored.results as { anodesToFit: number }).anodesToFit} anodes of`);
   });
 });

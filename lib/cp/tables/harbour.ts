@@ -40,3 +40,15 @@ export const HARBOUR_DESIGN_VALUES = {
   'project-b-water': sheet(54),
   'project-b-mud': sheet(20),
 } as const satisfies Record<string, HarbourDesignValue>;
+
+/**
+ * The harbour method's defaults for bare steel piles and sheet piling, A/m2. Immersed: 54 mA/m2 initial
+ * (the higher project sheet), 35 mA/m2 mean and final; mud: 20 and 15 (project sheets, common practice).
+ * Both lie inside MIL-HDBK-1004/10 Table 1's 11-270 mA/m2 for still to moving seawater (published).
+ * Fresh water: 43 initial, 32 mean and final, inside the same table's 22-65 mA/m2 (practice).
+ */
+export const HARBOUR_PRACTICE_DENSITY = {
+  'water-seawater': { initial: milliampsPerM2(54), mean: milliampsPerM2(35), final: milliampsPerM2(35) },
+  'water-fresh': { initial: milliampsPerM2(43), mean: milliampsPerM2(32), final: milliampsPerM2(32) },
+  mud: { initial: milliampsPerM2(20), mean: milliampsPerM2(15), final: milliampsPerM2(15) },
+} as const;

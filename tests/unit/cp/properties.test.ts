@@ -47,7 +47,8 @@ const design: fc.Arbitrary<DesignInput> = fc.record(
       {
         alloy: fc.constantFrom('al-zn-in' as const, 'zinc' as const, 'magnesium' as const, 'magnesium-high-potential' as const),
         capacityAhPerKg: pos(500, 2600),
-        potentialV: pos(-1.8, -0.85),
+        // more negative than every metal's default criterion (aluminium -0.90 V, ABYC E-2, published)
+        potentialV: pos(-1.8, -0.95),
         utilisationFactor: pos(0.5, 1),
         netMassKg: pos(0.5, 400),
         shape,

@@ -25,6 +25,7 @@ export function toCpModel(row: AnodeModelRow): AnodeModel {
     netMassKg: row.netMassKg,
     grossMassKg: row.grossMassKg,
     ratedOutputA: row.ratedOutputA ?? undefined,
+    ratedAtResistivityOhmM: row.ratedAtResistivityOhmM ?? undefined,
     unitPrice: row.unitPrice ?? undefined,
   };
 }

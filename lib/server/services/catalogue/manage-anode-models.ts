@@ -51,6 +51,7 @@ export async function createAnodeModel(ctx: OrgContext, input: unknown) {
     netMassKg: d.netMassKg,
     grossMassKg: d.grossMassKg,
     ratedOutputA: d.ratedOutputA,
+    ratedAtResistivityOhmM: d.ratedAtResistivityOhmM,
     unitPrice: d.unitPrice,
     notes: d.notes,
     archivedAt: null,

@@ -1,5 +1,5 @@
 import { CpInputError, compareOptions, designAnodeSystem, impressedCurrentSummary, type DesignResult, type OptionRow, type ImpressedCurrentSummary } from '@/lib/cp';
-import { buildDesignInput, buildDesignJob, deskNotices, type DeskNotice } from '@/lib/design/build-design-input';
+import { buildDesignInput, buildDesignJob, deskNotices, resolveEnvironment, type DeskNotice } from '@/lib/design/build-design-input';
 import type { DeskComputed } from '@/lib/design/desk-computed';
 import { deskInputsSchema, type DeskInputs } from '@/lib/schemas/design';
 import { listCatalogue, resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
@@ -22,13 +22,26 @@ export interface DeskResult {
  */
 export async function computeDesk(ctx: OrgContext, rawInputs: unknown, { hasImpressedCurrent = false } = {}): Promise<DeskResult> {
   requirePermission(ctx, 'org:read');
-  const inputs = deskInputsSchema.parse(rawInputs);
-  const model = await resolveAnodeModel(ctx, inputs.anodeModelKey);
-  const notices = deskNotices(inputs);
+  const parsed = deskInputsSchema.parse(rawInputs);
+  const model = await resolveAnodeModel(ctx, parsed.anodeModelKey);
   let result: DesignResult | null = null;
   let error: DeskResult['error'] = null;
+  // What the tool fills in (resistivity from the water, potential from the criterion) is stored with
+  // the inputs as the value used, and the notices say where it came from.
+  let inputs = parsed;
+  const sources: DeskNotice[] = [];
   try {
-    result = designAnodeSystem(buildDesignInput(inputs, model));
+    const env = resolveEnvironment(parsed);
+    inputs = { ...parsed, resistivityOhmM: env.resistivityOhmM, protectivePotentialV: env.protectivePotentialV };
+    sources.push({ code: 'resistivity-source', message: `Resistivity ${env.resistivityOhmM} Ω·m: ${env.resistivitySource}.` });
+    sources.push({ code: 'potential-source', message: `Protective potential ${env.protectivePotentialV} V vs Ag/AgCl/seawater: ${env.potentialSource}.` });
+  } catch (e) {
+    if (!(e instanceof CpInputError)) throw e;
+    error = { field: e.field, message: e.message };
+  }
+  const notices = [...deskNotices(inputs), ...sources];
+  try {
+    if (!error) result = designAnodeSystem(buildDesignInput(inputs, model));
   } catch (e) {
     if (!(e instanceof CpInputError)) throw e;
     error = { field: e.field, message: e.message };

@@ -15,6 +15,12 @@ const createDesignSchema = z.object({
 });
 
 /** Starting inputs for an asset: its zones when it has any, else estimates from its particulars. */
+/**
+ * A new design's inputs follow the asset's own practice: a vessel is sized by ship-hull practice over
+ * its docking interval, a structure by harbour practice over its design life. The resistivity comes
+ * from the water and the protective potential from the criterion for the metal, both shown as
+ * estimated until the engineer enters a value.
+ */
 export function defaultInputs(asset: Asset, zones: DeskSurface[]): DeskInputs {
   const vessel = asset.kind === 'vessel';
   const climate = 'temperate' as const;
@@ -26,6 +32,7 @@ export function defaultInputs(asset: Asset, zones: DeskSurface[]): DeskInputs {
     water,
     temperatureC: null,
     chloridePpm: null,
+    // Placeholders until resolved: from the water (PSS-78) and from the criterion.
     resistivityOhmM: water === 'seawater' ? resistivityFor(climate) : 20,
     protectivePotentialV: aluminiumHull ? -0.9 : -0.8,
     protectedMetal: aluminiumHull ? 'aluminium' : 'steel',
@@ -33,6 +40,12 @@ export function defaultInputs(asset: Asset, zones: DeskSurface[]): DeskInputs {
     anaerobic: false,
     nextDockingYears: vessel ? 2.5 : null,
     allowMagnesiumOnAluminium: false,
+    demandMethod: vessel ? 'ship-hull' : 'harbour',
+    hullCoatingCondition: 'good',
+    serviceSpeedKnots: null,
+    salinityPsu: null,
+    resistivitySource: water === 'fresh' ? 'measured' : 'water',
+    potentialSource: 'criterion',
     anodeModelKey: vessel ? (aluminiumHull ? 'builtin:TW-ZB-2510' : 'builtin:TW-AW-4020') : water === 'fresh' ? 'builtin:TW-MS-1005' : 'builtin:TW-AS-2018',
     surfaces: zones.length ? zones : vessel ? defaultVesselZones(asset) : defaultStructureZones(asset),
   };

@@ -18,7 +18,7 @@ export async function listDesigns(ctx: OrgContext, { assetId }: { assetId?: stri
       revision: d.revision,
       title: d.title,
       status: d.status,
-      anodeCount: results?.anodeCount ?? null,
+      anodeCount: results?.anodesToFit ?? null,
       governingCriterion: results?.governingCriterion ?? null,
       installedNetMassKg: results?.installedNetMassKg ?? null,
       warningCount: results?.warnings?.length ?? 0,
