@@ -21,6 +21,8 @@ const config: Config = {
           overduebg: '#f8e2e0',
           under: '#6a3f8f',
           underbg: '#efe6f6',
+          over: '#1f5a85',
+          overbg: '#e1ecf5',
         },
       },
       fontFamily: {

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { getCurrentUser } from '@/lib/server/auth/session';
+import { CAUTION_SENTENCE } from '@/lib/words/caution';
 
 const STEPS = [
   {
@@ -65,10 +66,7 @@ export default async function LandingPage() {
               <li key={b}>— {b}</li>
             ))}
           </ul>
-          <p className="mt-3 text-xs text-ink-faint">
-            Results are for preliminary design. Verify against the governing standard and class and local rules; a qualified corrosion engineer must
-            review every design before use.
-          </p>
+          <p className="mt-3 text-xs text-ink-faint">{CAUTION_SENTENCE}</p>
         </section>
       </main>
     </div>

@@ -34,7 +34,14 @@ export const AssetSchema = defineEntity({
     designLifeYears: double().nullable(),
     pileCount: p.integer().nullable(),
     pileDiameterM: double().nullable(),
-    // The protection outlook last computed (sound, renew at next docking, overdue, under-protected),
+    // What the survey criteria need (lib/surveys/criteria.ts), for either kind: the salinity of the water the
+    // readings are taken in, PSU, for the chloride correction of an Ag/AgCl/seawater electrode (null: 35 PSU
+    // in seawater, unknown otherwise); anaerobic conditions with sulphate-reducing bacteria (steel -0.90 V);
+    // high-strength steel, yield above 550 MPa (no more negative than about -0.83 V).
+    waterSalinityPsu: double().nullable(),
+    anaerobic: p.boolean().default(false),
+    highStrengthSteel: p.boolean().default(false),
+    // The protection outlook last computed (sound, renew at next docking, overdue, under- or over-protected),
     // kept so the weekly digest can tell what changed.
     outlook: p.string().length(32).nullable(),
     outlookChangedAt: p.datetime().nullable(),

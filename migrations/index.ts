@@ -6,6 +6,7 @@ import { Migration20261201181934_billing } from './Migration20261201181934_billi
 import { Migration20261201182920_dockings_and_renewals } from './Migration20261201182920_dockings_and_renewals';
 import { Migration20261202003500_design_record } from './Migration20261202003500_design_record';
 import { Migration20261202011500_demand_method } from './Migration20261202011500_demand_method';
+import { Migration20261203090000_asset_survey_criteria } from './Migration20261203090000_asset_survey_criteria';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -16,4 +17,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261201182920_dockings_and_renewals', class: Migration20261201182920_dockings_and_renewals },
   { name: 'Migration20261202003500_design_record', class: Migration20261202003500_design_record },
   { name: 'Migration20261202011500_demand_method', class: Migration20261202011500_demand_method },
+  { name: 'Migration20261203090000_asset_survey_criteria', class: Migration20261203090000_asset_survey_criteria },
 ];

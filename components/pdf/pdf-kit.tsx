@@ -1,5 +1,6 @@
 import path from 'node:path';
 import { Font, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { CAUTION_SENTENCE } from '@/lib/words/caution';
 
 // Inter ships in fonts/ (woff; react-pdf does not read woff2). Registered once per process.
 let registered = false;
@@ -56,5 +57,4 @@ export function PdfTable({ columns, rows, bold }: { columns: Column[]; rows: (st
   );
 }
 
-export const CAUTION_TEXT =
-  'Caution. Results are for preliminary design. Verify against the governing standard and class and local rules; a qualified corrosion engineer must review the design before use. Tidewarden does not replace that review.';
+export const CAUTION_TEXT = `Caution. ${CAUTION_SENTENCE} Tidewarden does not replace that review.`;

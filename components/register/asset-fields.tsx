@@ -1,6 +1,8 @@
 'use client';
 import { Field, SelectField } from '@/components/ui/field';
 import { STRUCTURE_TYPES } from '@/lib/schemas/assets';
+import { ANAEROBIC_STEEL_PROTECTION_POTENTIAL_V, AG_AGCL_SEAWATER_CALIBRATION_PSU, OVER_PROTECTION_LIMIT } from '@/lib/cp';
+import { formatVolts } from '@/lib/surveys/criteria';
 
 interface Props {
   /** Field-name prefix, for forms that post an asset together with other things. */
@@ -8,6 +10,46 @@ interface Props {
   kind: string;
   values: Record<string, string | undefined>;
   errors?: Record<string, string[]>;
+}
+
+const HIGH_STRENGTH_LIMIT_V = OVER_PROTECTION_LIMIT['high-strength-steel']?.valueV;
+
+/** What the survey criteria need, for either kind: the water's salinity, anaerobic conditions, high-strength steel. */
+function SurveyCriteriaFields({ kind, n, v, e }: { kind: string; n: (name: string) => string; v: (name: string) => string | undefined; e: (name: string) => string[] | undefined }) {
+  const checked = (name: string) => v(name) === 'on' || v(name) === 'true';
+  return (
+    <>
+      <Field
+        className="col-span-2"
+        label="Water salinity (optional)"
+        name={n('waterSalinityPsu')}
+        type="number"
+        step="any"
+        unit="PSU"
+        defaultValue={v('waterSalinityPsu')}
+        errors={e('waterSalinityPsu')}
+        hint={`${kind === 'vessel' ? 'Where surveys are taken. ' : ''}Blank: ${AG_AGCL_SEAWATER_CALIBRATION_PSU} PSU in seawater. Corrects readings against an Ag/AgCl/seawater electrode in brackish water.`}
+      />
+      <label className="col-span-2 flex items-start gap-2 text-sm">
+        <input type="checkbox" className="mt-1" name={n('anaerobic')} defaultChecked={checked('anaerobic')} />
+        <span>
+          Anaerobic: sulphate-reducing bacteria or anaerobic mud <span className="text-xs text-ink-faint">(steel criterion {formatVolts(ANAEROBIC_STEEL_PROTECTION_POTENTIAL_V)} V)</span>
+        </span>
+      </label>
+      <label className="col-span-2 flex items-start gap-2 text-sm">
+        <input type="checkbox" className="mt-1" name={n('highStrengthSteel')} defaultChecked={checked('highStrengthSteel')} />
+        <span>
+          High-strength steel, yield above 550 MPa{' '}
+          {HIGH_STRENGTH_LIMIT_V !== undefined ? <span className="text-xs text-ink-faint">(no more negative than about {formatVolts(HIGH_STRENGTH_LIMIT_V)} V)</span> : null}
+        </span>
+      </label>
+      {e('highStrengthSteel') ? (
+        <p role="alert" className="col-span-2 text-xs text-state-overdue">
+          {e('highStrengthSteel')!.join(' ')}
+        </p>
+      ) : null}
+    </>
+  );
 }
 
 /** The particulars of a vessel or a structure; names match lib/schemas/assets.ts. */
@@ -30,6 +72,7 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
         <label className="col-span-2 flex items-center gap-2 text-sm">
           <input type="checkbox" name={n('hasImpressedCurrent')} defaultChecked={v('hasImpressedCurrent') === 'on' || v('hasImpressedCurrent') === 'true'} /> Impressed-current system fitted
         </label>
+        <SurveyCriteriaFields kind={kind} n={n} v={v} e={e} />
       </div>
     );
   }
@@ -48,6 +91,7 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
       <Field label="Pile diameter" name={n('pileDiameterM')} type="number" step="any" unit="m" defaultValue={v('pileDiameterM')} errors={e('pileDiameterM')} />
       <Field label="Design life" name={n('designLifeYears')} type="number" step="any" unit="years" defaultValue={v('designLifeYears')} errors={e('designLifeYears')} />
       <Field label="Location" name={n('location')} defaultValue={v('location')} errors={e('location')} />
+      <SurveyCriteriaFields kind={kind} n={n} v={v} e={e} />
     </div>
   );
 }

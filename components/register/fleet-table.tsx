@@ -7,9 +7,19 @@ import { ServerTable } from '@/components/ui/server-table';
 import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { protectedMetalOf } from '@/lib/register/protected-metal';
+import { surveyCriteriaOf } from '@/lib/register/protected-metal';
+import type { AssetOutlook } from '@/lib/forecast';
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
-import { StatusTag } from '@/components/ui/panel';
+import { StatusTag, type StatusTone } from '@/components/ui/panel';
+
+/** The colour cue of each outlook; the words come with the row (OUTLOOK_WORDS). */
+const OUTLOOK_TONES: Readonly<Record<AssetOutlook, StatusTone>> = {
+  sound: 'sound',
+  'renew-at-next-docking': 'due',
+  overdue: 'overdue',
+  'over-protected': 'over',
+  'under-protected': 'under',
+};
 
 export function FleetTable({ org }: { org: string }) {
   const [archived, setArchived] = useState(false);
@@ -25,7 +35,7 @@ export function FleetTable({ org }: { org: string }) {
         cell: (c) => {
           const o = c.row.original.outlook;
           if (!o) return '—';
-          const tone = o === 'sound' ? 'sound' : o === 'renew-at-next-docking' ? 'due' : o === 'overdue' ? 'overdue' : 'under';
+          const tone = OUTLOOK_TONES[o] ?? 'neutral';
           return (
             <span className="flex flex-col gap-0.5">
               <StatusTag tone={tone}>{c.getValue()}</StatusTag>
@@ -58,11 +68,11 @@ export function FleetTable({ org }: { org: string }) {
         cell: (c) => {
           const r = c.row.original;
           if (r.lastSurveyLeastNegativeV === null) return <span className="text-ink-faint">—</span>;
-          const metal = protectedMetalOf(r);
+          const criteria = surveyCriteriaOf(r);
           return (
             <span className="flex flex-col gap-0.5">
-              <PotentialTag valueV={r.lastSurveyLeastNegativeV} metal={metal} />
-              {r.lastSurveyMostNegativeV !== null && r.lastSurveyMostNegativeV !== r.lastSurveyLeastNegativeV ? <PotentialTag valueV={r.lastSurveyMostNegativeV} metal={metal} /> : null}
+              <PotentialTag valueV={r.lastSurveyLeastNegativeV} criteria={criteria} />
+              {r.lastSurveyMostNegativeV !== null && r.lastSurveyMostNegativeV !== r.lastSurveyLeastNegativeV ? <PotentialTag valueV={r.lastSurveyMostNegativeV} criteria={criteria} /> : null}
             </span>
           );
         },

@@ -3,6 +3,7 @@ import { useMemo } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
+import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
 import { fmt } from '@/lib/format';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
@@ -24,7 +25,8 @@ export function ReadingsTable({ readings }: { readings: Reading[] }) {
         cell: (c) =>
           c.getValue() ? (
             <span title={c.row.original.potentialMessage ?? undefined} data-status={c.getValue()}>
-              <StatusTag tone={c.getValue() === 'protected' ? 'sound' : c.getValue() === 'under-protected' ? 'overdue' : 'under'}>{c.row.original.potentialLabel}</StatusTag>
+              <StatusTag tone={POTENTIAL_STATUS_TONES[c.getValue()!]}>{c.row.original.potentialLabel}</StatusTag>
+              {c.row.original.potentialCriterion ? <span className="block text-2xs text-ink-faint">{c.row.original.potentialCriterion}</span> : null}
             </span>
           ) : (
             '—'

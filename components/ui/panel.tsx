@@ -1,3 +1,5 @@
+import { CAUTION_SENTENCE } from '@/lib/words/caution';
+
 export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
   return (
     <section className={`rounded-[4px] border border-rule bg-paper-raised ${className}`}>
@@ -24,24 +26,27 @@ export function PageHeader({ title, subtitle, actions }: { title: React.ReactNod
   );
 }
 
+export type StatusTone = 'sound' | 'due' | 'overdue' | 'under' | 'over' | 'neutral';
+
 /** Status in words first; the colour is a second cue. */
-export function StatusTag({ tone, children }: { tone: 'sound' | 'due' | 'overdue' | 'under' | 'neutral'; children: React.ReactNode }) {
-  const tones = {
+export function StatusTag({ tone, children }: { tone: StatusTone; children: React.ReactNode }) {
+  const tones: Record<StatusTone, string> = {
     sound: 'bg-state-soundbg text-state-sound border-state-sound/30',
     due: 'bg-state-duebg text-state-due border-state-due/30',
     overdue: 'bg-state-overduebg text-state-overdue border-state-overdue/30',
     under: 'bg-state-underbg text-state-under border-state-under/30',
+    over: 'bg-state-overbg text-state-over border-state-over/30',
     neutral: 'bg-paper-sunk text-ink-soft border-rule',
   };
   return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>;
 }
 
+/** A caution strip; without children it carries the one caution sentence (lib/words/caution.ts). */
 export function Caution({ children }: { children?: React.ReactNode }) {
   return (
     <aside role="note" className="rounded-[3px] border-l-4 border-brass-500 bg-brass-100 px-3 py-2 text-xs text-brass-700">
       <strong className="font-semibold">Caution. </strong>
-      {children ??
-        'Results are for preliminary design. Verify against the governing standard and class and local rules; a qualified corrosion engineer must review the design before use.'}
+      {children ?? CAUTION_SENTENCE}
     </aside>
   );
 }

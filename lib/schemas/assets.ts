@@ -12,6 +12,17 @@ const optionalNumber = (label: string, unit: string, min: number, max: number) =
 const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 const checkbox = z.preprocess((v) => v === true || v === 'on' || v === 'true', z.boolean());
 
+/**
+ * What the survey criteria need, for either kind (lib/surveys/criteria.ts): the salinity of the water the
+ * readings are taken in (the chloride correction of an Ag/AgCl/seawater electrode; blank = 35 PSU in
+ * seawater), anaerobic conditions with sulphate-reducing bacteria, and high-strength steel (yield > 550 MPa).
+ */
+const surveyCriteriaFields = {
+  waterSalinityPsu: optionalNumber('Water salinity', 'PSU', 0, 42),
+  anaerobic: checkbox.default(false),
+  highStrengthSteel: checkbox.default(false),
+};
+
 export const STRUCTURE_TYPES = ['jetty', 'wharf', 'dolphin', 'pontoon', 'sheet-pile-wall', 'other'] as const;
 
 export const vesselSchema = z.object({
@@ -29,8 +40,9 @@ export const vesselSchema = z.object({
   hullMaterial: z.enum(['steel', 'aluminium'], { error: 'Choose the hull material.' }),
   hasImpressedCurrent: checkbox.default(false),
   tradingWaters: optionalText(120),
+  ...surveyCriteriaFields,
   notes: optionalText(2000),
-});
+}).refine((v) => !(v.highStrengthSteel && v.hullMaterial === 'aluminium'), { message: 'High-strength steel applies to a steel hull, not an aluminium one.', path: ['highStrengthSteel'] });
 
 export const structureSchema = z.object({
   kind: z.literal('structure'),
@@ -41,6 +53,7 @@ export const structureSchema = z.object({
   designLifeYears: optionalNumber('Design life', 'years', 1, 100),
   pileCount: optionalNumber('Number of piles', '', 1, 10000).pipe(z.number().int('Enter a whole number of piles.').nullable()),
   pileDiameterM: optionalNumber('Pile diameter', 'm', 0.05, 5),
+  ...surveyCriteriaFields,
   notes: optionalText(2000),
 });
 

@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { getPageOrgContext } from '@/lib/server/page-context';
 import { allowed } from '@/lib/server/org-context';
-import { PageHeader, Panel } from '@/components/ui/panel';
+import { Caution, PageHeader, Panel } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { FleetTable } from '@/components/register/fleet-table';
 import { AssetForm } from '@/components/register/asset-form';
@@ -31,6 +31,7 @@ export default async function FleetOverviewPage({ params }: { params: Promise<{ 
         <Panel title="Assets">
           <FleetTable org={org} />
         </Panel>
+        <Caution />
       </div>
     </>
   );

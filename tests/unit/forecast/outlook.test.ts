@@ -41,6 +41,15 @@ describe('assetOutlook', () => {
     expect(assetOutlook({ groupStatuses: [sound, atNext], underProtectedBySurvey: false, today })).toBe('renew-at-next-docking');
   });
 
+  it('over-protected by survey is an outlook of its own, after under-protection and before overdue', () => {
+    expect(assetOutlook({ groupStatuses: [sound], underProtectedBySurvey: false, overProtectedBySurvey: true, today })).toBe('over-protected');
+    expect(assetOutlook({ groupStatuses: [atNext, overdue], underProtectedBySurvey: false, overProtectedBySurvey: true, today })).toBe('over-protected');
+    // both found in the same survey: under-protection keeps precedence
+    expect(assetOutlook({ groupStatuses: [sound], underProtectedBySurvey: true, overProtectedBySurvey: true, today })).toBe('under-protected');
+    expect(assetOutlook({ groupStatuses: [sound], underProtectedBySurvey: false, overProtectedBySurvey: false, today })).toBe('sound');
+    expect(fieldOf(() => assetOutlook({ groupStatuses: [], underProtectedBySurvey: false, overProtectedBySurvey: 'yes' as unknown as boolean, today }))).toBe('overProtectedBySurvey');
+  });
+
   it('rejects a missing survey flag', () => {
     expect(fieldOf(() => assetOutlook({ groupStatuses: [], underProtectedBySurvey: undefined as unknown as boolean, today }))).toBe('underProtectedBySurvey');
   });

@@ -31,6 +31,9 @@ export function blankParticulars() {
     designLifeYears: null,
     pileCount: null,
     pileDiameterM: null,
+    waterSalinityPsu: null,
+    anaerobic: false,
+    highStrengthSteel: false,
     notes: null,
     archivedAt: null,
   };

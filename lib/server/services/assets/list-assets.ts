@@ -18,6 +18,9 @@ export interface AssetRow {
   type: string | null;
   hullMaterial: string | null;
   hasImpressedCurrent: boolean;
+  /** Survey criteria: anaerobic conditions (steel -0.90 V) and high-strength steel (limit about -0.83 V). */
+  anaerobic: boolean;
+  highStrengthSteel: boolean;
   zones: number;
   groups: number;
   anodes: number;
@@ -46,7 +49,7 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
   const [countRows, rows] = await inSequence(
     () => conn.execute<{ total: string }[]>(`select count(*) as total from asset a where ${where}`, params),
     () => conn.execute<Record<string, unknown>[]>(
-      `select a.id, a.name, a.kind, coalesce(a.vessel_type, a.structure_type) as type, a.hull_material, a.has_impressed_current, a.archived_at,
+      `select a.id, a.name, a.kind, coalesce(a.vessel_type, a.structure_type) as type, a.hull_material, a.has_impressed_current, a.anaerobic, a.high_strength_steel, a.archived_at,
               (select count(*) from zone z where z.asset_id = a.id and z.archived_at is null) as zones,
               coalesce(g.groups, 0) as groups, coalesce(g.anodes, 0) as anodes, coalesce(g.net_mass, 0) as net_mass,
               to_char(s.surveyed_on, 'YYYY-MM-DD') as surveyed_on, s.least_negative, s.most_negative
@@ -72,6 +75,8 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
         type: (r.type as string) ?? null,
         hullMaterial: (r.hull_material as string) ?? null,
         hasImpressedCurrent: Boolean(r.has_impressed_current),
+        anaerobic: Boolean(r.anaerobic),
+        highStrengthSteel: Boolean(r.high_strength_steel),
         zones: Number(r.zones),
         groups: Number(r.groups),
         anodes: Number(r.anodes),

@@ -1,10 +1,11 @@
 import type { ListQuery } from '@/lib/schemas/register';
+import type { AssetOutlook } from '@/lib/forecast';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, OUTLOOK_WORDS } from '../planner/compute-plans';
 import { listAssets, type AssetRow } from './list-assets';
 
 export interface FleetRow extends AssetRow {
-  outlook: string | null;
+  outlook: AssetOutlook | null;
   outlookWords: string | null;
   nextDocking: { id: string; date: string; kind: string } | null;
   massDueAtNextDockingKg: number;

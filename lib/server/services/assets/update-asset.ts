@@ -4,14 +4,24 @@ import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { assertAssetLimit } from '../billing/asset-limit';
+import { surveyCriteriaOf } from '@/lib/register/protected-metal';
+
+// What decides how a stored reading is classified (readings are stored already converted, so the salinity is not among them).
+type Criteria = ReturnType<typeof surveyCriteriaOf>;
+const sameCriteria = (a: Criteria, b: Criteria) => a.protectedMetal === b.protectedMetal && a.anaerobic === b.anaerobic && a.highStrengthSteel === b.highStrengthSteel;
 
 export async function updateAsset(ctx: OrgContext, assetId: string, input: unknown) {
   requirePermission(ctx, 'asset:write');
   const asset = await getAssetOrThrow(ctx, assetId);
   const data = assetSchema.parse(input);
   if (data.kind !== asset.kind) throw new AppError('invalid', 'A vessel cannot become a structure or the other way round.');
+  const criteriaBefore = surveyCriteriaOf(asset);
   ctx.em.assign(asset, data);
-  audit(ctx, { action: 'asset.updated', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
+  const criteria = surveyCriteriaOf(asset);
+  const criteriaChanged = !sameCriteria(criteria, criteriaBefore);
+  audit(ctx, { action: 'asset.updated', targetType: 'asset', targetId: asset.id, details: { name: asset.name, ...(criteriaChanged ? { surveyCriteria: criteria } : {}) } });
+  // The outlook judges the latest survey against the asset's criteria: recompute it when they change.
+  if (criteriaChanged) ctx.effects.assetChanged(asset.id);
   return asset;
 }
 

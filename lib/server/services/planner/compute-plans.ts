@@ -1,7 +1,7 @@
 import { AssetSchema, DockingSchema, RenewalSchema, type Asset, type Docking, type Renewal } from '@/entities';
 import { assetOutlook, massDueKg, proposeRenewals, type AssetOutlook, type MassDue, type RenewalProposal } from '@/lib/forecast';
 import { classifyPotential } from '@/lib/surveys/criteria';
-import { protectedMetalOf } from '@/lib/register/protected-metal';
+import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
 import { inSequence } from '../../sql';
@@ -13,6 +13,8 @@ export interface AssetPlan {
   nextDocking: Docking | null;
   outlook: AssetOutlook;
   underProtectedBySurvey: boolean;
+  /** The latest survey has a reading more negative than the asset's over-protection limit. */
+  overProtectedBySurvey: boolean;
   massDue: MassDue[];
 }
 
@@ -33,13 +35,16 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
     () => loadGroupForecasts(ctx, { assetIds: ids }),
     () => ctx.em.find(DockingSchema, { asset: { $in: ids }, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
     () => ctx.em.find(RenewalSchema, { organisation: ctx.organisation, status: { $in: ['confirmed', 'ordered'] }, group: { asset: { $in: ids } } }, { populate: ['docking'] }),
-    () => ctx.em.execute<{ asset_id: string; least_negative: number | null }[]>(
-      `select distinct on (s.asset_id) s.asset_id, (select max(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as least_negative
+    () => ctx.em.execute<{ asset_id: string; least_negative: number | null; most_negative: number | null }[]>(
+      `select distinct on (s.asset_id) s.asset_id,
+              (select max(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as least_negative,
+              (select min(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as most_negative
          from survey s where s.organisation_id = ? and s.asset_id = any(?::uuid[]) order by s.asset_id, s.surveyed_on desc, s.created_at desc`,
       [ctx.organisation.id, `{${ids.join(',')}}`],
     ),
   );
-  const leastNegative = new Map(latest.map((r) => [r.asset_id, r.least_negative === null ? null : Number(r.least_negative)]));
+  // The latest survey's extremes, V vs Ag/AgCl/seawater: the least negative reading decides under-protection, the most negative over-protection.
+  const extremes = new Map(latest.map((r) => [r.asset_id, { least: r.least_negative === null ? null : Number(r.least_negative), most: r.most_negative === null ? null : Number(r.most_negative) }]));
   const bookedByGroup = new Map(booked.map((r) => [r.group.id, r]));
   return assets.map((asset) => {
     const groups = forecasts.filter((f) => f.group.asset.id === asset.id);
@@ -55,9 +60,11 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
     });
     const byGroup = new Map(proposals.map((p) => [p.groupId, p]));
     const nextDocking = usable.find((d) => dockingDate(d).getTime() >= today.getTime() - 86_400_000) ?? null;
-    const potential = leastNegative.get(asset.id);
-    const underProtectedBySurvey = potential !== null && potential !== undefined && classifyPotential({ potentialAgAgClV: potential, protectedMetal: protectedMetalOf(asset) }).status === 'under-protected';
-    const outlook = assetOutlook({ groupStatuses: proposals, underProtectedBySurvey, today, nextDockingId: nextDocking?.id ?? null });
+    const criteria = surveyCriteriaOf(asset);
+    const { least = null, most = null } = extremes.get(asset.id) ?? {};
+    const underProtectedBySurvey = least !== null && classifyPotential({ potentialAgAgClV: least, ...criteria }).status === 'under-protected';
+    const overProtectedBySurvey = most !== null && classifyPotential({ potentialAgAgClV: most, ...criteria }).status === 'over-protected';
+    const outlook = assetOutlook({ groupStatuses: proposals, underProtectedBySurvey, overProtectedBySurvey, today, nextDockingId: nextDocking?.id ?? null });
     const netMass = new Map(groups.map((g) => [g.group.id, g.group.quantity * g.group.model.netMassKg]));
     return {
       asset,
@@ -66,6 +73,7 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
       nextDocking,
       outlook,
       underProtectedBySurvey,
+      overProtectedBySurvey,
       massDue: massDueKg(proposals, netMass),
     };
   });
@@ -75,5 +83,6 @@ export const OUTLOOK_WORDS: Record<AssetOutlook, string> = {
   sound: 'Sound',
   'renew-at-next-docking': 'Renew at next docking',
   overdue: 'Overdue',
+  'over-protected': 'Over-protected by survey',
   'under-protected': 'Under-protected by survey',
 };

@@ -1,10 +1,11 @@
 import { AnodeGroupSchema, MembershipSchema, SurveyReadingSchema, type Survey } from '@/entities';
-import { convertPotential } from '@/lib/cp';
+import { AG_AGCL_SEAWATER_SALINITY_RANGE_PSU, convertPotential } from '@/lib/cp';
 import { classifyPotential } from '@/lib/surveys/criteria';
-import { protectedMetalOf } from '@/lib/register/protected-metal';
+import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
 import type { ParsedReading } from '@/lib/surveys/survey-csv';
 import { enqueueMail } from '../../mail/outbox';
 import { getEnv } from '../../env';
+import { AppError } from '../../errors';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { audit } from '../../audit';
 import { getSurveyOrThrow } from './survey-access';
@@ -13,19 +14,26 @@ import { readingSchema } from '@/lib/schemas/register';
 export type ReadingInput = Omit<ParsedReading, 'line' | 'potentialAgAgClV'> & { line?: number | null };
 
 /**
- * Adds readings to a survey in the caller's unit of work: potentials converted to Ag/AgCl/seawater,
- * group labels resolved to the asset's fitted groups. When a reading is under-protected, the
- * organisation's engineers and owners are told once per survey (through the outbox).
+ * Adds readings to a survey in the caller's unit of work: potentials converted to Ag/AgCl/seawater
+ * (a reading against an Ag/AgCl/seawater electrode corrected for the chloride of the asset's water,
+ * Nernst) and classified with the asset's criteria (metal, anaerobic, high-strength steel); group
+ * labels resolved to the asset's fitted groups. When a reading is under-protected, the organisation's
+ * engineers and owners are told once per survey (through the outbox).
  */
 export async function addReadings(ctx: OrgContext, survey: Survey, readings: ReadingInput[]) {
   const labels = [...new Set(readings.map((r) => r.anodeGroupLabel).filter((l): l is string => Boolean(l)))];
   const groups = labels.length ? await ctx.em.find(AnodeGroupSchema, { asset: survey.asset, removedOn: null, label: { $in: labels } }) : [];
   const byLabel = new Map(groups.map((g) => [g.label, g]));
-  const metal = protectedMetalOf(survey.asset);
+  const criteria = surveyCriteriaOf(survey.asset);
+  const salinityPsu = waterSalinityOf(survey.asset);
+  if (readings.some((r) => r.potentialV !== null && r.electrode === 'ag-agcl-seawater')) assertAgAgClSeawaterUsable(salinityPsu);
   let under = 0;
   for (const r of readings) {
-    const agAgCl = r.potentialV !== null && r.electrode ? convertPotential({ valueV: r.potentialV, from: r.electrode, to: 'ag-agcl-seawater' }) : null;
-    if (agAgCl !== null && classifyPotential({ potentialAgAgClV: agAgCl, protectedMetal: metal }).status === 'under-protected') under++;
+    const agAgCl =
+      r.potentialV !== null && r.electrode
+        ? convertPotential({ valueV: r.potentialV, from: r.electrode, to: 'ag-agcl-seawater', salinityPsu: r.electrode === 'ag-agcl-seawater' ? (salinityPsu ?? undefined) : undefined })
+        : null;
+    if (agAgCl !== null && classifyPotential({ potentialAgAgClV: agAgCl, ...criteria }).status === 'under-protected') under++;
     ctx.em.create(SurveyReadingSchema, {
       survey,
       line: r.line ?? null,
@@ -52,6 +60,22 @@ export async function addReadings(ctx: OrgContext, survey: Survey, readings: Rea
     }
   }
   return { under };
+}
+
+/**
+ * An Ag/AgCl/seawater electrode reads against the chloride of the water it stands in: without the
+ * asset's salinity (brackish or fresh water not measured) the reading cannot be put on the seawater
+ * scale, and below 0.5 PSU the electrode has no stable potential at all (lib/cp/potentials.ts).
+ */
+function assertAgAgClSeawaterUsable(salinityPsu: number | null) {
+  const { min, max } = AG_AGCL_SEAWATER_SALINITY_RANGE_PSU;
+  const message =
+    salinityPsu === null
+      ? "The asset's water salinity is not recorded, so readings against an Ag/AgCl/seawater electrode cannot be corrected for the chloride of brackish or fresh water. Enter the salinity in the asset's particulars, or record against a CSE."
+      : salinityPsu < min || salinityPsu > max
+        ? `At ${salinityPsu} PSU a reading against an Ag/AgCl/seawater electrode cannot be corrected (only from ${min} to ${max} PSU; in fresh water the electrode has no stable potential); record against a CSE.`
+        : null;
+  if (message) throw new AppError('invalid', message, { electrode: [message] });
 }
 
 /** One reading typed in by hand (a drop-cell reading at a berth, a diver's call over the radio). */

@@ -9,7 +9,9 @@ import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
+import { criteriaSubject } from '@/lib/surveys/criteria';
 import { ButtonLink } from '@/components/ui/button';
 import { AssetForm } from '@/components/register/asset-form';
 import { ArchiveAssetButton } from '@/components/register/archive-asset-button';
@@ -31,6 +33,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     throw error;
   }
   const { today, asset, canWrite, zones, designs, surveys, forecasts, catalogue, dockings, changes, series } = page;
+  const salinity = waterSalinityOf(asset);
+  const surveyParticulars: [string, string | null | undefined][] = [
+    ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
+    ['Survey criteria for', criteriaSubject(surveyCriteriaOf(asset))],
+  ];
   const particulars: [string, string | null | undefined][] =
     asset.kind === 'vessel'
       ? [
@@ -49,10 +56,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
           ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
         ];
+  particulars.push(...surveyParticulars);
   const formValues = Object.fromEntries(
     Object.entries(asset)
       .filter(([, v]) => v !== null && v !== undefined && typeof v !== 'object')
-      .map(([k, v]) => [k, k === 'hasImpressedCurrent' ? (v ? 'on' : '') : String(v)]),
+      .map(([k, v]) => [k, typeof v === 'boolean' ? (v ? 'on' : '') : String(v)]),
   );
   const activeGroups = forecasts.map((f) => f.group);
   const modelChoices = catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }));
@@ -286,6 +294,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
             <p className="text-sm text-ink-faint">No surveys yet.</p>
           )}
         </Panel>
+        <Caution />
       </div>
     </>
   );

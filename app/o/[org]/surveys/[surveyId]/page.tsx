@@ -7,6 +7,7 @@ import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { ReadingsTable } from '@/components/surveys/readings-table';
 import { CsvUpload } from '@/components/surveys/csv-upload';
 import { ReadingForm } from '@/components/surveys/reading-form';
@@ -36,7 +37,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
         subtitle={
           <>
             <Link href={`/o/${org}/surveys`} className="text-tide-600 hover:underline">Surveys</Link> · <Link href={`/o/${org}/assets/${survey.assetId}`} className="text-tide-600 hover:underline">{survey.assetName}</Link>
-            {survey.surveyor ? ` · by ${survey.surveyor}` : ''} · recorded by {survey.createdBy} · criteria for {survey.metal}
+            {survey.surveyor ? ` · by ${survey.surveyor}` : ''} · recorded by {survey.createdBy} · criteria for {survey.criteriaFor}
           </>
         }
       />
@@ -44,7 +45,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
         <div className="flex flex-wrap gap-2" aria-label="Outcome">
           <StatusTag tone={counts['under-protected'] ? 'overdue' : 'sound'}>{counts['under-protected']} under-protected</StatusTag>
           <StatusTag tone="sound">{counts.protected} protected</StatusTag>
-          <StatusTag tone={counts['over-protected'] ? 'under' : 'neutral'}>{counts['over-protected']} over-protected</StatusTag>
+          <StatusTag tone={counts['over-protected'] ? POTENTIAL_STATUS_TONES['over-protected'] : 'neutral'}>{counts['over-protected']} over-protected</StatusTag>
           <span className="text-xs text-ink-soft">of {readings.length} readings</span>
         </div>
         {survey.notes ? <p className="text-sm text-ink-soft">{survey.notes}</p> : null}
