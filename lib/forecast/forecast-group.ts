@@ -1,47 +1,71 @@
-import { HOURS_PER_YEAR, MS_PER_YEAR, addMonthsUTC, addYears8760 } from './dates';
+import { HOURS_PER_YEAR, MS_PER_YEAR, addMonthsUTC } from './dates';
+import { chargeAYears, constantProfile, currentAtA, meanCurrentA, readDemandProfile, yearsToCharge, type DemandProfile } from './demand-profile';
 import { ForecastInputError } from './errors';
 import { date, fraction, list, nonNegative, positive, record, unitFraction, whole } from './validate';
 
 /**
- * Depletion forecast of one installed anode group.
+ * Depletion forecast of one installed anode group: when it is to be renewed (renewBy) and
+ * when it is spent (endOfLife), each with a band (early / late).
  *
- * Consumption (handbook practice, design-basis.md "remaining life from a survey"):
- *   rate, kg/yr = I x 8760 / eps        remaining life Y = eps x W / (8760 x I)
- * with W the usable mass left. The group reaches its end of life when the consumed mass
- * is u x installed mass, i.e. when the remaining fraction falls to 1 - u.
+ * Demand. The group's current follows its design demand profile (demand-profile.ts): linear
+ * from startA at installation to endA at overYears, because coating breakdown fc = a + b*t
+ * makes the demand linear in time. Without a profile the current is the constant `currentA`
+ * (the design's mean current share, or a measured output): the straight line of the handbook
+ * rule Y = eps x W / (8760 x I) (design-basis.md "remaining life from a survey").
+ * Consumed mass by t = Q(t) x 8760 / eps kg, Q the charge delivered (A x years, closed form).
  *
- * Survey correction (the rule, kept simple on purpose):
- * 1. No survey: a straight line from (installation, 1) at the design rate.
- * 2. Surveys: the forecast starts from the LATEST survey (its date and remaining
- *    fraction). Several surveys on the same day count as one, with the lowest fraction
- *    (the conservative reading).
- *    a. The latest survey is at least half a year after installation ("informative"):
- *       the observed rate is its average since installation, (1 - f) / t, and the
- *       forecast continues at that rate. The forecast is then the straight line from
- *       installation through the latest survey: the longest baseline, so the least
- *       affected by the +/- several per cent of a visual estimate. Evidence outranks the
- *       input: this holds even when currentA is 0.
- *    b. The latest survey is under half a year after installation: too short a baseline
- *       for a rate (a 0.05 reading error over 3 months is 0.20 per year), so the design
- *       rate continues from the survey point.
- * 3. A latest survey at or below the end fraction (1 - u) means the group is spent: its
- *    end of life is the first time the recorded history (installation and surveys joined
- *    by straight lines) reached 1 - u, and the band collapses onto that date.
- * 4. A forecast rate of zero (no current and no informative survey, or an informative
- *    survey that shows no loss at all) never depletes: endOfLife, early and late are null.
- *    So does a life beyond MAX_FORECAST_YEARS (1000 years); a late end beyond it is null.
+ * Dates. endOfLife: the remaining fraction reaches 1 - u (the consumed mass is u x installed
+ * mass). renewBy: it reaches the higher of 1 - u and the renewal threshold, by default 0.25
+ * remaining ("renew when less than 25 % of original mass remains", NAVFAC mooring practice,
+ * published; design-basis.md "Inspection"), so renewBy is never after endOfLife and is earlier
+ * whenever 0.25 > 1 - u (u < 0.75).
  *
- * Band (early / late), practice: the rates implied by the surveys are
- *   - each informative survey's average since installation, (1 - f) / t, and
- *   - each pair of consecutive surveys at least half a year apart, (f1 - f2) / (t2 - t1),
- * ignoring rates that are not positive (a survey that shows no loss says the loss is below
- * what the eye resolves, not that it is zero). The band runs from the forecast start at
- * the highest and the lowest of those rates, widened so it is never narrower than
- * +/- 20 % of the forecast rate (the resolution of a visual estimate; with one survey or
- * none the band is exactly +/- 20 %). A recent interval faster than the average (coating
- * breakdown raising the current) therefore pulls the early date forward.
+ * Surveys scale the profile, they do not replace it:
+ * 1. A survey reading "no loss" (remaining fraction 1) is set aside: it says the loss is below
+ *    what the eye resolves, not that nothing was consumed, so it neither scales nor restarts the
+ *    forecast (taken as a restart it would push the end of life back by the survey's age, and
+ *    as a scale it would stop the forecast). With only such surveys the forecast is the profile.
+ *    Several readings on one day count as one, the lowest (the conservative reading).
+ * 2. A survey at least half a year after installation is "informative": its consumed fraction
+ *    c = 1 - f against the profile's own by that date, P(t) = Q(t) x 8760 / (eps x mass),
+ *    gives the factor k = c / P(t). Several informative surveys: k is the least-squares fit of
+ *    the consumed fractions, minimising sum (c_i - k P_i)^2 with equal weights, so
+ *    k = sum(c_i P_i) / sum(P_i^2). Equal weights because a visual reading errs by about the
+ *    same absolute fraction whatever its date; a later survey still counts more, through its
+ *    larger P_i (a longer baseline). Without an informative survey k = 1 (the design).
+ * 3. The forecast starts from the latest survey kept (its date and reading; installation with
+ *    none) and goes on at k x the profile's current:
+ *      f(t) = f_s - k x (P(t) - P(t_s)).
+ *    With one informative survey this is the curve 1 - k x P(t) through that survey. A survey
+ *    under half a year old restarts the forecast at the design current (k = 1): too short a
+ *    baseline for a factor (a 0.05 reading error over 3 months is most of what was consumed).
+ * 4. A date whose remaining fraction the latest survey already found (reading at or below it)
+ *    is in the record: the first time the recorded history (installation and the surveys kept,
+ *    joined by straight lines) reached it, and its band collapses onto it (`spent` for 1 - u).
+ * 5. Without a design current (zero current or a zero profile) an informative survey alone sets
+ *    a constant rate (evidence outranks the missing input); with neither, or a forecast further
+ *    than MAX_FORECAST_YEARS from its start (a reading a hair under 1), the date is null. A
+ *    design current that does not fall to zero always gives a date: a survey of no loss cannot
+ *    stop it (rule 1).
  *
- * Time: a year is 8760 h, the year of the consumption rate (see dates.ts).
+ * Band (early / late), the method:
+ * - Readings: a diver's estimate of the remaining fraction is good to about +/- 0.05 absolute
+ *   (READING_UNCERTAINTY, common practice). The early end takes every survey kept 0.05 lower,
+ *   the late end 0.05 higher (within 0..1): that moves the start point and, for the fit,
+ *   k by +/- 0.05 x sum(P_i) / sum(P_i^2) (0.05 / P for one survey). Every reading is moved the
+ *   same way (one diver's bias), the wider and safer assumption than independent errors.
+ * - Spread: the band's k range is widened to the lowest and highest k implied by any one
+ *   informative survey (c_i / P_i) and by any two consecutive surveys at least half a year
+ *   apart ((c_j - c_i) / (P_j - P_i)); factors that are not positive are ignored. A recent
+ *   interval consuming faster than the fit pulls the early date forward.
+ * - Without an informative survey k is the design's, 1, and its range +/- 20 % (BAND_FRACTION,
+ *   practice), still with the reading moved +/- 0.05 where an early survey is the start.
+ * Then early = the date with the lower readings and the highest k, late = the higher readings
+ * and the lowest k (null when that k is 0, readings consistent with no loss at all, or beyond
+ * MAX_FORECAST_YEARS). endOfLife and renewBy always lie inside their bands.
+ *
+ * Time: a year is 8760 h, the year of the consumption rate (see dates.ts). Dates are rounded
+ * to the millisecond. Cost: O(surveys) per group, closed forms, no stepping.
  */
 
 export interface SurveyReading {
@@ -58,8 +82,21 @@ export interface GroupForecastInput {
   utilisationFactor: number;
   /** eps, Ah/kg. */
   capacityAhPerKg: number;
-  /** The group's share of its design's mean current, or a measured output, A. */
-  currentA: number;
+  /**
+   * Constant current, A: the group's share of its design's mean current, or a measured output.
+   * Required without `demandProfile`; with one it is checked when given but not used.
+   */
+  currentA?: number;
+  /**
+   * The group's share of its design's demand over time: linear from startA at installation to
+   * endA at overYears (see demand-profile.ts). Absent or null: the constant `currentA`.
+   */
+  demandProfile?: DemandProfile | null;
+  /**
+   * The organisation's renewal threshold, remaining fraction 0..1: renew when less than this
+   * remains. Default DEFAULT_RENEWAL_THRESHOLD_REMAINING (0.25).
+   */
+  renewalThresholdRemaining?: number;
   surveys?: readonly SurveyReading[];
 }
 
@@ -74,27 +111,50 @@ export interface GroupForecast {
   installedMassKg: number;
   /** Remaining fraction at end of life, 1 - u. */
   endFraction: number;
-  /** I x 8760 / eps, kg/yr. */
+  /** Remaining fraction at which the group is to be renewed: max(1 - u, renewal threshold). */
+  renewFraction: number;
+  /** The design's mean rate, kg/yr: mean current x 8760 / eps (the profile's mean over overYears). */
   designRatePerYearKg: number;
-  /** The rate the forecast uses after the start point, kg/yr. */
+  /** The rate the forecast uses at its start point, kg/yr (it follows the profile after it). */
   ratePerYearKg: number;
-  /** The average rate since installation shown by the latest survey, when informative. */
+  /** The average rate since installation shown by the latest survey kept, when informative. */
   observedRatePerYearKg?: number;
+  /**
+   * k: how many times the design profile's consumption the surveys show (1 without an
+   * informative survey). Absent when the design has no current (surveys alone set the rate).
+   */
+  profileScale?: number;
   basis: ForecastBasis;
-  /** Where the forecast line starts: installation, or the latest survey. */
+  /** Where the forecast starts: installation, or the latest survey kept. */
   startsFrom: RemainingPoint;
-  /** True when the latest survey already found the group at or below 1 - u. */
+  /** True when the latest survey kept already found the group at or below 1 - u. */
   spent: boolean;
-  /** When the remaining fraction reaches 1 - u; null when it never depletes. */
+  /**
+   * End of life: when the remaining fraction reaches 1 - u, the utilisation factor used up and
+   * the group no longer relied on to protect. Null only when it never depletes (no current and
+   * no survey showing loss, or a profile falling to 0 A first) or beyond MAX_FORECAST_YEARS.
+   */
   endOfLife: Date | null;
-  /** Early end of the band; null only with endOfLife. */
+  /** Early end of the endOfLife band; null only with endOfLife. */
   early: Date | null;
-  /** Late end of the band; null with endOfLife, or when beyond MAX_FORECAST_YEARS. */
+  /** Late end of the endOfLife band; null with endOfLife, or as the module comment says. */
   late: Date | null;
   /**
+   * Renew by: when the remaining fraction reaches renewFraction, the higher of 1 - u and the
+   * organisation's renewal threshold (default 0.25). The date renewals are scheduled on; never
+   * after endOfLife. Null only with endOfLife; a date while endOfLife is null when a survey
+   * already found the group below the renewal fraction, or a demand that dies away (a falling
+   * profile to 0 A) reaches the renewal fraction but never 1 - u.
+   */
+  renewBy: Date | null;
+  /** Early end of the renewBy band (for the scheduler's at-risk flag); null only with renewBy. */
+  renewByEarly: Date | null;
+  /** Late end of the renewBy band. */
+  renewByLate: Date | null;
+  /**
    * Remaining fraction on a date, clamped to 0..1: 1 before installation, the recorded
-   * history (straight lines between installation and surveys) up to the latest survey,
-   * the forecast line after it.
+   * history (straight lines between installation and the surveys kept) up to the latest
+   * survey kept, the forecast curve after it.
    */
   remainingFractionAt(at: Date): number;
   /** remainingFractionAt x installed mass, kg. */
@@ -106,13 +166,17 @@ export interface GroupForecast {
   remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[];
 }
 
-/** Half a year of 8760-h years: the shortest baseline that gives an observed rate (practice). */
+/** Half a year of 8760-h years: the shortest baseline that gives a survey factor (practice). */
 export const MIN_SURVEY_BASELINE_YEARS = 0.5;
-/** Half-width of the band when the surveys do not spread wider, as a fraction of the rate (practice). */
+/** Half-width of the band without an informative survey, as a fraction of k (practice). */
 export const BAND_FRACTION = 0.2;
+/** Uncertainty of a diver's remaining-fraction estimate, absolute (common practice). */
+export const READING_UNCERTAINTY = 0.05;
+/** Renew when less than this fraction of the original mass remains (NAVFAC mooring practice, published). */
+export const DEFAULT_RENEWAL_THRESHOLD_REMAINING = 0.25;
 /**
- * Forecasts further out than this (a near-zero rate) are treated as never depleting:
- * endOfLife (or late) is null rather than a date beyond any plan or JS Date's range.
+ * Forecasts further out than this from their start (a near-zero rate) are treated as never
+ * depleting: the date is null rather than one beyond any plan or JS Date's range.
  */
 export const MAX_FORECAST_YEARS = 1000;
 /** Cap on remainingSeries so a wrong step cannot allocate without bound. */
@@ -123,6 +187,37 @@ interface Point {
   f: number;
 }
 
+/** A survey kept, with its years since installation and the unit profile's consumed fraction then. */
+interface SurveyPoint extends Point {
+  years: number;
+  p: number;
+}
+
+/** The scale factor K (A, on the unit profile) and the band's range of it. */
+interface Fit {
+  k: number;
+  low: number;
+  high: number;
+}
+
+/** What a date is solved on: the unit profile, the mass, and the recorded history. */
+interface Model {
+  /** Installation, ms. */
+  t0: number;
+  /** The design's shape with a mean of 1 A over overYears (a constant 1 A without a design current). */
+  unit: DemandProfile;
+  /** Consumed fraction per A x year, 8760 / (eps x installed mass). */
+  fractionPerAYear: number;
+  /** Installation (fraction 1), then the surveys kept. */
+  history: Point[];
+}
+
+interface DateBand {
+  at: Date | null;
+  early: Date | null;
+  late: Date | null;
+}
+
 export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const inp = record(input, 'input');
   const installedOn = date(inp.installedOn, 'installedOn');
@@ -130,51 +225,51 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const netMass = positive(inp.netMassPerAnodeKg, 'netMassPerAnodeKg', 'kg');
   const u = unitFraction(inp.utilisationFactor, 'utilisationFactor');
   const eps = positive(inp.capacityAhPerKg, 'capacityAhPerKg', 'Ah/kg');
-  const currentA = nonNegative(inp.currentA, 'currentA', 'A');
-  const surveys = readSurveys(inp.surveys, installedOn);
+  const hasProfile = inp.demandProfile !== undefined && inp.demandProfile !== null;
+  const currentA = hasProfile && inp.currentA === undefined ? 0 : nonNegative(inp.currentA, 'currentA', 'A');
+  const design = hasProfile ? readDemandProfile(inp.demandProfile, 'demandProfile') : constantProfile(currentA);
+  const threshold =
+    inp.renewalThresholdRemaining === undefined ? DEFAULT_RENEWAL_THRESHOLD_REMAINING : fraction(inp.renewalThresholdRemaining, 'renewalThresholdRemaining');
+  const readings = readSurveys(inp.surveys, installedOn);
 
   const installedMassKg = quantity * netMass;
   const endFraction = 1 - u;
-  const designRatePerYearKg = (currentA * HOURS_PER_YEAR) / eps;
-  if (!Number.isFinite(installedMassKg) || !Number.isFinite(designRatePerYearKg)) {
-    throw new ForecastInputError('currentA', 'The inputs are too large to give a finite forecast; check the units.');
+  const renewFraction = Math.max(endFraction, threshold);
+  const designScaleA = meanCurrentA(design);
+  const designRatePerYearKg = (designScaleA * HOURS_PER_YEAR) / eps;
+  if (!Number.isFinite(installedMassKg) || !Number.isFinite(designRatePerYearKg) || !Number.isFinite(design.endA - design.startA)) {
+    throw new ForecastInputError(hasProfile ? 'demandProfile' : 'currentA', 'The inputs are too large to give a finite forecast; check the units.');
   }
-  const designRateFrac = designRatePerYearKg / installedMassKg;
+  // The forecast's current is K x the unit profile (K in A); K = the design's mean current is
+  // the design itself (k = 1).
+  const t0 = installedOn.getTime();
+  const m: Model = {
+    t0,
+    unit: designScaleA > 0 ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears } : constantProfile(1),
+    fractionPerAYear: HOURS_PER_YEAR / (eps * installedMassKg),
+    history: [{ t: t0, f: 1 }],
+  };
 
-  // History: installation, then one point per survey day (lowest reading of the day).
-  const history: Point[] = [{ t: installedOn.getTime(), f: 1 }, ...surveys];
-  const start = history[history.length - 1];
-  const hasSurvey = history.length > 1;
-  const startYears = (start.t - installedOn.getTime()) / MS_PER_YEAR;
-  const informative = hasSurvey && startYears >= MIN_SURVEY_BASELINE_YEARS;
-
-  const observedRateFrac = informative ? (1 - start.f) / startYears : undefined;
-  const rateFrac = observedRateFrac ?? designRateFrac;
-  const basis: ForecastBasis = hasSurvey ? 'survey-corrected' : 'design-rate';
-  const spent = start.f <= endFraction;
-
-  let endOfLife: Date | null = null;
-  let early: Date | null = null;
-  let late: Date | null = null;
-  if (spent) {
-    endOfLife = new Date(firstCrossing(history, endFraction));
-    early = endOfLife;
-    late = endOfLife;
-  } else if (rateFrac > 0) {
-    const usable = start.f - endFraction; // > 0 here
-    const startDate = new Date(start.t);
-    const after = (years: number): Date | null => (years <= MAX_FORECAST_YEARS ? addYears8760(startDate, years) : null);
-    endOfLife = after(usable / rateFrac);
-    if (endOfLife !== null) {
-      const { low, high } = bandRates(history, rateFrac, informative);
-      early = after(usable / high);
-      late = after(usable / low);
-    }
+  // Rule 1: readings of no loss are set aside; the rest, with the unit profile's consumption.
+  const kept: SurveyPoint[] = [];
+  for (const r of readings) {
+    if (r.f >= 1) continue;
+    const years = (r.t - t0) / MS_PER_YEAR;
+    const point = { t: r.t, f: r.f, years, p: consumedAt(m, years) };
+    kept.push(point);
+    m.history.push(point);
   }
+  const start = m.history[m.history.length - 1];
+  const startYears = (start.t - t0) / MS_PER_YEAR;
+  const fit = fitScale(kept, designScaleA);
+  const end = dateBand(m, fit, endFraction);
+  const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
 
+  const startConsumed = consumedAt(m, startYears);
   const remainingFractionAt = (at: Date): number => {
     const t = date(at, 'date').getTime();
-    return clamp01(fractionAt(history, rateFrac, t));
+    if (t >= start.t) return clamp01(start.f - fit.k * (consumedAt(m, (t - t0) / MS_PER_YEAR) - startConsumed));
+    return clamp01(historyAt(m.history, t));
   };
 
   const remainingSeries = (from: Date, to: Date, stepMonths: number): RemainingPoint[] => {
@@ -195,22 +290,62 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
     return out;
   };
 
-  return {
+  const latest = kept.length > 0 ? kept[kept.length - 1] : null;
+  const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
+  const forecast: GroupForecast = {
     installedMassKg,
     endFraction,
+    renewFraction,
     designRatePerYearKg,
-    ratePerYearKg: rateFrac * installedMassKg,
-    ...(observedRateFrac !== undefined ? { observedRatePerYearKg: observedRateFrac * installedMassKg } : {}),
-    basis,
+    ratePerYearKg: fit.k * m.fractionPerAYear * currentAtA(m.unit, startYears) * installedMassKg,
+    basis: kept.length > 0 ? 'survey-corrected' : 'design-rate',
     startsFrom: { date: new Date(start.t), remainingFraction: start.f },
-    spent,
-    endOfLife,
-    early,
-    late,
+    spent: start.f <= endFraction,
+    endOfLife: end.at,
+    early: end.early,
+    late: end.late,
+    renewBy: renew.at,
+    renewByEarly: renew.early,
+    renewByLate: renew.late,
     remainingFractionAt,
     remainingMassKgAt: (at: Date) => remainingFractionAt(at) * installedMassKg,
     remainingSeries,
   };
+  if (observedRateFrac !== undefined) forecast.observedRatePerYearKg = observedRateFrac * installedMassKg;
+  if (designScaleA > 0) forecast.profileScale = fit.k / designScaleA;
+  return forecast;
+}
+
+/** The unit profile's consumed fraction `years` after installation. */
+function consumedAt(m: Model, years: number): number {
+  return m.fractionPerAYear * chargeAYears(m.unit, years);
+}
+
+/**
+ * Rules 3-5: the first time, ms, at which the forecast reaches the remaining fraction `target`,
+ * with every survey reading moved by `delta` (0 for the forecast itself, -/+ the reading
+ * uncertainty for the band) and the factor K `k`; null when never within reach.
+ */
+function reach(m: Model, delta: number, k: number, target: number): number | null {
+  if (target >= 1) return m.t0;
+  const anchor = m.history[m.history.length - 1];
+  const anchorF = m.history.length > 1 ? clamp01(anchor.f + delta) : anchor.f;
+  if (anchorF <= target) return Math.round(firstCrossing(m.history, target, delta));
+  if (!(k > 0)) return null;
+  const anchorYears = (anchor.t - m.t0) / MS_PER_YEAR;
+  const years = yearsToCharge(m.unit, chargeAYears(m.unit, anchorYears) + (anchorF - target) / (k * m.fractionPerAYear));
+  if (!(years - anchorYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
+  return Math.max(anchor.t, Math.round(m.t0 + years * MS_PER_YEAR));
+}
+
+/** A date and its band (see the module comment): collapsed when the record already reached it. */
+function dateBand(m: Model, fit: Fit, target: number): DateBand {
+  const at = reach(m, 0, fit.k, target);
+  if (at === null) return { at: null, early: null, late: null };
+  if (m.history[m.history.length - 1].f <= target) return { at: new Date(at), early: new Date(at), late: new Date(at) };
+  const early = reach(m, -READING_UNCERTAINTY, fit.high, target);
+  const late = reach(m, READING_UNCERTAINTY, fit.low, target);
+  return { at: new Date(at), early: new Date(Math.min(early ?? at, at)), late: late === null ? null : new Date(Math.max(late, at)) };
 }
 
 /** Validated surveys as history points, sorted by time, one per instant (lowest reading). */
@@ -230,47 +365,63 @@ function readSurveys(value: unknown, installedOn: Date): Point[] {
   return points.filter((p, i) => i === 0 || p.t !== points[i - 1].t);
 }
 
-/** Lowest and highest rate (fraction per year) of the band; see the module comment. */
-function bandRates(history: Point[], rateFrac: number, informative: boolean): { low: number; high: number } {
-  let low = (1 - BAND_FRACTION) * rateFrac;
-  let high = (1 + BAND_FRACTION) * rateFrac;
-  if (!informative) return { low, high };
-  const t0 = history[0].t;
-  const consider = (r: number) => {
-    if (r > 0 && Number.isFinite(r)) {
-      low = Math.min(low, r);
-      high = Math.max(high, r);
+/**
+ * Rule 2 and the band's k range: K (A, on the unit profile) fitted to the informative surveys
+ * by least squares on the consumed fraction, widened by the reading uncertainty and the spread
+ * of the single-survey and interval factors; the design's K +/- 20 % without one.
+ */
+function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
+  let sumPP = 0;
+  let sumCP = 0;
+  let sumP = 0;
+  const spread = { low: Infinity, high: 0 };
+  for (let i = 0; i < kept.length; i++) {
+    const s = kept[i];
+    if (s.years >= MIN_SURVEY_BASELINE_YEARS && s.p > 0) {
+      const consumed = 1 - s.f;
+      sumPP += s.p * s.p;
+      sumCP += consumed * s.p;
+      sumP += s.p;
+      widen(spread, consumed / s.p); // this survey's own factor
     }
-  };
-  for (let i = 1; i < history.length; i++) {
-    const p = history[i];
-    const sinceInstall = (p.t - t0) / MS_PER_YEAR;
-    if (sinceInstall >= MIN_SURVEY_BASELINE_YEARS) consider((1 - p.f) / sinceInstall);
-    if (i >= 2) {
-      const q = history[i - 1];
-      const gap = (p.t - q.t) / MS_PER_YEAR;
-      if (gap >= MIN_SURVEY_BASELINE_YEARS) consider((q.f - p.f) / gap);
+    const before = i > 0 ? kept[i - 1] : null;
+    if (before !== null && s.years - before.years >= MIN_SURVEY_BASELINE_YEARS && s.p > before.p) {
+      widen(spread, (before.f - s.f) / (s.p - before.p)); // the interval since the survey before
     }
   }
-  return { low, high };
+  if (!(sumPP > 0)) return { k: designScaleA, low: (1 - BAND_FRACTION) * designScaleA, high: (1 + BAND_FRACTION) * designScaleA };
+  const k = sumCP / sumPP;
+  const reading = (READING_UNCERTAINTY * sumP) / sumPP;
+  return { k, low: Math.min(Math.max(0, k - reading), spread.low), high: Math.max(k + reading, spread.high) };
 }
 
-/** The first time the piecewise-linear history reaches fraction `target` (history ends at or below it). */
-function firstCrossing(history: Point[], target: number): number {
-  for (let i = 1; i < history.length; i++) {
-    const a = history[i - 1];
-    const b = history[i];
-    if (a.f > target && b.f <= target) return a.t + ((a.f - target) / (a.f - b.f)) * (b.t - a.t);
+/** Widens the range to take in a positive, finite factor; others are ignored. */
+function widen(range: { low: number; high: number }, factor: number): void {
+  if (factor > 0 && Number.isFinite(factor)) {
+    range.low = Math.min(range.low, factor);
+    range.high = Math.max(range.high, factor);
   }
-  // Unreachable: history starts at 1 > 1 - u and ends at or below it.
+}
+
+/**
+ * The first time the piecewise-linear history, with every survey's reading moved by `delta`
+ * (within 0..1; installation stays at 1), reaches fraction `target` < 1; it ends at or below it.
+ */
+function firstCrossing(history: readonly Point[], target: number, delta: number): number {
+  let a = history[0];
+  for (let i = 1; i < history.length; i++) {
+    const b = { t: history[i].t, f: clamp01(history[i].f + delta) };
+    if (a.f > target && b.f <= target) return a.t + ((a.f - target) / (a.f - b.f)) * (b.t - a.t);
+    a = b;
+  }
+  // Unreachable: history starts at 1 > target and ends at or below it.
   return history[history.length - 1].t;
 }
 
-function fractionAt(history: Point[], rateFrac: number, t: number): number {
+/** The recorded history at t (before the latest point; straight lines between the points). */
+function historyAt(history: readonly Point[], t: number): number {
   if (t < history[0].t) return 1;
-  const last = history[history.length - 1];
-  if (t >= last.t) return last.f - rateFrac * ((t - last.t) / MS_PER_YEAR);
-  // Binary search for the last point at or before t (history is sorted, length >= 2 here).
+  // Binary search for the last point at or before t (history is sorted, t before its last point).
   let lo = 0;
   let hi = history.length - 1; // history[hi].t > t
   while (hi - lo > 1) {

@@ -2,8 +2,12 @@
  * Tidewarden forecast and scheduling: pure, synchronous, dates as JS Date in UTC,
  * masses in kg, currents in A.
  *
- * - forecast-group      forecastGroup: one installed group's depletion, survey correction, band
+ * - forecast-group      forecastGroup: one installed group's depletion on its demand profile,
+ *                       surveys scaling the profile, renewBy and endOfLife with their bands
+ * - demand-profile      the linear demand profile and the charge it delivers (closed forms)
+ * - labels              the words for the forecast's dates ('Renew by', 'End of life')
  * - propose-renewals    proposeRenewals / proposeRenewalsForFleet: the docking that renews each group
+ *                       (scheduled on its renewBy date)
  * - propose-dockings    proposeNextDockings: future dockings under class practice
  * - outlook             assetOutlook (fleet overview) and massDueKg (anode mass per docking)
  * - dates               UTC calendar-month arithmetic and 8760-h years
@@ -21,11 +25,15 @@ export {
   startOfDayUTC,
   yearsBetween,
 } from './dates';
+export { chargeAYears, currentAtA, meanCurrentA, yearsToCharge, type DemandProfile } from './demand-profile';
+export { FORECAST_DATE_LABELS, forecastDateWords, type ForecastDateKind } from './labels';
 export {
   BAND_FRACTION,
+  DEFAULT_RENEWAL_THRESHOLD_REMAINING,
   MAX_FORECAST_YEARS,
   MAX_SERIES_POINTS,
   MIN_SURVEY_BASELINE_YEARS,
+  READING_UNCERTAINTY,
   forecastGroup,
   type ForecastBasis,
   type GroupForecast,

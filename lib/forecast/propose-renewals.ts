@@ -1,17 +1,23 @@
 import { addMonthsUTC, dayNumberUTC } from './dates';
 import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
+import { forecastDateWords } from './labels';
 import { date, list, record, text, whole } from './validate';
 
 /**
  * Renewal scheduling: which docking (or diving campaign) renews each anode group.
  *
+ * The due date of a group is its renewBy (GroupForecast.renewBy: the remaining fraction reaches
+ * the higher of 1 - u and the renewal threshold, 25 % by default), and its early date the
+ * early end of the renewBy band (renewByEarly). A caller that gives no renewBy (older callers)
+ * is scheduled on endOfLife and `early` instead, as before.
+ *
  * Rules, applied to each group in this order:
  * 1. A group with a confirmed renewal is returned as 'kept' with that docking, never
  *    re-proposed or overwritten by a recompute. It only gets a `warning` when the
  *    confirmed docking is unknown, cancelled, or after the group's deadline.
- * 2. A group whose end of life is null (never depletes) is 'sound'.
- * 3. deadline = end of life - margin (calendar months, default 6, practice).
+ * 2. A group whose due date is null (never depletes) is 'sound'.
+ * 3. deadline = due date - margin (calendar months, default 6, practice).
  * 4. A deadline before today (by UTC calendar day) is 'no-docking' with
  *    `needsDockingBy = deadline` and `overdue: true`.
  * 5. Candidate dockings are those not cancelled, not done (a finished docking cannot
@@ -27,7 +33,7 @@ import { date, list, record, text, whole } from './validate';
  *    at the last opportunity before the anodes run out so their life is used; a docking
  *    after the deadline is too late. A group that outlives several dockings is proposed
  *    at the last of them before its deadline. When the group's early date (the early end
- *    of its forecast band) less the margin is before that docking, `atRisk` is true.
+ *    of its due date's band) less the margin is before that docking, `atRisk` is true.
  * 7. No candidate on or before the deadline: 'no-docking', `needsDockingBy = deadline`,
  *    `overdue: false`.
  *
@@ -48,15 +54,26 @@ export interface DockingInput {
 
 export interface RenewalGroupInput {
   id: string;
-  endOfLife: Date | null;
-  /** Early end of the forecast band (GroupForecast.early), for the `atRisk` flag. */
+  /**
+   * Renew by (GroupForecast.renewBy): the date the group is scheduled on. When given (a date
+   * or null), `endOfLife` and `early` are not used for scheduling.
+   */
+  renewBy?: Date | null;
+  /** Early end of the renewBy band (GroupForecast.renewByEarly), for the `atRisk` flag. */
+  renewByEarly?: Date | null;
+  /**
+   * End of life (GroupForecast.endOfLife): scheduled on only when `renewBy` is not given
+   * (callers written before renewBy); required then.
+   */
+  endOfLife?: Date | null;
+  /** Early end of the endOfLife band (GroupForecast.early), with `endOfLife` only. */
   early?: Date | null;
   confirmedRenewal?: { dockingId: string } | null;
 }
 
 export interface RenewalOptions {
   today: Date;
-  /** Whole months between the deadline and the end of life; default 6 (practice). */
+  /** Whole months between the deadline and the due date (renewBy); default 6 (practice). */
   marginMonths?: number;
   /** Expected interval after the last planned docking; default 30 months (practice). */
   typicalIntervalMonths?: number;
@@ -75,7 +92,7 @@ export interface RenewalProposal {
   /** 'proposed': the docking chosen; 'kept': the confirmed one. */
   dockingId?: string;
   dockingDate?: Date;
-  /** End of life less the margin, for every group that depletes. */
+  /** The due date (renewBy, else endOfLife) less the margin, for every group that depletes. */
   deadline?: Date;
   /** 'no-docking': the date by which a docking is needed (the deadline). */
   needsDockingBy?: Date;
@@ -200,14 +217,18 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     const field = `${prefix}groups[${i}]`;
     const r = record(g, field);
     const groupId = text(r.id, `${field}.id`);
-    const endOfLife = r.endOfLife === null ? null : date(r.endOfLife, `${field}.endOfLife`);
-    const early = r.early === undefined || r.early === null ? null : date(r.early, `${field}.early`);
+    // The due date: renewBy when the caller gives it, else endOfLife (see the module comment).
+    const onRenewBy = r.renewBy !== undefined;
+    const dueKey = onRenewBy ? 'renewBy' : 'endOfLife';
+    const earlyKey = onRenewBy ? 'renewByEarly' : 'early';
+    const due = r[dueKey] === null ? null : date(r[dueKey], `${field}.${dueKey}`);
+    const early = r[earlyKey] === undefined || r[earlyKey] === null ? null : date(r[earlyKey], `${field}.${earlyKey}`);
     let confirmedId: string | null = null;
     if (r.confirmedRenewal !== undefined && r.confirmedRenewal !== null) {
       confirmedId = text(record(r.confirmedRenewal, `${field}.confirmedRenewal`).dockingId, `${field}.confirmedRenewal.dockingId`);
     }
-    const deadline = endOfLife === null ? null : addMonthsUTC(endOfLife, -s.marginMonths);
-    const because = endOfLife === null || deadline === null ? '' : ` (end of life ${formatDateOnly(endOfLife)} less ${marginText})`;
+    const deadline = due === null ? null : addMonthsUTC(due, -s.marginMonths);
+    const because = due === null ? '' : ` (${forecastDateWords(dueKey)} ${formatDateOnly(due)} less ${marginText})`;
 
     // Rule 1: a confirmed renewal is kept as it is.
     if (confirmedId !== null) {
@@ -229,8 +250,9 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     }
 
     // Rule 2: never depletes.
-    if (endOfLife === null || deadline === null) {
-      return { groupId, status: 'sound', reason: 'At its forecast rate the group never reaches its end of life, so it needs no renewal.' };
+    if (deadline === null) {
+      const point = onRenewBy ? 'renewal threshold' : 'end of life';
+      return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
     }
 
     // Rule 4: the deadline has passed.

@@ -78,8 +78,10 @@ describe('forecastGroup with surveys', () => {
     // Observed rate = (1 - 0.6) / 2 = 0.20 per year = 20 kg/yr.
     // From the survey: (0.6 - 0.2) / 0.2 = 2 years more -> 4 years after installation
     //   = 1,460 days -> 2023-12-31.
-    // Band (one survey: +/- 20 % of 0.20): early 0.4 / 0.24 = 1.6667 yr = 14,600 h after the
-    //   survey -> 2023-08-31T08:00Z; late 0.4 / 0.16 = 2.5 yr = 912.5 days -> 2024-06-30T12:00Z.
+    // Band (reading +/- 0.05, common practice): the early end reads 0.55, consumed 0.45 over
+    //   2 yr = 0.225 per year, 0.8 / 0.225 = 3.5556 yr = 31,146.67 h -> 2023-07-21T18:40Z;
+    //   the late end reads 0.65, 0.175 per year, 0.8 / 0.175 = 4.5714 yr = 40,045.71 h
+    //   -> 2024-07-26T13:42:51Z. (Was +/- 20 % of the rate; the band now comes from the reading.)
     const design = forecastGroup(zincGroup());
     const f = forecastGroup(zincGroup({ surveys: [{ date: utc('2021-12-31'), remainingFraction: 0.6 }] }));
     expect(f.basis).toBe('survey-corrected');
@@ -88,8 +90,8 @@ describe('forecastGroup with surveys', () => {
     expect(f.designRatePerYearKg).toBeCloseTo(11.2308, 4);
     expectInstant(f.endOfLife, '2023-12-31');
     expect(f.endOfLife!.getTime()).toBeLessThan(design.endOfLife!.getTime());
-    expectInstant(f.early, '2023-08-31T08:00:00Z');
-    expectInstant(f.late, '2024-06-30T12:00:00Z');
+    expectInstant(f.early, '2023-07-21T18:40:00Z');
+    expectInstant(f.late, '2024-07-26T13:42:51.428Z');
     expect(f.startsFrom).toEqual({ date: utc('2021-12-31'), remainingFraction: 0.6 });
   });
 
@@ -101,13 +103,18 @@ describe('forecastGroup with surveys', () => {
     expectInstant(f.endOfLife, '2035-12-28');
   });
 
-  it('the latest survey sets the start even when listed first, and the surveys spread the band', () => {
+  it('the latest survey sets the start even when listed first, the surveys fit the rate and spread the band', () => {
     // Invented surveys: 95 % left at 1 yr (2020-12-31), 55 % left at 3 yr (2022-12-31).
-    // Forecast rate from the latest: (1 - 0.55) / 3 = 0.15 per year (15 kg/yr).
-    // End of life: 3 + (0.55 - 0.2) / 0.15 = 5.3333 yr = 46,720 h -> 2025-04-30T16:00Z.
-    // Band rates: since installation 0.05 (1 yr) and 0.15 (3 yr); between the surveys
-    //   (0.95 - 0.55) / 2 = 0.20; widened to at least 0.12..0.18 -> low 0.05, high 0.20.
-    //   early 3 + 0.35 / 0.20 = 4.75 yr -> 2024-09-29T18:00Z; late 3 + 0.35 / 0.05 = 10 yr -> 2029-12-29.
+    // Design consumption P(t) = r t with r = 0.112308 per year (1 A); consumed c = 0.05 and 0.45.
+    // Least-squares factor k = (0.05 x r + 0.45 x 3r) / (r^2 + 9 r^2) = 0.14 / r: the forecast
+    //   consumes k r = 0.14 per year (14 kg/yr) from the latest survey (0.55 at 3 yr).
+    //   (Was the latest survey's average since installation, 0.15 per year.)
+    // End of life: 3 + (0.55 - 0.2) / 0.14 = 5.5 yr = 2,007.5 days -> 2025-06-30T12:00Z.
+    // Band: the fit +/- 0.05 x (r + 3r) / (10 r^2) x r = +/- 0.02 -> 0.12..0.16 per year; one
+    //   survey each: 0.05 (1 yr) and 0.15 (3 yr); between the surveys (0.95 - 0.55) / 2 = 0.20
+    //   -> low 0.05, high 0.20.
+    //   early: readings 0.05 lower, 3 + (0.50 - 0.2) / 0.20 = 4.5 yr -> 2024-06-30T12:00Z;
+    //   late: readings 0.05 higher, 3 + (0.60 - 0.2) / 0.05 = 11 yr -> 2030-12-29.
     const f = forecastGroup(
       zincGroup({
         surveys: [
@@ -117,9 +124,12 @@ describe('forecastGroup with surveys', () => {
       }),
     );
     expect(f.observedRatePerYearKg).toBeCloseTo(15, 9);
-    expectInstant(f.endOfLife, '2025-04-30T16:00:00Z');
-    expectInstant(f.early, '2024-09-29T18:00:00Z');
-    expectInstant(f.late, '2029-12-29');
+    expect(f.ratePerYearKg).toBeCloseTo(14, 9);
+    expect(f.profileScale).toBeCloseTo(0.14 / (8760 / 780 / 100), 9);
+    expect(f.startsFrom).toEqual({ date: utc('2022-12-31'), remainingFraction: 0.55 });
+    expectInstant(f.endOfLife, '2025-06-30T12:00:00Z');
+    expectInstant(f.early, '2024-06-30T12:00:00Z');
+    expectInstant(f.late, '2030-12-29');
     // history between the surveys is a straight line: halfway (2021-12-31) = (0.95 + 0.55) / 2
     expect(f.remainingFractionAt(utc('2021-12-31'))).toBeCloseTo(0.75, 9);
     // and the surveys themselves are on the curve
@@ -145,10 +155,19 @@ describe('forecastGroup with surveys', () => {
     expectInstant(f.endOfLife, new Date(utc('2020-01-01').getTime() + 2920 * DAY_MS));
   });
 
-  it('a survey that shows no loss after two years never depletes', () => {
+  it('a survey that shows no loss after two years falls back to the design current, never "never depletes"', () => {
+    // The issue: a survey showing no loss marked the group as never depleting. The reading is
+    // set aside (loss below what the eye resolves): the forecast is the design's, end of life
+    // 2027-02-13 as in "remaining-life formula", band +/- 20 %.
+    const design = forecastGroup(zincGroup());
     const f = forecastGroup(zincGroup({ surveys: [{ date: utc('2021-12-31'), remainingFraction: 1 }] }));
-    expect(f.observedRatePerYearKg).toBe(0);
-    expect(f.endOfLife).toBeNull();
+    expect(f.observedRatePerYearKg).toBeUndefined();
+    expect(f.profileScale).toBe(1);
+    expect(f.basis).toBe('design-rate');
+    expectInstant(f.endOfLife, '2027-02-13');
+    expect(f.endOfLife).toEqual(design.endOfLife);
+    expect(f.early).toEqual(design.early);
+    expect(f.late).toEqual(design.late);
   });
 
   it('a near-zero observed rate is treated as never depleting, not an invalid date', () => {
@@ -240,10 +259,17 @@ describe('forecastGroup properties', () => {
     u: fc.double({ min: 0.5, max: 1, noNaN: true }),
     eps: fc.double({ min: 500, max: 2600, noNaN: true }),
     current: fc.double({ min: 0, max: 50, noNaN: true }),
-    surveys: fc.array(fc.record({ afterDays: fc.integer({ min: 0, max: 5000 }), f: fc.double({ min: 0, max: 1, noNaN: true }) }), { maxLength: 4 }),
+    profile: fc.option(
+      fc.record({ startA: fc.double({ min: 0, max: 50, noNaN: true }), endA: fc.double({ min: 0, max: 50, noNaN: true }), overYears: fc.double({ min: 0.5, max: 30, noNaN: true }) }),
+    ),
+    threshold: fc.option(fc.double({ min: 0, max: 0.9, noNaN: true })),
+    surveys: fc.array(
+      fc.record({ afterDays: fc.integer({ min: 0, max: 5000 }), f: fc.oneof(fc.double({ min: 0, max: 1, noNaN: true }), fc.constant(1)) }),
+      { maxLength: 4 },
+    ),
   });
 
-  it('the forecast reaches exactly 1 - u at endOfLife, inside the band, and only falls after its start', () => {
+  it('the forecast reaches exactly 1 - u at endOfLife and the renewal fraction at renewBy, inside their bands, and only falls after its start', () => {
     fc.assert(
       fc.property(arb, (a) => {
         const installedOn = new Date(Date.UTC(1990, 0, 1) + a.days * DAY_MS);
@@ -254,8 +280,26 @@ describe('forecastGroup properties', () => {
           utilisationFactor: a.u,
           capacityAhPerKg: a.eps,
           currentA: a.current,
+          demandProfile: a.profile,
+          ...(a.threshold === null ? {} : { renewalThresholdRemaining: a.threshold }),
           surveys: a.surveys.map((s) => ({ date: new Date(installedOn.getTime() + s.afterDays * DAY_MS), remainingFraction: s.f })),
         });
+        expect(f.renewFraction).toBeCloseTo(Math.max(1 - a.u, a.threshold ?? 0.25), 12);
+        // renewBy: inside its own band, on the curve at the renewal fraction, never after endOfLife
+        // (endOfLife may be null while renewBy is a date: the record or a dying demand reached
+        // the renewal fraction but nothing reaches 1 - u)
+        if (f.renewBy === null) {
+          expect(f.endOfLife).toBeNull();
+          expect(f.renewByEarly).toBeNull();
+          expect(f.renewByLate).toBeNull();
+        } else {
+          expect(f.renewByEarly!.getTime()).toBeLessThanOrEqual(f.renewBy.getTime());
+          if (f.renewByLate !== null) expect(f.renewByLate.getTime()).toBeGreaterThanOrEqual(f.renewBy.getTime());
+          if (f.endOfLife !== null) expect(f.renewBy.getTime()).toBeLessThanOrEqual(f.endOfLife.getTime());
+          if (f.startsFrom.remainingFraction > f.renewFraction && f.renewFraction < 1) {
+            expect(f.remainingFractionAt(f.renewBy)).toBeCloseTo(f.renewFraction, 6);
+          }
+        }
         if (f.endOfLife === null) {
           expect(f.early).toBeNull();
           expect(f.late).toBeNull();
@@ -278,6 +322,35 @@ describe('forecastGroup properties', () => {
         }
       }),
       { numRuns: 300 },
+    );
+  });
+
+  it('with a design current, surveys that show no loss never stop the forecast: it is the design\'s', () => {
+    const noLoss = fc.record({
+      days: fc.integer({ min: 0, max: 20_000 }),
+      current: fc.double({ min: 0.01, max: 50, noNaN: true }),
+      profile: fc.option(
+        fc.record({
+          startA: fc.double({ min: 0.01, max: 50, noNaN: true }),
+          endA: fc.oneof(fc.constant(0), fc.double({ min: 0.01, max: 50, noNaN: true })),
+          overYears: fc.double({ min: 0.5, max: 30, noNaN: true }),
+        }),
+      ),
+      afterDays: fc.array(fc.integer({ min: 0, max: 5000 }), { minLength: 1, maxLength: 4 }),
+    });
+    fc.assert(
+      fc.property(noLoss, (a) => {
+        const installedOn = new Date(Date.UTC(1990, 0, 1) + a.days * DAY_MS);
+        const base = { installedOn, quantity: 10, netMassPerAnodeKg: 10, utilisationFactor: 0.8, capacityAhPerKg: 780, currentA: a.current, demandProfile: a.profile };
+        const design = forecastGroup(base);
+        const f = forecastGroup({ ...base, surveys: a.afterDays.map((d) => ({ date: new Date(installedOn.getTime() + d * DAY_MS), remainingFraction: 1 })) });
+        // A profile falling to 0 A has no demand left after overYears and may never deplete; any
+        // other current (at least 0.01 A on 100 kg of zinc: under 720 years) always depletes.
+        if (a.profile === null || a.profile.endA > 0) expect(f.endOfLife).not.toBeNull();
+        expect(f.endOfLife).toEqual(design.endOfLife);
+        expect(f.renewBy).toEqual(design.renewBy);
+      }),
+      { numRuns: 200 },
     );
   });
 });
