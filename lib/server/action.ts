@@ -27,6 +27,13 @@ function formValues(formData: FormData | undefined): Record<string, string> {
   return values;
 }
 
+/** The record id a form carries in a hidden field; a missing one means a stale page. */
+export function formId(formData: FormData, name: string): string {
+  const value = formData.get(name);
+  if (typeof value !== 'string' || !value) throw new AppError('invalid', 'The form is missing an identifier; reload the page.');
+  return value;
+}
+
 export const formObject = (formData: FormData) => Object.fromEntries([...formData.entries()].filter(([, v]) => typeof v === 'string'));
 
 async function toState(error: unknown, formData?: FormData): Promise<ActionState> {

@@ -1,17 +1,11 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { orgAction, formObject } from '@/lib/server/action';
-import { AppError } from '@/lib/server/errors';
+import { orgAction, formId, formObject } from '@/lib/server/action';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { setAssetArchived, updateAsset } from '@/lib/server/services/assets/update-asset';
 import { archiveZone, createZone, updateZone } from '@/lib/server/services/register/zones';
 import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 
-const field = (formData: FormData, name: string) => {
-  const value = formData.get(name);
-  if (typeof value !== 'string' || !value) throw new AppError('invalid', 'The form is missing an identifier; reload the page.');
-  return value;
-};
 const assetInput = (formData: FormData) => ({ ...formObject(formData), hasImpressedCurrent: formData.get('hasImpressedCurrent') === 'on' });
 
 export const createAssetAction = orgAction('asset:write', async (ctx, formData) => {
@@ -20,52 +14,52 @@ export const createAssetAction = orgAction('asset:write', async (ctx, formData) 
 });
 
 export const updateAssetAction = orgAction('asset:write', async (ctx, formData) => {
-  const asset = await updateAsset(ctx, field(formData, 'assetId'), assetInput(formData));
+  const asset = await updateAsset(ctx, formId(formData, 'assetId'), assetInput(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${asset.id}`);
   return { ok: true, message: 'Particulars saved.' };
 });
 
 export const archiveAssetAction = orgAction('asset:write', async (ctx, formData) => {
   const archive = formData.get('archive') === '1';
-  const asset = await setAssetArchived(ctx, field(formData, 'assetId'), archive);
+  const asset = await setAssetArchived(ctx, formId(formData, 'assetId'), archive);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${asset.id}`);
   return { ok: true, message: archive ? `${asset.name} is archived; restore it at any time.` : `${asset.name} is restored.` };
 });
 
 export const createZoneAction = orgAction('asset:write', async (ctx, formData) => {
-  const assetId = field(formData, 'assetId');
+  const assetId = formId(formData, 'assetId');
   const zone = await createZone(ctx, assetId, formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${assetId}`);
   return { ok: true, message: `Zone "${zone.name}" added.` };
 });
 
 export const updateZoneAction = orgAction('asset:write', async (ctx, formData) => {
-  const zone = await updateZone(ctx, field(formData, 'zoneId'), formObject(formData));
+  const zone = await updateZone(ctx, formId(formData, 'zoneId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${zone.asset.id}`);
   return { ok: true, message: `Zone "${zone.name}" saved.` };
 });
 
 export const archiveZoneAction = orgAction('asset:write', async (ctx, formData) => {
-  const zone = await archiveZone(ctx, field(formData, 'zoneId'));
+  const zone = await archiveZone(ctx, formId(formData, 'zoneId'));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${zone.asset.id}`);
   return { ok: true, message: 'Zone archived.' };
 });
 
 export const createAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
-  const assetId = field(formData, 'assetId');
+  const assetId = formId(formData, 'assetId');
   const group = await createAnodeGroup(ctx, assetId, formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${assetId}`);
   return { ok: true, message: `${group.quantity} × ${group.model.designation} recorded as "${group.label}".` };
 });
 
 export const updateAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
-  const group = await updateAnodeGroup(ctx, field(formData, 'groupId'), formObject(formData));
+  const group = await updateAnodeGroup(ctx, formId(formData, 'groupId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${group.asset.id}`);
   return { ok: true, message: `Group "${group.label}" saved; the change is in its history.` };
 });
 
 export const removeAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
-  const group = await removeAnodeGroup(ctx, field(formData, 'groupId'), formObject(formData));
+  const group = await removeAnodeGroup(ctx, formId(formData, 'groupId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${group.asset.id}`);
   return { ok: true, message: `Group "${group.label}" closed as removed on ${group.removedOn}.` };
 });

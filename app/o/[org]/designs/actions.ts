@@ -1,9 +1,7 @@
 'use server';
 import { redirect } from 'next/navigation';
 import { z } from 'zod';
-import { orgAction, orgJsonAction, formObject } from '@/lib/server/action';
-import { AppError } from '@/lib/server/errors';
-import { createDesign } from '@/lib/server/services/designs/create-design';
+import { orgAction, orgJsonAction, formId, formObject } from '@/lib/server/action';
 import { computeDesk, toDeskComputed } from '@/lib/server/services/designs/compute-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
@@ -29,23 +27,18 @@ export const saveDesignAction = orgJsonAction('design:write', async (ctx, input)
   return { status: design.status, updatedAt: design.updatedAt.toISOString(), resultError: design.resultError };
 });
 
-const idForm = (formData: FormData) => {
-  const id = formData.get('designId');
-  if (typeof id !== 'string') throw new AppError('invalid', 'Unknown design.');
-  return id;
-};
 
 export const checkDesignAction = orgAction('design:write', async (ctx, formData) => {
-  await checkDesign(ctx, idForm(formData));
+  await checkDesign(ctx, formId(formData, 'designId'));
   return { ok: true, message: 'Signed as checker.' };
 });
 
 export const approveDesignAction = orgAction('design:approve', async (ctx, formData) => {
-  await approveDesign(ctx, idForm(formData));
+  await approveDesign(ctx, formId(formData, 'designId'));
   return { ok: true, message: 'Approved. This revision can no longer change.' };
 });
 
 export const newRevisionAction = orgAction('design:write', async (ctx, formData) => {
-  const design = await newRevision(ctx, idForm(formData));
+  const design = await newRevision(ctx, formId(formData, 'designId'));
   redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
 });

@@ -1,15 +1,10 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { orgAction, formObject } from '@/lib/server/action';
+import { orgAction, formId, formObject } from '@/lib/server/action';
 import { AppError } from '@/lib/server/errors';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal, cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered, updateRenewal } from '@/lib/server/services/planner/renewals';
 
-const id = (formData: FormData, name: string) => {
-  const value = formData.get(name);
-  if (typeof value !== 'string' || !value) throw new AppError('invalid', 'The form is missing an identifier; reload the page.');
-  return value;
-};
 
 export const createDockingAction = orgAction('docking:write', async (ctx, formData) => {
   const docking = await createDocking(ctx, formObject(formData));
@@ -17,14 +12,14 @@ export const createDockingAction = orgAction('docking:write', async (ctx, formDa
 });
 
 export const updateDockingAction = orgAction('docking:write', async (ctx, formData) => {
-  const docking = await updateDocking(ctx, id(formData, 'dockingId'), formObject(formData));
+  const docking = await updateDocking(ctx, formId(formData, 'dockingId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/dockings/${docking.id}`);
   return { ok: true, message: 'Docking saved; renewal proposals were recomputed.' };
 });
 
 /** One action for the renewal row buttons, so the table stays a single form per row. */
 export const renewalStepAction = orgAction('renewal:write', async (ctx, formData) => {
-  const renewalId = id(formData, 'renewalId');
+  const renewalId = formId(formData, 'renewalId');
   const step = formData.get('step');
   if (step === 'confirm') await confirmRenewal(ctx, renewalId);
   else if (step === 'ordered') await markRenewalOrdered(ctx, renewalId);
@@ -37,7 +32,7 @@ export const renewalStepAction = orgAction('renewal:write', async (ctx, formData
 });
 
 export const addRenewalAction = orgAction('renewal:write', async (ctx, formData) => {
-  const renewal = await addRenewal(ctx, id(formData, 'dockingId'), formObject(formData));
+  const renewal = await addRenewal(ctx, formId(formData, 'dockingId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/dockings/${renewal.docking.id}`);
   return { ok: true, message: 'Renewal booked.' };
 });
