@@ -5,6 +5,10 @@ import { safeNextPath } from '@/lib/server/safe-redirect';
 import { slugify } from '@/lib/server/services/accounts/create-organisation';
 import { hashToken, newToken } from '@/lib/server/tokens';
 import { fieldErrorsFromZod, toErrorBody, AppError } from '@/lib/server/errors';
+import { isUuid, uuidOrNotFound } from '@/lib/server/ids';
+import { CpInputError } from '@/lib/cp/errors';
+import { ForecastInputError } from '@/lib/forecast/errors';
+import { AnodeListInputError } from '@/lib/anode-list/errors';
 
 describe('account input rules', () => {
   it('lower-cases and trims e-mail addresses', () => {
@@ -69,5 +73,21 @@ describe('small safety helpers', () => {
       console.error = original;
     }
     expect(toErrorBody(new AppError('forbidden', 'No.')).status).toBe(403);
+  });
+
+  it('maps every pure library\'s input error to 422 with the field named (one error type)', () => {
+    for (const error of [new CpInputError('surfaces[0].areaM2', 'Area must be positive.'), new ForecastInputError('groups[3].currentA', 'Current must be positive.'), new AnodeListInputError('renewals[1].quantity', 'Quantity must be whole.')]) {
+      const { status, body } = toErrorBody(error);
+      expect(status).toBe(422);
+      expect(body.error.fieldErrors).toEqual({ [error.field]: [error.message] });
+    }
+  });
+
+  it('answers 404 for an id that is not a UUID, before any query', () => {
+    expect(isUuid('3f5fbfd6-ea4d-4461-9892-0653a171a7a6')).toBe(true);
+    for (const bad of ['', '1', 'not-a-uuid', "3f5fbfd6-ea4d-4461-9892-0653a171a7a6' or 1=1", '3f5fbfd6ea4d446198920653a171a7a6', null, 42]) {
+      expect(isUuid(bad)).toBe(false);
+      expect(() => uuidOrNotFound(bad, 'Zone')).toThrow(expect.objectContaining({ code: 'not-found', message: 'Zone was not found.' }));
+    }
   });
 });
