@@ -1,5 +1,6 @@
 // Developer aid: signs in as a demo user and saves screenshots of the given paths.
-// node scripts/dev/screenshots.mjs <email> <outdir> <path> [<path> ...]   (BASE_URL defaults to http://127.0.0.1:3000)
+// node scripts/dev/screenshots.mjs <email> <outdir> <path> [<path> ...]   (BASE_URL defaults to http://127.0.0.1:3000;
+// VIEWPORT, e.g. 390x844 for a phone, defaults to 1440x900)
 import { chromium } from '@playwright/test';
 import fs from 'node:fs';
 
@@ -8,7 +9,8 @@ const base = process.env.BASE_URL ?? 'http://127.0.0.1:3000';
 const password = JSON.parse(fs.readFileSync(new URL('../demo-sign-ins.json', import.meta.url))).password;
 fs.mkdirSync(outDir, { recursive: true });
 const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--no-first-run', '--disable-quic'] });
-const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
+const [width, height] = (process.env.VIEWPORT ?? '1440x900').split('x').map(Number);
+const page = await browser.newPage({ viewport: { width, height } });
 if (email !== '-') {
   await page.goto(`${base}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
