@@ -1,9 +1,9 @@
 'use client';
-import { currentDensityFor } from '@/lib/cp/lookups';
+import { AREA_SOURCE_WORDS, zoneDensitySource } from '@/lib/design/build-design-input';
 import { defaultVesselZones } from '@/lib/design/default-zones';
 import { COATING_VALUES, DEPTH_BAND_VALUES, ZONE_KIND_VALUES, type DeskSurfaceDraft } from '@/lib/schemas/design';
 import { COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
-import { fmtInt } from '@/lib/format';
+import { fmtInt, fmtSig } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { NumberInput, SelectInput, optionsFrom } from './desk-controls';
 import type { DeskState, Update } from './desk-state';
@@ -16,11 +16,8 @@ interface Props {
   vessel: { lengthBppM: number | null; beamM: number | null; draughtM: number | null; blockCoefficient: number | null } | null;
 }
 
-const AREA_SOURCE_LABELS: Record<string, string> = {
-  entered: 'entered',
-  'denny-mumford': 'Denny-Mumford estimate',
-  estimate: 'rule-of-thumb estimate',
-};
+/** The draft's zone as the calculation reads it; numbers still being typed count as 0 for the display. */
+const asSurface = (zone: DeskSurfaceDraft) => ({ ...zone, areaM2: Number(zone.areaM2) || 0, coatingAgeYears: Number(zone.coatingAgeYears) || 0, currentDensityOverride: null });
 
 export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) {
   const disabled = !editable;
@@ -45,7 +42,8 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
       <ol className="flex flex-col gap-2">
         {inputs.surfaces.map((zone, i) => {
           const e = (field: string) => errors[`surfaces.${i}.${field}`];
-          const table = currentDensityFor({ climate: inputs.climate, depthBand: zone.depthBand });
+          const method = zoneDensitySource(asSurface(zone), { ...inputs, serviceSpeedKnots: Number(inputs.serviceSpeedKnots) || null });
+          const table = method.currentDensity;
           const custom = zone.currentDensityOverride;
           return (
             <li key={i} className="rounded-[3px] border border-rule bg-paper px-3 py-2" aria-label={`Zone ${i + 1}`}>
@@ -71,7 +69,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                   onChange={(v) => setZone(i, { areaM2: v, areaSource: 'entered' })}
                   errors={e('areaM2')}
                   disabled={disabled}
-                  hint={AREA_SOURCE_LABELS[String(zone.areaSource)] ?? String(zone.areaSource)}
+                  hint={AREA_SOURCE_WORDS[String(zone.areaSource)] ?? String(zone.areaSource)}
                 />
                 <SelectInput label="Depth" value={zone.depthBand} onChange={(v) => setZone(i, { depthBand: v as DeskSurfaceDraft['depthBand'] })} options={optionsFrom(DEPTH_BAND_LABELS, DEPTH_BAND_VALUES)} disabled={disabled} />
                 <SelectInput label="Coating" value={zone.coatingCategory} onChange={(v) => setZone(i, { coatingCategory: v as DeskSurfaceDraft['coatingCategory'] })} options={optionsFrom(COATING_LABELS, COATING_VALUES)} disabled={disabled} />
@@ -87,7 +85,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                   />
                 )}
                 <div className="col-span-2 flex flex-col gap-0.5 @4xl:col-span-4">
-                  <span className="text-xs text-ink-soft">Design current density, bare metal (initial / mean / final)</span>
+                  <span className="text-xs text-ink-soft">Design current density (initial / mean / final){method.coatingApplies ? ', times the coating breakdown factor' : ''}</span>
                   {custom ? (
                     <div className="grid grid-cols-3 gap-2">
                       {(['initial', 'mean', 'final'] as const).map((k) => (
@@ -104,8 +102,8 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                     </div>
                   ) : (
                     <p className="num text-left text-sm">
-                      {fmtInt(table.initial * 1000)} / {fmtInt(table.mean * 1000)} / {fmtInt(table.final * 1000)} mA/m²{' '}
-                      <span className="text-2xs text-ink-faint">DNV-RP-B401 table for {inputs.climate}, {DEPTH_BAND_LABELS[zone.depthBand]}</span>
+                      {fmtSig(table.initial * 1000)} / {fmtSig(table.mean * 1000)} / {fmtSig(table.final * 1000)} mA/m²{' '}
+                      <span className="text-2xs text-ink-faint">{method.source}</span>
                     </p>
                   )}
                 </div>
@@ -122,7 +120,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                           })
                         }
                       >
-                        {custom ? 'Use the table value' : 'Enter my own value'}
+                        {custom ? 'Use the method\'s value' : 'Enter my own value'}
                       </Button>
                       <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => removeZone(i)} disabled={inputs.surfaces.length <= 1} aria-label={`Remove zone ${zone.name}`}>
                         Remove

@@ -75,6 +75,22 @@ function hullZoneDemand(surface: DeskSurface, inputs: Pick<DeskInputs, 'hullCoat
   return { currentDensity: { initial: d, mean: d, final: d }, coating: 'bare' };
 }
 
+/** What the desk shows beside a zone: the density it is sized with (A/m2) and where it comes from, in words. */
+export function zoneDensitySource(surface: DeskSurface, inputs: Pick<DeskInputs, 'demandMethod' | 'climate' | 'water' | 'hullCoatingCondition' | 'serviceSpeedKnots'>): { currentDensity: CurrentDensity; source: string; coatingApplies: boolean } {
+  const { currentDensity, coating } = zoneDemand(surface, inputs);
+  if (surface.currentDensityOverride) return { currentDensity, source: 'your value', coatingApplies: coating !== 'bare' };
+  if (inputs.demandMethod === 'ship-hull') {
+    const bareLike = surface.coatingCategory === 'bare' || surface.coatingCategory === 'noble-plating';
+    if (bareLike && (surface.kind === 'propeller-shaft' || surface.drainsCurrent)) return { currentDensity, source: `bare ${surface.drainsCurrent === 'stainless' ? 'stainless shaft' : 'copper-alloy propeller'}, ship-equipment guide`, coatingApplies: false };
+    if (bareLike) return { currentDensity, source: 'bare steel moving in seawater (from memory)', coatingApplies: false };
+    const highFlow = surface.kind === 'rudder' || surface.kind === 'sea-chest' || surface.kind === 'thruster-tunnel';
+    const fast = inputs.serviceSpeedKnots !== null && inputs.serviceSpeedKnots > HIGH_SPEED_KNOTS;
+    return { currentDensity, source: `coated hull, ${inputs.hullCoatingCondition} paint${highFlow ? ' (next worse: high flow)' : ''} + 10 %${fast ? ', +25 % for speed' : ''}, for the coated area`, coatingApplies: false };
+  }
+  if (inputs.demandMethod === 'harbour') return { currentDensity, source: `harbour practice, ${isMudZone(surface) ? 'mud' : 'immersed'} bare steel`, coatingApplies: coating !== 'bare' };
+  return { currentDensity, source: `DNV-RP-B401 table, ${inputs.climate}, depth ${surface.depthBand}`, coatingApplies: coating !== 'bare' };
+}
+
 /** Harbour practice: immersed and mud densities for piles and sheet piling; coatings break down as usual. */
 function harbourZoneDemand(surface: DeskSurface, inputs: Pick<DeskInputs, 'water'>): { currentDensity: CurrentDensity; coating: Coating } {
   const table = isMudZone(surface) ? HARBOUR_PRACTICE_DENSITY.mud : inputs.water === 'fresh' ? HARBOUR_PRACTICE_DENSITY['water-fresh'] : HARBOUR_PRACTICE_DENSITY['water-seawater'];
@@ -207,8 +223,8 @@ export function deskNotices(inputs: DeskInputs): DeskNotice[] {
 /** Where a zone's area comes from, in words. */
 export const AREA_SOURCE_WORDS: Record<string, string> = {
   entered: 'entered',
-  'denny-mumford': 'estimated from the particulars, Denny-Mumford S = L(1.7T + CB·B)',
-  'denny-mumford-default-cb': 'estimated, Denny-Mumford with a default block coefficient for the vessel type',
+  'denny-mumford': 'estimated, Denny-Mumford S = L(1.7T + CB·B)',
+  'denny-mumford-default-cb': 'estimated, Denny-Mumford with the default block coefficient for the vessel type',
   estimate: 'estimated by rule of thumb',
   placeholder: 'placeholder: enter the particulars or the area',
 };
