@@ -1,5 +1,6 @@
 'use client';
-import { CRITERION_LABELS } from '@/lib/design/labels';
+import { INFORMATION_NOTICE_CODES } from '@/lib/design/build-design-input';
+import { CRITERION_LABELS, BASIS_FLAG_WORDS } from '@/lib/design/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
@@ -166,11 +167,27 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
         </div>
       ) : null}
 
-      {result?.warnings.length || notices.length ? (
+      {notices.some((n) => INFORMATION_NOTICE_CODES.has(n.code)) ? (
+        <section aria-label="How this was sized" className="mt-4">
+          <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">How this was sized</h3>
+          <ul className="flex flex-col gap-1">
+            {notices
+              .filter((n) => INFORMATION_NOTICE_CODES.has(n.code))
+              .map((n, i) => (
+                <li key={i} className="rounded-[3px] border border-rule bg-paper px-2 py-1 text-sm text-ink" data-notice={n.code}>
+                  <span className="font-semibold text-ink-soft">Note: </span>
+                  {n.message}
+                </li>
+              ))}
+          </ul>
+        </section>
+      ) : null}
+
+      {result?.warnings.length || notices.some((n) => !INFORMATION_NOTICE_CODES.has(n.code)) ? (
         <section aria-label="Warnings" className="mt-4">
           <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-state-due">Warnings</h3>
           <ul className="flex flex-col gap-1">
-            {[...(result?.warnings ?? []), ...notices].map((w, i) => (
+            {[...(result?.warnings ?? []), ...notices.filter((n) => !INFORMATION_NOTICE_CODES.has(n.code))].map((w, i) => (
               <li key={i} className="rounded-[3px] border border-state-due/40 bg-state-duebg px-2 py-1 text-sm text-ink" data-warning={w.code}>
                 <span className="font-semibold text-state-due">Warning: </span>
                 {w.message}
@@ -186,7 +203,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
           <ul className="mt-1 list-disc pl-5">
             {result.basis.map((b, i) => (
               <li key={i}>
-                {b.topic}: {b.source} <span className="text-ink-faint">({b.flag})</span>
+                {b.topic}: {b.source} <span className="text-ink-faint">({BASIS_FLAG_WORDS[b.flag] ?? b.flag})</span>
               </li>
             ))}
           </ul>

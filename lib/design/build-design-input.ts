@@ -220,6 +220,9 @@ export function deskNotices(inputs: DeskInputs): DeskNotice[] {
   return notices;
 }
 
+/** Notices that say how the design was sized (method, sources, estimates) rather than warn. */
+export const INFORMATION_NOTICE_CODES: ReadonlySet<string> = new Set(['demand-method', 'resistivity-source', 'potential-source', 'mud-served-from-water', 'areas-estimated']);
+
 /** Where a zone's area comes from, in words. */
 export const AREA_SOURCE_WORDS: Record<string, string> = {
   entered: 'entered',

@@ -75,3 +75,9 @@ export const METAL_LABELS: Record<string, string> = {
 };
 export const WATER_LABELS: Record<string, string> = { seawater: 'Seawater', brackish: 'Brackish', fresh: 'Fresh water' };
 export const STATUS_LABELS: Record<string, string> = { draft: 'Draft', checked: 'Checked', approved: 'Approved' };
+/** How a basis entry was obtained, in the words a reader needs. */
+export const BASIS_FLAG_WORDS: Record<string, string> = {
+  published: 'published',
+  memory: 'to be confirmed against the licensed edition',
+  practice: 'common practice',
+};
