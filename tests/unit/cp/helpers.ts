@@ -1,4 +1,4 @@
-import type { CurrentDensity, DesignInput } from '@/lib/cp';
+import { designAnodeSystem, type CurrentDensity, type DesignInput, type WarningCode } from '@/lib/cp';
 
 /** Same density at start, mean and end: harbour and hull values are single figures. */
 export const flat = (aPerM2: number): CurrentDensity => ({ initial: aPerM2, mean: aPerM2, final: aPerM2 });
@@ -27,6 +27,21 @@ export function cleanDesign(): DesignInput {
     },
   };
 }
+
+/** The codes of the warnings a design raises. */
+export const warningCodes = (input: DesignInput): WarningCode[] => designAnodeSystem(input).warnings.map((w) => w.code);
+
+/** The clean design changed by `change` (a deep copy; the clean design is untouched). */
+export function variant(change: (d: any) => void): DesignInput {
+  const d = structuredClone(cleanDesign()) as any;
+  change(d);
+  return d;
+}
+
+/** Standard magnesium, -1.5 V and 1100 Ah/kg (MIL-HDBK-1004/10, published). */
+export const magnesium = (d: any) => (d.anode = { ...d.anode, alloy: 'magnesium', potentialV: -1.5, capacityAhPerKg: 1100 });
+/** Zinc, -1.03 V and 780 Ah/kg (DNV-RP-B401 (2010) Table 10-6, from memory). */
+export const zinc = (d: any) => (d.anode = { ...d.anode, alloy: 'zinc', potentialV: -1.03, capacityAhPerKg: 780 });
 
 /** Walks a value and returns the paths of every number that is NaN or infinite. */
 export function nonFinitePaths(value: unknown, path = 'result'): string[] {

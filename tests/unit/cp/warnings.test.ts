@@ -1,17 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { designAnodeSystem, type DesignInput, type WarningCode } from '@/lib/cp';
-import { cleanDesign, fieldOf } from './helpers';
-
-const codes = (input: DesignInput): WarningCode[] => designAnodeSystem(input).warnings.map((w) => w.code);
-
-function variant(change: (d: any) => void): DesignInput {
-  const d = structuredClone(cleanDesign()) as any;
-  change(d);
-  return d;
-}
-
-const magnesium = (d: any) => (d.anode = { ...d.anode, alloy: 'magnesium', potentialV: -1.5, capacityAhPerKg: 1100 });
-const zinc = (d: any) => (d.anode = { ...d.anode, alloy: 'zinc', potentialV: -1.03, capacityAhPerKg: 780 });
+import { designAnodeSystem, type WarningCode } from '@/lib/cp';
+import { cleanDesign, fieldOf, magnesium, variant, warningCodes as codes, zinc } from './helpers';
 
 describe('warnings', () => {
   it('a clean design raises none, and every warning has a sentence', () => {
