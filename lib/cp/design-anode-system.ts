@@ -3,7 +3,7 @@ import { FULL_STANDOFF_M, MIN_CORRECTED_STANDOFF_M, resistanceOf, type Resistanc
 import { BASIS_ENTRIES, type BasisKey } from './basis';
 import { surfaceDemandDetail } from './current-demand';
 import { assertCompatible, collectWarnings } from './design-checks';
-import { validateAnode, validateJob, type CheckedJob, type DesignAnode, type DesignInput } from './design-input';
+import { DEFAULT_PROTECTIVE_POTENTIAL_V, validateAnode, validateJob, type CheckedJob, type DesignAnode, type DesignInput } from './design-input';
 import { shareOut, type Distribution } from './distribute-anodes';
 import { finalShapeOf } from './end-of-life';
 import { CpInputError } from './errors';
@@ -119,19 +119,20 @@ export function computeDesign(job: CheckedJob, anode: DesignAnode): DesignResult
   const demandKey = `${distBasis}A` as const;
   // No anode sits in the mud: the demand there is met by the anodes in the water, shared over the
   // surfaces that take anodes in proportion to their own demand (common practice).
-  const placeable = surfaces.filter((s, i) => job.surfaces[i].anodesAllowed !== false);
-  if (!placeable.length) throw new CpInputError('surfaces', 'Every surface is marked as taking no anodes (mud or sediment): add the surface in the water where the anodes are fitted.');
-  const placeableDemand = placeable.reduce((acc, s) => acc + s[demandKey], 0);
-  const shared = shareOut(anodeCount, placeable.map((s) => ({ name: s.name, demandA: s[demandKey] })), placeableDemand);
+  const placeableIndexes = surfaces.map((_, i) => i).filter((i) => job.surfaces[i].anodesAllowed !== false);
+  if (!placeableIndexes.length) throw new CpInputError('surfaces', 'Every surface is marked as taking no anodes (mud or sediment): add the surface in the water where the anodes are fitted.');
+  const placeableDemand = placeableIndexes.reduce((acc, i) => acc + surfaces[i][demandKey], 0);
+  // Water zones with no demand of their own still carry the mud's: then they share by area.
+  const byArea = !(placeableDemand > 0);
+  const weight = (i: number) => (byArea ? surfaces[i].areaM2 : surfaces[i][demandKey]);
+  const shared = shareOut(anodeCount, placeableIndexes.map((i) => ({ name: surfaces[i].name, demandA: weight(i) })), placeableIndexes.reduce((acc, i) => acc + weight(i), 0));
+  // Rows are matched by position: two zones may share a name (twin rudders).
+  const rowFor = new Map(placeableIndexes.map((surfaceIndex, k) => [surfaceIndex, { ...shared.surfaces[k], demandA: surfaces[surfaceIndex][demandKey] }]));
   const distribution = {
     basis: distBasis,
     designCount: shared.designCount,
     distributedCount: shared.distributedCount,
-    surfaces: surfaces.map((s, i) =>
-      job.surfaces[i].anodesAllowed === false
-        ? { name: s.name, demandA: s[demandKey], share: 0, exactCount: 0, count: 0, anodesAllowed: false }
-        : shared.surfaces.find((row) => row.name === s.name) ?? { name: s.name, demandA: s[demandKey], share: 0, exactCount: 0, count: 0 },
-    ),
+    surfaces: surfaces.map((s, i) => rowFor.get(i) ?? { name: s.name, demandA: s[demandKey], share: 0, exactCount: 0, count: 0, anodesAllowed: false }),
   };
   const anodesToFit = Math.max(anodeCount, shared.distributedCount);
 
@@ -171,7 +172,7 @@ function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAn
   // into another formula family (e.g. long flush -> McCoy) the families disagree at their
   // boundary, so the final resistance is never taken below the initial (conservative).
   const finalOhm = Math.max(final.ohm, initial.ohm);
-  const rated = ratedOutputs(anode, job.resistivityOhmM, initial.ohm, finalOhm);
+  const rated = ratedOutputs(anode, job.resistivityOhmM, initial.ohm, finalOhm, driving);
   return {
     initialResistanceOhm: initial.ohm,
     finalResistanceOhm: finalOhm,
@@ -193,11 +194,18 @@ function perAnodeOf(job: CheckedJob, anode: DesignAnode, driving: number): PerAn
  * the new to the consumed anode's resistance. Without a stated resistivity it is used as given (and
  * the design warns).
  */
-function ratedOutputs(anode: DesignAnode, resistivityOhmM: number, initialOhm: number, finalOhm: number) {
+function ratedOutputs(anode: DesignAnode, resistivityOhmM: number, initialOhm: number, finalOhm: number, drivingV: number) {
   const rated = anode.ratedOutputA;
   if (rated === undefined) return null;
+  // Without the resistivity it was stated at, the data-sheet output is used exactly as given (and the
+  // design warns), as the handbooks' worked examples do.
   if (anode.ratedAtResistivityOhmM === undefined) return { initialA: rated, finalA: rated, scaling: 'unscaled' as const };
-  const initialA = (rated * anode.ratedAtResistivityOhmM) / resistivityOhmM;
+  // A data sheet states its output at the usual -0.80 V criterion (common practice): at another
+  // protective potential the driving voltage, and so the output, changes in proportion.
+  const ratedDrivingV = DEFAULT_PROTECTIVE_POTENTIAL_V - anode.potentialV;
+  const voltage = ratedDrivingV > 0 ? drivingV / ratedDrivingV : 1;
+  const initialA = (rated * voltage * anode.ratedAtResistivityOhmM) / resistivityOhmM;
+  // The consumed anode's higher resistance lowers its output.
   return { initialA, finalA: (initialA * initialOhm) / finalOhm, scaling: 'scaled' as const };
 }
 

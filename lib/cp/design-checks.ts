@@ -121,8 +121,14 @@ const CHECKS: readonly Check[] = [
       ? { code: 'rated-output-unscaled', message: `The data-sheet output ${c.anode.ratedOutputA} A is used unscaled: the data sheet's resistivity is not given, so it cannot be scaled to the ${c.job.resistivityOhmM} Ω·m of this job. Enter the resistivity it was stated at, or leave the output blank to compute it.` }
       : null,
   // Interlocks: choices that are allowed but dangerous for the asset.
+  (c) => {
+    const limit = OVER_PROTECTION_LIMIT['high-strength-steel'];
+    return c.job.protectedMetal === 'high-strength-steel' && limit && c.job.protectivePotentialV < limit.valueV
+      ? { code: 'criterion-beyond-over-protection-limit', message: `The design potential ${c.job.protectivePotentialV} V is more negative than the ${limit.valueV} V limit for high-strength steel (hydrogen embrittlement): the anaerobic criterion and the over-protection limit conflict. Get the steel's own limit and a specialist's view.` }
+      : null;
+  },
   (c) =>
-    isMagnesium(c.anode.alloy) && c.job.surfaces.some((s) => s.coating !== 'bare') && (c.job.protectedMetal === 'steel' || c.job.protectedMetal === 'high-strength-steel')
+    isMagnesium(c.anode.alloy) && c.job.surfaces.some((s) => s.coating !== 'bare' || s.painted) && (c.job.protectedMetal === 'steel' || c.job.protectedMetal === 'high-strength-steel')
       ? { code: 'magnesium-on-coated-steel', message: 'Magnesium on coated steel drives the potential beyond -1.05 V: the coating disbonds (cathodic disbondment) and blisters. Use zinc or aluminium on coated steel in sea or brackish water.' }
       : null,
   (c) =>

@@ -37,6 +37,8 @@ export interface DesignSurface {
    * the water, which are shared over the other surfaces (common practice for piles and sheet piling).
    */
   anodesAllowed?: boolean;
+  /** The surface is painted although its density already covers the coated state (fc = 1, ship-hull practice). */
+  painted?: boolean;
 }
 
 export interface DesignAnode {
@@ -115,6 +117,7 @@ function validateSurface(value: unknown, field: string): DesignSurface {
     ...validateSurfaceDemand(r, `${field}.`),
     drainsCurrent: optional(r.drainsCurrent, (v) => oneOf(v, DRAINS, `${field}.drainsCurrent`)),
     anodesAllowed: optional(r.anodesAllowed, (v) => bool(v, `${field}.anodesAllowed`)),
+    painted: optional(r.painted, (v) => bool(v, `${field}.painted`)),
   };
 }
 

@@ -122,7 +122,8 @@ export type WarningCode =
   | 'magnesium-on-coated-steel'
   | 'magnesium-in-brackish-water'
   | 'zinc-temperature-unknown'
-  | 'al-zn-in-warm-water';
+  | 'al-zn-in-warm-water'
+  | 'criterion-beyond-over-protection-limit';
 
 /** One line of the calculation basis: what was used and where it comes from. */
 export interface BasisEntry {

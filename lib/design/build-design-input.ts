@@ -166,6 +166,8 @@ export function buildDesignJob(inputs: DeskInputs): DesignJob {
       drainsCurrent: s.drainsCurrent ?? undefined,
       // Anodes are never placed in the mud: the demand there is met by the anodes in the water.
       ...(isMudZone(s) ? { anodesAllowed: false } : {}),
+      // The checks need to know paint is there even where the density already covers it (fc = 1).
+      ...(s.coatingCategory !== 'bare' && s.coatingCategory !== 'noble-plating' ? { painted: true } : {}),
     })),
   };
 }
@@ -200,6 +202,9 @@ export function deskNotices(inputs: DeskInputs): DeskNotice[] {
   }
   if (!vessel && inputs.demandMethod !== 'ship-hull') {
     notices.push({ code: 'splash-zone-not-protected', message: 'The splash and tidal zones are not protected by anodes (only the immersed and buried steel is, the tidal zone partly): coat, wrap or sheath them, and allow for accelerated low-water corrosion.' });
+  }
+  if (!vessel) {
+    notices.push({ code: 'pile-continuity', message: 'Anodes on some piles protect the others only through electrical continuity: bond every pile (and the fenders and ladders) and check the bonds at each survey.' });
   }
   const mud = inputs.surfaces.filter(isMudZone);
   if (mud.length) {

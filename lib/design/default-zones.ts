@@ -16,12 +16,12 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
  * fine fast craft about 0.45, tugs and ferries about 0.55-0.6, general cargo 0.7, bulk and tankers 0.8.
  */
 export const DEFAULT_BLOCK_COEFFICIENT: ReadonlyArray<[RegExp, number]> = [
-  [/crew|pilot|patrol|fast|launch|catamaran/i, 0.45],
-  [/tug|workboat|work boat/i, 0.55],
-  [/ferry|ro-?ro|passenger/i, 0.6],
-  [/offshore|supply|psv|ahts/i, 0.65],
-  [/cargo|container|reefer/i, 0.7],
-  [/bulk|tanker|ore/i, 0.8],
+  [/\b(crew|pilot|patrol|fast|launch|catamaran)\b/i, 0.45],
+  [/\b(tug|workboat|work boat)\b/i, 0.55],
+  [/\b(ferry|ro-?ro|passenger)\b/i, 0.6],
+  [/\b(offshore|supply|psv|ahts)\b/i, 0.65],
+  [/\b(cargo|container|reefer)\b/i, 0.7],
+  [/\b(bulk|bulker|tanker|ore)\b/i, 0.8],
 ];
 /** For a type not in the list (common practice): a middling hull. */
 export const FALLBACK_BLOCK_COEFFICIENT = 0.6;

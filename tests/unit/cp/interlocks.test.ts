@@ -24,6 +24,8 @@ describe('interlocks: each fires in its case and not in its clean neighbour', ()
     ['al-zn-in-warm-water', (d) => (d.environment.temperatureC = 30), (d) => { zinc(d); d.environment.temperatureC = 30; }],
     ['rated-output-unscaled', (d) => (d.anode.ratedOutputA = 4), (d) => { d.anode.ratedOutputA = 4; d.anode.ratedAtResistivityOhmM = 0.25; }],
     ['rated-output-unscaled', (d) => (d.anode.ratedOutputA = 4), () => {}],
+    // anaerobic steel -0.90 V (published) against high-strength steel's -0.83 V limit (DNV-RP-B401, from memory)
+    ['criterion-beyond-over-protection-limit', (d) => { d.protectedMetal = 'high-strength-steel'; d.environment.anaerobic = true; delete d.protectivePotentialV; }, (d) => { d.protectedMetal = 'high-strength-steel'; delete d.protectivePotentialV; }],
   ];
 
   it.each(rows)('%s', (code, fire, calm) => {

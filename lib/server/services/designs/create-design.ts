@@ -44,9 +44,11 @@ export function defaultInputs(asset: Asset, zones: DeskSurface[]): DeskInputs {
     hullCoatingCondition: 'good',
     serviceSpeedKnots: null,
     salinityPsu: null,
-    resistivitySource: water === 'fresh' ? 'measured' : 'water',
+    // Fresh water has no estimate: the design asks for a measured resistivity rather than invent one.
+    resistivitySource: 'water',
     potentialSource: 'criterion',
-    anodeModelKey: vessel ? (aluminiumHull ? 'builtin:TW-ZB-2510' : 'builtin:TW-AW-4020') : water === 'fresh' ? 'builtin:TW-MS-1005' : 'builtin:TW-AS-2018',
+    // Zinc and aluminium passivate in fresh water: magnesium there (never on an aluminium hull).
+    anodeModelKey: vessel ? (aluminiumHull ? 'builtin:TW-ZB-2510' : water === 'fresh' ? 'builtin:TW-MB-3015' : 'builtin:TW-AW-4020') : water === 'fresh' ? 'builtin:TW-MS-1005' : 'builtin:TW-AS-2018',
     surfaces: zones.length ? zones : vessel ? defaultVesselZones(asset) : defaultStructureZones(asset),
   };
 }
