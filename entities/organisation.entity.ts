@@ -9,8 +9,11 @@ export const OrganisationSchema = defineEntity({
     // The slug is the organisation's part of every URL (/o/[slug]/...).
     slug: p.string().length(64).unique(),
     name: p.string().length(120),
-    // Months before a forecast end date by which a renewal must be booked.
+    // Months before a group's renew-by date by which its renewal docking must fall.
     renewalMarginMonths: p.integer().default(6),
+    // Renew when less than this percentage of a group's original anode mass remains (or at the
+    // utilisation factor when that comes first): the renew-by date of every forecast.
+    renewalThresholdPercent: p.integer().default(25),
     // Cost basis for option comparison, per kg of net anode mass fitted.
     fittingRatePerKg: double().nullable(),
     currency: p.string().length(3).default('EUR'),

@@ -7,6 +7,7 @@ import { Migration20261201182920_dockings_and_renewals } from './Migration202612
 import { Migration20261202003500_design_record } from './Migration20261202003500_design_record';
 import { Migration20261202011500_demand_method } from './Migration20261202011500_demand_method';
 import { Migration20261203090000_asset_survey_criteria } from './Migration20261203090000_asset_survey_criteria';
+import { Migration20261203100000_renewal_threshold } from './Migration20261203100000_renewal_threshold';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -18,4 +19,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202003500_design_record', class: Migration20261202003500_design_record },
   { name: 'Migration20261202011500_demand_method', class: Migration20261202011500_demand_method },
   { name: 'Migration20261203090000_asset_survey_criteria', class: Migration20261203090000_asset_survey_criteria },
+  { name: 'Migration20261203100000_renewal_threshold', class: Migration20261203100000_renewal_threshold },
 ];

@@ -120,7 +120,7 @@ function forecastAndSchedule(fleet: BenchVessel[]): FleetAssetProposals[] {
       dockings: v.dockings,
       groups: v.groups.map((g) => {
         const f = forecastGroup(g.forecast);
-        return { id: g.id, endOfLife: f.endOfLife, early: f.early, confirmedRenewal: g.confirmedRenewal };
+        return { id: g.id, renewBy: f.renewBy, renewByEarly: f.renewByEarly, confirmedRenewal: g.confirmedRenewal };
       }),
     })),
     { today: TODAY },

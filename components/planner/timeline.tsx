@@ -1,12 +1,14 @@
 import Link from 'next/link';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import type { PlannerDocking } from '@/lib/server/services/planner/planner-view';
+import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
+import type { PlannerDocking, PlannerNeedsDocking } from '@/lib/server/services/planner/planner-view';
 
 interface Props {
   org: string;
   assets: { id: string; name: string; kind: string }[];
   dockings: PlannerDocking[];
-  needsDocking: { assetId: string; by: string; group: string; overdue: boolean }[];
+  /** Groups no planned docking renews in time, marked at their renew-by date. */
+  needsDocking: Pick<PlannerNeedsDocking, 'assetId' | 'renewBy' | 'group' | 'overdue'>[];
   today: Date;
   months?: number;
 }
@@ -14,7 +16,7 @@ interface Props {
 const KIND_FILL: Record<string, string> = { intermediate: '#2f7479', 'renewal-survey': '#1a474b', unplanned: '#a8322e', campaign: '#a67a2c' };
 const monthStart = (d: Date) => Date.UTC(d.getUTCFullYear(), d.getUTCMonth(), 1);
 
-/** Months across, assets down: each docking or campaign as a bar with the anode mass due; red marks where a docking is needed. */
+/** Months across, assets down: each docking or campaign as a bar with the anode mass due; red marks the renew-by date of a group no planned docking renews in time. */
 export function Timeline({ org, assets, dockings, needsDocking, today, months = 36 }: Props) {
   const rowH = 30;
   const labelW = 170;
@@ -71,8 +73,8 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
                 .filter((n) => n.assetId === a.id)
                 .map((n, j) => (
                   <g key={j}>
-                    <path d={`M ${Math.max(labelW + 4, x(n.by))} ${y + 6} l 6 9 l -6 9 l -6 -9 z`} fill="#a8322e">
-                      <title>{`${n.group}: needs a docking by ${formatDateOnly(n.by)}${n.overdue ? ' (already passed)' : ''}`}</title>
+                    <path d={`M ${Math.min(width - 8, Math.max(labelW + 4, x(n.renewBy)))} ${y + 6} l 6 9 l -6 9 l -6 -9 z`} fill="#a8322e">
+                      <title>{`${n.group}: ${forecastDateWords('renewBy')} ${formatDateOnly(n.renewBy)}; ${n.overdue ? 'overdue for a docking' : 'no planned docking early enough'}`}</title>
                     </path>
                   </g>
                 ))}
@@ -93,7 +95,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
           <svg width="12" height="14" aria-hidden>
             <path d="M 6 0 l 6 7 l -6 7 l -6 -7 z" fill="#a8322e" />
           </svg>
-          A group needs a docking by this date
+          {`${FORECAST_DATE_LABELS.renewBy} of a group no planned docking renews in time`}
         </span>
         <span>Labels: net anode mass due at the docking. Faded: done.</span>
       </p>

@@ -1,4 +1,5 @@
 import { formatDateOnly } from '@/lib/dates/date-only';
+import { forecastDateWords } from '@/lib/forecast/labels';
 
 export interface ChartSeries {
   label: string;
@@ -7,6 +8,10 @@ export interface ChartSeries {
   /** Net mass at which the group reaches its utilisation factor, kg. */
   endKg: number;
   endOfLife: Date | null;
+  /** Net mass at which the group is to be renewed (the renewal threshold, or endKg if higher), kg. */
+  renewKg?: number;
+  /** The forecast's renew-by date: the date renewals are scheduled on. */
+  renewBy?: Date | null;
 }
 
 interface Props {
@@ -20,7 +25,7 @@ interface Props {
 const COLOURS = ['#235c61', '#a67a2c', '#6a3f8f', '#2d7244', '#a8322e', '#3b6ea5', '#7a5718', '#46505b'];
 const DASHES = ['', '6 3', '2 3', '8 3 2 3'];
 
-/** Remaining net mass of each group over time, with survey points, end-of-life marks, dockings and today. */
+/** Remaining net mass of each group over time, with survey points, renew-by and end-of-life marks, dockings and today. */
 export function DepletionChart({ series, dockings = [], today, title = 'Remaining net anode mass' }: Props) {
   const width = 900;
   const height = 300;
@@ -80,6 +85,11 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
                   <title>{`${s.label}: surveyed ${formatDateOnly(p.date)}, ${Math.round(p.kg)} kg`}</title>
                 </circle>
               ))}
+              {s.renewBy && s.renewKg !== undefined && s.renewBy.getTime() <= t1 ? (
+                <path d={`M ${x(s.renewBy.getTime())} ${y(s.renewKg) - 5} l 5 5 l -5 5 l -5 -5 z`} fill={colour}>
+                  <title>{`${s.label}: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy)}`}</title>
+                </path>
+              ) : null}
               {s.endOfLife && s.endOfLife.getTime() <= t1 ? (
                 <g>
                   <line x1={x(s.endOfLife.getTime()) - 4} x2={x(s.endOfLife.getTime()) + 4} y1={y(s.endKg) - 4} y2={y(s.endKg) + 4} stroke={colour} strokeWidth="2" />
@@ -98,10 +108,11 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
               <line x1="0" x2="22" y1="4" y2="4" stroke={COLOURS[i % COLOURS.length]} strokeWidth="2" strokeDasharray={DASHES[i % DASHES.length]} />
             </svg>
             {s.label}
-            {s.endOfLife ? ` (end of life ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
+            {s.renewBy ? `: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy, 'MMM yyyy')}` : ''}
+            {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
-        <span>○ survey estimate · × utilisation factor reached · dashed brass lines: dockings</span>
+        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × utilisation factor reached ({forecastDateWords('endOfLife')}) · dashed brass lines: dockings</span>
       </figcaption>
     </figure>
   );

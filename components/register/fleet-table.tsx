@@ -9,6 +9,7 @@ import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import type { AssetOutlook } from '@/lib/forecast';
+import { forecastDateWords } from '@/lib/forecast/labels';
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
 import { StatusTag, type StatusTone } from '@/components/ui/panel';
 
@@ -39,7 +40,7 @@ export function FleetTable({ org }: { org: string }) {
           return (
             <span className="flex flex-col gap-0.5">
               <StatusTag tone={tone}>{c.getValue()}</StatusTag>
-              {c.row.original.needsDockingBy ? <span className="text-2xs text-state-overdue">needs a docking by {formatDateOnly(c.row.original.needsDockingBy)}</span> : null}
+              {c.row.original.renewBy ? <span className="text-2xs text-state-overdue">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no docking planned in time</span> : null}
             </span>
           );
         },

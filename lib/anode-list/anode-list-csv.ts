@@ -8,7 +8,8 @@ import type { AnodeList } from './build-anode-list';
  * and group labels are typed by users).
  *
  * Layout
- *   1. header, then one row per line of the list (zone by zone, in the list's order);
+ *   1. header, then one row per line of the list (zone by zone, in the list's order), its
+ *      renew_by date YYYY-MM-DD (empty when the group has none);
  *   2. a blank line, a row "ordering totals", a header and one row per model;
  *   3. a totals row (quantity, net and gross mass of the whole list).
  * Masses are plain kg numbers (at most 3 decimals, no grouping) so spreadsheets read them as numbers.
@@ -28,6 +29,7 @@ export const ANODE_LIST_CSV_HEADER = [
   'positions',
   'reason',
   'status',
+  'renew_by',
 ] as const;
 
 export const ANODE_LIST_CSV_ORDER_HEADER = [
@@ -62,6 +64,7 @@ export function anodeListCsv(list: AnodeList): string {
         l.positions,
         l.reason,
         l.status,
+        l.renewBy,
       ]);
     }
   }

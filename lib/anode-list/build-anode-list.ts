@@ -41,6 +41,11 @@ export interface AnodeListRenewalInput {
   reason: string;
   /** 'proposed' | 'confirmed' | 'ordered' | 'fitted' */
   status: string;
+  /**
+   * The group's forecast renew-by date, YYYY-MM-DD (lib/forecast GroupForecast.renewBy): the date
+   * the renewal is scheduled on. Null or absent when there is none (a fitted group, no forecast).
+   */
+  renewBy?: string | null;
 }
 
 export interface AnodeListInput {
@@ -88,6 +93,8 @@ export interface AnodeListLine {
   positions: string | null;
   reason: string;
   status: string;
+  /** YYYY-MM-DD, or null. */
+  renewBy: string | null;
 }
 
 export interface AnodeListTotals {
@@ -263,6 +270,7 @@ function readLine(value: unknown, field: string): AnodeListLine {
     }),
     reason: typeof r.reason === 'string' ? r.reason.trim() : fail(`${field}.reason`, `${field}.reason must be a text.`),
     status: oneOf(r.status, ANODE_LIST_STATUSES, `${field}.status`),
+    renewBy: nullable(r.renewBy, (v) => isoDay(v, `${field}.renewBy`)),
   };
 }
 

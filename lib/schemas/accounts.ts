@@ -36,3 +36,19 @@ export const acceptInvitationNewUserSchema = z.object({ token: z.string().min(10
 export const acceptInvitationSchema = z.object({ token: z.string().min(10).max(200) });
 
 export type SignUpInput = z.infer<typeof signUpSchema>;
+
+/** The renewal threshold an owner may set, percent of the original anode mass remaining. */
+export const RENEWAL_THRESHOLD_PERCENT = { min: 5, max: 60, default: 25 } as const;
+
+/** The owner's organisation settings (the Team page). */
+export const organisationSettingsSchema = z.object({
+  name: z.string().trim().min(2, 'Use at least 2 characters.').max(120, 'Use at most 120 characters.'),
+  renewalMarginMonths: z.coerce.number({ error: 'Enter a whole number of months.' }).int('Enter a whole number of months.').min(0, 'The margin cannot be negative.').max(36, 'Use at most 36 months.'),
+  renewalThresholdPercent: z.coerce
+    .number({ error: 'Enter a whole percentage.' })
+    .int('Enter a whole percentage.')
+    .min(RENEWAL_THRESHOLD_PERCENT.min, `Use at least ${RENEWAL_THRESHOLD_PERCENT.min} %.`)
+    .max(RENEWAL_THRESHOLD_PERCENT.max, `Use at most ${RENEWAL_THRESHOLD_PERCENT.max} %.`),
+  fittingRatePerKg: z.preprocess((v) => (v === '' || v === undefined ? null : v), z.coerce.number({ error: 'Enter a number.' }).min(0, 'The rate cannot be negative.').max(100_000).nullable()),
+  currency: z.string().trim().regex(/^[A-Z]{3}$/, 'Use a three-letter currency code such as EUR.'),
+});

@@ -129,8 +129,8 @@ async function designBy(role: Role) {
 
 /** A group on the renewal vessel; the scheduler proposes its renewal at the vessel's docking. */
 async function proposedRenewal() {
-  // 10 x TW-AW-4020 at 5 A installed a year ago: end of life in about 660 days, deadline about 480 days ahead,
-  // so the docking 200 days ahead is where the renewal is proposed (same hand check as planner.test.ts).
+  // 10 x TW-AW-4020 at 5 A installed a year ago: renew by (25 % left) in about 597 days, deadline about 414 days
+  // ahead, so the docking 200 days ahead is where the renewal is proposed (same hand check as planner.test.ts).
   const group = await as('engineer', (c) => createAnodeGroup(c, fixtures.renewalVessel, { label: unique('Renewal group'), anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 }));
   const renewal = await (await getEm()).findOneOrFail(RenewalSchema, { group: group.id, status: 'proposed' });
   return { groupId: group.id, renewalId: renewal.id };
@@ -412,8 +412,8 @@ const ORG_ACTIONS: OrgActionCase[] = [
     kind: 'form',
     permission: 'team:manage',
     table: 'organisation',
-    // The margin stays at 6 months, so the scheduler's proposals stay where the renewal fixtures expect them.
-    input: async () => ({ name: 'Action Harbour', renewalMarginMonths: '6', fittingRatePerKg: String(10 + ++serial), currency: 'EUR' }),
+    // The margin and the threshold stay at 6 months and 25 %, so the scheduler's proposals stay where the renewal fixtures expect them.
+    input: async () => ({ name: 'Action Harbour', renewalMarginMonths: '6', renewalThresholdPercent: '25', fittingRatePerKg: String(10 + ++serial), currency: 'EUR' }),
     success: { message: /^Settings saved\.$/ },
   },
   // Billing (an organisation of its own, so a subscription does not change the others' limits)

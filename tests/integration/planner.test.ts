@@ -27,8 +27,9 @@ beforeAll(async () => {
   vesselId = vessel.id;
   // Hand check (invented group): 10 x TW-AW-4020, 7.7 kg net each = 77 kg; u = 0.80 (short flush, DNV-RP-B401 (2010)
   // Table 10-8, from memory); eps = 2000 Ah/kg (DNV-RP-B401 (2010) Table 10-6, from memory); mean current 5 A.
-  // Consumption I x 8760 / eps = 21.9 kg/yr (handbook practice); usable 0.8 x 77 = 61.6 kg -> life 2.813 years.
-  // Installed 365 days ago: end of life about today + 662 days; deadline (6-month margin) about today + 480 days.
+  // Consumption I x 8760 / eps = 21.9 kg/yr (handbook practice). Renew by: 25 % of the mass left (above 1 - u = 0.20),
+  // 0.75 x 77 = 57.75 kg consumed -> 2.637 years (962 days). Installed 365 days ago: renew by about today + 597 days;
+  // deadline (6-month margin) about today + 414 days.
   const group = await runAs(ctx('engineer'), (c) => createAnodeGroup(c, vesselId, { label: 'Bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 }));
   groupId = group.id;
   for (const [name, offset] of [['D1', 200], ['D2', 400], ['D3', 600]] as const) {
@@ -83,7 +84,7 @@ describe('renewal proposals', () => {
     expect(fresh.quantity).toBe(10);
     expect(fresh.removedOn).toBeNull();
     expect((await renewalsOf())[0].status).toBe('fitted');
-    // The fresh group lasts 2.813 years from today (same 5 A): deadline about today + 845 days, so D3
+    // The fresh group is renewed 2.637 years from today (same 5 A): deadline about today + 779 days, so D3
     // (600 days, the last docking before it) is proposed.
     const next = await renewalsOf(newGroup.id);
     expect(next.map((x) => [x.status, x.docking.id])).toEqual([['proposed', dockings.D3]]);
@@ -123,19 +124,20 @@ describe('the renewal margin', () => {
     const fleet = await makeOrgWithRoles(await getEm(), 'Margin Marine');
     const as = async (role: Role) => ctxFor(await getEm(), fleet.organisation, fleet.users[role]);
     const boat = await runAs(as('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Margin Boat', hullMaterial: 'steel' }));
-    // 12 x TW-ZW-3015 (8.4 kg, zinc 780 Ah/kg: DNV-RP-B401 (2010) Table 10-6, from memory) at 2 A: 22.46 kg/yr,
-    // usable 0.8 x 100.8 kg -> 3.59 years; installed 400 days ago -> end of life about today + 912 days.
+    // 12 x TW-ZW-3015 (8.4 kg, zinc 780 Ah/kg: DNV-RP-B401 (2010) Table 10-6, from memory) at 2 A: 22.46 kg/yr;
+    // renew by at 25 % left: 0.75 x 100.8 = 75.6 kg -> 3.366 years (1,229 days); installed 400 days ago -> renew by
+    // about today + 829 days.
     const group = await runAs(as('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 12, installedOn: day(-400), meanCurrentA: 2 }));
-    const d500 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(500) }));
-    const d700 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(700) }));
-    // Margin 6 months: deadline about today + 730 days -> the docking at 700 days.
-    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d700.id]);
+    const d420 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(420) }));
+    const d620 = await runAs(as('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'intermediate', plannedStart: day(620) }));
+    // Margin 6 months: deadline about today + 646 days -> the docking at 620 days.
+    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d620.id]);
     const { updateOrganisationSettings } = await import('@/lib/server/services/accounts/update-organisation-settings');
-    const refused = await runAs(as('planner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '', currency: 'EUR' })).catch((e) => e);
+    const refused = await runAs(as('planner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, renewalThresholdPercent: 25, fittingRatePerKg: '', currency: 'EUR' })).catch((e) => e);
     expect(refused.code).toBe('forbidden');
-    // Margin 12 months: deadline about today + 547 days -> the docking at 500 days.
-    await runAs(as('owner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, fittingRatePerKg: '14.5', currency: 'EUR' }));
-    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d500.id]);
+    // Margin 12 months: deadline about today + 464 days -> the docking at 420 days.
+    await runAs(as('owner'), (c) => updateOrganisationSettings(c, { name: 'Margin Marine', renewalMarginMonths: 12, renewalThresholdPercent: 25, fittingRatePerKg: '14.5', currency: 'EUR' }));
+    expect((await renewalsOf(group.id)).map((r) => r.docking.id)).toEqual([d420.id]);
   });
 });
 
@@ -168,6 +170,9 @@ describe('anode list and reminders', () => {
     expect(mails[0].dedupeKey).toContain(':30:'); // 25 days ahead: the 30-day reminder
     expect(mails[0].subject).toMatch(/Soon Docking docks in 25 days/);
     expect(mails[0].attachments?.[0].contentType).toBe('application/pdf');
+    // The renewals with their renew-by dates, and the rule they follow, in the text itself.
+    expect(mails[0].textBody).toMatch(/- Hull: 20 × TW-ZW-3015, proposed, renew by \d{1,2} [A-Z][a-z]{2} \d{4}\n/);
+    expect(mails[0].textBody).toContain('Renewals are proposed at the last docking at least 6 months before the renew-by date');
   });
 
   it('sends the weekly digest once a week, listing assets whose outlook changed', async () => {
@@ -177,5 +182,6 @@ describe('anode list and reminders', () => {
     const recipients = await (await getEm()).count(MembershipSchema, { organisation: org.organisation, role: { $in: ['planner', 'owner'] } });
     expect(digests).toHaveLength(recipients);
     expect(digests[0].textBody).toContain('Soon Docking');
+    expect(digests[0].textBody).toMatch(/- Soon Docking: [^\n]*\(renew by \d{1,2} [A-Z][a-z]{2} \d{4}; next docking /);
   });
 });

@@ -211,7 +211,7 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('owner')((c) => removeMember(c, { membershipId: leaverMembership[0].id })));
     const { invitation } = await runAs(member('owner'), (c) => inviteMember(c, { email: uniqueEmail('withdrawn'), role: 'viewer' }));
     await expectAllOrNothing(as('owner')((c) => revokeInvitation(c, { invitationId: invitation.id })));
-    await expectAllOrNothing(as('owner')((c) => updateOrganisationSettings(c, { name: 'All Or Nothing Marine', renewalMarginMonths: 6 + Math.floor(Math.random() * 6), fittingRatePerKg: '12', currency: 'EUR' })));
+    await expectAllOrNothing(as('owner')((c) => updateOrganisationSettings(c, { name: 'All Or Nothing Marine', renewalMarginMonths: 6 + Math.floor(Math.random() * 6), renewalThresholdPercent: 25, fittingRatePerKg: '12', currency: 'EUR' })));
   });
 });
 

@@ -2,6 +2,7 @@ import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } fr
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
 import { CAUTION_TEXT } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
+import { FORECAST_DATE_LABELS } from '@/lib/forecast/labels';
 import { count, humanise, kgText } from './format';
 import { FONT, lineCount, wrapLines } from './measure-text';
 
@@ -9,7 +10,7 @@ import { FONT, lineCount, wrapLines } from './measure-text';
  * The page plan of the dry-dock anode list, A4 LANDSCAPE: geometry, columns, the texts of
  * every cell, and where the sheets break. render.tsx draws what this plans.
  *
- * Why landscape: each line has eleven columns, one of them free-text positions
+ * Why landscape: each line has twelve columns, one of them free-text positions
  * ("Fr 144-150 P/S, 2.5 m above keel"). In portrait (523 pt of width) the positions column
  * would be about 85 pt and most lines would wrap to two or three rows, so a 300-line list
  * would run to twice the pages and the yard would read across broken rows. Landscape
@@ -55,17 +56,19 @@ export type TableKind = 'line' | 'order' | 'asset' | 'docking';
 
 export const COLUMNS: Record<TableKind, Col[]> = {
   line: [
-    { label: 'Group', share: 0.1 },
+    // Positions keeps its width (the free text that wraps); the renew-by date's room comes from the others.
+    { label: 'Group', share: 0.075 },
     { label: 'Model', share: 0.09 },
-    { label: 'Alloy', share: 0.08 },
+    { label: 'Alloy', share: 0.07 },
     { label: 'Mounting', share: 0.09 },
-    { label: 'Qty', share: 0.045, right: true },
-    { label: 'Net each', share: 0.07, right: true },
-    { label: 'Gross each', share: 0.075, right: true },
-    { label: 'Net total', share: 0.08, right: true },
-    { label: 'Gross total', share: 0.085, right: true },
+    { label: 'Qty', share: 0.035, right: true },
+    { label: 'Net each', share: 0.065, right: true },
+    { label: 'Gross each', share: 0.07, right: true },
+    { label: 'Net total', share: 0.075, right: true },
+    { label: 'Gross total', share: 0.08, right: true },
     { label: 'Positions', share: 0.205, gap: true },
-    { label: 'Status', share: 0.08 },
+    { label: FORECAST_DATE_LABELS.renewBy, share: 0.08 },
+    { label: 'Status', share: 0.065 },
   ],
   order: [
     { label: 'Model', share: 0.14 },
@@ -118,9 +121,10 @@ const lineCells = (l: AnodeListLine): string[] => [
   kgText(l.netMassTotalKg),
   kgText(l.grossMassTotalKg),
   l.positions ?? '–',
+  l.renewBy ? formatDateOnly(l.renewBy) : '–',
   STATUS_WORDS[l.status] ?? l.status,
 ];
-const subtotalCells = (t: AnodeListTotals): string[] => ['Subtotal', '', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg), '', ''];
+const subtotalCells = (t: AnodeListTotals): string[] => ['Subtotal', '', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg), '', '', ''];
 const orderCells = (o: AnodeListOrderLine): string[] => [
   o.designation,
   ALLOY_LABELS[o.alloy] ?? o.alloy,

@@ -235,7 +235,9 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Harrowgate Dry Dock', 'done');
   await plan('Brindlemoor', 'intermediate', inDays(640), 'Harrowgate Dry Dock');
   await plan('Kittiwake Sound', 'intermediate', inDays(75), 'Corrie Point Shiprepair');
-  await plan('Tern Ledger', 'intermediate', inDays(200), 'Corrie Point Shiprepair');
+  // Tern Ledger's hull group is renewed by about November 2027 (25 % of its mass left): its docking falls
+  // at least the 6-month margin before that, so the renewal is proposed there.
+  await plan('Tern Ledger', 'intermediate', inDays(120), 'Corrie Point Shiprepair');
   await plan('Wavecrest Minnow', 'unplanned', inDays(29), 'Harrowgate Dry Dock');
   await plan('Gullhaven Ferry Jetty', 'campaign', inDays(150), 'Brannock Kelp Divers');
   await plan('Dolphin North', 'campaign', inDays(150), 'Brannock Kelp Divers');

@@ -31,17 +31,26 @@ describe('anodeListCsv: structure', () => {
     expect(lines).toHaveLength(14);
   });
 
-  it('writes each line with quantity, masses each and in total, positions, reason and status', () => {
-    expect(lines[2]).toBe('Hull bottom,Bottom P10,TW-AW-4020,al-zn-in,flush-weld,12,7.7,8.7,92.4,104.4,"Fr 40-52 P, 1.0 m above keel",forecast depletion,confirmed');
-    // A line without a zone has an empty zone cell and an empty positions cell.
-    expect(lines[5]).toBe(',Sea chest grid,TW-ZB-2510,zinc,flush-bolt,6,4.7,5,28.2,30,,damage,proposed');
+  it('writes each line with quantity, masses each and in total, positions, reason, status and renew-by date', () => {
+    expect(lines[2]).toBe('Hull bottom,Bottom P10,TW-AW-4020,al-zn-in,flush-weld,12,7.7,8.7,92.4,104.4,"Fr 40-52 P, 1.0 m above keel",forecast depletion,confirmed,');
+    // A line without a zone has an empty zone cell and an empty positions cell; without a renew-by date, an empty last cell.
+    expect(lines[5]).toBe(',Sea chest grid,TW-ZB-2510,zinc,flush-bolt,6,4.7,5,28.2,30,,damage,proposed,');
   });
 
-  it('reads back as a table of 13 columns with a spreadsheet parser', () => {
+  it('reads back as a table of 14 columns with a spreadsheet parser', () => {
     const rows = parse(csv);
-    expect(rows[0]).toHaveLength(13);
-    expect(rows.slice(1, 6).every((r) => r.length === 13)).toBe(true);
+    expect(rows[0]).toHaveLength(14);
+    expect(rows.slice(1, 6).every((r) => r.length === 14)).toBe(true);
     expect(rows[2][10]).toBe('Fr 40-52 P, 1.0 m above keel');
+  });
+
+  it("writes a line's renew-by date as YYYY-MM-DD under renew_by", () => {
+    const renewals = smallRenewals();
+    renewals[0] = { ...renewals[0], renewBy: '2027-11-09' };
+    const rows = parse(anodeListCsv(buildAnodeList({ ...smallInput(), renewals })));
+    expect(rows[0][13]).toBe('renew_by');
+    expect(rows.find((r) => r[1] === 'Bottom P10')![13]).toBe('2027-11-09');
+    expect(rows.find((r) => r[1] === 'Bottom P2')![13]).toBe('');
   });
 });
 

@@ -44,6 +44,14 @@ describe('renderAnodeListPdf', () => {
     expect(text).toContain('Hull bottom · 30 anodes');
   });
 
+  it("prints each line's renew-by date under the forecast's label", async () => {
+    const input = smallInput();
+    input.renewals[0] = { ...input.renewals[0], renewBy: '2027-11-09' };
+    const text = (await pdfText(await renderAnodeListPdf(buildAnodeList(input)))).replace(/\s+/g, ' ');
+    expect(text).toContain('Renew by');
+    expect(text).toContain('9 Nov 2027');
+  });
+
   it('prints an empty list without failing', async () => {
     const text = (await pdfText(await renderAnodeListPdf(buildAnodeList(smallInput({ renewals: [] }))))).replace(/\s+/g, ' ');
     expect(text).toContain('No renewals are booked for this docking.');

@@ -132,6 +132,20 @@ describe('buildAnodeList: invalid input throws AnodeListInputError naming the fi
     expect(fieldOf(() => buildAnodeList(withLine(2, { designation: '  ' })))).toBe('renewals[2].designation');
   });
 
+  it('a renew-by date that is not a real day written YYYY-MM-DD; a missing or null one is none', () => {
+    expect(fieldOf(() => buildAnodeList(withLine(1, { renewBy: '2027-02-30' })))).toBe('renewals[1].renewBy');
+    expect(fieldOf(() => buildAnodeList(withLine(1, { renewBy: '9 Nov 2027' })))).toBe('renewals[1].renewBy');
+    const list = buildAnodeList(withLine(1, { renewBy: '2027-11-09' }));
+    expect(list.zones.flatMap((z) => z.lines).map((l) => [l.groupLabel, l.renewBy])).toEqual([
+      ['Bottom P2', null],
+      ['Bottom P10', null],
+      ['Bottom S2', null],
+      ['Rudder', '2027-11-09'],
+      ['Sea chest grid', null],
+    ]);
+    expect(buildAnodeList(withLine(1, { renewBy: null })).zones[1].lines[0].renewBy).toBeNull();
+  });
+
   it('docking dates that are not real days, or an end before the start', () => {
     const docking = smallInput().docking;
     expect(fieldOf(() => buildAnodeList(smallInput({ docking: { ...docking, plannedStart: '2027-02-30' } })))).toBe('docking.plannedStart');

@@ -69,12 +69,12 @@ describe.each([
         org: 'pcl',
         assets: [{ id: 'a1', name: 'Morwenna Tide', kind: 'vessel' }],
         dockings: [docking],
-        needsDocking: [{ assetId: 'a1', by: DAY, group: 'Bottom P1', overdue: false }],
+        needsDocking: [{ assetId: 'a1', renewBy: DAY, group: 'Bottom P1', overdue: false }],
         today: day('2027-01-10'),
       }),
     );
     expect(html).toContain('Morwenna Tide: intermediate 14 Mar 2027;');
-    expect(html).toContain('Bottom P1: needs a docking by 14 Mar 2027');
+    expect(html).toContain('Bottom P1: renew by 14 Mar 2027');
     expect(html).toMatch(/>Mar<\/text>/);
   });
 

@@ -5,6 +5,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getPlannerView } from '@/lib/server/services/planner/planner-view';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
+import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
@@ -26,6 +27,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
       <div className="flex flex-col gap-4">
         <Panel title="Timeline">
           <Timeline org={org} assets={view.assets} dockings={view.dockings} needsDocking={view.needsDocking} today={today} />
+          <p className="mt-2 text-xs text-ink-soft">{view.renewalRule}</p>
         </Panel>
         {view.needsDocking.length ? (
           <Panel title="Groups that cannot reach a planned docking">
@@ -33,10 +35,45 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
               {view.needsDocking.map((n, i) => (
                 <li key={i} className="flex flex-wrap items-center gap-2">
                   <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
-                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group} needs renewal by <strong>{formatDateOnly(n.by)}</strong>
+                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
                 </li>
               ))}
             </ul>
+          </Panel>
+        ) : null}
+        {view.renewBy.length ? (
+          <Panel title="Renewals by renew-by date">
+            <table className="w-full text-sm" aria-label="Renew-by dates">
+              <thead className="text-xs text-ink-soft">
+                <tr className="border-b border-rule">
+                  <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.renewBy}</th>
+                  <th className="py-1 text-left font-medium">Asset</th>
+                  <th className="py-1 text-left font-medium">Group</th>
+                  <th className="py-1 text-left font-medium">Renewal</th>
+                </tr>
+              </thead>
+              <tbody>
+                {view.renewBy.map((r) => (
+                  <tr key={r.groupId} className="border-b border-rule">
+                    <td className="py-1.5">{formatDateOnly(r.renewBy)}</td>
+                    <td className="py-1.5"><Link href={`/o/${org}/assets/${r.assetId}`} className="text-tide-600 hover:underline">{r.assetName}</Link></td>
+                    <td className="py-1.5">{r.group}</td>
+                    <td className="py-1.5">
+                      {r.dockingId && r.dockingDate ? (
+                        <>
+                          {r.status === 'kept' ? 'Booked at' : 'Proposed at'} the docking of{' '}
+                          <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${r.dockingId}`}>{formatDateOnly(r.dockingDate)}</Link>
+                        </>
+                      ) : r.status === 'no-docking' ? (
+                        <StatusTag tone="overdue">{r.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
+                      ) : (
+                        'Booked'
+                      )}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
           </Panel>
         ) : null}
         <div className={`grid items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>

@@ -15,7 +15,7 @@ export default async function TeamPage({ params }: { params: Promise<{ org: stri
       <TeamManager org={org} />
       <div className="mt-5 max-w-2xl">
         <Panel title="Organisation settings">
-          <SettingsForm org={org} values={{ name: ctx.organisation.name, renewalMarginMonths: ctx.organisation.renewalMarginMonths, fittingRatePerKg: ctx.organisation.fittingRatePerKg ?? null, currency: ctx.organisation.currency }} />
+          <SettingsForm org={org} values={{ name: ctx.organisation.name, renewalMarginMonths: ctx.organisation.renewalMarginMonths, renewalThresholdPercent: ctx.organisation.renewalThresholdPercent, fittingRatePerKg: ctx.organisation.fittingRatePerKg ?? null, currency: ctx.organisation.currency }} />
         </Panel>
       </div>
     </>

@@ -1,9 +1,11 @@
 import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
-import { parseDateOnly } from '@/lib/dates/date-only';
+import { parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
+import { renewalRuleSentence } from '@/lib/words/renewal-rule';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';
-import { loadGroupForecasts } from '../forecast/group-forecasts';
+import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
+import { renewalRuleOf } from '../planner/compute-plans';
 import { inSequence } from '../../sql';
 
 export interface DepletionSeries {
@@ -12,6 +14,49 @@ export interface DepletionSeries {
   surveys: { date: Date; kg: number }[];
   endKg: number;
   endOfLife: Date | null;
+  renewKg: number;
+  renewBy: Date | null;
+}
+
+/** One row of the asset page's forecast table; dates are YYYY-MM-DD. */
+export interface ForecastRow {
+  groupId: string;
+  label: string;
+  installedNetKg: number;
+  /** kg/yr at the forecast's start (installation or the latest survey); null without a forecast. */
+  ratePerYearKg: number | null;
+  /** What the forecast runs on, in words, or why there is none. */
+  basis: string;
+  /** The forecast's renew-by date: the one date renewals are scheduled on (the planner shows the same). */
+  renewBy: string | null;
+  renewByEarly: string | null;
+  renewByLate: string | null;
+  /** Secondary: when the utilisation factor is used up. */
+  endOfLife: string | null;
+}
+
+const dayOrNull = (d: Date | null | undefined) => (d ? toDateOnly(d) : null);
+
+function basisWords(f: GroupWithForecast): string {
+  if (!f.forecast) return f.noForecastReason ?? 'no forecast';
+  const p = f.demandProfile;
+  const demand = !p ? 'constant mean current' : p.startA === p.endA ? 'design current (constant: bare metal)' : 'design demand profile (coating breakdown)';
+  return f.forecast.basis === 'survey-corrected' ? `${demand}; corrected by survey` : demand;
+}
+
+/** The forecast table's rows, in the order of the forecasts (by group label). */
+function forecastRows(forecasts: readonly GroupWithForecast[]): ForecastRow[] {
+  return forecasts.map((f) => ({
+    groupId: f.group.id,
+    label: f.group.label,
+    installedNetKg: f.group.quantity * f.group.model.netMassKg,
+    ratePerYearKg: f.forecast ? f.forecast.ratePerYearKg : null,
+    basis: basisWords(f),
+    renewBy: dayOrNull(f.forecast?.renewBy),
+    renewByEarly: dayOrNull(f.forecast?.renewByEarly),
+    renewByLate: dayOrNull(f.forecast?.renewByLate),
+    endOfLife: dayOrNull(f.forecast?.endOfLife),
+  }));
 }
 
 /**
@@ -35,8 +80,8 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
     ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
     : [];
 
-  // The chart runs half a year past the last end of life, so every group's crossing is visible.
-  const horizon = new Date(Math.max(today.getTime(), ...forecasts.map((f) => (f.forecast?.endOfLife ?? today).getTime())) + 180 * 86_400_000);
+  // The chart runs half a year past the last end of life (or renew-by date), so every group's crossings are visible.
+  const horizon = new Date(Math.max(today.getTime(), ...forecasts.map((f) => (f.forecast?.endOfLife ?? f.forecast?.renewBy ?? today).getTime())) + 180 * 86_400_000);
   const series: DepletionSeries[] = forecasts
     .filter((f) => f.forecast)
     .map((f) => {
@@ -48,7 +93,11 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
         surveys: f.surveys.map((s) => ({ date: s.date, kg: s.remainingFraction * fc.installedMassKg })),
         endKg: fc.endFraction * fc.installedMassKg,
         endOfLife: fc.endOfLife,
+        renewKg: fc.renewFraction * fc.installedMassKg,
+        renewBy: fc.renewBy,
       };
     });
-  return { today, asset, canWrite, zones, designs, surveys, forecasts, catalogue, dockings, changes, series };
+  // The rule the renew-by dates follow, in words (the docking planner states the same sentence).
+  const renewalRule = renewalRuleSentence(renewalRuleOf(ctx));
+  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, catalogue, dockings, changes, series };
 }

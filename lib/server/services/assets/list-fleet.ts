@@ -1,5 +1,6 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AssetOutlook } from '@/lib/forecast';
+import { toDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, OUTLOOK_WORDS } from '../planner/compute-plans';
 import { listAssets, type AssetRow } from './list-assets';
@@ -9,7 +10,8 @@ export interface FleetRow extends AssetRow {
   outlookWords: string | null;
   nextDocking: { id: string; date: string; kind: string } | null;
   massDueAtNextDockingKg: number;
-  needsDockingBy: string | null;
+  /** The earliest renew-by date (YYYY-MM-DD) of a group no planned docking renews in time. */
+  renewBy: string | null;
 }
 
 /** The fleet overview page: the asset list with each asset's protection outlook, next docking and mass due there. */
@@ -23,14 +25,14 @@ export async function listFleet(ctx: OrgContext, query: ListQuery) {
     rows: page.rows.map((row): FleetRow => {
       const plan = byAsset.get(row.id);
       const next = plan?.nextDocking ?? null;
-      const needsBy = plan?.groups.map((g) => g.proposal?.needsDockingBy).filter((d): d is Date => Boolean(d)).sort((a, b) => a.getTime() - b.getTime())[0] ?? null;
+      const renewBy = plan?.groups.filter((g) => g.proposal?.status === 'no-docking').map((g) => g.forecast?.renewBy).filter((d): d is Date => Boolean(d)).sort((a, b) => a.getTime() - b.getTime())[0] ?? null;
       return {
         ...row,
         outlook: plan?.outlook ?? null,
         outlookWords: plan ? OUTLOOK_WORDS[plan.outlook] : null,
         nextDocking: next ? { id: next.id, date: dockingDate(next).toISOString().slice(0, 10), kind: next.kind } : null,
         massDueAtNextDockingKg: next ? (plan!.massDue.find((m) => m.dockingId === next.id)?.massKg ?? 0) : 0,
-        needsDockingBy: needsBy ? needsBy.toISOString().slice(0, 10) : null,
+        renewBy: renewBy ? toDateOnly(renewBy) : null,
       };
     }),
   };

@@ -1,9 +1,10 @@
 import { AssetSchema, DockingSchema, RenewalSchema, type Asset, type Docking, type Renewal } from '@/entities';
-import { assetOutlook, massDueKg, proposeRenewals, type AssetOutlook, type MassDue, type RenewalProposal } from '@/lib/forecast';
+import { DEFAULT_MARGIN_MONTHS, assetOutlook, massDueKg, proposeRenewals, type AssetOutlook, type MassDue, type RenewalProposal } from '@/lib/forecast';
 import { classifyPotential } from '@/lib/surveys/criteria';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
+import type { RenewalRuleSettings } from '@/lib/words/renewal-rule';
+import { loadGroupForecasts, renewalThresholdRemaining, type GroupWithForecast } from '../forecast/group-forecasts';
 import { inSequence } from '../../sql';
 
 export interface AssetPlan {
@@ -18,13 +19,24 @@ export interface AssetPlan {
   massDue: MassDue[];
 }
 
+/** The organisation's renewal margin, months between a renewal's docking and the group's renew-by date. */
+export const renewalMarginMonths = (ctx: Pick<OrgContext, 'organisation'>) => ctx.organisation.renewalMarginMonths ?? DEFAULT_MARGIN_MONTHS;
+
+/** The two settings the renewal rule is stated with (renewalRuleSentence), as the scheduler uses them. */
+export const renewalRuleOf = (ctx: Pick<OrgContext, 'organisation'>): RenewalRuleSettings => ({
+  marginMonths: renewalMarginMonths(ctx),
+  thresholdPercent: Math.round(renewalThresholdRemaining(ctx) * 100),
+});
+
 const day = (iso: string) => new Date(`${iso}T00:00:00Z`);
 /** The date a docking counts from: its actual start once known, else the planned one. */
 export const dockingDate = (d: Pick<Docking, 'plannedStart' | 'actualStart'>) => day(d.actualStart ?? d.plannedStart);
 
 /**
  * Forecast, renewal proposals and protection outlook for some assets (or the whole organisation),
- * in a fixed number of statements whatever the fleet size.
+ * in a fixed number of statements whatever the fleet size. Renewals are scheduled on each group's
+ * renew-by date (the organisation's renewal threshold, or the utilisation factor if that comes first)
+ * less the organisation's renewal margin.
  */
 export async function computePlans(ctx: OrgContext, { assetIds, today = new Date() }: { assetIds?: string[]; today?: Date } = {}): Promise<AssetPlan[]> {
   requirePermission(ctx, 'org:read');
@@ -52,11 +64,11 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
     const usable = assetDockings.filter((d) => d.status === 'planned');
     const proposals = proposeRenewals({
       today,
-      marginMonths: ctx.organisation.renewalMarginMonths ?? 6,
+      marginMonths: renewalMarginMonths(ctx),
       dockings: usable.map((d) => ({ id: d.id, date: dockingDate(d), status: d.status })),
       groups: groups
         .filter((g) => g.forecast)
-        .map((g) => ({ id: g.group.id, endOfLife: g.forecast!.endOfLife, early: g.forecast!.early, confirmedRenewal: bookedByGroup.has(g.group.id) ? { dockingId: bookedByGroup.get(g.group.id)!.docking.id } : null })),
+        .map((g) => ({ id: g.group.id, renewBy: g.forecast!.renewBy, renewByEarly: g.forecast!.renewByEarly, confirmedRenewal: bookedByGroup.has(g.group.id) ? { dockingId: bookedByGroup.get(g.group.id)!.docking.id } : null })),
     });
     const byGroup = new Map(proposals.map((p) => [p.groupId, p]));
     const nextDocking = usable.find((d) => dockingDate(d).getTime() >= today.getTime() - 86_400_000) ?? null;

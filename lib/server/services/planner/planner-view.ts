@@ -1,7 +1,9 @@
 import { RenewalSchema } from '@/entities';
 import { proposeNextDockings } from '@/lib/forecast';
+import { toDateOnly } from '@/lib/dates/date-only';
+import { renewalRuleSentence } from '@/lib/words/renewal-rule';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { computePlans, dockingDate } from './compute-plans';
+import { computePlans, dockingDate, renewalRuleOf } from './compute-plans';
 
 export interface PlannerDocking {
   id: string;
@@ -16,6 +18,36 @@ export interface PlannerDocking {
   renewals: number;
   openRenewals: number;
   massDueKg: number;
+}
+
+/** A group with a renewal to book or booked: its renew-by date and the docking that renews it. */
+export interface PlannerRenewBy {
+  assetId: string;
+  assetName: string;
+  groupId: string;
+  group: string;
+  /** The forecast's renew-by date, YYYY-MM-DD (the one date the planner and the asset page show). */
+  renewBy: string;
+  /** 'proposed' by the scheduler, 'kept' as a planner booked it, or 'no-docking' planned early enough. */
+  status: 'proposed' | 'kept' | 'no-docking';
+  dockingId: string | null;
+  /** YYYY-MM-DD of that docking. */
+  dockingDate: string | null;
+  /** No docking: the margin before the renew-by date has already begun. */
+  overdue: boolean;
+  /** The scheduler's sentence. */
+  reason: string;
+}
+
+/** A group no planned docking renews in time. */
+export interface PlannerNeedsDocking {
+  assetId: string;
+  assetName: string;
+  group: string;
+  /** The forecast's renew-by date, YYYY-MM-DD. */
+  renewBy: string;
+  overdue: boolean;
+  reason: string;
 }
 
 /** Everything the docking planner shows: dockings with their renewals, suggestions, and groups that cannot reach a docking. */
@@ -65,11 +97,33 @@ export async function getPlannerView(ctx: OrgContext, today = new Date()) {
         .map((s) => ({ assetId: p.asset.id, assetName: p.asset.name, date: s.date.toISOString().slice(0, 10), kind: s.kind, reason: s.reason }));
     });
 
-  const needsDocking = plans.flatMap((p) =>
-    p.groups
-      .filter((g) => g.proposal?.status === 'no-docking' && g.proposal.needsDockingBy)
-      .map((g) => ({ assetId: p.asset.id, assetName: p.asset.name, group: g.group.label, by: g.proposal!.needsDockingBy!.toISOString().slice(0, 10), overdue: Boolean(g.proposal!.overdue), reason: g.proposal!.reason })),
-  );
+  // Every group with a renewal to book or booked, by its renew-by date (groups with nothing to book yet are left out).
+  const renewBy: PlannerRenewBy[] = plans
+    .flatMap((p) =>
+      p.groups.flatMap((g): PlannerRenewBy[] => {
+        const proposal = g.proposal;
+        const due = g.forecast?.renewBy;
+        if (!proposal || !due || (proposal.status !== 'proposed' && proposal.status !== 'kept' && proposal.status !== 'no-docking')) return [];
+        return [{
+          assetId: p.asset.id,
+          assetName: p.asset.name,
+          groupId: g.group.id,
+          group: g.group.label,
+          renewBy: toDateOnly(due),
+          status: proposal.status,
+          dockingId: proposal.dockingId ?? null,
+          dockingDate: proposal.dockingDate ? toDateOnly(proposal.dockingDate) : null,
+          overdue: Boolean(proposal.overdue),
+          reason: proposal.reason,
+        }];
+      }),
+    )
+    .sort((a, b) => a.renewBy.localeCompare(b.renewBy) || a.assetName.localeCompare(b.assetName) || a.group.localeCompare(b.group));
+  const needsDocking: PlannerNeedsDocking[] = renewBy
+    .filter((r) => r.status === 'no-docking')
+    .map((r) => ({ assetId: r.assetId, assetName: r.assetName, group: r.group, renewBy: r.renewBy, overdue: r.overdue, reason: r.reason }));
   const assets = plans.map((p) => ({ id: p.asset.id, name: p.asset.name, kind: p.asset.kind, outlook: p.outlook }));
-  return { dockings, suggestions, needsDocking, assets };
+  // The rule the dates follow, in words (the asset page states the same sentence).
+  const renewalRule = renewalRuleSentence(renewalRuleOf(ctx));
+  return { dockings, suggestions, renewBy, needsDocking, assets, renewalRule };
 }

@@ -5,8 +5,28 @@ import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
-import { OUTLOOK_WORDS } from '../planner/compute-plans';
+import { OUTLOOK_WORDS, type AssetPlan } from '../planner/compute-plans';
 import { formatDateOnly, toDateOnly } from '@/lib/dates/date-only';
+import { forecastDateWords } from '@/lib/forecast/labels';
+
+/** The earliest renew-by date of the asset's groups with a renewal to book or booked, or null. */
+function firstRenewBy(plan: AssetPlan): Date | null {
+  const dates = plan.groups
+    .filter((g) => g.proposal && g.proposal.status !== 'sound')
+    .map((g) => g.forecast?.renewBy)
+    .filter((d): d is Date => Boolean(d));
+  return dates.length ? new Date(Math.min(...dates.map((d) => d.getTime()))) : null;
+}
+
+/** One asset's line: its outlook, the first renew-by date and the next docking. */
+function digestLine(plan: AssetPlan, base: string): string {
+  const renewBy = firstRenewBy(plan);
+  const notes = [
+    ...(renewBy ? [`${forecastDateWords('renewBy')} ${formatDateOnly(renewBy)}`] : []),
+    ...(plan.nextDocking ? [`next docking ${formatDateOnly(plan.nextDocking.plannedStart)}`] : []),
+  ];
+  return `- ${plan.asset.name}: ${OUTLOOK_WORDS[plan.outlook]}${notes.length ? ` (${notes.join('; ')})` : ''}\n  ${base}/assets/${plan.asset.id}`;
+}
 
 /**
  * Once a week: recompute every organisation's outlooks and tell its planners and owners which assets
@@ -24,7 +44,7 @@ export async function queueWeeklyDigests(em: EntityManager, now = new Date()) {
     if (changed.length) {
       const recipients = await em.find(MembershipSchema, { organisation: organisation.id, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] });
       const base = `${getEnv().APP_URL}/o/${organisation.slug}`;
-      const lines = changed.map((p) => `- ${p.asset.name}: ${OUTLOOK_WORDS[p.outlook]}${p.nextDocking ? ` (next docking ${formatDateOnly(p.nextDocking.plannedStart)})` : ''}\n  ${base}/assets/${p.asset.id}`);
+      const lines = changed.map((p) => digestLine(p, base));
       for (const m of recipients) {
         if (
           await enqueueMailOnce(em, {

@@ -9,6 +9,8 @@ import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
+import { FORECAST_DATE_LABELS } from '@/lib/forecast/labels';
+import { RENEW_BY_DATE_WORDS } from '@/lib/words/renewal-rule';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
 import { criteriaSubject } from '@/lib/surveys/criteria';
@@ -32,7 +34,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { today, asset, canWrite, zones, designs, surveys, forecasts, catalogue, dockings, changes, series } = page;
+  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, catalogue, dockings, changes, series } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -259,24 +261,29 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                 <th className="py-1 text-right font-medium">Installed net</th>
                 <th className="py-1 text-right font-medium">Consumption</th>
                 <th className="py-1 pl-3 text-left font-medium">Basis</th>
-                <th className="py-1 text-left font-medium">Reaches utilisation factor</th>
-                <th className="py-1 text-left font-medium">Band (early – late)</th>
+                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.renewBy}</th>
+                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.band} (early – late)</th>
+                <th className="py-1 text-left font-medium text-ink-faint">{FORECAST_DATE_LABELS.endOfLife}</th>
               </tr>
             </thead>
             <tbody>
-              {forecasts.map((f) => (
-                <tr key={f.group.id} className="border-b border-rule">
-                  <td className="py-1">{f.group.label}</td>
-                  <td className="num py-1">{fmt(f.group.quantity * f.group.model.netMassKg, 1)} kg</td>
-                  <td className="num py-1">{f.forecast ? `${fmt(f.forecast.ratePerYearKg, 1)} kg/yr` : '—'}</td>
-                  <td className="py-1 pl-3 text-xs">{f.forecast ? (f.forecast.basis === 'survey-corrected' ? 'corrected by survey' : 'design current') : f.noForecastReason}</td>
-                  <td className="py-1">{f.forecast?.endOfLife ? formatDateOnly(f.forecast.endOfLife) : f.forecast ? 'does not deplete' : '—'}</td>
-                  <td className="py-1 text-xs">{f.forecast?.early ? `${formatDateOnly(f.forecast.early, 'MMM yyyy')} – ${f.forecast.late ? formatDateOnly(f.forecast.late, 'MMM yyyy') : 'later'}` : '—'}</td>
+              {rows.map((r) => (
+                <tr key={r.groupId} className="border-b border-rule">
+                  <td className="py-1">{r.label}</td>
+                  <td className="num py-1">{fmt(r.installedNetKg, 1)} kg</td>
+                  <td className="num py-1">{r.ratePerYearKg === null ? '—' : `${fmt(r.ratePerYearKg, 1)} kg/yr`}</td>
+                  <td className="py-1 pl-3 text-xs">{r.basis}</td>
+                  <td className="py-1 font-medium">{r.renewBy ? formatDateOnly(r.renewBy) : r.ratePerYearKg !== null ? 'does not deplete' : '—'}</td>
+                  <td className="py-1 text-xs">{r.renewByEarly ? `${formatDateOnly(r.renewByEarly, 'MMM yyyy')} – ${r.renewByLate ? formatDateOnly(r.renewByLate, 'MMM yyyy') : 'later'}` : '—'}</td>
+                  <td className="py-1 text-xs text-ink-soft">{r.endOfLife ? formatDateOnly(r.endOfLife) : '—'}</td>
                 </tr>
               ))}
             </tbody>
           </table>
-          <p className="mt-2 text-xs text-ink-faint">Consumption = I × 8760 / ε per year (handbook practice), from the group’s share of its design’s mean current, corrected by the latest surveyed remaining fraction.</p>
+          <p className="mt-2 text-xs text-ink-soft">{renewalRule}</p>
+          <p className="mt-1 text-xs text-ink-faint">
+            {FORECAST_DATE_LABELS.endOfLife}: the utilisation factor used up, shown for reference; renewals are scheduled on {RENEW_BY_DATE_WORDS}. Consumption = I × 8760 / ε per year (handbook practice) at the forecast’s start. A group linked to a design follows its zone’s demand as the coating breaks down, averaging the group’s share of the design’s mean current; one without a design runs on its mean current. Surveys scale the demand; a survey showing no loss leaves it as designed.
+          </p>
         </Panel>
 
         <Panel title="Surveys">
