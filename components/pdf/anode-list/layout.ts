@@ -1,10 +1,10 @@
 import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
 import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
-import { CAUTION_TEXT } from '../pdf-kit';
+import { CAUTION_TEXT, PagePlanner, rowParts as cutRow, sheetArea, textParts, type SheetColumn, type SheetPlan } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { FORECAST_DATE_LABELS } from '@/lib/forecast/labels';
 import { count, humanise, kgText } from './format';
-import { FONT, lineCount, wrapLines } from './measure-text';
+import { FONT, LINE_HEIGHT, lineCount } from '../measure-text';
 
 /*
  * The page plan of the dry-dock anode list, A4 LANDSCAPE: geometry, columns, the texts of
@@ -16,41 +16,27 @@ import { FONT, lineCount, wrapLines } from './measure-text';
  * would run to twice the pages and the yard would read across broken rows. Landscape
  * (770 pt) keeps nearly every line on one row, and the sheet still prints and files on A4.
  *
- * Why the sheets are planned here rather than by react-pdf:
- * 1. Speed. react-pdf 4.9 paginates a <Page> by laying out everything not yet placed again
- *    for every sheet it cuts off (twice with a page-number footer): a 300-line list in one
- *    <Page> took about 1.6-2 s on two cores and grows with pages x lines.
- * 2. Page numbers. In react-pdf 4.9 a `render` (page number) node inside a <Page> that
- *    wraps is dropped together with its fixed footer; it is printed only on pages that do
- *    not wrap.
- * So planAnodeListPages estimates every block's height from Inter's glyph widths (rounded up,
- * measure-text.ts) and cuts the list into sheets itself; each sheet is a <Page wrap={false}>
- * with its number written in. Rows and warnings taller than a sheet are cut into parts at line
- * breaks, so every block fits. A test renders the same plan with wrapping pages
- * (`pagination="checked"`) and checks react-pdf needs no more sheets than planned, i.e. the
- * estimate never runs short.
+ * The sheets are planned here rather than by react-pdf (why: pdf-kit's PagePlanner): a 300-line
+ * list in one wrapping <Page> took about 1.6-2 s on two cores and grew with pages x lines, and
+ * react-pdf 4.9 drops a page-number footer on the pages it splits. planAnodeListPages estimates
+ * every block's height from Inter's glyph widths (rounded up, measure-text.ts) and cuts the list
+ * into sheets itself; each sheet is a <Page wrap={false}> with its number written in. Rows and
+ * warnings taller than a sheet are cut into parts at line breaks, so every block fits. A test
+ * renders the same plan with wrapping pages (`pagination="checked"`) and checks react-pdf needs
+ * no more sheets than planned, i.e. the estimate never runs short.
  */
 
 // ---------- geometry (points) ----------
-const PAGE_WIDTH = 841.89;
-const PAGE_HEIGHT = 595.28;
-export const CONTENT_WIDTH = PAGE_WIDTH - 2 * 36; // pdf.page paddingHorizontal
-/** pdf.page paddingTop 36 and paddingBottom 48, less a little slack. */
-const CONTENT_HEIGHT = PAGE_HEIGHT - 36 - 48 - 6;
-const LINE = FONT * 1.35; // pdf.page lineHeight
+const SHEET = sheetArea('landscape');
+export const CONTENT_WIDTH = SHEET.width;
+const CONTENT_HEIGHT = SHEET.height;
+const LINE = FONT * LINE_HEIGHT;
 export const CELL_PAD = 3;
 /** Share of the content width taken by the left (organisation and title) half of the title block. */
 export const TITLE_LEFT_SHARE = 0.72;
 
 // ---------- tables ----------
-interface Col {
-  label: string;
-  /** Fraction of the content width. */
-  share: number;
-  right?: boolean;
-  /** Extra left padding (the positions column, right after right-aligned numbers). */
-  gap?: boolean;
-}
+type Col = SheetColumn;
 
 export type TableKind = 'line' | 'order' | 'asset' | 'docking';
 
@@ -175,13 +161,7 @@ export type PlanItem =
   | { kind: 'notes' }
   | { kind: 'signatures' };
 
-export interface AnodeListPagePlan {
-  pages: PlanItem[][];
-  /** Estimated content height of each sheet, pt. */
-  heights: number[];
-  /** Every sheet's estimate within the content area (always, as tall blocks are cut). */
-  fits: boolean;
-}
+export type AnodeListPagePlan = SheetPlan<PlanItem>;
 
 interface PlannedRow {
   cells: string[];
@@ -191,18 +171,7 @@ interface PlannedRow {
 
 /** A table row, cut into parts at line breaks when it is taller than `maxHeight`. */
 function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: number): PlannedRow[] {
-  const cols = COLUMNS[table];
-  const wrapped = cells.map((c, i) => wrapLines(c, textRoom(cols[i])));
-  const lines = Math.max(...wrapped.map((w) => w.length));
-  const height = (n: number) => (total ? H.totalRow(n) : H.row(n));
-  if (height(lines) <= maxHeight) return [{ cells, total, height: height(lines) }];
-  const perPart = Math.max(1, Math.floor((maxHeight - height(0)) / LINE));
-  const parts: PlannedRow[] = [];
-  for (let k = 0; k * perPart < lines; k++) {
-    const slice = wrapped.map((w) => w.slice(k * perPart, (k + 1) * perPart).join('\n'));
-    parts.push({ cells: slice, total, height: height(Math.min(perPart, lines - k * perPart)) });
-  }
-  return parts;
+  return cutRow(cells, COLUMNS[table].map(textRoom), (n) => (total ? H.totalRow(n) : H.row(n)), maxHeight).map((part) => ({ ...part, total }));
 }
 
 /**
@@ -212,23 +181,9 @@ function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: 
  * are kept whole. Heights are estimates that never run short (see the file comment).
  */
 export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
-  const pages: PlanItem[][] = [[]];
-  const heights: number[] = [0];
-  let used = 0;
-  const newPage = () => {
-    pages.push([]);
-    heights.push(0);
-    used = 0;
-  };
-  const put = (item: PlanItem, height: number) => {
-    pages[pages.length - 1].push(item);
-    used += height;
-    heights[heights.length - 1] = used;
-  };
-  /** Starts a new sheet unless `height` still fits (an empty sheet takes anything). */
-  const ensure = (height: number) => {
-    if (used > 0 && used + height > CONTENT_HEIGHT) newPage();
-  };
+  const planner = new PagePlanner<PlanItem>(CONTENT_HEIGHT);
+  const put = (item: PlanItem, height: number) => planner.put(item, height);
+  const ensure = (height: number) => planner.ensure(height);
 
   /** A table under a title that is repeated, marked continued, on each further sheet. */
   const table = (kind: TableKind, rows: { cells: string[]; total?: boolean }[], title: (continued: boolean) => { item: PlanItem; height: number }) => {
@@ -236,22 +191,10 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
     // A part must fit a fresh sheet under the title, with room for a total row after it.
     const maxRow = CONTENT_HEIGHT - lead - H.totalRow(1);
     const planned = rows.flatMap((r) => rowParts(r.cells, kind, r.total ?? false, maxRow));
-    planned.forEach((row, i) => {
-      const next = planned[i + 1];
-      const need = row.height + (next?.total ? next.height : 0);
-      if (i === 0) {
-        const first = title(false);
-        ensure(first.height + H.head + need);
-        put(first.item, first.height);
-        put({ kind: 'head', table: kind }, H.head);
-      } else if (!row.total && used + need > CONTENT_HEIGHT) {
-        newPage();
-        const again = title(true);
-        put(again.item, again.height);
-        put({ kind: 'head', table: kind }, H.head);
-      }
-      put({ kind: 'row', table: kind, cells: row.cells, total: row.total }, row.height);
-    });
+    planner.table(
+      planned.map((row) => ({ item: { kind: 'row', table: kind, cells: row.cells, total: row.total }, height: row.height, withPrevious: row.total })),
+      (continued) => [title(continued), { item: { kind: 'head', table: kind }, height: H.head }],
+    );
   };
   const section = (name: string) => (continued: boolean) => ({ item: { kind: 'section', title: continued ? `${name} (continued)` : name } as PlanItem, height: H.section });
 
@@ -259,7 +202,7 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
   put({ kind: 'title' }, titleHeight(list));
   const sideHeight = (kind: TableKind, rows: string[][]) => H.section + H.head + rows.reduce((sum, cells) => sum + rowParts(cells, kind, false, Infinity)[0].height, 0);
   const sideBySide = Math.max(sideHeight('asset', assetRows(list)), sideHeight('docking', dockingRows(list)));
-  if (used + sideBySide <= CONTENT_HEIGHT) {
+  if (sideBySide <= planner.room) {
     put({ kind: 'header-tables' }, sideBySide);
   } else {
     table('asset', assetRows(list).map((cells) => ({ cells })), section(assetTitle(list)));
@@ -267,15 +210,13 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
   }
 
   list.warnings.forEach((w, i) => {
-    const lines = wrapLines(`Warning: ${w}`, CONTENT_WIDTH - 8, 8);
-    const perPart = Math.floor((CONTENT_HEIGHT - H.warning(0) - 8) / (8 * 1.35));
-    for (let k = 0; k * perPart < lines.length; k++) {
-      const part = lines.slice(k * perPart, (k + 1) * perPart);
+    const maxLines = Math.floor((CONTENT_HEIGHT - H.warning(0) - 8) / (8 * LINE_HEIGHT));
+    textParts(`Warning: ${w}`, CONTENT_WIDTH - 8, 8, maxLines).forEach((part, k) => {
       const first = i === 0 && k === 0;
-      const h = H.warning(part.length) + (first ? 8 : 0);
+      const h = H.warning(part.lines) + (first ? 8 : 0);
       ensure(h);
-      put({ kind: 'warning', text: part.join(lines.length > perPart ? '\n' : ' '), first }, h);
-    }
+      put({ kind: 'warning', text: part.text, first }, h);
+    });
   });
 
   if (list.zones.length === 0) {
@@ -307,5 +248,5 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
   ensure(signatures);
   put({ kind: 'signatures' }, signatures);
 
-  return { pages, heights, fits: heights.every((h) => h <= CONTENT_HEIGHT) };
+  return planner.plan();
 }

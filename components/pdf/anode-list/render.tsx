@@ -1,7 +1,7 @@
-import { Document, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { Document, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
-import { CAUTION_TEXT, pdf } from '../pdf-kit';
+import { CAUTION_TEXT, PlannedSheet, SheetRow, pdf } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { assetRows, assetTitle, CELL_PAD, colWidth, COLUMNS, CONTENT_WIDTH, dockingRows, planAnodeListPages, TITLE_LEFT_SHARE, titleLine, type PlanItem, type TableKind } from './layout';
 
@@ -42,16 +42,7 @@ const when = (d: Date | null) => (d ? format(d, 'd MMM yyyy') : '');
 
 // ---------- blocks ----------
 function Row({ table, cells, rowStyle }: { table: TableKind; cells: string[]; rowStyle: typeof s.row }) {
-  const styles = CELL_STYLES[table];
-  return (
-    <View style={rowStyle} wrap={false}>
-      {cells.map((cell, i) => (
-        <Text key={i} style={styles[i]}>
-          {cell}
-        </Text>
-      ))}
-    </View>
-  );
+  return <SheetRow cells={cells} cellStyles={CELL_STYLES[table]} style={rowStyle} />;
 }
 
 function SmallTable({ table, title, rows }: { table: TableKind; title: string; rows: string[][] }) {
@@ -172,7 +163,7 @@ function PlanItemView({ item, list }: { item: PlanItem; list: AnodeList }) {
 
 // Inter's contextual alternates (calt) change nothing in these texts but took about a fifth of
 // the text-shaping time in the profile of a 300-line list: off for the whole document.
-const PAGE_STYLE = [pdf.page, StyleSheet.create({ p: { fontFeatureSettings: { calt: false } } }).p];
+const NO_CALT = StyleSheet.create({ p: { fontFeatureSettings: { calt: false } } }).p;
 
 /**
  * The dry-dock anode list: per zone what to fit, totals by model for ordering, fitting notes,
@@ -190,15 +181,11 @@ export function AnodeListDocument({ list, pagination = 'planned' }: { list: Anod
   return (
     <Document title={`Dry-dock anode list: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject="Sacrificial anodes to order and fit at a docking">
       {plan.pages.map((items, p) => (
-        <Page key={p} size="A4" orientation="landscape" style={PAGE_STYLE} wrap={wrap}>
+        <PlannedSheet key={p} orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: p + 1, pages: plan.pages.length }}>
           {items.map((item, i) => (
             <PlanItemView key={i} item={item} list={list} />
           ))}
-          <View style={pdf.footer} fixed>
-            <Text>{footer}</Text>
-            <Text>{`${printed} · page ${p + 1} of ${plan.pages.length}`}</Text>
-          </View>
-        </Page>
+        </PlannedSheet>
       ))}
     </Document>
   );

@@ -3,11 +3,11 @@ import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { describe, expect, it } from 'vitest';
 import { AnodeListDocument, kgText, lineCount, planAnodeListPages } from '@/components/pdf/anode-list';
-import { CAUTION_TEXT, registerPdfFonts } from '@/components/pdf/pdf-kit';
+import { A4, CAUTION_TEXT, registerPdfFonts } from '@/components/pdf/pdf-kit';
 import { buildAnodeList, type AnodeList } from '@/lib/anode-list';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
 import { benchAnodeListInput } from '@/tests/fixtures/bench-data';
-import { pdfText } from '@/tests/fixtures/pdf-text';
+import { pdfPages, pdfText } from '@/tests/fixtures/pdf-text';
 import { smallInput } from './helpers';
 
 async function pageCount(bytes: Uint8Array): Promise<number> {
@@ -81,6 +81,11 @@ describe('page plan', () => {
     const planned = await renderAnodeListPdf(list);
     expect(await pageCount(planned)).toBe(plan.pages.length);
     expect((await pdfText(planned)).replace(/\s+/g, ' ')).toContain(`page ${plan.pages.length} of ${plan.pages.length}`);
+    // Every sheet is A4 landscape, the last, part-filled one too (react-pdf sizes a non-wrapping page to its content unless held).
+    for (const page of await pdfPages(planned)) {
+      expect(page.width).toBeCloseTo(A4.height, 1);
+      expect(page.height).toBeCloseTo(A4.width, 1);
+    }
   }, 60_000);
 
   it('never runs short with long positions, long labels, many models and warnings', async () => {

@@ -1,11 +1,14 @@
 /*
- * Text measurement for the anode-list page plan (see layout.ts): how wide a text is set in
- * Inter and how many lines it wraps to in a box. The plan cuts the list into sheets from
- * these estimates, so they are rounded up: a plan must never run short of room.
+ * Text measurement for the planned PDFs (the anode list, the calculation note; see pdf-kit's
+ * PagePlanner): how wide a text is set in Inter and how many lines it wraps to in a box. The
+ * plans cut the documents into sheets from these estimates, so they are rounded up: a plan
+ * must never run short of room.
  */
 
 /** The body font size of the sheet, pt (pdf-kit's pdf.page fontSize). */
 export const FONT = 8.5;
+/** The line height of the page (pdf-kit's pdf.page lineHeight), a multiple of the font size. */
+export const LINE_HEIGHT = 1.35;
 
 // Advance widths of Inter (the widest of weights 400, 600 and 700) for ASCII 32-126, in 1/100 em.
 const ASCII_WIDTHS = [
