@@ -13,6 +13,7 @@ import { listAnodeGroups, exportAnodeRegisterCsv } from '@/lib/server/services/r
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { listQuerySchema } from '@/lib/schemas/register';
+import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { cookieJar, nextHeadersMock } from '../fixtures/next-headers-mock';
 
@@ -236,5 +237,16 @@ describe('the register list', () => {
     expect(large.page.rows).toHaveLength(50);
     expect(small.statements).toBeGreaterThan(0);
     expect(large.statements).toBe(small.statements);
+  });
+});
+
+describe('the asset page', () => {
+  it('warns when anodes of different alloys are fitted on one asset, and not when there is one alloy', async () => {
+    const boat = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Mixed Alloy Launch', hullMaterial: 'steel' }));
+    await runAs(ctx('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull zinc', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 6, installedOn: '2025-01-10', meanCurrentA: 1 }));
+    expect((await runAs(ctx('viewer'), (c) => getAssetPage(c, boat.id))).mixedAlloys).toBeNull();
+    await runAs(ctx('engineer'), (c) => createAnodeGroup(c, boat.id, { label: 'Hull aluminium', anodeModelKey: 'builtin:TW-AW-4020', quantity: 6, installedOn: '2025-01-10', meanCurrentA: 1 }));
+    // one alloy per asset (common practice): the more active alloy is consumed protecting the other
+    expect((await runAs(ctx('viewer'), (c) => getAssetPage(c, boat.id))).mixedAlloys?.sort()).toEqual(['al-zn-in', 'zinc']);
   });
 });

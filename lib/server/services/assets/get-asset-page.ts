@@ -99,5 +99,9 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
     });
   // The rule the renew-by dates follow, in words (the docking planner states the same sentence).
   const renewalRule = renewalRuleSentence(renewalRuleOf(ctx));
-  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, catalogue, dockings, changes, series };
+  // Anodes of different alloys on one asset work at different potentials: the more active one is
+  // consumed protecting the other (common practice: one alloy per asset).
+  const alloys = [...new Set(forecasts.map((f) => f.group.model.alloy))];
+  const mixedAlloys = alloys.length > 1 ? alloys : null;
+  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, catalogue, dockings, changes, series, mixedAlloys };
 }

@@ -34,7 +34,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, catalogue, dockings, changes, series } = page;
+  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, catalogue, dockings, changes, series, mixedAlloys } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -193,6 +193,12 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         </Panel>
 
         <Panel title="Installed anode groups">
+          {mixedAlloys ? (
+            <p role="note" className="mb-2 rounded-[3px] border border-state-due/40 bg-state-duebg px-2 py-1 text-sm text-ink" data-warning="mixed-alloys">
+              <span className="font-semibold text-state-due">Warning: </span>
+              Anodes of {mixedAlloys.map((a) => ALLOY_LABELS[a] ?? a).join(' and ')} are fitted on this asset. Mixed alloys work at different potentials: the more active one is consumed protecting the other, and the forecast of both is off. Fit one alloy at the next renewal.
+            </p>
+          ) : null}
           <RegisterTable org={org} assetId={asset.id} pageSize={25} />
           {canWrite ? (
             <div className="mt-4 grid gap-4">
