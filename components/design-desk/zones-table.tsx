@@ -17,7 +17,7 @@ interface Props {
 }
 
 /** The draft's zone as the calculation reads it; numbers still being typed count as 0 for the display. */
-const asSurface = (zone: DeskSurfaceDraft) => ({ ...zone, areaM2: Number(zone.areaM2) || 0, coatingAgeYears: Number(zone.coatingAgeYears) || 0, currentDensityOverride: null });
+const asSurface = (zone: DeskSurfaceDraft) => ({ ...zone, areaM2: Number(zone.areaM2) || 0, coatingAgeYears: Number(zone.coatingAgeYears) || 0, temperatureC: zone.temperatureC === null || zone.temperatureC === '' ? null : Number(zone.temperatureC), currentDensityOverride: null });
 
 export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) {
   const disabled = !editable;
@@ -27,7 +27,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
   const addZone = () =>
     update((s) => ({
       ...s,
-      surfaces: [...s.surfaces, { name: `Zone ${s.surfaces.length + 1}`, kind: 'other', areaM2: '', areaSource: 'entered', depthBand: '0-30', coatingCategory: 'II', coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null }],
+      surfaces: [...s.surfaces, { name: `Zone ${s.surfaces.length + 1}`, kind: 'other', areaM2: '', areaSource: 'entered', depthBand: '0-30', coatingCategory: 'II', coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null, temperatureC: null }],
     }));
   const canEstimate = vessel && vessel.lengthBppM && vessel.beamM && vessel.draughtM && vessel.blockCoefficient;
   const estimate = () => {
@@ -71,6 +71,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                   disabled={disabled}
                   hint={AREA_SOURCE_WORDS[String(zone.areaSource)] ?? String(zone.areaSource)}
                 />
+                <NumberInput label="Water temperature here" unit="°C" value={zone.temperatureC ?? ''} onChange={(v) => setZone(i, { temperatureC: v })} errors={e('temperatureC')} disabled={disabled} hint="Optional; deep water is colder and more resistive" />
                 <SelectInput label="Depth" value={zone.depthBand} onChange={(v) => setZone(i, { depthBand: v as DeskSurfaceDraft['depthBand'] })} options={optionsFrom(DEPTH_BAND_LABELS, DEPTH_BAND_VALUES)} disabled={disabled} />
                 <SelectInput label="Coating" value={zone.coatingCategory} onChange={(v) => setZone(i, { coatingCategory: v as DeskSurfaceDraft['coatingCategory'] })} options={optionsFrom(COATING_LABELS, COATING_VALUES)} disabled={disabled} />
                 {zone.coatingCategory !== 'bare' ? (

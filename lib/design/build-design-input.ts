@@ -129,10 +129,20 @@ export function resolveEnvironment(inputs: DeskInputs): ResolvedEnvironment {
     if (inputs.water === 'fresh') throw new CpInputError('resistivityOhmM', 'Fresh water is 10 to well over 100 Ω·m: enter a measured resistivity.');
     const salinity = inputs.salinityPsu ?? (inputs.water === 'seawater' ? SEAWATER_SALINITY_PSU : null);
     if (salinity === null) throw new CpInputError('salinityPsu', 'Brackish water needs its salinity (PSU) or a measured resistivity.');
-    const temperatureGiven = inputs.temperatureC !== null;
-    const temperature = inputs.temperatureC ?? BAND_TEMPERATURE_C[inputs.climate];
-    resistivityOhmM = Math.round(seawaterResistivityOhmM({ temperatureC: temperature, salinityPsu: salinity }) * 1000) / 1000;
-    resistivitySource = `estimated from the water: PSS-78 at ${temperature} °C${temperatureGiven ? '' : ' (mid-band)'} and ${salinity} PSU${inputs.salinityPsu === null ? ' (full-strength seawater assumed)' : ''}`;
+    const surfaceGiven = inputs.temperatureC !== null;
+    const surfaceTemperature = inputs.temperatureC ?? BAND_TEMPERATURE_C[inputs.climate];
+    const at = (temperatureC: number) => Math.round(seawaterResistivityOhmM({ temperatureC, salinityPsu: salinity }) * 1000) / 1000;
+    // Where the anodes sit at different depths the water differs (colder, more resistive at depth):
+    // each zone that takes anodes gets its own value, and the highest sizes the anodes, since it gives
+    // the lowest output per anode (conservative).
+    const byZone = inputs.surfaces.filter((s) => !isMudZone(s)).map((s) => ({ name: s.name, temperatureC: s.temperatureC ?? surfaceTemperature }));
+    const governing = byZone.reduce((worst, z) => (at(z.temperatureC) > at(worst.temperatureC) ? z : worst), byZone[0] ?? { name: '', temperatureC: surfaceTemperature });
+    resistivityOhmM = at(governing.temperatureC);
+    const salinityWords = `${salinity} PSU${inputs.salinityPsu === null ? ' (full-strength seawater assumed)' : ''}`;
+    resistivitySource =
+      new Set(byZone.map((z) => z.temperatureC)).size > 1
+        ? `estimated from the water: PSS-78 at ${salinityWords}, by zone ${byZone.map((z) => `${z.name} ${at(z.temperatureC)} Ω·m at ${z.temperatureC} °C`).join(', ')}; the highest (${governing.name}) sizes the anodes`
+        : `estimated from the water: PSS-78 at ${governing.temperatureC} °C${surfaceGiven || inputs.surfaces.some((s) => s.temperatureC !== null) ? '' : ' (mid-band)'} and ${salinityWords}`;
   }
   let protectivePotentialV = inputs.protectivePotentialV;
   let potentialSource = 'entered';

@@ -79,5 +79,5 @@ export function defaultStructureZones(s: StructureParticulars): DeskSurface[] {
 }
 
 function zone(name: string, kind: DeskSurface['kind'], areaM2: number, areaSource: string, coatingCategory: DeskSurface['coatingCategory']): DeskSurface {
-  return { name, kind, areaM2, areaSource, depthBand: '0-30', coatingCategory, coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null };
+  return { name, kind, areaM2, areaSource, depthBand: '0-30', coatingCategory, coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null, temperatureC: null };
 }

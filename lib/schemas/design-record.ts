@@ -48,6 +48,8 @@ export const storedSurfaceSchema = z.object({
   /** mA/m2, as the engineer entered it. */
   currentDensityOverride: triple.nullable(),
   drainsCurrent: z.enum(CURRENT_DRAIN_VALUES).nullable(),
+  /** Added with per-zone resistivity; rows stored before carry none (the surface temperature applies). */
+  temperatureC: num.nullable().default(null),
 });
 
 /** The desk's inputs as stored with a revision. */

@@ -58,6 +58,8 @@ export const deskSurfaceSchema = z.object({
   /** Entered design current density (bare metal), mA/m2, replacing the DNV table value. */
   currentDensityOverride: z.preprocess(blankToNull, currentDensityMa.nullable()),
   drainsCurrent: z.preprocess(blankToNull, z.enum(CURRENT_DRAIN_VALUES).nullable()),
+  /** Water temperature at this zone's depth, C, where it differs from the surface (deep water is colder). */
+  temperatureC: z.preprocess(blankToNull, num('Zone water temperature', '°C').pipe(z.number().min(-2, 'Water colder than -2 °C is not plausible.').max(60, 'Water above 60 °C is outside this tool.')).nullable()).default(null),
 });
 
 export const deskInputsSchema = z.object({

@@ -51,6 +51,7 @@ function manyZones(): DeskInputs {
       coatingAgeYears: mud ? 0 : i % 4,
       currentDensityOverride: i === 10 || i === 20 ? { initial: 120, mean: 60, final: 80 } : null,
       drainsCurrent: null,
+      temperatureC: null,
     };
   });
   return { ...ferryInputs(), hullMaterial: null, nextDockingYears: null, demandMethod: 'harbour', designLifeYears: 20, anodeModelKey: 'builtin:TW-AS-2018', surfaces };

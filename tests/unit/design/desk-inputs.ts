@@ -8,7 +8,7 @@ import { ferryInputs } from './record-fixture';
 
 /** One zone as the desk holds it: entered area, 0-30 m, no override, no drain unless given. */
 export function zone(name: string, kind: DeskSurface['kind'], areaM2: number, coatingCategory: DeskSurface['coatingCategory'], extra: Partial<DeskSurface> = {}): DeskSurface {
-  return { name, kind, areaM2, areaSource: 'entered', depthBand: '0-30', coatingCategory, coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null, ...extra };
+  return { name, kind, areaM2, areaSource: 'entered', depthBand: '0-30', coatingCategory, coatingAgeYears: 0, currentDensityOverride: null, drainsCurrent: null, temperatureC: null, ...extra } as DeskSurface;
 }
 
 /**

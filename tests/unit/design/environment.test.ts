@@ -27,6 +27,20 @@ describe('resistivity from the water unless measured', () => {
     expect(resolveEnvironment(inputs({ temperatureC: 10 })).resistivitySource).not.toContain('mid-band');
   });
 
+  it('by zone where the anodes sit in water of different temperatures: the highest resistivity sizes them', () => {
+    const base = inputs({ temperatureC: 20 });
+    const surfaces = base.surfaces.map((s, i) => (i === 0 ? { ...s, temperatureC: 4 } : s));
+    const env = resolveEnvironment({ ...base, surfaces });
+    // PSS-78 at 35 PSU: colder water is more resistive (design basis: 0.34 at 0 C, 0.21 at 20 C, computed from the scale)
+    expect(env.resistivityOhmM).toBe(round3(seawaterResistivityOhmM({ temperatureC: 4, salinityPsu: 35 })));
+    expect(env.resistivityOhmM).toBeGreaterThan(resolveEnvironment(base).resistivityOhmM);
+    expect(env.resistivitySource).toMatch(new RegExp(`by zone .*${surfaces[0].name} .* at 4 °C.*the highest \\(${surfaces[0].name}\\) sizes the anodes`));
+    // a mud zone's temperature never governs: no anode sits there
+    const jetty = structureInputs(JETTY, { temperatureC: 15 });
+    const coldMud = jetty.surfaces.map((s) => (s.kind === 'pile-mud' ? { ...s, temperatureC: 2 } : s));
+    expect(resolveEnvironment({ ...jetty, surfaces: coldMud }).resistivityOhmM).toBe(resolveEnvironment(jetty).resistivityOhmM);
+  });
+
   it('brackish water at its salinity: about 1.4 Ω·m at 5 PSU and 15 °C', () => {
     // computed from PSS-78 (design basis)
     const env = resolveEnvironment(inputs({ water: 'brackish', salinityPsu: 5, temperatureC: 15 }));

@@ -65,6 +65,7 @@ export function zoneToDeskSurface(z: { name: string; kind: string; areaM2: numbe
     // Zones store A/m2; the desk works in mA/m2.
     currentDensityOverride: z.currentDensityOverride ? { initial: z.currentDensityOverride.initial * 1000, mean: z.currentDensityOverride.mean * 1000, final: z.currentDensityOverride.final * 1000 } : null,
     drainsCurrent: (z.drainsCurrent as DeskSurface['drainsCurrent']) ?? null,
+    temperatureC: null,
   };
 }
 
