@@ -85,6 +85,12 @@ const api = http.createServer((req, res) => {
   send(404, { error: 'not found' });
 });
 
+// A client that drops its connection mid-conversation (a process ending while it sends) is the
+// client's problem: log it and keep serving, as a real mail server would.
+smtp.on('error', (error: NodeJS.ErrnoException) => {
+  console.warn(`[fake-smtp] connection error ignored: ${error.code ?? error.message}`);
+});
+
 smtp.listen(smtpPort, '127.0.0.1', () => {
   api.listen(apiPort, '127.0.0.1', () => {
     console.log(`[fake-smtp] SMTP on 127.0.0.1:${smtpPort}, inbox API on http://127.0.0.1:${apiPort}`);
