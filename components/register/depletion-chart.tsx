@@ -1,18 +1,8 @@
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { forecastDateWords } from '@/lib/forecast/labels';
 
-export interface ChartSeries {
-  label: string;
-  points: { date: Date; kg: number }[];
-  surveys: { date: Date; kg: number }[];
-  /** Net mass at which the group reaches its utilisation factor, kg. */
-  endKg: number;
-  endOfLife: Date | null;
-  /** Net mass at which the group is to be renewed (the renewal threshold, or endKg if higher), kg. */
-  renewKg?: number;
-  /** The forecast's renew-by date: the date renewals are scheduled on. */
-  renewBy?: Date | null;
-}
+export type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
+import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
 
 interface Props {
   series: ChartSeries[];

@@ -8,15 +8,8 @@ import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-fo
 import { renewalRuleOf } from '../planner/compute-plans';
 import { inSequence } from '../../sql';
 
-export interface DepletionSeries {
-  label: string;
-  points: { date: Date; kg: number }[];
-  surveys: { date: Date; kg: number }[];
-  endKg: number;
-  endOfLife: Date | null;
-  renewKg: number;
-  renewBy: Date | null;
-}
+export type { DepletionSeries } from '@/lib/register/depletion-series';
+import type { DepletionSeries } from '@/lib/register/depletion-series';
 
 /** One row of the asset page's forecast table; dates are YYYY-MM-DD. */
 export interface ForecastRow {
