@@ -104,7 +104,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                   ) : (
                     <p className="num text-left text-sm">
                       {fmtSig(table.initial * 1000)} / {fmtSig(table.mean * 1000)} / {fmtSig(table.final * 1000)} mA/m²{' '}
-                      <span className="text-2xs text-ink-faint">{method.source}</span>
+                      <span className="block text-2xs text-ink-faint">{method.source}</span>
                     </p>
                   )}
                 </div>
