@@ -65,4 +65,3 @@ export function allowed(ctx: Pick<OrgContext, 'role' | 'organisation'>, permissi
   return can(ctx.role, permission) && (ALLOWED_WHEN_READ_ONLY.has(permission) || !organisationReadOnlyReason(ctx.organisation));
 }
 
-export const actorOf = (ctx: Pick<OrgContext, 'user'>) => ({ id: ctx.user.id, email: ctx.user.email });
