@@ -5,6 +5,7 @@
 // so several developers can run at once on separate bases and clusters.
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
+import { fakesEnv } from '../lib/services.mjs';
 import { root, startCluster, startTsChild, waitForPort, stopAll, onShutdown, portFrom, say } from '../lib/bootstrap.mjs';
 
 const base = portFrom('TIDEWARDEN_DEV_IT_BASE', 14000);
@@ -22,19 +23,8 @@ async function main() {
     DATABASE_URL: cluster.urlFor(database),
     TIDEWARDEN_IT_DATABASE_URL: cluster.urlFor(database),
     APP_URL: 'http://127.0.0.1:1',
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(ports.smtp),
-    FAKE_SMTP_PORT: String(ports.smtp),
-    FAKE_MAIL_API_PORT: String(ports.mailApi),
-    FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
-    FAKE_STRIPE_PORT: String(ports.stripe),
-    FAKE_STRIPE_WEBHOOK_URL: 'http://127.0.0.1:1/api/webhooks/stripe',
-    FAKE_STRIPE_PUBLIC_URL: `http://127.0.0.1:${ports.stripe}`,
-    FAKE_STRIPE_STATE_FILE: path.join(root, '.data', `stripe-${clusterName}.json`),
-    STRIPE_API_HOST: '127.0.0.1',
-    STRIPE_API_PORT: String(ports.stripe),
-    STRIPE_API_PROTOCOL: 'http',
-    STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
+    // No app runs here: webhooks from the Stripe fake go nowhere, as the tests expect.
+    ...fakesEnv({ ports, appUrl: 'http://127.0.0.1:1', stateName: clusterName }),
     STRIPE_WEBHOOK_SECRET: 'whsec_tidewarden_local',
   };
   const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env, { quiet: true });

@@ -11,6 +11,31 @@ export function demoSignIns() {
  * @param {{ mode: 'development'|'test', ports: { app:number, pg:number, smtp:number, mailApi:number, stripe:number },
  *           cluster: string, database: string, freshDatabase: boolean, distDir: string }} options
  */
+/**
+ * What the app and the fakes need to find each other on loopback: the SMTP fake and its inbox API,
+ * the Stripe fake (API, pages, webhooks to the app) and the local keys. Shared by npm start, npm test
+ * and the developer shortcut scripts/dev/vitest.mjs.
+ * @param {{ ports: { smtp:number, mailApi:number, stripe:number }, appUrl: string, stateName: string }} options
+ */
+export function fakesEnv({ ports, appUrl, stateName }) {
+  return {
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(ports.smtp),
+    FAKE_SMTP_PORT: String(ports.smtp),
+    FAKE_MAIL_API_PORT: String(ports.mailApi),
+    FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
+    FAKE_STRIPE_PORT: String(ports.stripe),
+    FAKE_STRIPE_WEBHOOK_URL: `${appUrl}/api/webhooks/stripe`,
+    FAKE_STRIPE_PUBLIC_URL: `http://127.0.0.1:${ports.stripe}`,
+    FAKE_STRIPE_STATE_FILE: path.join(root, '.data', `stripe-${stateName}.json`),
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: String(ports.stripe),
+    STRIPE_API_PROTOCOL: 'http',
+    STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
+    STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET || 'whsec_tidewarden_local',
+  };
+}
+
 export async function bringUp(options) {
   const { ports } = options;
   await requireFreePort(ports.app, 'the web app', options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT');
@@ -34,20 +59,7 @@ export async function bringUp(options) {
     TIDEWARDEN_ENV: options.mode,
     DATABASE_URL: databaseUrl,
     APP_URL: process.env.APP_URL && options.mode === 'development' ? process.env.APP_URL : appUrl,
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(ports.smtp),
-    FAKE_SMTP_PORT: String(ports.smtp),
-    FAKE_MAIL_API_PORT: String(ports.mailApi),
-    FAKE_MAIL_API: `http://127.0.0.1:${ports.mailApi}`,
-    FAKE_STRIPE_PORT: String(ports.stripe),
-    FAKE_STRIPE_WEBHOOK_URL: `${appUrl}/api/webhooks/stripe`,
-    FAKE_STRIPE_PUBLIC_URL: `http://127.0.0.1:${ports.stripe}`,
-    FAKE_STRIPE_STATE_FILE: path.join(root, '.data', `stripe-${options.mode}.json`),
-    STRIPE_API_HOST: '127.0.0.1',
-    STRIPE_API_PORT: String(ports.stripe),
-    STRIPE_API_PROTOCOL: 'http',
-    STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
-    STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET || 'whsec_tidewarden_local',
+    ...fakesEnv({ ports, appUrl, stateName: options.mode }),
     NEXT_TELEMETRY_DISABLED: '1',
   };
   // The fakes start first: the seed sets up the demo subscription through the Stripe fake.
