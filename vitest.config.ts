@@ -15,7 +15,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'integration',
-          include: ['tests/integration/**/*.test.ts'],
+          include: ['tests/integration/**/*.test.ts', 'tests/security/**/*.test.ts'],
           environment: 'node',
           pool: 'forks',
           fileParallelism: false,

@@ -59,7 +59,7 @@ export async function bringUp(options) {
     TIDEWARDEN_ENV: options.mode,
     DATABASE_URL: databaseUrl,
     APP_URL: process.env.APP_URL && options.mode === 'development' ? process.env.APP_URL : appUrl,
-    ...fakesEnv({ ports, appUrl, stateName: options.mode }),
+    ...fakesEnv({ ports, appUrl, stateName: options.stateName ?? options.mode }),
     NEXT_TELEMETRY_DISABLED: '1',
   };
   // The fakes start first: the seed sets up the demo subscription through the Stripe fake.

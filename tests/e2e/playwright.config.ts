@@ -1,9 +1,10 @@
 import { defineConfig } from '@playwright/test';
 
 // The app is already built and served by scripts/test.mjs (E2E_BASE_URL); Chromium is Debian's.
+// Browser journeys live in tests/e2e, HTTP-level security probes in tests/security.
 export default defineConfig({
-  testDir: '.',
-  testMatch: /.*\.spec\.ts$/,
+  testDir: '..',
+  testMatch: /(e2e|security)\/.*\.spec\.ts$/,
   fullyParallel: false,
   workers: 1,
   retries: 0,
