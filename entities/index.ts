@@ -6,6 +6,7 @@ import { MembershipSchema } from './membership.entity';
 import { InvitationSchema } from './invitation.entity';
 import { UserTokenSchema } from './user-token.entity';
 import { OutboxMessageSchema } from './outbox-message.entity';
+import { WorkerHeartbeatSchema } from './worker-heartbeat.entity';
 import { AuditEventSchema } from './audit-event.entity';
 import { SignInAttemptSchema } from './sign-in-attempt.entity';
 import { AssetSchema } from './asset.entity';
@@ -25,6 +26,7 @@ export * from './membership.entity';
 export * from './invitation.entity';
 export * from './user-token.entity';
 export * from './outbox-message.entity';
+export * from './worker-heartbeat.entity';
 export * from './audit-event.entity';
 export * from './sign-in-attempt.entity';
 export * from './asset.entity';
@@ -59,4 +61,5 @@ export const allEntities = [
   StripeEventSchema,
   DockingSchema,
   RenewalSchema,
+  WorkerHeartbeatSchema,
 ];

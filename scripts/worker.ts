@@ -9,6 +9,7 @@ import { getEnv } from '../lib/server/env';
 import { deliverDueMail } from '../lib/server/mail/outbox';
 import { queueDockingReminders } from '../lib/server/services/reminders/docking-reminders';
 import { queueWeeklyDigests } from '../lib/server/services/reminders/weekly-digest';
+import { forgetStaleWorkers, newWorkerIdentity, recordHeartbeat } from '../lib/server/worker-status';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
@@ -44,8 +45,16 @@ async function main() {
   };
   process.on('SIGTERM', stop);
   process.on('SIGINT', stop);
+  const identity = newWorkerIdentity();
+  await forgetStaleWorkers(orm.em.fork()).catch(() => undefined);
   console.log('[worker] started: outbox delivery and scheduled jobs');
   while (!stopping) {
+    try {
+      // The heartbeat /api/health reads: this loop is alive and reaches the database.
+      await recordHeartbeat(orm.em.fork(), identity);
+    } catch (error) {
+      console.error('[worker] heartbeat failed:', error instanceof Error ? error.message : error);
+    }
     try {
       const result = await deliverDueMail(orm.em.fork());
       if (result.claimed) console.log(`[worker] mail: ${result.sent} sent, ${result.failed} to retry`);

@@ -9,6 +9,7 @@ import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-
 import { Panel } from '@/components/ui/panel';
 import { queryKeys } from '@/lib/client/query-client';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
+import { MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
 import { ROLES, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
 import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
 
@@ -83,6 +84,7 @@ export function TeamManager({ org }: { org: string }) {
     return [
       col.accessor('email', { header: 'E-mail' }),
       col.accessor('role', { header: 'Role', cell: (c) => ROLE_LABELS[c.getValue()] }),
+      col.accessor('mail', { header: 'Invitation e-mail', cell: (c) => { const mail = c.getValue(); return mail ? MAIL_DELIVERY_WORDS[mail] : '—'; } }),
       col.accessor('expiresAt', { header: 'Expires', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy HH:mm') }),
       col.display({ id: 'revoke', header: '', cell: (c) => <RevokeCell org={org} invitation={c.row.original} /> }),
     ];

@@ -2,6 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { fetchJson, queryKeys } from './query-client';
 import type { Role } from '@/lib/roles';
+import type { MailDelivery } from '@/lib/words/mail-delivery';
 
 export interface TeamMember {
   id: string;
@@ -18,8 +19,15 @@ export interface TeamInvitation {
   role: Role;
   expiresAt: string;
   createdAt: string;
+  /** Where the invitation e-mail stands; null for an invitation older than this record. */
+  mail: MailDelivery | null;
 }
 
 export function useTeam(org: string) {
-  return useQuery({ queryKey: queryKeys.team(org), queryFn: () => fetchJson<{ members: TeamMember[]; invitations: TeamInvitation[] }>(`/api/orgs/${org}/team`) });
+  return useQuery({
+    queryKey: queryKeys.team(org),
+    queryFn: () => fetchJson<{ members: TeamMember[]; invitations: TeamInvitation[] }>(`/api/orgs/${org}/team`),
+    // While an invitation e-mail waits for the worker, look again every few seconds until it is sent.
+    refetchInterval: (query) => (query.state.data?.invitations.some((i) => i.mail === 'queued' || i.mail === 'retrying') ? 4000 : false),
+  });
 }

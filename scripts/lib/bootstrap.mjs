@@ -5,11 +5,12 @@ import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { supervise } from './supervise.mjs';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..');
 export const dataRoot = path.join(root, '.data');
 
-const started = []; // { name, child }
+const started = []; // { name, child } or { name, supervisor }
 let clusterToStop = null; // { bin, dataDir }
 
 export class BootstrapError extends Error {}
@@ -245,9 +246,24 @@ export function startTsChild(name, script, env, options) {
   return startChild(name, process.execPath, ['--import', `file://${tsxLoader()}`, script], env, options);
 }
 
+/**
+ * Starts a TypeScript service (the worker, a fake) that is started again with back-off whenever it dies
+ * (see supervise.mjs), until stopAll(). Returns the supervisor; `.child` is the process running now.
+ */
+export function startSupervisedTsChild(name, label, script, env, { quiet = false } = {}) {
+  const supervisor = supervise({
+    name: label,
+    spawnChild: () => spawn(process.execPath, ['--import', `file://${tsxLoader()}`, script], { cwd: root, env, stdio: quiet ? ['ignore', 'ignore', 'inherit'] : ['ignore', 'inherit', 'inherit'] }),
+    log: say,
+  });
+  started.push({ name, supervisor });
+  return supervisor;
+}
+
 export async function stopAll() {
-  for (const { child } of started.reverse()) {
-    if (child.exitCode === null && child.signalCode === null) {
+  for (const entry of started.reverse()) {
+    const child = entry.supervisor ? entry.supervisor.stop() : entry.child;
+    if (child && child.exitCode === null && child.signalCode === null) {
       child.kill('SIGTERM');
       await Promise.race([new Promise((r) => child.once('exit', r)), new Promise((r) => setTimeout(r, 5000))]);
       if (child.exitCode === null && child.signalCode === null) child.kill('SIGKILL');

@@ -1,7 +1,7 @@
 // The stack both commands bring up: database, migrations, seed, fakes, app. Plain Node.
 import fs from 'node:fs';
 import path from 'node:path';
-import { root, say, startCluster, runTs, startTsChild, waitForPort, requireFreePort, buildIfStale, startNext } from './bootstrap.mjs';
+import { root, say, startCluster, runTs, startSupervisedTsChild, waitForPort, requireFreePort, buildIfStale, startNext } from './bootstrap.mjs';
 
 export function demoSignIns() {
   return JSON.parse(fs.readFileSync(path.join(root, 'scripts', 'demo-sign-ins.json'), 'utf8'));
@@ -64,16 +64,17 @@ export async function bringUp(options) {
   };
   // The fakes start first: the seed sets up the demo subscription through the Stripe fake.
   if (options.freshDatabase) fs.rmSync(env.FAKE_STRIPE_STATE_FILE, { force: true });
-  const smtp = startTsChild('fake-smtp', 'fakes/smtp/server.ts', env);
-  const stripe = startTsChild('fake-stripe', 'fakes/stripe/server.ts', env);
-  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp);
-  await waitForPort(ports.stripe, 'The Stripe fake', 30_000, stripe);
+  // The fakes and the worker are supervised: if one dies it is started again with back-off (a line in the log).
+  const smtp = startSupervisedTsChild('fake-smtp', 'The SMTP fake', 'fakes/smtp/server.ts', env);
+  const stripe = startSupervisedTsChild('fake-stripe', 'The Stripe fake', 'fakes/stripe/server.ts', env);
+  await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp.child);
+  await waitForPort(ports.stripe, 'The Stripe fake', 30_000, stripe.child);
 
   say('Migrating the database...');
   runTs('scripts/migrate.ts', ['up'], env, 'The database migration failed; see the message above.');
   runTs('scripts/seed.ts', [], env, 'Seeding the demo scenario failed; see the message above.');
 
-  startTsChild('worker', 'scripts/worker.ts', env);
+  startSupervisedTsChild('worker', 'The worker', 'scripts/worker.ts', env);
 
   buildIfStale(options.distDir, env);
   const next = startNext(options.distDir, ports.app, env);

@@ -15,6 +15,7 @@ import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
 import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs } from '../fixtures/entry-points';
 import { pdfText } from '../fixtures/pdf-text';
+import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
@@ -357,13 +358,36 @@ describe('organisation route handlers', () => {
 });
 
 describe('public route handlers', () => {
-  it('GET /api/health answers without a session: the app and the database are up', async () => {
+  it('GET /api/health answers without a session: app, database and worker up, with the queue depth', async () => {
     await signInAs(null);
+    const em = await getEm();
+    await em.execute(`delete from worker_heartbeat`);
     const { GET } = await import('@/app/api/health/route');
-    const res = await GET();
+
+    // No worker has ever beaten: mail and reminders would not go out.
+    let res = await GET();
+    expect(res.status).toBe(503);
+    expect(await res.json()).toMatchObject({ status: 'degraded', database: { status: 'ok' }, worker: { status: 'never', lastHeartbeatAt: null } });
+
+    const worker = newWorkerIdentity();
+    await recordHeartbeat(em.fork(), worker);
+    const waitingBefore = Number((await em.execute<{ n: string }[]>(`select count(*) as n from outbox_message where status = 'pending'`))[0].n);
+    await em.execute(`insert into outbox_message (id, to_address, subject, text_body, status, attempts, next_attempt_at, created_at) values (gen_random_uuid(), 'queued@example.com', 'Queued', 'x', 'pending', 0, now(), now() - interval '90 seconds')`);
+    res = await GET();
     expect(res.status).toBe(200);
     const body = await res.json();
-    expect(body).toMatchObject({ status: 'ok', app: { status: 'ok' }, database: { status: 'ok' } });
+    expect(body).toMatchObject({ status: 'ok', app: { status: 'ok' }, database: { status: 'ok' }, worker: { status: 'ok', running: 1 } });
+    expect(body.worker.secondsSinceHeartbeat).toBeLessThanOrEqual(5);
+    expect(body.queue.mailWaiting).toBe(waitingBefore + 1);
+    expect(body.queue.oldestMailWaitingSeconds).toBeGreaterThanOrEqual(90);
+
+    // A worker silent for more than a minute is late.
+    await em.execute(`update worker_heartbeat set beat_at = now() - interval '61 seconds'`);
+    res = await GET();
+    expect(res.status).toBe(503);
+    expect(await res.json()).toMatchObject({ status: 'degraded', worker: { status: 'late', running: 0 } });
+    await em.execute(`delete from outbox_message where to_address = 'queued@example.com'`);
+    await em.execute(`delete from worker_heartbeat`);
   });
 
   it('POST /api/webhooks/stripe refuses an unsigned body with 400 and records nothing, without any session', async () => {

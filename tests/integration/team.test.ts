@@ -12,6 +12,8 @@ import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { getTeam } from '@/lib/server/services/team/get-team';
 import { getAuditLog } from '@/lib/server/services/accounts/get-audit-log';
 import { hashToken } from '@/lib/server/tokens';
+import { deliverDueMail, outboxSettled } from '@/lib/server/mail/outbox';
+import { invitationMailKey, MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, uniqueEmail, runAs } from '../fixtures/factories';
 
 let organisation: Organisation;
@@ -50,6 +52,27 @@ describe('team permissions by role', () => {
 });
 
 describe('invitations', () => {
+  it('the team list says the invitation e-mail is queued until the mail server has taken it, then sent', async () => {
+    const email = uniqueEmail('queued');
+    const { invitation } = await runAs(ctx('owner'), (c) => inviteMember(c, { email, role: 'viewer' }));
+    await outboxSettled();
+    const em = await getEm();
+    const key = invitationMailKey(invitation.id);
+    const mailOf = async () => (await getTeam(await ctx('owner'))).invitations.find((i) => i.id === invitation.id)?.mail;
+    // Hold the message as the worker would find it before its first pass.
+    await em.execute(`update outbox_message set status = 'pending', attempts = 0, sent_at = null, next_attempt_at = now() where dedupe_key = ?`, [key]);
+    expect(await mailOf()).toBe('queued');
+    await em.execute(`update outbox_message set attempts = 2 where dedupe_key = ?`, [key]);
+    expect(await mailOf()).toBe('retrying');
+    await em.execute(`update outbox_message set status = 'failed' where dedupe_key = ?`, [key]);
+    expect(await mailOf()).toBe('not-delivered');
+    await em.execute(`update outbox_message set status = 'pending', attempts = 0, next_attempt_at = now() where dedupe_key = ?`, [key]);
+    await deliverDueMail(em.fork(), { limit: 100 });
+    expect(await mailOf()).toBe('sent');
+    expect(MAIL_DELIVERY_WORDS.sent).toBe('Sent');
+    expect(MAIL_DELIVERY_WORDS.queued).toMatch(/not sent yet/);
+  });
+
   it('a new person accepts: the account is created confirmed, with the invited role, and the link then stops working', async () => {
     const email = uniqueEmail('newcomer');
     const { token } = await runAs(ctx('owner'), (c) => inviteMember(c, { email, role: 'engineer' }));

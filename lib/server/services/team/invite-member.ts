@@ -8,6 +8,7 @@ import { invitationMail } from '../../mail/templates';
 import { audit } from '../../audit';
 import { getEnv } from '../../env';
 import { ROLE_LABELS } from '../../permissions';
+import { invitationMailKey } from '@/lib/words/mail-delivery';
 import { requirePermission, type OrgContext } from '../../org-context';
 
 export const INVITATION_DAYS = 7;
@@ -31,7 +32,7 @@ export async function inviteMember(ctx: OrgContext, input: unknown) {
     invitedBy: em.getReference(UserSchema, ctx.user.id),
     expiresAt: addDays(new Date(), INVITATION_DAYS),
   });
-  enqueueMail(ctx, { to: email, organisationId: organisation.id, ...invitationMail(organisation.name, ctx.user.name, ROLE_LABELS[role], `${getEnv().APP_URL}/invite/${token}`) });
+  enqueueMail(ctx, { to: email, organisationId: organisation.id, dedupeKey: invitationMailKey(invitation.id), ...invitationMail(organisation.name, ctx.user.name, ROLE_LABELS[role], `${getEnv().APP_URL}/invite/${token}`) });
   audit(ctx, { action: 'member.invited', targetType: 'invitation', targetId: invitation.id, details: { email, role } });
   return { invitation, token };
 }
