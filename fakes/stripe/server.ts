@@ -25,7 +25,7 @@ import { API_VERSION, ApiError, newId, type Json } from './api';
 import { Store, type StateFile } from './store';
 import { createCustomer, getCustomer, listCustomers, updateCustomer } from './customers';
 import { getPrice, listPrices } from './prices';
-import { checkoutView, createCheckoutSession, getCheckoutSession, payCheckout } from './checkout-sessions';
+import { checkoutView, createCheckoutSession, expireCheckoutSession, getCheckoutSession, listCheckoutSessions, payCheckout } from './checkout-sessions';
 import { advance, cancelSubscription, createSubscription, getSubscription, listSubscriptions, updateSubscription } from './subscriptions';
 import { createPortalSession, portalCancel, portalChangePlan, portalView } from './portal-sessions';
 import { invoiceView, listInvoices } from './invoices';
@@ -215,6 +215,8 @@ route('GET', '/v1/prices', ({ params }) => listPrices(store, params));
 route('GET', `/v1/prices/${ID}`, ({ match }) => getPrice(store, match[1]));
 
 route('POST', '/v1/checkout/sessions', ({ params }) => createCheckoutSession(store, params));
+route('GET', '/v1/checkout/sessions', ({ params }) => listCheckoutSessions(store, params));
+route('POST', `/v1/checkout/sessions/${ID}/expire`, ({ match }) => expireCheckoutSession(store, match[1]));
 route('GET', `/v1/checkout/sessions/${ID}`, ({ params, match }) => getCheckoutSession(store, match[1], params.stringArray('expand') ?? []));
 
 route('POST', '/v1/subscriptions', ({ params }) => createSubscription(store, params));

@@ -56,10 +56,14 @@ export async function startCheckout(ctx: OrgContext, input: unknown): Promise<st
     if (live) throw new AppError('conflict', 'The organisation already has a subscription at the payment service: reload the page and change its plan instead.');
   }
   const price = await priceFor(plan);
+  const customer = await customerId(ctx);
+  // Only the newest checkout can be paid: one left open in another tab would buy a second subscription.
+  const open = await stripe.checkout.sessions.list({ customer, status: 'open', limit: 100 });
+  for (const session of open.data) await stripe.checkout.sessions.expire(session.id);
   const base = `${getEnv().APP_URL}/o/${ctx.organisation.slug}/billing`;
   const session = await stripe.checkout.sessions.create({
     mode: 'subscription',
-    customer: await customerId(ctx),
+    customer,
     client_reference_id: ctx.organisation.id,
     line_items: [{ price: price.id, quantity: 1 }],
     success_url: `${base}?checkout=success&session_id={CHECKOUT_SESSION_ID}`,
