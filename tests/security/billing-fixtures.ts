@@ -1,6 +1,7 @@
 // Shared by the billing security tests: an organisation subscribed through the real checkout flow of the
-// local payment fake (started by the test runner; its webhooks go to a port where no app listens, so the
-// app is "down" for them unless a test delivers them itself).
+// local payment fake (started by the test runner). Its webhooks never reach the integration database (they
+// go to a port where no app listens, or under `npm test` to the end-to-end app and its own database), so
+// for these organisations the app is "down" unless a test delivers an event itself.
 import { OrganisationSchema, type Organisation, type User } from '@/entities';
 import type { Role } from '@/lib/roles';
 import type { PlanId } from '@/lib/billing/plans';

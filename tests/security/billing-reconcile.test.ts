@@ -22,13 +22,12 @@ describe('billing reconciliation with the app down', () => {
     const before = await reloadOrg(org);
     expect([before.subscriptionStatus, before.plan]).toEqual(['active', 'harbour']);
 
-    // Cancelled at the payment service; its webhook cannot reach the app.
+    // Cancelled at the payment service; its webhook never reaches this database (the fake posts to a port
+    // where nothing listens, or under `npm test` to the end-to-end app, which has a database of its own).
     await getStripe().subscriptions.cancel(before.stripeSubscriptionId!);
-    const { webhookUrl, events } = await deliveriesOf(before.stripeSubscriptionId!);
-    expect(webhookUrl).toBe('http://127.0.0.1:1/api/webhooks/stripe');
+    const { events } = await deliveriesOf(before.stripeSubscriptionId!);
     const deleted = events.find((e) => e.type === 'customer.subscription.deleted')!;
     expect(deleted).toBeTruthy();
-    expect(deleted.delivery.state).not.toBe('delivered');
     expect(await (await getEm()).count(StripeEventSchema, { id: deleted.id })).toBe(0);
     // Without reconciliation the organisation is still active and writable: the finding.
     expect((await reloadOrg(org)).subscriptionStatus).toBe('active');
