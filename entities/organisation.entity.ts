@@ -22,7 +22,8 @@ export const OrganisationSchema = defineEntity({
     subscriptionStatus: p.string().length(24).default('trialing'),
     trialEndsAt: p.datetime().nullable(),
     stripeCustomerId: p.string().length(64).nullable().unique(),
-    stripeSubscriptionId: p.string().length(64).nullable(),
+    // One subscription belongs to one organisation (and an organisation holds one at a time).
+    stripeSubscriptionId: p.string().length(64).nullable().unique(),
     currentPeriodEnd: p.datetime().nullable(),
     cancelAtPeriodEnd: p.boolean().default(false),
     pastDueSince: p.datetime().nullable(),

@@ -10,10 +10,11 @@ import { deliverDueMail } from '../lib/server/mail/outbox';
 import { queueDockingReminders } from '../lib/server/services/reminders/docking-reminders';
 import { queueWeeklyDigests } from '../lib/server/services/reminders/weekly-digest';
 import { forgetStaleWorkers, newWorkerIdentity, recordHeartbeat } from '../lib/server/worker-status';
+import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconcile-subscription';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
-export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest' } as const;
+export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest', billing: 'billing-reconcile' } as const;
 
 async function main() {
   const env = getEnv();
@@ -34,6 +35,14 @@ async function main() {
   });
   // One reminder pass soon after start, shared by every worker that starts within five minutes.
   await boss.send(JOBS.reminders, {}, { singletonKey: 'startup', singletonSeconds: 300 });
+  // Billing: the subscriptions are read back from the payment service every 10 minutes and once at
+  // start, so that webhooks lost while the app was down (a cancellation, a failed payment) still count.
+  await boss.schedule(JOBS.billing, '*/10 * * * *', {}, { tz: 'UTC' });
+  await boss.work(JOBS.billing, async () => {
+    const { checked, changed, failed } = await reconcileAllSubscriptions(orm.em.fork());
+    if (changed || failed) console.log(`[worker] subscriptions reconciled: ${checked} checked, ${changed} repaired, ${failed} could not be checked`);
+  });
+  await boss.send(JOBS.billing, {}, { singletonKey: 'startup', singletonSeconds: 60 });
 
   let stopping = false;
   const stop = async () => {

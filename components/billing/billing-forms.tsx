@@ -3,13 +3,13 @@ import { Button } from '@/components/ui/button';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { cancelAction, checkoutAction, portalAction } from '@/app/o/[org]/billing/actions';
 
-export function ChoosePlanButton({ org, plan, label, current }: { org: string; plan: string; label: string; current: boolean }) {
+export function ChoosePlanButton({ org, plan, label, current, change = false }: { org: string; plan: string; label: string; current: boolean; change?: boolean }) {
   const form = useBoundAction(checkoutAction.bind(null, org));
   return (
     <ActionForm form={form} className="flex flex-col gap-2">
       <input type="hidden" name="plan" value={plan} />
       <Button type="submit" variant={current ? 'secondary' : 'primary'} disabled={form.pending || current}>
-        {current ? 'Your plan' : form.pending ? 'Opening checkout…' : label}
+        {current ? 'Your plan' : form.pending ? (change ? 'Changing the plan…' : 'Opening checkout…') : label}
       </Button>
     </ActionForm>
   );

@@ -1,7 +1,7 @@
 // Checkout Sessions (mode `subscription` only): created by the app, paid or declined on the hosted page
 // (pages.ts), read back by the app when the browser returns.
 import type { Params } from './form';
-import { badParam, cleanMetadata, DAY, missing, newId, nowSeconds, type Json } from './api';
+import { badParam, cleanMetadata, DAY, missing, newId, nowSeconds, paginate, type Json } from './api';
 import { customerRec, insertCustomer } from './customers';
 import { emit } from './events';
 import { renderInvoice } from './invoices';
@@ -158,6 +158,26 @@ export function getCheckoutSession(store: Store, id: string, expandPaths: string
   const out = renderCheckoutSession(store, rec);
   // Not part of the object unless asked for (also for nested paths such as line_items.data.price.product).
   if (expandPaths.some((p) => p === 'line_items' || p.startsWith('line_items.'))) out.line_items = renderCheckoutLineItems(store, rec);
+  return out;
+}
+
+/** GET /v1/checkout/sessions (`customer`, `status`), newest first; expired sessions are expired first. */
+export function listCheckoutSessions(store: Store, p: Params): Json {
+  const customer = p.string('customer');
+  const status = p.oneOf('status', ['open', 'complete', 'expired'] as const);
+  const items = [...store.checkoutSessions.keys()]
+    .map((id) => checkoutSessionRec(store, id))
+    .filter((s) => (!customer || s.customer === customer) && (!status || s.status === status));
+  return paginate(items, p, '/v1/checkout/sessions', (s) => renderCheckoutSession(store, s));
+}
+
+/** POST /v1/checkout/sessions/:id/expire: an open session can no longer be paid (checkout.session.expired). */
+export function expireCheckoutSession(store: Store, id: string): Json {
+  const rec = checkoutSessionRec(store, id);
+  if (rec.status !== 'open') throw badParam(`Only Checkout Sessions with a status of open can be expired; this one is ${rec.status}.`, 'session');
+  rec.status = 'expired';
+  const out = renderCheckoutSession(store, rec);
+  emit(store, 'checkout.session.expired', out);
   return out;
 }
 

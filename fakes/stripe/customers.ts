@@ -17,7 +17,7 @@ export function renderCustomer(store: Store, c: CustomerRec): Json {
     id: c.id,
     object: 'customer',
     address: null,
-    balance: 0,
+    balance: c.balance ?? 0,
     created: c.created,
     // Stripe sets the currency with the first subscription; all plans are in euro.
     currency: subscriptions.length > 0 ? 'eur' : null,

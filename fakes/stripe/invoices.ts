@@ -5,11 +5,13 @@ import { DAY, formatMoney, newId, paginate, type Json } from './api';
 import { priceRec, productName } from './prices';
 import type { InvoiceLineRec, InvoiceRec, Store, SubscriptionRec } from './store';
 
-/** An invoice for the subscription's current period, paid at once or left open (a failed payment). */
+/**
+ * An invoice for the subscription's current period, paid at once or left open (a failed payment). Proration
+ * lines waiting from plan changes are billed with it, and the customer's balance (a credit left by a
+ * downgrade) is applied, as Stripe does.
+ */
 export function createInvoice(store: Store, sub: SubscriptionRec, reason: InvoiceRec['billing_reason'], paid: boolean, trial = false): InvoiceRec {
-  const base = store.base('in', 24);
-  store.invoiceNumber += 1;
-  const lines: InvoiceLineRec[] = sub.items.map((item) => {
+  const periodLines: InvoiceLineRec[] = sub.items.map((item) => {
     const price = priceRec(store, item.price);
     const name = productName(store, price);
     return {
@@ -22,7 +24,24 @@ export function createInvoice(store: Store, sub: SubscriptionRec, reason: Invoic
       period_end: sub.current_period_end,
     };
   });
-  const total = lines.reduce((s, l) => s + l.amount, 0);
+  const lines = [...(sub.pending_prorations ?? []), ...periodLines];
+  sub.pending_prorations = [];
+  return issueInvoice(store, sub, reason, lines, paid);
+}
+
+/**
+ * Finalises an invoice over the given lines. The customer's balance is applied first: a credit lowers
+ * what is due, and a total below zero (a downgrade) becomes a credit for the next invoice.
+ */
+export function issueInvoice(store: Store, sub: SubscriptionRec, reason: InvoiceRec['billing_reason'], lines: InvoiceLineRec[], paid: boolean): InvoiceRec {
+  const base = store.base('in', 24);
+  store.invoiceNumber += 1;
+  const subtotal = lines.reduce((s, l) => s + l.amount, 0);
+  const customer = store.customers.get(sub.customer);
+  const startingBalance = customer?.balance ?? 0;
+  const total = Math.max(0, subtotal + startingBalance);
+  const endingBalance = Math.min(0, subtotal + startingBalance);
+  if (customer) customer.balance = endingBalance;
   const invoice: InvoiceRec = {
     ...base,
     number: `TWLOCAL-${String(store.invoiceNumber).padStart(4, '0')}`,
@@ -41,10 +60,15 @@ export function createInvoice(store: Store, sub: SubscriptionRec, reason: Invoic
     finalized_at: base.created,
     paid_at: paid ? base.created : null,
     next_payment_attempt: paid ? null : base.created + 3 * DAY,
+    starting_balance: startingBalance,
+    ending_balance: endingBalance,
   };
   store.invoices.set(invoice.id, invoice);
   return invoice;
 }
+
+/** The sum of the lines, before the customer's balance (negative for a downgrade's credit). */
+const subtotalOf = (i: InvoiceRec) => i.lines.reduce((s, l) => s + l.amount, 0);
 
 export function renderInvoice(store: Store, i: InvoiceRec): Json {
   const customer = store.customers.get(i.customer);
@@ -75,7 +99,7 @@ export function renderInvoice(store: Store, i: InvoiceRec): Json {
     discounts: [],
     due_date: null,
     effective_at: i.finalized_at,
-    ending_balance: 0,
+    ending_balance: i.ending_balance ?? 0,
     footer: null,
     hosted_invoice_url: `${store.publicUrl}/invoice/${i.id}`,
     // We do not produce PDFs; the hosted page is the only document.
@@ -103,7 +127,7 @@ export function renderInvoice(store: Store, i: InvoiceRec): Json {
     period_end: i.period_end,
     period_start: i.period_start,
     receipt_number: null,
-    starting_balance: 0,
+    starting_balance: i.starting_balance ?? 0,
     statement_descriptor: null,
     status: i.status,
     status_transitions: {
@@ -113,11 +137,11 @@ export function renderInvoice(store: Store, i: InvoiceRec): Json {
       voided_at: i.status === 'void' ? i.finalized_at : null,
     },
     subscription: i.subscription,
-    subtotal: i.amount_due,
-    subtotal_excluding_tax: i.amount_due,
+    subtotal: subtotalOf(i),
+    subtotal_excluding_tax: subtotalOf(i),
     test_clock: null,
-    total: i.amount_due,
-    total_excluding_tax: i.amount_due,
+    total: subtotalOf(i),
+    total_excluding_tax: subtotalOf(i),
     total_taxes: [],
     webhooks_delivered_at: i.finalized_at,
   };
@@ -138,7 +162,7 @@ function renderInvoiceLine(store: Store, i: InvoiceRec, line: InvoiceLineRec): J
     livemode: false,
     metadata: {},
     parent: i.subscription
-      ? { subscription_item_details: { subscription: i.subscription, proration: false }, type: 'subscription_item_details' }
+      ? { subscription_item_details: { subscription: i.subscription, proration: Boolean(line.proration) }, type: 'subscription_item_details' }
       : null,
     period: { end: line.period_end, start: line.period_start },
     pricing: {

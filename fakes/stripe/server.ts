@@ -9,7 +9,8 @@
 //   STRIPE_WEBHOOK_SECRET    signing secret (default whsec_tidewarden_local)
 //   FAKE_STRIPE_PUBLIC_URL   base URL browsers use for the hosted pages (default http://127.0.0.1:<port>)
 //   FAKE_STRIPE_STATE_FILE   optional JSON file: state is loaded on start and written after every change
-//   FAKE_STRIPE_WEBHOOK_RETRY_DELAYS_MS  back-off between delivery attempts (default 500,2000,5000)
+//   FAKE_STRIPE_WEBHOOK_RETRY_DELAYS_MS  back-off between delivery attempts in ms (default: the hosted
+//                            service's, 1 min, 5 min, 30 min, 2 h, ... about three days in all)
 //
 // Webhooks are fire-and-forget: API responses never wait for deliveries. The two browser flows are the
 // exception: the checkout pay button and the portal's buttons answer (redirect) only after each event they
@@ -24,14 +25,14 @@ import { API_VERSION, ApiError, newId, type Json } from './api';
 import { Store, type StateFile } from './store';
 import { createCustomer, getCustomer, listCustomers, updateCustomer } from './customers';
 import { getPrice, listPrices } from './prices';
-import { checkoutView, createCheckoutSession, getCheckoutSession, payCheckout } from './checkout-sessions';
+import { checkoutView, createCheckoutSession, expireCheckoutSession, getCheckoutSession, listCheckoutSessions, payCheckout } from './checkout-sessions';
 import { advance, cancelSubscription, createSubscription, getSubscription, listSubscriptions, updateSubscription } from './subscriptions';
 import { createPortalSession, portalCancel, portalChangePlan, portalView } from './portal-sessions';
 import { invoiceView, listInvoices } from './invoices';
 import { eventPayload, listEvents, takeEmitted } from './events';
 import { applyExpand } from './expand';
 import { checkoutPage, invoicePage, messagePage, portalPage } from './pages';
-import { WebhookQueue, type Delivery } from './webhooks';
+import { DEFAULT_RETRY_DELAYS_MS, WebhookQueue, type Delivery } from './webhooks';
 
 // ----- configuration --------------------------------------------------------------------------------------
 
@@ -40,11 +41,13 @@ const requestedPort = Number(env.FAKE_STRIPE_PORT ?? 12111);
 const webhookUrl = env.FAKE_STRIPE_WEBHOOK_URL?.trim() || null;
 const webhookSecret = env.STRIPE_WEBHOOK_SECRET?.trim() || 'whsec_tidewarden_local';
 const stateFile = env.FAKE_STRIPE_STATE_FILE?.trim() ? path.resolve(env.FAKE_STRIPE_STATE_FILE.trim()) : null;
-const retryDelaysMs = (env.FAKE_STRIPE_WEBHOOK_RETRY_DELAYS_MS ?? '500,2000,5000')
-  .split(',')
-  .map((s) => s.trim())
-  .filter(Boolean)
-  .map(Number);
+// Tests shorten the hosted service's three-day schedule with this variable.
+const retryDelaysMs = env.FAKE_STRIPE_WEBHOOK_RETRY_DELAYS_MS?.trim()
+  ? env.FAKE_STRIPE_WEBHOOK_RETRY_DELAYS_MS.split(',')
+      .map((s) => s.trim())
+      .filter(Boolean)
+      .map(Number)
+  : DEFAULT_RETRY_DELAYS_MS;
 const MAX_BODY_BYTES = 1024 * 1024;
 const REDIRECT_WAIT_MS = 15_000;
 const LOG_PREFIX = '[fake-stripe]';
@@ -109,9 +112,12 @@ function loadState(): void {
   const data = JSON.parse(fs.readFileSync(stateFile, 'utf8')) as PersistedFile;
   store.load(data.store);
   queue.restore(data.deliveries ?? {});
-  // Deliveries cut short by a restart are attempted again, in their original order.
+  // Deliveries still pending when the fake stopped go on where their schedule left them, in their original order.
   for (const event of store.events) {
-    if (data.deliveries?.[event.id as string]?.state === 'pending') void queue.enqueue(event.id as string);
+    const delivery = data.deliveries?.[event.id as string];
+    if (delivery?.state === 'pending') {
+      void queue.enqueue(event.id as string, { dueAt: delivery.next_attempt_at ?? Date.now(), attempt: Math.min(delivery.attempts.length, retryDelaysMs.length) });
+    }
   }
 }
 
@@ -209,6 +215,8 @@ route('GET', '/v1/prices', ({ params }) => listPrices(store, params));
 route('GET', `/v1/prices/${ID}`, ({ match }) => getPrice(store, match[1]));
 
 route('POST', '/v1/checkout/sessions', ({ params }) => createCheckoutSession(store, params));
+route('GET', '/v1/checkout/sessions', ({ params }) => listCheckoutSessions(store, params));
+route('POST', `/v1/checkout/sessions/${ID}/expire`, ({ match }) => expireCheckoutSession(store, match[1]));
 route('GET', `/v1/checkout/sessions/${ID}`, ({ params, match }) => getCheckoutSession(store, match[1], params.stringArray('expand') ?? []));
 
 route('POST', '/v1/subscriptions', ({ params }) => createSubscription(store, params));
@@ -418,6 +426,7 @@ async function handleControl(req: http.IncomingMessage, res: http.ServerResponse
       api_version: API_VERSION,
       public_url: store.publicUrl,
       webhook_url: webhookUrl,
+      webhook_retry_delays_ms: retryDelaysMs,
       state_file: stateFile,
       counts: store.counts(),
     });

@@ -21,6 +21,8 @@ export interface CustomerRec extends Base {
   description: string | null;
   phone: string | null;
   metadata: Record<string, string>;
+  /** Credit (negative) or debt (positive) carried to the next invoice, in minor units; absent = 0. */
+  balance?: number;
 }
 
 export interface ProductRec extends Base {
@@ -85,6 +87,8 @@ export interface SubscriptionRec extends Base {
   start_date: number;
   metadata: Record<string, string>;
   latest_invoice: string | null;
+  /** Proration lines of `create_prorations` changes, billed with the next renewal invoice; absent = none. */
+  pending_prorations?: InvoiceLineRec[];
 }
 
 export interface InvoiceLineRec {
@@ -95,6 +99,8 @@ export interface InvoiceLineRec {
   description: string;
   period_start: number;
   period_end: number;
+  /** A credit or charge for part of a period after a plan change; absent = false. */
+  proration?: boolean;
 }
 
 export interface InvoiceRec extends Base {
@@ -114,6 +120,9 @@ export interface InvoiceRec extends Base {
   finalized_at: number;
   paid_at: number | null;
   next_payment_attempt: number | null;
+  /** The customer's balance applied to this invoice (negative = credit) and left after it; absent = 0. */
+  starting_balance?: number;
+  ending_balance?: number;
 }
 
 export interface PortalSessionRec extends Base {

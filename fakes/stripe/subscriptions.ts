@@ -2,12 +2,12 @@
 // portal (plan, quantity, cancel at period end), ended now or at period end, and renewed by the
 // /__control/advance test control.
 import type { Params } from './form';
-import { addMonth, ApiError, badParam, cleanMetadata, DAY, missing, missingParam, newId, nowSeconds, paginate, type Json } from './api';
+import { addMonth, ApiError, badParam, cleanMetadata, DAY, mergeMetadata, missing, missingParam, newId, nowSeconds, paginate, type Json } from './api';
 import { emit, emitUpdated } from './events';
-import { createInvoice, renderInvoice } from './invoices';
-import { activePriceRec, priceRec, renderPlan, renderPrice } from './prices';
+import { createInvoice, issueInvoice, renderInvoice } from './invoices';
+import { activePriceRec, priceRec, productName, renderPlan, renderPrice } from './prices';
 import { customerRec } from './customers';
-import type { InvoiceRec, Store, SubscriptionItemRec, SubscriptionRec } from './store';
+import type { InvoiceLineRec, InvoiceRec, Store, SubscriptionItemRec, SubscriptionRec } from './store';
 
 function subscriptionRec(store: Store, id: string): SubscriptionRec {
   const rec = store.subscriptions.get(id);
@@ -161,14 +161,59 @@ export function listSubscriptions(store: Store, p: Params): Json {
 }
 
 /**
+ * The proration lines of a change from `oldItems` to `newItems` at `at`, as Stripe computes them: for each
+ * item whose price or quantity changed, a credit for the unused time on the old price and a charge for the
+ * remaining time on the new one, each the full period's amount times the remaining fraction of the period
+ * (in seconds), rounded to the minor unit.
+ */
+export function prorationLines(store: Store, sub: SubscriptionRec, oldItems: SubscriptionItemRec[], newItems: SubscriptionItemRec[], at: number): InvoiceLineRec[] {
+  const start = sub.current_period_start;
+  const end = sub.current_period_end;
+  if (end <= start || at >= end) return [];
+  const fraction = (end - Math.max(at, start)) / (end - start);
+  const day = new Date(at * 1000).toISOString().slice(0, 10);
+  const lines: InvoiceLineRec[] = [];
+  for (const item of newItems) {
+    const old = oldItems.find((i) => i.id === item.id);
+    if (!old || (old.price === item.price && old.quantity === item.quantity)) continue;
+    const oldPrice = priceRec(store, old.price);
+    const newPrice = priceRec(store, item.price);
+    lines.push({
+      id: newId('il', 24),
+      price: oldPrice.id,
+      quantity: old.quantity,
+      amount: -Math.round(oldPrice.unit_amount * old.quantity * fraction),
+      description: `Unused time on ${old.quantity} × ${productName(store, oldPrice)} after ${day}`,
+      period_start: at,
+      period_end: end,
+      proration: true,
+    });
+    lines.push({
+      id: newId('il', 24),
+      price: newPrice.id,
+      quantity: item.quantity,
+      amount: Math.round(newPrice.unit_amount * item.quantity * fraction),
+      description: `Remaining time on ${item.quantity} × ${productName(store, newPrice)} after ${day}`,
+      period_start: at,
+      period_end: end,
+      proration: true,
+    });
+  }
+  return lines;
+}
+
+/**
  * Plan or quantity change of an existing item (`items[0][id]` with `items[0][price]` and/or
- * `items[0][quantity]`) and `cancel_at_period_end`. Prorations are not computed: `proration_behavior` is
- * validated and otherwise ignored.
+ * `items[0][quantity]`) and `cancel_at_period_end`. A change of price or quantity on a paying subscription
+ * is prorated like Stripe's: `create_prorations` (the default) adds the credit and charge lines to the next
+ * renewal invoice, `always_invoice` bills them at once in an invoice of their own (paid; a total below zero
+ * becomes a credit on the customer's balance), `none` bills nothing for the rest of the period.
  */
 export function updateSubscription(store: Store, id: string, p: Params): Json {
   const sub = subscriptionRec(store, id);
   const before = renderSubscription(store, sub);
-  p.oneOf('proration_behavior', ['always_invoice', 'create_prorations', 'none'] as const);
+  const prorationBehavior = p.oneOf('proration_behavior', ['always_invoice', 'create_prorations', 'none'] as const) ?? 'create_prorations';
+  const prorationDate = p.integer('proration_date', { min: 0 });
 
   if (sub.status === 'canceled') {
     const allowed = new Set(['metadata', 'cancellation_details', 'expand', 'proration_behavior']);
@@ -180,6 +225,7 @@ export function updateSubscription(store: Store, id: string, p: Params): Json {
 
   const itemParams = p.objectArray('items');
   const cancelAtPeriodEnd = p.boolean('cancel_at_period_end');
+  const metadata = p.metadata();
 
   // Validate everything before changing anything.
   const nextItems = sub.items.map((i) => ({ ...i }));
@@ -196,7 +242,19 @@ export function updateSubscription(store: Store, id: string, p: Params): Json {
   const prices = nextItems.map((i) => i.price);
   if (new Set(prices).size !== prices.length) throw badParam('Cannot add multiple subscription items with the same price.', 'items');
 
+  const at = prorationDate ?? nowSeconds();
+  // A trial is not billed, so a change during it is not prorated either.
+  const prorations = prorationBehavior !== 'none' && (sub.status === 'active' || sub.status === 'past_due') ? prorationLines(store, sub, sub.items, nextItems, at) : [];
   sub.items = nextItems;
+  sub.metadata = mergeMetadata(sub.metadata, metadata);
+  let prorationInvoice: InvoiceRec | null = null;
+  if (prorations.length && prorationBehavior === 'always_invoice') {
+    prorationInvoice = issueInvoice(store, sub, 'subscription_update', [...(sub.pending_prorations ?? []), ...prorations], true);
+    sub.pending_prorations = [];
+    sub.latest_invoice = prorationInvoice.id;
+  } else if (prorations.length) {
+    sub.pending_prorations = [...(sub.pending_prorations ?? []), ...prorations];
+  }
   if (cancelAtPeriodEnd !== undefined && cancelAtPeriodEnd !== sub.cancel_at_period_end) {
     sub.cancel_at_period_end = cancelAtPeriodEnd;
     // Stripe stamps canceled_at when the cancellation is scheduled and clears it when it is withdrawn.
@@ -205,6 +263,7 @@ export function updateSubscription(store: Store, id: string, p: Params): Json {
   }
   const out = renderSubscription(store, sub);
   emitUpdated(store, 'customer.subscription.updated', before, out);
+  if (prorationInvoice) emit(store, 'invoice.paid', renderInvoice(store, prorationInvoice));
   return out;
 }
 

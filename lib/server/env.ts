@@ -12,27 +12,53 @@ const envSchema = z.object({
   MAIL_FROM: z.string().default('Tidewarden <no-reply@tidewarden.invalid>'),
   // The SMTP fake's HTTP side (dev inbox); absent in production.
   FAKE_MAIL_API: z.url().optional(),
-  STRIPE_SECRET_KEY: z.string().default('sk_test_tidewarden_local'),
+  // Payment settings. The local defaults below are the demo keys the Stripe fake accepts; production
+  // has no defaults (see the refinement): it must be given keys of its own.
+  STRIPE_SECRET_KEY: z.string().trim().optional(),
   STRIPE_API_HOST: z.string().optional(),
   STRIPE_API_PORT: z.coerce.number().int().optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
-  STRIPE_WEBHOOK_SECRET: z.string().default('whsec_tidewarden_local'),
+  STRIPE_WEBHOOK_SECRET: z.string().trim().optional(),
 });
 
-export type Env = z.infer<typeof envSchema>;
+/** The demo keys of the local payment fake; accepted everywhere but in production. */
+export const DEMO_STRIPE_SECRET_KEY = 'sk_test_tidewarden_local';
+export const DEMO_STRIPE_WEBHOOK_SECRET = 'whsec_tidewarden_local';
+
+const withPaymentKeys = envSchema
+  .superRefine((env, ctx) => {
+    if (env.TIDEWARDEN_ENV !== 'production') return;
+    // In production an unset or demo key would silently bill nobody or accept forged webhooks: refuse to start.
+    if (!env.STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'it must be set in production (the secret key of your payment account).' });
+    else if (env.STRIPE_SECRET_KEY === DEMO_STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'it is the demo key of the local payment fake; production needs the secret key of your payment account.' });
+    if (!env.STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: "it must be set in production (the signing secret of the payment service's webhook endpoint)." });
+    else if (env.STRIPE_WEBHOOK_SECRET === DEMO_STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: "it is the demo secret of the local payment fake; production needs the signing secret of your webhook endpoint." });
+  })
+  .transform((env) => ({
+    ...env,
+    STRIPE_SECRET_KEY: env.STRIPE_SECRET_KEY || DEMO_STRIPE_SECRET_KEY,
+    STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET || DEMO_STRIPE_WEBHOOK_SECRET,
+  }));
+
+export type Env = z.infer<typeof withPaymentKeys>;
 
 let cached: Env | undefined;
 
 export class EnvError extends Error {}
 
-export function getEnv(): Env {
-  if (cached) return cached;
-  const parsed = envSchema.safeParse(process.env);
+/** Validates an environment (process.env by default); throws an EnvError naming the first bad variable. */
+export function parseEnv(source: Record<string, string | undefined>): Env {
+  const parsed = withPaymentKeys.safeParse(source);
   if (!parsed.success) {
     const first = parsed.error.issues[0];
     throw new EnvError(`Environment variable ${String(first?.path[0] ?? '?')} is invalid: ${first?.message}`);
   }
-  cached = parsed.data;
+  return parsed.data;
+}
+
+export function getEnv(): Env {
+  if (cached) return cached;
+  cached = parseEnv(process.env);
   return cached;
 }
 

@@ -102,16 +102,24 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
     expect(refused.message).toMatch(/Harbour plan covers 3/);
   });
 
-  it('a declined card leaves the subscription as it was', async () => {
-    const before = await reload();
-    const url = await runAs(ctx(), (c) => startCheckout(c, { plan: 'armada' }));
+  it('a declined card leaves the organisation as it was', async () => {
+    const fresh = await makeOrgWithRoles(await getEm(), 'Declined Card Marine');
+    const owner = await ctxFor(await getEm(), fresh.organisation, fresh.users.owner);
+    const t = Math.floor(Date.now() / 1000) - 1;
+    const url = await runAs(owner, (c) => startCheckout(c, { plan: 'armada' }));
     const declined = await pay(url, '4000000000000002');
     expect(declined.status).toBe(402);
     expect(await declined.text()).toContain('Your card was declined.');
-    await deliverAll(before.stripeCustomerId!, since);
-    const after = await reload();
-    expect(after.plan).toBe('harbour');
-    expect(after.stripeSubscriptionId).toBe(before.stripeSubscriptionId);
+    const customer = (await (await getEm()).findOneOrFail(OrganisationSchema, { id: fresh.organisation.id })).stripeCustomerId!;
+    await deliverAll(customer, t);
+    const after = await (await getEm()).findOneOrFail(OrganisationSchema, { id: fresh.organisation.id });
+    expect([after.plan, after.stripeSubscriptionId, after.subscriptionStatus]).toEqual([null, null, 'trialing']);
+  });
+
+  it('with a live subscription another plan is not sold through a second checkout', async () => {
+    const refused = await runAs(ctx(), (c) => startCheckout(c, { plan: 'armada' })).catch((e) => e);
+    expect(refused.code).toBe('conflict');
+    expect((await reload()).plan).toBe('harbour');
   });
 
   it('cancelling at period end keeps it active until then; events out of order still leave the current state', async () => {

@@ -1,9 +1,15 @@
 'use server';
 import { redirect } from 'next/navigation';
 import { orgAction, formObject } from '@/lib/server/action';
-import { openPortal, setCancelAtPeriodEnd, startCheckout } from '@/lib/server/services/billing/manage-subscription';
+import { changePlan, hasLiveSubscription, openPortal, setCancelAtPeriodEnd, startCheckout } from '@/lib/server/services/billing/manage-subscription';
+import { PLANS } from '@/lib/billing/plans';
 
+// A plan chosen while a subscription is live changes that subscription (prorated); otherwise it opens a checkout.
 export const checkoutAction = orgAction('billing:manage', async (ctx, formData) => {
+  if (hasLiveSubscription(ctx.organisation)) {
+    const { to } = await changePlan(ctx, formObject(formData));
+    return { ok: true, message: `The plan is now ${PLANS[to].name}. The difference for the rest of this period is invoiced now.` };
+  }
   redirect(await startCheckout(ctx, formObject(formData)));
 });
 

@@ -2,7 +2,8 @@ import type { Metadata } from 'next';
 import { format } from 'date-fns';
 import { getPageOrgContextWith } from '@/lib/server/page-context';
 import { organisationReadOnlyReason } from '@/lib/server/org-context';
-import { confirmCheckout, getBillingOverview } from '@/lib/server/services/billing/manage-subscription';
+import { confirmCheckout, getBillingOverview, hasLiveSubscription } from '@/lib/server/services/billing/manage-subscription';
+import { checkSubscriptionNow } from '@/lib/server/services/billing/reconcile-subscription';
 import { PLAN_IDS, PLANS, STATUS_WORDS, TRIAL_PLAN, assetLimitOf } from '@/lib/billing/plans';
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
@@ -19,7 +20,11 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
   if (checkout === 'success' && sessionId) {
     await confirmCheckout(ctx, sessionId).catch((error) => console.error('[tidewarden] checkout confirmation failed', error instanceof Error ? error.message : error));
   }
+  // The subscription is read back from the payment service (a short time-out); if it does not answer, the
+  // last known state is shown and the page says so.
+  const { checked } = await checkSubscriptionNow(ctx);
   const o = ctx.organisation;
+  const live = hasLiveSubscription(o);
   const [{ invoices, invoicesError }, activeAssets] = await Promise.all([getBillingOverview(ctx), countActiveAssets(ctx)]);
   const readOnly = organisationReadOnlyReason(o);
   const limit = assetLimitOf({ plan: o.plan ?? null, subscriptionStatus: o.subscriptionStatus, trialEndsAt: o.trialEndsAt ?? null, stripeSubscriptionId: o.stripeSubscriptionId ?? null, pastDueSince: o.pastDueSince ?? null });
@@ -30,6 +35,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
     <>
       <PageHeader title="Billing" subtitle="Tidewarden is priced by the number of active vessels and structures. Payments go through the payment service; we never see card numbers." />
       {checkout === 'success' ? <p role="status" className="mb-4 rounded-[3px] border border-state-sound/40 bg-state-soundbg px-3 py-2 text-sm text-state-sound">Thank you: the payment went through and the plan is recorded below.</p> : null}
+      {!checked ? <p role="alert" className="mb-4 rounded-[3px] border border-rule bg-paper-sunk px-3 py-2 text-sm">The payment service did not answer, so the subscription could not be checked just now. This is the last known state.</p> : null}
       {checkout === 'cancelled' ? <p role="status" className="mb-4 rounded-[3px] border border-rule bg-paper-sunk px-3 py-2 text-sm">Checkout was cancelled; nothing changed.</p> : null}
       <div className="grid items-start gap-4 xl:grid-cols-[24rem_minmax(0,1fr)]">
         <Panel title="Subscription">
@@ -75,7 +81,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <h3 className="text-lg font-semibold text-tide-700">{plan.name}</h3>
                     <p className="text-sm text-ink-soft">{plan.summary}</p>
                     <p className="num text-left text-xl font-semibold">€{plan.monthlyPriceEur} <span className="text-xs font-normal text-ink-soft">per month</span></p>
-                    <ChoosePlanButton org={org} plan={id} current={current} label={`Choose ${plan.name}`} />
+                    <ChoosePlanButton org={org} plan={id} current={current} change={live} label={live ? `Change to ${plan.name}` : `Choose ${plan.name}`} />
                   </section>
                 );
               })}

@@ -1,8 +1,10 @@
 import type Stripe from 'stripe';
-import type { EntityManager } from '@mikro-orm/postgresql';
+import { LockMode, type EntityManager } from '@mikro-orm/postgresql';
 import { OrganisationSchema, type Organisation } from '@/entities';
 import { auditEvent } from '../../audit';
 import { getStripe } from '../../billing/stripe';
+import { isUuid } from '../../ids';
+import { LIVE_SUBSCRIPTION_STATUSES } from './reconcile-subscription';
 import { syncSubscription } from './sync-subscription';
 
 export type EventOutcome = 'applied' | 'ignored' | 'duplicate';
@@ -25,12 +27,15 @@ export async function applyStripeEvent(em: EntityManager, event: Stripe.Event): 
 
     const object = event.data.object as unknown as Record<string, unknown> & { customer?: string | null };
     let org: Organisation | null = null;
+    // The organisation's row is locked before the subscription is read back, so that a reconciliation
+    // pass running at the same moment cannot write an older reading over this one (or this over its).
+    const locked = { lockMode: LockMode.PESSIMISTIC_WRITE } as const;
     if (event.type === 'checkout.session.completed') {
       const session = event.data.object as Stripe.Checkout.Session;
-      org = session.client_reference_id ? await tx.findOne(OrganisationSchema, { id: session.client_reference_id }) : null;
+      org = session.client_reference_id && isUuid(session.client_reference_id) ? await tx.findOne(OrganisationSchema, { id: session.client_reference_id }, locked) : null;
       if (org && !org.stripeCustomerId) org.stripeCustomerId = customerOf(session);
     }
-    org ??= customerOf(object) ? await tx.findOne(OrganisationSchema, { stripeCustomerId: customerOf(object)! }) : null;
+    org ??= customerOf(object) ? await tx.findOne(OrganisationSchema, { stripeCustomerId: customerOf(object)! }, locked) : null;
 
     let outcome: EventOutcome = 'ignored';
     let detail: string | null = null;
@@ -41,9 +46,11 @@ export async function applyStripeEvent(em: EntityManager, event: Stripe.Event): 
       const newId = typeof session.subscription === 'string' ? session.subscription : session.subscription?.id;
       if (newId) {
         const previous = org.stripeSubscriptionId;
+        const previousLive = Boolean(previous) && LIVE_SUBSCRIPTION_STATUSES.includes(org.subscriptionStatus);
         await syncSubscription(org, newId);
-        // A plan change through checkout leaves the old subscription behind: end it now, without a refund prompt.
-        if (previous && previous !== newId) {
+        // Checkout is offered only without a live subscription, and only the newest checkout can be paid; should
+        // one still complete beside a live subscription, the older one is ended so that one subscription bills.
+        if (previous && previousLive && previous !== newId) {
           await getStripe().subscriptions.cancel(previous).catch((error: unknown) => console.error('[tidewarden] could not end the replaced subscription', previous, error instanceof Error ? error.message : error));
         }
         outcome = 'applied';
