@@ -17,6 +17,7 @@ import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema } from './sur
 import { StripeEventSchema } from './stripe-event.entity';
 import { DockingSchema } from './docking.entity';
 import { RenewalSchema } from './renewal.entity';
+import { IdempotencyKeySchema } from './idempotency-key.entity';
 
 export * from './user.entity';
 export * from './session.entity';
@@ -36,6 +37,7 @@ export * from './survey.entity';
 export * from './stripe-event.entity';
 export * from './docking.entity';
 export * from './renewal.entity';
+export * from './idempotency-key.entity';
 
 export const allEntities = [
   UserSchema,
@@ -58,5 +60,6 @@ export const allEntities = [
   SurveyAttachmentSchema,
   StripeEventSchema,
   DockingSchema,
+  IdempotencyKeySchema,
   RenewalSchema,
 ];
