@@ -152,6 +152,17 @@ describe('a double submit (one form, one key) is done once and both callers get 
     for (const o of outcomes) expect(o.state).toEqual({ ok: true, message: `Invitation to ${email} queued for sending. The link expires in 7 days.` });
   });
 
+  it('a public action (a new organisation): one organisation, the same redirect', async () => {
+    const { createOrganisationAction } = await import('@/app/orgs/actions');
+    await signInAs(home.users.owner);
+    const name = unique('Double Marine');
+    const idempotencyKey = randomUUID();
+    const outcomes = await atOnce(4, () => invoke(() => createOrganisationAction({ ok: false }, formDataOf({ name, idempotencyKey }))));
+    expect(await count(`select count(*) as n from organisation where name = ?`, [name])).toBe(1);
+    const [org] = await (await getEm()).execute<{ slug: string }[]>(`select slug from organisation where name = ?`, [name]);
+    for (const o of outcomes) expect(o).toEqual({ redirect: `/o/${org!.slug}` });
+  });
+
   it('a JSON request to a route handler with one Idempotency-Key: one asset, the same answer', async () => {
     const { POST } = await import('@/app/api/orgs/[org]/assets/route');
     await signInAs(home.users.engineer);
