@@ -8,7 +8,7 @@ test('a docking form submitted twice at once plans one docking', async ({ page }
   await page.goto(`/o/${demo.organisation.slug}/dockings`);
   const yard = `Double Click Yard ${Date.now().toString(36)}`;
   const panel = page.locator('form').filter({ has: page.getByRole('button', { name: 'Plan it' }) }).first();
-  await panel.getByLabel('Vessel or structure').selectOption({ index: 1 });
+  await panel.getByLabel('Vessel or structure').selectOption({ label: 'Brindlemoor (vessel)' });
   await panel.getByLabel('Planned start').fill('2031-05-04');
   await panel.getByLabel('Yard or contractor').fill(yard);
   // The key is made in the browser once the page is hydrated.
