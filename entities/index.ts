@@ -18,6 +18,7 @@ import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema } from './sur
 import { StripeEventSchema } from './stripe-event.entity';
 import { DockingSchema } from './docking.entity';
 import { RenewalSchema } from './renewal.entity';
+import { IdempotencyKeySchema } from './idempotency-key.entity';
 
 export * from './user.entity';
 export * from './session.entity';
@@ -38,6 +39,7 @@ export * from './survey.entity';
 export * from './stripe-event.entity';
 export * from './docking.entity';
 export * from './renewal.entity';
+export * from './idempotency-key.entity';
 
 export const allEntities = [
   UserSchema,
@@ -60,6 +62,7 @@ export const allEntities = [
   SurveyAttachmentSchema,
   StripeEventSchema,
   DockingSchema,
+  IdempotencyKeySchema,
   RenewalSchema,
   WorkerHeartbeatSchema,
 ];

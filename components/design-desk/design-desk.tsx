@@ -6,6 +6,7 @@ import type { DeskComputed } from '@/lib/client/desk-calculation';
 import { useDeskCalculation } from '@/lib/client/use-desk-calculation';
 import { saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
+import { IDEMPOTENCY_FIELD, useIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Caution, Panel } from '@/components/ui/panel';
 import { JobFields } from './job-fields';
 import { ZonesTable } from './zones-table';
@@ -39,6 +40,8 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   const [dirty, setDirty] = useState(false);
   const [saveState, setSaveState] = useState<{ ok: boolean; message: string; fieldErrors?: Record<string, string[]> } | null>(null);
   const [saving, startSave] = useTransition();
+  // One key per save: a double click saves once.
+  const saveKey = useIdempotencyKey();
   const { computed, fieldErrors: computeErrors, message: computeMessage, computing } = useDeskCalculation({ org, designId, inputs, initialInputs, initialComputed });
   // A refused save's field messages stand until the next edit; then the recompute's do.
   const fieldErrors = saveState?.fieldErrors ?? computeErrors;
@@ -58,7 +61,8 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
 
   const save = () =>
     startSave(async () => {
-      const answer = await saveDesignAction(org, { designId, title, inputs });
+      const answer = await saveDesignAction(org, { designId, title, inputs, [IDEMPOTENCY_FIELD]: saveKey.current() });
+      saveKey.renew();
       if (answer.ok) {
         setDirty(false);
         setSaveState({ ok: true, message: `Draft saved ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.` });

@@ -2,6 +2,7 @@
 import { useRef, useState, useTransition } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
+import { IDEMPOTENCY_HEADER, useIdempotencyKey } from '@/lib/client/idempotency-key';
 
 /** Attaches a JPEG/PNG photo or a PDF report (at most 10 MB); the type is checked from the file's content. */
 export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: string }) {
@@ -9,6 +10,8 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
   const form = useRef<HTMLFormElement>(null);
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [pending, start] = useTransition();
+  // One key per upload: a double submit is stored once.
+  const uploadKey = useIdempotencyKey();
   return (
     <form
       ref={form}
@@ -19,7 +22,8 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
         const file = data.get('file');
         if (!(file instanceof File) || !file.size) return setMessage({ ok: false, text: 'Choose a photo or a PDF first.' });
         start(async () => {
-          const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/attachments`, { method: 'POST', body: data });
+          const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/attachments`, { method: 'POST', body: data, headers: { [IDEMPOTENCY_HEADER]: uploadKey.current() } });
+          uploadKey.renew();
           const body = await res.json().catch(() => null);
           if (res.ok) {
             setMessage({ ok: true, text: `${body.attachment.filename} attached.` });

@@ -2,6 +2,7 @@
 import { useRef, useState, useTransition } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
+import { IDEMPOTENCY_HEADER, useIdempotencyKey } from '@/lib/client/idempotency-key';
 import { SelectField } from '@/components/ui/field';
 import { ELECTRODE_OPTIONS } from './new-survey-form';
 
@@ -11,6 +12,8 @@ export function CsvUpload({ org, surveyId }: { org: string; surveyId: string }) 
   const form = useRef<HTMLFormElement>(null);
   const [result, setResult] = useState<{ ok: boolean; message: string; lines?: string[] } | null>(null);
   const [pending, start] = useTransition();
+  // One key per upload: a double submit is stored once.
+  const uploadKey = useIdempotencyKey();
   const submit = (event: React.FormEvent<HTMLFormElement>) => {
     event.preventDefault();
     const data = new FormData(event.currentTarget);
@@ -20,7 +23,8 @@ export function CsvUpload({ org, surveyId }: { org: string; surveyId: string }) 
       return;
     }
     start(async () => {
-      const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/readings`, { method: 'POST', body: data });
+      const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/readings`, { method: 'POST', body: data, headers: { [IDEMPOTENCY_HEADER]: uploadKey.current() } });
+      uploadKey.renew();
       const body = await res.json().catch(() => null);
       if (res.ok) {
         setResult({ ok: true, message: `${body.imported} readings imported${body.underProtected ? `; ${body.underProtected} under-protected (the engineers have been told)` : ''}.` });

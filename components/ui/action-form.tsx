@@ -1,7 +1,8 @@
 'use client';
-import { useActionState } from 'react';
+import { useActionState, useCallback, useEffect, useState } from 'react';
 import type { ActionState } from '@/lib/server/action';
 import { useInvalidateOnSuccess } from '@/lib/client/use-invalidate-on-success';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { FormMessage } from './field';
 
 /** A server action as a form runs it: an organisation action with its slug bound (`action.bind(null, org)`), or a public one. */
@@ -23,6 +24,11 @@ export interface BoundForm {
   /** The values typed before a refused submit (never passwords), else `initial`. */
   values: Record<string, string | undefined>;
   errors: (name: string) => string[] | undefined;
+  /**
+   * The key this submit carries (a hidden field): the same for a double click or a browser retry, so the
+   * server writes once and answers both with the first result; renewed once a submit has been answered.
+   */
+  idempotencyKey: string;
   /** name, kept value and errors for a Field or SelectField: `<Field label="…" {...form.field('yard')} />`. */
   field: (name: string, fallback?: string) => { name: string; defaultValue: string | undefined; errors: string[] | undefined };
 }
@@ -33,15 +39,27 @@ export interface BoundForm {
  * cached lists to refresh.
  */
 export function useBoundAction(bound: BoundAction, { initial = {}, invalidate = [] }: Options = {}): BoundForm {
-  const [state, action, pending] = useActionState(bound, { ok: false });
+  const [state, dispatch, pending] = useActionState(bound, { ok: false });
   useInvalidateOnSuccess(state, ...invalidate);
+  // Made in the browser (never during the server render, so the page hydrates as rendered); a new one for
+  // each answered submit, so a deliberate second submit is a new write.
+  const [idempotencyKey, setIdempotencyKey] = useState('');
+  useEffect(() => setIdempotencyKey(newIdempotencyKey()), [state]);
+  // Every form wired here carries the key, whether or not it renders the hidden field.
+  const action = useCallback(
+    (formData: FormData) => {
+      if (!formData.get(IDEMPOTENCY_FIELD)) formData.set(IDEMPOTENCY_FIELD, idempotencyKey || newIdempotencyKey());
+      dispatch(formData);
+    },
+    [dispatch, idempotencyKey],
+  );
   const values = state.values ?? initial;
   const errors = (name: string) => state.fieldErrors?.[name];
-  return { state, action, pending, values, errors, field: (name, fallback) => ({ name, defaultValue: values[name] ?? fallback, errors: errors(name) }) };
+  return { state, action, pending, idempotencyKey, values, errors, field: (name, fallback) => ({ name, defaultValue: values[name] ?? fallback, errors: errors(name) }) };
 }
 
 interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>, 'action'> {
-  form: Pick<BoundForm, 'state' | 'action'>;
+  form: Pick<BoundForm, 'state' | 'action'> & { idempotencyKey?: string };
   /** Wraps the message in a div with this class (e.g. a column span in a grid form). */
   messageClassName?: string;
 }
@@ -51,6 +69,7 @@ export function ActionForm({ form, messageClassName, children, ...props }: Actio
   const message = <FormMessage state={form.state} />;
   return (
     <form action={form.action} {...props}>
+      {form.idempotencyKey ? <input type="hidden" name={IDEMPOTENCY_FIELD} value={form.idempotencyKey} readOnly /> : null}
       {messageClassName ? <div className={messageClassName}>{message}</div> : message}
       {children}
     </form>

@@ -1,4 +1,5 @@
 import { QueryClient } from '@tanstack/react-query';
+import { IDEMPOTENCY_HEADER, newIdempotencyKey } from './idempotency-key';
 
 export function makeQueryClient() {
   return new QueryClient({ defaultOptions: { queries: { staleTime: 15_000, retry: 1, refetchOnWindowFocus: false } } });
@@ -27,9 +28,19 @@ export class ApiError extends Error {
   }
 }
 
-/** fetch JSON from our own API; errors arrive in the one shape the server uses. */
-export async function fetchJson<T>(url: string, init?: RequestInit): Promise<T> {
-  const res = await fetch(url, { ...init, headers: { 'content-type': 'application/json', ...(init?.headers ?? {}) } });
+const UNSAFE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
+/**
+ * fetch JSON from our own API; errors arrive in the one shape the server uses. An unsafe request carries an
+ * Idempotency-Key: pass `idempotencyKey` (one per logical write, the same for its retries, e.g. from
+ * useIdempotencyKey) or one is made for this call.
+ */
+export async function fetchJson<T>(url: string, init?: RequestInit & { idempotencyKey?: string }): Promise<T> {
+  const { idempotencyKey, ...rest } = init ?? {};
+  const headers = new Headers(rest.headers);
+  if (!headers.has('content-type')) headers.set('content-type', 'application/json');
+  if (UNSAFE_METHODS.has((rest.method ?? 'GET').toUpperCase()) && !headers.has(IDEMPOTENCY_HEADER)) headers.set(IDEMPOTENCY_HEADER, idempotencyKey ?? newIdempotencyKey());
+  const res = await fetch(url, { ...rest, headers });
   const body = await res.json().catch(() => null);
   if (!res.ok) throw new ApiError(res.status, body?.error?.message ?? `Request failed (${res.status}).`, body?.error?.fieldErrors);
   return body as T;

@@ -16,3 +16,17 @@ export async function inSequence<T extends readonly (() => Promise<unknown>)[]>(
   for (const step of steps) results.push(await step());
   return results as { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
 }
+
+const LOCKABLE = new Set(['organisation', 'asset', 'anode_group', 'renewal']);
+
+/**
+ * Locks one row until the transaction ends, so a check and the write that relies on it happen one request
+ * at a time: a second request waits here, then reads what the first committed. `for no key update` conflicts
+ * with itself but not with the key-share locks that inserts referring to the row take, so other writes of
+ * the organisation go on. Runs through em.execute, in the caller's transaction. Returns whether the row exists.
+ */
+export async function lockRow(em: { execute: (sql: string, params: unknown[]) => Promise<unknown> }, table: 'organisation' | 'asset' | 'anode_group' | 'renewal', id: string): Promise<boolean> {
+  if (!LOCKABLE.has(table)) throw new Error(`lockRow: ${table} is not a lockable table`);
+  const rows = (await em.execute(`select id from "${table}" where id = ? for no key update`, [id])) as unknown[];
+  return rows.length > 0;
+}

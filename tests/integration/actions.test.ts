@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
@@ -560,6 +561,20 @@ describe('organisation server actions, as the browser calls them', () => {
           const after = await tableFingerprint(c.table);
           if (c.writes === false) expect(after).toBe(before);
           else expect(after).not.toBe(before);
+        });
+      }
+
+      if (c.writes !== false) {
+        it('sent twice with one idempotency key (a double submit): the repeat gets the first result and writes nothing', async () => {
+          const role = permitted[0];
+          const input = { ...(await c.input(role)), idempotencyKey: randomUUID() };
+          await signInAs(orgOf(c).users[role]);
+          const first = await callOrgAction(c, orgOf(c).organisation.slug, input);
+          expect(first.redirect ?? first.state?.ok, JSON.stringify(first)).toBeTruthy();
+          const before = await databaseFingerprint();
+          const repeat = await callOrgAction(c, orgOf(c).organisation.slug, input);
+          expect(repeat).toEqual(first);
+          expect(await databaseFingerprint()).toEqual(before);
         });
       }
     });

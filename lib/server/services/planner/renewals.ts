@@ -4,11 +4,15 @@ import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDockingOrThrow } from './dockings';
-import { uuidOrNotFound } from '../../ids';
+import { isUuid, uuidOrNotFound } from '../../ids';
 import { compareDateOnly, todayDateOnly } from '@/lib/dates/date-only';
+import { lockRow } from '../../sql';
 
+// Every step locks the renewal first: two steps at the same moment (a double click on "fitted") run one
+// after the other, and the second sees the status the first left.
 async function getRenewalOrThrow(ctx: OrgContext, renewalId: string) {
   uuidOrNotFound(renewalId, 'Renewal');
+  await lockRow(ctx.em, 'renewal', renewalId);
   const renewal = await ctx.em.findOne(RenewalSchema, { id: renewalId, organisation: ctx.organisation }, { populate: ['group', 'group.zone', 'docking', 'docking.asset'] });
   if (!renewal) throw notFound('Renewal');
   return renewal;
@@ -70,6 +74,11 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
   if (fittedOn < r.group.installedOn) throw new AppError('invalid', 'The fitting date is before the old anodes were installed.', { fittedOn: ['The fitting date is before the old anodes were installed.'] });
   if (compareDateOnly(fittedOn, todayDateOnly()) > 0) throw new AppError('invalid', 'The fitting date cannot be in the future.', { fittedOn: ['The fitting date cannot be in the future.'] });
   const old = r.group;
+  // The old group is closed in the database before the new one (same label) is inserted at the flush:
+  // a label names one fitted group per asset.
+  old.removedOn = fittedOn;
+  old.removalReason = `Renewed at the docking of ${r.docking.actualStart ?? r.docking.plannedStart}`;
+  await ctx.em.nativeUpdate(AnodeGroupSchema, { id: old.id }, { removedOn: old.removedOn, removalReason: old.removalReason });
   const fresh = ctx.em.create(AnodeGroupSchema, {
     organisation: ctx.organisation,
     asset: old.asset,
@@ -86,8 +95,6 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
     replacesGroupId: old.id,
     notes: r.notes ?? null,
   });
-  old.removedOn = fittedOn;
-  old.removalReason = `Renewed at the docking of ${r.docking.actualStart ?? r.docking.plannedStart}`;
   r.status = 'fitted';
   r.fittedOn = fittedOn;
   r.newGroupId = fresh.id;
@@ -111,6 +118,8 @@ export async function addRenewal(ctx: OrgContext, dockingId: string, input: unkn
   const docking = await getDockingOrThrow(ctx, dockingId);
   if (docking.status !== 'planned') throw new AppError('conflict', 'Renewals are booked on planned dockings.');
   const data = manualRenewalSchema.parse(input);
+  // One booking per group: a second booking at the same moment waits here and then finds the first.
+  if (isUuid(data.groupId)) await lockRow(ctx.em, 'anode_group', data.groupId);
   const group = await ctx.em.findOne(AnodeGroupSchema, { id: data.groupId, asset: docking.asset, removedOn: null });
   if (!group) throw new AppError('invalid', 'Choose a fitted group of this asset.', { groupId: ['Choose a fitted group of this asset.'] });
   const open = await ctx.em.findOne(RenewalSchema, { group, status: { $in: ['confirmed', 'ordered'] } });

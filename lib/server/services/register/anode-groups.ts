@@ -8,6 +8,7 @@ import { getAssetOrThrow } from '../assets/get-asset';
 import type { StoredResults } from '@/lib/schemas/design-record';
 import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-models';
 import { uuidOrNotFound } from '../../ids';
+import { lockRow } from '../../sql';
 import { readDesignResults } from '../designs/read-design-record';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
@@ -51,6 +52,8 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
   if (data.zoneId && !zone) throw new AppError('invalid', 'That zone is not on this asset.', { zoneId: ['Choose a zone of this asset.'] });
   const design = data.designId ? await ctx.em.findOne(DesignSchema, { id: data.designId, asset }) : null;
   if (data.designId && !design) throw new AppError('invalid', 'That design is not for this asset.', { designId: ['Choose a design of this asset.'] });
+  // Groups are added to one asset one request at a time, so two at the same moment cannot both find the label free.
+  await lockRow(ctx.em, 'asset', asset.id);
   await assertLabelFree(ctx, asset.id, data.label);
   const model = await resolveAnodeModel(ctx, data.anodeModelKey);
   const meanCurrentA = data.meanCurrentA ?? (design ? shareOfDesignCurrent(readDesignResults(design), zone?.name ?? null, data.quantity) : null);

@@ -10,6 +10,7 @@ import { getEnv } from '../../env';
 import { ROLE_LABELS } from '../../permissions';
 import { invitationMailKey } from '@/lib/words/mail-delivery';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { lockRow } from '../../sql';
 
 export const INVITATION_DAYS = 7;
 
@@ -17,6 +18,8 @@ export async function inviteMember(ctx: OrgContext, input: unknown) {
   requirePermission(ctx, 'team:manage');
   const { email, role } = inviteMemberSchema.parse(input);
   const { em, organisation } = ctx;
+  // Invitations of one organisation are made one at a time: one live invitation per address (also a unique index).
+  await lockRow(em, 'organisation', organisation.id);
   const existingUser = await em.findOne(UserSchema, { email });
   if (existingUser && (await em.count(MembershipSchema, { organisation, user: existingUser }))) {
     throw new AppError('conflict', 'That person is already a member.', { email: ['That person is already a member of this organisation.'] });
