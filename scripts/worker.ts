@@ -11,10 +11,11 @@ import { queueDockingReminders } from '../lib/server/services/reminders/docking-
 import { queueWeeklyDigests } from '../lib/server/services/reminders/weekly-digest';
 import { forgetStaleWorkers, newWorkerIdentity, recordHeartbeat } from '../lib/server/worker-status';
 import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconcile-subscription';
+import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
-export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest', billing: 'billing-reconcile' } as const;
+export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest', billing: 'billing-reconcile', housekeeping: 'housekeeping' } as const;
 
 async function main() {
   const env = getEnv();
@@ -43,6 +44,12 @@ async function main() {
     if (changed || failed) console.log(`[worker] subscriptions reconciled: ${checked} checked, ${changed} repaired, ${failed} could not be checked`);
   });
   await boss.send(JOBS.billing, {}, { singletonKey: 'startup', singletonSeconds: 60 });
+  // Housekeeping: idempotency keys older than their window (48 h) answer no repeat any more.
+  await boss.schedule(JOBS.housekeeping, '17 * * * *', {}, { tz: 'UTC' });
+  await boss.work(JOBS.housekeeping, async () => {
+    const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());
+    if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
+  });
 
   let stopping = false;
   const stop = async () => {

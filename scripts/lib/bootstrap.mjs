@@ -293,9 +293,17 @@ export function buildIfStale(distDir, env) {
     return;
   }
   say(`Building the app into ${distDir} (next build)...`);
-  runOrFail(process.execPath, [path.join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'build'], 'next build failed; see the errors above.', {
-    env: { ...env, TIDEWARDEN_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: '1' },
-  });
+  // next build adds its dist folder's type paths to tsconfig.json; a developer's own dist folder must not
+  // leave the checked-in file changed.
+  const tsconfig = path.join(root, 'tsconfig.json');
+  const tsconfigBefore = fs.readFileSync(tsconfig, 'utf8');
+  try {
+    runOrFail(process.execPath, [path.join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'build'], 'next build failed; see the errors above.', {
+      env: { ...env, TIDEWARDEN_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: '1' },
+    });
+  } finally {
+    if (fs.readFileSync(tsconfig, 'utf8') !== tsconfigBefore) fs.writeFileSync(tsconfig, tsconfigBefore);
+  }
 }
 
 export function startNext(distDir, port, env) {
