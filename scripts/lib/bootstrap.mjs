@@ -297,12 +297,16 @@ export function buildIfStale(distDir, env) {
   // leave the checked-in file changed.
   const tsconfig = path.join(root, 'tsconfig.json');
   const tsconfigBefore = fs.readFileSync(tsconfig, 'utf8');
+  const tsconfigStat = fs.statSync(tsconfig);
   try {
     runOrFail(process.execPath, [path.join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'build'], 'next build failed; see the errors above.', {
       env: { ...env, TIDEWARDEN_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: '1' },
     });
   } finally {
-    if (fs.readFileSync(tsconfig, 'utf8') !== tsconfigBefore) fs.writeFileSync(tsconfig, tsconfigBefore);
+    if (fs.readFileSync(tsconfig, 'utf8') !== tsconfigBefore) {
+      fs.writeFileSync(tsconfig, tsconfigBefore);
+      fs.utimesSync(tsconfig, tsconfigStat.atime, tsconfigStat.mtime);
+    }
   }
 }
 
