@@ -7,7 +7,6 @@ import { InvitationSchema } from './invitation.entity';
 import { UserTokenSchema } from './user-token.entity';
 import { OutboxMessageSchema } from './outbox-message.entity';
 import { AuditEventSchema } from './audit-event.entity';
-import { SignInAttemptSchema } from './sign-in-attempt.entity';
 import { AssetSchema } from './asset.entity';
 import { ZoneSchema } from './zone.entity';
 import { AnodeModelSchema } from './anode-model.entity';
@@ -26,7 +25,6 @@ export * from './invitation.entity';
 export * from './user-token.entity';
 export * from './outbox-message.entity';
 export * from './audit-event.entity';
-export * from './sign-in-attempt.entity';
 export * from './asset.entity';
 export * from './zone.entity';
 export * from './anode-model.entity';
@@ -46,7 +44,6 @@ export const allEntities = [
   UserTokenSchema,
   OutboxMessageSchema,
   AuditEventSchema,
-  SignInAttemptSchema,
   AssetSchema,
   ZoneSchema,
   AnodeModelSchema,

@@ -8,6 +8,7 @@ import { Migration20261202003500_design_record } from './Migration20261202003500
 import { Migration20261202011500_demand_method } from './Migration20261202011500_demand_method';
 import { Migration20261203090000_asset_survey_criteria } from './Migration20261203090000_asset_survey_criteria';
 import { Migration20261203100000_renewal_threshold } from './Migration20261203100000_renewal_threshold';
+import { Migration20261204200000_rate_limit } from './Migration20261204200000_rate_limit';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -20,4 +21,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261202011500_demand_method', class: Migration20261202011500_demand_method },
   { name: 'Migration20261203090000_asset_survey_criteria', class: Migration20261203090000_asset_survey_criteria },
   { name: 'Migration20261203100000_renewal_threshold', class: Migration20261203100000_renewal_threshold },
+  { name: 'Migration20261204200000_rate_limit', class: Migration20261204200000_rate_limit },
 ];

@@ -9,6 +9,7 @@ import { audit } from '../../audit';
 import { getEnv } from '../../env';
 import { ROLE_LABELS } from '../../permissions';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { LIMITS, takeOrRefuse } from '../../auth/rate-limit';
 
 export const INVITATION_DAYS = 7;
 
@@ -16,6 +17,8 @@ export async function inviteMember(ctx: OrgContext, input: unknown) {
   requirePermission(ctx, 'team:manage');
   const { email, role } = inviteMemberSchema.parse(input);
   const { em, organisation } = ctx;
+  await takeOrRefuse(LIMITS.inviteAddress, ctx.ip ?? 'unknown', (wait) => `Too many invitations from your network. Wait ${wait} and try again.`);
+  await takeOrRefuse(LIMITS.inviteEmail, `${organisation.id}|${email}`, (wait) => `Too many invitations to ${email}. Wait ${wait} before sending another.`);
   const existingUser = await em.findOne(UserSchema, { email });
   if (existingUser && (await em.count(MembershipSchema, { organisation, user: existingUser }))) {
     throw new AppError('conflict', 'That person is already a member.', { email: ['That person is already a member of this organisation.'] });
