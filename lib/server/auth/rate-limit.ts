@@ -1,13 +1,14 @@
-import type { MikroORM } from '@mikro-orm/postgresql';
+import { knex, type Knex } from '@mikro-orm/knex';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { createHash } from 'node:crypto';
 import { AppError } from '../errors';
-import { getOrm } from '../db';
+import { getEnv } from '../env';
 
 /**
  * The rate limits, counted by rate-limiter-flexible in the "rate_limit" table (our migration creates it), so
- * every app instance shares them. Each count is one atomic upsert through a pooled connection of its own,
- * outside the request's transaction: a refused request still counts, although its own transaction rolls back.
+ * every app instance shares them. Each count is one atomic upsert through a small pool of its own, outside
+ * the request's transaction: a refused request still counts, although its own transaction rolls back, and a
+ * burst of requests holding every connection of the ORM's pool cannot starve the counts they wait for.
  */
 export interface LimitSpec {
   /** What the key counts, e.g. "sign-in:pair". */
@@ -42,16 +43,22 @@ export const LIMITS = {
 
 export const MAX_DELAY_SECONDS = 60;
 
-const limiters = new WeakMap<MikroORM, Map<string, RateLimiterPostgres>>();
+const globalForLimits = globalThis as unknown as { __tidewardenRateLimits?: { pool: Knex; limiters: Map<string, RateLimiterPostgres> } };
+
+function limits() {
+  globalForLimits.__tidewardenRateLimits ??= {
+    pool: knex({ client: 'pg', connection: getEnv().DATABASE_URL, pool: { min: 0, max: 4, idleTimeoutMillis: 5_000 } }),
+    limiters: new Map(),
+  };
+  return globalForLimits.__tidewardenRateLimits;
+}
 
 async function limiterFor(spec: LimitSpec) {
-  const orm = await getOrm();
-  let byPrefix = limiters.get(orm);
-  if (!byPrefix) limiters.set(orm, (byPrefix = new Map()));
-  let limiter = byPrefix.get(spec.prefix);
+  const { pool, limiters } = limits();
+  let limiter = limiters.get(spec.prefix);
   if (!limiter) {
     limiter = new RateLimiterPostgres({
-      storeClient: orm.em.getKnex(),
+      storeClient: pool,
       storeType: 'knex',
       tableName: 'rate_limit',
       tableCreated: true,
@@ -60,7 +67,7 @@ async function limiterFor(spec: LimitSpec) {
       duration: spec.seconds,
       blockDuration: spec.blockSeconds ?? 0,
     });
-    byPrefix.set(spec.prefix, limiter);
+    limiters.set(spec.prefix, limiter);
   }
   return limiter;
 }

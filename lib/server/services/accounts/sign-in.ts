@@ -29,7 +29,7 @@ async function auditLockOut(email: string, ip: string, details: Record<string, u
  * - one address across accounts: 50 failures in 15 minutes (spraying one password over many accounts);
  * - one account from anywhere: after 5 attempts in 15 minutes, one attempt per gap, the gap doubling up to
  *   a minute (a slow-down, not a lock-out).
- * Successes are given back, so only failures count.
+ * A success gives its address its count back and clears the counts of the pair and of the account.
  */
 export async function signIn({ em, input, ip }: { em: EntityManager; input: unknown; ip: string }) {
   const { email, password } = signInSchema.parse(input);
@@ -60,7 +60,7 @@ export async function signIn({ em, input, ip }: { em: EntityManager; input: unkn
   }
   await clear(LIMITS.signInPair, pairKey);
   await giveBack(LIMITS.signInAddress, ip);
-  await giveBack(LIMITS.signInAccount, email);
+  await clear(LIMITS.signInAccount, email);
   auditEvent(em, { actor: { id: user.id, email: user.email }, action: 'user.signed-in', ipAddress: ip });
   return user;
 }
