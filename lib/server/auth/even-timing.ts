@@ -1,19 +1,18 @@
 import { setTimeout as sleep } from 'node:timers/promises';
+import type { Effects } from '../unit-of-work';
 
 /**
- * Runs the work (a whole action: its transaction, commit and answer) and answers no sooner than `ms` after it
- * started, so the time taken does not tell which branch ran. The branches already do alike work (the address
- * is mailed either way); the floor hides what still differs (a row more or less). Errors and redirects wait
- * the same way. Only for forms whose answer must not reveal whether an account exists.
+ * Call first in an action whose answer must not reveal whether an account exists: once the change is
+ * committed, the answer waits until `ms` have passed since this call, so the time taken does not tell which
+ * branch ran. The branches already do alike work (the address is mailed either way); the floor hides what
+ * still differs (a row more or less, written at the flush just before the commit).
  */
-export async function answerNoSoonerThan<T>(ms: number, work: () => Promise<T>): Promise<T> {
+export function answerNoSoonerThan(effects: Effects, ms: number) {
   const started = performance.now();
-  try {
-    return await work();
-  } finally {
+  effects.onCommit(async () => {
     const left = ms - (performance.now() - started);
     if (left > 0) await sleep(left);
-  }
+  });
 }
 
 /** Sign-up hashes the password either way; a new account writes a few more rows. */
