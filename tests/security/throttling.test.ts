@@ -12,13 +12,17 @@ import { AppError } from '@/lib/server/errors';
 import type { ActionState } from '@/lib/server/action';
 import { addressFromForwardedFor } from '@/lib/server/auth/session';
 import { LIMITS } from '@/lib/server/auth/rate-limit';
-import { signIn, MAX_FAILURES_PER_ADDRESS, MAX_FAILURES_PER_PAIR, FREE_ATTEMPTS_PER_ACCOUNT } from '@/lib/server/services/accounts/sign-in';
+import { signIn } from '@/lib/server/services/accounts/sign-in';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
 import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
 import { requestHeaders } from '../fixtures/next-headers-mock';
 import { ROOT } from '../fixtures/entry-points';
+
+const MAX_FAILURES_PER_PAIR = LIMITS.signInPair.points;
+const MAX_FAILURES_PER_ADDRESS = LIMITS.signInAddress.points;
+const FREE_ATTEMPTS_PER_ACCOUNT = LIMITS.signInAccount.points;
 
 vi.mock('next/headers', async () => (await import('../fixtures/next-headers-mock')).nextHeadersMock);
 
