@@ -8,7 +8,6 @@ import { UserTokenSchema } from './user-token.entity';
 import { OutboxMessageSchema } from './outbox-message.entity';
 import { WorkerHeartbeatSchema } from './worker-heartbeat.entity';
 import { AuditEventSchema } from './audit-event.entity';
-import { SignInAttemptSchema } from './sign-in-attempt.entity';
 import { AssetSchema } from './asset.entity';
 import { ZoneSchema } from './zone.entity';
 import { AnodeModelSchema } from './anode-model.entity';
@@ -29,7 +28,6 @@ export * from './user-token.entity';
 export * from './outbox-message.entity';
 export * from './worker-heartbeat.entity';
 export * from './audit-event.entity';
-export * from './sign-in-attempt.entity';
 export * from './asset.entity';
 export * from './zone.entity';
 export * from './anode-model.entity';
@@ -50,7 +48,6 @@ export const allEntities = [
   UserTokenSchema,
   OutboxMessageSchema,
   AuditEventSchema,
-  SignInAttemptSchema,
   AssetSchema,
   ZoneSchema,
   AnodeModelSchema,

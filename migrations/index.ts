@@ -9,6 +9,7 @@ import { Migration20261202011500_demand_method } from './Migration20261202011500
 import { Migration20261203090000_asset_survey_criteria } from './Migration20261203090000_asset_survey_criteria';
 import { Migration20261203100000_renewal_threshold } from './Migration20261203100000_renewal_threshold';
 import { Migration20261204100000_exactly_once } from './Migration20261204100000_exactly_once';
+import { Migration20261204200000_rate_limit } from './Migration20261204200000_rate_limit';
 import { Migration20261204300000_subscription_unique } from './Migration20261204300000_subscription_unique';
 import { Migration20261204500000_worker_heartbeat } from './Migration20261204500000_worker_heartbeat';
 
@@ -24,6 +25,7 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261203090000_asset_survey_criteria', class: Migration20261203090000_asset_survey_criteria },
   { name: 'Migration20261203100000_renewal_threshold', class: Migration20261203100000_renewal_threshold },
   { name: 'Migration20261204100000_exactly_once', class: Migration20261204100000_exactly_once },
+  { name: 'Migration20261204200000_rate_limit', class: Migration20261204200000_rate_limit },
   { name: 'Migration20261204300000_subscription_unique', class: Migration20261204300000_subscription_unique },
   { name: 'Migration20261204500000_worker_heartbeat', class: Migration20261204500000_worker_heartbeat },
 ];

@@ -19,6 +19,8 @@ const envSchema = z.object({
   STRIPE_API_PORT: z.coerce.number().int().optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   STRIPE_WEBHOOK_SECRET: z.string().trim().optional(),
+  // How many proxies in front of the app append to X-Forwarded-For (0: clients connect to the app directly).
+  TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
 });
 
 /** The demo keys of the local payment fake; accepted everywhere but in production. */

@@ -670,15 +670,15 @@ const PUBLIC_ACTIONS: PublicActionCase[] = [
     name: 'signUpAction',
     scenarios: [
       {
-        title: 'creates the account, signs the browser in and goes to /orgs',
+        title: 'creates the account and asks the person to open the link mailed to them (no session until then)',
         run: async () => {
           await signInAs(null);
           const email = uniqueEmail('signup');
           const outcome = await publicAction('app/(auth)/sign-up/actions.ts', 'signUpAction', { name: 'Ada Keel', email, password: STRONG_PASSWORD });
-          expect(outcome.redirect).toBe('/orgs');
+          expect(outcome.state).toMatchObject({ ok: true, message: `Check your e-mail: we sent a message to ${email}. Open the link in it to confirm the address and sign in.` });
           const user = await userByEmail(email);
           expect(user?.emailVerifiedAt).toBeNull();
-          await expectSignedInAs(user!.id);
+          expect(sessionCookie()).toBeUndefined();
           expect(await tokenFromOutbox(email, 'verify')).toBeTruthy();
         },
       },
@@ -725,13 +725,11 @@ const PUBLIC_ACTIONS: PublicActionCase[] = [
           await signInAs(null);
           const user = await makeUser(await getEm());
           const before = await databaseFingerprint();
-          const attempts = await rowCount('sign_in_attempt');
           const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: user.email, password: 'not-the-password-1' });
           expect(outcome.state).toMatchObject({ ok: false, message: 'The e-mail address or password is not right.' });
           expect(outcome.state?.values).toEqual({ email: user.email });
-          expect(await rowCount('sign_in_attempt')).toBe(attempts + 1);
-          const after = await databaseFingerprint();
-          expect({ ...after, sign_in_attempt: '' }).toEqual({ ...before, sign_in_attempt: '' });
+          // The failure is counted in the rate limits' own table, outside the request's transaction.
+          expect(await databaseFingerprint()).toEqual(before);
           expect(sessionCookie()).toBeUndefined();
         },
       },
@@ -777,11 +775,15 @@ const PUBLIC_ACTIONS: PublicActionCase[] = [
         },
       },
       {
-        title: 'answers the same for an unknown address and writes nothing',
+        title: 'answers the same for an unknown address, makes no link and mails the address that it has no account',
         run: async () => {
           await signInAs(null);
-          const state = await refusedWithoutWrites('user_token', () => publicAction('app/(auth)/reset/actions.ts', 'requestResetAction', { email: uniqueEmail('nobody') }));
-          expect(state).toMatchObject({ ok: true, message: expect.stringMatching(/^If an account exists for that address/) });
+          const email = uniqueEmail('nobody');
+          const tokens = await tableFingerprint('user_token');
+          const outcome = await publicAction('app/(auth)/reset/actions.ts', 'requestResetAction', { email });
+          expect(outcome.state).toMatchObject({ ok: true, message: expect.stringMatching(/^If an account exists for that address/) });
+          expect(await tableFingerprint('user_token')).toBe(tokens);
+          expect(await (await getEm()).count(OutboxMessageSchema, { toAddress: email, subject: 'Password reset for Tidewarden' })).toBe(1);
         },
       },
     ],

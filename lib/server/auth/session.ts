@@ -3,6 +3,7 @@ import { cookies, headers } from 'next/headers';
 import { redirect } from 'next/navigation';
 import type { User as LuciaUser, Session } from 'lucia';
 import { getLucia } from './lucia';
+import { getEnv } from '../env';
 import type { CurrentUser } from '../org-context';
 
 /** The signed-in user for this request (cached per request), refreshing the cookie when Lucia extends it. */
@@ -43,11 +44,18 @@ export async function requireUser(returnTo?: string): Promise<CurrentUser> {
   return user;
 }
 
+/**
+ * Opens a new session for the user and ends the one this browser had, whoever it belonged to: a sign-in
+ * never keeps (or adopts) a session id the browser already held.
+ */
 export async function startSession(userId: string) {
   const lucia = getLucia();
+  const jar = await cookies();
+  const previous = jar.get(lucia.sessionCookieName)?.value;
+  if (previous) await lucia.invalidateSession(previous);
   const session = await lucia.createSession(userId, {});
   const cookie = lucia.createSessionCookie(session.id);
-  (await cookies()).set(cookie.name, cookie.value, cookie.attributes);
+  jar.set(cookie.name, cookie.value, cookie.attributes);
 }
 
 export async function endSession() {
@@ -58,10 +66,21 @@ export async function endSession() {
   (await cookies()).set(cookie.name, cookie.value, cookie.attributes);
 }
 
-/** The client's address as seen by the Next server (the last hop it appended), for rate limits and audit. */
+/**
+ * The client's address from an X-Forwarded-For chain, trusting `trustedHops` proxies in front of the app.
+ * The app's server appends the socket's peer address to the chain (scripts/lib/forwarded-for.cjs), so the last
+ * entry is the peer and every entry before it may be anything the client wrote. With no trusted proxy the
+ * peer is the client; with n trusted proxies the client is the entry the outermost one appended, n places
+ * before the end. A chain shorter than that means a proxy is missing: the first entry is the best guess.
+ */
+export function addressFromForwardedFor(chain: string | null | undefined, trustedHops: number): string | null {
+  const hops = (chain ?? '').split(',').map((s) => s.trim()).filter(Boolean);
+  if (hops.length === 0) return null;
+  return hops[Math.max(0, hops.length - 1 - Math.max(0, trustedHops))]!;
+}
+
+/** The client's address, for rate limits and audit (see addressFromForwardedFor and TRUSTED_PROXY_HOPS). */
 export async function clientAddress(): Promise<string> {
   const h = await headers();
-  const forwarded = h.get('x-forwarded-for');
-  const last = forwarded?.split(',').map((s) => s.trim()).filter(Boolean).pop();
-  return last || h.get('x-real-ip') || 'unknown';
+  return addressFromForwardedFor(h.get('x-forwarded-for'), getEnv().TRUSTED_PROXY_HOPS) ?? 'unknown';
 }

@@ -38,3 +38,31 @@ export function invitationMail(organisationName: string, inviterName: string, ro
     }),
   };
 }
+
+export function accountExistsMail(name: string, signInUrl: string, resetUrl: string) {
+  return {
+    subject: 'Someone tried to create a Tidewarden account with your address',
+    ...render(
+      [
+        `Hello ${name},`,
+        'Someone (perhaps you) tried to create a Tidewarden account with this e-mail address. You already have one, so nothing was changed and no second account exists.',
+        `If it was you, sign in with your password; if you have forgotten it, choose a new one at ${resetUrl}. If it was not you, ignore this message.`,
+      ],
+      { url: signInUrl, label: 'Sign in' },
+    ),
+  };
+}
+
+export function noAccountMail(signUpUrl: string) {
+  return {
+    subject: 'Password reset for Tidewarden',
+    ...render(
+      [
+        'Hello,',
+        'Someone (perhaps you) asked to reset the Tidewarden password for this e-mail address, but no account uses it, so there is no password to reset.',
+        'If it was you, you may have signed up with another address, or you can create an account. If it was not you, ignore this message.',
+      ],
+      { url: signUpUrl, label: 'Create an account' },
+    ),
+  };
+}

@@ -11,6 +11,7 @@ import { ROLE_LABELS } from '../../permissions';
 import { invitationMailKey } from '@/lib/words/mail-delivery';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { lockRow } from '../../sql';
+import { LIMITS, takeOrRefuse } from '../../auth/rate-limit';
 
 export const INVITATION_DAYS = 7;
 
@@ -20,6 +21,8 @@ export async function inviteMember(ctx: OrgContext, input: unknown) {
   const { em, organisation } = ctx;
   // Invitations of one organisation are made one at a time: one live invitation per address (also a unique index).
   await lockRow(em, 'organisation', organisation.id);
+  await takeOrRefuse(LIMITS.inviteAddress, ctx.ip ?? 'unknown', (wait) => `Too many invitations from your network. Wait ${wait} and try again.`);
+  await takeOrRefuse(LIMITS.inviteEmail, `${organisation.id}|${email}`, (wait) => `Too many invitations to ${email}. Wait ${wait} before sending another.`);
   const existingUser = await em.findOne(UserSchema, { email });
   if (existingUser && (await em.count(MembershipSchema, { organisation, user: existingUser }))) {
     throw new AppError('conflict', 'That person is already a member.', { email: ['That person is already a member of this organisation.'] });
