@@ -66,6 +66,9 @@ export const surveySchema = z.object({
   notes: optionalText(4000, { multiline: true }),
 });
 
+/** The caption sent with a survey photo or report (multipart field "caption"). */
+export const attachmentCaptionSchema = z.object({ caption: optionalText(200, { multiline: true }) });
+
 export const listQuerySchema = z.object({
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(5).max(200).default(50),
