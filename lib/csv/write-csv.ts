@@ -5,7 +5,7 @@ import Papa, { type UnparseConfig } from 'papaparse';
  * a field quoted when it holds a quote, comma or line break, inner quotes doubled).
  *
  * Formula injection (common practice, OWASP "CSV Injection"): a spreadsheet runs a cell that
- * starts with =, +, -, @, a tab or a carriage return as a formula, and our cells carry texts
+ * starts with =, +, -, @, a tab or a carriage return as a formula (see FORMULA_START for the rest), and our cells carry texts
  * users typed (group labels, positions, zone names). Such a text is prefixed with an
  * apostrophe so it shows as text. A plain number (JS number, or a text such as "-0.85" or
  * "+1.5e3") is left alone so it still reads as a number.
@@ -19,7 +19,9 @@ export type CsvCell = string | number | null | undefined;
 
 /** A plain decimal number, optionally signed, with an optional exponent. */
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-const FORMULA_START = /^[=+\-@\t\r]/;
+// Also a line feed (some importers drop a leading line break and then read the formula), and the
+// full-width = + - @ that spreadsheets with an East Asian input method turn into their ASCII forms.
+const FORMULA_START = /^[=+\-@\t\r\n\uFF1D\uFF0B\uFF0D\uFF20]/;
 
 /** The text with an apostrophe in front when a spreadsheet would run it as a formula. */
 function neutraliseFormula(value: CsvCell): CsvCell {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multilineText, text } from './text';
 
 const optionalNumber = (label: string, unit: string, min: number, max: number) =>
   z.preprocess(
@@ -9,7 +10,8 @@ const optionalNumber = (label: string, unit: string, min: number, max: number) =
       .pipe(z.number().min(min, `${label} must be at least ${min} ${unit}.`).max(max, `${label} must be at most ${max} ${unit}.`))
       .nullable(),
   );
-const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
+const optionalText = (max: number, { multiline = false } = {}) =>
+  z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), (multiline ? multilineText() : text()).trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 const checkbox = z.preprocess((v) => v === true || v === 'on' || v === 'true', z.boolean());
 
 /**
@@ -27,10 +29,10 @@ export const STRUCTURE_TYPES = ['jetty', 'wharf', 'dolphin', 'pontoon', 'sheet-p
 
 export const vesselSchema = z.object({
   kind: z.literal('vessel'),
-  name: z.string().trim().min(1, 'Name the vessel.').max(120, 'Use at most 120 characters.'),
+  name: text().trim().min(1, 'Name the vessel.').max(120, 'Use at most 120 characters.'),
   imoNumber: z.preprocess(
     (v) => (typeof v === 'string' && v.trim() === '' ? null : v),
-    z.string().trim().regex(/^\d{7}$/, 'An IMO number has 7 digits.').nullable().default(null),
+    text().trim().regex(/^\d{7}$/, 'An IMO number has 7 digits.').nullable().default(null),
   ),
   vesselType: optionalText(60),
   lengthBppM: optionalNumber('Length between perpendiculars', 'm', 3, 500),
@@ -41,12 +43,12 @@ export const vesselSchema = z.object({
   hasImpressedCurrent: checkbox.default(false),
   tradingWaters: optionalText(120),
   ...surveyCriteriaFields,
-  notes: optionalText(2000),
+  notes: optionalText(2000, { multiline: true }),
 }).refine((v) => !(v.highStrengthSteel && v.hullMaterial === 'aluminium'), { message: 'High-strength steel applies to a steel hull, not an aluminium one.', path: ['highStrengthSteel'] });
 
 export const structureSchema = z.object({
   kind: z.literal('structure'),
-  name: z.string().trim().min(1, 'Name the structure.').max(120, 'Use at most 120 characters.'),
+  name: text().trim().min(1, 'Name the structure.').max(120, 'Use at most 120 characters.'),
   structureType: z.enum(STRUCTURE_TYPES, { error: 'Choose the kind of structure.' }),
   location: optionalText(120),
   waterType: z.enum(['seawater', 'brackish', 'fresh'], { error: 'Choose the water type.' }),
@@ -54,7 +56,7 @@ export const structureSchema = z.object({
   pileCount: optionalNumber('Number of piles', '', 1, 10000).pipe(z.number().int('Enter a whole number of piles.').nullable()),
   pileDiameterM: optionalNumber('Pile diameter', 'm', 0.05, 5),
   ...surveyCriteriaFields,
-  notes: optionalText(2000),
+  notes: optionalText(2000, { multiline: true }),
 });
 
 export const assetSchema = z.discriminatedUnion('kind', [vesselSchema, structureSchema], { error: 'Choose vessel or structure.' });

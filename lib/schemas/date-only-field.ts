@@ -1,10 +1,10 @@
 import { z } from 'zod';
+import { text } from './text';
 import { compareDateOnly, isDateOnly, todayDateOnly } from '@/lib/dates/date-only';
 
 /** A form field holding a calendar day, 'YYYY-MM-DD' (what an <input type="date"> sends), checked strictly. */
 export const dateOnlyField = (label: string) =>
-  z
-    .string({ error: `Enter the ${label}.` })
+  text({ error: `Enter the ${label}.` })
     .regex(/^\d{4}-\d{2}-\d{2}$/, `Enter the ${label} as a date (YYYY-MM-DD).`)
     .refine(isDateOnly, `The ${label} is not a real date.`);
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multilineText } from './text';
 import type { AnodeModel, DesignResult, ImpressedCurrentSummary, OptionRow } from '@/lib/cp';
 import {
   ANODE_ALLOY_VALUES,
@@ -33,15 +34,17 @@ export const DESIGN_SCHEMA_VERSION = 3;
 // Stored values are checked for shape only, never against today's plausibility limits: a limit
 // tightened later must not make an approved revision unreadable.
 const num = z.number();
+// Texts were checked as they came in (lib/schemas/text); line breaks are let through so no stored note is refused.
+const storedText = () => multilineText();
 const opt = z.number().optional();
 const triple = z.object({ initial: num, mean: num, final: num });
 const currents = z.object({ initialA: num, meanA: num, finalA: num });
 
 export const storedSurfaceSchema = z.object({
-  name: z.string(),
+  name: storedText(),
   kind: z.enum(ZONE_KIND_VALUES),
   areaM2: num,
-  areaSource: z.string(),
+  areaSource: storedText(),
   depthBand: z.enum(DEPTH_BAND_VALUES),
   coatingCategory: z.enum(COATING_VALUES),
   coatingAgeYears: num,
@@ -72,7 +75,7 @@ export const storedInputsSchema = z.object({
   salinityPsu: num.nullable(),
   resistivitySource: z.enum(RESISTIVITY_SOURCE_VALUES),
   potentialSource: z.enum(POTENTIAL_SOURCE_VALUES),
-  anodeModelKey: z.string().min(1),
+  anodeModelKey: storedText().min(1),
   surfaces: z.array(storedSurfaceSchema).min(1),
 });
 
@@ -84,10 +87,10 @@ const anodeShapeSchema = z.discriminatedUnion('kind', [
 
 /** The catalogue model as it was when the results were computed (the catalogue may change later). */
 export const anodeModelSnapshotSchema = z.object({
-  key: z.string().min(1),
+  key: storedText().min(1),
   source: z.enum(['built-in', 'organisation']),
-  id: z.string(),
-  designation: z.string(),
+  id: storedText(),
+  designation: storedText(),
   alloy: z.enum(ANODE_ALLOY_VALUES),
   mounting: z.enum(ANODE_MOUNTING_VALUES),
   shape: anodeShapeSchema,
@@ -105,15 +108,15 @@ export const anodeModelSnapshotSchema = z.object({
 const criterion = z.enum(['mass', 'initial-current', 'final-current']);
 const formula = z.enum(['modified-dwight', 'short-slender', 'long-flush', 'mccoy']);
 const counts = z.object({ mass: num, initialCurrent: num, finalCurrent: num });
-const basisEntrySchema = z.object({ topic: z.string(), source: z.string(), flag: z.enum(['published', 'memory', 'practice']) });
+const basisEntrySchema = z.object({ topic: storedText(), source: storedText(), flag: z.enum(['published', 'memory', 'practice']) });
 // A warning's code stays a plain string: a code lib/cp no longer raises must still print.
-const messageSchema = z.object({ code: z.string(), message: z.string() });
+const messageSchema = z.object({ code: storedText(), message: storedText() });
 const alloy = z.enum(ANODE_ALLOY_VALUES);
 
 /** lib/cp's DesignResult, every field (the round-trip unit test fails when one is missing). */
 export const storedDesignResultSchema = z.object({
   current: currents,
-  surfaces: z.array(currents.extend({ name: z.string(), areaM2: num, breakdown: triple, drainsCurrent: z.enum(CURRENT_DRAIN_VALUES).optional() })),
+  surfaces: z.array(currents.extend({ name: storedText(), areaM2: num, breakdown: triple, drainsCurrent: z.enum(CURRENT_DRAIN_VALUES).optional() })),
   requiredNetMassKg: num,
   drivingVoltageV: num,
   protectivePotentialV: num,
@@ -141,7 +144,7 @@ export const storedDesignResultSchema = z.object({
   distribution: z.object({
     designCount: z.number().int(),
     distributedCount: z.number().int(),
-    surfaces: z.array(z.object({ name: z.string(), demandA: num, share: num, exactCount: num, count: z.number().int(), anodesAllowed: z.boolean().optional() })),
+    surfaces: z.array(z.object({ name: storedText(), demandA: num, share: num, exactCount: num, count: z.number().int(), anodesAllowed: z.boolean().optional() })),
     basis: z.enum(['initial', 'mean', 'final']),
   }),
   warnings: z.array(messageSchema),
@@ -154,14 +157,14 @@ const impressedCurrentSchema = z.object({
   peakCondition: z.enum(['initial', 'final']),
   margin: num,
   suggestedRatingA: num,
-  surfaces: z.array(currents.extend({ name: z.string() })),
-  note: z.string(),
+  surfaces: z.array(currents.extend({ name: storedText() })),
+  note: storedText(),
 });
 
 const optionRowSchema = z.discriminatedUnion('suitable', [
   z.object({
-    id: z.string(),
-    designation: z.string(),
+    id: storedText(),
+    designation: storedText(),
     alloy,
     suitable: z.literal(true),
     anodeCount: z.number().int(),
@@ -171,10 +174,10 @@ const optionRowSchema = z.discriminatedUnion('suitable', [
     installedGrossMassKg: num,
     achievedLifeYears: num,
     warningsCount: z.number().int(),
-    warningCodes: z.array(z.string()),
+    warningCodes: z.array(storedText()),
     cost: z.object({ supply: num, fitting: num, total: num }).nullable(),
   }),
-  z.object({ id: z.string(), designation: z.string(), alloy, suitable: z.literal(false), reason: z.string(), field: z.string() }),
+  z.object({ id: storedText(), designation: storedText(), alloy, suitable: z.literal(false), reason: storedText(), field: storedText() }),
 ]);
 
 /** The results column: the design result with what the desk showed beside it. */
@@ -191,7 +194,7 @@ export const designRecordSchema = z.object({
   anodeModel: anodeModelSnapshotSchema.nullable(),
   /** Null when the inputs could not be sized; resultError says why. */
   results: storedResultsSchema.nullable(),
-  resultError: z.string().nullable(),
+  resultError: storedText().nullable(),
   basis: z.array(basisEntrySchema).nullable(),
 });
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from './text';
 
 // What the design desk sends: the job in the engineer's terms (bands, categories, mA/m2),
 // turned into lib/cp's SI input by lib/design/build-design-input.ts.
@@ -48,10 +49,10 @@ const currentDensityMa = z.object({
 });
 
 export const deskSurfaceSchema = z.object({
-  name: z.string().trim().min(1, 'Name the zone.').max(80, 'Use at most 80 characters.'),
+  name: text().trim().min(1, 'Name the zone.').max(80, 'Use at most 80 characters.'),
   kind: z.enum(ZONE_KIND_VALUES, { error: 'Choose a zone kind.' }),
   areaM2: num('Area', 'm²').pipe(z.number().gt(0, 'The area must be more than 0 m².').max(1_000_000, 'An area above 1,000,000 m² is not plausible.')),
-  areaSource: z.string().max(40).default('entered'),
+  areaSource: text().max(40).default('entered'),
   depthBand: z.enum(DEPTH_BAND_VALUES, { error: 'Choose a depth band.' }),
   coatingCategory: z.enum(COATING_VALUES, { error: 'Choose a coating category or bare.' }),
   coatingAgeYears: num('Coating age', 'years').pipe(z.number().min(0, 'The coating age cannot be negative.').max(60, 'A coating older than 60 years is not plausible.')).default(0),
@@ -81,7 +82,7 @@ export const deskInputsSchema = z.object({
   salinityPsu: z.preprocess(blankToNull, num('Salinity', 'PSU').pipe(z.number().min(0, 'The salinity cannot be negative.').max(42, 'Salinity above 42 PSU is outside the Practical Salinity Scale.')).nullable()).default(null),
   resistivitySource: z.enum(RESISTIVITY_SOURCE_VALUES).default('measured'),
   potentialSource: z.enum(POTENTIAL_SOURCE_VALUES).default('entered'),
-  anodeModelKey: z.string().min(1, 'Choose an anode model.').max(80),
+  anodeModelKey: text().min(1, 'Choose an anode model.').max(80),
   surfaces: z.array(deskSurfaceSchema).min(1, 'Add at least one zone.').max(200, 'Use at most 200 zones.'),
 });
 

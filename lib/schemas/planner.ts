@@ -1,9 +1,11 @@
 import { z } from 'zod';
+import { multilineText, text } from './text';
 import { dateOnlyField, daysInOrder } from './date-only-field';
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v);
 const optionalDate = (label: string) => z.preprocess(blankToNull, dateOnlyField(label).nullable());
-const text = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
+const optionalText = (max: number, { multiline = false } = {}) =>
+  z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), (multiline ? multilineText() : text()).trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 
 export const dockingSchema = z
   .object({
@@ -11,9 +13,9 @@ export const dockingSchema = z
     kind: z.enum(['intermediate', 'renewal-survey', 'unplanned', 'campaign'], { error: 'Choose the kind of docking or campaign.' }),
     plannedStart: dateOnlyField('planned start'),
     plannedEnd: optionalDate('planned end'),
-    yard: text(120),
-    reference: text(60),
-    notes: text(2000),
+    yard: optionalText(120),
+    reference: optionalText(60),
+    notes: optionalText(2000, { multiline: true }),
   })
   .refine((d) => daysInOrder(d.plannedStart, d.plannedEnd), { message: 'The planned end is before the start.', path: ['plannedEnd'] });
 
@@ -25,9 +27,9 @@ export const dockingUpdateSchema = z
     plannedEnd: optionalDate('planned end'),
     actualStart: optionalDate('actual start'),
     actualEnd: optionalDate('actual end'),
-    yard: text(120),
-    reference: text(60),
-    notes: text(2000),
+    yard: optionalText(120),
+    reference: optionalText(60),
+    notes: optionalText(2000, { multiline: true }),
   })
   .refine((d) => daysInOrder(d.plannedStart, d.plannedEnd), { message: 'The planned end is before the start.', path: ['plannedEnd'] })
   .refine((d) => daysInOrder(d.actualStart, d.actualEnd), { message: 'The actual end is before the start.', path: ['actualEnd'] })
@@ -36,7 +38,7 @@ export const dockingUpdateSchema = z
 export const renewalUpdateSchema = z.object({
   quantity: z.coerce.number({ error: 'Enter the quantity.' }).int('Enter a whole number.').min(1, 'At least one anode.').max(10_000),
   dockingId: z.uuid('Choose a docking.'),
-  notes: text(2000),
+  notes: optionalText(2000, { multiline: true }),
 });
 
 export const fittedSchema = z.object({ fittedOn: dateOnlyField('fitting date') });
@@ -45,5 +47,5 @@ export const manualRenewalSchema = z.object({
   groupId: z.uuid('Choose an anode group.'),
   reason: z.enum(['survey-finding', 'damage', 'other', 'forecast-depletion'], { error: 'Choose the reason.' }),
   quantity: z.preprocess(blankToNull, z.coerce.number().int().min(1).max(10_000).nullable()),
-  notes: text(2000),
+  notes: optionalText(2000, { multiline: true }),
 });

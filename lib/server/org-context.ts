@@ -1,6 +1,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { MembershipSchema, type Membership, type Organisation, type Role } from '@/entities';
 import { AppError, notFound } from './errors';
+import { slugOrNotFound } from './ids';
 import { can, type Permission } from './permissions';
 import { readOnlyReason } from '@/lib/billing/plans';
 import type { Effects } from './unit-of-work';
@@ -29,7 +30,7 @@ export interface OrgContext {
  * A non-member gets "not found", never "forbidden", so the organisation's existence is not revealed.
  */
 export async function getOrgContextOrThrow(em: EntityManager, user: CurrentUser, slug: string, ip: string | null, effects: Effects): Promise<OrgContext> {
-  const membership = await em.findOne(MembershipSchema, { user: user.id, organisation: { slug } }, { populate: ['organisation'] });
+  const membership = await em.findOne(MembershipSchema, { user: user.id, organisation: { slug: slugOrNotFound(slug) } }, { populate: ['organisation'] });
   if (!membership) throw notFound('Organisation');
   const ctx: OrgContext = { em, user, organisation: membership.organisation, membership, role: membership.role, ip, effects };
   effects.ctx = ctx;

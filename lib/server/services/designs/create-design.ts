@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from '@/lib/schemas/text';
 import { AssetSchema, DesignSchema, UserSchema, ZoneSchema, type Asset } from '@/entities';
 import { climateFromTemperature, resistivityFor } from '@/lib/cp';
 import { defaultStructureZones, defaultVesselZones } from '@/lib/design/default-zones';
@@ -11,7 +12,7 @@ import { computeRecord } from './store-results';
 
 const createDesignSchema = z.object({
   assetId: z.uuid('Choose an asset.'),
-  title: z.string().trim().max(160).optional(),
+  title: text().trim().max(160).optional(),
 });
 
 /** Starting inputs for an asset: its zones when it has any, else estimates from its particulars. */

@@ -1,11 +1,12 @@
 import { z } from 'zod';
+import { text } from '@/lib/schemas/text';
 import { deskInputsSchema } from '@/lib/schemas/design';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 import { assertEditable, storeResults } from './store-results';
 
-const saveSchema = z.object({ title: z.string().trim().min(1, 'Give the design a title.').max(160), inputs: deskInputsSchema });
+const saveSchema = z.object({ title: text().trim().min(1, 'Give the design a title.').max(160), inputs: deskInputsSchema });
 
 /** Saves a draft's inputs with freshly computed results. A checked draft that changes needs checking again. */
 export async function saveDesign(ctx: OrgContext, designId: string, input: unknown) {

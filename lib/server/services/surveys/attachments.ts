@@ -4,6 +4,7 @@ import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
 import { uuidOrNotFound } from '../../ids';
+import { attachmentCaptionSchema } from '@/lib/schemas/register';
 
 export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
 
@@ -20,6 +21,7 @@ const EXTENSION = { 'image/jpeg': 'jpg', 'image/png': 'png', 'application/pdf': 
 export async function addSurveyAttachment(ctx: OrgContext, surveyId: string, file: { name: string; bytes: Uint8Array }, caption: string | null) {
   requirePermission(ctx, 'survey:write');
   const survey = await getSurveyOrThrow(ctx, surveyId);
+  const { caption: checkedCaption } = attachmentCaptionSchema.parse({ caption });
   if (file.bytes.length === 0) throw new AppError('invalid', 'The file is empty.');
   if (file.bytes.length > MAX_ATTACHMENT_BYTES) throw new AppError('payload-too-large', `The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB; reduce it and try again.`);
   const contentType = sniffContentType(file.bytes);
@@ -32,7 +34,7 @@ export async function addSurveyAttachment(ctx: OrgContext, surveyId: string, fil
     contentType,
     sizeBytes: file.bytes.length,
     data: Buffer.from(file.bytes),
-    caption: caption?.trim().slice(0, 200) || null,
+    caption: checkedCaption,
     uploadedByEmail: ctx.user.email,
   });
   audit(ctx, { action: 'survey.attachment-added', targetType: 'survey', targetId: survey.id, details: { file: attachment.filename, bytes: attachment.sizeBytes } });

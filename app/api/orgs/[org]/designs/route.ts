@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from '@/lib/schemas/text';
 import { withOrg, readJson } from '@/lib/server/with-org';
 import { listDesigns } from '@/lib/server/services/designs/list-designs';
 import { createDesign } from '@/lib/server/services/designs/create-design';
@@ -14,7 +15,7 @@ export const GET = withOrg(async ({ ctx, query }) => ({ designs: await listDesig
 // POST /api/orgs/[org]/designs {assetId, title?}: a new draft revision for an asset (engineers).
 export const POST = withOrg(
   async ({ ctx, req }) => {
-    const design = await createDesign(ctx, await readJson(req, z.object({ assetId: z.string(), title: z.string().optional() })));
+    const design = await createDesign(ctx, await readJson(req, z.object({ assetId: text(), title: text().optional() })));
     return Response.json({ design: toDesignView(await getDesignOrThrow(ctx, design.id)) }, { status: 201 });
   },
   { permission: 'design:write' },
