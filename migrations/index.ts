@@ -9,6 +9,7 @@ import { Migration20261202011500_demand_method } from './Migration20261202011500
 import { Migration20261203090000_asset_survey_criteria } from './Migration20261203090000_asset_survey_criteria';
 import { Migration20261203100000_renewal_threshold } from './Migration20261203100000_renewal_threshold';
 import { Migration20261204500000_worker_heartbeat } from './Migration20261204500000_worker_heartbeat';
+import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -22,4 +23,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261203090000_asset_survey_criteria', class: Migration20261203090000_asset_survey_criteria },
   { name: 'Migration20261203100000_renewal_threshold', class: Migration20261203100000_renewal_threshold },
   { name: 'Migration20261204500000_worker_heartbeat', class: Migration20261204500000_worker_heartbeat },
+  { name: 'Migration20261204600000_survey_corrections', class: Migration20261204600000_survey_corrections },
 ];

@@ -1,0 +1,40 @@
+'use client';
+import { useState } from 'react';
+import { Button } from '@/components/ui/button';
+import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
+
+/**
+ * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
+ * "Yes, delete" submits. Hidden fields name the record.
+ */
+export function ConfirmDelete({ action, fields, what, consequence, label = 'Delete' }: { action: BoundAction; fields: Record<string, string>; what: string; consequence: string; label?: string }) {
+  const [asking, setAsking] = useState(false);
+  const { state, action: submit, pending } = useBoundAction(action);
+  if (!asking) {
+    return (
+      <span className="inline-flex items-center gap-2">
+        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => setAsking(true)}>
+          {label}
+        </Button>
+        <ActionError state={state} />
+      </span>
+    );
+  }
+  return (
+    <form action={submit} className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
+      {Object.entries(fields).map(([name, value]) => (
+        <input key={name} type="hidden" name={name} value={value} />
+      ))}
+      <span>
+        Delete {what}? {consequence}
+      </span>
+      <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
+        Yes, delete
+      </Button>
+      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setAsking(false)}>
+        Keep it
+      </Button>
+      <ActionError state={state} />
+    </form>
+  );
+}
