@@ -2,6 +2,7 @@
 import { useRef, useState, useTransition } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
+import { newRequestKey } from './request-key';
 
 /** Attaches a JPEG/PNG photo or a PDF report (at most 10 MB); the type is checked from the file's content. */
 export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: string }) {
@@ -19,7 +20,7 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
         const file = data.get('file');
         if (!(file instanceof File) || !file.size) return setMessage({ ok: false, text: 'Choose a photo or a PDF first.' });
         start(async () => {
-          const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/attachments`, { method: 'POST', body: data });
+          const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/attachments`, { method: 'POST', body: data, headers: { 'Idempotency-Key': newRequestKey() } });
           const body = await res.json().catch(() => null);
           if (res.ok) {
             setMessage({ ok: true, text: `${body.attachment.filename} attached.` });

@@ -2,6 +2,7 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
+import { newRequestKey } from './request-key';
 
 /**
  * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
@@ -9,6 +10,7 @@ import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/a
  */
 export function ConfirmDelete({ action, fields, what, consequence, label = 'Delete' }: { action: BoundAction; fields: Record<string, string>; what: string; consequence: string; label?: string }) {
   const [asking, setAsking] = useState(false);
+  const [key] = useState(newRequestKey);
   const { state, action: submit, pending } = useBoundAction(action);
   if (!asking) {
     return (
@@ -25,6 +27,7 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       {Object.entries(fields).map(([name, value]) => (
         <input key={name} type="hidden" name={name} value={value} />
       ))}
+      <input type="hidden" name="idempotencyKey" value={key} />
       <span>
         Delete {what}? {consequence}
       </span>

@@ -4,6 +4,7 @@ import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/field';
 import { ELECTRODE_OPTIONS } from './new-survey-form';
+import { newRequestKey } from './request-key';
 
 interface Result {
   ok: boolean;
@@ -30,7 +31,7 @@ export function CsvUpload({ org, surveyId, electrode }: { org: string; surveyId:
       return;
     }
     start(async () => {
-      const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/readings`, { method: 'POST', body: data });
+      const res = await fetch(`/api/orgs/${org}/surveys/${surveyId}/readings`, { method: 'POST', body: data, headers: { 'Idempotency-Key': newRequestKey() } });
       const body = await res.json().catch(() => null);
       if (res.ok) {
         setResult({ ok: true, message: body.message });

@@ -4,6 +4,8 @@ import { ActionError, useBoundAction } from '@/components/ui/action-form';
 import { FormMessage } from '@/components/ui/field';
 import { restoreSurveyAction } from '@/app/o/[org]/surveys/actions';
 import { formatDateOnly } from '@/lib/dates/date-only';
+import { useState } from 'react';
+import { newRequestKey } from './request-key';
 import type { DeletedSurveyRow } from '@/lib/server/services/surveys/manage-surveys';
 
 /** Surveys deleted in the last 30 days, each with its restore button (engineers and owners). */
@@ -20,6 +22,7 @@ export function DeletedSurveys({ org, rows }: { org: string; rows: DeletedSurvey
 
 function DeletedSurvey({ org, row }: { org: string; row: DeletedSurveyRow }) {
   const { state, action, pending } = useBoundAction(restoreSurveyAction.bind(null, org));
+  const [key] = useState(newRequestKey);
   return (
     <li className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
       <span>
@@ -30,6 +33,7 @@ function DeletedSurvey({ org, row }: { org: string; row: DeletedSurveyRow }) {
       </span>
       <form action={action} className="flex items-center gap-2">
         <input type="hidden" name="surveyId" value={row.id} />
+        <input type="hidden" name="idempotencyKey" value={key} />
         {state.ok ? <FormMessage state={state} /> : <ActionError state={state} />}
         <Button type="submit" variant="secondary" disabled={pending || state.ok}>
           Restore
