@@ -1,5 +1,6 @@
 'use client';
 import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
 import { newRequestKey } from './request-key';
@@ -8,10 +9,11 @@ import { newRequestKey } from './request-key';
  * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
  * "Yes, delete" submits. Hidden fields name the record.
  */
-export function ConfirmDelete({ action, fields, what, consequence, label = 'Delete' }: { action: BoundAction; fields: Record<string, string>; what: string; consequence: string; label?: string }) {
+export function ConfirmDelete({ action, fields, what, consequence, label = 'Delete', invalidate = [] }: { action: BoundAction; fields: Record<string, string>; what: string; consequence: string; label?: string; invalidate?: readonly (readonly unknown[])[] }) {
   const [asking, setAsking] = useState(false);
   const [key] = useState(newRequestKey);
-  const { state, action: submit, pending } = useBoundAction(action);
+  const client = useQueryClient();
+  const { state, action: submit, pending } = useBoundAction(action, { invalidate });
   if (!asking) {
     return (
       <span className="inline-flex items-center gap-2">
@@ -23,7 +25,13 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
     );
   }
   return (
-    <form action={submit} className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
+    <form
+      action={submit}
+      // A delete that navigates away (the survey) never reports success here: drop the cached lists as it is sent.
+      onSubmit={() => {
+        for (const queryKey of invalidate) client.removeQueries({ queryKey });
+      }}
+      className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
       {Object.entries(fields).map(([name, value]) => (
         <input key={name} type="hidden" name={name} value={value} />
       ))}

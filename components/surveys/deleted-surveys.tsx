@@ -3,6 +3,7 @@ import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction } from '@/components/ui/action-form';
 import { FormMessage } from '@/components/ui/field';
 import { restoreSurveyAction } from '@/app/o/[org]/surveys/actions';
+import { queryKeys } from '@/lib/client/query-client';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { useState } from 'react';
 import { newRequestKey } from './request-key';
@@ -21,7 +22,7 @@ export function DeletedSurveys({ org, rows }: { org: string; rows: DeletedSurvey
 }
 
 function DeletedSurvey({ org, row }: { org: string; row: DeletedSurveyRow }) {
-  const { state, action, pending } = useBoundAction(restoreSurveyAction.bind(null, org));
+  const { state, action, pending } = useBoundAction(restoreSurveyAction.bind(null, org), { invalidate: [queryKeys.surveys(org)] });
   const [key] = useState(newRequestKey);
   return (
     <li className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">

@@ -16,6 +16,7 @@ import { AttachmentActions } from '@/components/surveys/attachment-actions';
 import { SurveyEditForm } from '@/components/surveys/survey-edit-form';
 import { ConfirmDelete } from '@/components/surveys/confirm-delete';
 import { deleteSurveyAction } from '../actions';
+import { queryKeys } from '@/lib/client/query-client';
 import { SURVEY_CSV_COLUMNS } from '@/lib/surveys/survey-csv';
 import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
 
@@ -113,6 +114,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
                 what={`this survey with its ${readings.length} reading${readings.length === 1 ? '' : 's'} and ${attachments.length} attachment${attachments.length === 1 ? '' : 's'}`}
                 consequence="An engineer can restore it within 30 days."
                 label="Delete the survey"
+                invalidate={[queryKeys.surveys(org)]}
               />
             </div>
           </Panel>
