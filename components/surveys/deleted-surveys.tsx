@@ -1,28 +1,37 @@
 'use client';
+import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { ActionError, useBoundAction } from '@/components/ui/action-form';
+import { useBoundAction } from '@/components/ui/action-form';
 import { FormMessage } from '@/components/ui/field';
 import { restoreSurveyAction } from '@/app/o/[org]/surveys/actions';
 import { queryKeys } from '@/lib/client/query-client';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { useState } from 'react';
 import { newRequestKey } from './request-key';
 import type { DeletedSurveyRow } from '@/lib/server/services/surveys/manage-surveys';
 
-/** Surveys deleted in the last 30 days, each with its restore button (engineers and owners). */
+/**
+ * Surveys deleted in the last 30 days, each with its restore button (engineers and owners). One action for
+ * the list, so its message stays when the restored survey leaves the list.
+ */
 export function DeletedSurveys({ org, rows }: { org: string; rows: DeletedSurveyRow[] }) {
-  if (!rows.length) return <p className="text-sm text-ink-faint">No survey was deleted in the last 30 days.</p>;
+  const form = useBoundAction(restoreSurveyAction.bind(null, org), { invalidate: [queryKeys.surveys(org)] });
   return (
-    <ul className="flex flex-col gap-2 text-sm">
-      {rows.map((r) => (
-        <DeletedSurvey key={r.id} org={org} row={r} />
-      ))}
-    </ul>
+    <div className="flex flex-col gap-2">
+      <FormMessage state={form.state} />
+      {rows.length ? (
+        <ul className="flex flex-col gap-2 text-sm">
+          {rows.map((row) => (
+            <DeletedSurvey key={row.id} row={row} action={form.action} pending={form.pending} />
+          ))}
+        </ul>
+      ) : (
+        <p className="text-sm text-ink-faint">No survey was deleted in the last 30 days.</p>
+      )}
+    </div>
   );
 }
 
-function DeletedSurvey({ org, row }: { org: string; row: DeletedSurveyRow }) {
-  const { state, action, pending } = useBoundAction(restoreSurveyAction.bind(null, org), { invalidate: [queryKeys.surveys(org)] });
+function DeletedSurvey({ row, action, pending }: { row: DeletedSurveyRow; action: (formData: FormData) => void; pending: boolean }) {
   const [key] = useState(newRequestKey);
   return (
     <li className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
@@ -32,11 +41,10 @@ function DeletedSurvey({ org, row }: { org: string; row: DeletedSurveyRow }) {
           Deleted by {row.deletedBy ?? 'someone'}; can be restored until {formatDateOnly(row.restorableUntil)}.
         </span>
       </span>
-      <form action={action} className="flex items-center gap-2">
+      <form action={action}>
         <input type="hidden" name="surveyId" value={row.id} />
         <input type="hidden" name="idempotencyKey" value={key} />
-        {state.ok ? <FormMessage state={state} /> : <ActionError state={state} />}
-        <Button type="submit" variant="secondary" disabled={pending || state.ok}>
+        <Button type="submit" variant="secondary" disabled={pending}>
           Restore
         </Button>
       </form>

@@ -50,3 +50,30 @@ test('an inspector records a survey against zinc with two low readings and corre
   // The engineers who had the alert get the correction.
   await linkFromInbox(page, demoUser('engineer').email, /Correction: readings of Dolphin North/);
 });
+
+test('an inspector deletes a survey after confirming; an engineer restores it from the list', async ({ page }) => {
+  await signIn(page, demoUser('inspector').email);
+  await page.goto(`/o/${demo.organisation.slug}/surveys`);
+  await page.getByLabel('Asset', { exact: true }).selectOption({ label: 'Dolphin North' });
+  await page.getByLabel('Surveyed on').fill('2026-11-25');
+  await page.getByLabel('Method', { exact: true }).selectOption('rov');
+  await page.getByRole('button', { name: 'Record the survey' }).click();
+  await expect(page.getByRole('heading', { name: /Dolphin North: rov survey of 25 Nov 2026/ })).toBeVisible();
+
+  await page.getByRole('button', { name: 'Delete the survey' }).click();
+  await expect(page.getByText('Delete this survey with its 0 readings and 0 attachments? An engineer can restore it within 30 days.')).toBeVisible();
+  await page.getByRole('button', { name: 'Yes, delete' }).click();
+  await expect(page).toHaveURL(/\/surveys\?deleted=1$/);
+  await expect(page.getByRole('status').filter({ hasText: 'Survey deleted. An engineer can restore it within 30 days.' })).toBeVisible();
+  // An inspector deletes but does not restore.
+  await expect(page.getByText('Deleted surveys (restorable for 30 days)')).toHaveCount(0);
+
+  await page.context().clearCookies();
+  await signIn(page, demoUser('engineer').email);
+  await page.goto(`/o/${demo.organisation.slug}/surveys`);
+  const binned = page.getByRole('listitem').filter({ hasText: 'Dolphin North: rov survey of 25 Nov 2026' });
+  await expect(binned).toContainText(`Deleted by ${demoUser('inspector').email}`);
+  await binned.getByRole('button', { name: 'Restore' }).click();
+  await expect(page.getByText('Survey of Dolphin North on 25 Nov 2026 restored.')).toBeVisible();
+  await expect(page.getByRole('table', { name: 'Surveys' }).getByRole('row', { name: /25 Nov 2026/ })).toContainText('Dolphin North');
+});
