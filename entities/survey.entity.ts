@@ -19,6 +19,8 @@ export const SurveySchema = defineEntity({
     surveyedOn: p.date(),
     method: p.string().length(16).$type<SurveyMethod>(),
     surveyor: p.string().length(120).nullable(),
+    /** The electrode every reading of the survey defaults to (the form's default, the CSV's blank cells). */
+    defaultElectrode: p.string().length(24).default('ag-agcl-seawater'),
     notes: p.text().nullable(),
     createdBy: p.manyToOne(UserSchema).deleteRule('restrict'),
     createdAt: createdAt(),
@@ -42,6 +44,8 @@ export const SurveyReadingSchema = defineEntity({
     anodeGroup: p.manyToOne(AnodeGroupSchema).nullable().deleteRule('set null').index(),
     remainingFraction: double().nullable(),
     comment: p.text().nullable(),
+    /** When an under-protection alert named this reading; a correction of it is mailed to the same people. */
+    alertedAt: p.datetime().nullable(),
   },
 });
 export type SurveyReading = InferEntity<typeof SurveyReadingSchema>;

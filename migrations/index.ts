@@ -12,6 +12,7 @@ import { Migration20261204100000_exactly_once } from './Migration20261204100000_
 import { Migration20261204200000_rate_limit } from './Migration20261204200000_rate_limit';
 import { Migration20261204300000_subscription_unique } from './Migration20261204300000_subscription_unique';
 import { Migration20261204500000_worker_heartbeat } from './Migration20261204500000_worker_heartbeat';
+import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -28,4 +29,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261204200000_rate_limit', class: Migration20261204200000_rate_limit },
   { name: 'Migration20261204300000_subscription_unique', class: Migration20261204300000_subscription_unique },
   { name: 'Migration20261204500000_worker_heartbeat', class: Migration20261204500000_worker_heartbeat },
+  { name: 'Migration20261204600000_survey_corrections', class: Migration20261204600000_survey_corrections },
 ];

@@ -10,7 +10,7 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
   const form = useRef<HTMLFormElement>(null);
   const [message, setMessage] = useState<{ ok: boolean; text: string } | null>(null);
   const [pending, start] = useTransition();
-  // One key per upload: a double submit is stored once.
+  // One key per upload: a double submit is stored once; the key is renewed once the upload is answered.
   const uploadKey = useIdempotencyKey();
   return (
     <form

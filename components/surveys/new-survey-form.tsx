@@ -12,6 +12,14 @@ export const ELECTRODE_OPTIONS = [
   { value: 'zinc', label: 'Zinc' },
 ];
 
+export const METHOD_OPTIONS = [
+  { value: 'diver', label: 'Diver' },
+  { value: 'drop-cell', label: 'Drop cell' },
+  { value: 'rov', label: 'ROV' },
+  { value: 'dry-dock', label: 'In dry dock' },
+  { value: 'other', label: 'Other' },
+];
+
 export function NewSurveyForm({ org, assets, assetId }: { org: string; assets: { id: string; name: string }[]; assetId?: string }) {
   const form = useBoundAction(createSurveyAction.bind(null, org));
   const f = form.field;
@@ -20,17 +28,7 @@ export function NewSurveyForm({ org, assets, assetId }: { org: string; assets: {
       <SelectField label="Asset" {...f('assetId', assetId ?? assets[0]?.id)} options={assets.map((a) => ({ value: a.id, label: a.name }))} />
       <div className="grid grid-cols-2 gap-3">
         <Field label="Surveyed on" {...f('surveyedOn', todayDateOnly())} type="date" />
-        <SelectField
-          label="Method"
-          {...f('method', 'diver')}
-          options={[
-            { value: 'diver', label: 'Diver' },
-            { value: 'drop-cell', label: 'Drop cell' },
-            { value: 'rov', label: 'ROV' },
-            { value: 'dry-dock', label: 'In dry dock' },
-            { value: 'other', label: 'Other' },
-          ]}
-        />
+        <SelectField label="Method" {...f('method', 'diver')} options={METHOD_OPTIONS} />
       </div>
       <Field label="Surveyor or contractor" {...f('surveyor')} />
       <SelectField label="Reference electrode used" {...f('defaultElectrode', 'ag-agcl-seawater')} options={ELECTRODE_OPTIONS} />

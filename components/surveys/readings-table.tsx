@@ -1,21 +1,36 @@
 'use client';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
+import { Button } from '@/components/ui/button';
+import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
 import { fmt } from '@/lib/format';
+import { deleteReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
+import { ReadingFields } from './reading-form';
+import { ConfirmDelete } from './confirm-delete';
 
 type Reading = Awaited<ReturnType<typeof getSurveyDetails>>['readings'][number];
 const ELECTRODES: Record<string, string> = { 'ag-agcl-seawater': 'Ag/AgCl', cse: 'CSE', sce: 'SCE', zinc: 'Zn' };
 
-/** Readings against the criteria: status in words, colour only as a second cue. */
-export function ReadingsTable({ readings }: { readings: Reading[] }) {
+interface Editing {
+  org: string;
+  surveyId: string;
+  groups: string[];
+  electrode: string;
+}
+
+/** Readings against the criteria: status in words, colour only as a second cue. With `editing`, each row can be corrected or deleted. */
+export function ReadingsTable({ readings, editing }: { readings: Reading[]; editing?: Editing }) {
+  const [openId, setOpenId] = useState<string | null>(null);
+  // The reading as the page has it now: after a saved correction the page refreshes and the form shows the new values.
+  const open = openId ? (readings.find((r) => r.id === openId) ?? null) : null;
   const columns = useMemo(() => {
     const col = createColumnHelper<Reading>();
-    return [
+    const base = [
       col.accessor('line', { header: 'Line', meta: { numeric: true }, cell: (c) => c.getValue() ?? '—' }),
       col.accessor('location', { header: 'Location' }),
       col.accessor('potentialV', { header: 'As measured', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V ${ELECTRODES[c.row.original.electrode ?? ''] ?? ''}`) }),
@@ -48,6 +63,63 @@ export function ReadingsTable({ readings }: { readings: Reading[] }) {
       }),
       col.accessor('comment', { header: 'Comment', enableSorting: false, cell: (c) => <span className="text-xs">{c.getValue() ?? ''}</span> }),
     ];
-  }, []);
-  return <DataTable label="Readings" data={readings} columns={columns} pageSize={50} empty="No readings yet: upload a CSV or add them one by one." filterPlaceholder="Filter by location, group, status…" />;
+    if (!editing) return base;
+    return [
+      ...base,
+      col.display({
+        id: 'actions',
+        header: () => <span className="sr-only">Correct</span>,
+        cell: (c) => (
+          <span className="inline-flex flex-wrap items-center gap-2">
+            <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setOpenId(c.row.original.id)} aria-label={`Edit the reading at ${c.row.original.location}`}>
+              Edit
+            </Button>
+            <ConfirmDelete
+              action={deleteReadingAction.bind(null, editing.org)}
+              fields={{ surveyId: editing.surveyId, readingId: c.row.original.id }}
+              what={`the reading at ${c.row.original.location}`}
+              consequence="It cannot be restored on its own; the audit log keeps its values."
+            />
+          </span>
+        ),
+      }),
+    ];
+  }, [editing]);
+  return (
+    <>
+      {editing && open ? <ReadingEditForm key={open.id} reading={open} editing={editing} onClose={() => setOpenId(null)} /> : null}
+      <DataTable label="Readings" data={readings} columns={columns} pageSize={50} empty="No readings yet: upload a CSV or add them one by one." filterPlaceholder="Filter by location, group, status…" />
+    </>
+  );
+}
+
+/** Corrects one reading; the values it had are the starting point, and stay typed in after a refusal. */
+function ReadingEditForm({ reading, editing, onClose }: { reading: Reading; editing: Editing; onClose: () => void }) {
+  const form = useBoundAction(updateReadingAction.bind(null, editing.org));
+  const initial: Record<string, string> = {
+    location: reading.location,
+    potentialV: reading.potentialV === null ? '' : String(reading.potentialV),
+    electrode: reading.electrode ?? editing.electrode,
+    anodeGroupLabel: reading.group ?? '',
+    remainingPercent: reading.remainingFraction === null ? '' : String(Math.round(reading.remainingFraction * 100000) / 1000),
+    comment: reading.comment ?? '',
+  };
+  return (
+    <div className="mb-3 rounded-[3px] border border-rule-strong bg-paper-sunk p-3">
+      <p className="mb-2 text-sm font-medium">Correct the reading at {reading.location}</p>
+      <ActionForm form={form} className="grid grid-cols-2 gap-3 md:grid-cols-3" messageClassName="col-span-2 md:col-span-3" noValidate aria-label={`Correct the reading at ${reading.location}`}>
+        <input type="hidden" name="surveyId" value={editing.surveyId} />
+        <input type="hidden" name="readingId" value={reading.id} />
+        <ReadingFields field={form.field} groups={editing.groups} electrode={editing.electrode} initial={initial} />
+        <div className="col-span-2 flex items-end gap-2 md:col-span-3">
+          <Button type="submit" disabled={form.pending}>
+            Save the correction
+          </Button>
+          <Button type="button" variant="secondary" onClick={onClose}>
+            Close
+          </Button>
+        </div>
+      </ActionForm>
+    </div>
+  );
 }

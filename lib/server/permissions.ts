@@ -14,6 +14,8 @@ export const PERMISSIONS = [
   'docking:write',
   'renewal:write',
   'survey:write',
+  // Restoring a deleted survey is an engineer's call (inspectors delete, engineers can undo it for 30 days).
+  'survey:restore',
 ] as const;
 export type Permission = (typeof PERMISSIONS)[number];
 
@@ -21,7 +23,7 @@ const READ: Permission[] = ['org:read', 'org:print'];
 
 export const ROLE_PERMISSIONS: Record<Role, readonly Permission[]> = {
   owner: [...PERMISSIONS],
-  engineer: [...READ, 'asset:write', 'design:write', 'design:approve', 'catalogue:write', 'survey:write'],
+  engineer: [...READ, 'asset:write', 'design:write', 'design:approve', 'catalogue:write', 'survey:write', 'survey:restore'],
   planner: [...READ, 'docking:write', 'renewal:write'],
   inspector: [...READ, 'survey:write'],
   viewer: [...READ],

@@ -36,6 +36,8 @@ export const MAX_COMMENT_CHARS = 500;
 /** Plausible range of a reading against any accepted electrode, V. */
 export const POTENTIAL_MIN_V = -2.0;
 export const POTENTIAL_MAX_V = 0.5;
+/** Smallest magnitude read as a plausible potential in millivolts (0.1 V); below it no millivolt hint is given. */
+export const MIN_PLAUSIBLE_MILLIVOLTS = 100;
 /** Errors listed before the "and N more" entry. */
 export const MAX_REPORTED_ERRORS = 200;
 
@@ -64,7 +66,11 @@ export interface SurveyCsvError {
   message: string;
 }
 
-export type ParseSurveyCsvResult = { ok: true; rows: ParsedReading[] } | { ok: false; errors: SurveyCsvError[] };
+/**
+ * A failed parse still lists the rows that are valid (`goodRows`), so the user can import them alone after
+ * seeing the errors; it is empty when the file itself is unusable (header, size).
+ */
+export type ParseSurveyCsvResult = { ok: true; rows: ParsedReading[] } | { ok: false; errors: SurveyCsvError[]; goodRows: ParsedReading[] };
 
 export interface ParseSurveyCsvOptions {
   /** Electrode for rows that give a potential but leave `electrode` blank. */
@@ -356,9 +362,9 @@ export function parseSurveyCsv(text: string, options: ParseSurveyCsvOptions): Pa
 
   // ---- header
   const headerIndex = records.findIndex((r) => r.cells.length > 0);
-  if (headerIndex < 0) return { ok: false, errors: [{ line: 1, message: 'The file has no header row.' }] };
+  if (headerIndex < 0) return { ok: false, errors: [{ line: 1, message: 'The file has no header row.' }], goodRows: [] };
   const header = records[headerIndex];
-  if (header.quoteError) return { ok: false, errors: [{ line: header.line, message: header.quoteError }] };
+  if (header.quoteError) return { ok: false, errors: [{ line: header.line, message: header.quoteError }], goodRows: [] };
   const columnIndex = new Map<SurveyCsvColumn, number>();
   const unknown: string[] = [];
   const duplicate: string[] = [];
@@ -381,7 +387,7 @@ export function parseSurveyCsv(text: string, options: ParseSurveyCsvOptions): Pa
   if (!columnIndex.has('potential_v') && !columnIndex.has('remaining')) {
     err(header, 'The header needs a "potential_v" column, a "remaining" column, or both.');
   }
-  if (errors.length > 0) return { ok: false, errors };
+  if (errors.length > 0) return { ok: false, errors, goodRows: [] };
 
   // ---- rows
   const rows: ParsedReading[] = [];
@@ -431,7 +437,8 @@ export function parseSurveyCsv(text: string, options: ParseSurveyCsvOptions): Pa
       } else {
         const v = m?.[2]?.toLowerCase() === 'mv' ? n / 1000 : n;
         if (v < POTENTIAL_MIN_V || v > POTENTIAL_MAX_V) {
-          const mvHint = !m?.[2] && n / 1000 >= POTENTIAL_MIN_V && n / 1000 <= POTENTIAL_MAX_V ? ` If it is in millivolts, add the unit: "${rawPotential} mV".` : '';
+          // A reading in millivolts is a number of hundreds (-945, -1050); a value like -5.2 is not one, so it gets no millivolt hint.
+          const mvHint = !m?.[2] && Math.abs(n) >= MIN_PLAUSIBLE_MILLIVOLTS && n / 1000 >= POTENTIAL_MIN_V && n / 1000 <= POTENTIAL_MAX_V ? ` If it is in millivolts, add the unit: "${rawPotential} mV".` : ' Potentials are in volts (-0.945) or in millivolts with the unit (-945 mV).';
           err(rec, `${rawPotential} is outside the plausible range ${POTENTIAL_MIN_V.toFixed(1)} to +${POTENTIAL_MAX_V.toFixed(1)} V.${mvHint}`, 'potential_v');
         } else {
           potentialV = roundMicro(v);
@@ -513,15 +520,18 @@ export function parseSurveyCsv(text: string, options: ParseSurveyCsvOptions): Pa
     err(overflow.record, `The file has more than ${maxRows} readings; split it into files of at most ${maxRows} rows.`);
   }
   if (errors.length === 0 && rows.length === 0) {
-    return { ok: false, errors: [{ line: header.line + 1, message: 'The file has a header row but no readings.' }] };
+    return { ok: false, errors: [{ line: header.line + 1, message: 'The file has a header row but no readings.' }], goodRows: [] };
   }
+  // A file cut short at the row limit is not offered in part: its good lines would not be the whole of them.
+  const goodRows = overflow.record ? [] : rows;
   if (errors.length > 0) {
-    if (errors.length <= MAX_REPORTED_ERRORS) return { ok: false, errors };
+    if (errors.length <= MAX_REPORTED_ERRORS) return { ok: false, errors, goodRows };
     const rest = errors.length - MAX_REPORTED_ERRORS;
     const firstOmitted = errors[MAX_REPORTED_ERRORS];
     return {
       ok: false,
       errors: [...errors.slice(0, MAX_REPORTED_ERRORS), { line: firstOmitted.line, message: `…and ${rest} more error${rest === 1 ? '' : 's'} not listed (the first at line ${firstOmitted.line}).` }],
+      goodRows,
     };
   }
   return { ok: true, rows };

@@ -30,6 +30,9 @@ import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
+import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { createDocking } from '@/lib/server/services/planner/dockings';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
@@ -115,6 +118,17 @@ const UUID = '[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}';
 
 /** Runs service calls as a member of the home organisation (fixtures are made the way the app makes them). */
 const as = async <T,>(role: Role, work: (c: OrgContext) => Promise<T>, org: OrgFixture = home) => runAs(ctxFor(await getEm(), org.organisation, org.users[role]), work);
+
+/** A reading of the fixture survey, for the correction actions to change or delete. */
+async function surveyReading() {
+  const location = unique('Reading');
+  await as('inspector', (c) => addReading(c, fixtures.survey, { location, potentialV: '-0.95', electrode: 'ag-agcl-seawater' }));
+  const [row] = await (await getEm()).execute<{ id: string }[]>('select id from survey_reading where survey_id = ? and location = ?', [fixtures.survey, location]);
+  return row.id;
+}
+const spareSurvey = async () => (await as('inspector', (c) => createSurvey(c, { assetId: fixtures.vessel, surveyedOn: day(-8), method: 'diver', defaultElectrode: 'cse' }))).id;
+const PNG_BYTES = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0]);
+const surveyAttachment = async () => (await as('inspector', (c) => addSurveyAttachment(c, fixtures.survey, { name: `photo-${++serial}.png`, bytes: PNG_BYTES }, null))).id;
 
 async function addMember(role: Role) {
   const em = await getEm();
@@ -332,6 +346,73 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'survey_reading',
     input: async () => ({ surveyId: fixtures.survey, location: unique('Frame'), potentialV: '-0.95', electrode: 'ag-agcl-seawater', remainingPercent: '80' }),
     success: { message: /^Reading added\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'updateReadingAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_reading',
+    input: async () => ({ surveyId: fixtures.survey, readingId: await surveyReading(), location: unique('Frame'), potentialV: '-0.97', electrode: 'ag-agcl-seawater', remainingPercent: '75' }),
+    success: { message: /^Reading at Frame \d+ corrected\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'deleteReadingAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_reading',
+    input: async () => ({ surveyId: fixtures.survey, readingId: await surveyReading() }),
+    success: { message: /^Reading at Reading \d+ deleted\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'updateSurveyAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey',
+    input: async () => ({ surveyId: fixtures.survey, surveyedOn: day(-5), method: 'drop-cell', surveyor: unique('Quay Divers'), defaultElectrode: 'ag-agcl-seawater' }),
+    success: { message: /^Survey saved\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'deleteSurveyAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey',
+    input: async () => ({ surveyId: await spareSurvey() }),
+    success: { redirect: /^\/o\/[\w-]+\/surveys\?deleted=1$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'restoreSurveyAction',
+    kind: 'form',
+    permission: 'survey:restore',
+    table: 'survey',
+    input: async () => {
+      const surveyId = await spareSurvey();
+      await as('inspector', (c) => deleteSurvey(c, surveyId));
+      return { surveyId };
+    },
+    success: { message: /^Survey of Action Vessel on \d{1,2} \w{3} \d{4} restored\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'updateAttachmentAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_attachment',
+    input: async () => ({ surveyId: fixtures.survey, attachmentId: await surveyAttachment(), caption: unique('Pile') }),
+    success: { message: /^Caption of photo-\d+\.png saved\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'deleteAttachmentAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_attachment',
+    input: async () => ({ surveyId: fixtures.survey, attachmentId: await surveyAttachment() }),
+    success: { message: /^photo-\d+\.png deleted\.$/ },
   },
   // Dockings and renewals
   {

@@ -125,7 +125,7 @@ describe('survey CSV upload', () => {
     expect(status).toBe(200);
     // A2 reads -0.80 V against CSE, i.e. about -0.75 V Ag/AgCl: under the -0.80 V Ag/AgCl criterion (about -0.85 V CSE,
     // MIL-HDBK-1004/10 via design-basis.md, published). A3 is under-protected outright.
-    expect(body).toEqual({ imported: 3, underProtected: 2 });
+    expect(body).toEqual({ imported: 3, underProtected: 2, engineersMailed: true, duplicates: 0, badLinesSkipped: 0, message: '3 readings imported; 2 under-protected (the engineers have been told).' });
     const readings = await (await getEm()).find(SurveyReadingSchema, { survey: surveyId }, { orderBy: { line: 'asc' } });
     expect(readings.map((r) => r.location)).toEqual(['A1', 'A2', 'A3']);
     // -0.80 V CSE is about -0.75 V Ag/AgCl/seawater (50 mV between them, European practice per design-basis.md): common practice

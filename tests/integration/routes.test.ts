@@ -121,11 +121,12 @@ const ROUTES: Route[] = [
   {
     path: 'surveys/[surveyId]/readings',
     method: 'POST',
-    body: () => 'location,potential_v,electrode,remaining\nFr 20 P,-0.97,ag-agcl-seawater,\nFr 20 S,,,70%\n',
+    // New locations on every call: rows already in the survey would be skipped as duplicates.
+    body: () => `location,potential_v,electrode,remaining\nFr 20 P ${++csvCalls},-0.97,ag-agcl-seawater,\nFr 20 S ${csvCalls},,,70%\n`,
     contentType: 'text/csv',
     load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/readings/route'),
     permission: surveyors,
-    check: (r) => expect(r.body).toEqual({ imported: 2, underProtected: 0 }),
+    check: (r) => expect(r.body).toEqual({ imported: 2, underProtected: 0, engineersMailed: false, duplicates: 0, badLinesSkipped: 0, message: '2 readings imported.' }),
   },
   {
     path: 'surveys/[surveyId]/attachments',
@@ -172,6 +173,7 @@ const ROUTES: Route[] = [
   },
 ];
 
+let csvCalls = 0;
 let home: { organisation: Organisation; users: Record<Role, User> };
 let other: { organisation: Organisation; users: Record<Role, User> };
 let ids: Ids;
@@ -321,7 +323,7 @@ describe('organisation route handlers', () => {
     form.set('defaultElectrode', 'cse');
     const res = await call(ROUTES.find((r) => r.path === 'surveys/[surveyId]/readings')!, home.organisation.slug, '', form);
     expect(res.status, res.text).toBe(200);
-    expect(res.body).toEqual({ imported: 1, underProtected: 0 });
+    expect(res.body).toEqual({ imported: 1, underProtected: 0, engineersMailed: false, duplicates: 0, badLinesSkipped: 0, message: '1 reading imported.' });
     const [reading] = await (await getEm()).find(SurveyReadingSchema, { survey: ids.surveyId, location: 'Multipart 1' });
     expect(reading.electrode).toBe('cse');
     // -1.00 V CSE is about -0.95 V Ag/AgCl/seawater (50 mV between them): common practice

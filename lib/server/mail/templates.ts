@@ -66,3 +66,41 @@ export function noAccountMail(signUpUrl: string) {
     ),
   };
 }
+
+/** One reading as the survey mails name it: where, as measured, and on the Ag/AgCl/seawater scale. */
+export interface MailedReading {
+  location: string;
+  /** e.g. "+0.200 V against zinc (-0.850 V Ag/AgCl/seawater): protected" */
+  value: string;
+}
+
+export function underProtectionMail(assetName: string, surveyLabel: string, readings: MailedReading[], url: string) {
+  return {
+    subject: `Under-protection found on ${assetName} (${surveyLabel})`,
+    ...render(
+      [
+        `${readings.length} reading${readings.length === 1 ? ' is' : 's are'} less negative than the protection criterion in the ${surveyLabel} of ${assetName}:`,
+        ...readings.map((r) => `• ${r.location}: ${r.value}`),
+        'Check the anodes and their electrical continuity; verify against the governing standard before acting.',
+        'Further under-protected readings in this survey are shown on its page; you are told again only if a reading named here is corrected.',
+      ],
+      { url, label: 'See the readings' },
+    ),
+  };
+}
+
+export function readingCorrectionMail(assetName: string, surveyLabel: string, correctedBy: string, corrections: { location: string; before: string; after: string | null }[], stillUnder: number | 'survey deleted', url: string) {
+  return {
+    subject: `Correction: readings of ${assetName} (${surveyLabel})`,
+    ...render(
+      [
+        `${correctedBy} corrected ${corrections.length === 1 ? 'a reading' : `${corrections.length} readings`} of the ${surveyLabel} of ${assetName} that an earlier under-protection message named:`,
+        ...corrections.map((c) => (c.after === null ? `• ${c.location}: ${c.before} — deleted` : `• ${c.location}: was ${c.before}; now ${c.after}`)),
+        stillUnder === 'survey deleted'
+          ? 'The whole survey was deleted; an engineer can restore it within 30 days.'
+          : stillUnder ? `The survey now has ${stillUnder} under-protected reading${stillUnder === 1 ? '' : 's'}.` : 'The survey now has no under-protected reading.',
+      ],
+      { url, label: 'See the readings' },
+    ),
+  };
+}

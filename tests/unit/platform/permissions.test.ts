@@ -4,10 +4,10 @@ import { ROLES } from '@/lib/roles';
 
 // The role table as the product brief states it, written out independently of the code:
 // owner everything; engineer assets, designs (create and approve), catalogue; planner dockings,
-// renewals, anode lists; inspector surveys only; viewer read and print only.
+// renewals, anode lists; inspector surveys only (an engineer restores a deleted survey); viewer read and print only.
 const EXPECTED: Record<string, string[]> = {
   owner: [...PERMISSIONS],
-  engineer: ['org:read', 'org:print', 'asset:write', 'design:write', 'design:approve', 'catalogue:write', 'survey:write'],
+  engineer: ['org:read', 'org:print', 'asset:write', 'design:write', 'design:approve', 'catalogue:write', 'survey:write', 'survey:restore'],
   planner: ['org:read', 'org:print', 'docking:write', 'renewal:write'],
   inspector: ['org:read', 'org:print', 'survey:write'],
   viewer: ['org:read', 'org:print'],

@@ -1,8 +1,13 @@
 'use server';
 import { redirect } from 'next/navigation';
-import { orgAction, formObject } from '@/lib/server/action';
+import { orgAction, formObject, formId } from '@/lib/server/action';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
+import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
+import { formatDateOnly } from '@/lib/dates/date-only';
 
 export const createSurveyAction = orgAction('survey:write', async (ctx, formData) => {
   const survey = await createSurvey(ctx, formObject(formData));
@@ -11,6 +16,44 @@ export const createSurveyAction = orgAction('survey:write', async (ctx, formData
 
 /** One reading typed in by hand (a drop-cell reading at a berth, a diver's call over the radio). */
 export const addReadingAction = orgAction('survey:write', async (ctx, formData) => {
-  const { under } = await addReading(ctx, String(formData.get('surveyId') ?? ''), formObject(formData));
-  return { ok: true, message: under ? 'Reading added: it is under-protected; the engineers have been told.' : 'Reading added.' };
+  const result = await addReading(ctx, formId(formData, 'surveyId'), formObject(formData));
+  return { ok: true, message: result.under ? `Reading added: it is under-protected; ${underProtectionWords(result)}.` : 'Reading added.' };
+});
+
+/** A corrected reading (a mistyped value, the wrong electrode). */
+export const updateReadingAction = orgAction('survey:write', async (ctx, formData) => {
+  const { reading, correctionMailed, alertMailed, isUnder } = await updateReading(ctx, formId(formData, 'surveyId'), formId(formData, 'readingId'), formObject(formData));
+  const mail = correctionMailed ? ' A correction has been sent to the engineers who were told about it.' : alertMailed ? ' It is under-protected; the engineers have been told.' : '';
+  return { ok: true, message: `Reading at ${reading.location} corrected${isUnder ? ' (under-protected)' : ''}.${mail}` };
+});
+
+export const deleteReadingAction = orgAction('survey:write', async (ctx, formData) => {
+  const { location, correctionMailed } = await deleteReading(ctx, formId(formData, 'surveyId'), formId(formData, 'readingId'));
+  return { ok: true, message: `Reading at ${location} deleted.${correctionMailed ? ' A correction has been sent to the engineers who were told about it.' : ''}` };
+});
+
+export const updateSurveyAction = orgAction('survey:write', async (ctx, formData) => {
+  await updateSurvey(ctx, formId(formData, 'surveyId'), formObject(formData));
+  return { ok: true, message: 'Survey saved.' };
+});
+
+/** Deletes a survey (kept 30 days for an engineer to restore) and goes back to the list. */
+export const deleteSurveyAction = orgAction('survey:write', async (ctx, formData) => {
+  await deleteSurvey(ctx, formId(formData, 'surveyId'));
+  redirect(`/o/${ctx.organisation.slug}/surveys?deleted=1`);
+});
+
+export const restoreSurveyAction = orgAction('survey:restore', async (ctx, formData) => {
+  const survey = await restoreSurvey(ctx, formId(formData, 'surveyId'));
+  return { ok: true, message: `Survey of ${survey.asset.name} on ${formatDateOnly(survey.surveyedOn)} restored.` };
+});
+
+export const updateAttachmentAction = orgAction('survey:write', async (ctx, formData) => {
+  const attachment = await updateSurveyAttachment(ctx, formId(formData, 'surveyId'), formId(formData, 'attachmentId'), formObject(formData));
+  return { ok: true, message: `Caption of ${attachment.filename} saved.` };
+});
+
+export const deleteAttachmentAction = orgAction('survey:write', async (ctx, formData) => {
+  const { file } = await deleteSurveyAttachment(ctx, formId(formData, 'surveyId'), formId(formData, 'attachmentId'));
+  return { ok: true, message: `${file} deleted.` };
 });

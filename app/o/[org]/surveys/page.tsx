@@ -5,18 +5,24 @@ import { PageHeader, Panel } from '@/components/ui/panel';
 import { SurveysTable } from '@/components/surveys/surveys-table';
 import { NewSurveyForm } from '@/components/surveys/new-survey-form';
 import { listAssetChoices } from '@/lib/server/services/assets/list-asset-choices';
+import { listDeletedSurveys } from '@/lib/server/services/surveys/manage-surveys';
+import { DeletedSurveys } from '@/components/surveys/deleted-surveys';
+import { FormMessage } from '@/components/ui/field';
 
 export const metadata: Metadata = { title: 'Surveys' };
 
-export default async function SurveysPage({ params, searchParams }: { params: Promise<{ org: string }>; searchParams: Promise<{ assetId?: string }> }) {
+export default async function SurveysPage({ params, searchParams }: { params: Promise<{ org: string }>; searchParams: Promise<{ assetId?: string; deleted?: string }> }) {
   const { org } = await params;
-  const { assetId } = await searchParams;
+  const { assetId, deleted } = await searchParams;
   const ctx = await getPageOrgContext(org);
   const canWrite = allowed(ctx, 'survey:write');
   const assets = canWrite ? await listAssetChoices(ctx) : [];
+  const canRestore = allowed(ctx, 'survey:restore');
+  const binned = canRestore ? await listDeletedSurveys(ctx) : [];
   return (
     <>
       <PageHeader title="Surveys" subtitle="Diver, drop-cell and ROV surveys: potentials against the protection criteria, and what remains of the anodes." />
+      {deleted === '1' ? <div className="mb-4"><FormMessage state={{ ok: true, message: 'Survey deleted. An engineer can restore it within 30 days.' }} /></div> : null}
       <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
         <Panel title="All surveys">
           <SurveysTable org={org} />
@@ -27,6 +33,13 @@ export default async function SurveysPage({ params, searchParams }: { params: Pr
           </Panel>
         ) : null}
       </div>
+      {canRestore ? (
+        <div className="mt-4">
+          <Panel title="Deleted surveys (restorable for 30 days)">
+            <DeletedSurveys org={org} rows={binned} />
+          </Panel>
+        </div>
+      ) : null}
     </>
   );
 }

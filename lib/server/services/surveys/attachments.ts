@@ -48,3 +48,34 @@ export async function getSurveyAttachment(ctx: OrgContext, surveyId: string, att
   if (!attachment) throw notFound('Attachment');
   return attachment;
 }
+
+async function attachmentForWrite(ctx: OrgContext, surveyId: string, attachmentId: string) {
+  requirePermission(ctx, 'survey:write');
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  uuidOrNotFound(attachmentId, 'Attachment');
+  const attachment = await ctx.em.findOne(SurveyAttachmentSchema, { id: attachmentId, survey });
+  if (!attachment) throw notFound('Attachment');
+  return { survey, attachment };
+}
+
+/** Changes what the attachment's caption says; the audit row keeps the old and the new caption. */
+export async function updateSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string, input: { caption?: unknown }) {
+  const { survey, attachment } = await attachmentForWrite(ctx, surveyId, attachmentId);
+  const caption = typeof input.caption === 'string' ? input.caption.trim() : '';
+  if (caption.length > 200) throw new AppError('invalid', 'Use at most 200 characters.', { caption: ['Use at most 200 characters.'] });
+  const before = { file: attachment.filename, caption: attachment.caption ?? null };
+  attachment.caption = caption || null;
+  audit(ctx, { action: 'survey.attachment-updated', targetType: 'survey', targetId: survey.id, details: { attachmentId, before, after: { file: attachment.filename, caption: attachment.caption } } });
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  return attachment;
+}
+
+/** Deletes a photo or report of a survey; the audit row names the file that went. */
+export async function deleteSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string) {
+  const { survey, attachment } = await attachmentForWrite(ctx, surveyId, attachmentId);
+  const before = { file: attachment.filename, caption: attachment.caption ?? null, bytes: attachment.sizeBytes, uploadedBy: attachment.uploadedByEmail ?? null };
+  ctx.em.remove(attachment);
+  audit(ctx, { action: 'survey.attachment-deleted', targetType: 'survey', targetId: survey.id, details: { attachmentId, before, after: null } });
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  return before;
+}

@@ -19,6 +19,7 @@ export async function createSurvey(ctx: OrgContext, input: unknown) {
     surveyedOn: data.surveyedOn,
     method: data.method,
     surveyor: data.surveyor,
+    defaultElectrode: data.defaultElectrode,
     notes: data.notes,
     createdBy: ctx.em.getReference(UserSchema, ctx.user.id),
   });

@@ -1,65 +1,70 @@
-import { AnodeGroupSchema, MembershipSchema, SurveyReadingSchema, type Survey } from '@/entities';
+import { AnodeGroupSchema, SurveyReadingSchema, type Survey, type SurveyReading } from '@/entities';
 import { AG_AGCL_SEAWATER_SALINITY_RANGE_PSU, convertPotential } from '@/lib/cp';
-import { classifyPotential } from '@/lib/surveys/criteria';
-import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
-import type { ParsedReading } from '@/lib/surveys/survey-csv';
-import { enqueueMail } from '../../mail/outbox';
-import { getEnv } from '../../env';
+import { waterSalinityOf } from '@/lib/register/protected-metal';
+import type { Electrode, ParsedReading } from '@/lib/surveys/survey-csv';
+import { readingFormSchema } from '@/lib/schemas/surveys';
 import { AppError } from '../../errors';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { audit } from '../../audit';
 import { getSurveyOrThrow } from './survey-access';
-import { readingSchema } from '@/lib/schemas/register';
+import { alertUnderProtection, lockSurvey } from './reading-alerts';
 
 export type ReadingInput = Omit<ParsedReading, 'line' | 'potentialAgAgClV'> & { line?: number | null };
 
+/** The electrode every reading of the survey defaults to. */
+export const surveyElectrodeOf = (survey: Survey) => (survey.defaultElectrode ?? 'ag-agcl-seawater') as Electrode;
+
 /**
- * Adds readings to a survey in the caller's unit of work: potentials converted to Ag/AgCl/seawater
- * (a reading against an Ag/AgCl/seawater electrode corrected for the chloride of the asset's water,
- * Nernst) and classified with the asset's criteria (metal, anaerobic, high-strength steel); group
- * labels resolved to the asset's fitted groups. When a reading is under-protected, the organisation's
- * engineers and owners are told once per survey (through the outbox).
+ * A potential on the Ag/AgCl/seawater scale (a reading against an Ag/AgCl/seawater electrode corrected for
+ * the chloride of the asset's water, Nernst), rounded to the microvolt; null without a potential.
+ */
+export function agAgClOf(survey: Survey, potentialV: number | null, electrode: Electrode | null) {
+  if (potentialV === null || !electrode) return null;
+  const salinityPsu = waterSalinityOf(survey.asset);
+  if (electrode === 'ag-agcl-seawater') assertAgAgClSeawaterUsable(salinityPsu);
+  const v = convertPotential({ valueV: potentialV, from: electrode, to: 'ag-agcl-seawater', salinityPsu: electrode === 'ag-agcl-seawater' ? (salinityPsu ?? undefined) : undefined });
+  return Math.round(v * 1e6) / 1e6;
+}
+
+/** The asset's fitted group of that label (null when none is named). */
+export async function groupByLabel(ctx: OrgContext, survey: Survey, label: string | null) {
+  if (!label) return null;
+  const group = await ctx.em.findOne(AnodeGroupSchema, { asset: survey.asset, removedOn: null, label });
+  if (!group) throw new AppError('invalid', `No anode group "${label}" is fitted to ${survey.asset.name}.`, { anodeGroupLabel: ['Choose one of the asset\'s anode groups.'] });
+  return group;
+}
+
+/**
+ * Adds readings to a survey in the caller's unit of work: potentials converted to Ag/AgCl/seawater and
+ * classified with the asset's criteria (metal, anaerobic, high-strength steel); a potential without an
+ * electrode is read against the survey's electrode; group labels resolved to the asset's fitted groups.
+ * Under-protected readings are told to the engineers and owners once per survey and condition
+ * (`alertUnderProtection`); any number of them can be recorded.
  */
 export async function addReadings(ctx: OrgContext, survey: Survey, readings: ReadingInput[]) {
+  await lockSurvey(ctx, survey);
   const labels = [...new Set(readings.map((r) => r.anodeGroupLabel).filter((l): l is string => Boolean(l)))];
   const groups = labels.length ? await ctx.em.find(AnodeGroupSchema, { asset: survey.asset, removedOn: null, label: { $in: labels } }) : [];
   const byLabel = new Map(groups.map((g) => [g.label, g]));
-  const criteria = surveyCriteriaOf(survey.asset);
-  const salinityPsu = waterSalinityOf(survey.asset);
-  if (readings.some((r) => r.potentialV !== null && r.electrode === 'ag-agcl-seawater')) assertAgAgClSeawaterUsable(salinityPsu);
-  let under = 0;
+  const created: SurveyReading[] = [];
   for (const r of readings) {
-    const agAgCl =
-      r.potentialV !== null && r.electrode
-        ? convertPotential({ valueV: r.potentialV, from: r.electrode, to: 'ag-agcl-seawater', salinityPsu: r.electrode === 'ag-agcl-seawater' ? (salinityPsu ?? undefined) : undefined })
-        : null;
-    if (agAgCl !== null && classifyPotential({ potentialAgAgClV: agAgCl, ...criteria }).status === 'under-protected') under++;
-    ctx.em.create(SurveyReadingSchema, {
-      survey,
-      line: r.line ?? null,
-      location: r.location,
-      potentialV: r.potentialV,
-      electrode: r.electrode,
-      potentialAgAgClV: agAgCl === null ? null : Math.round(agAgCl * 1e6) / 1e6,
-      anodeGroup: r.anodeGroupLabel ? (byLabel.get(r.anodeGroupLabel) ?? null) : null,
-      remainingFraction: r.remainingFraction,
-      comment: r.comment,
-    });
+    const electrode = r.potentialV === null ? null : (r.electrode ?? surveyElectrodeOf(survey));
+    created.push(
+      ctx.em.create(SurveyReadingSchema, {
+        survey,
+        line: r.line ?? null,
+        location: r.location,
+        potentialV: r.potentialV,
+        electrode,
+        potentialAgAgClV: agAgClOf(survey, r.potentialV, electrode),
+        anodeGroup: r.anodeGroupLabel ? (byLabel.get(r.anodeGroupLabel) ?? null) : null,
+        remainingFraction: r.remainingFraction,
+        comment: r.comment,
+      }),
+    );
   }
-  if (under) {
-    const recipients = await ctx.em.find(MembershipSchema, { organisation: ctx.organisation, role: { $in: ['engineer', 'owner'] } }, { populate: ['user'] });
-    const url = `${getEnv().APP_URL}/o/${ctx.organisation.slug}/surveys/${survey.id}`;
-    for (const m of recipients) {
-      enqueueMail(ctx, {
-        to: m.user.email,
-        organisationId: ctx.organisation.id,
-        dedupeKey: `survey-under-protection:${survey.id}:${m.user.id}`,
-        subject: `Under-protection found on ${survey.asset.name} (survey of ${survey.surveyedOn})`,
-        text: `${under} reading(s) of the ${survey.method} survey of ${survey.asset.name} on ${survey.surveyedOn} are less negative than the protection criterion.\n\nSee the readings: ${url}\n\nCheck the anodes and their electrical continuity; verify against the governing standard before acting.\n\n— Tidewarden`,
-      });
-    }
-  }
-  return { under };
+  const { under, mailed } = await alertUnderProtection(ctx, survey, created);
+  return { under, mailed, readings: created };
 }
 
 /**
@@ -82,12 +87,11 @@ function assertAgAgClSeawaterUsable(salinityPsu: number | null) {
 export async function addReading(ctx: OrgContext, surveyId: string, form: Record<string, unknown>) {
   requirePermission(ctx, 'survey:write');
   const survey = await getSurveyOrThrow(ctx, surveyId);
-  // The form asks for the remaining anode mass in per cent; the register keeps a fraction.
-  const percent = form.remainingPercent;
-  const reading = readingSchema.parse({ ...form, remainingFraction: percent === '' || percent === undefined || percent === null ? null : Number(percent) / 100 }) as ReadingInput;
-  const { under } = await addReadings(ctx, survey, [reading]);
-  audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { location: reading.location } });
+  const reading = readingFormSchema(surveyElectrodeOf(survey)).parse(form) as ReadingInput;
+  await groupByLabel(ctx, survey, reading.anodeGroupLabel);
+  const { under, mailed, readings } = await addReadings(ctx, survey, [reading]);
+  audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { readingId: readings[0].id, location: reading.location } });
   ctx.effects.assetChanged(survey.asset.id);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
-  return { survey, under };
+  return { survey, under, mailed };
 }

@@ -37,7 +37,7 @@ export async function getSurveyDetails(ctx: OrgContext, surveyId: string) {
   });
   const counts = rows.reduce<Record<PotentialStatus, number>>((acc, r) => (r.potentialStatus ? { ...acc, [r.potentialStatus]: acc[r.potentialStatus] + 1 } : acc), { 'under-protected': 0, protected: 0, 'over-protected': 0 });
   return {
-    survey: { id: survey.id, assetId: survey.asset.id, assetName: survey.asset.name, metal: criteria.protectedMetal, criteriaFor: criteriaSubject(criteria), surveyedOn: survey.surveyedOn, method: survey.method, surveyor: survey.surveyor ?? null, notes: survey.notes ?? null, createdBy: survey.createdBy.name },
+    survey: { id: survey.id, assetId: survey.asset.id, assetName: survey.asset.name, metal: criteria.protectedMetal, criteriaFor: criteriaSubject(criteria), surveyedOn: survey.surveyedOn, method: survey.method, surveyor: survey.surveyor ?? null, defaultElectrode: survey.defaultElectrode ?? 'ag-agcl-seawater', notes: survey.notes ?? null, createdBy: survey.createdBy.name },
     readings: rows,
     counts,
     attachments: attachments.map((a) => ({ id: a.id, filename: a.filename, contentType: a.contentType, sizeBytes: a.sizeBytes, caption: a.caption ?? null, uploadedBy: a.uploadedByEmail ?? null })),

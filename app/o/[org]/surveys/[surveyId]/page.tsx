@@ -12,6 +12,11 @@ import { ReadingsTable } from '@/components/surveys/readings-table';
 import { CsvUpload } from '@/components/surveys/csv-upload';
 import { ReadingForm } from '@/components/surveys/reading-form';
 import { AttachmentUpload } from '@/components/surveys/attachment-upload';
+import { AttachmentActions } from '@/components/surveys/attachment-actions';
+import { SurveyEditForm } from '@/components/surveys/survey-edit-form';
+import { ConfirmDelete } from '@/components/surveys/confirm-delete';
+import { deleteSurveyAction } from '../actions';
+import { queryKeys } from '@/lib/client/query-client';
 import { SURVEY_CSV_COLUMNS } from '@/lib/surveys/survey-csv';
 import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
 
@@ -50,12 +55,12 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
         </div>
         {survey.notes ? <p className="text-sm text-ink-soft">{survey.notes}</p> : null}
         <Panel title="Readings">
-          <ReadingsTable readings={readings} />
+          <ReadingsTable readings={readings} editing={canWrite ? { org, surveyId: survey.id, groups, electrode: survey.defaultElectrode } : undefined} />
         </Panel>
         {canWrite ? (
           <div className="grid items-start gap-4 xl:grid-cols-2">
             <Panel title="Upload readings (CSV)">
-              <CsvUpload org={org} surveyId={survey.id} />
+              <CsvUpload org={org} surveyId={survey.id} electrode={survey.defaultElectrode} />
               <details className="mt-3 text-xs text-ink-soft">
                 <summary className="cursor-pointer">The columns</summary>
                 <table className="mt-1 w-full">
@@ -72,7 +77,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
               </details>
             </Panel>
             <Panel title="Add a reading">
-              <ReadingForm org={org} surveyId={survey.id} groups={groups} />
+              <ReadingForm org={org} surveyId={survey.id} groups={groups} electrode={survey.defaultElectrode} />
             </Panel>
           </div>
         ) : null}
@@ -89,6 +94,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
                     ) : null}
                     <a href={href} className="text-tide-600 underline">{a.filename}</a>
                     <p className="text-ink-faint">{a.caption ?? ''} · {Math.ceil(a.sizeBytes / 1024)} KB</p>
+                    {canWrite ? <AttachmentActions org={org} surveyId={survey.id} attachment={a} /> : null}
                   </li>
                 );
               })}
@@ -98,6 +104,21 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
           )}
           {canWrite ? <AttachmentUpload org={org} surveyId={survey.id} /> : null}
         </Panel>
+        {canWrite ? (
+          <Panel title="Correct or delete the survey">
+            <SurveyEditForm org={org} survey={{ id: survey.id, surveyedOn: survey.surveyedOn, method: survey.method, surveyor: survey.surveyor, defaultElectrode: survey.defaultElectrode, notes: survey.notes }} />
+            <div className="mt-4 border-t border-rule pt-3">
+              <ConfirmDelete
+                action={deleteSurveyAction.bind(null, org)}
+                fields={{ surveyId: survey.id }}
+                what={`this survey with its ${readings.length} reading${readings.length === 1 ? '' : 's'} and ${attachments.length} attachment${attachments.length === 1 ? '' : 's'}`}
+                consequence="An engineer can restore it within 30 days."
+                label="Delete the survey"
+                invalidate={[queryKeys.surveys(org)]}
+              />
+            </div>
+          </Panel>
+        ) : null}
         <Caution>
           Readings are judged against -0.80 V Ag/AgCl/seawater for steel (-0.90 V where sulphate-reducing bacteria are active) and the over-protection limits of the protected metal, with IR drop as measured. Verify against the governing standard and local rules before acting on a survey.
         </Caution>

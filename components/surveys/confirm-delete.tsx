@@ -1,0 +1,48 @@
+'use client';
+import { useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { Button } from '@/components/ui/button';
+import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
+
+/**
+ * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
+ * "Yes, delete" submits. Hidden fields name the record.
+ */
+export function ConfirmDelete({ action, fields, what, consequence, label = 'Delete', invalidate = [] }: { action: BoundAction; fields: Record<string, string>; what: string; consequence: string; label?: string; invalidate?: readonly (readonly unknown[])[] }) {
+  const [asking, setAsking] = useState(false);
+  const client = useQueryClient();
+  const { state, action: submit, pending } = useBoundAction(action, { invalidate });
+  if (!asking) {
+    return (
+      <span className="inline-flex items-center gap-2">
+        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => setAsking(true)}>
+          {label}
+        </Button>
+        <ActionError state={state} />
+      </span>
+    );
+  }
+  return (
+    <form
+      action={submit}
+      // A delete that navigates away (the survey) never reports success here: drop the cached lists as it is sent.
+      onSubmit={() => {
+        for (const queryKey of invalidate) client.removeQueries({ queryKey });
+      }}
+      className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
+      {Object.entries(fields).map(([name, value]) => (
+        <input key={name} type="hidden" name={name} value={value} />
+      ))}
+      <span>
+        Delete {what}? {consequence}
+      </span>
+      <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
+        Yes, delete
+      </Button>
+      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setAsking(false)}>
+        Keep it
+      </Button>
+      <ActionError state={state} />
+    </form>
+  );
+}
