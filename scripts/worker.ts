@@ -12,6 +12,7 @@ import { queueWeeklyDigests } from '../lib/server/services/reminders/weekly-dige
 import { forgetStaleWorkers, newWorkerIdentity, recordHeartbeat } from '../lib/server/worker-status';
 import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconcile-subscription';
 import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
+import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
@@ -44,11 +45,14 @@ async function main() {
     if (changed || failed) console.log(`[worker] subscriptions reconciled: ${checked} checked, ${changed} repaired, ${failed} could not be checked`);
   });
   await boss.send(JOBS.billing, {}, { singletonKey: 'startup', singletonSeconds: 60 });
-  // Housekeeping: idempotency keys older than their window (48 h) answer no repeat any more.
+  // Housekeeping, hourly: idempotency keys older than their window (48 h) answer no repeat any more, and
+  // deleted surveys leave the bin once they can no longer be restored (30 days).
   await boss.schedule(JOBS.housekeeping, '17 * * * *', {}, { tz: 'UTC' });
   await boss.work(JOBS.housekeeping, async () => {
     const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());
     if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
+    const purged = await purgeDeletedSurveys(orm.em.fork());
+    if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
   });
 
   let stopping = false;

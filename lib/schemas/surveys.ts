@@ -1,11 +1,13 @@
 import { z } from 'zod';
 import { pastDateOnlyField } from './date-only-field';
 import { readingSchema } from './register';
+import { multilineText, text } from './text';
 
 export const SURVEY_ELECTRODE_VALUES = ['ag-agcl-seawater', 'cse', 'sce', 'zinc'] as const;
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v);
-const optionalText = (max: number) => z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), z.string().trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
+const optionalText = (max: number, { multiline = false } = {}) =>
+  z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? null : v), (multiline ? multilineText() : text()).trim().max(max, `Use at most ${max} characters.`).nullable().default(null));
 
 /** A survey's own fields as the edit form sends them (the asset it belongs to does not change). */
 export const surveyEditSchema = z.object({
@@ -13,7 +15,7 @@ export const surveyEditSchema = z.object({
   method: z.enum(['diver', 'drop-cell', 'rov', 'dry-dock', 'other'], { error: 'Choose how the survey was made.' }),
   surveyor: optionalText(120),
   defaultElectrode: z.enum(SURVEY_ELECTRODE_VALUES, { error: 'Choose the reference electrode.' }),
-  notes: optionalText(4000),
+  notes: optionalText(4000, { multiline: true }),
 });
 
 /**
