@@ -5,7 +5,10 @@ import { getEm } from '@/lib/server/db';
 import { listWaitingMail } from '@/lib/server/mail/outbox';
 import { mayUseDevInbox } from '@/lib/server/dev-inbox';
 
-export const metadata: Metadata = { title: 'Dev inbox' };
+// Named only when it is shown: the 404 answered otherwise must not say what is here.
+export async function generateMetadata(): Promise<Metadata> {
+  return (await mayUseDevInbox()) ? { title: 'Dev inbox' } : {};
+}
 export const dynamic = 'force-dynamic';
 
 interface FakeMessage {

@@ -71,7 +71,7 @@ test.describe('route handlers refuse what did not come from our own pages', () =
   });
 
   test('an upload route takes a file, not a JSON or text body', async ({ page }) => {
-    const surveys = await (await page.request.get(`/api/orgs/${org}/surveys?pageSize=1`)).json();
+    const surveys = await (await page.request.get(`/api/orgs/${org}/surveys?pageSize=5`)).json();
     const res = await page.request.post(`/api/orgs/${org}/surveys/${surveys.rows[0].id}/attachments`, {
       headers: { origin: ownOrigin(page), 'content-type': 'text/plain' },
       data: 'not a file',
