@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { connection } from 'next/server';
 import './globals.css';
 import { appFont } from './fonts';
 import { Providers } from '@/components/providers';
@@ -8,7 +9,10 @@ export const metadata: Metadata = {
   description: 'Sacrificial-anode cathodic protection for ship hulls and harbour structures: design, register, surveys and dry-dock anode lists.',
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page is rendered per request so that its scripts carry that response's CSP nonce (proxy.ts);
+  // a page prerendered at build time would have scripts without one, and the browser would block them.
+  await connection();
   return (
     <html lang="en-GB" className={appFont.variable}>
       <body className="min-h-screen bg-paper font-sans text-base text-ink antialiased">

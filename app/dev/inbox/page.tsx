@@ -3,8 +3,12 @@ import { notFound } from 'next/navigation';
 import { getEnv } from '@/lib/server/env';
 import { getEm } from '@/lib/server/db';
 import { listWaitingMail } from '@/lib/server/mail/outbox';
+import { mayUseDevInbox } from '@/lib/server/dev-inbox';
 
-export const metadata: Metadata = { title: 'Dev inbox' };
+// Named only when it is shown: the 404 answered otherwise must not say what is here.
+export async function generateMetadata(): Promise<Metadata> {
+  return (await mayUseDevInbox()) ? { title: 'Dev inbox' } : {};
+}
 export const dynamic = 'force-dynamic';
 
 interface FakeMessage {
@@ -28,10 +32,12 @@ const linkify = (text: string) =>
     ),
   );
 
-// What the SMTP fake received, plus the outbox state: development and tests only.
+// What the SMTP fake received, plus the outbox state: only while mail goes to the local fake, and only
+// for a request from this machine (see lib/server/dev-inbox.ts); otherwise the page does not exist.
 export default async function DevInboxPage() {
+  if (!(await mayUseDevInbox())) notFound();
   const env = getEnv();
-  if (env.TIDEWARDEN_ENV === 'production' || !env.FAKE_MAIL_API) notFound();
+  if (!env.FAKE_MAIL_API) notFound();
   let messages: FakeMessage[] = [];
   let unreachable = false;
   try {
@@ -44,7 +50,7 @@ export default async function DevInboxPage() {
   return (
     <main className="mx-auto max-w-4xl px-6 py-8">
       <h1 className="text-2xl font-semibold">Dev inbox</h1>
-      <p className="mb-4 text-sm text-ink-soft">Every e-mail the local SMTP fake received, newest first. Not available in production.</p>
+      <p className="mb-4 text-sm text-ink-soft">Every e-mail the local SMTP fake received, newest first. Only shown while mail goes to the local fake, and only on this machine.</p>
       {unreachable ? <p role="alert" className="mb-4 text-sm text-state-overdue">The SMTP fake is not reachable at {env.FAKE_MAIL_API}.</p> : null}
       {waiting.length ? (
         <section className="mb-6 rounded-[4px] border border-state-due/40 bg-state-duebg p-3 text-sm">
