@@ -312,7 +312,7 @@ export function buildIfStale(distDir, env) {
 
 export function startNext(distDir, port, env) {
   // The preload puts the peer's address at the end of X-Forwarded-For (see the file): the rate limits need it.
-  return startChild('next', process.execPath, ['--require', path.join(root, 'scripts', 'lib', 'forwarded-for.cjs'), path.join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  return startChild('next', process.execPath, [path.join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'start', '-H', '127.0.0.1', '-p', String(port)], {
     ...env,
     TIDEWARDEN_DIST_DIR: distDir,
     NEXT_TELEMETRY_DISABLED: '1',

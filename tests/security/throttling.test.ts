@@ -1,8 +1,6 @@
 // Sign-in throttling and the limits on sign-ups, reset requests and invitations: counted atomically before
 // the work, per address and account, on the client address the server saw (not on what the client wrote).
 import http from 'node:http';
-import { createRequire } from 'node:module';
-import path from 'node:path';
 import { randomInt } from 'node:crypto';
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { isRedirectError } from 'next/dist/client/components/redirect-error';
@@ -11,6 +9,7 @@ import { getEm, getOrm } from '@/lib/server/db';
 import { AppError } from '@/lib/server/errors';
 import type { ActionState } from '@/lib/server/action';
 import { addressFromForwardedFor } from '@/lib/server/auth/session';
+import { installPeerAddressStamp, PEER_HEADER, peerAddress } from '@/lib/server/peer-address';
 import { LIMITS } from '@/lib/server/auth/rate-limit';
 import { signIn } from '@/lib/server/services/accounts/sign-in';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
@@ -18,7 +17,6 @@ import { requestPasswordReset } from '@/lib/server/services/accounts/request-pas
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
 import { requestHeaders } from '../fixtures/next-headers-mock';
-import { ROOT } from '../fixtures/entry-points';
 
 const MAX_FAILURES_PER_PAIR = LIMITS.signInPair.points;
 const MAX_FAILURES_PER_ADDRESS = LIMITS.signInAddress.points;
@@ -116,12 +114,12 @@ describe('the client address', () => {
     expect(addressFromForwardedFor(chain, hops)).toBe(expected);
   });
 
-  it('the server appends the peer address, so 60 guesses with rotating spoofed X-Forwarded-For values are still blocked', async () => {
-    // The preload the start scripts give `next start`, loaded into a plain server here.
-    createRequire(import.meta.url)(path.join(ROOT, 'scripts/lib/forwarded-for.cjs'));
-    const seen: string[] = [];
+  it('the server stamps the peer address, so 60 guesses with rotating spoofed X-Forwarded-For values are still blocked', async () => {
+    // The stamp the app's server installs at start-up (instrumentation.ts), installed on a plain server here.
+    installPeerAddressStamp();
+    const seen: { forwarded: string; peer: string }[] = [];
     const server = http.createServer((req, res) => {
-      seen.push(String(req.headers['x-forwarded-for']));
+      seen.push({ forwarded: String(req.headers['x-forwarded-for']), peer: String(req.headers[PEER_HEADER]) });
       res.end('ok');
     });
     await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
@@ -129,10 +127,10 @@ describe('the client address', () => {
     // The client connects from an address of its own in 127/8, so the counts are not shared with other tests.
     const peer = `127.${randomInt(1, 254)}.${randomInt(1, 254)}.${randomInt(1, 254)}`;
     const viaServer = (spoofed: string) =>
-      new Promise<string>((resolve, reject) => {
+      new Promise<{ forwarded: string; peer: string }>((resolve, reject) => {
         const before = seen.length;
         http
-          .get({ host: '127.0.0.1', port, localAddress: peer, headers: { 'x-forwarded-for': spoofed } }, (res) => {
+          .get({ host: '127.0.0.1', port, localAddress: peer, headers: { 'x-forwarded-for': spoofed, [PEER_HEADER]: `forged ${spoofed}` } }, (res) => {
             res.resume();
             res.on('end', () => resolve(seen[before]!));
           })
@@ -143,7 +141,9 @@ describe('the client address', () => {
     const messages: string[] = [];
     try {
       for (let i = 0; i < 60; i++) {
-        requestHeaders.set('x-forwarded-for', await viaServer(`10.${i}.${i}.${i}`));
+        const arrived = await viaServer(`10.${i}.${i}.${i}`);
+        requestHeaders.set('x-forwarded-for', arrived.forwarded);
+        requestHeaders.set(PEER_HEADER, arrived.peer);
         const form = new FormData();
         form.set('email', uniqueEmail('spray'));
         form.set('password', 'Summer2026!-guess');
@@ -152,9 +152,12 @@ describe('the client address', () => {
       }
     } finally {
       requestHeaders.set('x-forwarded-for', original ?? '127.0.0.1');
+      requestHeaders.delete(PEER_HEADER);
       server.close();
     }
-    expect(seen[0]).toBe(`10.0.0.0, ${peer}`);
+    // The client's own X-Forwarded-For arrives as written; the forged stamp is replaced by the real one.
+    expect(seen[0]!.forwarded).toBe('10.0.0.0');
+    expect(peerAddress(seen[0]!.peer)).toBe(peer);
     const blocked = messages.filter((m) => /Too many failed sign-ins/.test(m)).length;
     expect(messages.slice(0, MAX_FAILURES_PER_ADDRESS).every((m) => m === 'The e-mail address or password is not right.')).toBe(true);
     expect(blocked).toBe(60 - MAX_FAILURES_PER_ADDRESS);

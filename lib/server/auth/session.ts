@@ -5,6 +5,7 @@ import type { User as LuciaUser, Session } from 'lucia';
 import { getLucia } from './lucia';
 import { getEnv } from '../env';
 import type { CurrentUser } from '../org-context';
+import { PEER_HEADER, peerAddress } from '../peer-address';
 
 /** The signed-in user for this request (cached per request), refreshing the cookie when Lucia extends it. */
 export const getCurrentSession = cache(async (): Promise<{ user: LuciaUser; session: Session } | { user: null; session: null }> => {
@@ -68,8 +69,8 @@ export async function endSession() {
 
 /**
  * The client's address from an X-Forwarded-For chain, trusting `trustedHops` proxies in front of the app.
- * The app's server appends the socket's peer address to the chain (scripts/lib/forwarded-for.cjs), so the last
- * entry is the peer and every entry before it may be anything the client wrote. With no trusted proxy the
+ * clientAddress() puts the socket's peer address at the end of the chain (lib/server/peer-address.ts), so the
+ * last entry is the peer and every entry before it may be anything the client wrote. With no trusted proxy the
  * peer is the client; with n trusted proxies the client is the entry the outermost one appended, n places
  * before the end. A chain shorter than that means a proxy is missing: the first entry is the best guess.
  */
@@ -79,8 +80,16 @@ export function addressFromForwardedFor(chain: string | null | undefined, truste
   return hops[Math.max(0, hops.length - 1 - Math.max(0, trustedHops))]!;
 }
 
-/** The client's address, for rate limits and audit (see addressFromForwardedFor and TRUSTED_PROXY_HOPS). */
+/**
+ * The client's address, for rate limits and audit (see addressFromForwardedFor and TRUSTED_PROXY_HOPS).
+ * `next start` passes a client-written X-Forwarded-For on unchanged, so the chain is completed with the
+ * socket's own address, which the server stamps on every request (instrumentation.ts). Without that stamp
+ * (tests that call actions directly) the header is read as it is.
+ */
 export async function clientAddress(): Promise<string> {
   const h = await headers();
-  return addressFromForwardedFor(h.get('x-forwarded-for'), getEnv().TRUSTED_PROXY_HOPS) ?? 'unknown';
+  const forwarded = h.get('x-forwarded-for');
+  const peer = peerAddress(h.get(PEER_HEADER));
+  const chain = peer ? [forwarded, peer].filter(Boolean).join(', ') : forwarded;
+  return addressFromForwardedFor(chain, getEnv().TRUSTED_PROXY_HOPS) ?? 'unknown';
 }
