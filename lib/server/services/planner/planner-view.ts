@@ -1,8 +1,8 @@
 import { RenewalSchema } from '@/entities';
-import { proposeNextDockings } from '@/lib/forecast';
+import { proposeNextDockings, type RenewalProposal } from '@/lib/forecast';
 import { toDateOnly } from '@/lib/dates/date-only';
 import { forecastDateWords } from '@/lib/forecast/labels';
-import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/words/renewal-rule';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence, type RenewalPlanSummary } from '@/lib/words/renewal-rule';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, renewalMarginMonths, renewalRuleOf, type AssetPlan } from './compute-plans';
@@ -71,12 +71,9 @@ export interface PlannerSuggestion {
   source: 'renewal' | 'class';
 }
 
-/** The planner's row for one group (null when it has nothing to book yet): the same date and words the asset page shows. */
-export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups'][number]): PlannerRenewBy | null {
-  const proposal = g.proposal;
-  const due = g.forecast?.renewBy;
-  if (!proposal || !due || (proposal.status !== 'proposed' && proposal.status !== 'kept' && proposal.status !== 'no-docking')) return null;
-  const summary = {
+/** A proposal as the words take it (renewalPlanWords): dates as YYYY-MM-DD. */
+export function renewalPlanSummary(proposal: RenewalProposal): Required<RenewalPlanSummary> {
+  return {
     status: proposal.status,
     dockingDate: proposal.dockingDate ? toDateOnly(proposal.dockingDate) : null,
     deadline: proposal.deadline ? toDateOnly(proposal.deadline) : null,
@@ -84,6 +81,17 @@ export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups
     withinMargin: Boolean(proposal.withinMargin),
     earlierDockingBy: proposal.earlierDocking ? toDateOnly(proposal.earlierDocking.by) : null,
   };
+}
+
+/** The scheduler's sentence for a group, with the earlier docking it asks for. */
+export const renewalReasonOf = (proposal: RenewalProposal) => (proposal.earlierDocking ? `${proposal.reason} ${proposal.earlierDocking.reason}` : proposal.reason);
+
+/** The planner's row for one group (null when it has nothing to book yet): the same date and words the asset page shows. */
+export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups'][number]): PlannerRenewBy | null {
+  const proposal = g.proposal;
+  const due = g.forecast?.renewBy;
+  if (!proposal || !due || (proposal.status !== 'proposed' && proposal.status !== 'kept' && proposal.status !== 'no-docking')) return null;
+  const summary = renewalPlanSummary(proposal);
   return {
     assetId: p.asset.id,
     assetName: p.asset.name,
@@ -96,7 +104,7 @@ export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups
     overdue: summary.overdue,
     earlierDockingBy: summary.earlierDockingBy,
     words: renewalPlanWords(summary),
-    reason: proposal.earlierDocking ? `${proposal.reason} ${proposal.earlierDocking.reason}` : proposal.reason,
+    reason: renewalReasonOf(proposal),
   };
 }
 
