@@ -48,7 +48,7 @@ describe('a group that is overdue is proposed at the very next docking or campai
 
     const plan = await planOf(vessel.id);
     const g = plan.groups.find((x) => x.group.id === hull.id)!;
-    expect(g.forecast!.renewBy.getTime()).toBeLessThan(Date.now()); // the shape of the finding: already past its renew-by date
+    expect(g.forecast!.renewBy!.getTime()).toBeLessThan(Date.now()); // the shape of the finding: already past its renew-by date
     expect(g.proposal).toMatchObject({ status: 'proposed', dockingId: next.id, overdue: true });
     expect(plan.outlook).toBe('overdue');
     // Stored as a proposal on that docking's list (before the fix: no renewal at any docking).
