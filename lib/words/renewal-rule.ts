@@ -25,9 +25,10 @@ export const RENEW_BY_DATE_WORDS = `the ${forecastDateWords('renewBy').replace(/
  */
 export function renewalRuleSentence({ marginMonths, thresholdPercent }: RenewalRuleSettings): string {
   const when = marginMonths > 0 ? `at least ${months(marginMonths)} before ${RENEW_BY_DATE_WORDS}` : `on or before ${RENEW_BY_DATE_WORDS}`;
+  const late = marginMonths > 0 ? 'a group already inside the margin' : 'a group already past that date';
   return (
     `Renewals are proposed at the last docking ${when}, when ${thresholdPercent} % of the anode mass remains ` +
-    '(or when the utilisation factor is used up, if that comes first). Owners set both on the Team page.'
+    `(or when the utilisation factor is used up, if that comes first); ${late} is proposed at the next docking. Owners set both on the Team page.`
   );
 }
 
