@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { DockingSchema, MembershipSchema } from '@/entities';
+import { DockingSchema, MembershipSchema, OutboxMessageSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
 import { anodeListFor, anodeListPdf } from '../planner/anode-list';
@@ -63,6 +63,9 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     if (threshold === undefined) continue;
     const recipients = members.filter((m) => m.organisation.id === docking.organisation.id);
     if (!recipients.length) continue;
+    const keyOf = (userId: string) => `docking-reminder:${docking.id}:${docking.plannedStart}:${threshold}:${userId}`;
+    // Everyone already has this reminder: nothing to recompute or render (the job runs far more often than reminders fall due).
+    if ((await em.count(OutboxMessageSchema, { dedupeKey: { $in: recipients.map((m) => keyOf(m.user.id)) } })) === recipients.length) continue;
     // The proposals as of today (a group may have become overdue since the last change), then the list; the PDF
     // only when the list has something to fit: an empty list is never attached, the e-mail says what is missing.
     const prepared = await runAsSystem(
@@ -95,7 +98,7 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
       const sent = await enqueueMailOnce(em, {
         to: m.user.email,
         organisationId: docking.organisation.id,
-        dedupeKey: `docking-reminder:${docking.id}:${docking.plannedStart}:${threshold}:${m.user.id}`,
+        dedupeKey: keyOf(m.user.id),
         ...mail,
       });
       if (sent) queued++;
