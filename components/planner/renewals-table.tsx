@@ -86,7 +86,16 @@ export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { 
       col.accessor('designation', { header: 'Model' }),
       col.accessor('quantity', { header: 'Qty', meta: { numeric: true } }),
       col.accessor((r) => r.quantity * r.netMassKg, { id: 'net', header: 'Net mass', meta: { numeric: true }, cell: (c) => `${fmt(c.getValue(), 1)} kg` }),
-      col.accessor('reason', { header: 'Reason', cell: (c) => <span title={c.row.original.rationale ?? undefined}>{c.getValue().replace(/-/g, ' ')}</span> }),
+      col.accessor('reason', {
+        header: 'Reason',
+        // The scheduler's sentence (with the renew-by date and the margin) in words on the page, not in a tooltip.
+        cell: (c) => (
+          <span className="flex max-w-md flex-col">
+            <span>{c.getValue().replace(/-/g, ' ')}</span>
+            {c.row.original.rationale ? <span className="text-2xs text-ink-soft">{c.row.original.rationale}</span> : null}
+          </span>
+        ),
+      }),
       col.accessor('status', { header: 'Status', cell: (c) => <StatusTag tone={STATUS_TONE[c.getValue()] ?? 'neutral'}>{STATUS_WORDS[c.getValue()] ?? c.getValue()}</StatusTag> }),
       col.display({ id: 'steps', header: '', cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} dockings={dockings} /> }),
     ];

@@ -8,19 +8,9 @@ import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
-import type { AssetOutlook } from '@/lib/forecast';
 import { forecastDateWords } from '@/lib/forecast/labels';
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
-import { StatusTag, type StatusTone } from '@/components/ui/panel';
-
-/** The colour cue of each outlook; the words come with the row (OUTLOOK_WORDS). */
-const OUTLOOK_TONES: Readonly<Record<AssetOutlook, StatusTone>> = {
-  sound: 'sound',
-  'renew-at-next-docking': 'due',
-  overdue: 'overdue',
-  'over-protected': 'over',
-  'under-protected': 'under',
-};
+import { OutlookTag } from '@/components/planner/outlook-tag';
 
 export function FleetTable({ org }: { org: string }) {
   const [archived, setArchived] = useState(false);
@@ -36,10 +26,9 @@ export function FleetTable({ org }: { org: string }) {
         cell: (c) => {
           const o = c.row.original.outlook;
           if (!o) return '—';
-          const tone = OUTLOOK_TONES[o] ?? 'neutral';
           return (
             <span className="flex flex-col gap-0.5">
-              <StatusTag tone={tone}>{c.getValue()}</StatusTag>
+              <OutlookTag outlook={o} />
               {c.row.original.renewBy ? <span className="text-2xs text-state-overdue">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no docking planned in time</span> : null}
             </span>
           );

@@ -5,12 +5,14 @@ import { date, finite, list, record, text } from './validate';
 
 /**
  * An asset's protection outlook for the fleet overview, by precedence
- *   under-protected > over-protected > overdue > renew-at-next-docking > sound:
+ *   under-protected > over-protected > no-anodes > overdue > renew-at-next-docking > sound:
  * - 'under-protected': the latest survey found potentials outside the protection criteria
  *   (the caller decides that from the readings);
  * - 'over-protected': the latest survey found a potential more negative than the asset's
  *   over-protection limit (coating disbondment, hydrogen embrittlement of high-strength steel,
  *   alkaline corrosion of aluminium); under-protection found in the same survey comes first;
+ * - 'no-anodes': the asset has no anode group recorded (`anodesRecorded: false`): nothing is
+ *   known to protect it, so it is never called sound;
  * - 'overdue': a group is flagged overdue, or its `needsDockingBy` is before today (the
  *   stored proposals may be older than today);
  * - 'renew-at-next-docking': a group is proposed or kept at the next docking (at any
@@ -19,7 +21,7 @@ import { date, finite, list, record, text } from './validate';
  * - 'sound': otherwise (renewals only at later dockings, or none).
  */
 
-export type AssetOutlook = 'sound' | 'renew-at-next-docking' | 'overdue' | 'over-protected' | 'under-protected';
+export type AssetOutlook = 'sound' | 'no-anodes' | 'renew-at-next-docking' | 'overdue' | 'over-protected' | 'under-protected';
 
 export type GroupStatusSummary = Pick<RenewalProposal, 'status' | 'overdue' | 'needsDockingBy' | 'dockingId'>;
 
@@ -29,6 +31,8 @@ export interface AssetOutlookInput {
   /** The latest survey has a reading beyond the over-protection limit; omitted = false. */
   overProtectedBySurvey?: boolean;
   today: Date;
+  /** The asset has at least one anode group recorded; omitted = true. */
+  anodesRecorded?: boolean;
   /** The asset's next docking; when given, only renewals at it make 'renew-at-next-docking'. */
   nextDockingId?: string | null;
 }
@@ -41,6 +45,9 @@ export function assetOutlook(input: AssetOutlookInput): AssetOutlook {
   }
   if (inp.overProtectedBySurvey !== undefined && typeof inp.overProtectedBySurvey !== 'boolean') {
     throw new ForecastInputError('overProtectedBySurvey', 'overProtectedBySurvey must be true or false.');
+  }
+  if (inp.anodesRecorded !== undefined && typeof inp.anodesRecorded !== 'boolean') {
+    throw new ForecastInputError('anodesRecorded', 'anodesRecorded must be true or false.');
   }
   const todayDay = dayNumberUTC(date(inp.today, 'today'));
   const nextDockingId = inp.nextDockingId === undefined || inp.nextDockingId === null ? null : text(inp.nextDockingId, 'nextDockingId');
@@ -57,6 +64,7 @@ export function assetOutlook(input: AssetOutlookInput): AssetOutlook {
 
   if (inp.underProtectedBySurvey) return 'under-protected';
   if (inp.overProtectedBySurvey) return 'over-protected';
+  if (inp.anodesRecorded === false) return 'no-anodes';
   if (overdue) return 'overdue';
   if (renewNext) return 'renew-at-next-docking';
   return 'sound';

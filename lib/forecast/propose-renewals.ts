@@ -18,24 +18,33 @@ import { date, list, record, text, whole } from './validate';
  *    confirmed docking is unknown, cancelled, or after the group's deadline.
  * 2. A group whose due date is null (never depletes) is 'sound'.
  * 3. deadline = due date - margin (calendar months, default 6, practice).
- * 4. A deadline before today (by UTC calendar day) is 'no-docking' with
- *    `needsDockingBy = deadline` and `overdue: true`.
- * 5. Candidate dockings are those not cancelled, not done (a finished docking cannot
- *    take a new renewal) and dated today or later. Let the horizon be the last candidate's
- *    date (today when there is none) plus the typical docking interval (30 months,
- *    practice; class allows at most 36). A deadline after the horizon means the next
- *    docking, not yet planned, is expected before the deadline: the group is 'sound',
- *    nothing to book yet, with `nextReviewBy = deadline`. (The margin is applied here too,
- *    so a group whose deadline falls between the last planned docking and the next
- *    expected one is renewed at the last planned docking: "hull anodes that will not
- *    last to the next docking", design-basis.md, Inspection.)
- * 6. Otherwise the proposal is the LAST candidate dated on or before the deadline: renew
+ * 4. Candidate dockings are those not cancelled, not done (a finished docking cannot
+ *    take a new renewal) and dated today or later.
+ * 5. A deadline before today (by UTC calendar day) is overdue (`overdue: true`): the group
+ *    is proposed at the very next candidate, whatever its date, so it is on that docking's
+ *    list. When that docking falls after the due date itself (the anodes reach the renewal
+ *    point before it), or there is no candidate at all ('no-docking', `needsDockingBy =
+ *    deadline`), `earlierDocking` asks for an unplanned docking or campaign as soon as
+ *    possible (dated today).
+ * 6. Otherwise let the horizon be the last candidate's date (today when there is none)
+ *    plus the typical docking interval (30 months, practice; class allows at most 36).
+ *    A deadline after the horizon means the next docking, not yet planned, is expected
+ *    before the deadline: the group is 'sound', nothing to book yet, with `nextReviewBy =
+ *    deadline`. (The margin is applied here too, so a group whose deadline falls between
+ *    the last planned docking and the next expected one is renewed at the last planned
+ *    docking: "hull anodes that will not last to the next docking", design-basis.md,
+ *    Inspection.)
+ * 7. Otherwise the proposal is the LAST candidate dated on or before the deadline: renew
  *    at the last opportunity before the anodes run out so their life is used; a docking
  *    after the deadline is too late. A group that outlives several dockings is proposed
  *    at the last of them before its deadline. When the group's early date (the early end
  *    of its due date's band) less the margin is before that docking, `atRisk` is true.
- * 7. No candidate on or before the deadline: 'no-docking', `needsDockingBy = deadline`,
- *    `overdue: false`.
+ * 8. No candidate on or before the deadline, but one after it and on or before the due
+ *    date: the group can still reach that docking, inside the margin. It is proposed at
+ *    the first such docking with `withinMargin: true` (the sentence says so).
+ * 9. No candidate on or before the due date either: 'no-docking', `needsDockingBy =
+ *    deadline`, `overdue: false`, and `earlierDocking` asks for an unplanned docking or
+ *    campaign by the deadline.
  *
  * Cost: the dockings of an asset are validated, filtered and sorted once
  * (O(D log D)); each group is then O(log D) by binary search, so a fleet is
@@ -102,6 +111,13 @@ export interface RenewalProposal {
   nextReviewBy?: Date;
   /** 'proposed': the early end of the band would need renewal before this docking. */
   atRisk?: boolean;
+  /** 'proposed' at a docking after the deadline but on or before the due date (rules 5 and 8): inside the margin. */
+  withinMargin?: boolean;
+  /**
+   * No planned docking renews the group before its due date: an unplanned docking (a campaign for a
+   * structure) is needed by this date (today when overdue), with the sentence that says why.
+   */
+  earlierDocking?: { by: Date; reason: string };
   /** One English sentence. */
   reason: string;
   /** 'kept' only: the confirmed booking looks wrong (one sentence). */
@@ -255,19 +271,39 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
     }
 
-    // Rule 4: the deadline has passed.
+    const dueText = `${forecastDateWords(dueKey)} ${formatDateOnly(due!)}`;
+    const todayText = formatDateOnly(s.today);
+
+    // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
     if (dayNumberUTC(deadline) < s.todayDay) {
+      const overdueWords = `The renewal deadline ${formatDateOnly(deadline)}${because} has passed`;
+      const asap = (why: string) => ({ by: s.today, reason: `${why}: plan an unplanned docking or campaign as soon as possible (from ${todayText}).` });
+      if (n > 0) {
+        const dockingDate = docks.dates[0];
+        const late = dockingDate.getTime() > due!.getTime();
+        return {
+          groupId,
+          status: 'proposed',
+          dockingId: docks.ids[0],
+          dockingDate,
+          deadline,
+          overdue: true,
+          ...(late ? { earlierDocking: asap(`The next docking (${formatDateOnly(dockingDate)}) is after the ${dueText}`) } : { withinMargin: true }),
+          reason: `${overdueWords}, so the group is renewed at the next docking, ${formatDateOnly(dockingDate)}${late ? `, which is after the ${dueText}.` : '.'}`,
+        };
+      }
       return {
         groupId,
         status: 'no-docking',
         deadline,
         needsDockingBy: deadline,
         overdue: true,
-        reason: `The renewal deadline ${formatDateOnly(deadline)}${because} has passed, so the group needs a docking as soon as possible.`,
+        earlierDocking: asap('No docking or campaign is planned'),
+        reason: `${overdueWords} and no docking is planned, so the group needs a docking as soon as possible.`,
       };
     }
 
-    // Rule 5: outlives the planned dockings and the next expected one.
+    // Rule 6: outlives the planned dockings and the next expected one.
     if (deadline.getTime() > horizon) {
       return {
         groupId,
@@ -278,7 +314,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       };
     }
 
-    // Rule 6: the last candidate on or before the deadline.
+    // Rule 7: the last candidate on or before the deadline.
     const k = lastAtOrBefore(docks.times, deadline.getTime());
     if (k >= 0) {
       const dockingDate = docks.dates[k];
@@ -297,14 +333,30 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       };
     }
 
-    // Rule 7: no docking early enough.
+    // Rule 8: the first candidate after the deadline that is still on or before the due date (inside the margin).
+    if (n > 0 && docks.times[0] <= due!.getTime()) {
+      const dockingDate = docks.dates[0];
+      return {
+        groupId,
+        status: 'proposed',
+        dockingId: docks.ids[0],
+        dockingDate,
+        deadline,
+        withinMargin: true,
+        reason: `Renew at the docking of ${formatDateOnly(dockingDate)}: no docking falls before the deadline ${formatDateOnly(deadline)}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
+      };
+    }
+
+    // Rule 9: no docking reaches the group before its due date.
+    const next = n > 0 ? `the next docking (${formatDateOnly(docks.dates[0])}) is after the ${dueText}` : 'no docking or campaign is planned';
     return {
       groupId,
       status: 'no-docking',
       deadline,
       needsDockingBy: deadline,
       overdue: false,
-      reason: `No planned docking falls on or before the deadline ${formatDateOnly(deadline)}${because}, so the group needs a docking by then.`,
+      earlierDocking: { by: deadline, reason: `The ${next}: plan an unplanned docking or campaign by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
+      reason: `No planned docking falls on or before the deadline ${formatDateOnly(deadline)}${because}, and ${next}, so the group needs a docking by the deadline.`,
     };
   });
 }

@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { demo, demoUser, signIn } from './helpers';
-import { pdfText } from '../fixtures/pdf-text';
+import { pdfPages, pdfText } from '../fixtures/pdf-text';
 
 test('a planner opens a docking, confirms the proposed renewals and prints the anode list', async ({ page }) => {
   await signIn(page, demoUser('planner').email);
@@ -43,4 +43,41 @@ test('an engineer may read the planner but not confirm renewals', async ({ page 
   await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Tern Ledger/ }).getByRole('link').click();
   await expect(page.getByRole('table', { name: 'Renewals' })).toContainText('TW-ZB-2510');
   await expect(page.getByRole('button', { name: /^Confirm renewal of / })).toHaveCount(0);
+});
+
+test('a planner opens the next docking of an overdue vessel, finds its renewal proposed and prints the list on A4', async ({ page }) => {
+  await signIn(page, demoUser('planner').email);
+  await page.goto(`/o/${demo.organisation.slug}/dockings`);
+  // The demo's Kittiwake Sound: its hull group's renew-by date passed about seven weeks ago, its docking is 75 days ahead.
+  const row = page.getByRole('table', { name: 'Renew-by dates' }).getByRole('row', { name: /Kittiwake Sound/ });
+  await expect(row).toContainText('Overdue');
+  await expect(row).toContainText(/Proposed at the docking of \d{1,2} [A-Z][a-z]{2} \d{4} \(overdue; plan an earlier docking by /);
+  await expect(row).toContainText(/less 6 months\) has passed/);
+  // The earlier unplanned docking is offered with its date.
+  await expect(page.getByRole('list', { name: 'Suggested dockings' })).toContainText(/Kittiwake Sound: Unplanned by \d{1,2} [A-Z][a-z]{2} \d{4}/);
+
+  await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Kittiwake Sound/ }).getByRole('link').click();
+  await expect(page.getByRole('heading', { name: /Kittiwake Sound: Intermediate docking/ })).toBeVisible();
+  const hull = page.getByRole('table', { name: 'Renewals' }).getByRole('row', { name: /Hull P\/S/ });
+  await expect(hull).toContainText('Proposed');
+  // The scheduler's reason, with the margin, is on the page (not only in a tooltip).
+  await expect(hull).toContainText(/has passed, so the group is renewed at the next docking/);
+
+  const href = await page.getByRole('link', { name: 'Print the anode list (PDF)' }).getAttribute('href');
+  const response = await page.request.get(href!);
+  expect(response.headers()['content-type']).toBe('application/pdf');
+  const body = await response.body();
+  const text = (await pdfText(body)).replace(/\s+/g, ' ');
+  expect(text).toContain('Kittiwake Sound');
+  expect(text).toContain('TW-ZW-3015');
+  // A4 landscape, 841.89 x 595.28 pt (ISO 216), on every page.
+  const pages = await pdfPages(body);
+  expect(pages.length).toBeGreaterThan(0);
+  for (const p of pages) expect([p.width.toFixed(2), p.height.toFixed(2)]).toEqual(['841.89', '595.28']);
+
+  // The asset page says the same: overdue, and the same words for the group.
+  await page.goto(`/o/${demo.organisation.slug}/dockings`);
+  await page.getByRole('table', { name: 'Renew-by dates' }).getByRole('link', { name: 'Kittiwake Sound' }).click();
+  await expect(page.getByLabel('Protection outlook')).toHaveText('Overdue');
+  await expect(page.getByRole('table', { name: 'Forecast by group' }).getByRole('row', { name: /Hull P\/S/ })).toContainText(/Proposed at the docking of .* \(overdue; plan an earlier docking by /);
 });

@@ -115,7 +115,7 @@ describe('a group linked to a design follows its demand profile', () => {
     // u 0.8 for a short flush plate (DNV-RP-B401 (2010), from memory): 25 % left comes before 20 % left.
     expect(row.renewBy! < row.endOfLife!).toBe(true);
     expect(page.renewalRule).toBe(
-      'Renewals are proposed at the last docking at least 6 months before the renew-by date, when 25 % of the anode mass remains (or when the utilisation factor is used up, if that comes first). Owners set both on the Team page.',
+      'Renewals are proposed at the last docking at least 6 months before the renew-by date, when 25 % of the anode mass remains (or when the utilisation factor is used up, if that comes first); a group already inside the margin is proposed at the next docking. Owners set both on the Team page.',
     );
   });
 });

@@ -72,7 +72,8 @@ describe('survey classification with the asset’s criteria', () => {
     // -0.95 V protects ordinary steel (-0.80 to -1.05 V, published range) but over-protects the high-strength asset.
     const ordinary = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Ordinary Hull Test', hullMaterial: 'steel' }));
     await read((await surveyOf(ordinary.id)).id, 'Bottom', '-0.95');
-    expect((await fleetRow(ordinary.id)).outlook).toBe('sound');
+    // Protected, but no anodes are recorded on it: the outlook says so rather than 'sound'.
+    expect((await fleetRow(ordinary.id)).outlook).toBe('no-anodes');
     await read((await surveyOf(rig.id, '2025-07-01')).id, 'Leg B chord', '-0.95');
     expect((await fleetRow(rig.id)).outlook).toBe('over-protected');
   });
@@ -134,13 +135,14 @@ describe('the asset’s criteria', () => {
     const dolphin = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'structure', name: 'Berth Dolphin', structureType: 'dolphin', waterType: 'seawater' }));
     const survey = await surveyOf(dolphin.id);
     await read(survey.id, 'Pile 1', '-0.86');
-    expect(await storedOutlook(dolphin.id)).toBe('sound'); // -0.86 V protects aerobic steel
+    // -0.86 V protects aerobic steel; no anodes are recorded on the dolphin, so the outlook says that rather than 'sound'.
+    expect(await storedOutlook(dolphin.id)).toBe('no-anodes');
     await runAs(ctx('engineer'), (c) => updateAsset(c, dolphin.id, { kind: 'structure', name: 'Berth Dolphin', structureType: 'dolphin', waterType: 'seawater', anaerobic: 'on' }));
     expect(await storedOutlook(dolphin.id)).toBe('under-protected'); // but not anaerobic steel (-0.90 V)
     const audited = await (await getEm()).find(AuditEventSchema, { action: 'asset.updated', targetId: dolphin.id });
     expect(audited.map((a) => a.details?.surveyCriteria)).toEqual([{ protectedMetal: 'steel', anaerobic: true, highStrengthSteel: false }]);
     expect((await fleetRow(dolphin.id)).anaerobic).toBe(true);
     await runAs(ctx('engineer'), (c) => updateAsset(c, dolphin.id, { kind: 'structure', name: 'Berth Dolphin', structureType: 'dolphin', waterType: 'seawater' }));
-    expect(await storedOutlook(dolphin.id)).toBe('sound');
+    expect(await storedOutlook(dolphin.id)).toBe('no-anodes');
   });
 });

@@ -187,6 +187,7 @@ async function seedSubscription(organisation: Organisation) {
 async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: OrgContext, assets: Record<string, string>, ferryDesignId: string) {
   const zoneId = async (asset: string, name: string) => (await em.findOneOrFail(ZoneSchema, { asset: assets[asset], name })).id;
   const fit = (asset: string, g: Record<string, unknown>) => createAnodeGroup(engineer, assets[asset], g);
+  const inDays = (n: number) => toDateOnly(new Date(Date.now() + n * 86_400_000));
   // Brindlemoor, fitted at the March 2025 docking from the approved design.
   const ferryZones: [string, string, number, string][] = [
     ['Hull bottom', 'Bottom P/S', 22, 'Fr 20-130, bilge strakes P and S, 6 m pitch'],
@@ -198,7 +199,10 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   for (const [zone, label, quantity, positions] of ferryZones) {
     await fit('Brindlemoor', { zoneId: await zoneId('Brindlemoor', zone), label, anodeModelKey: 'builtin:TW-AW-4020', quantity, positions, installedOn: '2025-03-14', designId: ferryDesignId });
   }
-  await fit('Kittiwake Sound', { label: 'Hull P/S', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 40, positions: 'Fr 6-60 P and S', installedOn: '2024-10-02', meanCurrentA: 9.5 });
+  // Kittiwake Sound is overdue: 40 x TW-ZW-3015 (8.4 kg net, zinc 780 Ah/kg) at 9.5 A use about 106.7 kg a year, so 25 % of the
+  // 336 kg is left about 862 days after fitting. Fitted 910 days before the seeding day, the hull group's renew-by date was
+  // about seven weeks ago and its margin ran out long before; its next docking (in 75 days) carries the renewal.
+  await fit('Kittiwake Sound', { label: 'Hull P/S', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 40, positions: 'Fr 6-60 P and S', installedOn: inDays(-910), meanCurrentA: 9.5 });
   await fit('Tern Ledger', { label: 'Hull and nozzles', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 16, positions: 'Bilge keels and nozzle rims', installedOn: '2025-06-20', meanCurrentA: 2.1 });
   await fit('Wavecrest Minnow', { label: 'Hulls P/S', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 8, positions: 'Transoms and keels, both hulls', installedOn: '2025-04-11', meanCurrentA: 0.9 });
   const jettyImmersed = await zoneId('Gullhaven Ferry Jetty', 'Piles, immersed (48 × Ø 0.61 m × 9.5 m)');
@@ -231,7 +235,6 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
     const docking = em.create(DockingSchema, { organisation: engineer.organisation, asset: assets[asset], kind: kind as never, status, plannedStart, plannedEnd: null, actualStart: status === 'done' ? plannedStart : null, actualEnd: null, yard, reference: null, notes: null });
     return docking;
   };
-  const inDays = (n: number) => toDateOnly(new Date(Date.now() + n * 86_400_000));
   await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Harrowgate Dry Dock', 'done');
   await plan('Brindlemoor', 'intermediate', inDays(640), 'Harrowgate Dry Dock');
   await plan('Kittiwake Sound', 'intermediate', inDays(75), 'Corrie Point Shiprepair');

@@ -15,6 +15,14 @@ describe('assetOutlook', () => {
     expect(assetOutlook({ groupStatuses: [], underProtectedBySurvey: false, today })).toBe('sound');
   });
 
+  it('an asset with no anodes recorded is not sound, but a survey finding still comes first', () => {
+    expect(assetOutlook({ groupStatuses: [], underProtectedBySurvey: false, today, anodesRecorded: false })).toBe('no-anodes');
+    expect(assetOutlook({ groupStatuses: [], underProtectedBySurvey: true, today, anodesRecorded: false })).toBe('under-protected');
+    expect(assetOutlook({ groupStatuses: [], underProtectedBySurvey: false, overProtectedBySurvey: true, today, anodesRecorded: false })).toBe('over-protected');
+    expect(assetOutlook({ groupStatuses: [sound], underProtectedBySurvey: false, today, anodesRecorded: true })).toBe('sound');
+    expect(fieldOf(() => assetOutlook({ groupStatuses: [], underProtectedBySurvey: false, today, anodesRecorded: 'no' as unknown as boolean }))).toBe('anodesRecorded');
+  });
+
   it('renew-at-next-docking for a renewal at the next docking, not for one at a later docking', () => {
     expect(assetOutlook({ groupStatuses: [sound, atNext], underProtectedBySurvey: false, today, nextDockingId: 'D1' })).toBe('renew-at-next-docking');
     expect(assetOutlook({ groupStatuses: [sound, atLater], underProtectedBySurvey: false, today, nextDockingId: 'D1' })).toBe('sound');

@@ -38,17 +38,36 @@ describe('proposeRenewals: the last docking before the deadline', () => {
     expect(one({ id: 'g', endOfLife: utc('2028-03-01') })).toMatchObject({ status: 'proposed', dockingId: 'D1', deadline: utc('2027-09-01') });
   });
 
-  it('a group that cannot reach any docking is flagged with needsDockingBy = endOfLife - margin', () => {
-    // End of life 2025-10-01 -> deadline 2025-04-01; the first docking D1 (2025-06-01) is too late.
+  it('a group whose deadline comes before every docking but whose end of life does not is proposed inside the margin', () => {
+    // End of life 2025-10-01 -> deadline 2025-04-01; the first docking D1 (2025-06-01) is after the deadline but
+    // before the end of life: the group can still reach D1, inside the margin.
     const p = one({ id: 'g-bow', endOfLife: utc('2025-10-01') });
-    expect(p).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2025-04-01'), deadline: utc('2025-04-01'), overdue: false });
-    expect(p.dockingId).toBeUndefined();
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'D1', deadline: utc('2025-04-01'), withinMargin: true });
+    expect(p.needsDockingBy).toBeUndefined();
+    expect(p.earlierDocking).toBeUndefined();
+    expect(p.reason).toMatch(/inside the 6 months margin/);
   });
 
-  it('a deadline already past is overdue', () => {
-    // End of life 2025-05-01 -> deadline 2024-11-01, before today 2025-01-15
+  it('a group that cannot reach any docking is flagged with needsDockingBy = endOfLife - margin and an earlier docking by then', () => {
+    // End of life 2025-05-01 is before D1 (2025-06-01) -> deadline 2024-11-01 is past (today 2025-01-15): overdue,
+    // see below. With end of life 2025-08-01 and only D2/D3: deadline 2025-02-01, D2 (2027-12-01) after the end of life.
+    const p = one({ id: 'g-bow', endOfLife: utc('2025-08-01') }, { dockings: dockings.slice(1) });
+    expect(p).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2025-02-01'), deadline: utc('2025-02-01'), overdue: false });
+    expect(p.dockingId).toBeUndefined();
+    expect(p.earlierDocking?.by).toEqual(utc('2025-02-01'));
+    expect(p.earlierDocking?.reason).toMatch(/next docking \(1 Dec 2027\) is after the end of life 1 Aug 2025: plan an unplanned docking or campaign by 1 Feb 2025/);
+  });
+
+  it('a deadline already past is overdue, and the group is proposed at the very next docking', () => {
+    // End of life 2025-05-01 -> deadline 2024-11-01, before today 2025-01-15. D1 (2025-06-01) is the next docking;
+    // it is after the end of life, so an unplanned docking as soon as possible is asked for too.
     const p = one({ id: 'g', endOfLife: utc('2025-05-01') });
-    expect(p).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2024-11-01'), overdue: true });
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'D1', deadline: utc('2024-11-01'), overdue: true });
+    expect(p.earlierDocking?.by).toEqual(today);
+    // With no docking planned at all: no docking, overdue, a docking as soon as possible.
+    const none = one({ id: 'g', endOfLife: utc('2025-05-01') }, { dockings: [] });
+    expect(none).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2024-11-01'), overdue: true });
+    expect(none.earlierDocking?.by).toEqual(today);
   });
 
   it('the default margin is 6 months (practice)', () => {
@@ -74,12 +93,20 @@ describe('proposeRenewals: the last docking before the deadline', () => {
 
   it('past dockings (and finished ones) are ignored', () => {
     // Deadline 2025-03-01 (end of life 2025-09-01). A docking on 2024-12-01 lies before the
-    // deadline but is in the past; one marked done on 2025-02-01 cannot take a renewal.
+    // deadline but is in the past; one marked done on 2025-02-01 cannot take a renewal. D1 (2025-06-01)
+    // is the first docking the group can still reach (before its end of life), inside the margin.
     const p = one(
       { id: 'g', endOfLife: utc('2025-09-01') },
       { dockings: [{ id: 'old', date: utc('2024-12-01') }, { id: 'done', date: utc('2025-02-01'), status: 'done' }, ...dockings] },
     );
-    expect(p).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2025-03-01'), overdue: false });
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'D1', withinMargin: true });
+    expect(p.overdue).toBeUndefined();
+    // Without D1 the group reaches no docking: it needs one by its deadline.
+    const q = one(
+      { id: 'g', endOfLife: utc('2025-09-01') },
+      { dockings: [{ id: 'old', date: utc('2024-12-01') }, { id: 'done', date: utc('2025-02-01'), status: 'done' }, ...dockings.slice(1)] },
+    );
+    expect(q).toMatchObject({ status: 'no-docking', needsDockingBy: utc('2025-03-01'), overdue: false });
   });
 
   it('a docking today counts, whatever the time of day', () => {
@@ -232,17 +259,55 @@ describe('proposeRenewals input checks', () => {
   });
 });
 
+describe('proposeRenewals: groups that are overdue or cannot reach the next docking (today 2 Dec 2026)', () => {
+  const now = utc('2026-12-02');
+  it('an overdue hull group due in October 2026 is proposed at its February 2027 docking, with an unplanned docking as soon as possible', () => {
+    // Renew by 2026-10-15 (invented) -> deadline 2026-04-15, long past. The next docking is 2027-02-10: the group
+    // goes on its list (before: no docking at all), and since that docking is after the renew-by date an
+    // unplanned docking from today is suggested too.
+    const [p] = proposeRenewals({ today: now, groups: [{ id: 'hull', renewBy: utc('2026-10-15') }], dockings: [{ id: 'feb', date: utc('2027-02-10') }, { id: 'later', date: utc('2029-08-01') }] });
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'feb', dockingDate: utc('2027-02-10'), overdue: true, deadline: utc('2026-04-15') });
+    expect(p.earlierDocking).toEqual({ by: now, reason: expect.stringMatching(/The next docking \(10 Feb 2027\) is after the renew by 15 Oct 2026: plan an unplanned docking or campaign as soon as possible \(from 2 Dec 2026\)/) });
+    expect(p.reason).toMatch(/has passed, so the group is renewed at the next docking, 10 Feb 2027, which is after the renew by 15 Oct 2026\./);
+  });
+
+  it('an overdue jetty group is proposed at the next diving campaign, even one not after its renew-by date', () => {
+    // Renew by 2027-03-01 -> deadline 2026-09-01, past; the campaign on 2027-01-20 comes before the renew-by date:
+    // proposed there, inside the margin, no earlier campaign asked for.
+    const [p] = proposeRenewals({ today: now, groups: [{ id: 'bents', renewBy: utc('2027-03-01') }], dockings: [{ id: 'dive', date: utc('2027-01-20') }] });
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'dive', overdue: true, withinMargin: true });
+    expect(p.earlierDocking).toBeUndefined();
+  });
+
+  it('a group that cannot reach the next docking gets an earlier docking with its date', () => {
+    // Renew by 2027-09-01 -> deadline 2027-03-01; the only docking is 2027-11-01, after the renew-by date.
+    const [p] = proposeRenewals({ today: now, groups: [{ id: 'g', renewBy: utc('2027-09-01') }], dockings: [{ id: 'nov', date: utc('2027-11-01') }] });
+    expect(p).toMatchObject({ status: 'no-docking', overdue: false, needsDockingBy: utc('2027-03-01') });
+    expect(p.earlierDocking?.by).toEqual(utc('2027-03-01'));
+    expect(p.earlierDocking?.reason).toContain('by 1 Mar 2027 (the renew by 1 Sep 2027 less 6 months)');
+  });
+
+  it('the margin in words names the renew-by date, not the end of life', () => {
+    const [p] = proposeRenewals({ today: now, groups: [{ id: 'g', renewBy: utc('2027-09-01') }], dockings: [{ id: 'a', date: utc('2027-02-01') }] });
+    expect(p.reason).toBe('Renew at the docking of 1 Feb 2027, the last docking before the deadline 1 Mar 2027 (renew by 1 Sep 2027 less 6 months).');
+  });
+});
+
 describe('proposeRenewals agrees with a plain linear scan (the binary search is exact)', () => {
   // Reference: the rules written the slow, obvious way.
   function reference(endOfLife: Date, docks: DockingInput[], margin: number, now: Date) {
     const deadline = addMonthsUTC(endOfLife, -margin);
     const day = (d: Date) => Math.floor(d.getTime() / DAY_MS);
-    if (day(deadline) < day(now)) return { status: 'no-docking', overdue: true };
     const usable = docks.filter((d) => (d.status ?? 'planned') === 'planned' && day(d.date) >= day(now));
+    const earliest = [...usable].sort((a, b) => a.date.getTime() - b.date.getTime() || (a.id < b.id ? -1 : 1))[0];
+    if (day(deadline) < day(now)) return earliest ? { status: 'proposed', dockingId: earliest.id, overdue: true } : { status: 'no-docking', overdue: true };
     const last = usable.reduce<Date>((m, d) => (d.date > m ? d.date : m), now);
     if (deadline.getTime() > addMonthsUTC(last, 30).getTime()) return { status: 'sound' };
     const before = usable.filter((d) => d.date.getTime() <= deadline.getTime());
-    if (before.length === 0) return { status: 'no-docking', overdue: false };
+    if (before.length === 0) {
+      if (earliest && earliest.date.getTime() <= endOfLife.getTime()) return { status: 'proposed', dockingId: earliest.id, withinMargin: true };
+      return { status: 'no-docking', overdue: false };
+    }
     const best = before.reduce((m, d) => (d.date.getTime() > m.date.getTime() || (d.date.getTime() === m.date.getTime() && d.id > m.id) ? d : m));
     return { status: 'proposed', dockingId: best.id };
   }

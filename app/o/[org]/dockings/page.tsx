@@ -30,12 +30,15 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
           <p className="mt-2 text-xs text-ink-soft">{view.renewalRule}</p>
         </Panel>
         {view.needsDocking.length ? (
-          <Panel title="Groups that cannot reach a planned docking">
-            <ul className="flex flex-col gap-1 text-sm">
+          <Panel title="Groups that cannot wait for a planned docking">
+            <ul className="flex flex-col gap-1 text-sm" aria-label="Groups that cannot wait for a planned docking">
               {view.needsDocking.map((n, i) => (
-                <li key={i} className="flex flex-wrap items-center gap-2">
-                  <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
-                  <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
+                <li key={i} className="flex flex-col">
+                  <span className="flex flex-wrap items-center gap-2">
+                    <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs an earlier docking'}</StatusTag>
+                    <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
+                  </span>
+                  <span className="text-xs text-ink-soft">{n.reason}</span>
                 </li>
               ))}
             </ul>
@@ -43,6 +46,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
         ) : null}
         {view.renewBy.length ? (
           <Panel title="Renewals by renew-by date">
+            <p className="mb-2 text-sm text-ink-soft">{view.marginWords}</p>
             <table className="w-full text-sm" aria-label="Renew-by dates">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -54,21 +58,20 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
               </thead>
               <tbody>
                 {view.renewBy.map((r) => (
-                  <tr key={r.groupId} className="border-b border-rule">
+                  <tr key={r.groupId} className="border-b border-rule align-top">
                     <td className="py-1.5">{formatDateOnly(r.renewBy)}</td>
                     <td className="py-1.5"><Link href={`/o/${org}/assets/${r.assetId}`} className="text-tide-600 hover:underline">{r.assetName}</Link></td>
                     <td className="py-1.5">{r.group}</td>
                     <td className="py-1.5">
-                      {r.dockingId && r.dockingDate ? (
-                        <>
-                          {r.status === 'kept' ? 'Booked at' : 'Proposed at'} the docking of{' '}
-                          <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${r.dockingId}`}>{formatDateOnly(r.dockingDate)}</Link>
-                        </>
-                      ) : r.status === 'no-docking' ? (
-                        <StatusTag tone="overdue">{r.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag>
-                      ) : (
-                        'Booked'
-                      )}
+                      <span className="flex flex-wrap items-center gap-2">
+                        {r.overdue || r.status === 'no-docking' ? <StatusTag tone="overdue">{r.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag> : null}
+                        {r.dockingId ? (
+                          <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${r.dockingId}`}>{r.words}</Link>
+                        ) : (
+                          <span>{r.words}</span>
+                        )}
+                      </span>
+                      <span className="block text-xs text-ink-soft">{r.reason}</span>
                     </td>
                   </tr>
                 ))}
@@ -107,12 +110,13 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
             </table>
             {view.suggestions.length ? (
               <div className="mt-4">
-                <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Suggested under class practice (bottom inspections no more than 36 months apart, two in each five years)</h3>
-                <ul className="flex flex-col gap-1 text-sm">
+                <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Suggested dockings: earlier ones for renewals that cannot wait, and class practice (bottom inspections no more than 36 months apart, two in each five years)</h3>
+                <ul className="flex flex-col gap-1 text-sm" aria-label="Suggested dockings">
                   {view.suggestions.map((s, i) => (
                     <li key={i} className="flex flex-wrap items-center gap-2">
-                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} about <strong>{formatDateOnly(s.date)}</strong></span>
-                      <span className="text-xs text-ink-faint">{s.reason}</span>
+                      {s.source === 'renewal' ? <StatusTag tone="overdue">For a renewal</StatusTag> : null}
+                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} {s.source === 'renewal' ? 'by' : 'about'} <strong>{formatDateOnly(s.date)}</strong></span>
+                      <span className="text-xs text-ink-soft">{s.reason}</span>
                       {canPlan ? <AcceptSuggestion org={org} assetId={s.assetId} date={s.date} kind={s.kind} /> : null}
                     </li>
                   ))}

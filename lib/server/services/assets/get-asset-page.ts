@@ -1,11 +1,12 @@
 import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { renewalRuleSentence } from '@/lib/words/renewal-rule';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/words/renewal-rule';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';
-import { loadGroupForecasts, type GroupWithForecast } from '../forecast/group-forecasts';
-import { renewalRuleOf } from '../planner/compute-plans';
+import type { GroupWithForecast } from '../forecast/group-forecasts';
+import { computePlans, renewalMarginMonths, renewalRuleOf, type AssetPlan } from '../planner/compute-plans';
+import { renewalPlanSummary, renewalReasonOf } from '../planner/planner-view';
 import { inSequence } from '../../sql';
 
 export type { DepletionSeries } from '@/lib/register/depletion-series';
@@ -26,6 +27,10 @@ export interface ForecastRow {
   renewByLate: string | null;
   /** Secondary: when the utilisation factor is used up. */
   endOfLife: string | null;
+  /** Where the group's renewal stands, in the planner's words (renewalPlanWords); null without a forecast. */
+  renewal: string | null;
+  /** The scheduler's sentence, with the margin in words. */
+  renewalReason: string | null;
 }
 
 const dayOrNull = (d: Date | null | undefined) => (d ? toDateOnly(d) : null);
@@ -38,7 +43,7 @@ function basisWords(f: GroupWithForecast): string {
 }
 
 /** The forecast table's rows, in the order of the forecasts (by group label). */
-function forecastRows(forecasts: readonly GroupWithForecast[]): ForecastRow[] {
+function forecastRows(forecasts: readonly AssetPlan['groups'][number][]): ForecastRow[] {
   return forecasts.map((f) => ({
     groupId: f.group.id,
     label: f.group.label,
@@ -49,6 +54,8 @@ function forecastRows(forecasts: readonly GroupWithForecast[]): ForecastRow[] {
     renewByEarly: dayOrNull(f.forecast?.renewByEarly),
     renewByLate: dayOrNull(f.forecast?.renewByLate),
     endOfLife: dayOrNull(f.forecast?.endOfLife),
+    renewal: f.proposal ? renewalPlanWords(renewalPlanSummary(f.proposal)) : null,
+    renewalReason: f.proposal ? renewalReasonOf(f.proposal) : null,
   }));
 }
 
@@ -61,14 +68,17 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   requirePermission(ctx, 'org:read');
   const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, forecasts, catalogue, dockings] = await inSequence(
+  const [zones, designs, surveys, plans, catalogue, dockings] = await inSequence(
     () => ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
     () => ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results', 'anodeModel'] }),
     () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
-    () => loadGroupForecasts(ctx, { assetIds: [asset.id] }),
+    // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once archived.
+    () => computePlans(ctx, { assetIds: [asset.id], today }),
     () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
     () => ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
   );
+  const plan = plans[0] ?? null;
+  const forecasts = plan?.groups ?? [];
   const changes = forecasts.length
     ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
     : [];
@@ -92,9 +102,10 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
     });
   // The rule the renew-by dates follow, in words (the docking planner states the same sentence).
   const renewalRule = renewalRuleSentence(renewalRuleOf(ctx));
+  const marginWords = renewalMarginSentence(renewalMarginMonths(ctx));
   // Anodes of different alloys on one asset work at different potentials: the more active one is
   // consumed protecting the other (common practice: one alloy per asset).
   const alloys = [...new Set(forecasts.map((f) => f.group.model.alloy))];
   const mixedAlloys = alloys.length > 1 ? alloys : null;
-  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, catalogue, dockings, changes, series, mixedAlloys };
+  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, marginWords, outlook: plan?.outlook ?? null, catalogue, dockings, changes, series, mixedAlloys };
 }

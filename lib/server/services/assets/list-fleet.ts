@@ -10,7 +10,7 @@ export interface FleetRow extends AssetRow {
   outlookWords: string | null;
   nextDocking: { id: string; date: string; kind: string } | null;
   massDueAtNextDockingKg: number;
-  /** The earliest renew-by date (YYYY-MM-DD) of a group no planned docking renews in time. */
+  /** The earliest renew-by date (YYYY-MM-DD) of a group no planned docking renews before that date. */
   renewBy: string | null;
 }
 
@@ -25,7 +25,7 @@ export async function listFleet(ctx: OrgContext, query: ListQuery) {
     rows: page.rows.map((row): FleetRow => {
       const plan = byAsset.get(row.id);
       const next = plan?.nextDocking ?? null;
-      const renewBy = plan?.groups.filter((g) => g.proposal?.status === 'no-docking').map((g) => g.forecast?.renewBy).filter((d): d is Date => Boolean(d)).sort((a, b) => a.getTime() - b.getTime())[0] ?? null;
+      const renewBy = plan?.groups.filter((g) => g.proposal?.earlierDocking).map((g) => g.forecast?.renewBy).filter((d): d is Date => Boolean(d)).sort((a, b) => a.getTime() - b.getTime())[0] ?? null;
       return {
         ...row,
         outlook: plan?.outlook ?? null,

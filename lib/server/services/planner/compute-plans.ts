@@ -76,7 +76,7 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
     const { least = null, most = null } = extremes.get(asset.id) ?? {};
     const underProtectedBySurvey = least !== null && classifyPotential({ potentialAgAgClV: least, ...criteria }).status === 'under-protected';
     const overProtectedBySurvey = most !== null && classifyPotential({ potentialAgAgClV: most, ...criteria }).status === 'over-protected';
-    const outlook = assetOutlook({ groupStatuses: proposals, underProtectedBySurvey, overProtectedBySurvey, today, nextDockingId: nextDocking?.id ?? null });
+    const outlook = assetOutlook({ groupStatuses: proposals, underProtectedBySurvey, overProtectedBySurvey, today, anodesRecorded: groups.length > 0, nextDockingId: nextDocking?.id ?? null });
     const netMass = new Map(groups.map((g) => [g.group.id, g.group.quantity * g.group.model.netMassKg]));
     return {
       asset,
@@ -91,10 +91,4 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
   });
 }
 
-export const OUTLOOK_WORDS: Record<AssetOutlook, string> = {
-  sound: 'Sound',
-  'renew-at-next-docking': 'Renew at next docking',
-  overdue: 'Overdue',
-  'over-protected': 'Over-protected by survey',
-  'under-protected': 'Under-protected by survey',
-};
+export { OUTLOOK_WORDS } from '@/lib/words/outlook';

@@ -1,12 +1,14 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { DockingSchema, MembershipSchema } from '@/entities';
+import { DockingSchema, MembershipSchema, OutboxMessageSchema } from '@/entities';
 import { enqueueMailOnce } from '../../mail/outbox';
 import { getEnv } from '../../env';
-import { anodeListPdf } from '../planner/anode-list';
+import { anodeListFor, anodeListPdf } from '../planner/anode-list';
+import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
 import { formatDateOnly, parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
 import { forecastDateWords } from '@/lib/forecast/labels';
 import type { AnodeList } from '@/lib/anode-list';
+import type { GroupWithForecast } from '../forecast/group-forecasts';
 import { renewalRuleSentence } from '@/lib/words/renewal-rule';
 import { renewalRuleOf } from '../planner/compute-plans';
 
@@ -16,10 +18,12 @@ export const REMINDER_DAYS = [90, 30] as const;
 /** Lines listed in the e-mail itself; the attached list has them all. */
 const MAX_LINES_IN_TEXT = 30;
 
+/** The renewals still to fit at the docking (cancelled ones are not on the list). */
+const openLines = (list: AnodeList) => list.zones.flatMap((z) => z.lines.filter((l) => l.status !== 'fitted').map((l) => ({ zone: z.zone, l })));
+
 /** The renewals still to fit at the docking, one line each with its renew-by date, for the e-mail text. */
 function renewalLinesText(list: AnodeList): string {
-  const lines = list.zones.flatMap((z) => z.lines.filter((l) => l.status !== 'fitted').map((l) => ({ zone: z.zone, l })));
-  if (!lines.length) return 'No renewals are booked at this docking yet.';
+  const lines = openLines(list);
   const text = lines
     .slice(0, MAX_LINES_IN_TEXT)
     .map(({ zone, l }) => `- ${zone ? `${zone}, ` : ''}${l.groupLabel}: ${l.quantity} × ${l.designation}, ${l.status}${l.renewBy ? `, ${forecastDateWords('renewBy')} ${formatDateOnly(l.renewBy)}` : ''}`);
@@ -27,9 +31,20 @@ function renewalLinesText(list: AnodeList): string {
   return `Renewals at this docking:\n${text.join('\n')}`;
 }
 
+/** What is missing for a docking with nothing to fit, in one or two sentences. */
+function missingWords(assetName: string, groups: readonly Pick<GroupWithForecast, 'forecast'>[]): string {
+  if (!groups.length) return `No anodes are recorded for ${assetName}: record its fitted anode groups on the asset page so their renewals can be forecast and proposed.`;
+  const unforecast = groups.filter((g) => !g.forecast).length;
+  const noBasis = unforecast
+    ? ` ${unforecast} of its ${groups.length} anode group${groups.length === 1 ? '' : 's'} cannot be forecast (no current basis or no usable survey): link ${unforecast === 1 ? 'it' : 'them'} to a design, enter a mean current or survey ${unforecast === 1 ? 'it' : 'them'}.`
+    : '';
+  return `By the forecast, none of the ${groups.length} anode group${groups.length === 1 ? '' : 's'} of ${assetName} is due for renewal at this docking.${noBasis}`;
+}
+
 /**
  * Queues the docking reminders that are due: for each planned docking starting within 90 (or 30) days,
- * each planner and owner gets one e-mail with the anode list attached. The dedupe key (docking, its
+ * each planner and owner gets one e-mail with the anode list attached, or, when nothing is to be fitted
+ * there yet, one that says so and what is missing (never an empty list). The dedupe key (docking, its
  * date, the threshold, the person) makes each reminder exactly once, however often this runs.
  */
 export async function queueDockingReminders(em: EntityManager, now = new Date()) {
@@ -48,18 +63,43 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     if (threshold === undefined) continue;
     const recipients = members.filter((m) => m.organisation.id === docking.organisation.id);
     if (!recipients.length) continue;
-    const { pdf, filename, list } = await runAsSystem(docking.organisation.id, (ctx) => anodeListPdf(ctx, docking.id), { em: em.fork() });
-    const renewals = `${renewalLinesText(list)}\n\n${renewalRuleSentence(renewalRuleOf({ organisation: docking.organisation }))}`;
-    const url = `${getEnv().APP_URL}/o/${docking.organisation.slug}/dockings/${docking.id}`;
+    const keyOf = (userId: string) => `docking-reminder:${docking.id}:${docking.plannedStart}:${threshold}:${userId}`;
+    // Everyone already has this reminder: nothing to recompute or render (the job runs far more often than reminders fall due).
+    if ((await em.count(OutboxMessageSchema, { dedupeKey: { $in: recipients.map((m) => keyOf(m.user.id)) } })) === recipients.length) continue;
+    // The proposals as of today (a group may have become overdue since the last change), then the list; the PDF
+    // only when the list has something to fit: an empty list is never attached, the e-mail says what is missing.
+    const prepared = await runAsSystem(
+      docking.organisation.id,
+      async (ctx) => {
+        const { plans } = await recomputeRenewals(ctx, [docking.asset.id], now);
+        const { list } = await anodeListFor(ctx, docking.id);
+        if (openLines(list).length) return await anodeListPdf(ctx, docking.id);
+        return { missing: missingWords(docking.asset.name, plans[0]?.groups ?? []) };
+      },
+      { em: em.fork() },
+    );
+    const rule = renewalRuleSentence(renewalRuleOf({ organisation: docking.organisation }));
+    const base = `${getEnv().APP_URL}/o/${docking.organisation.slug}`;
+    const url = `${base}/dockings/${docking.id}`;
     const when = formatDateOnly(docking.plannedStart);
+    const opening = `${docking.asset.name} is planned to dock on ${when}${docking.yard ? ` at ${docking.yard}` : ''}, in ${days} days.`;
+    const mail =
+      'pdf' in prepared
+        ? {
+            subject: `${docking.asset.name} docks in ${days} days (${when}): anode list attached`,
+            text: `${opening}\n\n${renewalLinesText(prepared.list)}\n\n${rule}\n\nThe anode list for ordering and fitting is attached. Review and confirm the proposed renewals before ordering:\n${url}\n\nVerify the list against the latest survey and the governing standard before ordering.\n\n— Tidewarden`,
+            attachments: [{ filename: prepared.filename, contentType: 'application/pdf', content: prepared.pdf.toString('base64') }],
+          }
+        : {
+            subject: `${docking.asset.name} docks in ${days} days (${when}): no anode renewals booked yet`,
+            text: `${opening}\n\nNo renewals are proposed or confirmed for this docking yet, so no anode list is attached. ${prepared.missing}\n\nOpen the planner to book the renewals this docking should carry:\n${url}\n\n${rule}\n\n— Tidewarden`,
+          };
     for (const m of recipients) {
       const sent = await enqueueMailOnce(em, {
         to: m.user.email,
         organisationId: docking.organisation.id,
-        dedupeKey: `docking-reminder:${docking.id}:${docking.plannedStart}:${threshold}:${m.user.id}`,
-        subject: `${docking.asset.name} docks in ${days} days (${when}): anode list attached`,
-        text: `${docking.asset.name} is planned to dock on ${when}${docking.yard ? ` at ${docking.yard}` : ''}, in ${days} days.\n\n${renewals}\n\nThe anode list for ordering and fitting is attached. Review and confirm the proposed renewals before ordering:\n${url}\n\nVerify the list against the latest survey and the governing standard before ordering.\n\n— Tidewarden`,
-        attachments: [{ filename, contentType: 'application/pdf', content: pdf.toString('base64') }],
+        dedupeKey: keyOf(m.user.id),
+        ...mail,
       });
       if (sent) queued++;
     }

@@ -21,6 +21,7 @@ import { ZoneForm, ArchiveZoneButton } from '@/components/register/zone-form';
 import { AnodeGroupForm, RemoveGroupForm } from '@/components/register/anode-group-form';
 import { RegisterTable } from '@/components/register/register-table';
 import { DepletionChart } from '@/components/register/depletion-chart';
+import { OutlookTag } from '@/components/planner/outlook-tag';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -34,7 +35,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, catalogue, dockings, changes, series, mixedAlloys } = page;
+  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, outlook, catalogue, dockings, changes, series, mixedAlloys } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -74,7 +75,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         title={
           <span className="flex items-center gap-3">
             {asset.name}
-            {asset.archivedAt ? <StatusTag tone="neutral">Archived</StatusTag> : null}
+            {asset.archivedAt ? <StatusTag tone="neutral">Archived</StatusTag> : outlook ? <span aria-label="Protection outlook"><OutlookTag outlook={outlook} /></span> : null}
           </span>
         }
         subtitle={
@@ -270,11 +271,12 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                 <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.renewBy}</th>
                 <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.band} (early – late)</th>
                 <th className="py-1 text-left font-medium text-ink-faint">{FORECAST_DATE_LABELS.endOfLife}</th>
+                <th className="py-1 pl-3 text-left font-medium">Renewal</th>
               </tr>
             </thead>
             <tbody>
               {rows.map((r) => (
-                <tr key={r.groupId} className="border-b border-rule">
+                <tr key={r.groupId} className="border-b border-rule align-top">
                   <td className="py-1">{r.label}</td>
                   <td className="num py-1">{fmt(r.installedNetKg, 1)} kg</td>
                   <td className="num py-1">{r.ratePerYearKg === null ? '—' : `${fmt(r.ratePerYearKg, 1)} kg/yr`}</td>
@@ -282,11 +284,17 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                   <td className="py-1 font-medium">{r.renewBy ? formatDateOnly(r.renewBy) : r.ratePerYearKg !== null ? 'does not deplete' : '—'}</td>
                   <td className="py-1 text-xs">{r.renewByEarly ? `${formatDateOnly(r.renewByEarly, 'MMM yyyy')} – ${r.renewByLate ? formatDateOnly(r.renewByLate, 'MMM yyyy') : 'later'}` : '—'}</td>
                   <td className="py-1 text-xs text-ink-soft">{r.endOfLife ? formatDateOnly(r.endOfLife) : '—'}</td>
+                  <td className="py-1 pl-3">
+                    {r.renewal ?? '—'}
+                    {r.renewalReason ? <span className="block text-xs text-ink-soft">{r.renewalReason}</span> : null}
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
-          <p className="mt-2 text-xs text-ink-soft">{renewalRule}</p>
+          {!rows.length && !asset.archivedAt ? <p className="mt-2 text-sm text-ink-soft">No anodes recorded: record the fitted groups above so their renewals can be forecast and proposed.</p> : null}
+          <p className="mt-2 text-sm text-ink-soft">{marginWords}</p>
+          <p className="mt-1 text-xs text-ink-soft">{renewalRule}</p>
           <p className="mt-1 text-xs text-ink-faint">
             {FORECAST_DATE_LABELS.endOfLife}: the utilisation factor used up, shown for reference; renewals are scheduled on {RENEW_BY_DATE_WORDS}. Consumption = I × 8760 / ε per year (handbook practice) at the forecast’s start. A group linked to a design follows its zone’s demand as the coating breaks down, averaging the group’s share of the design’s mean current; one without a design runs on its mean current. Surveys scale the demand; a survey showing no loss leaves it as designed.
           </p>
