@@ -24,6 +24,8 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { ctxFor, makeOrgWithRoles, runAs, uniqueEmail } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
 import { HTTP_METHODS, ROOT, databaseFingerprint, filesNamed, importFile, signInAs } from '../fixtures/entry-points';
@@ -68,6 +70,13 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     archiveAnodeModelAction: { modelId: ids.modelId, archive: '1' },
     createSurveyAction: { assetId: ids.assetId, surveyedOn: day(-3), method: 'diver', surveyor: 'Harbour Divers', defaultElectrode: 'ag-agcl-seawater', notes: 'Probe' },
     addReadingAction: { surveyId: ids.surveyId, location: 'Fr 20 P', potentialV: '-0.95', electrode: 'ag-agcl-seawater', anodeGroupLabel: 'Probe bottom', comment: 'Probe' },
+    updateReadingAction: { surveyId: ids.surveyId, readingId: ids.readingId, location: 'Fr 10 P', potentialV: '-0.97', electrode: 'ag-agcl-seawater', remainingPercent: '70', comment: 'Probe' },
+    deleteReadingAction: { surveyId: ids.surveyId, readingId: ids.spareReadingId },
+    updateSurveyAction: { surveyId: ids.surveyId, surveyedOn: day(-11), method: 'rov', surveyor: 'Probe Divers', defaultElectrode: 'ag-agcl-seawater', notes: 'Probe' },
+    deleteSurveyAction: { surveyId: ids.spareSurveyId },
+    restoreSurveyAction: { surveyId: ids.binnedSurveyId },
+    updateAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.attachmentId, caption: 'Probe caption' },
+    deleteAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.spareAttachmentId },
     createDockingAction: { assetId: ids.assetId, kind: 'intermediate', plannedStart: day(400), plannedEnd: day(410), yard: 'North Yard', reference: 'P-1', notes: 'Probe' },
     updateDockingAction: { dockingId: ids.dockingId, kind: 'intermediate', status: 'planned', plannedStart: day(300), yard: 'South Yard' },
     renewalStepAction: { renewalId: ids.renewalId, step: 'update', quantity: '8', dockingId: ids.dockingId, notes: 'Probe', fittedOn: day(0) },
@@ -203,9 +212,16 @@ beforeAll(async () => {
   const spareZone = await runAs(as('engineer'), (c) => createZone(c, vessel.id, { name: 'Probe spare zone', kind: 'hull-bottom', areaM2: 50, coatingCategory: 'II', waterType: 'seawater', climate: 'temperate', depthBand: '0-30' }));
   const spareGroup = await runAs(as('engineer'), (c) => createAnodeGroup(c, vessel.id, { label: 'Probe spare group', anodeModelKey: 'builtin:TW-AW-4020', quantity: 2, installedOn: day(-100) }));
   const attachment = await runAs(as('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'bow.png', bytes: PNG }, 'Bow'));
+  const spareAttachment = await runAs(as('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'stern.png', bytes: PNG }, 'Stern'));
+  await runAs(as('inspector'), (c) => addReading(c, survey.id, { location: 'Fr 10 P', potentialV: '-0.98', electrode: 'ag-agcl-seawater' }));
+  await runAs(as('inspector'), (c) => addReading(c, survey.id, { location: 'Fr 12 S', potentialV: '-0.99', electrode: 'ag-agcl-seawater' }));
+  const spareSurvey = await runAs(as('inspector'), (c) => createSurvey(c, { assetId: vessel.id, surveyedOn: day(-20), method: 'diver', defaultElectrode: 'ag-agcl-seawater' }));
+  const binnedSurvey = await runAs(as('inspector'), (c) => createSurvey(c, { assetId: vessel.id, surveyedOn: day(-30), method: 'rov', defaultElectrode: 'ag-agcl-seawater' }));
+  await runAs(as('inspector'), (c) => deleteSurvey(c, binnedSurvey.id));
   const em = await getEm();
   const [stored] = await em.execute<{ inputs: unknown }[]>('select inputs from design where id = ?', [design.id]);
   const [membership] = await em.execute<{ id: string }[]>(`select id from membership where organisation_id = ? and role = 'viewer'`, [home.organisation.id]);
+  const readingId = async (location: string) => (await em.execute<{ id: string }[]>('select id from survey_reading where survey_id = ? and location = ?', [survey.id, location]))[0]!.id;
   Object.assign(ids, {
     assetId: vessel.id,
     zoneId: zone.id,
@@ -218,6 +234,11 @@ beforeAll(async () => {
     membershipId: membership.id,
     invitationId: invitation.invitation.id,
     attachmentId: attachment.id,
+    spareAttachmentId: spareAttachment.id,
+    readingId: await readingId('Fr 10 P'),
+    spareReadingId: await readingId('Fr 12 S'),
+    spareSurveyId: spareSurvey.id,
+    binnedSurveyId: binnedSurvey.id,
     spareAssetId: spareAsset.id,
     spareZoneId: spareZone.id,
     spareGroupId: spareGroup.id,
