@@ -4,12 +4,14 @@ import { Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { CAUTION_SENTENCE } from '@/lib/words/caution';
 import { FONT, LINE_HEIGHT, textWidth, wrapLines } from './measure-text';
 
-// Inter ships in fonts/ (woff; react-pdf does not read woff2). Registered once per process.
+// Inter ships in fonts/ as TrueType for the PDFs (made from @fontsource's woff by scripts/woff-to-ttf.mjs):
+// fontkit inflates a woff's whole glyph table again for every glyph it reads, which was most of the
+// time of a long anode list. Registered once per process.
 let registered = false;
 export function registerPdfFonts() {
   if (registered) return;
-  const file = (w: number) => path.join(process.cwd(), 'fonts', `inter-latin-${w}-normal.woff`);
-  const greek = (w: number) => path.join(process.cwd(), 'fonts', `inter-greek-${w}-normal.woff`);
+  const file = (w: number) => path.join(process.cwd(), 'fonts', `inter-latin-${w}-normal.ttf`);
+  const greek = (w: number) => path.join(process.cwd(), 'fonts', `inter-greek-${w}-normal.ttf`);
   Font.register({ family: 'Inter', fonts: [{ src: file(400), fontWeight: 400 }, { src: file(600), fontWeight: 600 }, { src: file(700), fontWeight: 700 }] });
   // Greek letters (ρ, ε, π, Ω) come from Inter's Greek subset as a fallback family.
   Font.register({ family: 'InterGreek', fonts: [{ src: greek(400), fontWeight: 400 }, { src: greek(600), fontWeight: 600 }, { src: greek(700), fontWeight: 700 }] });
