@@ -3,7 +3,7 @@ import { useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { fitDesignAction } from '@/app/o/[org]/designs/actions';
+import { bookDesignRenewalsAction, fitDesignAction } from '@/app/o/[org]/designs/actions';
 import { queryKeys } from '@/lib/client/query-client';
 
 interface Props {
@@ -21,8 +21,11 @@ interface Props {
  * double click or a resend is recognised as the same request.
  */
 export function FitDesignForm({ org, designId, assetName, dockings, can }: Props) {
-  const form = useBoundAction(fitDesignAction.bind(null, org), { initial: { mode: can.install ? 'installed' : 'renewal' }, invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
-  const [mode, setMode] = useState(form.values.mode ?? (can.install ? 'installed' : 'renewal'));
+  // Recording an installation is an engineer's (asset:write), booking renewals a planner's (renewal:write): one action each.
+  const fit = useBoundAction(fitDesignAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
+  const book = useBoundAction(bookDesignRenewalsAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
+  const [mode, setMode] = useState<'installed' | 'renewal'>(can.install ? 'installed' : 'renewal');
+  const form = mode === 'installed' ? fit : book;
   // A new key once the server has answered: a resend of the same submit keeps it, a deliberate second fit gets a new one.
   const idempotencyKey = useMemo(() => crypto.randomUUID(), [form.state]);
   return (

@@ -44,8 +44,14 @@ export const newRevisionAction = orgAction('design:write', async (ctx, formData)
   redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
 });
 
-/** "Fit this design": the approved revision's anodes as installed groups, or as renewals at a docking (the service checks the role for each). */
-export const fitDesignAction = orgAction('org:read', async (ctx, formData) => {
-  const result = await fitDesign(ctx, formId(formData, 'designId'), formObject(formData));
+/** "Fit this design": the approved revision's anodes recorded as installed groups on the day entered. */
+export const fitDesignAction = orgAction('asset:write', async (ctx, formData) => {
+  const result = await fitDesign(ctx, formId(formData, 'designId'), { ...formObject(formData), mode: 'installed' });
+  return { ok: true, message: result.message };
+});
+
+/** "Fit this design" at a docking: the approved revision's anodes booked as renewals at a planned docking or campaign. */
+export const bookDesignRenewalsAction = orgAction('renewal:write', async (ctx, formData) => {
+  const result = await fitDesign(ctx, formId(formData, 'designId'), { ...formObject(formData), mode: 'renewal' });
   return { ok: true, message: result.message };
 });
