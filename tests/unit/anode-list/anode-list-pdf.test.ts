@@ -117,7 +117,9 @@ describe('page plan', () => {
     expect(plan.pages.length).toBeGreaterThan(2);
     expect(await pageCount(await renderChecked(list))).toBe(plan.pages.length);
     const text = (await pdfText(await renderAnodeListPdf(list))).replace(/\s+/g, ' ');
-    expect(text.match(/Anode at frame 40, port side, 1\.0 m above keel\./g)).toHaveLength(120);
+    // Parts are cut at line breaks, never inside a word; a sentence may continue on the next sheet, so count its first and last words.
+    expect(text.match(/\bAnode\b/g)).toHaveLength(120);
+    expect(text.match(/\bkeel\./g)).toHaveLength(120);
     expect(text).toContain(`page ${plan.pages.length} of ${plan.pages.length}`);
   }, 60_000);
 
