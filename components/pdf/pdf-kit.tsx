@@ -4,17 +4,61 @@ import { Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { CAUTION_SENTENCE } from '@/lib/words/caution';
 import { FONT, LINE_HEIGHT, textWidth, wrapLines } from './measure-text';
 
-// Inter ships in fonts/ (woff; react-pdf does not read woff2). Registered once per process.
+// Inter ships in fonts/ as TrueType for the PDFs (made from @fontsource's woff by scripts/woff-to-ttf.mjs):
+// fontkit inflates a woff's whole glyph table again for every glyph it reads, which was most of the
+// time of a long anode list. Registered once per process.
 let registered = false;
 export function registerPdfFonts() {
   if (registered) return;
-  const file = (w: number) => path.join(process.cwd(), 'fonts', `inter-latin-${w}-normal.woff`);
-  const greek = (w: number) => path.join(process.cwd(), 'fonts', `inter-greek-${w}-normal.woff`);
+  const file = (w: number) => path.join(process.cwd(), 'fonts', `inter-latin-${w}-normal.ttf`);
+  const greek = (w: number) => path.join(process.cwd(), 'fonts', `inter-greek-${w}-normal.ttf`);
   Font.register({ family: 'Inter', fonts: [{ src: file(400), fontWeight: 400 }, { src: file(600), fontWeight: 600 }, { src: file(700), fontWeight: 700 }] });
   // Greek letters (ρ, ε, π, Ω) come from Inter's Greek subset as a fallback family.
   Font.register({ family: 'InterGreek', fonts: [{ src: greek(400), fontWeight: 400 }, { src: greek(600), fontWeight: 600 }, { src: greek(700), fontWeight: 700 }] });
   Font.registerHyphenationCallback((word) => [word]);
+  // Once Inter is loaded, its shaping is cached (fontkit's font class is shared by every weight).
+  const body = Font.getFont({ fontFamily: 'Inter', fontWeight: 400 }) as unknown as { load: () => Promise<void>; data: object | null } | null;
+  if (body) {
+    const load = body.load.bind(body);
+    body.load = async () => {
+      await load();
+      if (body.data) cacheShaping(Object.getPrototypeOf(body.data));
+    };
+  }
   registered = true;
+}
+
+interface Shaped {
+  glyphs: unknown[];
+  positions: unknown[];
+}
+type Layout = (this: object, text: string, features?: unknown, ...rest: unknown[]) => Shaped;
+
+/**
+ * Text shaping (fontkit's layout: substitutions and positioning from the font's tables) was most of
+ * the time of a long anode list, and its texts repeat: alloys, mountings, statuses, masses, dates,
+ * the column heads of every sheet. Each font keeps the runs it has shaped, by text and features;
+ * callers get a copy of the glyph list (react-pdf copies positions before changing them). The
+ * result is the same glyphs and positions, so the page plan and the printed sheets do not change.
+ */
+const SHAPED_LIMIT = 20_000;
+function cacheShaping(proto: { layout: Layout; __shapingCached?: boolean }) {
+  if (proto.__shapingCached) return;
+  const layout = proto.layout;
+  const caches = new WeakMap<object, Map<string, Shaped>>();
+  proto.layout = function cachedLayout(this: object, text: string, features?: unknown, ...rest: unknown[]) {
+    let cache = caches.get(this);
+    if (!cache) caches.set(this, (cache = new Map()));
+    const key = `${JSON.stringify(features ?? null)}|${rest.map(String).join('|')}|${text}`;
+    let run = cache.get(key);
+    if (!run) {
+      run = layout.call(this, text, features, ...rest);
+      if (cache.size >= SHAPED_LIMIT) cache.clear();
+      cache.set(key, run);
+    }
+    return Object.assign(Object.create(Object.getPrototypeOf(run)), run, { glyphs: run.glyphs.slice() });
+  };
+  proto.__shapingCached = true;
 }
 
 /** A4 in points, portrait. */

@@ -1,9 +1,11 @@
 import { compareDateOnly, isDateOnly } from '../dates/date-only';
 import { AnodeListInputError } from './errors';
 import { fittingNotesFor } from './fitting-notes';
+import { anodeListWords, type AnodeListDimensions, type AnodeListWords } from './words';
 
 /**
- * The dry-dock anode list: what a yard orders and fits at one docking (or diving campaign).
+ * The anode list: what a yard orders and fits at one docking, or a contractor at one diving
+ * campaign (its words follow which: words.ts).
  * Pure: validates the renewals booked for the docking, groups them by zone, and totals them
  * by zone, overall, and by anode model for ordering. Masses in kg; totals are quantity x each.
  *
@@ -36,6 +38,8 @@ export interface AnodeListRenewalInput {
   netMassKg: number;
   /** Each, kg (net plus strap, insert or core). */
   grossMassKg: number;
+  /** The model's overall dimensions from the catalogue, m; null or absent when unknown. */
+  dimensions?: AnodeListDimensions | null;
   positions: string | null;
   /** e.g. 'forecast depletion', 'survey finding', 'damage'. */
   reason: string;
@@ -68,7 +72,10 @@ export interface AnodeListInput {
   renewals: AnodeListRenewalInput[];
   revision: {
     number: number;
+    /** The name of whoever prepared (and printed) the list, never an e-mail address. */
     preparedBy: string | null;
+    /** Their role in the organisation, in words ("Planner"). */
+    preparedByRole?: string | null;
     preparedAt: Date;
     checkedBy?: string | null;
     checkedAt?: Date | null;
@@ -90,6 +97,7 @@ export interface AnodeListLine {
   grossMassEachKg: number;
   netMassTotalKg: number;
   grossMassTotalKg: number;
+  dimensions: AnodeListDimensions | null;
   positions: string | null;
   reason: string;
   status: string;
@@ -119,6 +127,7 @@ export interface AnodeListOrderLine {
   grossMassEachKg: number;
   netMassTotalKg: number;
   grossMassTotalKg: number;
+  dimensions: AnodeListDimensions | null;
 }
 
 export interface AnodeList {
@@ -135,6 +144,7 @@ export interface AnodeList {
   revision: {
     number: number;
     preparedBy: string | null;
+    preparedByRole: string | null;
     preparedAt: Date;
     checkedBy: string | null;
     checkedAt: Date | null;
@@ -147,6 +157,8 @@ export interface AnodeList {
   totals: AnodeListTotals;
   /** By model, for ordering; sorted by designation. */
   orderTotals: AnodeListOrderLine[];
+  /** The words that follow the asset and the kind of work (words.ts). */
+  words: AnodeListWords;
   /** The fitting notes that apply to this list (see fitting-notes.ts). */
   fittingNotes: string[];
   /** Things to settle before ordering (unconfirmed lines, inconsistent model data). */
@@ -202,7 +214,7 @@ export function buildAnodeList(input: AnodeListInput): AnodeList {
   const mixed = [...designations].filter(([, variants]) => variants > 1).map(([designation]) => designation);
   if (mixed.length > 0) {
     warnings.push(
-      `${mixed.length === 1 ? `Model ${mixed[0]} is` : `Models ${mixed.join(', ')} are`} booked with different data (alloy, mounting or masses) on different lines, so each variant has its own ordering line. Check the catalogue before ordering.`,
+      `${mixed.length === 1 ? `Model ${mixed[0]} is` : `Models ${mixed.join(', ')} are`} booked with different data (alloy, mounting, masses or dimensions) on different lines, so each variant has its own ordering line. Check the catalogue before ordering.`,
     );
   }
   const unconfirmed = lines.filter((l) => l.status === 'proposed').length;
@@ -210,6 +222,7 @@ export function buildAnodeList(input: AnodeListInput): AnodeList {
     warnings.push(`${unconfirmed} of ${lines.length} line${lines.length === 1 ? '' : 's'} ${unconfirmed === 1 ? 'is' : 'are'} still proposed, not confirmed: confirm ${unconfirmed === 1 ? 'it' : 'them'} before ordering.`);
   }
 
+  const words = anodeListWords(assetKind, text(docking.kind, 'docking.kind'));
   return {
     organisation: { name: text(organisation.name, 'organisation.name') },
     asset: { name: text(asset.name, 'asset.name'), kind: assetKind, particulars },
@@ -224,6 +237,7 @@ export function buildAnodeList(input: AnodeListInput): AnodeList {
     revision: {
       number: whole(revision.number, 'revision.number'),
       preparedBy: nullable(revision.preparedBy, (v) => text(v, 'revision.preparedBy')),
+      preparedByRole: nullable(revision.preparedByRole, (v) => text(v, 'revision.preparedByRole')),
       preparedAt: date(revision.preparedAt, 'revision.preparedAt'),
       checkedBy: nullable(revision.checkedBy, (v) => text(v, 'revision.checkedBy')),
       checkedAt: nullable(revision.checkedAt, (v) => date(v, 'revision.checkedAt')),
@@ -235,7 +249,8 @@ export function buildAnodeList(input: AnodeListInput): AnodeList {
     zones,
     totals: totalsOf(lines),
     orderTotals,
-    fittingNotes: fittingNotesFor(assetKind, lines.map((l) => l.mounting)),
+    words,
+    fittingNotes: fittingNotesFor(assetKind, lines.map((l) => l.mounting), words.occasion),
     warnings,
     lineCount: lines.length,
   };
@@ -264,6 +279,7 @@ function readLine(value: unknown, field: string): AnodeListLine {
     grossMassEachKg,
     netMassTotalKg: roundKg(quantity * netMassEachKg),
     grossMassTotalKg: roundKg(quantity * grossMassEachKg),
+    dimensions: readDimensions(r.dimensions, `${field}.dimensions`),
     positions: nullable(r.positions, (v) => {
       if (typeof v !== 'string') throw new AnodeListInputError(`${field}.positions`, `${field}.positions must be a text or null.`);
       return v.trim() === '' ? null : v.trim();
@@ -272,6 +288,18 @@ function readLine(value: unknown, field: string): AnodeListLine {
     status: oneOf(r.status, ANODE_LIST_STATUSES, `${field}.status`),
     renewBy: nullable(r.renewBy, (v) => isoDay(v, `${field}.renewBy`)),
   };
+}
+
+const DIMENSION_FIELDS = ['lengthM', 'widthM', 'thicknessM', 'radiusM', 'innerDiameterM'] as const;
+
+function readDimensions(value: unknown, field: string): AnodeListDimensions | null {
+  if (value === null || value === undefined) return null;
+  const r = record(value, field);
+  const out: AnodeListDimensions = { lengthM: positive(r.lengthM, `${field}.lengthM`) };
+  for (const key of DIMENSION_FIELDS.slice(1)) {
+    if (r[key] !== undefined && r[key] !== null) out[key] = positive(r[key], `${field}.${key}`);
+  }
+  return out;
 }
 
 function totalsOf(lines: readonly AnodeListLine[]): AnodeListTotals {
@@ -289,7 +317,7 @@ function totalsOf(lines: readonly AnodeListLine[]): AnodeListTotals {
 function orderLinesOf(lines: readonly AnodeListLine[]): AnodeListOrderLine[] {
   const byModel = new Map<string, AnodeListOrderLine>();
   for (const l of lines) {
-    const key = JSON.stringify([l.designation, l.alloy, l.mounting, l.netMassEachKg, l.grossMassEachKg]);
+    const key = JSON.stringify([l.designation, l.alloy, l.mounting, l.netMassEachKg, l.grossMassEachKg, l.dimensions]);
     const o = byModel.get(key);
     if (o) {
       o.quantity += l.quantity;
@@ -305,6 +333,7 @@ function orderLinesOf(lines: readonly AnodeListLine[]): AnodeListOrderLine[] {
         grossMassEachKg: l.grossMassEachKg,
         netMassTotalKg: l.netMassTotalKg,
         grossMassTotalKg: l.grossMassTotalKg,
+        dimensions: l.dimensions,
       });
     }
   }

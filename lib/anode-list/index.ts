@@ -1,8 +1,9 @@
 /**
- * The dry-dock anode list: what a yard orders and fits at one docking.
+ * The anode list: what a yard orders and fits at one docking, or a contractor at one diving campaign.
  *
  * - build-anode-list      buildAnodeList (pure): validation, zones, subtotals, totals by model
- * - anode-list-csv        anodeListCsv (pure): CSV for spreadsheets, formula-safe
+ * - anode-list-csv        anodeListCsv (pure): CSV for spreadsheets, formula-safe, the PDF's line table
+ * - words                 the list's words, which follow the asset and the work (PDF, CSV, screens)
  * - fitting-notes         FITTING_NOTES and fittingNotesFor
  * - errors                AnodeListInputError, with `field`
  * - render-anode-list-pdf renderAnodeListPdf (server only, react-pdf): import it from its own
@@ -23,7 +24,22 @@ export {
   type AnodeListTotals,
   type AnodeListZone,
 } from './build-anode-list';
-export { ANODE_LIST_CSV_HEADER, ANODE_LIST_CSV_ORDER_HEADER, anodeListCsv } from './anode-list-csv';
+export { ANODE_LIST_CSV_HEADER, anodeListCsv } from './anode-list-csv';
+export {
+  ANODE_LIST_LINE_COLUMNS,
+  DIMENSIONS_KEY,
+  alloyWords,
+  anodeListOccasion,
+  anodeListWords,
+  dimensionsWords,
+  dockingKindWords,
+  mountingWords,
+  statusWords,
+  zoneWords,
+  type AnodeListDimensions,
+  type AnodeListOccasion,
+  type AnodeListWords,
+} from './words';
 // csvField lives in lib/csv (shared with the register export); re-exported for existing callers.
 export { csvField } from '@/lib/csv/write-csv';
-export { FITTING_NOTES, fittingNotesFor, type FittingNote, type FittingNoteScope } from './fitting-notes';
+export { FITTING_NOTES, fittingNotesFor, type FittingNote, type FittingNoteScope, type FittingNoteWork } from './fitting-notes';

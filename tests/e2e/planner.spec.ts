@@ -23,13 +23,13 @@ test('a planner opens a docking, confirms the proposed renewals and prints the a
   await expect(renewals).not.toContainText('Proposed');
   await expect(renewals).toContainText('Confirmed');
 
-  // 6 x TW-ZB-2510 at 4.7 kg net each (the demo's crew boat, quantity set above) = 28.2 kg.
-  const href = await page.getByRole('link', { name: 'Print the anode list (PDF)' }).getAttribute('href');
+  // 6 x TW-ZB-2510 at 4.7 kg net each (the demo's crew boat, quantity set above) = 28.2 kg; the model is 250 x 100 x 30 mm (lib/cp built-in catalogue).
+  const href = await page.getByRole('link', { name: 'Print the dry-dock anode list (PDF)' }).getAttribute('href');
   const response = await page.request.get(href!);
   expect(response.headers()['content-type']).toBe('application/pdf');
   const text = (await pdfText(await response.body())).replace(/\s+/g, ' ');
   expect(text).toContain('Wavecrest Minnow');
-  expect(text).toMatch(/28\.2\s*kg/);
+  expect(text).toMatch(/TW-ZB-2510 250 × 100 × 30 Zinc Flush, bolt-on 6 4\.7 5\.0 28\.2 30\.0/);
   expect(text).toContain('Harrowgate Dry Dock');
 
   const csv = await page.request.get(href!.replace('format=pdf', 'format=csv'));

@@ -34,6 +34,8 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { createDocking } from '@/lib/server/services/planner/dockings';
+import { fitDesign } from '@/lib/server/services/designs/fit-design';
+import { approveDesign } from '@/lib/server/services/designs/sign-design';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
 import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
@@ -140,6 +142,13 @@ async function addMember(role: Role) {
 
 async function designBy(role: Role) {
   return (await as(role, (c) => createDesign(c, { assetId: fixtures.designVessel, title: unique('Signable design') }))).id;
+}
+
+/** An approved revision (prepared by the engineer, approved by the owner), of the design vessel unless stated. */
+async function approvedDesign(assetId = fixtures.designVessel) {
+  const design = await as('engineer', (c) => createDesign(c, { assetId, title: unique('Fittable design') }));
+  await as('owner', (c) => approveDesign(c, design.id));
+  return design.id;
 }
 
 /** A group on the renewal vessel; the scheduler proposes its renewal at the vessel's docking. */
@@ -308,6 +317,31 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'design',
     input: async () => ({ designId: fixtures.design }),
     success: { redirect: new RegExp(`^/o/[\\w-]+/designs/${UUID}$`) },
+  },
+  {
+    module: 'app/o/[org]/designs/actions.ts',
+    name: 'fitDesignAction',
+    kind: 'form',
+    permission: 'asset:write',
+    table: 'anode_group',
+    input: async () => ({ designId: await approvedDesign(), fittedOn: day(-10) }),
+    success: { message: /^\d+ × [\w-]+ recorded as fitted on .* in \d+ zones? of Design Vessel\.$/ },
+  },
+  {
+    module: 'app/o/[org]/designs/actions.ts',
+    name: 'bookDesignRenewalsAction',
+    kind: 'form',
+    permission: 'renewal:write',
+    table: 'renewal',
+    // A fresh vessel fitted to a fresh approved revision, with a planned docking: the revision's groups are booked there.
+    input: async () => {
+      const vessel = await as('engineer', (c) => createAsset(c, { kind: 'vessel', name: unique('Refit Vessel'), lengthBppM: 40, beamM: 10, draughtM: 3, blockCoefficient: 0.6, hullMaterial: 'steel' }));
+      const designId = await approvedDesign(vessel.id);
+      await as('engineer', (c) => fitDesign(c, designId, { mode: 'installed', fittedOn: day(-400) }));
+      const docking = await as('planner', (c) => createDocking(c, { assetId: vessel.id, kind: 'intermediate', plannedStart: day(150) }));
+      return { designId, dockingId: docking.id };
+    },
+    success: { message: /^\d+ × [\w-]+ booked as renewals in \d+ zones? at the docking from .*\.$/ },
   },
   // Catalogue
   {

@@ -24,6 +24,7 @@ import { createDesign } from '@/lib/server/services/designs/create-design';
 import { startDesign } from '@/lib/server/services/designs/start-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-design';
+import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { newRevision } from '@/lib/server/services/designs/new-revision';
 import { renderCalculationNote } from '@/lib/server/services/designs/calculation-note';
 import { createAnodeModel, setAnodeModelArchived } from '@/lib/server/services/catalogue/manage-anode-models';
@@ -204,13 +205,14 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('engineer')((c) => renderCalculationNote(c, designId)));
   });
 
-  it('designs: create (with a new asset), save, check, approve, revise', async () => {
+  it('designs: create (with a new asset), save, check, approve, fit, revise', async () => {
     await expectAllOrNothing(as('engineer')((c) => createDesign(c, { assetId: vesselId })));
     await expectAllOrNothing(as('engineer')((c) => startDesign(c, { assetId: 'new', title: 'Launch design', 'asset.kind': 'vessel', 'asset.name': `New Launch ${uniqueEmail('l')}`, 'asset.hullMaterial': 'steel' })));
     const draft = await runAs(member('engineer'), (c) => createDesign(c, { assetId: vesselId }));
     await expectAllOrNothing(as('engineer')((c) => saveDesign(c, draft.id, { title: `Renamed ${uniqueEmail('t')}`, inputs: draft.inputs })));
     await expectAllOrNothing(as('owner')((c) => checkDesign(c, draft.id)));
     await expectAllOrNothing(as('owner')((c) => approveDesign(c, draft.id)));
+    await expectAllOrNothing(as('engineer')((c) => fitDesign(c, draft.id, { mode: 'installed', fittedOn: '2025-06-01' })));
     await expectAllOrNothing(as('engineer')((c) => newRevision(c, draft.id)));
   });
 

@@ -1,9 +1,8 @@
 import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { alloyWords, ANODE_LIST_LINE_COLUMNS, DIMENSIONS_KEY, dimensionsWords, dockingKindWords, mountingWords, statusWords, zoneWords } from '@/lib/anode-list/words';
 import { CAUTION_TEXT, PagePlanner, rowParts as cutRow, sheetArea, textParts, type SheetColumn, type SheetPlan } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS } from '@/lib/forecast/labels';
-import { count, humanise, kgText } from './format';
+import { count, kgNumber, kgText } from './format';
 import { FONT, LINE_HEIGHT, lineCount } from '../measure-text';
 
 /*
@@ -41,30 +40,18 @@ type Col = SheetColumn;
 export type TableKind = 'line' | 'order' | 'asset' | 'docking';
 
 export const COLUMNS: Record<TableKind, Col[]> = {
-  line: [
-    // Positions keeps its width (the free text that wraps); the renew-by date's room comes from the others.
-    { label: 'Group', share: 0.075 },
-    { label: 'Model', share: 0.09 },
-    { label: 'Alloy', share: 0.07 },
-    { label: 'Mounting', share: 0.09 },
-    { label: 'Qty', share: 0.035, right: true },
-    { label: 'Net each', share: 0.065, right: true },
-    { label: 'Gross each', share: 0.07, right: true },
-    { label: 'Net total', share: 0.075, right: true },
-    { label: 'Gross total', share: 0.08, right: true },
-    { label: 'Positions', share: 0.205, gap: true },
-    { label: FORECAST_DATE_LABELS.renewBy, share: 0.08 },
-    { label: 'Status', share: 0.065 },
-  ],
+  // The labels are the CSV's too (words.ts); positions keeps the widest room (the free text that wraps).
+  line: lineColumns([0.075, 0.08, 0.1, 0.065, 0.08, 0.03, 0.055, 0.06, 0.06, 0.065, 0.18, 0.07, 0.08], [5, 6, 7, 8, 9], 10),
   order: [
-    { label: 'Model', share: 0.14 },
-    { label: 'Alloy', share: 0.15 },
-    { label: 'Mounting', share: 0.13 },
-    { label: 'Quantity', share: 0.1, right: true },
-    { label: 'Net each', share: 0.11, right: true },
-    { label: 'Gross each', share: 0.11, right: true },
-    { label: 'Net total', share: 0.13, right: true },
-    { label: 'Gross total', share: 0.13, right: true },
+    { label: 'Model', share: 0.12 },
+    { label: 'Dimensions, mm', share: 0.14 },
+    { label: 'Alloy', share: 0.12 },
+    { label: 'Mounting', share: 0.12 },
+    { label: 'Quantity', share: 0.08, right: true },
+    { label: 'Net each, kg', share: 0.1, right: true },
+    { label: 'Gross each, kg', share: 0.1, right: true },
+    { label: 'Net total, kg', share: 0.11, right: true },
+    { label: 'Gross total, kg', share: 0.11, right: true },
   ],
   // The two header tables sit side by side, each 49 % of the width.
   asset: [
@@ -76,6 +63,10 @@ export const COLUMNS: Record<TableKind, Col[]> = {
     { label: 'Value', share: 0.49 * 0.65 },
   ],
 };
+
+function lineColumns(shares: number[], right: number[], gap: number): Col[] {
+  return ANODE_LIST_LINE_COLUMNS.map((label, i) => ({ label, share: shares[i], ...(right.includes(i) ? { right: true } : {}), ...(i === gap ? { gap: true } : {}) }));
+}
 
 export const colWidth = (c: Col) => c.share * CONTENT_WIDTH;
 /** Room for text inside a cell. */
@@ -93,60 +84,74 @@ const H = {
 };
 
 // ---------- cell texts (measured here, printed by render.tsx) ----------
-const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted' };
-const zoneName = (zone: string | null) => zone ?? 'No zone';
-
-const lineCells = (l: AnodeListLine): string[] => [
+export const lineCells = (l: AnodeListLine): string[] => [
   l.groupLabel,
   l.designation,
-  ALLOY_LABELS[l.alloy] ?? l.alloy,
-  MOUNTING_LABELS[l.mounting] ?? l.mounting,
+  dimensionsWords(l.dimensions),
+  alloyWords(l.alloy),
+  mountingWords(l.mounting),
   count(l.quantity),
-  kgText(l.netMassEachKg),
-  kgText(l.grossMassEachKg),
-  kgText(l.netMassTotalKg),
-  kgText(l.grossMassTotalKg),
+  kgNumber(l.netMassEachKg),
+  kgNumber(l.grossMassEachKg),
+  kgNumber(l.netMassTotalKg),
+  kgNumber(l.grossMassTotalKg),
   l.positions ?? '–',
   l.renewBy ? formatDateOnly(l.renewBy) : '–',
-  STATUS_WORDS[l.status] ?? l.status,
+  statusWords(l.status),
 ];
-const subtotalCells = (t: AnodeListTotals): string[] => ['Subtotal', '', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg), '', '', ''];
+const subtotalCells = (t: AnodeListTotals): string[] => ['Subtotal', '', '', '', '', count(t.quantity), '', '', kgNumber(t.netMassKg), kgNumber(t.grossMassKg), '', '', ''];
 const orderCells = (o: AnodeListOrderLine): string[] => [
   o.designation,
-  ALLOY_LABELS[o.alloy] ?? o.alloy,
-  MOUNTING_LABELS[o.mounting] ?? o.mounting,
+  dimensionsWords(o.dimensions),
+  alloyWords(o.alloy),
+  mountingWords(o.mounting),
   count(o.quantity),
-  kgText(o.netMassEachKg),
-  kgText(o.grossMassEachKg),
-  kgText(o.netMassTotalKg),
-  kgText(o.grossMassTotalKg),
+  kgNumber(o.netMassEachKg),
+  kgNumber(o.grossMassEachKg),
+  kgNumber(o.netMassTotalKg),
+  kgNumber(o.grossMassTotalKg),
 ];
-const grandTotalCells = (t: AnodeListTotals): string[] => ['Grand total', '', '', count(t.quantity), '', '', kgText(t.netMassKg), kgText(t.grossMassKg)];
+const grandTotalCells = (t: AnodeListTotals): string[] => ['Grand total', '', '', '', count(t.quantity), '', '', kgNumber(t.netMassKg), kgNumber(t.grossMassKg)];
 
 export function dockingRows(list: AnodeList): string[][] {
   const d = list.docking;
   return [
-    ['Kind', humanise(d.kind)],
+    ['Kind', dockingKindWords(d.kind)],
     ['Planned', d.plannedEnd ? `${formatDateOnly(d.plannedStart)} to ${formatDateOnly(d.plannedEnd)}` : `from ${formatDateOnly(d.plannedStart)}`],
     ...(d.actualStart ? [['Actual start', formatDateOnly(d.actualStart)]] : []),
-    ['Yard', d.yard ?? 'not yet chosen'],
+    [list.words.worksBy, d.yard ?? 'not yet chosen'],
     ...(d.reference ? [['Reference', d.reference]] : []),
     ['Anodes to fit', `${count(list.totals.quantity)} on ${count(list.lineCount)} line${list.lineCount === 1 ? '' : 's'}`],
     ['Net / gross mass', `${kgText(list.totals.netMassKg)} / ${kgText(list.totals.grossMassKg)}`],
   ];
 }
 export const assetRows = (list: AnodeList): string[][] => [['Name', list.asset.name], ...list.asset.particulars];
-export const assetTitle = (list: AnodeList) => (list.asset.kind === 'vessel' ? 'Vessel' : 'Structure');
+export const assetTitle = (list: AnodeList) => list.words.assetTitle;
 
 export const titleLine = (list: AnodeList) => {
   const d = list.docking;
-  return `${list.asset.name} (${list.asset.kind}) · ${d.kind === 'campaign' ? 'Diving or works campaign' : `${humanise(d.kind)} docking`} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
+  return `${list.asset.name} (${list.asset.kind}) · ${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
 };
+export const referenceLine = (list: AnodeList) => (list.docking.reference ? `${list.words.reference} ${list.docking.reference}` : '');
 const titleHeight = (list: AnodeList) =>
   Math.max(
-    lineCount(list.organisation.name, CONTENT_WIDTH * TITLE_LEFT_SHARE, 7.5) * 7.5 * 1.35 + 15 * 1.25 + 3 + lineCount(titleLine(list), CONTENT_WIDTH * TITLE_LEFT_SHARE) * LINE,
-    LINE + lineCount(`Docking reference ${list.docking.reference ?? ''}`, CONTENT_WIDTH * (1 - TITLE_LEFT_SHARE), 7.5) * 7.5 * 1.35,
+    lineCount(list.organisation.name, CONTENT_WIDTH * TITLE_LEFT_SHARE, 7.5) * 7.5 * 1.35 + lineCount(list.words.title, CONTENT_WIDTH * TITLE_LEFT_SHARE, 15) * 15 * 1.25 + 3 + lineCount(titleLine(list), CONTENT_WIDTH * TITLE_LEFT_SHARE) * LINE,
+    LINE + lineCount(referenceLine(list), CONTENT_WIDTH * (1 - TITLE_LEFT_SHARE), 7.5) * 7.5 * 1.35,
   );
+
+/** The signature block's rows: step, name, role, date (the person who prepared is the one who printed). */
+export function signatureRows(list: AnodeList, when: (d: Date | null) => string): [string, string, string, string][] {
+  const r = list.revision;
+  return [
+    ['Prepared', r.preparedBy ?? '', r.preparedByRole ?? '', when(r.preparedAt)],
+    ['Checked', r.checkedBy ?? '', '', when(r.checkedAt)],
+    ['Approved', r.approvedBy ?? '', '', when(r.approvedAt)],
+    [list.words.fittedBy, '', '', ''],
+    ['Accepted by (owner)', '', '', ''],
+  ];
+}
+export const SIGNATURE_SHARES = [0.18, 0.26, 0.14, 0.12, 0.3] as const;
+export const SIGNATURE_HEADS = ['Step', 'Name', 'Role', 'Date', 'Signature'] as const;
 
 // ---------- page plan ----------
 export type PlanItem =
@@ -158,6 +163,7 @@ export type PlanItem =
   | { kind: 'head'; table: TableKind }
   | { kind: 'row'; table: TableKind; cells: string[]; total: boolean }
   | { kind: 'empty' }
+  | { kind: 'key' }
   | { kind: 'notes' }
   | { kind: 'signatures' };
 
@@ -225,7 +231,7 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
     put({ kind: 'empty' }, LINE);
   }
   list.zones.forEach((z, zi) => {
-    const name = `${zoneName(z.zone)} · ${count(z.subtotal.quantity)} anode${z.subtotal.quantity === 1 ? '' : 's'}`;
+    const name = `${zoneWords(z.zone)} · ${count(z.subtotal.quantity)} anode${z.subtotal.quantity === 1 ? '' : 's'}`;
     const zoneTitleHeight = (continued: boolean) => H.zoneTitle(lineCount(continued ? `${name} (continued)` : name, CONTENT_WIDTH, 9.5));
     const rows = [...z.lines.map((l) => ({ cells: lineCells(l) })), { cells: subtotalCells(z.subtotal), total: true }];
     // The section title goes above the first zone, on the same sheet.
@@ -238,7 +244,10 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
 
   if (list.orderTotals.length > 0) {
     const rows = [...list.orderTotals.map((o) => ({ cells: orderCells(o) })), { cells: grandTotalCells(list.totals), total: true }];
-    table('order', rows, section('Totals by model, for ordering'));
+    table('order', rows, section('Models and totals, for ordering'));
+    const key = lineCount(DIMENSIONS_KEY, CONTENT_WIDTH, 7.5) * 7.5 * 1.35 + 3;
+    ensure(key);
+    put({ kind: 'key' }, key);
   }
 
   const notes = H.section + list.fittingNotes.reduce((sum, n) => sum + lineCount(n, CONTENT_WIDTH - 14) * LINE + 2, 0);

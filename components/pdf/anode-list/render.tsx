@@ -3,7 +3,25 @@ import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
 import { CAUTION_TEXT, PlannedSheet, SheetRow, pdf } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { assetRows, assetTitle, CELL_PAD, colWidth, COLUMNS, CONTENT_WIDTH, dockingRows, planAnodeListPages, TITLE_LEFT_SHARE, titleLine, type PlanItem, type TableKind } from './layout';
+import { DIMENSIONS_KEY } from '@/lib/anode-list/words';
+import {
+  assetRows,
+  assetTitle,
+  CELL_PAD,
+  colWidth,
+  COLUMNS,
+  CONTENT_WIDTH,
+  dockingRows,
+  planAnodeListPages,
+  referenceLine,
+  SIGNATURE_HEADS,
+  SIGNATURE_SHARES,
+  signatureRows,
+  TITLE_LEFT_SHARE,
+  titleLine,
+  type PlanItem,
+  type TableKind,
+} from './layout';
 
 /*
  * The react-pdf components of the dry-dock anode list. They draw the sheets layout.ts plans;
@@ -63,49 +81,38 @@ function Title({ list }: { list: AnodeList }) {
     <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-end' }}>
       <View style={{ width: CONTENT_WIDTH * TITLE_LEFT_SHARE }}>
         <Text style={pdf.small}>{list.organisation.name}</Text>
-        <Text style={pdf.h1}>Dry-dock anode list</Text>
+        <Text style={pdf.h1}>{list.words.title}</Text>
         <Text>{titleLine(list)}</Text>
       </View>
       <View style={{ width: CONTENT_WIDTH * (1 - TITLE_LEFT_SHARE), alignItems: 'flex-end' }}>
         <Text style={{ fontWeight: 600 }}>{`Revision ${list.revision.number}`}</Text>
-        {d.reference ? <Text style={[pdf.small, { textAlign: 'right' }]}>{`Docking reference ${d.reference}`}</Text> : null}
+        {d.reference ? <Text style={[pdf.small, { textAlign: 'right' }]}>{referenceLine(list)}</Text> : null}
       </View>
     </View>
   );
 }
 
 function Signatures({ list }: { list: AnodeList }) {
-  const r = list.revision;
-  const rows: [string, string, string][] = [
-    ['Prepared', r.preparedBy ?? '', when(r.preparedAt)],
-    ['Checked', r.checkedBy ?? '', when(r.checkedAt)],
-    ['Approved', r.approvedBy ?? '', when(r.approvedAt)],
-    ['Fitted by (yard)', '', ''],
-    ['Accepted by (owner)', '', ''],
-  ];
   const cell = (share: number) => ({ width: share * CONTENT_WIDTH, paddingRight: 8 });
   const line = { borderBottomWidth: 0.6, borderBottomColor: '#7b8590' };
   return (
     <View wrap={false}>
-      <Text style={pdf.h2}>{`Revision ${r.number} and signatures`}</Text>
+      <Text style={pdf.h2}>{`Revision ${list.revision.number} and signatures`}</Text>
       <View style={s.headRow}>
-        <Text style={cell(0.2)}>Role</Text>
-        <Text style={cell(0.3)}>Name</Text>
-        <Text style={cell(0.16)}>Date</Text>
-        <Text style={cell(0.34)}>Signature</Text>
+        {SIGNATURE_HEADS.map((head, i) => (
+          <Text key={head} style={cell(SIGNATURE_SHARES[i])}>
+            {head}
+          </Text>
+        ))}
       </View>
-      {rows.map(([role, name, date]) => (
-        <View key={role} style={{ flexDirection: 'row', alignItems: 'flex-end', paddingTop: 10, paddingBottom: 2 }}>
-          <Text style={{ ...cell(0.2), fontWeight: 600 }}>{role}</Text>
-          <View style={cell(0.3)}>
-            <Text style={line}>{name || ' '}</Text>
-          </View>
-          <View style={cell(0.16)}>
-            <Text style={line}>{date || ' '}</Text>
-          </View>
-          <View style={cell(0.34)}>
-            <Text style={line}> </Text>
-          </View>
+      {signatureRows(list, when).map(([step, ...filled]) => (
+        <View key={step} style={{ flexDirection: 'row', alignItems: 'flex-end', paddingTop: 10, paddingBottom: 2 }}>
+          <Text style={{ ...cell(SIGNATURE_SHARES[0]), fontWeight: 600 }}>{step}</Text>
+          {[...filled, ''].map((text, i) => (
+            <View key={i} style={cell(SIGNATURE_SHARES[i + 1])}>
+              <Text style={line}>{text || ' '}</Text>
+            </View>
+          ))}
         </View>
       ))}
       <Text style={pdf.caution}>{CAUTION_TEXT}</Text>
@@ -143,7 +150,9 @@ function PlanItemView({ item, list }: { item: PlanItem; list: AnodeList }) {
     case 'row':
       return <Row table={item.table} cells={item.cells} rowStyle={item.total ? s.totalRow : s.row} />;
     case 'empty':
-      return <Text>No renewals are booked for this docking.</Text>;
+      return <Text>{list.words.empty}</Text>;
+    case 'key':
+      return <Text style={[pdf.small, { marginTop: 3 }]}>{DIMENSIONS_KEY}</Text>;
     case 'notes':
       return (
         <View wrap={false}>
@@ -173,13 +182,13 @@ const NO_CALT = StyleSheet.create({ p: { fontFeatureSettings: { calt: false } } 
  */
 export function AnodeListDocument({ list, pagination = 'planned' }: { list: AnodeList; pagination?: 'planned' | 'checked' }) {
   const d = list.docking;
-  const footer = `${list.organisation.name} · ${list.asset.name} · ${d.kind === 'campaign' ? 'anode list, campaign' : 'dry-dock anode list, docking'} from ${formatDateOnly(d.plannedStart)} · revision ${list.revision.number}`;
+  const footer = `${list.organisation.name} · ${list.asset.name} · ${list.words.title}, ${list.words.occasionTitle.toLowerCase()} from ${formatDateOnly(d.plannedStart)} · revision ${list.revision.number}`;
   const printed = `Printed ${format(list.printedAt, 'd MMM yyyy HH:mm')} by ${list.printedBy}`;
   const plan = planAnodeListPages(list);
   // Should an estimate ever exceed a sheet, let react-pdf continue it rather than cut text off.
   const wrap = pagination === 'checked' || !plan.fits;
   return (
-    <Document title={`Dry-dock anode list: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject="Sacrificial anodes to order and fit at a docking">
+    <Document title={`${list.words.title}: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject={`Sacrificial anodes to order and fit at a ${list.words.occasionTitle.toLowerCase()}`}>
       {plan.pages.map((items, p) => (
         <PlannedSheet key={p} orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: p + 1, pages: plan.pages.length }}>
           {items.map((item, i) => (

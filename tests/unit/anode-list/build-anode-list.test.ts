@@ -37,11 +37,11 @@ describe('buildAnodeList: zones, subtotals and totals', () => {
   it('totals by model for ordering, sorted by designation', () => {
     expect(list.orderTotals).toEqual([
       // TW-AW-4020: 12 + 10 = 22 anodes; 22 x 7.7 = 169.4 kg net; 22 x 8.7 = 191.4 kg gross
-      { designation: 'TW-AW-4020', alloy: 'al-zn-in', mounting: 'flush-weld', quantity: 22, netMassEachKg: 7.7, grossMassEachKg: 8.7, netMassTotalKg: 169.4, grossMassTotalKg: 191.4 },
+      { designation: 'TW-AW-4020', alloy: 'al-zn-in', mounting: 'flush-weld', quantity: 22, netMassEachKg: 7.7, grossMassEachKg: 8.7, netMassTotalKg: 169.4, grossMassTotalKg: 191.4, dimensions: null },
       // TW-AW-6512: 8 x 9.8 = 78.4 kg net; 8 x 11.0 = 88.0 kg gross
-      { designation: 'TW-AW-6512', alloy: 'al-zn-in', mounting: 'flush-weld', quantity: 8, netMassEachKg: 9.8, grossMassEachKg: 11, netMassTotalKg: 78.4, grossMassTotalKg: 88 },
+      { designation: 'TW-AW-6512', alloy: 'al-zn-in', mounting: 'flush-weld', quantity: 8, netMassEachKg: 9.8, grossMassEachKg: 11, netMassTotalKg: 78.4, grossMassTotalKg: 88, dimensions: null },
       // TW-ZB-2510: 4 + 6 = 10 anodes; 47.0 kg net; 50.0 kg gross
-      { designation: 'TW-ZB-2510', alloy: 'zinc', mounting: 'flush-bolt', quantity: 10, netMassEachKg: 4.7, grossMassEachKg: 5, netMassTotalKg: 47, grossMassTotalKg: 50 },
+      { designation: 'TW-ZB-2510', alloy: 'zinc', mounting: 'flush-bolt', quantity: 10, netMassEachKg: 4.7, grossMassEachKg: 5, netMassTotalKg: 47, grossMassTotalKg: 50, dimensions: null },
     ]);
     // The ordering totals add up to the grand totals: 169.4 + 78.4 + 47.0 = 294.8 kg.
     expect(list.orderTotals.reduce((s, o) => s + o.quantity, 0)).toBe(list.totals.quantity);
@@ -77,8 +77,18 @@ describe('buildAnodeList: zones, subtotals and totals', () => {
 });
 
 describe('buildAnodeList: fitting notes', () => {
-  it('gives a vessel with welded and bolted anodes every note', () => {
-    expect(buildAnodeList(smallInput()).fittingNotes).toEqual(FITTING_NOTES.map((n) => n.text));
+  it("gives a vessel's dry-docking with welded and bolted anodes every docking note and no diving note", () => {
+    expect(buildAnodeList(smallInput()).fittingNotes).toEqual(FITTING_NOTES.filter((n) => n.work !== 'campaign').map((n) => n.text));
+  });
+
+  it("gives a jetty's diving campaign diving notes, and no blasting, painting or propeller note", () => {
+    const input = smallInput({ asset: { name: 'North Jetty', kind: 'structure', particulars: [] } });
+    input.docking = { ...input.docking, kind: 'campaign', yard: 'Deepline Diving' };
+    const notes = buildAnodeList(input).fittingNotes.join(' ');
+    expect(notes).toMatch(/dive plan/);
+    expect(notes).toMatch(/wet-welding procedure/);
+    expect(notes).toMatch(/photograph or video/);
+    expect(notes).not.toMatch(/blast|paint|overspray|propeller/i);
   });
 
   it('leaves out the propeller note for a structure and the bolt note when nothing is bolted', () => {
@@ -89,7 +99,7 @@ describe('buildAnodeList: fitting notes', () => {
   });
 
   it('says to mask and not paint anodes, to measure continuity without inventing a limit, and to record what was fitted', () => {
-    const all = FITTING_NOTES.map((n) => n.text).join(' ');
+    const all = FITTING_NOTES.filter((n) => n.work !== 'campaign').map((n) => n.text).join(' ');
     expect(all).toMatch(/Mask every anode face/);
     expect(all).toMatch(/take the masking off/);
     expect(all).toMatch(/Never paint/);

@@ -8,6 +8,7 @@ import { approveDesign, checkDesign } from '@/lib/server/services/designs/sign-d
 import { newRevision } from '@/lib/server/services/designs/new-revision';
 import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
 import { startDesign } from '@/lib/server/services/designs/start-design';
+import { fitDesign } from '@/lib/server/services/designs/fit-design';
 
 export const createDesignAction = orgAction('design:write', async (ctx, formData) => {
   const design = await startDesign(ctx, formObject(formData));
@@ -41,4 +42,16 @@ export const approveDesignAction = orgAction('design:approve', async (ctx, formD
 export const newRevisionAction = orgAction('design:write', async (ctx, formData) => {
   const design = await newRevision(ctx, formId(formData, 'designId'));
   redirect(`/o/${ctx.organisation.slug}/designs/${design.id}`);
+});
+
+/** "Fit this design": the approved revision's anodes recorded as installed groups on the day entered. */
+export const fitDesignAction = orgAction('asset:write', async (ctx, formData) => {
+  const result = await fitDesign(ctx, formId(formData, 'designId'), { ...formObject(formData), mode: 'installed' });
+  return { ok: true, message: result.message };
+});
+
+/** "Fit this design" at a docking: the approved revision's anodes booked as renewals at a planned docking or campaign. */
+export const bookDesignRenewalsAction = orgAction('renewal:write', async (ctx, formData) => {
+  const result = await fitDesign(ctx, formId(formData, 'designId'), { ...formObject(formData), mode: 'renewal' });
+  return { ok: true, message: result.message };
 });

@@ -1,15 +1,39 @@
 import { format } from 'date-fns';
-import { buildAnodeList, anodeListCsv, type AnodeListInput } from '@/lib/anode-list';
+import { AnodeGroupSchema, AnodeModelSchema } from '@/entities';
+import { buildAnodeList, anodeListCsv, type AnodeListDimensions, type AnodeListInput } from '@/lib/anode-list';
+import { BUILTIN_ANODE_MODELS } from '@/lib/cp';
+import { ROLE_LABELS } from '@/lib/roles';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { toDateOnly } from '@/lib/dates/date-only';
 import { listDockingRenewals } from './docking-renewals';
 import { loadGroupForecasts } from '../forecast/group-forecasts';
+import { isUuid } from '../../ids';
 
 /**
- * The dry-dock anode list of a docking: every renewal not cancelled, with the asset's particulars and
- * each group's renew-by date (the same date the planner and the asset page show).
+ * The catalogue dimensions of the models on the list, by catalogue key (a group keeps a snapshot of
+ * its model without them): built-in models from lib/cp, the organisation's own in one query.
+ */
+async function dimensionsByKey(ctx: OrgContext, keys: string[]): Promise<Map<string, AnodeListDimensions>> {
+  const out = new Map<string, AnodeListDimensions>();
+  const orgIds: string[] = [];
+  for (const key of new Set(keys)) {
+    if (key.startsWith('builtin:')) {
+      const model = BUILTIN_ANODE_MODELS.find((m) => m.id === key.slice('builtin:'.length));
+      if (model) out.set(key, model.dimensions);
+    } else if (key.startsWith('org:') && isUuid(key.slice(4))) orgIds.push(key.slice(4));
+  }
+  if (orgIds.length) {
+    for (const row of await ctx.em.find(AnodeModelSchema, { id: { $in: orgIds }, organisation: ctx.organisation })) out.set(`org:${row.id}`, row.dimensions);
+  }
+  return out;
+}
+
+/**
+ * The anode list of a docking or campaign: every renewal not cancelled, with the asset's particulars,
+ * each model's dimensions and each group's renew-by date (the same date the planner and the asset
+ * page show). The member who prints it is the one named, with their role, as having prepared it.
  */
 export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   requirePermission(ctx, 'org:print');
@@ -32,7 +56,10 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
           ['Piles', a.pileCount ? `${a.pileCount} × Ø ${a.pileDiameterM ?? '?'} m` : '—'],
         ];
   const live = rows.filter((r) => r.status !== 'cancelled');
-  const confirmedBy = live.find((r) => r.confirmedBy)?.confirmedBy ?? null;
+  // The groups are in the identity map already (listDockingRenewals populates them); their snapshots carry the catalogue key.
+  const groups = live.length ? await ctx.em.find(AnodeGroupSchema, { id: { $in: live.map((r) => r.groupId) }, organisation: ctx.organisation }) : [];
+  const modelKey = new Map(groups.map((g) => [g.id, g.model.key]));
+  const dimensions = await dimensionsByKey(ctx, groups.map((g) => g.model.key));
   const input: AnodeListInput = {
     organisation: { name: ctx.organisation.name },
     asset: { name: a.name, kind: a.kind, particulars },
@@ -46,12 +73,13 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
       quantity: r.quantity,
       netMassKg: r.netMassKg,
       grossMassKg: r.grossMassKg,
+      dimensions: dimensions.get(modelKey.get(r.groupId) ?? '') ?? null,
       positions: r.positions,
       reason: r.reason.replace(/-/g, ' '),
       status: r.status,
       renewBy: r.status === 'fitted' ? null : (renewBy.get(r.groupId) ?? null),
     })),
-    revision: { number: 1, preparedBy: confirmedBy ?? ctx.user.name, preparedAt: new Date() },
+    revision: { number: 1, preparedBy: ctx.user.name, preparedByRole: ROLE_LABELS[ctx.role], preparedAt: new Date() },
     printedAt: new Date(),
     printedBy: ctx.user.name,
   };

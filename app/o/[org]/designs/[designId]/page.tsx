@@ -10,6 +10,10 @@ import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { DesignDesk } from '@/components/design-desk/design-desk';
 import { SignatureBlock } from '@/components/design-desk/signature-block';
+import { FitDesignForm } from '@/components/design-desk/fit-design-form';
+import { listPlannedDockings } from '@/lib/server/services/planner/dockings';
+import { dockingKindWords } from '@/lib/anode-list/words';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import type { DeskState } from '@/components/design-desk/desk-state';
 
 export const metadata: Metadata = { title: 'Design desk' };
@@ -30,6 +34,8 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
   const isPreparer = design.preparedBy.id === ctx.user.id;
   const editable = !approved && allowed(ctx, 'design:write');
   const asset = design.asset;
+  const canFit = { install: allowed(ctx, 'asset:write'), book: allowed(ctx, 'renewal:write') };
+  const dockings = approved && (canFit.install || canFit.book) ? await listPlannedDockings(ctx, asset.id) : [];
   const reason = approved
     ? 'This revision is approved and immutable. Make a new revision to change anything.'
     : isPreparer && allowed(ctx, 'design:approve')
@@ -76,6 +82,19 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
           />
         </Panel>
       </div>
+      {approved && (canFit.install || canFit.book) ? (
+        <div className="mb-4">
+          <Panel title="Fit this design">
+            <FitDesignForm
+              org={org}
+              designId={design.id}
+              assetName={asset.name}
+              dockings={dockings.map((d) => ({ value: d.id, label: `${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}` }))}
+              can={canFit}
+            />
+          </Panel>
+        </div>
+      ) : null}
       {recomputeError ? (
         <p role="alert" className="mb-4 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
           This draft&apos;s stored inputs cannot be computed today: {recomputeError}

@@ -1,4 +1,5 @@
 import type { Metadata } from 'next';
+import { anodeListWords } from '@/lib/anode-list/words';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getPageOrgContext } from '@/lib/server/page-context';
@@ -39,6 +40,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
   const dockingChoices = planned.map((d) => ({ id: d.id, label: `${formatDateOnly(d.plannedStart)}${d.yard ? `, ${d.yard}` : ''}` }));
   const start = docking.actualStart ?? docking.plannedStart;
   const listBase = `/api/orgs/${org}/dockings/${docking.id}/anode-list`;
+  const words = anodeListWords(docking.asset.kind, docking.kind);
   return (
     <>
       <PageHeader
@@ -51,8 +53,8 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
         }
         actions={
           <>
-            <ButtonLink href={`${listBase}?format=pdf`} variant="secondary" prefetch={false} target="_blank">Print the anode list (PDF)</ButtonLink>
-            <ButtonLink href={`${listBase}?format=csv`} variant="secondary" prefetch={false}>Anode list (CSV)</ButtonLink>
+            <ButtonLink href={`${listBase}?format=pdf`} variant="secondary" prefetch={false} target="_blank">{`Print the ${words.title.toLowerCase()} (PDF)`}</ButtonLink>
+            <ButtonLink href={`${listBase}?format=csv`} variant="secondary" prefetch={false}>{`${words.title} (CSV)`}</ButtonLink>
           </>
         }
       />
@@ -62,7 +64,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
         </Panel>
         <div className="grid items-start gap-4 xl:grid-cols-2">
           {canPlan ? (
-            <Panel title="Dates, yard and status">
+            <Panel title={`Dates, ${words.worksBy.toLowerCase()} and status`}>
               <DockingEditForm
                 org={org}
                 docking={{ id: docking.id, kind: docking.kind, status: docking.status, plannedStart: docking.plannedStart, plannedEnd: docking.plannedEnd ?? null, actualStart: docking.actualStart ?? null, actualEnd: docking.actualEnd ?? null, yard: docking.yard ?? null, reference: docking.reference ?? null, notes: docking.notes ?? null }}

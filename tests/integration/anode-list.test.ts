@@ -1,0 +1,115 @@
+import Papa from 'papaparse';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Organisation, User } from '@/entities';
+import type { Role } from '@/lib/roles';
+import { A4 } from '@/components/pdf/pdf-kit';
+import { COLUMNS } from '@/components/pdf/anode-list/layout';
+import { getEm, getOrm } from '@/lib/server/db';
+import { createAsset } from '@/lib/server/services/assets/create-asset';
+import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { createDocking } from '@/lib/server/services/planner/dockings';
+import { addRenewal } from '@/lib/server/services/planner/renewals';
+import { anodeListCsvFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
+import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
+import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
+
+let organisation: Organisation;
+let users: Record<Role, User>;
+const ctx = async (role: Role) => ctxFor(await getEm(), organisation, users[role]);
+const textOf = (page: PdfPage) => page.items.map((i) => i.str).join(' ').replace(/\s+/g, ' ');
+
+/** An asset with `n` groups booked (confirmed) for renewal at one planned docking or campaign. */
+async function bookedList(asset: { kind: 'vessel' | 'structure'; name: string }, n: number, modelKey: string) {
+  const created = await runAs(ctx('engineer'), (c) =>
+    createAsset(c, asset.kind === 'vessel' ? { kind: 'vessel', name: asset.name, hullMaterial: 'steel' } : { kind: 'structure', name: asset.name, structureType: 'jetty', waterType: 'seawater', pileCount: 40, pileDiameterM: 0.61 }),
+  );
+  const groupIds = await runAs(ctx('engineer'), async (c) => {
+    const ids: string[] = [];
+    for (let i = 1; i <= n; i++) ids.push((await createAnodeGroup(c, created.id, { label: `Row ${i}`, anodeModelKey: modelKey, quantity: 4 + (i % 3), installedOn: '2020-03-01', positions: `Frames ${10 * i} to ${10 * i + 8}, both sides`, meanCurrentA: 1 })).id);
+    return ids;
+  });
+  const docking = await runAs(ctx('planner'), (c) =>
+    createDocking(c, { assetId: created.id, kind: asset.kind === 'vessel' ? 'intermediate' : 'campaign', plannedStart: '2027-05-03', plannedEnd: '2027-05-14', yard: asset.kind === 'vessel' ? 'Saltmarsh Ship Repair' : 'Deepline Diving Ltd' }),
+  );
+  await runAs(ctx('planner'), async (c) => {
+    for (const groupId of groupIds) await addRenewal(c, docking.id, { groupId, reason: 'forecast-depletion' });
+  });
+  return docking.id;
+}
+
+let vesselDockingId: string;
+let jettyCampaignId: string;
+
+beforeAll(async () => {
+  ({ organisation, users } = await makeOrgWithRoles(await getEm(), 'List Test Shipping'));
+  // Invented assets; built-in generic models (lib/cp/builtin-anode-models.ts).
+  vesselDockingId = await bookedList({ kind: 'vessel', name: 'List Test Ferry' }, 70, 'builtin:TW-AW-4020');
+  jettyCampaignId = await bookedList({ kind: 'structure', name: 'List Test Jetty' }, 6, 'builtin:TW-AS-1510');
+}, 120_000);
+afterAll(async () => (await getOrm()).close(true));
+
+describe("a ship's dry-dock anode list", () => {
+  let pages: PdfPage[];
+  beforeAll(async () => {
+    const { pdf } = await runAs(ctx('planner'), (c) => anodeListPdf(c, vesselDockingId));
+    pages = await pdfPages(pdf);
+  }, 60_000);
+
+  it('prints every page A4 landscape (841.89 x 595.28 pt), numbered "page N of M"', () => {
+    expect(pages.length).toBeGreaterThan(1);
+    pages.forEach((page, i) => {
+      expect(page.width).toBeCloseTo(A4.height, 1);
+      expect(page.height).toBeCloseTo(A4.width, 1);
+      expect(textOf(page)).toContain(`page ${i + 1} of ${pages.length}`);
+    });
+  });
+
+  it("prints each model's dimensions and masses, and the yard's words", () => {
+    const all = pages.map(textOf).join(' ');
+    // TW-AW-4020: 400 x 200 x 40 mm, 7.7 kg net, 8.7 kg gross (lib/cp built-in catalogue).
+    expect(all).toContain('400 × 200 × 40');
+    expect(all).toMatch(/TW-AW-4020 400 × 200 × 40 Al-Zn-In Flush, weld-on \d+ 7\.7 8\.7/);
+    expect(all).toContain('Dimensions, mm');
+    expect(all).toContain('Dry-dock anode list');
+    expect(all).toContain('Yard Saltmarsh Ship Repair');
+    expect(all).toContain('Fitted by (yard)');
+    expect(all).toMatch(/Mask every anode face before blasting and painting/);
+  });
+
+  it('names the planner who printed it, with their role, as the preparer, never an e-mail address', () => {
+    const last = textOf(pages[pages.length - 1]);
+    expect(last).toMatch(/Prepared planner person Planner/);
+    expect(last).toContain('Printed');
+    expect(last).toContain('by planner person');
+    expect(pages.map(textOf).join(' ')).not.toMatch(/@test\.example/);
+  });
+
+  it('gives the CSV the same columns and words as the PDF: one table, labels not codes', async () => {
+    const { csv } = await runAs(ctx('planner'), (c) => anodeListCsvFor(c, vesselDockingId));
+    const rows = Papa.parse<string[]>(csv.trimEnd(), { newline: '\r\n' }).data;
+    expect(rows[0]).toEqual(['Zone', ...COLUMNS.line.map((c) => c.label)]);
+    expect(rows).toHaveLength(71);
+    expect(rows.slice(1).every((r) => r.length === rows[0].length)).toBe(true);
+    expect(rows[1]).toEqual(expect.arrayContaining(['No zone', 'TW-AW-4020', '400 × 200 × 40', 'Al-Zn-In', 'Flush, weld-on', '7.7', '8.7', 'Confirmed']));
+    expect(csv).not.toMatch(/al-zn-in|flush-weld|ordering totals/);
+  });
+});
+
+describe("a jetty's diving campaign list", () => {
+  it("speaks of a contractor and diving, never of a yard, dry-docking, blasting or painting", async () => {
+    const { pdf } = await runAs(ctx('planner'), (c) => anodeListPdf(c, jettyCampaignId));
+    const pages = await pdfPages(pdf);
+    for (const page of pages) {
+      expect(page.width).toBeCloseTo(A4.height, 1);
+      expect(page.height).toBeCloseTo(A4.width, 1);
+    }
+    const all = pages.map(textOf).join(' ');
+    expect(all).toContain('Anode list, diving campaign');
+    expect(all).toContain('Contractor Deepline Diving Ltd');
+    expect(all).toContain('Fitted by (contractor)');
+    expect(all).toMatch(/dive plan/);
+    // TW-AS-1510: 1,500 mm long, Ø 190 mm (lib/cp built-in catalogue).
+    expect(all).toContain('1500 × Ø190');
+    expect(all).not.toMatch(/\byard\b|dry-dock|blast|paint/i);
+  });
+});
