@@ -66,6 +66,8 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     checkDesignAction: { designId: ids.designId },
     approveDesignAction: { designId: ids.designId },
     newRevisionAction: { designId: ids.designId },
+    fitDesignAction: { designId: ids.designId, fittedOn: day(-2) },
+    bookDesignRenewalsAction: { designId: ids.designId, dockingId: ids.dockingId },
     createAnodeModelAction: model,
     archiveAnodeModelAction: { modelId: ids.modelId, archive: '1' },
     createSurveyAction: { assetId: ids.assetId, surveyedOn: day(-3), method: 'diver', surveyor: 'Harbour Divers', defaultElectrode: 'ag-agcl-seawater', notes: 'Probe' },
