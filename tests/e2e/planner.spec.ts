@@ -63,7 +63,7 @@ test('a planner opens the next docking of an overdue vessel, finds its renewal p
   // The scheduler's reason, with the margin, is on the page (not only in a tooltip).
   await expect(hull).toContainText(/has passed, so the group is renewed at the next docking/);
 
-  const href = await page.getByRole('link', { name: 'Print the anode list (PDF)' }).getAttribute('href');
+  const href = await page.getByRole('link', { name: 'Print the dry-dock anode list (PDF)' }).getAttribute('href');
   const response = await page.request.get(href!);
   expect(response.headers()['content-type']).toBe('application/pdf');
   const body = await response.body();
