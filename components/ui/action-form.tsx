@@ -29,6 +29,12 @@ export interface BoundForm {
    * server writes once and answers both with the first result; renewed once a submit has been answered.
    */
   idempotencyKey: string;
+  /**
+   * The action as React gives it (no wrapper), for ActionForm: the form then works before the page's
+   * scripts have loaded too (React renders the action's hidden fields), and the key travels in the
+   * hidden field ActionForm renders.
+   */
+  formAction: (formData: FormData) => void;
   /** name, kept value and errors for a Field or SelectField: `<Field label="…" {...form.field('yard')} />`. */
   field: (name: string, fallback?: string) => { name: string; defaultValue: string | undefined; errors: string[] | undefined };
 }
@@ -55,11 +61,11 @@ export function useBoundAction(bound: BoundAction, { initial = {}, invalidate = 
   );
   const values = state.values ?? initial;
   const errors = (name: string) => state.fieldErrors?.[name];
-  return { state, action, pending, idempotencyKey, values, errors, field: (name, fallback) => ({ name, defaultValue: values[name] ?? fallback, errors: errors(name) }) };
+  return { state, action, formAction: dispatch, pending, idempotencyKey, values, errors, field: (name, fallback) => ({ name, defaultValue: values[name] ?? fallback, errors: errors(name) }) };
 }
 
 interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>, 'action'> {
-  form: Pick<BoundForm, 'state' | 'action'> & { idempotencyKey?: string };
+  form: Pick<BoundForm, 'state' | 'action'> & Partial<Pick<BoundForm, 'idempotencyKey' | 'formAction'>>;
   /** Wraps the message in a div with this class (e.g. a column span in a grid form). */
   messageClassName?: string;
 }
@@ -68,7 +74,7 @@ interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>
 export function ActionForm({ form, messageClassName, children, ...props }: ActionFormProps) {
   const message = <FormMessage state={form.state} />;
   return (
-    <form action={form.action} {...props}>
+    <form action={form.formAction ?? form.action} {...props}>
       {form.idempotencyKey ? <input type="hidden" name={IDEMPOTENCY_FIELD} value={form.idempotencyKey} readOnly /> : null}
       {messageClassName ? <div className={messageClassName}>{message}</div> : message}
       {children}
