@@ -17,6 +17,7 @@ import { deleteExpiredIdempotencyKeys } from '@/lib/server/idempotency';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
 import { databaseFingerprint, signInAs } from '../fixtures/entry-points';
+import { atOnce } from '../fixtures/at-once';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
@@ -48,17 +49,6 @@ async function invoke(call: () => Promise<unknown>): Promise<Outcome> {
   }
 }
 
-/** Starts every call, holds them all at one gate, then lets them go at once. */
-async function atOnce<T>(count: number, call: (i: number) => Promise<T>): Promise<T[]> {
-  let open!: () => void;
-  const gate = new Promise<void>((resolve) => (open = resolve));
-  const calls = Array.from({ length: count }, async (_, i) => {
-    await gate;
-    return call(i);
-  });
-  open();
-  return Promise.all(calls);
-}
 
 type FormAction = (slug: string, previous: State, formData: FormData) => Promise<State>;
 const form = (action: FormAction, input: Record<string, unknown>) => invoke(() => action(home.organisation.slug, { ok: false }, formDataOf(input)));

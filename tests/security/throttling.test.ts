@@ -17,6 +17,7 @@ import { requestPasswordReset } from '@/lib/server/services/accounts/request-pas
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
 import { requestHeaders } from '../fixtures/next-headers-mock';
+import { atOnceSettled } from '../fixtures/at-once';
 
 const MAX_FAILURES_PER_PAIR = LIMITS.signInPair.points;
 const MAX_FAILURES_PER_ADDRESS = LIMITS.signInAddress.points;
@@ -29,13 +30,6 @@ afterAll(async () => (await getOrm()).close(true));
 /** A documentation-range address of its own for each test, so counts never carry over. */
 const freshAddress = () => `198.18.${randomInt(0, 255)}.${randomInt(1, 254)}`;
 
-async function atOnce<T>(n: number, call: (i: number) => Promise<T>) {
-  let release!: () => void;
-  const barrier = new Promise<void>((resolve) => (release = resolve));
-  const calls = Array.from({ length: n }, (_, i) => barrier.then(() => call(i)));
-  release();
-  return Promise.allSettled(calls);
-}
 
 const codeOf = (o: PromiseSettledResult<unknown>) => (o.status === 'fulfilled' ? 'ok' : o.reason instanceof AppError ? o.reason.code : `thrown: ${String(o.reason)}`);
 
@@ -49,7 +43,7 @@ describe('sign-in guesses', () => {
   it('30 simultaneous wrong guesses on one account from one address: at most 5 are checked', async () => {
     const user = await makeUser(await getEm());
     const ip = freshAddress();
-    const outcomes = await atOnce(30, () => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-guess-123' }, ip })));
+    const outcomes = await atOnceSettled(30, () => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-guess-123' }, ip })));
     const codes = outcomes.map(codeOf);
     expect(codes.filter((c) => c === 'invalid').length).toBeLessThanOrEqual(MAX_FAILURES_PER_PAIR);
     expect(codes.filter((c) => c === 'rate-limited').length).toBeGreaterThanOrEqual(30 - MAX_FAILURES_PER_PAIR);
@@ -58,7 +52,7 @@ describe('sign-in guesses', () => {
 
   it('30 simultaneous wrong guesses on one account from 30 addresses: at most 5 and one delayed attempt are checked', async () => {
     const user = await makeUser(await getEm());
-    const outcomes = await atOnce(30, () => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-guess-123' }, ip: freshAddress() })));
+    const outcomes = await atOnceSettled(30, () => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: 'wrong-guess-123' }, ip: freshAddress() })));
     const codes = outcomes.map(codeOf);
     expect(codes.filter((c) => c === 'invalid').length).toBeLessThanOrEqual(FREE_ATTEMPTS_PER_ACCOUNT + 1);
     expect(codes.every((c) => c === 'invalid' || c === 'rate-limited')).toBe(true);
@@ -81,7 +75,7 @@ describe('sign-in guesses', () => {
     const user = await makeUser(await getEm());
     for (let i = 0; i < FREE_ATTEMPTS_PER_ACCOUNT; i++) expect(await attempt(user.email, `wrong-guess-${i}-x`, freshAddress())).toBe('invalid');
     // Past the free attempts one attempt gets through per gap; another at the same moment is told to wait.
-    const outcomes = await atOnce(2, (i) => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: `wrong-guess-late-${i}` }, ip: freshAddress() })));
+    const outcomes = await atOnceSettled(2, (i) => inUnitOfWork((w) => signIn({ ...w, input: { email: user.email, password: `wrong-guess-late-${i}` }, ip: freshAddress() })));
     expect(outcomes.map(codeOf).sort()).toEqual(['invalid', 'rate-limited']);
     const error = outcomes.map((o) => (o.status === 'rejected' ? o.reason : null)).find((e) => e?.code === 'rate-limited');
     expect((error as AppError).message).toMatch(/Wait \d+ seconds? and try again/);

@@ -13,19 +13,12 @@ import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { acceptInvitationAsNewUser, acceptInvitationAsUser } from '@/lib/server/services/team/accept-invitation';
 import { ROLES } from '@/lib/roles';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, uniqueEmail } from '../fixtures/factories';
+import { atOnceSettled } from '../fixtures/at-once';
 
 afterAll(async () => (await getOrm()).close(true));
 
 const SIMULTANEOUS = 8;
 
-/** Starts n calls that all wait for one barrier, then releases them together; returns every outcome. */
-async function atOnce<T>(n: number, call: (i: number) => Promise<T>) {
-  let release!: () => void;
-  const barrier = new Promise<void>((resolve) => (release = resolve));
-  const calls = Array.from({ length: n }, (_, i) => barrier.then(() => call(i)));
-  release();
-  return Promise.allSettled(calls);
-}
 
 const fulfilled = <T>(outcomes: PromiseSettledResult<T>[]) => outcomes.filter((o): o is PromiseFulfilledResult<T> => o.status === 'fulfilled');
 
@@ -53,7 +46,7 @@ describe('password reset links', () => {
     const user = await makeUser(await getEm());
     await inUnitOfWork((w) => requestPasswordReset({ ...w, input: { email: user.email } }));
     const token = await linkFromOutbox(user.email, 'reset');
-    const outcomes = await atOnce(SIMULTANEOUS, (i) => inUnitOfWork((w) => resetPassword({ ...w, input: { token, password: `new-keel-plate-${i}-x` } })));
+    const outcomes = await atOnceSettled(SIMULTANEOUS, (i) => inUnitOfWork((w) => resetPassword({ ...w, input: { token, password: `new-keel-plate-${i}-x` } })));
     const winners = fulfilled(outcomes);
     expect(winners).toHaveLength(1);
     expectOnlyRefusals(outcomes);
@@ -86,7 +79,7 @@ describe('confirmation links', () => {
     const email = uniqueEmail('confirm-race');
     await inUnitOfWork((w) => signUp({ ...w, input: { name: 'Vera Race', email, password: 'brass-rudder-stock-7' } }));
     const token = await linkFromOutbox(email, 'verify');
-    const outcomes = await atOnce(SIMULTANEOUS, () => inUnitOfWork((w) => verifyEmail({ ...w, token })));
+    const outcomes = await atOnceSettled(SIMULTANEOUS, () => inUnitOfWork((w) => verifyEmail({ ...w, token })));
     expect(fulfilled(outcomes)).toHaveLength(1);
     expectOnlyRefusals(outcomes);
   });
@@ -102,7 +95,7 @@ describe('invitation links', () => {
 
   it(`${SIMULTANEOUS} simultaneous acceptances by someone new: one account, one membership`, async () => {
     const { organisation, email, token } = await invitation();
-    const outcomes = await atOnce(SIMULTANEOUS, (i) => inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: `Sol ${i}`, password: 'bracelet-anode-set-5' } })));
+    const outcomes = await atOnceSettled(SIMULTANEOUS, (i) => inUnitOfWork((w) => acceptInvitationAsNewUser({ ...w, input: { token, name: `Sol ${i}`, password: 'bracelet-anode-set-5' } })));
     expect(fulfilled(outcomes)).toHaveLength(1);
     // The others are told the truth (already accepted), not a failed insert.
     expectOnlyRefusals(outcomes);
@@ -116,7 +109,7 @@ describe('invitation links', () => {
     const { organisation, email, token } = await invitation();
     const invitee = await makeUser(await getEm(), { email });
     const current = { id: invitee.id, email, name: invitee.name, emailVerified: true };
-    const outcomes = await atOnce(SIMULTANEOUS, () => inUnitOfWork((w) => acceptInvitationAsUser({ ...w, user: current, input: { token } })));
+    const outcomes = await atOnceSettled(SIMULTANEOUS, () => inUnitOfWork((w) => acceptInvitationAsUser({ ...w, user: current, input: { token } })));
     expect(fulfilled(outcomes)).toHaveLength(1);
     expectOnlyRefusals(outcomes);
     const em = await getEm();
