@@ -273,6 +273,8 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
 
     const dueText = `${forecastDateWords(dueKey)} ${formatDateOnly(due!)}`;
     const todayText = formatDateOnly(s.today);
+    /** The common fields of a proposal at the k-th candidate docking. */
+    const atDocking = (k: number) => ({ groupId, status: 'proposed' as const, dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline });
 
     // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
     if (dayNumberUTC(deadline) < s.todayDay) {
@@ -282,11 +284,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         const dockingDate = docks.dates[0];
         const late = dockingDate.getTime() > due!.getTime();
         return {
-          groupId,
-          status: 'proposed',
-          dockingId: docks.ids[0],
-          dockingDate,
-          deadline,
+          ...atDocking(0),
           overdue: true,
           ...(late ? { earlierDocking: asap(`The next docking (${formatDateOnly(dockingDate)}) is after the ${dueText}`) } : { withinMargin: true }),
           reason: `${overdueWords}, so the group is renewed at the next docking, ${formatDateOnly(dockingDate)}${late ? `, which is after the ${dueText}.` : '.'}`,
@@ -321,11 +319,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       const earlyDeadline = early ? addMonthsUTC(early, -s.marginMonths) : null;
       const atRisk = earlyDeadline !== null && dockingDate.getTime() > earlyDeadline.getTime();
       return {
-        groupId,
-        status: 'proposed',
-        dockingId: docks.ids[k],
-        dockingDate,
-        deadline,
+        ...atDocking(k),
         ...(atRisk ? { atRisk: true } : {}),
         reason:
           `Renew at the docking of ${formatDateOnly(dockingDate)}, the last docking before the deadline ${formatDateOnly(deadline)}${because}` +
@@ -337,11 +331,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     if (n > 0 && docks.times[0] <= due!.getTime()) {
       const dockingDate = docks.dates[0];
       return {
-        groupId,
-        status: 'proposed',
-        dockingId: docks.ids[0],
-        dockingDate,
-        deadline,
+        ...atDocking(0),
         withinMargin: true,
         reason: `Renew at the docking of ${formatDateOnly(dockingDate)}: no docking falls before the deadline ${formatDateOnly(deadline)}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
       };
