@@ -13,7 +13,7 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
-import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs } from '../fixtures/entry-points';
+import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs, CALCULATION, PNG_HEADER as PNG } from '../fixtures/entry-points';
 import { pdfText } from '../fixtures/pdf-text';
 import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
 
@@ -21,16 +21,6 @@ vi.mock('next/headers', () => nextHeadersMock);
 
 // Every organisation route handler (each exported method of each route.ts under app/api/orgs/[org]) with the
 // roles it admits; a test below fails when a route file exports a method this table does not list.
-// A sizing every role may run (invented job: 1,000 m² of bare steel, one stand-off anode model).
-const CALCULATION = {
-  designLifeYears: 10,
-  resistivityOhmM: 0.25,
-  protectedMetal: 'steel',
-  surfaces: [{ name: 'Piles', areaM2: 1000, currentDensity: { initial: 0.2, mean: 0.1, final: 0.13 }, coating: 'bare' }],
-  anode: { alloy: 'al-zn-in', capacityAhPerKg: 2000, potentialV: -1.05, utilisationFactor: 0.9, netMassKg: 200, shape: { kind: 'slender-standoff', lengthM: 2, radiusM: 0.1 } },
-};
-// The first bytes of a PNG (signature and IHDR length/type): enough for the content sniffer.
-const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52]);
 const VESSEL = 'Route Test Vessel';
 const day = (offset: number) => addDays(new Date(), offset).toISOString().slice(0, 10);
 

@@ -28,14 +28,12 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { ctxFor, makeOrgWithRoles, runAs, uniqueEmail } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
-import { HTTP_METHODS, ROOT, databaseFingerprint, filesNamed, importFile, signInAs } from '../fixtures/entry-points';
+import { HTTP_METHODS, ROOT, databaseFingerprint, filesNamed, importFile, signInAs, CALCULATION, PNG_HEADER as PNG } from '../fixtures/entry-points';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
 const INTERNAL = 'Something went wrong on our side; nothing was changed. Please try again.';
 const RUNS = 8;
-// The first bytes of a PNG: enough for the content sniffer.
-const PNG: Uint8Array<ArrayBuffer> = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52]);
 const day = (offset: number) => addDays(new Date(), offset).toISOString().slice(0, 10);
 
 let home: { organisation: Organisation; users: Record<Role, User> };
@@ -285,13 +283,6 @@ describe('hostile input to every server action: no 5xx, no throw, nothing writte
 
 type Handler = (req: NextRequest, route: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
-const CALCULATION = {
-  designLifeYears: 10,
-  resistivityOhmM: 0.25,
-  protectedMetal: 'steel',
-  surfaces: [{ name: 'Piles', areaM2: 1000, currentDensity: { initial: 0.2, mean: 0.1, final: 0.13 }, coating: 'bare' }],
-  anode: { alloy: 'al-zn-in', capacityAhPerKg: 2000, potentialV: -1.05, utilisationFactor: 0.9, netMassKg: 200, shape: { kind: 'slender-standoff', lengthM: 2, radiusM: 0.1 } },
-};
 
 interface Body {
   type: string;

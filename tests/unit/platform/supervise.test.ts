@@ -36,25 +36,32 @@ function manualTime() {
   };
 }
 
+
+/** A supervisor over stand-in children on the hand-driven clock; returns the children it started. */
+function superviseFakes(time: ReturnType<typeof manualTime>, options: { name?: string; log?: (line: string) => void; delays?: number[]; stableAfterMs?: number } = {}) {
+  const children: ReturnType<typeof fakeChild>[] = [];
+  const supervisor = supervise({
+    name: options.name ?? 'The worker',
+    spawnChild: () => {
+      const child = fakeChild();
+      children.push(child);
+      return child as unknown as ChildProcess;
+    },
+    log: options.log ?? (() => undefined),
+    ...(options.delays ? { delays: options.delays } : {}),
+    ...(options.stableAfterMs ? { stableAfterMs: options.stableAfterMs } : {}),
+    now: time.now,
+    schedule: time.schedule,
+    cancel: time.cancel,
+  });
+  return { supervisor, children };
+}
+
 describe('supervise: a dead worker or fake is started again with back-off', () => {
   it('restarts after each unexpected exit with growing pauses, and logs one line each time', () => {
     const time = manualTime();
-    const children: ReturnType<typeof fakeChild>[] = [];
     const log: string[] = [];
-    const supervisor = supervise({
-      name: 'The worker',
-      spawnChild: () => {
-        const child = fakeChild();
-        children.push(child);
-        return child as unknown as ChildProcess;
-      },
-      log: (line) => log.push(line),
-      delays: [1000, 2000, 5000],
-      stableAfterMs: 60_000,
-      now: time.now,
-      schedule: time.schedule,
-      cancel: time.cancel,
-    });
+    const { supervisor, children } = superviseFakes(time, { log: (line) => log.push(line), delays: [1000, 2000, 5000], stableAfterMs: 60_000 });
     expect(children).toHaveLength(1);
 
     children[0].die(1);
@@ -81,21 +88,7 @@ describe('supervise: a dead worker or fake is started again with back-off', () =
 
   it('goes back to the shortest pause after the child stayed up for the stable period', () => {
     const time = manualTime();
-    const children: ReturnType<typeof fakeChild>[] = [];
-    supervise({
-      name: 'The SMTP fake',
-      spawnChild: () => {
-        const child = fakeChild();
-        children.push(child);
-        return child as unknown as ChildProcess;
-      },
-      log: () => undefined,
-      delays: [1000, 2000, 5000],
-      stableAfterMs: 60_000,
-      now: time.now,
-      schedule: time.schedule,
-      cancel: time.cancel,
-    });
+    const { children } = superviseFakes(time, { name: 'The SMTP fake', delays: [1000, 2000, 5000], stableAfterMs: 60_000 });
     children[0].die(1);
     time.advance(1000);
     children[1].die(1);
@@ -107,41 +100,17 @@ describe('supervise: a dead worker or fake is started again with back-off', () =
 
   it('does not restart a child after stop(), nor one whose restart was pending', () => {
     const time = manualTime();
-    const children: ReturnType<typeof fakeChild>[] = [];
-    const supervisor = supervise({
-      name: 'The Stripe fake',
-      spawnChild: () => {
-        const child = fakeChild();
-        children.push(child);
-        return child as unknown as ChildProcess;
-      },
-      log: () => undefined,
-      delays: [1000],
-      now: time.now,
-      schedule: time.schedule,
-      cancel: time.cancel,
-    });
+    const { supervisor, children } = superviseFakes(time, { name: 'The Stripe fake', delays: [1000] });
     children[0].die(1);
     expect(supervisor.stop()).toBe(children[0]);
     time.advance(10_000);
     expect(children).toHaveLength(1);
 
-    const second = supervise({
-      name: 'The worker',
-      spawnChild: () => {
-        const child = fakeChild();
-        children.push(child);
-        return child as unknown as ChildProcess;
-      },
-      log: () => undefined,
-      now: time.now,
-      schedule: time.schedule,
-      cancel: time.cancel,
-    });
-    second.stop();
-    children[1].die(0);
+    const second = superviseFakes(time);
+    second.supervisor.stop();
+    second.children[0].die(0);
     time.advance(120_000);
-    expect(children).toHaveLength(2);
+    expect(second.children).toHaveLength(1);
   });
 
   it('restarts a real process that keeps dying, with real timers', async () => {
