@@ -153,6 +153,10 @@ describe('corrections, audited with the values before and after', () => {
     await as('inspector', (c) => updateSurveyAttachment(c, survey.id, attachment.id, { caption: 'Bent 1, after cleaning' }));
     expect((await (await getEm()).findOneOrFail(SurveyAttachmentSchema, { id: attachment.id })).caption).toBe('Bent 1, after cleaning');
     expect((await auditOf('survey.attachment-updated', survey.id))[0].details).toMatchObject({ before: { caption: 'Bent 1' }, after: { caption: 'Bent 1, after cleaning' } });
+    // A caption with a NUL byte is refused with a field message (it was a 500), and the caption stays as it was.
+    const refused = await failure(as('inspector', (c) => updateSurveyAttachment(c, survey.id, attachment.id, { caption: 'Bent\u00001' })));
+    expect(refused.status).toBe(422);
+    expect((await (await getEm()).findOneOrFail(SurveyAttachmentSchema, { id: attachment.id })).caption).toBe('Bent 1, after cleaning');
     expect((await failure(as('viewer', (c) => deleteSurveyAttachment(c, survey.id, attachment.id)))).status).toBe(403);
     await as('engineer', (c) => deleteSurveyAttachment(c, survey.id, attachment.id));
     expect(await (await getEm()).count(SurveyAttachmentSchema, { id: attachment.id })).toBe(0);

@@ -61,10 +61,10 @@ async function attachmentForWrite(ctx: OrgContext, surveyId: string, attachmentI
 /** Changes what the attachment's caption says; the audit row keeps the old and the new caption. */
 export async function updateSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string, input: { caption?: unknown }) {
   const { survey, attachment } = await attachmentForWrite(ctx, surveyId, attachmentId);
-  const caption = typeof input.caption === 'string' ? input.caption.trim() : '';
-  if (caption.length > 200) throw new AppError('invalid', 'Use at most 200 characters.', { caption: ['Use at most 200 characters.'] });
+  // The same check as a new attachment's caption: at most 200 characters, no control characters.
+  const { caption } = attachmentCaptionSchema.parse({ caption: input.caption ?? null });
   const before = { file: attachment.filename, caption: attachment.caption ?? null };
-  attachment.caption = caption || null;
+  attachment.caption = caption;
   audit(ctx, { action: 'survey.attachment-updated', targetType: 'survey', targetId: survey.id, details: { attachmentId, before, after: { file: attachment.filename, caption: attachment.caption } } });
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
   return attachment;
