@@ -1,8 +1,8 @@
 import path from 'node:path';
 import type { ComponentProps, ReactNode } from 'react';
-import { Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
+import { Canvas, Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { CAUTION_SENTENCE } from '@/lib/words/caution';
-import { FONT, LINE_HEIGHT, textWidth, wrapLines } from './measure-text';
+import { FONT, LINE_HEIGHT, textWidth, wrapLines, type TextWeight } from './measure-text';
 
 // Inter ships in fonts/ as TrueType for the PDFs (made from @fontsource's woff by scripts/woff-to-ttf.mjs):
 // fontkit inflates a woff's whole glyph table again for every glyph it reads, which was most of the
@@ -38,7 +38,7 @@ type Layout = (this: object, text: string, features?: unknown, ...rest: unknown[
  * Text shaping (fontkit's layout: substitutions and positioning from the font's tables) was most of
  * the time of a long anode list, and its texts repeat: alloys, mountings, statuses, masses, dates,
  * the column heads of every sheet. Each font keeps the runs it has shaped, by text and features;
- * callers get a copy of the glyph list (react-pdf copies positions before changing them). The
+ * callers get copies of the glyph list and of the positions. The
  * result is the same glyphs and positions, so the page plan and the printed sheets do not change.
  */
 const SHAPED_LIMIT = 20_000;
@@ -56,7 +56,8 @@ function cacheShaping(proto: { layout: Layout; __shapingCached?: boolean }) {
       if (cache.size >= SHAPED_LIMIT) cache.clear();
       cache.set(key, run);
     }
-    return Object.assign(Object.create(Object.getPrototypeOf(run)), run, { glyphs: run.glyphs.slice() });
+    // Copies of the lists and the positions: react-pdf changes glyph lists, pdfkit (a drawn table) scales positions in place.
+    return Object.assign(Object.create(Object.getPrototypeOf(run)), run, { glyphs: run.glyphs.slice(), positions: run.positions.map((p) => ({ ...(p as object) })) });
   };
   proto.__shapingCached = true;
 }
@@ -66,12 +67,14 @@ export const A4 = { width: 595.28, height: 841.89 } as const;
 /** The padding of every page (pdf.page); the footer sits in the bottom margin. */
 export const PAGE_MARGIN = { top: 36, bottom: 48, side: 36 } as const;
 const FOOTER = { bottom: 20, size: 7, maxLines: 2 } as const;
+/** The colour of the body text. */
+export const INK = '#1c232b';
 
 export const pdf = StyleSheet.create({
   page: {
     fontFamily: ['Inter', 'InterGreek'] as unknown as string,
     fontSize: FONT,
-    color: '#1c232b',
+    color: INK,
     paddingTop: PAGE_MARGIN.top,
     paddingBottom: PAGE_MARGIN.bottom,
     paddingHorizontal: PAGE_MARGIN.side,
@@ -186,16 +189,19 @@ export class PagePlanner<T> {
 
 /**
  * A table row: its cells wrapped to their columns' rooms (pt), cut into parts at line breaks when
- * taller than `maxHeight`, so every part fits a sheet. `height(lines)` is the row's height.
+ * taller than `maxHeight`, so every part fits a sheet. `height(lines)` is the row's height. Each
+ * part has its cells' texts and their lines (what a drawn table writes, line by line); a drawn
+ * table measures with its `weight`'s own widths.
  */
-export function rowParts(cells: string[], rooms: number[], height: (lines: number) => number, maxHeight: number, size = FONT): { cells: string[]; height: number }[] {
-  const wrapped = cells.map((c, i) => wrapLines(c, rooms[i], size));
+export function rowParts(cells: string[], rooms: number[], height: (lines: number) => number, maxHeight: number, size = FONT, weight?: TextWeight): { cells: string[]; lines: string[][]; height: number }[] {
+  const wrapped = cells.map((c, i) => wrapLines(c, rooms[i], size, weight));
   const lines = Math.max(...wrapped.map((w) => w.length));
-  if (height(lines) <= maxHeight) return [{ cells, height: height(lines) }];
+  if (height(lines) <= maxHeight) return [{ cells, lines: wrapped, height: height(lines) }];
   const perPart = Math.max(1, Math.floor((maxHeight - height(0)) / (size * LINE_HEIGHT)));
-  const parts: { cells: string[]; height: number }[] = [];
+  const parts: { cells: string[]; lines: string[][]; height: number }[] = [];
   for (let k = 0; k * perPart < lines; k++) {
-    parts.push({ cells: wrapped.map((w) => w.slice(k * perPart, (k + 1) * perPart).join('\n')), height: height(Math.min(perPart, lines - k * perPart)) });
+    const part = wrapped.map((w) => w.slice(k * perPart, (k + 1) * perPart));
+    parts.push({ cells: part.map((w) => w.join('\n')), lines: part, height: height(Math.min(perPart, lines - k * perPart)) });
   }
   return parts;
 }
@@ -293,4 +299,142 @@ export function PageFooter({ left, right, page, pages, width }: { left: string; 
       <Text style={{ width: rightRoom, textAlign: 'right' }}>{rightText}</Text>
     </View>
   );
+}
+
+// ---------- tables drawn straight onto the sheet ----------
+/*
+ * Why long tables are drawn rather than laid out: in a 300-line anode list about 4,000 table
+ * cells were each a react-pdf <Text>, and laying them out (a yoga node, an attributed string and
+ * a line breaker per cell, then a render pass over each) was most of the time, with a quarter of
+ * it in garbage collection. The plan already knows every cell's lines (wrapLines) and every row's
+ * height, so a run of rows becomes one <Canvas> of the planned height that writes each line of
+ * each cell at its place with the page's own Inter fonts: the same glyphs, searchable and
+ * copyable as before, in reading order (row by row, cell by cell), at a small part of the cost.
+ * The lines are the plan's (widths rounded up, measure-text.ts), so a line never runs past its
+ * cell; a test measures them with the real fonts.
+ */
+
+/** The fonts of the sheet, loaded: drawn tables use them directly (call before rendering). */
+export async function loadPdfFonts() {
+  registerPdfFonts();
+  await Promise.all(DRAWN_WEIGHTS.flatMap((fontWeight) => [Font.load({ fontFamily: 'Inter', fontWeight }), Font.load({ fontFamily: 'InterGreek', fontWeight })]));
+}
+
+const DRAWN_WEIGHTS = [400, 600] as const satisfies readonly TextWeight[];
+type DrawnWeight = (typeof DRAWN_WEIGHTS)[number];
+
+/** The parts of a fontkit font a drawn table uses. */
+interface LoadedFont {
+  unitsPerEm: number;
+  ascent: number;
+  descent: number;
+  hasGlyphForCodePoint(codePoint: number): boolean;
+  layout(text: string, features?: unknown): { advanceWidth: number };
+}
+
+function loadedFont(family: 'Inter' | 'InterGreek', fontWeight: DrawnWeight): LoadedFont {
+  const data = (Font.getFont({ fontFamily: family, fontWeight }) as unknown as { data: LoadedFont | null } | null)?.data;
+  // react-pdf loads every font its texts use before drawing; a sheet always has headings in both weights.
+  if (!data) throw new Error(`The PDF font ${family} ${fontWeight} is not loaded: call loadPdfFonts() before rendering.`);
+  return data;
+}
+
+/** A column of a drawn table: where it starts and how wide it is (pt), numbers right-aligned. */
+export interface DrawnColumn {
+  x: number;
+  width: number;
+  right?: boolean;
+  /** Left padding (pt). */
+  padLeft: number;
+  /** Right padding (pt). */
+  padRight: number;
+}
+
+/** One row of a drawn table: each cell's lines, the row's height (pt), bold, and its bottom rule. */
+export interface DrawnRow {
+  lines: string[][];
+  height: number;
+  strong: boolean;
+  rule: { width: number; color: string };
+}
+
+/** The features of the page's text (calt off, as the sheets set it) and of number columns (tabular figures). */
+const TEXT_FEATURES = { calt: false };
+const NUMBER_FEATURES = { calt: false, tnum: true };
+
+interface Painter {
+  font(font: LoadedFont, size: number): Painter;
+  fillColor(color: string): Painter;
+  text(text: string, x: number, y: number, options: object): Painter;
+  moveTo(x: number, y: number): Painter;
+  lineTo(x: number, y: number): Painter;
+  lineWidth(width: number): Painter;
+  strokeColor(color: string): Painter;
+  stroke(): Painter;
+}
+
+/** Runs of a text by the font that has its glyphs (Inter, else its Greek subset for ρ, ε, Ω…). */
+function fontRuns(text: string, latin: LoadedFont, greek: LoadedFont): { text: string; font: LoadedFont }[] {
+  let plain = true;
+  for (let i = 0; i < text.length && plain; i++) plain = text.charCodeAt(i) < 128;
+  if (plain) return [{ text, font: latin }];
+  const runs: { text: string; font: LoadedFont }[] = [];
+  for (const ch of text) {
+    const cp = ch.codePointAt(0)!;
+    const font = cp < 128 || latin.hasGlyphForCodePoint(cp) || !greek.hasGlyphForCodePoint(cp) ? latin : greek;
+    const last = runs[runs.length - 1];
+    if (last && last.font === font) last.text += ch;
+    else runs.push({ text: ch, font });
+  }
+  return runs;
+}
+
+/**
+ * Writes the rows onto the sheet: each cell's lines at their place (left or right aligned), and
+ * each row's bottom rule, with the geometry of a react-pdf row (padding 2 pt above and below the
+ * lines, the rule inside the bottom of the row).
+ */
+function paintRows(painter: Painter, width: number, columns: DrawnColumn[], rows: DrawnRow[], size: number, color: string) {
+  const fonts = Object.fromEntries(DRAWN_WEIGHTS.map((w) => [w, { latin: loadedFont('Inter', w), greek: loadedFont('InterGreek', w) }])) as Record<DrawnWeight, { latin: LoadedFont; greek: LoadedFont }>;
+  const line = size * LINE_HEIGHT;
+  // The baseline in a line box, as react-pdf sets it: the leading shared above and below the font's ascent and descent.
+  const latin = fonts[400].latin;
+  const leading = (line - ((latin.ascent - latin.descent) / latin.unitsPerEm) * size) / 2;
+  let current: LoadedFont | null = null;
+  const use = (font: LoadedFont) => {
+    if (font !== current) painter.font(font, size);
+    current = font;
+  };
+  const advance = (font: LoadedFont, text: string, features: object) => (font.layout(text, features).advanceWidth / font.unitsPerEm) * size;
+  painter.fillColor(color);
+  let top = 0;
+  for (const row of rows) {
+    const set = fonts[row.strong ? 600 : 400];
+    row.lines.forEach((cellLines, c) => {
+      const col = columns[c];
+      const features = col.right ? NUMBER_FEATURES : TEXT_FEATURES;
+      cellLines.forEach((text, k) => {
+        if (!text) return;
+        const runs = fontRuns(text, set.latin, set.greek);
+        const widths = runs.map((r) => advance(r.font, r.text, features));
+        let x = col.right ? col.x + col.width - col.padRight - widths.reduce((a, b) => a + b, 0) : col.x + col.padLeft;
+        // pdfkit places a text by the top of the font's ascent; react-pdf's line box adds the leading above it.
+        const y = top + 2 + k * line + leading;
+        runs.forEach((r, i) => {
+          use(r.font);
+          painter.text(r.text, x, y, { lineBreak: false, features });
+          x += widths[i];
+        });
+      });
+    });
+    const ruleY = top + row.height - row.rule.width / 2;
+    painter.moveTo(0, ruleY).lineTo(width, ruleY).lineWidth(row.rule.width).strokeColor(row.rule.color).stroke();
+    top += row.height;
+  }
+}
+
+/** A run of table rows drawn as one block of the planned height (see above). */
+export function DrawnRows({ width, columns, rows, size = FONT, color = INK }: { width: number; columns: DrawnColumn[]; rows: DrawnRow[]; size?: number; color?: string }) {
+  const height = rows.reduce((sum, r) => sum + r.height, 0);
+  return <Canvas style={{ width, height }} paint={(painter) => (paintRows(painter as unknown as Painter, width, columns, rows, size, color), null)} />;
 }

@@ -1,7 +1,7 @@
 import { createElement, type ReactElement } from 'react';
 import { renderToBuffer, type DocumentProps } from '@react-pdf/renderer';
 import { AnodeListDocument } from '@/components/pdf/anode-list';
-import { registerPdfFonts } from '@/components/pdf/pdf-kit';
+import { loadPdfFonts } from '@/components/pdf/pdf-kit';
 import type { AnodeList } from './build-anode-list';
 
 /**
@@ -9,6 +9,6 @@ import type { AnodeList } from './build-anode-list';
  * `<cwd>/fonts`): a route handler or a script, both run with the repository as cwd.
  */
 export async function renderAnodeListPdf(list: AnodeList): Promise<Buffer> {
-  registerPdfFonts();
+  await loadPdfFonts();
   return renderToBuffer(createElement(AnodeListDocument, { list }) as unknown as ReactElement<DocumentProps>);
 }

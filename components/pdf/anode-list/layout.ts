@@ -1,6 +1,6 @@
 import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
 import { alloyWords, ANODE_LIST_LINE_COLUMNS, DIMENSIONS_KEY, dimensionsWords, dockingKindWords, mountingWords, statusWords, zoneWords } from '@/lib/anode-list/words';
-import { CAUTION_TEXT, PagePlanner, rowParts as cutRow, sheetArea, textParts, type SheetColumn, type SheetPlan } from '../pdf-kit';
+import { CAUTION_TEXT, PagePlanner, rowParts as cutRow, sheetArea, textParts, type DrawnColumn, type SheetColumn, type SheetPlan } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { count, kgNumber, kgText } from './format';
 import { FONT, LINE_HEIGHT, lineCount } from '../measure-text';
@@ -70,14 +70,29 @@ function lineColumns(shares: number[], right: number[], gap: number): Col[] {
 
 export const colWidth = (c: Col) => c.share * CONTENT_WIDTH;
 /** Room for text inside a cell. */
-const textRoom = (c: Col) => colWidth(c) - CELL_PAD - (c.gap ? CELL_PAD * 2 : 0);
+export const textRoom = (c: Col) => colWidth(c) - CELL_PAD - (c.gap ? CELL_PAD * 2 : 0);
+
+/** The columns as the drawn tables place them (render.tsx): x from the left of the content, padding as textRoom leaves it. */
+export const DRAWN_COLUMNS = Object.fromEntries(
+  (Object.keys(COLUMNS) as TableKind[]).map((kind) => {
+    let x = 0;
+    return [kind, COLUMNS[kind].map((c): DrawnColumn => {
+      const col = { x, width: colWidth(c), right: c.right ?? false, padLeft: c.gap ? CELL_PAD * 2 : 0, padRight: CELL_PAD };
+      x += col.width;
+      return col;
+    })];
+  }),
+) as Record<TableKind, DrawnColumn[]>;
 
 // Heights the plan uses, from the styles in render.tsx and pdf-kit's (font size x line height
-// + padding + border): change one and the other together, or the plan runs short.
+// + padding + border; a drawn row is exactly this high): change one and the other together, or
+// the plan runs short.
+export const RULE = { row: { width: 0.4, color: '#d9d5cc' }, strong: { width: 0.8, color: '#7b8590' } } as const;
 const H = {
-  row: (lines: number) => lines * LINE + 4 + 0.4,
-  totalRow: (lines: number) => lines * LINE + 4 + 0.8,
-  head: LINE + 4 + 0.8,
+  row: (lines: number) => lines * LINE + 4 + RULE.row.width,
+  totalRow: (lines: number) => lines * LINE + 4 + RULE.strong.width,
+  /** The column heads of the two particulars tables (one line each). */
+  head: LINE + 4 + RULE.strong.width,
   zoneTitle: (lines: number) => lines * 9.5 * 1.35 + 6 + 2,
   section: 10.5 * 1.35 + 12 + 4 + 2 + 0.6,
   warning: (lines: number) => lines * 8 * 1.35 + 8 + 3,
@@ -160,8 +175,9 @@ export type PlanItem =
   | { kind: 'warning'; text: string; first: boolean }
   | { kind: 'section'; title: string }
   | { kind: 'zone-title'; title: string; continued: boolean; withSection: boolean }
-  | { kind: 'head'; table: TableKind }
-  | { kind: 'row'; table: TableKind; cells: string[]; total: boolean }
+  /** Column heads and rows carry their cells' lines and their height: render.tsx draws them as planned. */
+  | { kind: 'head'; table: TableKind; lines: string[][]; height: number }
+  | { kind: 'row'; table: TableKind; cells: string[]; lines: string[][]; height: number; total: boolean }
   | { kind: 'empty' }
   | { kind: 'key' }
   | { kind: 'notes' }
@@ -171,13 +187,23 @@ export type AnodeListPagePlan = SheetPlan<PlanItem>;
 
 interface PlannedRow {
   cells: string[];
+  lines: string[][];
   total: boolean;
   height: number;
 }
 
 /** A table row, cut into parts at line breaks when it is taller than `maxHeight`. */
-function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: number): PlannedRow[] {
-  return cutRow(cells, COLUMNS[table].map(textRoom), (n) => (total ? H.totalRow(n) : H.row(n)), maxHeight).map((part) => ({ ...part, total }));
+function rowParts(cells: string[], table: TableKind, total: boolean, maxHeight: number, drawn = true): PlannedRow[] {
+  // A drawn row (render.tsx) is written as planned, so it is measured with the widths of its weight (heads and totals 600);
+  // the particulars tables side by side are laid out by react-pdf, so they keep the estimate that never runs short.
+  const weight = drawn ? (total ? 600 : 400) : undefined;
+  return cutRow(cells, COLUMNS[table].map(textRoom), (n) => (total ? H.totalRow(n) : H.row(n)), maxHeight, FONT, weight).map((part) => ({ ...part, total }));
+}
+
+/** A table's column heads, wrapped to their columns (a head like "Net each, kg" takes two lines). */
+function headRow(table: TableKind): { kind: 'head'; table: TableKind; lines: string[][]; height: number } {
+  const [head] = rowParts(COLUMNS[table].map((c) => c.label), table, true, Infinity);
+  return { kind: 'head', table, lines: head.lines, height: head.height };
 }
 
 /**
@@ -193,20 +219,21 @@ export function planAnodeListPages(list: AnodeList): AnodeListPagePlan {
 
   /** A table under a title that is repeated, marked continued, on each further sheet. */
   const table = (kind: TableKind, rows: { cells: string[]; total?: boolean }[], title: (continued: boolean) => { item: PlanItem; height: number }) => {
-    const lead = Math.max(title(false).height, title(true).height) + H.head;
+    const head = headRow(kind);
+    const lead = Math.max(title(false).height, title(true).height) + head.height;
     // A part must fit a fresh sheet under the title, with room for a total row after it.
     const maxRow = CONTENT_HEIGHT - lead - H.totalRow(1);
     const planned = rows.flatMap((r) => rowParts(r.cells, kind, r.total ?? false, maxRow));
     planner.table(
-      planned.map((row) => ({ item: { kind: 'row', table: kind, cells: row.cells, total: row.total }, height: row.height, withPrevious: row.total })),
-      (continued) => [title(continued), { item: { kind: 'head', table: kind }, height: H.head }],
+      planned.map((row) => ({ item: { kind: 'row', table: kind, cells: row.cells, lines: row.lines, height: row.height, total: row.total }, height: row.height, withPrevious: row.total })),
+      (continued) => [title(continued), { item: head, height: head.height }],
     );
   };
   const section = (name: string) => (continued: boolean) => ({ item: { kind: 'section', title: continued ? `${name} (continued)` : name } as PlanItem, height: H.section });
 
   // Title, then the two particulars tables side by side, or one under the other if too tall together.
   put({ kind: 'title' }, titleHeight(list));
-  const sideHeight = (kind: TableKind, rows: string[][]) => H.section + H.head + rows.reduce((sum, cells) => sum + rowParts(cells, kind, false, Infinity)[0].height, 0);
+  const sideHeight = (kind: TableKind, rows: string[][]) => H.section + H.head + rows.reduce((sum, cells) => sum + rowParts(cells, kind, false, Infinity, false)[0].height, 0);
   const sideBySide = Math.max(sideHeight('asset', assetRows(list)), sideHeight('docking', dockingRows(list)));
   if (sideBySide <= planner.room) {
     put({ kind: 'header-tables' }, sideBySide);

@@ -1,7 +1,8 @@
+import type { ReactNode } from 'react';
 import { Document, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
-import { CAUTION_TEXT, PlannedSheet, SheetRow, pdf } from '../pdf-kit';
+import { CAUTION_TEXT, DrawnRows, PlannedSheet, SheetRow, pdf, type DrawnRow } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { DIMENSIONS_KEY } from '@/lib/anode-list/words';
 import {
@@ -12,7 +13,9 @@ import {
   COLUMNS,
   CONTENT_WIDTH,
   dockingRows,
+  DRAWN_COLUMNS,
   planAnodeListPages,
+  RULE,
   referenceLine,
   SIGNATURE_HEADS,
   SIGNATURE_SHARES,
@@ -25,7 +28,9 @@ import {
 
 /*
  * The react-pdf components of the dry-dock anode list. They draw the sheets layout.ts plans;
- * the heights the plan assumes (its `H`) follow the styles here, so change them together.
+ * the heights the plan assumes (its `H`) follow the styles here, so change them together. The
+ * column heads and rows of the tables are drawn as planned, a run of them at a time
+ * (pdf-kit's DrawnRows: why there); the rest is laid out by react-pdf.
  */
 
 // Number columns use tabular figures so right-aligned digits line up (Inter's tnum also widens
@@ -47,9 +52,8 @@ const CELL_STYLES = Object.fromEntries(
 ) as Record<TableKind, ReturnType<typeof StyleSheet.create>[string][]>;
 
 const s = StyleSheet.create({
-  row: { flexDirection: 'row', borderBottomWidth: 0.4, borderBottomColor: '#d9d5cc', paddingVertical: 2 },
-  totalRow: { flexDirection: 'row', borderBottomWidth: 0.8, borderBottomColor: '#7b8590', paddingVertical: 2, fontWeight: 600 },
-  headRow: { flexDirection: 'row', borderBottomWidth: 0.8, borderBottomColor: '#7b8590', paddingVertical: 2, fontWeight: 600 },
+  row: { flexDirection: 'row', borderBottomWidth: RULE.row.width, borderBottomColor: RULE.row.color, paddingVertical: 2 },
+  headRow: { flexDirection: 'row', borderBottomWidth: RULE.strong.width, borderBottomColor: RULE.strong.color, paddingVertical: 2, fontWeight: 600 },
   zoneTitle: { fontWeight: 600, fontSize: 9.5, marginTop: 6, marginBottom: 2 },
   continued: { fontWeight: 400, color: '#46505b' },
   warning: { ...pdf.warning },
@@ -59,7 +63,7 @@ const s = StyleSheet.create({
 const when = (d: Date | null) => (d ? format(d, 'd MMM yyyy') : '');
 
 // ---------- blocks ----------
-function Row({ table, cells, rowStyle }: { table: TableKind; cells: string[]; rowStyle: typeof s.row }) {
+function Row({ table, cells, rowStyle }: { table: TableKind; cells: string[]; rowStyle: typeof s.row | typeof s.headRow }) {
   return <SheetRow cells={cells} cellStyles={CELL_STYLES[table]} style={rowStyle} />;
 }
 
@@ -146,9 +150,9 @@ function PlanItemView({ item, list }: { item: PlanItem; list: AnodeList }) {
         </View>
       );
     case 'head':
-      return <Row table={item.table} cells={COLUMNS[item.table].map((c) => c.label)} rowStyle={s.headRow} />;
     case 'row':
-      return <Row table={item.table} cells={item.cells} rowStyle={item.total ? s.totalRow : s.row} />;
+      // Drawn in runs by SheetItems; never reached.
+      return null;
     case 'empty':
       return <Text>{list.words.empty}</Text>;
     case 'key':
@@ -168,6 +172,30 @@ function PlanItemView({ item, list }: { item: PlanItem; list: AnodeList }) {
     case 'signatures':
       return <Signatures list={list} />;
   }
+}
+
+/** A table's column heads and rows as a drawn row. */
+const drawnRow = (item: Extract<PlanItem, { kind: 'head' | 'row' }>): DrawnRow => {
+  const strong = item.kind === 'head' || item.total;
+  return { lines: item.lines, height: item.height, strong, rule: strong ? RULE.strong : RULE.row };
+};
+
+/** A sheet's items in order, each run of heads and rows of one table drawn as one block. */
+function SheetItems({ items, list }: { items: PlanItem[]; list: AnodeList }) {
+  const blocks: ReactNode[] = [];
+  for (let i = 0; i < items.length; ) {
+    const item = items[i];
+    if (item.kind !== 'head' && item.kind !== 'row') {
+      blocks.push(<PlanItemView key={i} item={item} list={list} />);
+      i++;
+      continue;
+    }
+    const rows: DrawnRow[] = [];
+    const start = i;
+    for (let next = items[i]; next && (next.kind === 'head' || next.kind === 'row') && next.table === item.table; next = items[++i]) rows.push(drawnRow(next));
+    blocks.push(<DrawnRows key={start} width={CONTENT_WIDTH} columns={DRAWN_COLUMNS[item.table]} rows={rows} />);
+  }
+  return <>{blocks}</>;
 }
 
 // Inter's contextual alternates (calt) change nothing in these texts but took about a fifth of
@@ -191,9 +219,7 @@ export function AnodeListDocument({ list, pagination = 'planned' }: { list: Anod
     <Document title={`${list.words.title}: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject={`Sacrificial anodes to order and fit at a ${list.words.occasionTitle.toLowerCase()}`}>
       {plan.pages.map((items, p) => (
         <PlannedSheet key={p} orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: p + 1, pages: plan.pages.length }}>
-          {items.map((item, i) => (
-            <PlanItemView key={i} item={item} list={list} />
-          ))}
+          <SheetItems items={items} list={list} />
         </PlannedSheet>
       ))}
     </Document>
