@@ -46,10 +46,18 @@ function cacheShaping(proto: { layout: Layout; __shapingCached?: boolean }) {
   if (proto.__shapingCached) return;
   const layout = proto.layout;
   const caches = new WeakMap<object, Map<string, Shaped>>();
+  // The features come as the same few objects again and again (the styles' and the drawn tables'): each is written out once.
+  const featureKeys = new WeakMap<object, string>();
+  const featureKey = (features: unknown) => {
+    if (!features || typeof features !== 'object') return JSON.stringify(features ?? null);
+    let key = featureKeys.get(features);
+    if (key === undefined) featureKeys.set(features, (key = JSON.stringify(features)));
+    return key;
+  };
   proto.layout = function cachedLayout(this: object, text: string, features?: unknown, ...rest: unknown[]) {
     let cache = caches.get(this);
     if (!cache) caches.set(this, (cache = new Map()));
-    const key = `${JSON.stringify(features ?? null)}|${rest.map(String).join('|')}|${text}`;
+    const key = `${featureKey(features)}|${rest.length ? rest.map(String).join('|') : ''}|${text}`;
     let run = cache.get(key);
     if (!run) {
       run = layout.call(this, text, features, ...rest);
@@ -339,6 +347,29 @@ function loadedFont(family: 'Inter' | 'InterGreek', fontWeight: DrawnWeight): Lo
   return data;
 }
 
+/*
+ * A font as the drawn tables write with it: the same glyphs, with the sheet's features (calt off,
+ * tabular figures in number columns) as its defaults, under a name of its own. pdfkit shapes a text
+ * given without features word by word and keeps each word it has shaped, which a long list repeats
+ * all the time; a text given with features it shapes whole, every time, twice (to measure and to
+ * write). The name keeps pdfkit from taking it for the font react-pdf embedded (same file).
+ */
+const views = new WeakMap<LoadedFont, Map<string, LoadedFont>>();
+function withFeatures(font: LoadedFont, features: object, name: string): LoadedFont {
+  let byName = views.get(font);
+  if (!byName) views.set(font, (byName = new Map()));
+  let view = byName.get(name);
+  if (!view) {
+    view = Object.create(font, {
+      layout: { value: (text: string, given?: unknown, ...rest: unknown[]) => (font.layout as (...args: unknown[]) => { advanceWidth: number })(text, given ?? features, ...rest) },
+      // Inter and its Greek subset carry the same PostScript name: the view's name says which file it is.
+      postscriptName: { value: name },
+    }) as LoadedFont;
+    byName.set(name, view);
+  }
+  return view;
+}
+
 /** A column of a drawn table: where it starts and how wide it is (pt), numbers right-aligned. */
 export interface DrawnColumn {
   x: number;
@@ -361,9 +392,11 @@ export interface DrawnRow {
 /** The features of the page's text (calt off, as the sheets set it) and of number columns (tabular figures). */
 const TEXT_FEATURES = { calt: false };
 const NUMBER_FEATURES = { calt: false, tnum: true };
+/** pdfkit's options for a line written at a place: no wrapping, the font's own features (withFeatures). */
+const TEXT_OPTIONS = { lineBreak: false };
 
 interface Painter {
-  font(font: LoadedFont, size: number): Painter;
+  font(font: LoadedFont, family: string, size: number): Painter;
   fillColor(color: string): Painter;
   text(text: string, x: number, y: number, options: object): Painter;
   moveTo(x: number, y: number): Painter;
@@ -395,14 +428,18 @@ function fontRuns(text: string, latin: LoadedFont, greek: LoadedFont): { text: s
  * lines, the rule inside the bottom of the row).
  */
 function paintRows(painter: Painter, width: number, columns: DrawnColumn[], rows: DrawnRow[], size: number, color: string) {
-  const fonts = Object.fromEntries(DRAWN_WEIGHTS.map((w) => [w, { latin: loadedFont('Inter', w), greek: loadedFont('InterGreek', w) }])) as Record<DrawnWeight, { latin: LoadedFont; greek: LoadedFont }>;
+  const fonts = Object.fromEntries(DRAWN_WEIGHTS.map((w) => [w, { latin: loadedFont('Inter', w), greek: loadedFont('InterGreek', w), weight: w }])) as Record<
+    DrawnWeight,
+    { latin: LoadedFont; greek: LoadedFont; weight: DrawnWeight }
+  >;
   const line = size * LINE_HEIGHT;
   // The baseline in a line box, as react-pdf sets it: the leading shared above and below the font's ascent and descent.
   const latin = fonts[400].latin;
   const leading = (line - ((latin.ascent - latin.descent) / latin.unitsPerEm) * size) / 2;
   let current: LoadedFont | null = null;
+  // Named, pdfkit finds the font again by the name instead of opening it once more for every switch.
   const use = (font: LoadedFont) => {
-    if (font !== current) painter.font(font, size);
+    if (font !== current) painter.font(font, (font as unknown as { postscriptName: string }).postscriptName, size);
     current = font;
   };
   const advance = (font: LoadedFont, text: string, features: object) => (font.layout(text, features).advanceWidth / font.unitsPerEm) * size;
@@ -412,17 +449,18 @@ function paintRows(painter: Painter, width: number, columns: DrawnColumn[], rows
     const set = fonts[row.strong ? 600 : 400];
     row.lines.forEach((cellLines, c) => {
       const col = columns[c];
-      const features = col.right ? NUMBER_FEATURES : TEXT_FEATURES;
+      const [features, tag] = col.right ? [NUMBER_FEATURES, 'tnum'] : [TEXT_FEATURES, 'text'];
       cellLines.forEach((text, k) => {
         if (!text) return;
-        const runs = fontRuns(text, set.latin, set.greek);
-        const widths = runs.map((r) => advance(r.font, r.text, features));
+        const runs = fontRuns(text, set.latin, set.greek).map((r) => ({ text: r.text, font: withFeatures(r.font, features, `Tidewarden-${r.font === set.latin ? 'Inter' : 'InterGreek'}-${set.weight}-${tag}`) }));
+        // Widths only where they place something: a right-aligned text, or a run after another.
+        const widths = col.right || runs.length > 1 ? runs.map((r) => advance(r.font, r.text, features)) : [0];
         let x = col.right ? col.x + col.width - col.padRight - widths.reduce((a, b) => a + b, 0) : col.x + col.padLeft;
         // pdfkit places a text by the top of the font's ascent; react-pdf's line box adds the leading above it.
         const y = top + 2 + k * line + leading;
         runs.forEach((r, i) => {
           use(r.font);
-          painter.text(r.text, x, y, { lineBreak: false, features });
+          painter.text(r.text, x, y, TEXT_OPTIONS);
           x += widths[i];
         });
       });

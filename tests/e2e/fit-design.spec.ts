@@ -3,7 +3,8 @@ import { demo, demoUser, signIn } from './helpers';
 
 // "Fit this design" on the demo's approved revision (Brindlemoor's hull design, revision 1, approved by the checker
 // in the seed and already fitted at the March 2025 docking). The two journeys share the vessel, so they run in order.
-test.describe.configure({ mode: 'serial' });
+// Each journey signs in, submits and visits three pages: more than the default minute on a busy two-core machine.
+test.describe.configure({ mode: 'serial', timeout: 180_000 });
 
 const DESIGN = 'Brindlemoor hull anodes to the 2028 docking';
 
