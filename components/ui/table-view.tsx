@@ -1,12 +1,13 @@
 'use client';
 import { flexRender, type Table } from '@tanstack/react-table';
+import { TableFrame } from './table-frame';
 
-/** The table markup both table kinds share: sortable headers, numeric cells right-aligned, an empty row. */
+/** The table markup both table kinds share: sortable headers, numeric cells right-aligned, an empty row; wide tables scroll in their frame. */
 export function TableView<T>({ table, label, empty, busy = false, dimmed = false }: { table: Table<T>; label: string; empty: string; busy?: boolean; dimmed?: boolean }) {
   const rows = table.getRowModel().rows;
   const columnCount = table.getAllLeafColumns().length;
   return (
-    <div className="overflow-x-auto rounded-[3px] border border-rule">
+    <TableFrame label={label} head="sunk" className="rounded-[3px] border border-rule">
       <table aria-label={label} aria-busy={busy} className="w-full border-collapse text-sm">
         <thead className="bg-paper-sunk text-xs text-ink-soft">
           {table.getHeaderGroups().map((group) => (
@@ -53,6 +54,6 @@ export function TableView<T>({ table, label, empty, busy = false, dimmed = false
           )}
         </tbody>
       </table>
-    </div>
+    </TableFrame>
   );
 }

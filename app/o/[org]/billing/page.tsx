@@ -9,6 +9,7 @@ import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
 import { countActiveAssets } from '@/lib/server/services/assets/list-asset-choices';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Billing' };
 export const dynamic = 'force-dynamic';
@@ -90,6 +91,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
           <Panel title="Invoices">
             {invoicesError ? <p role="alert" className="text-sm text-state-overdue">{invoicesError}</p> : null}
             {invoices.length ? (
+              <TableFrame label="Invoices">
               <table className="w-full text-sm" aria-label="Invoices">
                 <thead className="text-xs text-ink-soft">
                   <tr className="border-b border-rule">
@@ -110,6 +112,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                   ))}
                 </tbody>
               </table>
+              </TableFrame>
             ) : (
               <p className="text-sm text-ink-faint">No invoices yet.</p>
             )}

@@ -9,6 +9,7 @@ import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Docking planner' };
 
@@ -47,6 +48,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
         {view.renewBy.length ? (
           <Panel title="Renewals by renew-by date">
             <p className="mb-2 text-sm text-ink-soft">{view.marginWords}</p>
+            <TableFrame label="Renew-by dates">
             <table className="w-full text-sm" aria-label="Renew-by dates">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -77,10 +79,12 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 ))}
               </tbody>
             </table>
+            </TableFrame>
           </Panel>
         ) : null}
         <div className={`grid items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
           <Panel title="Planned dockings and campaigns">
+            <TableFrame label="Planned dockings">
             <table className="w-full text-sm" aria-label="Planned dockings">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -108,6 +112,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 ) : null}
               </tbody>
             </table>
+            </TableFrame>
             {view.suggestions.length ? (
               <div className="mt-4">
                 <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Suggested dockings: earlier ones for renewals that cannot wait, and class practice (bottom inspections no more than 36 months apart, two in each five years)</h3>
