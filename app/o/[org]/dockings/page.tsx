@@ -82,7 +82,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
             </TableFrame>
           </Panel>
         ) : null}
-        <div className={`grid items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+        <div className={`grid grid-cols-1 items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
           <Panel title="Planned dockings and campaigns">
             <TableFrame label="Planned dockings">
             <table className="w-full text-sm" aria-label="Planned dockings">

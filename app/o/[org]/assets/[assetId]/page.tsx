@@ -93,7 +93,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         }
       />
       <div className="flex flex-col gap-4">
-        <div className="grid items-start gap-4 xl:grid-cols-2">
+        <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
           <Panel title="Particulars">
             <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-3">
               {particulars.map(([label, value]) => (

@@ -59,7 +59,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
           <ReadingsTable readings={readings} editing={canWrite ? { org, surveyId: survey.id, groups, electrode: survey.defaultElectrode } : undefined} />
         </Panel>
         {canWrite ? (
-          <div className="grid items-start gap-4 xl:grid-cols-2">
+          <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
             <Panel title="Upload readings (CSV)">
               <CsvUpload org={org} surveyId={survey.id} electrode={survey.defaultElectrode} />
               <details className="mt-3 text-xs text-ink-soft">
