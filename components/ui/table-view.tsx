@@ -47,8 +47,9 @@ export function TableView<T>({ table, label, empty, busy = false, dimmed = false
             ))
           ) : (
             <tr>
-              <td colSpan={columnCount} className="px-3 py-6 text-center text-sm text-ink-faint">
-                {empty}
+              <td colSpan={columnCount} className="px-3 py-6 text-left text-sm text-ink-faint lg:text-center">
+                {/* Below 1024 px the row is wider than the screen: the sentence stays within the visible part. */}
+                <span className="inline-block max-w-[calc(100vw-5rem)] lg:max-w-none">{empty}</span>
               </td>
             </tr>
           )}

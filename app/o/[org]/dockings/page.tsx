@@ -37,7 +37,9 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 <li key={i} className="flex flex-col">
                   <span className="flex flex-wrap items-center gap-2">
                     <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs an earlier docking'}</StatusTag>
+                    <span className="min-w-0">
                     <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
+                    </span>
                   </span>
                   <span className="text-xs text-ink-soft">{n.reason}</span>
                 </li>
