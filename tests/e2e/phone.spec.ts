@@ -46,6 +46,8 @@ test.describe('at 390 x 844', () => {
   });
 
   test('every main page fits the width, each as the role that works there', async ({ page, context }) => {
+    // Seventeen pages and four sign-ins: more than the default minute on a busy machine.
+    test.setTimeout(180_000);
     const visit = async (path: string) => {
       await page.goto(path);
       await expect(page.locator('main#content')).toBeVisible();
