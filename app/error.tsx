@@ -2,7 +2,7 @@
 
 export default function ErrorPage({ reset }: { error: Error & { digest?: string }; reset: () => void }) {
   return (
-    <main className="mx-auto max-w-xl px-6 py-24 text-center">
+    <main id="content" tabIndex={-1} className="mx-auto max-w-xl px-6 py-24 text-center outline-none">
       <p className="text-xs font-semibold uppercase tracking-[0.18em] text-state-overdue">Error</p>
       <h1 className="mt-2 text-2xl font-semibold">Something went wrong on our side.</h1>
       <p className="mt-2 text-sm text-ink-soft">Nothing you entered was changed by this error. Try again; if it repeats, tell your administrator.</p>

@@ -16,6 +16,13 @@ export default async function RootLayout({ children }: { children: React.ReactNo
   return (
     <html lang="en-GB" className={appFont.variable}>
       <body className="min-h-screen bg-paper font-sans text-base text-ink antialiased">
+        {/* The first stop of the Tab key on every page; every page's <main id="content" tabIndex={-1}> is its target. */}
+        <a
+          href="#content"
+          className="no-print sr-only z-50 rounded-[3px] bg-tide-900 px-4 py-3 text-sm font-semibold text-white focus:not-sr-only focus:fixed focus:left-2 focus:top-2"
+        >
+          Skip to content
+        </a>
         <Providers>{children}</Providers>
       </body>
     </html>

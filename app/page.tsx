@@ -25,7 +25,7 @@ export default async function LandingPage() {
   return (
     <div className="min-h-screen">
       <header className="border-b border-rule bg-paper-raised">
-        <div className="mx-auto flex max-w-5xl items-center justify-between px-6 py-3">
+        <div className="mx-auto flex max-w-5xl flex-wrap items-center justify-between gap-2 px-4 py-3 sm:px-6">
           <span className="text-lg font-semibold tracking-tight text-tide-700">Tidewarden</span>
           <nav className="flex items-center gap-2 text-sm">
             {user ? (
@@ -41,7 +41,7 @@ export default async function LandingPage() {
           </nav>
         </div>
       </header>
-      <main className="mx-auto max-w-5xl px-6 py-12">
+      <main id="content" tabIndex={-1} className="mx-auto max-w-5xl px-4 py-12 outline-none sm:px-6">
         <p className="text-xs font-semibold uppercase tracking-[0.18em] text-brass-700">Sacrificial-anode cathodic protection</p>
         <h1 className="mt-2 max-w-3xl text-3xl font-semibold leading-tight text-ink">
           From the anode calculation to the list the yard fits at the next dry-docking.

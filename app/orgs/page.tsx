@@ -18,19 +18,19 @@ export default async function OrgsPage({ searchParams }: { searchParams: Promise
   return (
     <div className="min-h-screen bg-paper-sunk">
       <header className="border-b border-rule bg-paper-raised">
-        <div className="mx-auto flex max-w-3xl items-center justify-between px-6 py-3">
+        <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-3 py-3 sm:px-6">
           <Link href="/" className="text-lg font-semibold tracking-tight text-tide-700">
             Tidewarden
           </Link>
-          <form action={signOutAction} className="flex items-center gap-3 text-sm text-ink-soft">
-            <span>{user.email}</span>
+          <form action={signOutAction} className="flex min-w-0 items-center gap-3 text-sm text-ink-soft">
+            <span className="min-w-0 break-all">{user.email}</span>
             <Button type="submit" variant="ghost">
               Sign out
             </Button>
           </form>
         </div>
       </header>
-      <main className="mx-auto flex max-w-3xl flex-col gap-5 px-6 py-8">
+      <main id="content" tabIndex={-1} className="mx-auto flex max-w-3xl flex-col gap-5 px-3 py-6 outline-none sm:px-6 sm:py-8">
         {verified ? <p role="status" className="rounded-[3px] border border-state-sound/40 bg-state-soundbg px-3 py-2 text-sm text-state-sound">Thank you: your e-mail address is confirmed.</p> : null}
         {!user.emailVerified ? (
           <Panel title="Confirm your e-mail address">
@@ -44,8 +44,8 @@ export default async function OrgsPage({ searchParams }: { searchParams: Promise
           {memberships.length ? (
             <ul className="divide-y divide-rule">
               {memberships.map((m) => (
-                <li key={m.id} className="flex items-center justify-between py-2">
-                  <Link href={`/o/${m.organisation.slug}`} className="font-medium text-tide-600 hover:underline">
+                <li key={m.id} className="flex flex-wrap items-center justify-between gap-x-3 py-2">
+                  <Link href={`/o/${m.organisation.slug}`} className="inline-flex min-h-11 items-center font-medium text-tide-600 hover:underline lg:min-h-0">
                     {m.organisation.name}
                   </Link>
                   <span className="text-xs text-ink-soft">{ROLE_LABELS[m.role]}</span>

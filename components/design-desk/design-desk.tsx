@@ -74,10 +74,10 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   return (
     <div className="flex flex-col gap-4">
       {editable ? (
-        <div className="no-print sticky top-0 z-10 -mx-8 flex flex-wrap items-center gap-3 border-b border-rule bg-paper/95 px-8 py-2 backdrop-blur">
-          <label className="flex min-w-80 flex-1 items-center gap-2 text-xs text-ink-soft">
+        <div className="no-print sticky top-14 z-10 -mx-3 flex flex-wrap items-center gap-3 border-b border-rule bg-paper/95 px-3 py-2 backdrop-blur sm:-mx-6 sm:px-6 lg:top-0 lg:-mx-8 lg:px-8">
+          <label className="flex min-w-0 flex-1 basis-full items-center gap-2 text-xs text-ink-soft sm:min-w-80 sm:basis-auto">
             Title
-            <input aria-label="Design title" value={title} onChange={(e) => { setTitle(e.target.value); setDirty(true); }} className="flex-1 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink" />
+            <input aria-label="Design title" value={title} onChange={(e) => { setTitle(e.target.value); setDirty(true); }} className="min-w-0 flex-1 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink max-lg:min-h-11" />
           </label>
           <span role="status" className="text-xs text-ink-faint">
             {computing ? 'Recomputing…' : dirty ? 'Unsaved changes' : 'All changes saved'}
@@ -93,7 +93,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
           {computeMessage} Results below are from the last valid inputs.
         </p>
       ) : null}
-      <div className="grid items-start gap-4 xl:grid-cols-[minmax(0,11fr)_minmax(0,9fr)]">
+      <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-[minmax(0,11fr)_minmax(0,9fr)]">
         <div className="flex min-w-0 flex-col gap-4">
           <Panel title="Job and environment">
             <JobFields inputs={inputs} update={update} errors={fieldErrors} editable={editable} />

@@ -2,6 +2,7 @@
 import type { OptionRow } from '@/lib/cp';
 import { ALLOY_LABELS, CRITERION_LABELS } from '@/lib/design/labels';
 import { fmt } from '@/lib/format';
+import { TableFrame } from '@/components/ui/table-frame';
 
 /** The same job with every suitable model: count, mass, life, cost where priced; one click chooses it. */
 export function OptionsTable({ options, chosenKey, onChoose }: { options: OptionRow[]; chosenKey: string; onChoose?: (key: string) => void }) {
@@ -9,9 +10,9 @@ export function OptionsTable({ options, chosenKey, onChoose }: { options: Option
   const unsuitable = options.filter((o): o is Extract<OptionRow, { suitable: false }> => !o.suitable);
   return (
     <div className="flex flex-col gap-2">
-      <div className="max-h-96 overflow-auto">
+      <TableFrame label="Options compared" className="max-h-96 overflow-y-auto">
         <table className="w-full text-sm" aria-label="Options compared">
-          <thead className="sticky top-0 bg-paper-raised text-xs text-ink-soft">
+          <thead className="sticky top-0 z-[2] bg-paper-raised text-xs text-ink-soft">
             <tr className="border-b border-rule">
               <th className="py-1 text-left font-medium">Model</th>
               <th className="py-1 text-left font-medium">Alloy</th>
@@ -46,7 +47,7 @@ export function OptionsTable({ options, chosenKey, onChoose }: { options: Option
             ))}
           </tbody>
         </table>
-      </div>
+      </TableFrame>
       {unsuitable.length ? (
         <details className="text-xs text-ink-soft">
           <summary className="cursor-pointer">{unsuitable.length} model(s) not suitable for this job</summary>

@@ -4,6 +4,7 @@ import { CRITERION_LABELS, BASIS_FLAG_WORDS } from '@/lib/design/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
+import { TableFrame } from '@/components/ui/table-frame';
 
 const FORMULA_LABELS: Record<string, string> = {
   'modified-dwight': 'modified Dwight (long slender stand-off)',
@@ -34,6 +35,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 anodes of {computed.model?.designation ?? 'a model not recorded with this revision'} to fit; at least {result.anodeCount} by <strong className="text-ink">{CRITERION_LABELS[result.governingCriterion]}</strong>, which governs
               </p>
             </div>
+            <TableFrame label="Count by criterion">
             <table className="mt-2 w-full text-sm" aria-label="Count by criterion">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -66,6 +68,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 })}
               </tbody>
             </table>
+            </TableFrame>
           </section>
 
           <section aria-label="Key figures" className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-3">
@@ -79,6 +82,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
 
           <section aria-label="Current demand">
             <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Current demand (Ic = Ac · fc · ic)</h3>
+            <TableFrame label="Current demand">
             <table className="w-full text-sm">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -116,6 +120,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 </tr>
               </tbody>
             </table>
+            </TableFrame>
             {result.anodesToFit > result.anodeCount ? (
               <p className="mt-1 text-xs text-ink-soft">
                 Sharing the minimum of {result.anodeCount} in proportion to each zone&apos;s {result.distribution.basis} demand and rounding up per zone gives {result.anodesToFit} to fit.
@@ -128,6 +133,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
 
           <section aria-label="Per anode">
             <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Per anode</h3>
+            <TableFrame label="Per anode">
             <table className="w-full text-sm">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -152,6 +158,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                 </tr>
               </tbody>
             </table>
+            </TableFrame>
           </section>
 
           {computed.impressedCurrent ? (

@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { FormMessage } from '@/components/ui/field';
 import { useBoundAction } from '@/components/ui/action-form';
 import { approveDesignAction, checkDesignAction, newRevisionAction } from '@/app/o/[org]/designs/actions';
+import { TableFrame } from '@/components/ui/table-frame';
 
 interface Props {
   org: string;
@@ -25,6 +26,7 @@ export function SignatureBlock({ org, designId, status, prepared, checked, appro
   const revise = useBoundAction(newRevisionAction.bind(null, org));
   return (
     <div className="flex flex-col gap-3">
+      <TableFrame label="Revision block">
       <table className="w-full text-sm" aria-label="Revision block">
         <tbody>
           <tr className="border-b border-rule">
@@ -44,6 +46,7 @@ export function SignatureBlock({ org, designId, status, prepared, checked, appro
           </tr>
         </tbody>
       </table>
+      </TableFrame>
       <FormMessage state={check.state} />
       <FormMessage state={approve.state} />
       <FormMessage state={revise.state} />

@@ -102,7 +102,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                       ))}
                     </div>
                   ) : (
-                    <p className="num text-left text-sm">
+                    <p className="num text-left text-sm whitespace-normal">
                       {fmtSig(table.initial * 1000)} / {fmtSig(table.mean * 1000)} / {fmtSig(table.final * 1000)} mA/m²{' '}
                       <span className="block text-2xs text-ink-faint">{method.source}</span>
                     </p>
@@ -134,7 +134,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
           );
         })}
       </ol>
-      <div className="flex items-center justify-between">
+      <div className="flex flex-wrap items-center justify-between gap-2">
         <p className="num text-left text-xs text-ink-soft">
           Total area {fmtInt(totalArea)} m² in {inputs.surfaces.length} zone{inputs.surfaces.length === 1 ? '' : 's'}
         </p>

@@ -25,8 +25,8 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
       <input type="hidden" name="notes" value={row.notes ?? ''} />
       {row.status === 'proposed' || row.status === 'confirmed' ? (
         <>
-          <input type="number" name="quantity" min={1} step={1} defaultValue={row.quantity} aria-label={`Quantity to renew, ${row.groupLabel}`} className="num w-14 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs" />
-          <select name="dockingId" defaultValue={dockingId} aria-label={`Docking for ${row.groupLabel}`} className="max-w-36 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs">
+          <input type="number" name="quantity" min={1} step={1} defaultValue={row.quantity} aria-label={`Quantity to renew, ${row.groupLabel}`} className="num w-14 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs max-lg:min-h-11" />
+          <select name="dockingId" defaultValue={dockingId} aria-label={`Docking for ${row.groupLabel}`} className="max-w-36 rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs max-lg:min-h-11">
             {dockings.map((d) => (
               <option key={d.id} value={d.id}>
                 {d.label}
@@ -52,7 +52,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
       ) : null}
       {row.status === 'confirmed' || row.status === 'ordered' ? (
         <>
-          <input type="date" name="fittedOn" defaultValue={today} max={today} aria-label={`Fitted on, ${row.groupLabel}`} className="rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs" />
+          <input type="date" name="fittedOn" defaultValue={today} max={today} aria-label={`Fitted on, ${row.groupLabel}`} className="rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs max-lg:min-h-11" />
           <Button type="submit" name="step" value="fitted" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
             Fitted
           </Button>
@@ -107,7 +107,7 @@ export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { 
   return (
     <div className="flex flex-col gap-2">
       <DataTable label="Renewals" data={rows} columns={columns} pageSize={100} empty="No renewals booked at this docking." filterPlaceholder="Filter by zone, group, model…" />
-      <p className="num text-left text-xs text-ink-soft">
+      <p className="num text-left text-xs whitespace-normal text-ink-soft">
         Open: {open.reduce((t, r) => t + r.quantity, 0)} anodes, {fmt(open.reduce((t, r) => t + r.quantity * r.netMassKg, 0), 1)} kg net. Proposals are the scheduler&apos;s and follow the forecast; a confirmed renewal is never changed by it.
       </p>
     </div>

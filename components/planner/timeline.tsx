@@ -28,7 +28,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
   const x = (iso: string | number) => labelW + ((typeof iso === 'number' ? iso : parseDateOnly(iso).getTime()) - start) / (end - start) * months * monthW;
   const monthTicks = Array.from({ length: months }, (_, i) => Date.UTC(new Date(start).getUTCFullYear(), new Date(start).getUTCMonth() + i, 1));
   return (
-    <div className="overflow-x-auto">
+    <div role="region" aria-label="Docking timeline (scrolls sideways)" tabIndex={0} className="max-w-full overflow-x-auto">
       <svg width={width} height={height} role="img" aria-label="Docking timeline" className="rounded-[3px] border border-rule bg-paper-raised">
         {monthTicks.map((t) => {
           const d = new Date(t);

@@ -33,13 +33,13 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
         });
       }}
     >
-      <label className="flex flex-col gap-1 text-xs text-ink-soft">
+      <label className="flex min-w-0 max-w-full flex-col gap-1 text-xs text-ink-soft">
         Photo or report
-        <input type="file" name="file" accept="image/jpeg,image/png,application/pdf" className="text-sm text-ink" />
+        <input type="file" name="file" accept="image/jpeg,image/png,application/pdf" className="max-w-full text-sm text-ink max-lg:min-h-11" />
       </label>
       <label className="flex flex-col gap-1 text-xs text-ink-soft">
         Caption
-        <input name="caption" className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink" />
+        <input name="caption" className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm text-ink max-lg:min-h-11" />
       </label>
       <Button type="submit" variant="secondary" disabled={pending}>
         Attach

@@ -91,7 +91,7 @@ export function TeamManager({ org }: { org: string }) {
   }, [org]);
 
   return (
-    <div className="grid gap-5 xl:grid-cols-[1fr_22rem]">
+    <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="flex flex-col gap-5">
         <Panel title="Members">
           {team.isError ? <p role="alert" className="text-sm text-state-overdue">{team.error.message}</p> : null}

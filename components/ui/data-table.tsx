@@ -43,18 +43,18 @@ export function DataTable<T>({ data, columns, filterPlaceholder = 'Filter…', p
         value={globalFilter}
         onChange={(e) => setGlobalFilter(e.target.value)}
         placeholder={filterPlaceholder}
-        className="no-print w-64 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm"
+        className="no-print w-full max-w-64 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm max-lg:min-h-11"
       />
       <TableView table={table} label={label} empty={empty} />
       {table.getPageCount() > 1 ? (
-        <div className="no-print flex items-center gap-2 text-xs text-ink-soft">
-          <button type="button" className="underline disabled:opacity-40" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+        <div className="no-print flex flex-wrap items-center gap-2 text-xs text-ink-soft">
+          <button type="button" className="underline disabled:opacity-40 max-lg:min-h-11 max-lg:px-2" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
             Previous
           </button>
           <span>
             Page {table.getState().pagination.pageIndex + 1} of {table.getPageCount()}
           </span>
-          <button type="button" className="underline disabled:opacity-40" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+          <button type="button" className="underline disabled:opacity-40 max-lg:min-h-11 max-lg:px-2" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
             Next
           </button>
         </div>

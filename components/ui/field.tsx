@@ -13,7 +13,7 @@ export function Field({ label, name, errors, hint, unit, className = '', ...prop
   const id = useId();
   const describedBy = errors?.length ? `${id}-err` : hint ? `${id}-hint` : undefined;
   return (
-    <div className={`flex flex-col gap-1 ${className}`}>
+    <div className={`flex min-w-0 flex-col gap-1 ${className}`}>
       <label htmlFor={id} className="text-xs font-medium text-ink-soft">
         {label}
       </label>
@@ -23,7 +23,7 @@ export function Field({ label, name, errors, hint, unit, className = '', ...prop
           name={name}
           aria-invalid={errors?.length ? true : undefined}
           aria-describedby={describedBy}
-          className={`w-full rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none focus:border-tide-500 ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
+          className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none focus:border-tide-500 max-lg:min-h-11 ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
           {...props}
         />
         {unit ? <span className="min-w-8 text-xs text-ink-faint">{unit}</span> : null}
@@ -51,7 +51,7 @@ interface SelectProps extends React.SelectHTMLAttributes<HTMLSelectElement> {
 export function SelectField({ label, name, errors, options, className = '', ...props }: SelectProps) {
   const id = useId();
   return (
-    <div className={`flex flex-col gap-1 ${className}`}>
+    <div className={`flex min-w-0 flex-col gap-1 ${className}`}>
       <label htmlFor={id} className="text-xs font-medium text-ink-soft">
         {label}
       </label>
@@ -59,7 +59,7 @@ export function SelectField({ label, name, errors, options, className = '', ...p
         id={id}
         name={name}
         aria-invalid={errors?.length ? true : undefined}
-        className={`rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'}`}
+        className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm max-lg:min-h-11 ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'}`}
         {...props}
       >
         {options.map((o) => (

@@ -2,14 +2,14 @@ import { CAUTION_SENTENCE } from '@/lib/words/caution';
 
 export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
   return (
-    <section className={`rounded-[4px] border border-rule bg-paper-raised ${className}`}>
+    <section className={`min-w-0 rounded-[4px] border border-rule bg-paper-raised ${className}`}>
       {title || actions ? (
-        <header className="flex items-center justify-between gap-3 border-b border-rule px-4 py-2.5">
+        <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2 border-b border-rule px-3 py-2.5 sm:px-4">
           <h2 className="text-sm font-semibold tracking-wide text-ink">{title}</h2>
           {actions}
         </header>
       ) : null}
-      <div className="p-4">{children}</div>
+      <div className="p-3 sm:p-4">{children}</div>
     </section>
   );
 }
@@ -17,11 +17,11 @@ export function Panel({ title, actions, children, className = '' }: { title?: Re
 export function PageHeader({ title, subtitle, actions }: { title: React.ReactNode; subtitle?: React.ReactNode; actions?: React.ReactNode }) {
   return (
     <div className="mb-5 flex flex-wrap items-end justify-between gap-3 border-b border-rule pb-3">
-      <div>
-        <h1 className="text-2xl font-semibold text-ink">{title}</h1>
+      <div className="min-w-0 break-words">
+        <h1 className="text-xl font-semibold text-ink sm:text-2xl">{title}</h1>
         {subtitle ? <p className="mt-0.5 text-sm text-ink-soft">{subtitle}</p> : null}
       </div>
-      {actions ? <div className="flex gap-2">{actions}</div> : null}
+      {actions ? <div className="flex flex-wrap gap-2">{actions}</div> : null}
     </div>
   );
 }

@@ -63,20 +63,20 @@ export function ServerTable<T>({ label, url, queryKey, columns, extraParams = {}
   return (
     <div className="flex flex-col gap-2">
       <div className="no-print flex flex-wrap items-center justify-between gap-2">
-        <input aria-label={`Filter ${label}`} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder={filterPlaceholder} className="w-72 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm" />
+        <input aria-label={`Filter ${label}`} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder={filterPlaceholder} className="w-full max-w-72 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm max-lg:min-h-11" />
         {toolbar}
       </div>
       {query.isError ? <p role="alert" className="text-sm text-state-overdue">{query.error.message}</p> : null}
       <TableView table={table} label={label} empty={query.isLoading ? 'Loading…' : empty} busy={query.isFetching} dimmed={query.isFetching && query.isPlaceholderData} />
-      <div className="no-print flex items-center gap-3 text-xs text-ink-soft">
+      <div className="no-print flex flex-wrap items-center gap-3 text-xs text-ink-soft">
         <span className="num text-left">{total.toLocaleString('en-GB')} in all</span>
-        <button type="button" className="underline disabled:opacity-40" onClick={() => setPage((p) => p - 1)} disabled={page <= 1}>
+        <button type="button" className="underline disabled:opacity-40 max-lg:min-h-11 max-lg:px-2" onClick={() => setPage((p) => p - 1)} disabled={page <= 1}>
           Previous
         </button>
         <span>
           Page {page} of {pages}
         </span>
-        <button type="button" className="underline disabled:opacity-40" onClick={() => setPage((p) => p + 1)} disabled={page >= pages}>
+        <button type="button" className="underline disabled:opacity-40 max-lg:min-h-11 max-lg:px-2" onClick={() => setPage((p) => p + 1)} disabled={page >= pages}>
           Next
         </button>
       </div>

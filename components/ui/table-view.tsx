@@ -1,12 +1,13 @@
 'use client';
 import { flexRender, type Table } from '@tanstack/react-table';
+import { TableFrame } from './table-frame';
 
-/** The table markup both table kinds share: sortable headers, numeric cells right-aligned, an empty row. */
+/** The table markup both table kinds share: sortable headers, numeric cells right-aligned, an empty row; wide tables scroll in their frame. */
 export function TableView<T>({ table, label, empty, busy = false, dimmed = false }: { table: Table<T>; label: string; empty: string; busy?: boolean; dimmed?: boolean }) {
   const rows = table.getRowModel().rows;
   const columnCount = table.getAllLeafColumns().length;
   return (
-    <div className="overflow-x-auto rounded-[3px] border border-rule">
+    <TableFrame label={label} head="sunk" className="rounded-[3px] border border-rule">
       <table aria-label={label} aria-busy={busy} className="w-full border-collapse text-sm">
         <thead className="bg-paper-sunk text-xs text-ink-soft">
           {table.getHeaderGroups().map((group) => (
@@ -46,13 +47,14 @@ export function TableView<T>({ table, label, empty, busy = false, dimmed = false
             ))
           ) : (
             <tr>
-              <td colSpan={columnCount} className="px-3 py-6 text-center text-sm text-ink-faint">
-                {empty}
+              <td colSpan={columnCount} className="px-3 py-6 text-left text-sm text-ink-faint lg:text-center">
+                {/* Below 1024 px the row is wider than the screen: the sentence stays within the visible part. */}
+                <span className="inline-block max-w-[calc(100vw-5rem)] lg:max-w-none">{empty}</span>
               </td>
             </tr>
           )}
         </tbody>
       </table>
-    </div>
+    </TableFrame>
   );
 }

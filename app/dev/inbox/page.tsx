@@ -48,7 +48,7 @@ export default async function DevInboxPage() {
   }
   const waiting = await listWaitingMail(await getEm());
   return (
-    <main className="mx-auto max-w-4xl px-6 py-8">
+    <main id="content" tabIndex={-1} className="mx-auto max-w-4xl px-4 py-8 outline-none sm:px-6">
       <h1 className="text-2xl font-semibold">Dev inbox</h1>
       <p className="mb-4 text-sm text-ink-soft">Every e-mail the local SMTP fake received, newest first. Only shown while mail goes to the local fake, and only on this machine.</p>
       {unreachable ? <p role="alert" className="mb-4 text-sm text-state-overdue">The SMTP fake is not reachable at {env.FAKE_MAIL_API}.</p> : null}

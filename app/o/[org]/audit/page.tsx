@@ -4,6 +4,7 @@ import { format } from 'date-fns';
 import { getPageOrgContextWith } from '@/lib/server/page-context';
 import { getAuditLog } from '@/lib/server/services/accounts/get-audit-log';
 import { PageHeader } from '@/components/ui/panel';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Audit log' };
 const PAGE_SIZE = 50;
@@ -17,6 +18,7 @@ export default async function AuditPage({ params, searchParams }: { params: Prom
   return (
     <>
       <PageHeader title="Audit log" subtitle={`${total} event${total === 1 ? '' : 's'}: sign-ins, role changes, invitations, approvals and deletions.`} />
+      <TableFrame label="Audit log" head="sunk">
       <table className="w-full border-collapse rounded-[3px] border border-rule bg-paper-raised text-sm" aria-label="Audit log">
         <thead className="bg-paper-sunk text-xs text-ink-soft">
           <tr>
@@ -37,6 +39,7 @@ export default async function AuditPage({ params, searchParams }: { params: Prom
           ))}
         </tbody>
       </table>
+      </TableFrame>
       <p className="mt-3 flex gap-3 text-xs">
         {page > 1 ? <Link href={`?page=${page - 1}`} className="text-tide-600 underline">Newer</Link> : null}
         <span className="text-ink-soft">Page {page} of {pages}</span>

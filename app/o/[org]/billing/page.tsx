@@ -9,6 +9,7 @@ import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
 import { countActiveAssets } from '@/lib/server/services/assets/list-asset-choices';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Billing' };
 export const dynamic = 'force-dynamic';
@@ -37,7 +38,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
       {checkout === 'success' ? <p role="status" className="mb-4 rounded-[3px] border border-state-sound/40 bg-state-soundbg px-3 py-2 text-sm text-state-sound">Thank you: the payment went through and the plan is recorded below.</p> : null}
       {!checked ? <p role="alert" className="mb-4 rounded-[3px] border border-rule bg-paper-sunk px-3 py-2 text-sm">The payment service did not answer, so the subscription could not be checked just now. This is the last known state.</p> : null}
       {checkout === 'cancelled' ? <p role="status" className="mb-4 rounded-[3px] border border-rule bg-paper-sunk px-3 py-2 text-sm">Checkout was cancelled; nothing changed.</p> : null}
-      <div className="grid items-start gap-4 xl:grid-cols-[24rem_minmax(0,1fr)]">
+      <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-[24rem_minmax(0,1fr)]">
         <Panel title="Subscription">
           <dl className="flex flex-col gap-2 text-sm" aria-label="Subscription">
             <div>
@@ -72,7 +73,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
         </Panel>
         <div className="flex flex-col gap-4">
           <Panel title="Plans">
-            <div className="grid gap-3 md:grid-cols-3">
+            <div className="grid grid-cols-1 gap-3 md:grid-cols-3">
               {PLAN_IDS.map((id) => {
                 const plan = PLANS[id];
                 const current = o.plan === id && Boolean(o.stripeSubscriptionId) && ['active', 'trialing', 'past_due'].includes(o.subscriptionStatus);
@@ -90,6 +91,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
           <Panel title="Invoices">
             {invoicesError ? <p role="alert" className="text-sm text-state-overdue">{invoicesError}</p> : null}
             {invoices.length ? (
+              <TableFrame label="Invoices">
               <table className="w-full text-sm" aria-label="Invoices">
                 <thead className="text-xs text-ink-soft">
                   <tr className="border-b border-rule">
@@ -110,6 +112,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                   ))}
                 </tbody>
               </table>
+              </TableFrame>
             ) : (
               <p className="text-sm text-ink-faint">No invoices yet.</p>
             )}

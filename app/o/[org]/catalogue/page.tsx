@@ -16,7 +16,7 @@ export default async function CataloguePage({ params }: { params: Promise<{ org:
   return (
     <>
       <PageHeader title="Anode catalogue" subtitle="Built-in generic models (TW- designations, typical sizes, no maker's data) and your organisation's own." />
-      <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_24rem]' : ''}`}>
+      <div className={`grid grid-cols-1 items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_24rem]' : ''}`}>
         <Panel title="Models">
           <CatalogueTable org={org} initial={models} canWrite={canWrite} />
         </Panel>

@@ -20,7 +20,7 @@ export default async function DesignsPage({ params }: { params: Promise<{ org: s
   return (
     <>
       <PageHeader title="Design desk" subtitle="Sacrificial-anode designs for hulls and harbour structures, by revision, with who prepared, checked and approved each." />
-      <div className={`grid gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_24rem]' : ''}`}>
+      <div className={`grid grid-cols-1 gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_24rem]' : ''}`}>
         <Panel title="Designs">
           <DesignsList org={org} initial={designs} />
         </Panel>

@@ -9,6 +9,7 @@ import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Docking planner' };
 
@@ -36,7 +37,9 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 <li key={i} className="flex flex-col">
                   <span className="flex flex-wrap items-center gap-2">
                     <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs an earlier docking'}</StatusTag>
+                    <span className="min-w-0">
                     <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
+                    </span>
                   </span>
                   <span className="text-xs text-ink-soft">{n.reason}</span>
                 </li>
@@ -47,6 +50,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
         {view.renewBy.length ? (
           <Panel title="Renewals by renew-by date">
             <p className="mb-2 text-sm text-ink-soft">{view.marginWords}</p>
+            <TableFrame label="Renew-by dates">
             <table className="w-full text-sm" aria-label="Renew-by dates">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -77,10 +81,12 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 ))}
               </tbody>
             </table>
+            </TableFrame>
           </Panel>
         ) : null}
-        <div className={`grid items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+        <div className={`grid grid-cols-1 items-start gap-4 ${canPlan ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
           <Panel title="Planned dockings and campaigns">
+            <TableFrame label="Planned dockings">
             <table className="w-full text-sm" aria-label="Planned dockings">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
@@ -108,6 +114,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 ) : null}
               </tbody>
             </table>
+            </TableFrame>
             {view.suggestions.length ? (
               <div className="mt-4">
                 <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-ink-soft">Suggested dockings: earlier ones for renewals that cannot wait, and class practice (bottom inspections no more than 36 months apart, two in each five years)</h3>

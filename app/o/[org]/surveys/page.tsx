@@ -23,7 +23,7 @@ export default async function SurveysPage({ params, searchParams }: { params: Pr
     <>
       <PageHeader title="Surveys" subtitle="Diver, drop-cell and ROV surveys: potentials against the protection criteria, and what remains of the anodes." />
       {deleted === '1' ? <div className="mb-4"><FormMessage state={{ ok: true, message: 'Survey deleted. An engineer can restore it within 30 days.' }} /></div> : null}
-      <div className={`grid items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
+      <div className={`grid grid-cols-1 items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
         <Panel title="All surveys">
           <SurveysTable org={org} />
         </Panel>

@@ -22,6 +22,7 @@ import { AnodeGroupForm, RemoveGroupForm } from '@/components/register/anode-gro
 import { RegisterTable } from '@/components/register/register-table';
 import { DepletionChart } from '@/components/register/depletion-chart';
 import { OutlookTag } from '@/components/planner/outlook-tag';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -92,7 +93,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         }
       />
       <div className="flex flex-col gap-4">
-        <div className="grid items-start gap-4 xl:grid-cols-2">
+        <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
           <Panel title="Particulars">
             <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-3">
               {particulars.map(([label, value]) => (
@@ -138,6 +139,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         </div>
 
         <Panel title="Zones">
+          <TableFrame label="Zones">
           <table className="w-full text-sm" aria-label="Zones">
             <thead className="text-xs text-ink-soft">
               <tr className="border-b border-rule">
@@ -183,6 +185,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               ) : null}
             </tbody>
           </table>
+          </TableFrame>
           {canWrite ? (
             <details className="mt-3">
               <summary className="cursor-pointer text-sm text-tide-600">Add a zone</summary>
@@ -261,6 +264,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
             today={today}
             dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${d.kind === 'campaign' ? 'Campaign' : 'Docking'} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
           />
+          <TableFrame label="Forecast by group">
           <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
             <thead className="text-xs text-ink-soft">
               <tr className="border-b border-rule">
@@ -292,6 +296,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               ))}
             </tbody>
           </table>
+          </TableFrame>
           {!rows.length && !asset.archivedAt ? <p className="mt-2 text-sm text-ink-soft">No anodes recorded: record the fitted groups above so their renewals can be forecast and proposed.</p> : null}
           <p className="mt-2 text-sm text-ink-soft">{marginWords}</p>
           <p className="mt-1 text-xs text-ink-soft">{renewalRule}</p>

@@ -65,7 +65,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
           </ButtonLink>
         }
       />
-      <div className="mb-4 grid gap-4 lg:grid-cols-[1fr_26rem]">
+      <div className="mb-4 grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,1fr)_26rem]">
         <Panel title="Asset">
           <AssetSummary asset={asset} />
         </Panel>

@@ -62,7 +62,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
         <Panel title="Renewals">
           <RenewalsTable org={org} dockingId={docking.id} initial={rows} canEdit={canRenew} dockings={dockingChoices} />
         </Panel>
-        <div className="grid items-start gap-4 xl:grid-cols-2">
+        <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
           {canPlan ? (
             <Panel title={`Dates, ${words.worksBy.toLowerCase()} and status`}>
               <DockingEditForm

@@ -19,6 +19,7 @@ import { deleteSurveyAction } from '../actions';
 import { queryKeys } from '@/lib/client/query-client';
 import { SURVEY_CSV_COLUMNS } from '@/lib/surveys/survey-csv';
 import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
+import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Survey' };
 
@@ -58,11 +59,12 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
           <ReadingsTable readings={readings} editing={canWrite ? { org, surveyId: survey.id, groups, electrode: survey.defaultElectrode } : undefined} />
         </Panel>
         {canWrite ? (
-          <div className="grid items-start gap-4 xl:grid-cols-2">
+          <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
             <Panel title="Upload readings (CSV)">
               <CsvUpload org={org} surveyId={survey.id} electrode={survey.defaultElectrode} />
               <details className="mt-3 text-xs text-ink-soft">
                 <summary className="cursor-pointer">The columns</summary>
+                <TableFrame label="The survey file columns">
                 <table className="mt-1 w-full">
                   <tbody>
                     {SURVEY_CSV_COLUMNS.map((c) => (
@@ -74,6 +76,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
                     ))}
                   </tbody>
                 </table>
+                </TableFrame>
               </details>
             </Panel>
             <Panel title="Add a reading">

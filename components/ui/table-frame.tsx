@@ -1,0 +1,17 @@
+const STICKY = '[&_tr>*:first-child]:sticky [&_tr>*:first-child]:left-0 [&_tr>*:first-child]:z-[1] [&_tbody_tr>*:first-child]:bg-paper-raised [&_tfoot_tr>*:first-child]:bg-paper-raised';
+const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_thead_tr>*:first-child]:bg-paper-raised' } as const;
+
+/**
+ * The frame every wide table sits in: it scrolls sideways inside itself (never the page) and can be scrolled from
+ * the keyboard (a named, focusable region); the first column stays in view while the rest scrolls past it.
+ * The frame is positioned so that visually hidden text in a cell (sr-only, absolutely placed) is clipped with the
+ * table instead of widening the page. The sticky cells take the background of their part of the table (`head`: the header row's), so the cells
+ * scrolled under them do not show through.
+ */
+export function TableFrame({ label, children, className = '', head = 'raised', stickyFirstColumn = true }: { label: string; children: React.ReactNode; className?: string; head?: keyof typeof HEAD; stickyFirstColumn?: boolean }) {
+  return (
+    <div role="region" aria-label={label} tabIndex={0} className={`relative max-w-full overflow-x-auto ${stickyFirstColumn ? `${STICKY} ${HEAD[head]}` : ''} ${className}`}>
+      {children}
+    </div>
+  );
+}
