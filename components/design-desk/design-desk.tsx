@@ -8,6 +8,7 @@ import { saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
 import { IDEMPOTENCY_FIELD, useIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Caution, Panel } from '@/components/ui/panel';
+import { NoticeBar, useNotice } from '@/components/ui/toast';
 import { JobFields } from './job-fields';
 import { ZonesTable } from './zones-table';
 import { AnodePicker } from './anode-picker';
@@ -46,17 +47,53 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   // A refused save's field messages stand until the next edit; then the recompute's do.
   const fieldErrors = saveState?.fieldErrors ?? computeErrors;
 
+  const { notice, show, clear } = useNotice();
   const update = useCallback((change: (previous: DeskState) => DeskState) => {
-    setInputs((previous) => change(previous));
+    setInputs((previous) => {
+      const next = change(previous);
+      // A zone taken out can be put back for a few seconds (the whole desk as it was before).
+      const removal = next.surfaces.length === previous.surfaces.length - 1 && next.surfaces.every((zone) => previous.surfaces.includes(zone));
+      if (removal) {
+        const gone = previous.surfaces.find((zone) => !next.surfaces.includes(zone));
+        queueMicrotask(() =>
+          show({
+            ok: true,
+            message: `Removed ${gone?.name ? `zone “${gone.name}”` : 'a zone'} (not saved yet).`,
+            undo: { label: `Undo: put ${gone?.name ? `zone ${gone.name}` : 'the zone'} back`, run: () => { setInputs(previous); clear(); } },
+          }),
+        );
+      }
+      return next;
+    });
     setDirty(true);
     setSaveState(null);
+    // show and clear only set state
+    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
   useEffect(() => {
     if (!dirty) return;
+    // A reload, a closed tab or a typed address: the browser asks.
     const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    // A link inside the app (sidebar, breadcrumb) navigates without unloading, so ask first; the
+    // capture phase runs before Next's Link handler, which a cancelled click never reaches.
+    const guard = (event: MouseEvent) => {
+      if (event.defaultPrevented || event.button !== 0 || event.metaKey || event.ctrlKey || event.shiftKey || event.altKey) return;
+      const link = (event.target as Element | null)?.closest?.('a[href]') as HTMLAnchorElement | null;
+      if (!link || link.target === '_blank' || link.hasAttribute('download')) return;
+      const to = new URL(link.href, window.location.href);
+      if (to.origin === window.location.origin && to.pathname === window.location.pathname) return;
+      if (!window.confirm('This design has unsaved changes. Leave without saving them?')) {
+        event.preventDefault();
+        event.stopPropagation();
+      }
+    };
     window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
+    document.addEventListener('click', guard, true);
+    return () => {
+      window.removeEventListener('beforeunload', warn);
+      document.removeEventListener('click', guard, true);
+    };
   }, [dirty]);
 
   const save = () =>
@@ -65,7 +102,11 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
       saveKey.renew();
       if (answer.ok) {
         setDirty(false);
-        setSaveState({ ok: true, message: `Draft saved ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.` });
+        clear();
+        setSaveState({
+          ok: true,
+          message: `Saved: “${title}”, ${inputs.surfaces.length} zone${inputs.surfaces.length === 1 ? '' : 's'}, at ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.`,
+        });
       } else {
         setSaveState({ ok: false, message: answer.message, fieldErrors: answer.fieldErrors });
       }
@@ -88,6 +129,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
           </Button>
         </div>
       ) : null}
+      {editable ? <NoticeBar notice={notice} /> : null}
       {computeMessage ? (
         <p role="alert" className="rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
           {computeMessage} Results below are from the last valid inputs.

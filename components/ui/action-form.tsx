@@ -68,6 +68,7 @@ interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>
   form: Pick<BoundForm, 'state' | 'action'> & Partial<Pick<BoundForm, 'idempotencyKey' | 'formAction'>>;
   /** Wraps the message in a div with this class (e.g. a column span in a grid form). */
   messageClassName?: string;
+  ref?: React.Ref<HTMLFormElement>;
 }
 
 /** A form posting to its bound action, with the action's message (role status or alert) first. */

@@ -37,6 +37,7 @@ import { createDocking } from '@/lib/server/services/planner/dockings';
 import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { approveDesign } from '@/lib/server/services/designs/sign-design';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
+import { removeMember } from '@/lib/server/services/team/remove-member';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
 import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
@@ -298,7 +299,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'design',
     // The preparer never signs: the design is prepared by someone else than the member who checks it.
     input: async (role) => ({ designId: await designBy(role === 'engineer' ? 'owner' : 'engineer') }),
-    success: { message: /^Signed as checker\.$/ },
+    success: { message: /^Saved: revision \d+ of “.+” signed by you as checker\. It now waits for approval\.$/ },
   },
   {
     module: 'app/o/[org]/designs/actions.ts',
@@ -307,7 +308,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'design:approve',
     table: 'design',
     input: async (role) => ({ designId: await designBy(role === 'engineer' ? 'owner' : 'engineer') }),
-    success: { message: /^Approved\. This revision can no longer change\.$/ },
+    success: { message: /^Saved: revision \d+ of “.+” approved by you\. It can no longer change\.$/ },
   },
   {
     module: 'app/o/[org]/designs/actions.ts',
@@ -502,7 +503,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'team:manage',
     table: 'membership',
     input: async () => ({ membershipId: await addMember('viewer'), role: 'inspector' }),
-    success: { message: /^Role changed\.$/ },
+    success: { message: /^Saved: .+ is now inspector\.$/ },
   },
   {
     module: 'app/o/[org]/team/actions.ts',
@@ -511,7 +512,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'team:manage',
     table: 'membership',
     input: async () => ({ membershipId: await addMember('viewer') }),
-    success: { message: /^Member removed\.$/ },
+    success: { message: /^Removed Extra viewer \(user-\w+@test\.example\)\.$/ },
+  },
+  {
+    module: 'app/o/[org]/team/actions.ts',
+    name: 'restoreMemberAction',
+    kind: 'form',
+    permission: 'team:manage',
+    table: 'membership',
+    // A member removed a moment ago, as the Undo button beside the removal's confirmation sends it.
+    input: async () => {
+      const membershipId = await addMember('viewer');
+      await as('owner', (c) => removeMember(c, { membershipId }));
+      return { membershipId };
+    },
+    success: { message: /^Restored: Extra viewer is a member again, as viewer\.$/ },
   },
   {
     module: 'app/o/[org]/team/actions.ts',
@@ -823,6 +838,24 @@ const PUBLIC_ACTIONS: PublicActionCase[] = [
           const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: user.email, password: TEST_PASSWORD, next: '/o/somewhere/dockings' });
           expect(outcome.redirect).toBe('/o/somewhere/dockings');
           await expectSignedInAs(user.id);
+        },
+      },
+      {
+        title: 'with no page to go back to, a member of exactly one organisation lands in it',
+        run: async () => {
+          await signInAs(null);
+          const { organisation, users } = await makeOrgWithRoles(await getEm(), 'Only Harbour');
+          const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: users.inspector.email, password: TEST_PASSWORD, next: '' });
+          expect(outcome.redirect).toBe(`/o/${organisation.slug}`);
+        },
+      },
+      {
+        title: 'with no page to go back to, a member of no organisation (or of several) lands on the list',
+        run: async () => {
+          await signInAs(null);
+          const user = await makeUser(await getEm());
+          const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: user.email, password: TEST_PASSWORD, next: '' });
+          expect(outcome.redirect).toBe('/orgs');
         },
       },
       {

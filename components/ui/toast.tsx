@@ -1,0 +1,61 @@
+'use client';
+import { useEffect, useState } from 'react';
+import { Button } from './button';
+
+/** How long a removal can be undone from the screen. */
+export const UNDO_SECONDS = 10;
+
+export interface Notice {
+  /** What was done, in words the user recognises ("Removed Ann Other (ann@…)"). */
+  message: string;
+  ok: boolean;
+  /** Present while the change can be undone: the button's accessible name and what it runs. */
+  undo?: { label: string; run: () => void };
+  /** Changes on every new notice, so the same words twice still show (and restart the countdown). */
+  id: number;
+}
+
+/**
+ * The confirmation of a change, announced politely (role status) and, for a
+ * removal, with an Undo button for UNDO_SECONDS seconds. The live region is always in the page, so
+ * screen readers hear each new message.
+ */
+export function NoticeBar({ notice, pending = false }: { notice: Notice | null; pending?: boolean }) {
+  const [left, setLeft] = useState(0);
+  const noticeId = notice?.id;
+  const canUndo = Boolean(notice?.undo);
+  useEffect(() => {
+    if (!canUndo) return;
+    setLeft(UNDO_SECONDS);
+    const timer = setInterval(() => setLeft((s) => (s > 0 ? s - 1 : 0)), 1000);
+    return () => clearInterval(timer);
+  }, [noticeId, canUndo]);
+  const undo = notice?.undo && left > 0 ? notice.undo : null;
+  return (
+    <div role="status" aria-live="polite" className="empty:hidden">
+      {notice ? (
+        <div
+          data-testid="notice"
+          className={`flex flex-wrap items-center gap-3 rounded-[3px] border px-3 py-2 text-sm ${notice.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-overdue/40 bg-state-overduebg text-state-overdue'}`}
+        >
+          <span className="flex-1">{notice.message}</span>
+          {undo ? (
+            <Button type="button" variant="secondary" disabled={pending} onClick={undo.run} aria-label={`${undo.label} (${left} s left)`}>
+              Undo <span className="text-xs text-ink-soft" aria-hidden="true">({left} s)</span>
+            </Button>
+          ) : null}
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
+/** A notice from an action's answer, with a fresh id each time the answer changes. */
+export function useNotice() {
+  const [notice, setNotice] = useState<Notice | null>(null);
+  return {
+    notice,
+    show: (next: Omit<Notice, 'id'>) => setNotice({ ...next, id: Date.now() + Math.random() }),
+    clear: () => setNotice(null),
+  };
+}
