@@ -1,5 +1,6 @@
 'use client';
 import { useCallback, useEffect, useState, useTransition } from 'react';
+import { useRouter } from 'next/navigation';
 import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
@@ -48,6 +49,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   const fieldErrors = saveState?.fieldErrors ?? computeErrors;
 
   const { notice, show, clear } = useNotice();
+  const router = useRouter();
   const update = useCallback((change: (previous: DeskState) => DeskState) => {
     setInputs((previous) => {
       const next = change(previous);
@@ -103,6 +105,8 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
       if (answer.ok) {
         setDirty(false);
         clear();
+        // The header's title and badge (a checked revision that changes is a draft again) follow the save.
+        router.refresh();
         setSaveState({
           ok: true,
           message: `Saved: “${title}”, ${inputs.surfaces.length} zone${inputs.surfaces.length === 1 ? '' : 's'}, at ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.`,

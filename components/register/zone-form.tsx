@@ -1,9 +1,14 @@
 'use client';
+import { useMemo } from 'react';
+import type { ActionState } from '@/lib/server/action';
+import { useRouter } from 'next/navigation';
+import { announce } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
-import { archiveZoneAction, createZoneAction, updateZoneAction } from '@/app/o/[org]/assets/actions';
+import { archiveZoneAction, createZoneAction, restoreZoneAction, updateZoneAction } from '@/app/o/[org]/assets/actions';
 
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
 
@@ -49,7 +54,35 @@ export function ZoneForm({ org, assetId, zone }: { org: string; assetId: string;
 }
 
 export function ArchiveZoneButton({ org, assetId, zoneId, name }: { org: string; assetId: string; zoneId: string; name: string }) {
-  const { state, action, pending } = useBoundAction(archiveZoneAction.bind(null, org));
+  const router = useRouter();
+  // The row is gone as soon as the page refreshes (the answer may carry the new page with it), so the
+  // confirmation and its Undo go to the page's notice from here, before the row unmounts.
+  const archive = useMemo(
+    () => async (previous: ActionState, formData: FormData) => {
+      const answer = await archiveZoneAction(org, previous, formData);
+      const undoZoneId = answer.ok ? answer.data?.undoZoneId : null;
+      if (typeof undoZoneId === 'string') {
+        announce({
+          ok: true,
+          message: answer.message ?? `Zone "${name}" archived.`,
+          undo: {
+            label: `Undo: restore the zone ${name}`,
+            run: async () => {
+              const form = new FormData();
+              form.set('zoneId', undoZoneId);
+              form.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+              const restored = await restoreZoneAction(org, { ok: false }, form);
+              announce({ ok: restored.ok, message: restored.message ?? '' });
+              router.refresh();
+            },
+          },
+        });
+      }
+      return answer;
+    },
+    [org, name, router],
+  );
+  const { state, action, pending } = useBoundAction(archive);
   return (
     <form action={action} onSubmit={(ev) => { if (!confirm(`Archive the zone "${name}"? Designs that used it keep their copy.`)) ev.preventDefault(); }}>
       <input type="hidden" name="assetId" value={assetId} />

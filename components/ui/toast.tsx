@@ -1,5 +1,5 @@
 'use client';
-import { useEffect, useState } from 'react';
+import { useEffect, useState, useSyncExternalStore } from 'react';
 import { Button } from './button';
 
 /** How long a removal can be undone from the screen. */
@@ -10,7 +10,7 @@ export interface Notice {
   message: string;
   ok: boolean;
   /** Present while the change can be undone: the button's accessible name and what it runs. */
-  undo?: { label: string; run: () => void };
+  undo?: { label: string; run: () => void | Promise<unknown> };
   /** Changes on every new notice, so the same words twice still show (and restart the countdown). */
   id: number;
 }
@@ -58,4 +58,61 @@ export function useNotice() {
     show: (next: Omit<Notice, 'id'>) => setNotice({ ...next, id: Date.now() + Math.random() }),
     clear: () => setNotice(null),
   };
+}
+
+// A notice that must outlive the control that caused it (the archived row is gone once the page
+// refreshes): one store for the page, shown by NoticeHost at the foot of the window.
+type Listener = () => void;
+let current: Notice | null = null;
+const listeners = new Set<Listener>();
+const emit = () => listeners.forEach((listener) => listener());
+
+/** Shows a notice in the page's NoticeHost (replacing the one before). */
+export function announce(next: Omit<Notice, 'id'>) {
+  current = { ...next, id: Date.now() + Math.random() };
+  emit();
+}
+
+/** The page-wide notice: polite, dismissable, with Undo while it lasts. Mounted once, in Providers. */
+export function NoticeHost() {
+  const notice = useSyncExternalStore(
+    (listener) => {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    () => current,
+    () => null,
+  );
+  const [pending, setPending] = useState(false);
+  const shownId = notice?.id;
+  useEffect(() => {
+    if (shownId === undefined) return;
+    // Gone a few seconds after the Undo has lapsed; a newer notice keeps its own time.
+    const timer = setTimeout(() => {
+      if (current?.id === shownId) {
+        current = null;
+        emit();
+      }
+    }, (UNDO_SECONDS + 5) * 1000);
+    return () => clearTimeout(timer);
+  }, [shownId]);
+  const wrapped = notice?.undo
+    ? {
+        ...notice,
+        undo: {
+          label: notice.undo.label,
+          run: () => {
+            setPending(true);
+            Promise.resolve(notice.undo!.run()).finally(() => setPending(false));
+          },
+        },
+      }
+    : notice;
+  return (
+    <div className="no-print pointer-events-none fixed inset-x-0 bottom-4 z-50 flex justify-center px-4">
+      <div className="pointer-events-auto w-full max-w-xl shadow-lg">
+        <NoticeBar notice={wrapped} pending={pending} />
+      </div>
+    </div>
+  );
 }

@@ -25,7 +25,7 @@ import { verifyPassword } from '@/lib/server/auth/password';
 import { getStripe } from '@/lib/server/billing/stripe';
 import { PLANS } from '@/lib/billing/plans';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
-import { createZone } from '@/lib/server/services/register/zones';
+import { archiveZone, createZone } from '@/lib/server/services/register/zones';
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
@@ -229,7 +229,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'asset:write',
     table: 'zone',
     input: async () => ({ zoneId: (await as('engineer', (c) => createZone(c, fixtures.vessel, { ...zoneFields, name: unique('Short-lived zone') }))).id }),
-    success: { message: /^Zone archived\.$/ },
+    success: { message: /^Zone "Short-lived zone \d+" archived\.$/ },
+  },
+  {
+    module: 'app/o/[org]/assets/actions.ts',
+    name: 'restoreZoneAction',
+    kind: 'form',
+    permission: 'asset:write',
+    table: 'zone',
+    // A zone archived a moment ago, as the Undo button beside the archive's confirmation sends it.
+    input: async () => {
+      const zone = await as('engineer', (c) => createZone(c, fixtures.vessel, { ...zoneFields, name: unique('Archived zone') }));
+      await as('engineer', (c) => archiveZone(c, zone.id));
+      return { zoneId: zone.id };
+    },
+    success: { message: /^Zone "Archived zone \d+" restored\.$/ },
   },
   {
     module: 'app/o/[org]/assets/actions.ts',

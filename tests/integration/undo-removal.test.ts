@@ -6,9 +6,13 @@ import { AppError } from '@/lib/server/errors';
 import { ROLES, type Role } from '@/lib/roles';
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { restoreMember, MEMBER_RESTORE_MINUTES } from '@/lib/server/services/team/restore-member';
+import { createAsset } from '@/lib/server/services/assets/create-asset';
+import { archiveZone, createZone } from '@/lib/server/services/register/zones';
+import { restoreZone } from '@/lib/server/services/register/restore-zone';
+import { ZoneSchema } from '@/entities';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
-// Undo of "Remove member": the same membership comes back, from the removal's own audit row.
+// Undo of "Remove member" (the same membership back, from the removal's own audit row) and of "Archive zone".
 let organisation: Organisation;
 let users: Record<Role, User>;
 let other: { organisation: Organisation; users: Record<Role, User> };
@@ -81,5 +85,46 @@ describe('restoreMember', () => {
     await em.nativeUpdate(AuditEventSchema, { action: 'member.removed', targetId: membershipId }, { createdAt: subMinutes(new Date(), MEMBER_RESTORE_MINUTES + 1) });
     await expect(as('owner', (c) => restoreMember(c, { membershipId }))).rejects.toMatchObject({ code: 'conflict' });
     expect(await membershipsOf(user.id)).toHaveLength(0);
+  });
+});
+
+describe('restoreZone', () => {
+  const zoneFields = { kind: 'hull-bottom', areaM2: '80', coatingCategory: 'II', waterType: 'seawater', climate: 'temperate', depthBand: '0-30' };
+  let assetId: string;
+  beforeAll(async () => {
+    assetId = (await as('engineer', (c) => createAsset(c, { kind: 'vessel', name: 'Undo Tender', hullMaterial: 'steel' }))).id;
+  });
+  let serial = 0;
+  async function archivedZone() {
+    const zone = await as('engineer', (c) => createZone(c, assetId, { ...zoneFields, name: `Flat bottom ${++serial}` }));
+    await as('engineer', (c) => archiveZone(c, zone.id));
+    return zone.id;
+  }
+  const archivedAt = async (id: string) => (await (await getEm()).findOneOrFail(ZoneSchema, { id })).archivedAt;
+
+  it('brings the zone back as it was and audits it once, however often it is sent', async () => {
+    const id = await archivedZone();
+    expect(await archivedAt(id)).not.toBeNull();
+    expect((await as('engineer', (c) => restoreZone(c, id))).restored).toBe(true);
+    expect(await archivedAt(id)).toBeNull();
+    expect((await as('engineer', (c) => restoreZone(c, id))).restored).toBe(false);
+    const rows = await auditRows('zone.restored', id);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ organisationId: organisation.id, actorUserId: users.engineer.id });
+  });
+
+  for (const role of ['planner', 'inspector', 'viewer'] as const) {
+    it(`${role} may not restore a zone (asset:write)`, async () => {
+      const id = await archivedZone();
+      await expect(as(role, (c) => restoreZone(c, id))).rejects.toMatchObject({ code: 'forbidden' });
+      expect(await archivedAt(id)).not.toBeNull();
+      expect(await auditRows('zone.restored', id)).toHaveLength(0);
+    });
+  }
+
+  it("another organisation's engineer gets a 404 and the zone stays archived", async () => {
+    const id = await archivedZone();
+    await expect(as('engineer', (c) => restoreZone(c, id), other)).rejects.toMatchObject({ code: 'not-found' });
+    expect(await archivedAt(id)).not.toBeNull();
   });
 });
