@@ -98,7 +98,7 @@ test('a saved role change stays chosen; a removed member can be restored with Un
   await signIn(page, demoUser('owner').email);
   await page.goto(`/o/${demo.organisation.slug}/team`);
   const members = page.getByRole('table', { name: 'Members' });
-  const role = page.getByLabel(`Role of ${viewer.email}`);
+  const role = page.getByRole('combobox', { name: `Role of ${viewer.email}` });
   await expect(role).toHaveValue('viewer');
 
   await role.selectOption('inspector');
@@ -109,12 +109,12 @@ test('a saved role change stays chosen; a removed member can be restored with Un
   await page.waitForTimeout(1500);
   await expect(role).toHaveValue('inspector');
   await page.reload();
-  await expect(page.getByLabel(`Role of ${viewer.email}`)).toHaveValue('inspector');
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('inspector');
   // Back as it was, for the other journeys.
-  await page.getByLabel(`Role of ${viewer.email}`).selectOption('viewer');
+  await page.getByRole('combobox', { name: `Role of ${viewer.email}` }).selectOption('viewer');
   await page.getByRole('button', { name: `Save the role of ${viewer.email}` }).click();
   await expect(page.getByRole('status').filter({ hasText: `Saved: ${viewer.name} is now viewer.` })).toBeVisible();
-  await expect(page.getByLabel(`Role of ${viewer.email}`)).toHaveValue('viewer');
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('viewer');
 
   // Remove, then Undo within the few seconds offered: the same member comes back in the same role.
   page.once('dialog', (d) => d.accept());
@@ -124,7 +124,7 @@ test('a saved role change stays chosen; a removed member can be restored with Un
   await page.getByRole('button', { name: /^Undo the removal/ }).click();
   await expect(page.getByTestId('notice')).toContainText(`Restored: ${viewer.name} is a member again, as viewer.`);
   await expect(members).toContainText(viewer.email);
-  await expect(page.getByLabel(`Role of ${viewer.email}`)).toHaveValue('viewer');
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('viewer');
 });
 
 test('a new owner confirms the e-mail in one click, is guided through the first steps, and later signs straight into the organisation', async ({ page }) => {
@@ -164,6 +164,21 @@ test('a new owner confirms the e-mail in one click, is guided through the first 
   await page.getByRole('button', { name: 'Add the asset' }).click();
   await expect(page).toHaveURL(/\/assets\//);
 
+  // On its page: a zone archived by mistake comes back with Undo, from the page's notice.
+  await page.getByText('Add a zone', { exact: true }).click();
+  await page.getByLabel('Zone name').last().fill('Flat bottom');
+  await page.getByLabel('Wetted area').last().fill('140');
+  await page.getByRole('button', { name: 'Add zone' }).click();
+  const zoneRows = page.getByRole('table', { name: 'Zones' }).getByRole('row').filter({ hasText: 'Flat bottom' });
+  await expect(zoneRows).toHaveCount(1);
+  page.once('dialog', (d) => d.accept());
+  await zoneRows.getByRole('button', { name: 'Archive' }).click();
+  await expect(page.getByTestId('notice')).toContainText('Zone "Flat bottom" archived.');
+  await expect(zoneRows).toHaveCount(0);
+  await page.getByRole('button', { name: /^Undo: restore the zone Flat bottom/ }).click();
+  await expect(page.getByTestId('notice')).toContainText('Zone "Flat bottom" restored.');
+  await expect(zoneRows).toHaveCount(1);
+
   await page.goto(fleet);
   await expect(guide).toContainText('3 steps to go');
   await expect(step('asset')).toHaveAttribute('data-done', 'yes');
@@ -175,4 +190,25 @@ test('a new owner confirms the e-mail in one click, is guided through the first 
   await page.context().clearCookies();
   await signIn(page, email, password);
   await expect(page).toHaveURL(fleet);
+});
+
+test("Tidewarden's own icons and social image are served to anyone and named in every page's head", async ({ page, request }) => {
+  for (const [path, type] of [
+    ['/favicon.ico', /image\/(x-icon|vnd\.microsoft\.icon)/],
+    ['/icon.svg', /image\/svg\+xml/],
+    ['/icon-192.png', /image\/png/],
+    ['/icon-512.png', /image\/png/],
+    ['/apple-touch-icon.png', /image\/png/],
+    ['/og-image.png', /image\/png/],
+    ['/manifest.webmanifest', /application\/manifest\+json|application\/json/],
+  ] as const) {
+    // Not signed in: no redirect to the sign-in page.
+    const response = await request.get(path, { maxRedirects: 0 });
+    expect(response.status(), path).toBe(200);
+    expect(response.headers()['content-type'], path).toMatch(type);
+  }
+  await page.goto('/sign-in');
+  await expect(page.locator('link[rel="icon"][href^="/favicon.ico"]')).toHaveCount(1);
+  await expect(page.locator('link[rel="apple-touch-icon"]')).toHaveAttribute('href', /\/apple-touch-icon\.png/);
+  await expect(page.locator('meta[property="og:image"]')).toHaveAttribute('content', /\/og-image\.png$/);
 });
