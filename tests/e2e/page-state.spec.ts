@@ -165,6 +165,7 @@ test('a new owner confirms the e-mail in one click, is guided through the first 
   await expect(page).toHaveURL(/\/assets\//);
 
   // On its page: a zone archived by mistake comes back with Undo, from the page's notice.
+  page.on('pageerror', (error) => console.log(`page error: ${error.message}`));
   await page.getByText('Add a zone', { exact: true }).click();
   await page.getByLabel('Zone name').last().fill('Flat bottom');
   await page.getByLabel('Wetted area').last().fill('140');
