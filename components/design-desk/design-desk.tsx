@@ -9,7 +9,7 @@ import { saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
 import { IDEMPOTENCY_FIELD, useIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Caution, Panel } from '@/components/ui/panel';
-import { NoticeBar, useNotice } from '@/components/ui/toast';
+import { announce, dismissNotice } from '@/components/ui/toast';
 import { JobFields } from './job-fields';
 import { ZonesTable } from './zones-table';
 import { AnodePicker } from './anode-picker';
@@ -48,7 +48,6 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   // A refused save's field messages stand until the next edit; then the recompute's do.
   const fieldErrors = saveState?.fieldErrors ?? computeErrors;
 
-  const { notice, show, clear } = useNotice();
   const router = useRouter();
   const update = useCallback((change: (previous: DeskState) => DeskState) => {
     setInputs((previous) => {
@@ -57,11 +56,12 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
       const removal = next.surfaces.length === previous.surfaces.length - 1 && next.surfaces.every((zone) => previous.surfaces.includes(zone));
       if (removal) {
         const gone = previous.surfaces.find((zone) => !next.surfaces.includes(zone));
+        // In the page-wide notice at the foot of the window: the zone's place may be scrolled away.
         queueMicrotask(() =>
-          show({
+          announce({
             ok: true,
             message: `Removed ${gone?.name ? `zone “${gone.name}”` : 'a zone'} (not saved yet).`,
-            undo: { label: `Undo: put ${gone?.name ? `zone ${gone.name}` : 'the zone'} back`, run: () => { setInputs(previous); clear(); } },
+            undo: { label: `Undo: put ${gone?.name ? `zone ${gone.name}` : 'the zone'} back`, run: () => { setInputs(previous); dismissNotice(); } },
           }),
         );
       }
@@ -69,8 +69,6 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
     });
     setDirty(true);
     setSaveState(null);
-    // show and clear only set state
-    // eslint-disable-next-line react-hooks/exhaustive-deps
   }, []);
 
   useEffect(() => {
@@ -104,7 +102,7 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
       saveKey.renew();
       if (answer.ok) {
         setDirty(false);
-        clear();
+        dismissNotice();
         // The header's title and badge (a checked revision that changes is a draft again) follow the save.
         router.refresh();
         setSaveState({
@@ -133,7 +131,6 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
           </Button>
         </div>
       ) : null}
-      {editable ? <NoticeBar notice={notice} /> : null}
       {computeMessage ? (
         <p role="alert" className="rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
           {computeMessage} Results below are from the last valid inputs.

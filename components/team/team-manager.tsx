@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { Panel } from '@/components/ui/panel';
-import { NoticeBar, useNotice } from '@/components/ui/toast';
+import { announce } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { queryKeys } from '@/lib/client/query-client';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
@@ -85,7 +85,7 @@ export function TeamManager({ org }: { org: string }) {
   const team = useTeam(org);
   const invite = useBoundAction(inviteMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
   const restore = useBoundAction(restoreMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
-  const { notice, show } = useNotice();
+  const show = announce;
   const restoreForm = useRef<HTMLFormElement>(null);
   const [restoreId, setRestoreId] = useState('');
   // The cells report through refs, so the columns (and the table's rows) are not rebuilt on every notice.
@@ -126,7 +126,6 @@ export function TeamManager({ org }: { org: string }) {
   return (
     <div className="grid gap-5 xl:grid-cols-[1fr_22rem]">
       <div className="flex flex-col gap-5">
-        <NoticeBar notice={notice} pending={restore.pending} />
         <form ref={restoreForm} action={restore.action} hidden>
           <input type="hidden" name="membershipId" value={restoreId} readOnly />
         </form>

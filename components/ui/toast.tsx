@@ -1,5 +1,6 @@
 'use client';
 import { useEffect, useState, useSyncExternalStore } from 'react';
+import { usePathname } from 'next/navigation';
 import { Button } from './button';
 
 /** How long a removal can be undone from the screen. */
@@ -73,6 +74,13 @@ export function announce(next: Omit<Notice, 'id'>) {
   emit();
 }
 
+/** Takes the page's notice away (e.g. once a save has made its Undo meaningless). */
+export function dismissNotice() {
+  if (!current) return;
+  current = null;
+  emit();
+}
+
 /** The page-wide notice: polite, dismissable, with Undo while it lasts. Mounted once, in Providers. */
 export function NoticeHost() {
   const notice = useSyncExternalStore(
@@ -84,6 +92,9 @@ export function NoticeHost() {
     () => null,
   );
   const [pending, setPending] = useState(false);
+  // A notice (and its Undo) belongs to the page it was given on.
+  const pathname = usePathname();
+  useEffect(() => dismissNotice(), [pathname]);
   const shownId = notice?.id;
   useEffect(() => {
     if (shownId === undefined) return;
