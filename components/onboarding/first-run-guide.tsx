@@ -64,14 +64,14 @@ export function FirstRunGuide({ org, progress }: { org: string; progress: FirstR
         {list.map((step, index) => {
           const done = progress.done[step.key];
           return (
-            <li key={step.key} data-step={step.key} data-done={done ? 'yes' : 'no'} className="flex items-start gap-3 text-sm">
+            <li key={step.key} data-step={step.key} data-done={done ? 'yes' : 'no'} className="flex flex-wrap items-start gap-x-3 gap-y-2 text-sm">
               <span
                 aria-hidden="true"
                 className={`mt-0.5 flex h-6 w-6 shrink-0 items-center justify-center rounded-full border text-xs font-semibold ${done ? 'border-tide-600 bg-tide-600 text-white' : 'border-tide-600 bg-paper-raised text-tide-700'}`}
               >
                 {done ? '✓' : index + 1}
               </span>
-              <div className="flex-1">
+              <div className="min-w-0 flex-1 basis-48">
                 <p className={done ? 'text-ink-soft' : 'font-medium text-ink'}>
                   {step.title}
                   {done ? <span className="ml-2 text-xs font-semibold text-tide-700">Done</span> : null}
@@ -81,7 +81,7 @@ export function FirstRunGuide({ org, progress }: { org: string; progress: FirstR
               {!done && step.href ? (
                 <Link
                   href={step.href}
-                  className={`shrink-0 rounded-[3px] border px-3 py-1.5 text-sm font-medium ${step.key === next ? 'border-tide-700 bg-tide-600 text-white hover:bg-tide-700' : 'border-rule-strong bg-paper-raised text-tide-700 hover:bg-paper-sunk'}`}
+                  className={`ml-9 inline-flex min-h-11 shrink-0 items-center rounded-[3px] border px-3 py-1.5 text-sm font-medium sm:ml-0 ${step.key === next ? 'border-tide-700 bg-tide-600 text-white hover:bg-tide-700' : 'border-rule-strong bg-paper-raised text-tide-700 hover:bg-paper-sunk'}`}
                 >
                   {step.action}
                   <span className="sr-only"> (step {index + 1}: {step.title.toLowerCase()})</span>
