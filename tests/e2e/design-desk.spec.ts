@@ -3,6 +3,8 @@ import { demo, demoUser, signIn } from './helpers';
 import { pdfText } from '../fixtures/pdf-text';
 
 test('an engineer edits a draft, sees the results recomputed, saves; a second engineer approves; a viewer prints the note', async ({ page, browser }) => {
+  // Three sign-ins (each now lands on the fleet overview) and a PDF: more than the default minute on a busy machine.
+  test.setTimeout(120_000);
   await signIn(page, demoUser('engineer').email);
   await page.goto(`/o/${demo.organisation.slug}/designs`);
   await page.getByRole('link', { name: 'Kittiwake Sound: anode design' }).click();
