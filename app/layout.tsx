@@ -5,8 +5,24 @@ import { appFont } from './fonts';
 import { Providers } from '@/components/providers';
 
 export const metadata: Metadata = {
+  // Absolute addresses for the social image (APP_URL is the public address; checked at start in lib/server/env.ts).
+  metadataBase: new URL(process.env.APP_URL || 'http://127.0.0.1:3000'),
   title: { default: 'Tidewarden', template: '%s · Tidewarden' },
   description: 'Sacrificial-anode cathodic protection for ship hulls and harbour structures: design, register, surveys and dry-dock anode lists.',
+  // Our own mark (scripts/icons/make-icons.mjs draws these into public/ from scripts/icons/mark.svg).
+  icons: {
+    icon: [
+      { url: '/favicon.ico', sizes: '32x32' },
+      { url: '/icon.svg', type: 'image/svg+xml' },
+    ],
+    apple: [{ url: '/apple-touch-icon.png', sizes: '180x180' }],
+  },
+  manifest: '/manifest.webmanifest',
+  openGraph: {
+    title: 'Tidewarden',
+    description: 'Sacrificial anodes for hulls and jetties: design, register, surveys and docking lists.',
+    images: [{ url: '/og-image.png', width: 1200, height: 630, alt: 'Tidewarden: an anode block above a rising tide' }],
+  },
 };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {

@@ -1,5 +1,6 @@
 'use client';
 import { useCallback, useEffect, useState, useTransition } from 'react';
+import { useRouter } from 'next/navigation';
 import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
@@ -8,6 +9,7 @@ import { saveDesignAction } from '@/app/o/[org]/designs/actions';
 import { Button } from '@/components/ui/button';
 import { IDEMPOTENCY_FIELD, useIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Caution, Panel } from '@/components/ui/panel';
+import { announce, dismissNotice } from '@/components/ui/toast';
 import { JobFields } from './job-fields';
 import { ZonesTable } from './zones-table';
 import { AnodePicker } from './anode-picker';
@@ -46,17 +48,52 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
   // A refused save's field messages stand until the next edit; then the recompute's do.
   const fieldErrors = saveState?.fieldErrors ?? computeErrors;
 
+  const router = useRouter();
   const update = useCallback((change: (previous: DeskState) => DeskState) => {
-    setInputs((previous) => change(previous));
+    setInputs((previous) => {
+      const next = change(previous);
+      // A zone taken out can be put back for a few seconds (the whole desk as it was before).
+      const removal = next.surfaces.length === previous.surfaces.length - 1 && next.surfaces.every((zone) => previous.surfaces.includes(zone));
+      if (removal) {
+        const gone = previous.surfaces.find((zone) => !next.surfaces.includes(zone));
+        // In the page-wide notice at the foot of the window: the zone's place may be scrolled away.
+        queueMicrotask(() =>
+          announce({
+            ok: true,
+            message: `Removed ${gone?.name ? `zone “${gone.name}”` : 'a zone'} (not saved yet).`,
+            undo: { label: `Undo: put ${gone?.name ? `zone ${gone.name}` : 'the zone'} back`, run: () => { setInputs(previous); dismissNotice(); } },
+          }),
+        );
+      }
+      return next;
+    });
     setDirty(true);
     setSaveState(null);
   }, []);
 
   useEffect(() => {
     if (!dirty) return;
+    // A reload, a closed tab or a typed address: the browser asks.
     const warn = (event: BeforeUnloadEvent) => event.preventDefault();
+    // A link inside the app (sidebar, breadcrumb) navigates without unloading, so ask first; the
+    // capture phase runs before Next's Link handler, which a cancelled click never reaches.
+    const guard = (event: MouseEvent) => {
+      if (event.defaultPrevented || event.button !== 0 || event.metaKey || event.ctrlKey || event.shiftKey || event.altKey) return;
+      const link = (event.target as Element | null)?.closest?.('a[href]') as HTMLAnchorElement | null;
+      if (!link || link.target === '_blank' || link.hasAttribute('download')) return;
+      const to = new URL(link.href, window.location.href);
+      if (to.origin === window.location.origin && to.pathname === window.location.pathname) return;
+      if (!window.confirm('This design has unsaved changes. Leave without saving them?')) {
+        event.preventDefault();
+        event.stopPropagation();
+      }
+    };
     window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
+    document.addEventListener('click', guard, true);
+    return () => {
+      window.removeEventListener('beforeunload', warn);
+      document.removeEventListener('click', guard, true);
+    };
   }, [dirty]);
 
   const save = () =>
@@ -65,7 +102,13 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
       saveKey.renew();
       if (answer.ok) {
         setDirty(false);
-        setSaveState({ ok: true, message: `Draft saved ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.` });
+        dismissNotice();
+        // The header's title and badge (a checked revision that changes is a draft again) follow the save.
+        router.refresh();
+        setSaveState({
+          ok: true,
+          message: `Saved: “${title}”, ${inputs.surfaces.length} zone${inputs.surfaces.length === 1 ? '' : 's'}, at ${new Date(answer.data.updatedAt).toLocaleTimeString('en-GB', { hour: '2-digit', minute: '2-digit' })}${answer.data.resultError ? ' (inputs still need attention)' : ''}.`,
+        });
       } else {
         setSaveState({ ok: false, message: answer.message, fieldErrors: answer.fieldErrors });
       }

@@ -21,8 +21,9 @@ const when = (iso: string | null) => (iso ? format(new Date(iso), 'd MMM yyyy HH
 
 /** Prepared / checked / approved, with the actions the signed-in member may take. */
 export function SignatureBlock({ org, designId, status, prepared, checked, approved, can, reason }: Props) {
-  const check = useBoundAction(checkDesignAction.bind(null, org));
-  const approve = useBoundAction(approveDesignAction.bind(null, org));
+  // checkDesign and approveDesign revalidate this page: the answer brings the new badge and read-only desk.
+  const check = useBoundAction(checkDesignAction.bind(null, org), { refresh: false });
+  const approve = useBoundAction(approveDesignAction.bind(null, org), { refresh: false });
   const revise = useBoundAction(newRevisionAction.bind(null, org));
   return (
     <div className="flex flex-col gap-3">

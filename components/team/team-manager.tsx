@@ -1,5 +1,5 @@
 'use client';
-import { useMemo } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { format } from 'date-fns';
 import { DataTable } from '@/components/ui/data-table';
@@ -7,27 +7,38 @@ import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { Panel } from '@/components/ui/panel';
+import { announce } from '@/components/ui/toast';
+import type { ActionState } from '@/lib/server/action';
 import { queryKeys } from '@/lib/client/query-client';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
 import { MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
 import { ROLES, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
-import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
+import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, restoreMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
-function RoleCell({ org, member }: { org: string; member: TeamMember }) {
+function RoleCell({ org, member, onSaved }: { org: string; member: TeamMember; onSaved: (state: ActionState) => void }) {
   const { state, action, pending } = useBoundAction(changeMemberRoleAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  // Controlled, so the saved role stays chosen while the list is fetched again (a form action resets
+  // uncontrolled fields to their first value), and follows the list once it arrives.
+  const [role, setRole] = useState(member.role);
+  useEffect(() => setRole(member.role), [member.role]);
+  useEffect(() => {
+    if (state.ok && state.message) onSaved(state);
+    // one notice per answer
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [state]);
   return (
     <form action={action} className="flex items-center gap-1.5">
       <input type="hidden" name="membershipId" value={member.id} />
-      <select name="role" defaultValue={member.role} aria-label={`Role of ${member.email}`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-1.5 py-0.5 text-sm">
+      <select name="role" value={role} onChange={(e) => setRole(e.target.value as TeamMember['role'])} aria-label={`Role of ${member.email}`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-1.5 py-0.5 text-sm">
         {roleOptions.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}
           </option>
         ))}
       </select>
-      <Button type="submit" variant="secondary" disabled={pending} className="px-2 py-0.5 text-xs">
+      <Button type="submit" variant="secondary" disabled={pending || role === member.role} className="px-2 py-0.5 text-xs" aria-label={`Save the role of ${member.email}`}>
         Save
       </Button>
       <ActionError state={state} />
@@ -35,8 +46,13 @@ function RoleCell({ org, member }: { org: string; member: TeamMember }) {
   );
 }
 
-function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
+function RemoveCell({ org, member, onRemoved }: { org: string; member: TeamMember; onRemoved: (state: ActionState) => void }) {
   const { state, action, pending } = useBoundAction(removeMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  useEffect(() => {
+    if (state.ok) onRemoved(state);
+    // one notice per answer
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [state]);
   return (
     <form
       action={action}
@@ -45,7 +61,7 @@ function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
       }}
     >
       <input type="hidden" name="membershipId" value={member.id} />
-      <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
+      <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs" aria-label={`Remove ${member.name} (${member.email})`}>
         Remove
       </Button>
       <ActionError state={state} className="ml-1" />
@@ -68,15 +84,32 @@ function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitati
 export function TeamManager({ org }: { org: string }) {
   const team = useTeam(org);
   const invite = useBoundAction(inviteMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const restore = useBoundAction(restoreMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const show = announce;
+  const restoreForm = useRef<HTMLFormElement>(null);
+  const [restoreId, setRestoreId] = useState('');
+  // The cells report through refs, so the columns (and the table's rows) are not rebuilt on every notice.
+  const report = useRef({ saved: (_: ActionState) => {}, removed: (_: ActionState) => {} });
+  report.current.saved = (state) => show({ ok: state.ok, message: state.message ?? '' });
+  report.current.removed = (state) => {
+    const id = typeof state.data?.undoMembershipId === 'string' ? state.data.undoMembershipId : '';
+    setRestoreId(id);
+    show({ ok: true, message: state.message ?? 'Removed.', undo: id ? { label: 'Undo the removal', run: () => restoreForm.current?.requestSubmit() } : undefined });
+  };
+  useEffect(() => {
+    if (restore.state.message) show({ ok: restore.state.ok, message: restore.state.message });
+    // one notice per answer
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [restore.state]);
 
   const memberColumns = useMemo(() => {
     const col = createColumnHelper<TeamMember>();
     return [
       col.accessor('name', { header: 'Name', cell: (c) => (c.row.original.isYou ? `${c.getValue()} (you)` : c.getValue()) }),
       col.accessor('email', { header: 'E-mail' }),
-      col.accessor('role', { header: 'Role', cell: (c) => <RoleCell org={org} member={c.row.original} /> }),
+      col.accessor('role', { header: 'Role', cell: (c) => <RoleCell org={org} member={c.row.original} onSaved={(state) => report.current.saved(state)} /> }),
       col.accessor('since', { header: 'Member since', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy') }),
-      col.display({ id: 'remove', header: '', cell: (c) => <RemoveCell org={org} member={c.row.original} /> }),
+      col.display({ id: 'remove', header: '', cell: (c) => <RemoveCell org={org} member={c.row.original} onRemoved={(state) => report.current.removed(state)} /> }),
     ];
   }, [org]);
   const invitationColumns = useMemo(() => {
@@ -93,6 +126,9 @@ export function TeamManager({ org }: { org: string }) {
   return (
     <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="flex flex-col gap-5">
+        <form ref={restoreForm} action={restore.action} hidden>
+          <input type="hidden" name="membershipId" value={restoreId} readOnly />
+        </form>
         <Panel title="Members">
           {team.isError ? <p role="alert" className="text-sm text-state-overdue">{team.error.message}</p> : null}
           {team.isLoading ? <p className="text-sm text-ink-faint">Loading…</p> : <DataTable label="Members" data={team.data?.members ?? []} columns={memberColumns} />}

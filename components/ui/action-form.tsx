@@ -15,6 +15,11 @@ interface Options {
   initial?: Record<string, string | undefined>;
   /** Cached queries the action changes: dropped when it succeeds so tables fetch them again. */
   invalidate?: readonly QueryKey[];
+  /**
+   * Re-render the page's server components after a success (default). Off where the service revalidates
+   * the page itself, so the answer already carries the fresh page and it is not rendered twice.
+   */
+  refresh?: boolean;
 }
 
 export interface BoundForm {
@@ -44,9 +49,9 @@ export interface BoundForm {
  * kept after a refusal (the server only sends them back with `ok: false`) and, on success, the
  * cached lists to refresh.
  */
-export function useBoundAction(bound: BoundAction, { initial = {}, invalidate = [] }: Options = {}): BoundForm {
+export function useBoundAction(bound: BoundAction, { initial = {}, invalidate = [], refresh = true }: Options = {}): BoundForm {
   const [state, dispatch, pending] = useActionState(bound, { ok: false });
-  useInvalidateOnSuccess(state, ...invalidate);
+  useInvalidateOnSuccess(state, invalidate, { refresh });
   // Made in the browser (never during the server render, so the page hydrates as rendered); a new one for
   // each answered submit, so a deliberate second submit is a new write.
   const [idempotencyKey, setIdempotencyKey] = useState('');
@@ -68,6 +73,7 @@ interface ActionFormProps extends Omit<React.FormHTMLAttributes<HTMLFormElement>
   form: Pick<BoundForm, 'state' | 'action'> & Partial<Pick<BoundForm, 'idempotencyKey' | 'formAction'>>;
   /** Wraps the message in a div with this class (e.g. a column span in a grid form). */
   messageClassName?: string;
+  ref?: React.Ref<HTMLFormElement>;
 }
 
 /** A form posting to its bound action, with the action's message (role status or alert) first. */

@@ -3,6 +3,8 @@ import { demo, demoUser, signIn } from './helpers';
 import { pdfText } from '../fixtures/pdf-text';
 
 test('an engineer edits a draft, sees the results recomputed, saves; a second engineer approves; a viewer prints the note', async ({ page, browser }) => {
+  // Three sign-ins (each now lands on the fleet overview) and a PDF: more than the default minute on a busy machine.
+  test.setTimeout(120_000);
   await signIn(page, demoUser('engineer').email);
   await page.goto(`/o/${demo.organisation.slug}/designs`);
   await page.getByRole('link', { name: 'Kittiwake Sound: anode design' }).click();
@@ -25,7 +27,7 @@ test('an engineer edits a draft, sees the results recomputed, saves; a second en
   await expect(page.getByText('The area must be more than 0 m².')).toHaveCount(0);
 
   await page.getByRole('button', { name: 'Save draft' }).click();
-  await expect(page.getByText(/Draft saved/)).toBeVisible();
+  await expect(page.getByText(/^Saved: “.+”, \d+ zones?, at \d\d:\d\d/)).toBeVisible();
   const saved = Number(await count.textContent());
   const url = page.url();
 
@@ -39,7 +41,7 @@ test('an engineer edits a draft, sees the results recomputed, saves; a second en
   await expect(checkerPage.getByTestId('anode-count')).toHaveText(String(saved));
   checkerPage.once('dialog', (d) => d.accept());
   await checkerPage.getByRole('button', { name: 'Approve revision' }).click();
-  await expect(checkerPage.getByText('Approved. This revision can no longer change.')).toBeVisible();
+  await expect(checkerPage.getByText(/approved by you\. It can no longer change\.$/)).toBeVisible();
   await checkerPage.reload();
   await expect(checkerPage.getByRole('button', { name: 'Save draft' })).toHaveCount(0);
   await expect(checkerPage.getByRole('button', { name: 'Make a new revision' })).toBeVisible();

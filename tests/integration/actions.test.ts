@@ -25,7 +25,7 @@ import { verifyPassword } from '@/lib/server/auth/password';
 import { getStripe } from '@/lib/server/billing/stripe';
 import { PLANS } from '@/lib/billing/plans';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
-import { createZone } from '@/lib/server/services/register/zones';
+import { archiveZone, createZone } from '@/lib/server/services/register/zones';
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
@@ -37,6 +37,7 @@ import { createDocking } from '@/lib/server/services/planner/dockings';
 import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { approveDesign } from '@/lib/server/services/designs/sign-design';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
+import { removeMember } from '@/lib/server/services/team/remove-member';
 import { signUp } from '@/lib/server/services/accounts/sign-up';
 import { requestPasswordReset } from '@/lib/server/services/accounts/request-password-reset';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, runAs, TEST_PASSWORD, uniqueEmail } from '../fixtures/factories';
@@ -228,7 +229,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'asset:write',
     table: 'zone',
     input: async () => ({ zoneId: (await as('engineer', (c) => createZone(c, fixtures.vessel, { ...zoneFields, name: unique('Short-lived zone') }))).id }),
-    success: { message: /^Zone archived\.$/ },
+    success: { message: /^Zone "Short-lived zone \d+" archived\.$/ },
+  },
+  {
+    module: 'app/o/[org]/assets/actions.ts',
+    name: 'restoreZoneAction',
+    kind: 'form',
+    permission: 'asset:write',
+    table: 'zone',
+    // A zone archived a moment ago, as the Undo button beside the archive's confirmation sends it.
+    input: async () => {
+      const zone = await as('engineer', (c) => createZone(c, fixtures.vessel, { ...zoneFields, name: unique('Archived zone') }));
+      await as('engineer', (c) => archiveZone(c, zone.id));
+      return { zoneId: zone.id };
+    },
+    success: { message: /^Zone "Archived zone \d+" restored\.$/ },
   },
   {
     module: 'app/o/[org]/assets/actions.ts',
@@ -298,7 +313,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'design',
     // The preparer never signs: the design is prepared by someone else than the member who checks it.
     input: async (role) => ({ designId: await designBy(role === 'engineer' ? 'owner' : 'engineer') }),
-    success: { message: /^Signed as checker\.$/ },
+    success: { message: /^Saved: revision \d+ of “.+” signed by you as checker\. It now waits for approval\.$/ },
   },
   {
     module: 'app/o/[org]/designs/actions.ts',
@@ -307,7 +322,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'design:approve',
     table: 'design',
     input: async (role) => ({ designId: await designBy(role === 'engineer' ? 'owner' : 'engineer') }),
-    success: { message: /^Approved\. This revision can no longer change\.$/ },
+    success: { message: /^Saved: revision \d+ of “.+” approved by you\. It can no longer change\.$/ },
   },
   {
     module: 'app/o/[org]/designs/actions.ts',
@@ -502,7 +517,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'team:manage',
     table: 'membership',
     input: async () => ({ membershipId: await addMember('viewer'), role: 'inspector' }),
-    success: { message: /^Role changed\.$/ },
+    success: { message: /^Saved: .+ is now inspector\.$/ },
   },
   {
     module: 'app/o/[org]/team/actions.ts',
@@ -511,7 +526,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'team:manage',
     table: 'membership',
     input: async () => ({ membershipId: await addMember('viewer') }),
-    success: { message: /^Member removed\.$/ },
+    success: { message: /^Removed Extra viewer \(user-\w+@test\.example\)\.$/ },
+  },
+  {
+    module: 'app/o/[org]/team/actions.ts',
+    name: 'restoreMemberAction',
+    kind: 'form',
+    permission: 'team:manage',
+    table: 'membership',
+    // A member removed a moment ago, as the Undo button beside the removal's confirmation sends it.
+    input: async () => {
+      const membershipId = await addMember('viewer');
+      await as('owner', (c) => removeMember(c, { membershipId }));
+      return { membershipId };
+    },
+    success: { message: /^Restored: Extra viewer is a member again, as viewer\.$/ },
   },
   {
     module: 'app/o/[org]/team/actions.ts',
@@ -823,6 +852,24 @@ const PUBLIC_ACTIONS: PublicActionCase[] = [
           const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: user.email, password: TEST_PASSWORD, next: '/o/somewhere/dockings' });
           expect(outcome.redirect).toBe('/o/somewhere/dockings');
           await expectSignedInAs(user.id);
+        },
+      },
+      {
+        title: 'with no page to go back to, a member of exactly one organisation lands in it',
+        run: async () => {
+          await signInAs(null);
+          const { organisation, users } = await makeOrgWithRoles(await getEm(), 'Only Harbour');
+          const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: users.inspector.email, password: TEST_PASSWORD, next: '' });
+          expect(outcome.redirect).toBe(`/o/${organisation.slug}`);
+        },
+      },
+      {
+        title: 'with no page to go back to, a member of no organisation (or of several) lands on the list',
+        run: async () => {
+          await signInAs(null);
+          const user = await makeUser(await getEm());
+          const outcome = await publicAction('app/(auth)/sign-in/actions.ts', 'signInAction', { email: user.email, password: TEST_PASSWORD, next: '' });
+          expect(outcome.redirect).toBe('/orgs');
         },
       },
       {

@@ -31,6 +31,8 @@ import { createAnodeModel, setAnodeModelArchived } from '@/lib/server/services/c
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { changeMemberRole } from '@/lib/server/services/team/change-member-role';
 import { removeMember } from '@/lib/server/services/team/remove-member';
+import { restoreMember } from '@/lib/server/services/team/restore-member';
+import { restoreZone } from '@/lib/server/services/register/restore-zone';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { acceptInvitationAsNewUser, acceptInvitationAsUser } from '@/lib/server/services/team/accept-invitation';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
@@ -148,6 +150,7 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('engineer')((c) => updateZone(c, zoneId, { name: 'Hull bottom', kind: 'hull-bottom', areaM2: 310 + Math.random(), coatingCategory: 'II', waterType: 'seawater', climate: 'temperate', depthBand: '0-30' })));
     const spare = await runAs(member('engineer'), (c) => createZone(c, vesselId, { name: 'Spare zone', kind: 'boot-top-sides', areaM2: 10, coatingCategory: 'II', waterType: 'seawater', climate: 'temperate', depthBand: '0-30' }));
     await expectAllOrNothing(as('engineer')((c) => archiveZone(c, spare.id)));
+    await expectAllOrNothing(as('engineer')((c) => restoreZone(c, spare.id)));
   });
 
   it('anode groups: fit, edit, remove (the renewal recompute rolls back with them)', async () => {
@@ -233,6 +236,7 @@ describe('every write commits as one transaction or not at all', () => {
     });
     const leaverMembership: { id: string }[] = await (await getEm()).execute(`select id from membership where user_id = ?`, [leaver.id]);
     await expectAllOrNothing(as('owner')((c) => removeMember(c, { membershipId: leaverMembership[0].id })));
+    await expectAllOrNothing(as('owner')((c) => restoreMember(c, { membershipId: leaverMembership[0].id })));
     const { invitation } = await runAs(member('owner'), (c) => inviteMember(c, { email: uniqueEmail('withdrawn'), role: 'viewer' }));
     await expectAllOrNothing(as('owner')((c) => revokeInvitation(c, { invitationId: invitation.id })));
     await expectAllOrNothing(as('owner')((c) => updateOrganisationSettings(c, { name: 'All Or Nothing Marine', renewalMarginMonths: 6 + Math.floor(Math.random() * 6), renewalThresholdPercent: 25, fittingRatePerKg: '12', currency: 'EUR' })));

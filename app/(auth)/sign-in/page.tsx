@@ -2,13 +2,15 @@ import type { Metadata } from 'next';
 import { redirect } from 'next/navigation';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { getCurrentUser } from '@/lib/server/auth/session';
-import { safeNextPath } from '@/lib/server/safe-redirect';
+import { getEm } from '@/lib/server/db';
+import { landingPath } from '@/lib/server/services/accounts/landing-path';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
 export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string; reset?: string }> }) {
   const { next, reset } = await searchParams;
-  if (await getCurrentUser()) redirect(safeNextPath(next));
+  const current = await getCurrentUser();
+  if (current) redirect(await landingPath(await getEm(), current.id, next));
   return (
     <>
       <h1 className="mb-4 text-xl font-semibold">Sign in</h1>

@@ -5,6 +5,8 @@ import { Caution, PageHeader, Panel } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { FleetTable } from '@/components/register/fleet-table';
 import { AssetForm } from '@/components/register/asset-form';
+import { FirstRunGuide } from '@/components/onboarding/first-run-guide';
+import { getFirstRun } from '@/lib/server/services/onboarding/get-first-run';
 
 export const metadata: Metadata = { title: 'Fleet overview' };
 
@@ -12,6 +14,8 @@ export default async function FleetOverviewPage({ params }: { params: Promise<{ 
   const { org } = await params;
   const ctx = await getPageOrgContext(org);
   const canWrite = allowed(ctx, 'asset:write');
+  // The guide is for those who can do its steps; it reads the organisation's records each time.
+  const firstRun = canWrite || allowed(ctx, 'design:write') ? await getFirstRun(ctx) : null;
   return (
     <>
       <PageHeader
@@ -20,8 +24,9 @@ export default async function FleetOverviewPage({ params }: { params: Promise<{ 
         actions={<ButtonLink href={`/o/${org}/register`} variant="secondary">Anode register</ButtonLink>}
       />
       <div className="flex flex-col gap-4">
+        {firstRun ? <FirstRunGuide org={org} progress={firstRun} /> : null}
         {canWrite ? (
-          <details className="rounded-[4px] border border-rule bg-paper-raised">
+          <details id="add-asset" open={firstRun ? !firstRun.done.asset : undefined} className="rounded-[4px] border border-rule bg-paper-raised">
             <summary className="cursor-pointer px-4 py-2.5 text-sm font-semibold text-tide-700">Add a vessel or structure</summary>
             <div className="max-w-2xl px-4 pb-4">
               <AssetForm org={org} />

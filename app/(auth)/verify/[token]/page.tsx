@@ -9,8 +9,8 @@ export default async function VerifyPage({ params }: { params: Promise<{ token: 
   return (
     <>
       <h1 className="mb-2 text-xl font-semibold">Confirm your e-mail address</h1>
-      <p className="mb-4 text-sm text-ink-soft">One click finishes setting up your account.</p>
-      <TokenConfirmForm token={token} label="Confirm my e-mail address" action={verifyEmailAction} />
+      <p className="mb-4 text-sm text-ink-soft">Opening the link confirms it; if nothing happens, press the button.</p>
+      <TokenConfirmForm token={token} label="Confirm my e-mail address" action={verifyEmailAction} submitOnOpen />
     </>
   );
 }

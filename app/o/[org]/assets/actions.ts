@@ -4,6 +4,7 @@ import { orgAction, formId, formObject } from '@/lib/server/action';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { setAssetArchived, updateAsset } from '@/lib/server/services/assets/update-asset';
 import { archiveZone, createZone, updateZone } from '@/lib/server/services/register/zones';
+import { restoreZone } from '@/lib/server/services/register/restore-zone';
 import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 
 const assetInput = (formData: FormData) => ({ ...formObject(formData), hasImpressedCurrent: formData.get('hasImpressedCurrent') === 'on' });
@@ -42,7 +43,13 @@ export const updateZoneAction = orgAction('asset:write', async (ctx, formData) =
 export const archiveZoneAction = orgAction('asset:write', async (ctx, formData) => {
   const zone = await archiveZone(ctx, formId(formData, 'zoneId'));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${zone.asset.id}`);
-  return { ok: true, message: 'Zone archived.' };
+  return { ok: true, message: `Zone "${zone.name}" archived.`, data: { undoZoneId: zone.id } };
+});
+
+/** Undo of "Archive" beside a zone, a moment ago (restoreZone). */
+export const restoreZoneAction = orgAction('asset:write', async (ctx, formData) => {
+  const { zone } = await restoreZone(ctx, formId(formData, 'zoneId'));
+  return { ok: true, message: `Zone "${zone.name}" restored.` };
 });
 
 export const createAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {

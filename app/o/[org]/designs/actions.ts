@@ -30,13 +30,13 @@ export const saveDesignAction = orgJsonAction('design:write', async (ctx, input)
 
 
 export const checkDesignAction = orgAction('design:write', async (ctx, formData) => {
-  await checkDesign(ctx, formId(formData, 'designId'));
-  return { ok: true, message: 'Signed as checker.' };
+  const design = await checkDesign(ctx, formId(formData, 'designId'));
+  return { ok: true, message: `Saved: revision ${design.revision} of “${design.title}” signed by you as checker. It now waits for approval.` };
 });
 
 export const approveDesignAction = orgAction('design:approve', async (ctx, formData) => {
-  await approveDesign(ctx, formId(formData, 'designId'));
-  return { ok: true, message: 'Approved. This revision can no longer change.' };
+  const design = await approveDesign(ctx, formId(formData, 'designId'));
+  return { ok: true, message: `Saved: revision ${design.revision} of “${design.title}” approved by you. It can no longer change.` };
 });
 
 export const newRevisionAction = orgAction('design:write', async (ctx, formData) => {

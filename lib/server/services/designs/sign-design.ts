@@ -20,6 +20,12 @@ async function assertSignable(ctx: OrgContext, design: Awaited<ReturnType<typeof
   }
 }
 
+/** The revision's page and the desk's list show the new status at once (no reload). */
+function revalidateDesign(ctx: OrgContext, designId: string) {
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/designs/${designId}`);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/designs`);
+}
+
 /** The checker's signature: any engineer other than the preparer. */
 export async function checkDesign(ctx: OrgContext, designId: string) {
   requirePermission(ctx, 'design:write');
@@ -29,6 +35,7 @@ export async function checkDesign(ctx: OrgContext, designId: string) {
   design.checkedBy = ctx.em.getReference(UserSchema, ctx.user.id);
   design.checkedAt = new Date();
   audit(ctx, { action: 'design.checked', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
+  revalidateDesign(ctx, design.id);
   return design;
 }
 
@@ -46,5 +53,6 @@ export async function approveDesign(ctx: OrgContext, designId: string) {
   design.approvedBy = ctx.em.getReference(UserSchema, ctx.user.id);
   design.approvedAt = now;
   audit(ctx, { action: 'design.approved', targetType: 'design', targetId: design.id, details: { revision: design.revision, asset: design.asset.name } });
+  revalidateDesign(ctx, design.id);
   return design;
 }

@@ -11,6 +11,8 @@ export async function removeMember(ctx: OrgContext, input: unknown) {
   const membership = await ctx.em.findOne(MembershipSchema, { id: membershipId, organisation: ctx.organisation }, { populate: ['user'] });
   if (!membership) throw notFound('Member');
   await assertNotLastOwner(ctx, membership);
-  audit(ctx, { action: 'member.removed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, role: membership.role } });
+  audit(ctx, { action: 'member.removed', targetType: 'membership', targetId: membership.id, details: { email: membership.user.email, userId: membership.user.id, role: membership.role } });
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/team`);
   ctx.em.remove(membership);
+  return { id: membership.id, name: membership.user.name, email: membership.user.email };
 }

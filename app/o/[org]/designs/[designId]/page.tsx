@@ -101,7 +101,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
         </p>
       ) : null}
       <DesignDesk
-        key={design.updatedAt.toISOString()}
+        key={`${design.id}:${design.status}`}
         org={org}
         designId={design.id}
         initialTitle={design.title}

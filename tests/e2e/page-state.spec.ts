@@ -1,0 +1,216 @@
+import { expect, test, type Page } from '@playwright/test';
+import { demo, demoUser, linkFromInbox, signIn, uniqueEmail } from './helpers';
+
+// Honest page state: what an action changed shows at once (no reload), what was saved is said, a removal
+// can be undone for a few seconds, the desk asks before unsaved work is left; and a new organisation is
+// guided from its first sign-in.
+
+const checkerEmail = () => demoUser('engineer').email.replace('engineer@', 'checker@');
+
+/** A fresh draft on the first asset the desk offers, prepared by whoever is signed in on `page`. */
+async function openFreshDraft(page: Page, title: string) {
+  await page.goto(`/o/${demo.organisation.slug}/designs`);
+  await page.getByLabel('Design title (optional)').fill(title);
+  await page.getByRole('button', { name: 'Open a new design' }).click();
+  await expect(page.getByRole('heading', { name: new RegExp(title) })).toBeVisible();
+  return page.url();
+}
+
+test('a checker signs and an engineer approves: each sees the new state without reloading', async ({ page, browser }) => {
+  // Three people sign in and the desk recomputes for each: more than the default minute on a busy machine.
+  test.setTimeout(120_000);
+  await signIn(page, demoUser('engineer').email);
+  const url = await openFreshDraft(page, `State check ${Date.now()}`);
+  await expect(page.getByRole('heading').getByText('Draft', { exact: true })).toBeVisible();
+
+  const checker = await browser.newContext();
+  const checkerPage = await checker.newPage();
+  await signIn(checkerPage, checkerEmail());
+  await checkerPage.goto(url);
+  await checkerPage.getByRole('button', { name: 'Sign as checker' }).click();
+  // No reload: the badge, the revision block and the buttons follow at once.
+  await expect(checkerPage.getByText(/signed by you as checker\. It now waits for approval\.$/)).toBeVisible();
+  await expect(checkerPage.getByRole('heading').getByText('Checked', { exact: true })).toBeVisible();
+  await expect(checkerPage.getByRole('table', { name: 'Revision block' })).toContainText('Ilse Varga');
+  await expect(checkerPage.getByRole('button', { name: 'Sign as checker' })).toHaveCount(0);
+  await checker.close();
+
+  // The preparer may not approve; the owner (another engineer's signature) does, from a page opened before.
+  const owner = await browser.newContext();
+  const ownerPage = await owner.newPage();
+  await signIn(ownerPage, demoUser('owner').email);
+  await ownerPage.goto(url);
+  await expect(ownerPage.getByRole('button', { name: 'Save draft' })).toBeVisible();
+  ownerPage.once('dialog', (d) => d.accept());
+  await ownerPage.getByRole('button', { name: 'Approve revision' }).click();
+  await expect(ownerPage.getByText(/approved by you\. It can no longer change\.$/)).toBeVisible();
+  await expect(ownerPage.getByRole('heading').getByText('Approved', { exact: true })).toBeVisible();
+  // Read-only at once: no title field, no save button, every desk input disabled; the fit panel appears.
+  await expect(ownerPage.getByRole('button', { name: 'Save draft' })).toHaveCount(0);
+  await expect(ownerPage.getByLabel('Design title')).toHaveCount(0);
+  await expect(ownerPage.getByRole('listitem', { name: 'Zone 1' }).getByLabel('Area')).toBeDisabled();
+  await expect(ownerPage.getByRole('button', { name: 'Approve revision' })).toHaveCount(0);
+  await expect(ownerPage.getByRole('heading', { name: 'Fit this design' })).toBeVisible();
+  await owner.close();
+});
+
+test("the desk asks before unsaved changes are left by a link, and a removed zone can be put back", async ({ page }) => {
+  await signIn(page, demoUser('engineer').email);
+  const url = await openFreshDraft(page, `State guard ${Date.now()}`);
+  const zones = page.getByRole('listitem', { name: /^Zone \d+$/ });
+  const before = await zones.count();
+  expect(before).toBeGreaterThan(1);
+
+  // Remove the first zone: the confirmation names it and offers Undo; Undo brings it back.
+  const firstName = await page.getByRole('listitem', { name: 'Zone 1' }).getByLabel('Zone name').inputValue();
+  await page.getByRole('button', { name: `Remove zone ${firstName}` }).click();
+  await expect(zones).toHaveCount(before - 1);
+  await expect(page.getByTestId('notice')).toContainText(`Removed zone “${firstName}” (not saved yet).`);
+  await page.getByRole('button', { name: /^Undo: put zone .+ back/ }).click();
+  await expect(zones).toHaveCount(before);
+  await expect(page.getByRole('listitem', { name: 'Zone 1' }).getByLabel('Zone name')).toHaveValue(firstName);
+
+  // Unsaved: a sidebar link asks; "stay" keeps the page and the edits.
+  await expect(page.getByText('Unsaved changes')).toBeVisible();
+  let asked = '';
+  page.once('dialog', (d) => {
+    asked = d.message();
+    void d.dismiss();
+  });
+  await page.getByRole('link', { name: 'Fleet overview' }).click();
+  await expect.poll(() => asked).toContain('unsaved changes');
+  expect(page.url()).toBe(url);
+  await expect(page.getByText('Unsaved changes')).toBeVisible();
+
+  // Saved: the confirmation says what was saved, and the link no longer asks.
+  await page.getByRole('button', { name: 'Save draft' }).click();
+  await expect(page.getByText(/^Saved: “State guard \d+”, \d+ zones, at \d\d:\d\d/)).toBeVisible();
+  let askedAgain = false;
+  page.on('dialog', (d) => {
+    askedAgain = true;
+    void d.dismiss();
+  });
+  await page.getByRole('link', { name: 'Fleet overview' }).click();
+  await expect(page).toHaveURL(new RegExp(`/o/${demo.organisation.slug}$`));
+  expect(askedAgain).toBe(false);
+});
+
+test('a saved role change stays chosen; a removed member can be restored with Undo', async ({ page }) => {
+  const viewer = demoUser('viewer');
+  await signIn(page, demoUser('owner').email);
+  await page.goto(`/o/${demo.organisation.slug}/team`);
+  const members = page.getByRole('table', { name: 'Members' });
+  const role = page.getByRole('combobox', { name: `Role of ${viewer.email}` });
+  await expect(role).toHaveValue('viewer');
+
+  await role.selectOption('inspector');
+  await page.getByRole('button', { name: `Save the role of ${viewer.email}` }).click();
+  await expect(page.getByRole('status').filter({ hasText: `Saved: ${viewer.name} is now inspector.` })).toBeVisible();
+  // It stays (the list is fetched again, and the select follows it) and is still there after a reload.
+  await expect(role).toHaveValue('inspector');
+  await page.waitForTimeout(1500);
+  await expect(role).toHaveValue('inspector');
+  await page.reload();
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('inspector');
+  // Back as it was, for the other journeys.
+  await page.getByRole('combobox', { name: `Role of ${viewer.email}` }).selectOption('viewer');
+  await page.getByRole('button', { name: `Save the role of ${viewer.email}` }).click();
+  await expect(page.getByRole('status').filter({ hasText: `Saved: ${viewer.name} is now viewer.` })).toBeVisible();
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('viewer');
+
+  // Remove, then Undo within the few seconds offered: the same member comes back in the same role.
+  page.once('dialog', (d) => d.accept());
+  await page.getByRole('button', { name: `Remove ${viewer.name} (${viewer.email})` }).click();
+  await expect(page.getByTestId('notice')).toContainText(`Removed ${viewer.name} (${viewer.email}).`);
+  await expect(members).not.toContainText(viewer.email);
+  await page.getByRole('button', { name: /^Undo the removal/ }).click();
+  await expect(page.getByTestId('notice')).toContainText(`Restored: ${viewer.name} is a member again, as viewer.`);
+  await expect(members).toContainText(viewer.email);
+  await expect(page.getByRole('combobox', { name: `Role of ${viewer.email}` })).toHaveValue('viewer');
+});
+
+test('a new owner confirms the e-mail in one click, is guided through the first steps, and later signs straight into the organisation', async ({ page }) => {
+  const email = uniqueEmail('firstrun');
+  const password = 'tide-gauge-zinc-41';
+  await page.goto('/sign-up');
+  await page.getByLabel('Your name').fill('Noor Halyard');
+  await page.getByLabel('Work e-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Create account' }).click();
+  await expect(page.getByText(`Check your e-mail: we sent a message to ${email}.`)).toBeVisible();
+
+  // Opening the link is enough: no button to press.
+  await page.goto(await linkFromInbox(page, email, /Confirm your e-mail/));
+  await expect(page.getByText('your e-mail address is confirmed')).toBeVisible();
+
+  const orgName = `Saltmere Quay Works ${Date.now().toString(36)}`;
+  await page.getByLabel('Organisation name').fill(orgName);
+  await page.getByRole('button', { name: 'Create organisation' }).click();
+  await expect(page).toHaveURL(/\/o\/saltmere-quay-works/);
+  const fleet = page.url();
+
+  const guide = page.getByRole('region', { name: /Getting started/ });
+  await expect(guide).toContainText('4 steps to go');
+  const step = (key: string) => guide.locator(`li[data-step="${key}"]`);
+  for (const key of ['asset', 'design', 'fit', 'docking']) await expect(step(key)).toHaveAttribute('data-done', 'no');
+
+  // Step 1 from the guide: the form is open for an empty organisation.
+  await guide.getByRole('link', { name: /Add one below/ }).click();
+  await page.getByLabel('Kind').selectOption({ label: 'Vessel' });
+  await page.getByLabel('Name', { exact: true }).fill('Brinewick Tender');
+  await page.getByLabel('Vessel type', { exact: true }).fill('Workboat');
+  await page.getByLabel('Length between perpendiculars', { exact: true }).fill('28');
+  await page.getByLabel('Beam', { exact: true }).fill('8');
+  await page.getByLabel('Draught', { exact: true }).fill('2.4');
+  await page.getByLabel('Block coefficient', { exact: true }).fill('0.55');
+  await page.getByRole('button', { name: 'Add the asset' }).click();
+  await expect(page).toHaveURL(/\/assets\//);
+
+  // On its page: a zone archived by mistake comes back with Undo, from the page's notice.
+  await page.getByText('Add a zone', { exact: true }).click();
+  await page.getByLabel('Zone name').last().fill('Flat bottom');
+  await page.getByLabel('Wetted area').last().fill('140');
+  await page.getByRole('button', { name: 'Add zone' }).click();
+  const zoneRows = page.getByRole('table', { name: 'Zones' }).getByRole('row').filter({ hasText: 'Flat bottom' });
+  await expect(zoneRows).toHaveCount(1);
+  page.once('dialog', (d) => d.accept());
+  await zoneRows.getByRole('button', { name: 'Archive' }).click();
+  await expect(page.getByTestId('notice')).toContainText('Zone "Flat bottom" archived.');
+  await expect(zoneRows).toHaveCount(0);
+  await page.getByRole('button', { name: /^Undo: restore the zone Flat bottom/ }).click();
+  await expect(page.getByTestId('notice')).toContainText('Zone "Flat bottom" restored.');
+  await expect(zoneRows).toHaveCount(1);
+
+  await page.goto(fleet);
+  await expect(guide).toContainText('3 steps to go');
+  await expect(step('asset')).toHaveAttribute('data-done', 'yes');
+  await expect(step('asset')).toContainText('Done');
+  await expect(step('design')).toHaveAttribute('data-done', 'no');
+  await expect(guide.getByRole('link', { name: /Open the design desk/ })).toHaveAttribute('href', /\/designs$/);
+
+  // Signing in again with one organisation goes straight into it, not to the list.
+  await page.context().clearCookies();
+  await signIn(page, email, password);
+  await expect(page).toHaveURL(fleet);
+});
+
+test("Tidewarden's own icons and social image are served to anyone and named in every page's head", async ({ page, request }) => {
+  for (const [path, type] of [
+    ['/favicon.ico', /image\/(x-icon|vnd\.microsoft\.icon)/],
+    ['/icon.svg', /image\/svg\+xml/],
+    ['/icon-192.png', /image\/png/],
+    ['/icon-512.png', /image\/png/],
+    ['/apple-touch-icon.png', /image\/png/],
+    ['/og-image.png', /image\/png/],
+    ['/manifest.webmanifest', /application\/manifest\+json|application\/json/],
+  ] as const) {
+    // Not signed in: no redirect to the sign-in page.
+    const response = await request.get(path, { maxRedirects: 0 });
+    expect(response.status(), path).toBe(200);
+    expect(response.headers()['content-type'], path).toMatch(type);
+  }
+  await page.goto('/sign-in');
+  await expect(page.locator('link[rel="icon"][href^="/favicon.ico"]')).toHaveCount(1);
+  await expect(page.locator('link[rel="apple-touch-icon"]')).toHaveAttribute('href', /\/apple-touch-icon\.png/);
+  await expect(page.locator('meta[property="og:image"]')).toHaveAttribute('content', /\/og-image\.png$/);
+});
