@@ -3,7 +3,7 @@ import { ALLOYS } from '@/lib/cp/tables/alloys';
 import { utilisationFactorFor } from '@/lib/cp/lookups';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { DeskState, Update } from './desk-state';
 

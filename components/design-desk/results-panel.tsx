@@ -1,6 +1,6 @@
 'use client';
 import { INFORMATION_NOTICE_CODES } from '@/lib/design/build-design-input';
-import { CRITERION_LABELS, BASIS_FLAG_WORDS } from '@/lib/design/labels';
+import { CRITERION_LABELS, BASIS_FLAG_WORDS } from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
 import type { DeskComputed } from '@/lib/client/desk-calculation';

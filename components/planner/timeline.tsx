@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
+import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/labels';
 import type { PlannerDocking, PlannerNeedsDocking } from '@/lib/server/services/planner/planner-view';
 
 interface Props {

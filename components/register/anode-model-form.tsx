@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { createAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
 
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));

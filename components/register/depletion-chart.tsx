@@ -1,5 +1,5 @@
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from '@/lib/labels';
 
 export type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';

@@ -2,7 +2,7 @@
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
+import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/labels';
 import { archiveZoneAction, createZoneAction, updateZoneAction } from '@/app/o/[org]/assets/actions';
 
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));

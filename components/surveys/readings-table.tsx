@@ -6,7 +6,7 @@ import { StatusTag } from '@/components/ui/panel';
 import { Button } from '@/components/ui/button';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
-import { REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
+import { REMAINING_STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { deleteReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';

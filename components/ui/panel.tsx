@@ -1,4 +1,4 @@
-import { CAUTION_SENTENCE } from '@/lib/words/caution';
+import { CAUTION_SENTENCE } from '@/lib/labels';
 
 export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
   return (

@@ -5,7 +5,7 @@
  * single source (design-basis.md, Ship hulls, placement notes). No acceptance value is
  * invented: where a limit is needed the note points to the approved procedure.
  */
-import type { AnodeListOccasion } from './words';
+import type { AnodeListOccasion } from '@/lib/labels/anode-list';
 
 /** Which lines a note is about (its `work` says at which kind of docking or campaign). */
 export type FittingNoteScope = 'all' | 'welded' | 'bolted' | 'vessel';

@@ -1,7 +1,7 @@
 import { addMonthsUTC, dayNumberUTC } from './dates';
 import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
-import { forecastDateWords } from './labels';
+import { forecastDateWords } from '@/lib/labels/forecast';
 import { date, list, record, text, whole } from './validate';
 
 /**

@@ -1,6 +1,7 @@
 import { format } from 'date-fns';
 import { anodeFromModel, HIGH_SPEED_FACTOR, HIGH_SPEED_KNOTS, type DesignAnode } from '@/lib/cp';
-import { AREA_SOURCE_WORDS, DEMAND_METHOD_SOURCES, zoneDemand } from '@/lib/design/build-design-input';
+import { DEMAND_METHOD_SOURCES, zoneDemand } from '@/lib/design/build-design-input';
+import { AREA_SOURCE_WORDS } from '@/lib/labels';
 import {
   ALLOY_LABELS,
   CLIMATE_LABELS,
@@ -16,7 +17,7 @@ import {
   STATUS_LABELS,
   WATER_LABELS,
   ZONE_KIND_LABELS,
-} from '@/lib/design/labels';
+} from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import type { AnodeModelSnapshot, StoredDesignResult, StoredInputs } from '@/lib/schemas/design-record';
 

@@ -5,7 +5,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getPlannerView } from '@/lib/server/services/planner/planner-view';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
+import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';

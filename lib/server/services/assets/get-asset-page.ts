@@ -1,6 +1,6 @@
 import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/words/renewal-rule';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/labels';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';

@@ -2,7 +2,7 @@ import { format } from 'date-fns';
 import { AnodeGroupSchema, AnodeModelSchema } from '@/entities';
 import { buildAnodeList, anodeListCsv, type AnodeListDimensions, type AnodeListInput } from '@/lib/anode-list';
 import { BUILTIN_ANODE_MODELS } from '@/lib/cp';
-import { ROLE_LABELS } from '@/lib/roles';
+import { ROLE_LABELS } from '@/lib/labels';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';

@@ -1,8 +1,8 @@
 import { RenewalSchema } from '@/entities';
 import { proposeNextDockings, type RenewalProposal } from '@/lib/forecast';
 import { toDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
-import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence, type RenewalPlanSummary } from '@/lib/words/renewal-rule';
+import { forecastDateWords } from '@/lib/labels';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence, type RenewalPlanSummary } from '@/lib/labels';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, renewalMarginMonths, renewalRuleOf, type AssetPlan } from './compute-plans';

@@ -6,10 +6,10 @@ import { anodeListFor, anodeListPdf } from '../planner/anode-list';
 import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
 import { formatDateOnly, parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from '@/lib/labels';
 import type { AnodeList } from '@/lib/anode-list';
 import type { GroupWithForecast } from '../forecast/group-forecasts';
-import { renewalRuleSentence } from '@/lib/words/renewal-rule';
+import { renewalRuleSentence } from '@/lib/labels';
 import { renewalRuleOf } from '../planner/compute-plans';
 
 /** Reminders go 90 and 30 days before a planned docking (the yard needs the anode list to order). */

@@ -7,7 +7,7 @@ import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
 import { OUTLOOK_WORDS, type AssetPlan } from '../planner/compute-plans';
 import { formatDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from '@/lib/labels';
 
 /** The earliest renew-by date of the asset's groups with a renewal to book or booked, or null. */
 function firstRenewBy(plan: AssetPlan): Date | null {

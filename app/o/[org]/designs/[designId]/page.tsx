@@ -5,7 +5,7 @@ import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { getDesignDesk, type DesignDesk as DesignDeskView } from '@/lib/server/services/designs/design-view';
-import { STATUS_LABELS } from '@/lib/design/labels';
+import { STATUS_LABELS } from '@/lib/labels';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { DesignDesk } from '@/components/design-desk/design-desk';

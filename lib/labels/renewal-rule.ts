@@ -1,4 +1,4 @@
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from './forecast';
 import { formatDateOnly } from '@/lib/dates/date-only';
 
 /**

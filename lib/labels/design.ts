@@ -1,4 +1,4 @@
-// Words for the desk's choices; the trade's own terms.
+// Words for the desk's choices; the trade's own terms (safe for client code).
 export const ZONE_KIND_LABELS: Record<string, string> = {
   'hull-bottom': 'Hull bottom',
   'boot-top-sides': 'Boot-top and sides',
@@ -75,9 +75,50 @@ export const METAL_LABELS: Record<string, string> = {
 };
 export const WATER_LABELS: Record<string, string> = { seawater: 'Seawater', brackish: 'Brackish', fresh: 'Fresh water' };
 export const STATUS_LABELS: Record<string, string> = { draft: 'Draft', checked: 'Checked', approved: 'Approved' };
-/** How a basis entry was obtained, in the words a reader needs. */
-export const BASIS_FLAG_WORDS: Record<string, string> = {
+/** How a basis entry was obtained, in the words a reader needs (screens and the calculation note). */
+export const BASIS_FLAG_WORDS: Record<'published' | 'memory' | 'practice', string> = {
   published: 'published',
   memory: 'to be confirmed against the licensed edition',
   practice: 'common practice',
 };
+
+/** What current-draining metal a zone touches (the zone form and the note). */
+export const CURRENT_DRAIN_LABELS: Record<string, string> = { 'copper-alloy': 'Copper alloy', stainless: 'Stainless steel' };
+
+/**
+ * The anode resistance formulas: one name each, the same on the desk, in the calculation note and in the
+ * catalogue. The slender-anode formula is named as DNV-RP-B401 (2010) Table 10-7 names it (modified Dwight).
+ */
+export const RESISTANCE_FORMULA_LABELS: Record<string, string> = {
+  'modified-dwight': 'Modified Dwight (long slender stand-off)',
+  'short-slender': 'Short slender stand-off',
+  'long-flush': 'Long flush',
+  mccoy: 'McCoy (short flush and bracelet)',
+};
+
+/** The shape an anode model is sized as, which chooses its resistance formula (catalogue and note). */
+export const SHAPE_KIND_LABELS: Record<string, string> = {
+  'slender-standoff': 'Slender, on stand-off legs',
+  'long-flush': 'Long flush plate',
+  'short-flush': 'Short flush plate',
+  bracelet: 'Bracelet (half-shells)',
+};
+
+/** How the sizing treated an anode that sits between two formulas' ranges (a clause after the formula). */
+export const RESISTANCE_TREATMENT_WORDS: Record<string, string> = {
+  'as-given': '',
+  'near-flush-slender': '; slender anode below 0.15 m stand-off taken as flush-mounted',
+  'short-flush-fallback': '; flush plate outside the long-flush limits taken by McCoy',
+};
+
+/** Where a zone's area comes from, in words. */
+export const AREA_SOURCE_WORDS: Record<string, string> = {
+  entered: 'entered',
+  'denny-mumford': 'estimated, Denny-Mumford S = L(1.7T + CB·B)',
+  'denny-mumford-default-cb': 'estimated, Denny-Mumford with the default block coefficient for the vessel type',
+  estimate: 'estimated by rule of thumb',
+  placeholder: 'placeholder: enter the particulars or the area',
+};
+
+/** Where a catalogue model comes from. */
+export const MODEL_SOURCE_LABELS: Record<string, string> = { 'built-in': 'Built-in', organisation: 'Our catalogue' };
