@@ -21,7 +21,7 @@ import {
   type DesignJob,
 } from '@/lib/cp';
 import type { DeskInputs, DeskSurface } from '@/lib/schemas/design';
-import { AREA_SOURCE_WORDS } from '@/lib/labels/design';
+import { AREA_SOURCE_WORDS, METAL_WORDS } from '@/lib/labels/design';
 
 export interface DeskNotice {
   code: string;
@@ -149,7 +149,7 @@ export function resolveEnvironment(inputs: DeskInputs): ResolvedEnvironment {
   let potentialSource = 'entered';
   if (inputs.potentialSource === 'criterion') {
     protectivePotentialV = protectionCriterionV({ protectedMetal: inputs.protectedMetal, environment: { water: inputs.water, anaerobic: inputs.anaerobic } });
-    potentialSource = inputs.anaerobic && (inputs.protectedMetal === 'steel' || inputs.protectedMetal === 'high-strength-steel') ? 'criterion for anaerobic steel (sulphate-reducing bacteria)' : `criterion for ${inputs.protectedMetal}`;
+    potentialSource = inputs.anaerobic && (inputs.protectedMetal === 'steel' || inputs.protectedMetal === 'high-strength-steel') ? 'criterion for anaerobic steel (sulphate-reducing bacteria)' : `criterion for ${METAL_WORDS[inputs.protectedMetal] ?? 'the metal'}`;
   }
   return { resistivityOhmM, resistivitySource, protectivePotentialV, potentialSource };
 }

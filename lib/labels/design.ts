@@ -73,6 +73,15 @@ export const METAL_LABELS: Record<string, string> = {
   stainless: 'Stainless steel',
   'copper-alloy': 'Copper alloy',
 };
+/** The protected metal inside a sentence: "the criterion for high-strength steel". */
+export const METAL_WORDS: Readonly<Record<string, string>> = {
+  steel: 'steel',
+  'high-strength-steel': 'high-strength steel',
+  aluminium: 'aluminium',
+  stainless: 'stainless steel',
+  'copper-alloy': 'copper alloy',
+};
+
 export const WATER_LABELS: Record<string, string> = { seawater: 'Seawater', brackish: 'Brackish', fresh: 'Fresh water' };
 export const STATUS_LABELS: Record<string, string> = { draft: 'Draft', checked: 'Checked', approved: 'Approved' };
 /** How a basis entry was obtained, in the words a reader needs (screens and the calculation note). */

@@ -38,3 +38,9 @@ export const REMAINING_STATUS_LABELS: Readonly<Record<RemainingStatus, string>> 
   'renew-soon': 'Renew soon',
   renew: 'Renew',
 };
+
+/** The electrode inside a sentence: "against zinc", "against Ag/AgCl/seawater" (symbols keep their capitals). */
+export function electrodeWords(electrode: string): string {
+  const label = ELECTRODE_LABELS[electrode] ?? 'an unnamed electrode';
+  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+}

@@ -14,6 +14,7 @@
  * - stainless -0.75 V and copper alloys (bronze) -0.55 V minimum, no limit in the basis (published, trade).
  */
 import { POTENTIAL_STATUS_LABELS } from '@/lib/labels/surveys';
+import { METAL_WORDS as METAL_NAMES } from '@/lib/labels/design';
 import { CpInputError, MINIMUM_PROTECTION_POTENTIAL, OVER_PROTECTION_LIMIT, protectionCriterionV, type Flag, type ProtectedMetal } from '@/lib/cp';
 
 export type PotentialStatus = 'under-protected' | 'protected' | 'over-protected';
@@ -53,13 +54,6 @@ export interface PotentialClassification {
 }
 
 
-const METAL_NAMES: Readonly<Record<ProtectedMetal, string>> = {
-  steel: 'steel',
-  'high-strength-steel': 'high-strength steel',
-  aluminium: 'aluminium',
-  stainless: 'stainless steel',
-  'copper-alloy': 'copper alloy',
-};
 
 /** What over-protection does to each metal (or its coating). */
 const OVER_PROTECTION_HARM: Readonly<Record<ProtectedMetal, string>> = {
