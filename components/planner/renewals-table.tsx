@@ -11,9 +11,10 @@ import { fmt } from '@/lib/format';
 import { todayDateOnly } from '@/lib/dates/date-only';
 import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-renewals';
 import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
+import { RENEWAL_STATUS_LABELS } from '@/lib/labels';
 
 const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
-const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted', cancelled: 'Cancelled' };
+const STATUS_WORDS = RENEWAL_STATUS_LABELS;
 
 function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
   const { state, action, pending } = useBoundAction(renewalStepAction.bind(null, org), { invalidate: [queryKeys.dockingRenewals(org, dockingId)] });

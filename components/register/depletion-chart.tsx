@@ -102,7 +102,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
             {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
-        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × utilisation factor reached ({forecastDateWords('endOfLife')}) · dashed brass lines: dockings</span>
+        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} · dashed brass lines: dockings</span>
       </figcaption>
     </figure>
   );

@@ -113,6 +113,14 @@ export const SHAPE_KIND_LABELS: Record<string, string> = {
   bracelet: 'Bracelet (half-shells)',
 };
 
+/** The catalogue's shape choice, named with the formula it selects (one name per formula). */
+export const SHAPE_FORMULA_OPTIONS: { value: string; label: string }[] = [
+  { value: 'slender-standoff', label: `${SHAPE_KIND_LABELS['slender-standoff']}: ${RESISTANCE_FORMULA_LABELS['modified-dwight']}` },
+  { value: 'long-flush', label: `${SHAPE_KIND_LABELS['long-flush']}, L ≥ 4 × width: ${RESISTANCE_FORMULA_LABELS['long-flush']}` },
+  { value: 'short-flush', label: `${SHAPE_KIND_LABELS['short-flush']}: ${RESISTANCE_FORMULA_LABELS.mccoy}` },
+  { value: 'bracelet', label: `${SHAPE_KIND_LABELS.bracelet}: ${RESISTANCE_FORMULA_LABELS.mccoy}` },
+];
+
 /** How the sizing treated an anode that sits between two formulas' ranges (a clause after the formula). */
 export const RESISTANCE_TREATMENT_WORDS: Record<string, string> = {
   'as-given': '',
