@@ -125,7 +125,7 @@ export const SHAPE_FORMULA_OPTIONS: { value: string; label: string }[] = [
 export const RESISTANCE_TREATMENT_WORDS: Record<string, string> = {
   'as-given': '',
   'near-flush-slender': '; slender anode below 0.15 m stand-off taken as flush-mounted',
-  'short-flush-fallback': '; flush plate outside the long-flush limits taken by McCoy',
+  'short-flush-fallback': '; flush plate outside the limits of the long flush formula taken by McCoy',
 };
 
 /** Where a zone's area comes from, in words. */

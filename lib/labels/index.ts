@@ -14,6 +14,7 @@
  * - roles          the roles and what each may do
  * - billing        subscription and invoice statuses
  * - units          unit symbols
+ * - text           inSentence: a label inside a sentence
  * - caution, mail-delivery, renewal-rule: sentences several screens share
  */
 export * from './design';
@@ -26,6 +27,7 @@ export * from './anode-list';
 export * from './roles';
 export * from './billing';
 export * from './units';
+export * from './text';
 export * from './caution';
 export * from './mail-delivery';
 export * from './renewal-rule';

@@ -1,4 +1,5 @@
 import type { PotentialStatus, RemainingStatus } from '@/lib/surveys/criteria';
+import { inSentence } from './text';
 
 /** Words for surveys and readings (safe for client code). */
 export const SURVEY_METHOD_LABELS: Record<string, string> = {
@@ -41,6 +42,5 @@ export const REMAINING_STATUS_LABELS: Readonly<Record<RemainingStatus, string>> 
 
 /** The electrode inside a sentence: "against zinc", "against Ag/AgCl/seawater" (symbols keep their capitals). */
 export function electrodeWords(electrode: string): string {
-  const label = ELECTRODE_LABELS[electrode] ?? 'an unnamed electrode';
-  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+  return inSentence(ELECTRODE_LABELS[electrode] ?? 'an unnamed electrode');
 }

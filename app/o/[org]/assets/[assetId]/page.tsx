@@ -6,7 +6,7 @@ import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
-import { ALLOY_LABELS, ASSET_KIND_LABELS, CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, HULL_MATERIAL_LABELS, METAL_WORDS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, eventWords, surveyMethodWords } from '@/lib/labels';
+import { ALLOY_LABELS, ASSET_KIND_LABELS, CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, HULL_MATERIAL_LABELS, METAL_WORDS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, eventWords, inSentence, surveyMethodWords } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
 import { FORECAST_DATE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
@@ -170,7 +170,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                     {z.coatingCategory !== 'bare' && z.coatingAgeYears ? `, ${z.coatingAgeYears} yr old` : ''}
                     {z.drainsCurrent ? ` · bare ${METAL_WORDS[z.drainsCurrent]}` : ''}
                   </td>
-                  <td className="py-1.5">{WATER_TYPE_LABELS[z.waterType]}, {(CLIMATE_LABELS[z.climate] ?? '').toLowerCase()}</td>
+                  <td className="py-1.5">{WATER_TYPE_LABELS[z.waterType]}, {inSentence(CLIMATE_LABELS[z.climate] ?? '')}</td>
                   <td className="py-1.5">{DEPTH_BAND_LABELS[z.depthBand] ?? '–'}</td>
                   <td className="py-1.5 text-right">{canWrite ? <ArchiveZoneButton org={org} assetId={asset.id} zoneId={z.id} name={z.name} /> : null}</td>
                 </tr>

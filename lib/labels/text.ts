@@ -1,0 +1,7 @@
+/**
+ * A label inside a sentence: the first letter lowered when it starts an ordinary word ("Sub-tropical
+ * (12–20 °C)" → "sub-tropical (12–20 °C)"), kept for a symbol or an acronym ("Ag/AgCl", "ROV", "°C").
+ */
+export function inSentence(label: string): string {
+  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+}
