@@ -65,3 +65,11 @@ export const RENEWAL_STATUS_LABELS: Record<string, string> = {
   fitted: 'Fitted',
   cancelled: 'Cancelled',
 };
+
+/** Why a renewal is booked. */
+export const RENEWAL_REASON_LABELS: Record<string, string> = {
+  'forecast-depletion': 'Forecast depletion',
+  'survey-finding': 'Survey finding',
+  damage: 'Damage',
+  other: 'Other',
+};

@@ -44,3 +44,6 @@ export const REMAINING_STATUS_LABELS: Readonly<Record<RemainingStatus, string>> 
 export function electrodeWords(electrode: string): string {
   return inSentence(ELECTRODE_LABELS[electrode] ?? 'an unnamed electrode');
 }
+
+/** The survey named inside a sentence: "the diver survey", "the ROV survey", "the survey in dry dock". */
+export const surveyInSentence = (method: string): string => inSentence(surveyMethodWords(method));

@@ -170,7 +170,7 @@ describe('docking reminders', () => {
     expect(listed).toHaveLength(recipients);
     expect(listed[0].subject).toMatch(/: anode list attached$/);
     expect(listed[0].attachments?.[0].contentType).toBe('application/pdf');
-    expect(listed[0].textBody).toMatch(/- Bottom: 10 × TW-AW-4020, proposed, renew by \d{1,2} [A-Z][a-z]{2} \d{4}\n/);
+    expect(listed[0].textBody).toMatch(/- Bottom: 10 × TW-AW-4020 \(Proposed\), renew by \d{1,2} [A-Z][a-z]{2} \d{4}\n/);
     // Rendering the anode lists is the slow part on a busy machine.
   }, 120_000);
 });

@@ -22,6 +22,8 @@ import {
   RESISTANCE_TREATMENT_WORDS,
   SHAPE_KIND_LABELS,
   assetKindWord,
+  METAL_WORDS,
+  MODEL_SOURCE_LABELS,
 } from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import type { AnodeModelSnapshot, StoredDesignResult, StoredInputs } from '@/lib/schemas/design-record';
@@ -177,7 +179,7 @@ export function anodeRows(data: CalculationNoteData): Row[] {
         ]
       : [['Rated output', 'none on the data sheet', 'output from the resistance formula']];
   return [
-    ['Designation', m.designation, m.source === 'built-in' ? 'built-in catalogue (generic model)' : "organisation's catalogue"],
+    ['Designation', m.designation, m.source === 'built-in' ? `${MODEL_SOURCE_LABELS['built-in']} catalogue (generic model)` : "organisation's catalogue"],
     ['Alloy', ALLOY_LABELS[m.alloy] ?? m.alloy, ''],
     ['Mounting; shape', `${MOUNTING_LABELS[m.mounting] ?? m.mounting}; ${SHAPE_KIND_LABELS[shape.kind] ?? 'other shape'}`, 'catalogue'],
     ['Electrochemical capacity ε', used ? `${fmtInt(used.capacityAhPerKg)} Ah/kg` : '–', sheetOr(m.capacityAhPerKg, alloyTable)],
@@ -230,7 +232,7 @@ function coatingConstants(surface: Surface, row: SurfaceResult | undefined, desi
 export function zoneAreaRows(data: CalculationNoteData): Row[] {
   return data.inputs.surfaces.map((s, i) => [
     s.name,
-    (ZONE_KIND_LABELS[s.kind] ?? s.kind) + (s.drainsCurrent ? `, bare ${s.drainsCurrent} (drain)` : ''),
+    (ZONE_KIND_LABELS[s.kind] ?? s.kind) + (s.drainsCurrent ? `, bare ${METAL_WORDS[s.drainsCurrent] ?? 'metal'} (drain)` : ''),
     fmt(s.areaM2, 1),
     AREA_SOURCE_WORDS[s.areaSource] ?? s.areaSource,
     DEPTH_BAND_LABELS[s.depthBand] ?? s.depthBand,

@@ -26,7 +26,7 @@ function renewalLinesText(list: AnodeList, words: EventWords): string {
   const lines = openLines(list);
   const text = lines
     .slice(0, MAX_LINES_IN_TEXT)
-    .map(({ zone, l }) => `- ${zone ? `${zone}, ` : ''}${l.groupLabel}: ${l.quantity} × ${l.designation}, ${statusWords(l.status).toLowerCase()}${l.renewBy ? `, ${forecastDateWords('renewBy')} ${formatDateOnly(l.renewBy)}` : ''}`);
+    .map(({ zone, l }) => `- ${zone ? `${zone}, ` : ''}${l.groupLabel}: ${l.quantity} × ${l.designation} (${statusWords(l.status)})${l.renewBy ? `, ${forecastDateWords('renewBy')} ${formatDateOnly(l.renewBy)}` : ''}`);
   if (lines.length > MAX_LINES_IN_TEXT) text.push(`- and ${lines.length - MAX_LINES_IN_TEXT} more on the attached list`);
   return `Renewals at this ${words.event}:\n${text.join('\n')}`;
 }

@@ -7,7 +7,7 @@ import { readingCorrectionMail, underProtectionMail, type MailedReading } from '
 import { getEnv } from '../../env';
 import type { OrgContext } from '../../org-context';
 
-import { electrodeWords, POTENTIAL_STATUS_LABELS, surveyMethodWords } from '@/lib/labels';
+import { electrodeWords, POTENTIAL_STATUS_LABELS, surveyInSentence } from '@/lib/labels';
 
 const volts = (v: number) => `${v > 0 ? '+' : v < 0 ? '-' : ''}${Math.abs(v).toFixed(3)} V`;
 
@@ -31,7 +31,7 @@ export function describeReading(survey: Survey, reading: Pick<SurveyReading, 'po
   return parts.join('; ') || 'no value';
 }
 
-export const surveyLabelOf = (survey: Survey) => `${surveyMethodWords(survey.method).toLowerCase()} of ${formatDateOnly(survey.surveyedOn)}`;
+export const surveyLabelOf = (survey: Survey) => `${surveyInSentence(survey.method)} of ${formatDateOnly(survey.surveyedOn)}`;
 const surveyUrl = (ctx: OrgContext, survey: Survey) => `${getEnv().APP_URL}/o/${ctx.organisation.slug}/surveys/${survey.id}`;
 
 /** The people told about protection: the organisation's engineers and owners. */
