@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, dockingKindWords, eventWords, forecastDateWords } from '@/lib/labels';
+import { DOCKING_KIND_LABELS, FORECAST_DATE_LABELS, dockingKindWords, eventWords, forecastDateWords } from '@/lib/labels';
 import type { PlannerDocking, PlannerNeedsDocking } from '@/lib/server/services/planner/planner-view';
 
 interface Props {
@@ -83,7 +83,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
         })}
       </svg>
       <p className="mt-2 flex flex-wrap gap-4 text-xs text-ink-soft">
-        {Object.entries({ intermediate: 'Intermediate docking', 'renewal-survey': 'Renewal-survey docking', unplanned: 'Unplanned docking', campaign: 'Diving or works campaign' }).map(([k, label]) => (
+        {Object.entries(DOCKING_KIND_LABELS).map(([k, label]) => (
           <span key={k} className="inline-flex items-center gap-1.5">
             <svg width="14" height="10" aria-hidden>
               <rect width="14" height="10" rx="2" fill={KIND_FILL[k]} />

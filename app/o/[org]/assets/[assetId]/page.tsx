@@ -295,7 +295,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           <p className="mt-2 text-sm text-ink-soft">{marginWords}</p>
           <p className="mt-1 text-xs text-ink-soft">{renewalRule}</p>
           <p className="mt-1 text-xs text-ink-faint">
-            {FORECAST_DATE_LABELS.endOfLife}: the date the anodes are used down to the utilisation factor, shown for reference; renewals are scheduled on {RENEW_BY_DATE_WORDS}. Consumption = I × 8760 / ε per year (handbook practice) at the forecast’s start. A group linked to a design follows its zone’s demand as the coating breaks down, averaging the group’s share of the design’s mean current; one without a design runs on its mean current. Surveys scale the demand; a survey showing no loss leaves it as designed.
+            {FORECAST_DATE_LABELS.endOfLife}: the utilisation factor used up, shown for reference; renewals are scheduled on {RENEW_BY_DATE_WORDS}. Consumption = I × 8760 / ε per year (handbook practice) at the forecast’s start. A group linked to a design follows its zone’s demand as the coating breaks down, averaging the group’s share of the design’s mean current; one without a design runs on its mean current. Surveys scale the demand; a survey showing no loss leaves it as designed.
           </p>
         </Panel>
 
