@@ -3,5 +3,6 @@
  * (12–20 °C)" → "sub-tropical (12–20 °C)"), kept for a symbol or an acronym ("Ag/AgCl", "ROV", "°C").
  */
 export function inSentence(label: string): string {
-  return /^[A-Z][a-z]/.test(label) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
+  const firstWord = label.split(/[\s,(]/, 1)[0]!;
+  return /^[A-Z][a-z-]*$/.test(firstWord) ? label.charAt(0).toLowerCase() + label.slice(1) : label;
 }
