@@ -41,7 +41,7 @@ export function StatusTag({ tone, children }: { tone: StatusTone; children: Reac
   return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>;
 }
 
-/** A caution strip; without children it carries the one caution sentence (lib/words/caution.ts). */
+/** A caution strip; without children it carries the one caution sentence (lib/labels/caution.ts). */
 export function Caution({ children }: { children?: React.ReactNode }) {
   return (
     <aside role="note" className="rounded-[3px] border-l-4 border-brass-500 bg-brass-100 px-3 py-2 text-xs text-brass-700">

@@ -16,7 +16,7 @@ export interface RenewalRuleSettings {
 
 const months = (n: number) => `${n} month${n === 1 ? '' : 's'}`;
 
-/** "the renew-by date": the label of lib/forecast/labels.ts used as an adjective. */
+/** "the renew-by date": the label of lib/labels/forecast.ts used as an adjective. */
 export const RENEW_BY_DATE_WORDS = `the ${forecastDateWords('renewBy').replace(/ /g, '-')} date`;
 
 /**
