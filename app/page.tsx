@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { getCurrentUser } from '@/lib/server/auth/session';
-import { CAUTION_SENTENCE } from '@/lib/words/caution';
+import { CAUTION_SENTENCE } from '@/lib/labels';
 
 const STEPS = [
   {

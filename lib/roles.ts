@@ -1,19 +1,4 @@
-// The roles a member can hold in an organisation; what each may do is in lib/server/permissions.ts.
+// The roles a member can hold in an organisation; what each may do is in lib/server/permissions.ts,
+// their words in lib/labels/roles.ts.
 export const ROLES = ['owner', 'engineer', 'planner', 'inspector', 'viewer'] as const;
 export type Role = (typeof ROLES)[number];
-
-export const ROLE_LABELS: Record<Role, string> = {
-  owner: 'Owner',
-  engineer: 'Engineer',
-  planner: 'Planner',
-  inspector: 'Inspector',
-  viewer: 'Viewer',
-};
-
-export const ROLE_DESCRIPTIONS: Record<Role, string> = {
-  owner: 'Everything, including team and billing.',
-  engineer: 'Assets, zones, designs (prepare and approve), catalogue, surveys.',
-  planner: 'Dockings, renewals and anode lists.',
-  inspector: 'Surveys and photos only.',
-  viewer: 'Reads and prints; changes nothing.',
-};

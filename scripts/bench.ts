@@ -273,7 +273,7 @@ async function benchDatabase(url: string) {
   );
   try {
     const setupEm = orm.em.fork();
-    const { organisation, users } = await makeOrgWithRoles(setupEm, 'Kestrel Sound Ferries (bench)');
+    const { organisation, users } = await makeOrgWithRoles(setupEm, 'Kestrel Firth Ferries (bench)');
     const seedStarted = performance.now();
     const seeded = await seedRegister(orm, organisation.id, users.inspector.id);
     const seedMs = performance.now() - seedStarted;

@@ -3,7 +3,7 @@ import { ALLOYS } from '@/lib/cp/tables/alloys';
 import { utilisationFactorFor } from '@/lib/cp/lookups';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, MODEL_SOURCE_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { DeskState, Update } from './desk-state';
 
@@ -23,7 +23,7 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue, store
   const model: AnodeModelSnapshot | undefined = stored ? (stored.model ?? undefined) : listed;
   const groups = Object.entries(
     catalogue.reduce<Record<string, CatalogueModel[]>>((acc, m) => {
-      (acc[`${ALLOY_LABELS[m.alloy]} · ${m.source}`] ??= []).push(m);
+      (acc[`${ALLOY_LABELS[m.alloy]} · ${MODEL_SOURCE_LABELS[m.source] ?? 'Catalogue'}`] ??= []).push(m);
       return acc;
     }, {}),
   );

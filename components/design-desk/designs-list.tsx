@@ -6,7 +6,7 @@ import { format } from 'date-fns';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
 import { useDesigns } from '@/lib/client/use-designs';
-import { CRITERION_LABELS, STATUS_LABELS } from '@/lib/design/labels';
+import { CRITERION_LABELS, STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { DesignListRow } from '@/lib/server/services/designs/list-designs';
 

@@ -1,7 +1,7 @@
 'use client';
 import { climateFromTemperature } from '@/lib/cp/lookups';
 import { CLIMATE_VALUES, DEMAND_METHOD_VALUES, HULL_CONDITION_VALUES, POTENTIAL_SOURCE_VALUES, PROTECTED_METAL_VALUES, RESISTIVITY_SOURCE_VALUES, WATER_VALUES } from '@/lib/schemas/design';
-import { CLIMATE_LABELS, DEMAND_METHOD_LABELS, HULL_CONDITION_LABELS, METAL_LABELS, POTENTIAL_SOURCE_LABELS, RESISTIVITY_SOURCE_LABELS, WATER_LABELS } from '@/lib/design/labels';
+import { CLIMATE_LABELS, DEMAND_METHOD_LABELS, HULL_CONDITION_LABELS, METAL_LABELS, POTENTIAL_SOURCE_LABELS, RESISTIVITY_SOURCE_LABELS, WATER_LABELS } from '@/lib/labels';
 import { CheckboxInput, NumberInput, SelectInput, optionsFrom } from './desk-controls';
 import type { DeskState, Update } from './desk-state';
 

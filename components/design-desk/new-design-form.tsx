@@ -5,6 +5,7 @@ import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { AssetFields } from '@/components/register/asset-fields';
 import { createDesignAction } from '@/app/o/[org]/designs/actions';
+import { assetKindWord } from '@/lib/labels';
 
 /** Pick an asset, or create a vessel or structure on the spot; the desk opens with starting zones. */
 export function NewDesignForm({ org, assets }: { org: string; assets: { id: string; name: string; kind: string }[] }) {
@@ -18,7 +19,7 @@ export function NewDesignForm({ org, assets }: { org: string; assets: { id: stri
         name="assetId"
         value={assetId}
         onChange={(ev) => setAssetId(ev.target.value)}
-        options={[...assets.map((a) => ({ value: a.id, label: `${a.name} (${a.kind})` })), { value: 'new', label: 'A new vessel or structure…' }]}
+        options={[...assets.map((a) => ({ value: a.id, label: `${a.name} (${assetKindWord(a.kind)})` })), { value: 'new', label: 'A new vessel or structure…' }]}
         errors={form.errors('assetId')}
       />
       {assetId === 'new' ? (

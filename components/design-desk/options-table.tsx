@@ -1,6 +1,6 @@
 'use client';
 import type { OptionRow } from '@/lib/cp';
-import { ALLOY_LABELS, CRITERION_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, CRITERION_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { TableFrame } from '@/components/ui/table-frame';
 

@@ -1,17 +1,11 @@
 'use client';
 import { INFORMATION_NOTICE_CODES } from '@/lib/design/build-design-input';
-import { CRITERION_LABELS, BASIS_FLAG_WORDS } from '@/lib/design/labels';
+import { CRITERION_LABELS, BASIS_FLAG_WORDS, RESISTANCE_FORMULA_LABELS as FORMULA_LABELS } from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
 import { TableFrame } from '@/components/ui/table-frame';
 
-const FORMULA_LABELS: Record<string, string> = {
-  'modified-dwight': 'modified Dwight (long slender stand-off)',
-  'short-slender': 'short slender stand-off',
-  'long-flush': 'long flush, Ra = ρ/(2S)',
-  mccoy: 'McCoy, Ra = 0.315 ρ/√A',
-};
 
 /** Every criterion with the governing one named, then demand, per-anode figures, distribution and warnings. */
 export function ResultsPanel({ computed, stale }: { computed: DeskComputed | null; stale: boolean }) {

@@ -1,8 +1,9 @@
 'use client';
-import { AREA_SOURCE_WORDS, zoneDensitySource } from '@/lib/design/build-design-input';
+import { zoneDensitySource } from '@/lib/design/build-design-input';
+import { AREA_SOURCE_WORDS } from '@/lib/labels';
 import { defaultVesselZones } from '@/lib/design/default-zones';
 import { COATING_VALUES, DEPTH_BAND_VALUES, ZONE_KIND_VALUES, type DeskSurfaceDraft } from '@/lib/schemas/design';
-import { COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
+import { COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/labels';
 import { fmtInt, fmtSig } from '@/lib/format';
 import { Button } from '@/components/ui/button';
 import { NumberInput, SelectInput, optionsFrom } from './desk-controls';

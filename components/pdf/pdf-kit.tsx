@@ -1,7 +1,7 @@
 import path from 'node:path';
 import type { ComponentProps, ReactNode } from 'react';
 import { Canvas, Font, Page, StyleSheet, Text, View } from '@react-pdf/renderer';
-import { CAUTION_SENTENCE } from '@/lib/words/caution';
+import { CAUTION_SENTENCE } from '@/lib/labels';
 import { FONT, LINE_HEIGHT, textWidth, wrapLines, type TextWeight } from './measure-text';
 
 // Inter ships in fonts/ as TrueType for the PDFs (made from @fontsource's woff by scripts/woff-to-ttf.mjs):

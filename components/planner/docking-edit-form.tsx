@@ -5,6 +5,7 @@ import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { addRenewalAction, updateDockingAction } from '@/app/o/[org]/dockings/actions';
 import { DOCKING_KIND_OPTIONS } from './docking-form';
+import { RENEWAL_REASON_LABELS } from '@/lib/labels';
 
 export function DockingEditForm({ org, docking }: { org: string; docking: Record<string, string | null> & { id: string } }) {
   const form = useBoundAction(updateDockingAction.bind(null, org), {
@@ -38,7 +39,7 @@ export function AddRenewalForm({ org, dockingId, groups }: { org: string; dockin
     <ActionForm form={form} className="grid grid-cols-2 gap-3" messageClassName="col-span-2" noValidate>
       <input type="hidden" name="dockingId" value={dockingId} />
       <SelectField label="Anode group" name="groupId" options={groups.map((g) => ({ value: g.id, label: g.label }))} errors={e('groupId')} />
-      <SelectField label="Reason" name="reason" options={[{ value: 'survey-finding', label: 'Survey finding' }, { value: 'damage', label: 'Damage' }, { value: 'forecast-depletion', label: 'Forecast depletion' }, { value: 'other', label: 'Other' }]} errors={e('reason')} />
+      <SelectField label="Reason" name="reason" options={['survey-finding', 'damage', 'forecast-depletion', 'other'].map((value) => ({ value, label: RENEWAL_REASON_LABELS[value]! }))} errors={e('reason')} />
       <Field label="Quantity (blank: the whole group)" name="quantity" type="number" step="1" errors={e('quantity')} />
       <Field label="Notes" name="notes" errors={e('notes')} />
       <div className="col-span-2">

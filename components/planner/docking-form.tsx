@@ -4,18 +4,16 @@ import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createDockingAction } from '@/app/o/[org]/dockings/actions';
 
-export const DOCKING_KIND_OPTIONS = [
-  { value: 'intermediate', label: 'Intermediate docking' },
-  { value: 'renewal-survey', label: 'Renewal-survey docking' },
-  { value: 'unplanned', label: 'Unplanned docking' },
-  { value: 'campaign', label: 'Diving or works campaign (structures)' },
-];
+import { assetKindWord, dockingKindOptions } from '@/lib/labels';
+
+/** Every kind, in the words of lib/labels (a campaign is for structures, the dockings for vessels). */
+export const DOCKING_KIND_OPTIONS = dockingKindOptions();
 
 export function DockingForm({ org, assets }: { org: string; assets: { id: string; name: string; kind: string }[] }) {
   const form = useBoundAction(createDockingAction.bind(null, org));
   return (
     <ActionForm form={form} className="flex flex-col gap-3" noValidate>
-      <SelectField label="Vessel or structure" {...form.field('assetId')} options={assets.map((a) => ({ value: a.id, label: `${a.name} (${a.kind})` }))} />
+      <SelectField label="Vessel or structure" {...form.field('assetId')} options={assets.map((a) => ({ value: a.id, label: `${a.name} (${assetKindWord(a.kind)})` }))} />
       <SelectField label="Kind" {...form.field('kind', 'intermediate')} options={DOCKING_KIND_OPTIONS} />
       <div className="grid grid-cols-2 gap-3">
         <Field label="Planned start" {...form.field('plannedStart')} type="date" />

@@ -1,5 +1,5 @@
 import type { AssetOutlook } from '@/lib/forecast/outlook';
-import { OUTLOOK_WORDS } from '@/lib/words/outlook';
+import { OUTLOOK_WORDS } from '@/lib/labels';
 import { StatusTag, type StatusTone } from '@/components/ui/panel';
 
 /** The colour cue of each outlook; nothing recorded is neutral (no colour of its own). */

@@ -11,9 +11,10 @@ import { fmt } from '@/lib/format';
 import { todayDateOnly } from '@/lib/dates/date-only';
 import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-renewals';
 import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
+import { RENEWAL_REASON_LABELS, RENEWAL_STATUS_LABELS } from '@/lib/labels';
 
 const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
-const STATUS_WORDS: Record<string, string> = { proposed: 'Proposed', confirmed: 'Confirmed', ordered: 'Ordered', fitted: 'Fitted', cancelled: 'Cancelled' };
+const STATUS_WORDS = RENEWAL_STATUS_LABELS;
 
 function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
   const { state, action, pending } = useBoundAction(renewalStepAction.bind(null, org), { invalidate: [queryKeys.dockingRenewals(org, dockingId)] });
@@ -91,7 +92,7 @@ export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { 
         // The scheduler's sentence (with the renew-by date and the margin) in words on the page, not in a tooltip.
         cell: (c) => (
           <span className="flex max-w-md flex-col">
-            <span>{c.getValue().replace(/-/g, ' ')}</span>
+            <span>{RENEWAL_REASON_LABELS[c.getValue()] ?? 'Other'}</span>
             {c.row.original.rationale ? <span className="text-2xs text-ink-soft">{c.row.original.rationale}</span> : null}
           </span>
         ),

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
+import { DOCKING_KIND_LABELS, FORECAST_DATE_LABELS, dockingKindWords, eventWords, forecastDateWords } from '@/lib/labels';
 import type { PlannerDocking, PlannerNeedsDocking } from '@/lib/server/services/planner/planner-view';
 
 interface Props {
@@ -61,7 +61,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
                   return (
                     <Link key={d.id} href={`/o/${org}/dockings/${d.id}`}>
                       <rect x={x1} y={y + 5} width={x2 - x1} height={rowH - 10} rx={2} fill={KIND_FILL[d.kind] ?? '#46505b'} opacity={d.status === 'done' ? 0.45 : 1}>
-                        <title>{`${a.name}: ${d.kind} ${formatDateOnly(d.start)}${d.yard ? ` at ${d.yard}` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)`}</title>
+                        <title>{`${a.name}: ${dockingKindWords(d.kind)} ${formatDateOnly(d.start)}${d.yard ? ` (${eventWords(a.kind).place} ${d.yard})` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)`}</title>
                       </rect>
                       <text x={x2 + 3} y={y + 19} fontSize="10" fill="#1c232b">
                         {d.massDueKg > 0 ? `${Math.round(d.massDueKg)} kg` : d.status === 'done' ? 'done' : ''}
@@ -83,7 +83,7 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
         })}
       </svg>
       <p className="mt-2 flex flex-wrap gap-4 text-xs text-ink-soft">
-        {Object.entries({ intermediate: 'Intermediate docking', 'renewal-survey': 'Renewal-survey docking', unplanned: 'Unplanned docking', campaign: 'Diving or works campaign' }).map(([k, label]) => (
+        {Object.entries(DOCKING_KIND_LABELS).map(([k, label]) => (
           <span key={k} className="inline-flex items-center gap-1.5">
             <svg width="14" height="10" aria-hidden>
               <rect width="14" height="10" rx="2" fill={KIND_FILL[k]} />

@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, MOUNTING_LABELS, SHAPE_FORMULA_OPTIONS } from '@/lib/labels';
 import { createAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
 
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
@@ -25,12 +25,7 @@ export function AnodeModelForm({ org }: { org: string }) {
         name="shapeKind"
         value={shape}
         onChange={(ev) => setShape(ev.target.value)}
-        options={[
-          { value: 'slender-standoff', label: 'Slender stand-off (Dwight)' },
-          { value: 'long-flush', label: 'Long flush, L ≥ 4 × width' },
-          { value: 'short-flush', label: 'Short flush (McCoy)' },
-          { value: 'bracelet', label: 'Bracelet (McCoy)' },
-        ]}
+        options={SHAPE_FORMULA_OPTIONS}
         errors={form.errors('shapeKind')}
       />
       <Field label="Length" {...f('lengthM')} type="number" step="any" unit="m" />

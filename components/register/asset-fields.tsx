@@ -1,6 +1,7 @@
 'use client';
 import { Field, SelectField } from '@/components/ui/field';
 import { STRUCTURE_TYPES } from '@/lib/schemas/assets';
+import { HULL_MATERIAL_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS } from '@/lib/labels';
 import { ANAEROBIC_STEEL_PROTECTION_POTENTIAL_V, AG_AGCL_SEAWATER_CALIBRATION_PSU, OVER_PROTECTION_LIMIT } from '@/lib/cp';
 import { formatVolts } from '@/lib/surveys/criteria';
 
@@ -67,7 +68,7 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
         <Field label="Beam" name={n('beamM')} type="number" step="any" unit="m" defaultValue={v('beamM')} errors={e('beamM')} />
         <Field label="Draught" name={n('draughtM')} type="number" step="any" unit="m" defaultValue={v('draughtM')} errors={e('draughtM')} />
         <Field label="Block coefficient" name={n('blockCoefficient')} type="number" step="any" defaultValue={v('blockCoefficient')} errors={e('blockCoefficient')} />
-        <SelectField label="Hull material" name={n('hullMaterial')} defaultValue={v('hullMaterial') ?? 'steel'} options={[{ value: 'steel', label: 'Steel' }, { value: 'aluminium', label: 'Aluminium' }]} errors={e('hullMaterial')} />
+        <SelectField label="Hull material" name={n('hullMaterial')} defaultValue={v('hullMaterial') ?? 'steel'} options={Object.entries(HULL_MATERIAL_LABELS).map(([value, label]) => ({ value, label }))} errors={e('hullMaterial')} />
         <Field label="Usual trading waters" name={n('tradingWaters')} defaultValue={v('tradingWaters')} errors={e('tradingWaters')} />
         <label className="col-span-2 flex items-center gap-2 text-sm">
           <input type="checkbox" name={n('hasImpressedCurrent')} defaultChecked={v('hasImpressedCurrent') === 'on' || v('hasImpressedCurrent') === 'true'} /> Impressed-current system fitted
@@ -83,10 +84,10 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
         label="Structure"
         name={n('structureType')}
         defaultValue={v('structureType') ?? 'jetty'}
-        options={STRUCTURE_TYPES.map((t) => ({ value: t, label: t.replace(/-/g, ' ') }))}
+        options={STRUCTURE_TYPES.map((t) => ({ value: t, label: STRUCTURE_TYPE_LABELS[t]! }))}
         errors={e('structureType')}
       />
-      <SelectField label="Water" name={n('waterType')} defaultValue={v('waterType') ?? 'seawater'} options={[{ value: 'seawater', label: 'Seawater' }, { value: 'brackish', label: 'Brackish' }, { value: 'fresh', label: 'Fresh' }]} errors={e('waterType')} />
+      <SelectField label="Water" name={n('waterType')} defaultValue={v('waterType') ?? 'seawater'} options={(['seawater', 'brackish', 'fresh'] as const).map((value) => ({ value, label: WATER_TYPE_LABELS[value]! }))} errors={e('waterType')} />
       <Field label="Number of piles" name={n('pileCount')} type="number" defaultValue={v('pileCount')} errors={e('pileCount')} />
       <Field label="Pile diameter" name={n('pileDiameterM')} type="number" step="any" unit="m" defaultValue={v('pileDiameterM')} errors={e('pileDiameterM')} />
       <Field label="Design life" name={n('designLifeYears')} type="number" step="any" unit="years" defaultValue={v('designLifeYears')} errors={e('designLifeYears')} />

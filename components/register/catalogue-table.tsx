@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { useBoundAction } from '@/components/ui/action-form';
 import { StatusTag } from '@/components/ui/panel';
 import { fetchJson, queryKeys } from '@/lib/client/query-client';
-import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { archiveAnodeModelAction } from '@/app/o/[org]/catalogue/actions';

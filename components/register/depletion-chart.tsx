@@ -1,5 +1,5 @@
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from '@/lib/labels';
 
 export type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
@@ -84,7 +84,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
                 <g>
                   <line x1={x(s.endOfLife.getTime()) - 4} x2={x(s.endOfLife.getTime()) + 4} y1={y(s.endKg) - 4} y2={y(s.endKg) + 4} stroke={colour} strokeWidth="2" />
                   <line x1={x(s.endOfLife.getTime()) - 4} x2={x(s.endOfLife.getTime()) + 4} y1={y(s.endKg) + 4} y2={y(s.endKg) - 4} stroke={colour} strokeWidth="2" />
-                  <title>{`${s.label}: reaches its utilisation factor ${formatDateOnly(s.endOfLife)}`}</title>
+                  <title>{`${s.label}: ${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife)} (utilisation factor used up)`}</title>
                 </g>
               ) : null}
             </g>
@@ -102,7 +102,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
             {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
-        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × utilisation factor reached ({forecastDateWords('endOfLife')}) · dashed brass lines: dockings</span>
+        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: dockings</span>
       </figcaption>
     </figure>
   );

@@ -8,7 +8,7 @@ import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { forecastDateWords } from '@/lib/labels';
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 

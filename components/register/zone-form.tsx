@@ -7,7 +7,7 @@ import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-k
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
+import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, ZONE_KIND_LABELS, WATER_TYPE_LABELS } from '@/lib/labels';
 import { archiveZoneAction, createZoneAction, restoreZoneAction, updateZoneAction } from '@/app/o/[org]/assets/actions';
 
 const opts = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
@@ -40,7 +40,7 @@ export function ZoneForm({ org, assetId, zone }: { org: string; assetId: string;
       <Field label="Wetted area" {...f('areaM2')} type="number" step="any" unit="m²" />
       <SelectField label="Coating" {...f('coatingCategory', 'II')} options={opts(COATING_LABELS)} />
       <Field label="Coating age" {...f('coatingAgeYears', '0')} type="number" step="any" unit="yr" />
-      <SelectField label="Environment" {...f('waterType', 'seawater')} options={[{ value: 'seawater', label: 'Seawater' }, { value: 'brackish', label: 'Brackish' }, { value: 'fresh', label: 'Fresh water' }, { value: 'sediment', label: 'Sediment / mud' }]} />
+      <SelectField label="Environment" {...f('waterType', 'seawater')} options={opts(WATER_TYPE_LABELS)} />
       <SelectField label="Temperature band" {...f('climate', 'temperate')} options={opts(CLIMATE_LABELS)} />
       <SelectField label="Depth" {...f('depthBand', '0-30')} options={opts(DEPTH_BAND_LABELS)} />
       <SelectField label="Bare item draining current" {...f('drainsCurrent', '')} options={[{ value: '', label: 'None' }, { value: 'copper-alloy', label: 'Copper alloy (propeller)' }, { value: 'stainless', label: 'Stainless (shaft)' }]} />

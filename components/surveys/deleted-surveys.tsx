@@ -6,6 +6,7 @@ import { FormMessage } from '@/components/ui/field';
 import { restoreSurveyAction } from '@/app/o/[org]/surveys/actions';
 import { queryKeys } from '@/lib/client/query-client';
 import { formatDateOnly } from '@/lib/dates/date-only';
+import { surveyMethodWords } from '@/lib/labels';
 import type { DeletedSurveyRow } from '@/lib/server/services/surveys/manage-surveys';
 
 /**
@@ -34,7 +35,7 @@ function DeletedSurvey({ row, action, pending }: { row: DeletedSurveyRow; action
   return (
     <li className="flex flex-wrap items-center justify-between gap-2 border-b border-rule pb-2">
       <span>
-        {row.assetName}: {row.method} survey of {formatDateOnly(row.surveyedOn)} · {row.readings} reading{row.readings === 1 ? '' : 's'}
+        {row.assetName}: {surveyMethodWords(row.method)} of {formatDateOnly(row.surveyedOn)} · {row.readings} reading{row.readings === 1 ? '' : 's'}
         <span className="block text-xs text-ink-faint">
           Deleted by {row.deletedBy ?? 'someone'}; can be restored until {formatDateOnly(row.restorableUntil)}.
         </span>

@@ -5,20 +5,11 @@ import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createSurveyAction } from '@/app/o/[org]/surveys/actions';
 import { todayDateOnly } from '@/lib/dates/date-only';
 
-export const ELECTRODE_OPTIONS = [
-  { value: 'ag-agcl-seawater', label: 'Ag/AgCl/seawater' },
-  { value: 'cse', label: 'Cu/CuSO₄ (CSE)' },
-  { value: 'sce', label: 'Saturated calomel (SCE)' },
-  { value: 'zinc', label: 'Zinc' },
-];
+import { ELECTRODE_LABELS, SURVEY_METHOD_LABELS } from '@/lib/labels';
 
-export const METHOD_OPTIONS = [
-  { value: 'diver', label: 'Diver' },
-  { value: 'drop-cell', label: 'Drop cell' },
-  { value: 'rov', label: 'ROV' },
-  { value: 'dry-dock', label: 'In dry dock' },
-  { value: 'other', label: 'Other' },
-];
+const optionsOf = (labels: Record<string, string>) => Object.entries(labels).map(([value, label]) => ({ value, label }));
+export const ELECTRODE_OPTIONS = optionsOf(ELECTRODE_LABELS);
+export const METHOD_OPTIONS = optionsOf(SURVEY_METHOD_LABELS);
 
 export function NewSurveyForm({ org, assets, assetId }: { org: string; assets: { id: string; name: string }[]; assetId?: string }) {
   const form = useBoundAction(createSurveyAction.bind(null, org));

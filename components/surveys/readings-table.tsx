@@ -6,7 +6,7 @@ import { StatusTag } from '@/components/ui/panel';
 import { Button } from '@/components/ui/button';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
-import { REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
+import { ELECTRODE_SHORT_LABELS, REMAINING_STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { deleteReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
@@ -14,7 +14,6 @@ import { ReadingFields } from './reading-form';
 import { ConfirmDelete } from './confirm-delete';
 
 type Reading = Awaited<ReturnType<typeof getSurveyDetails>>['readings'][number];
-const ELECTRODES: Record<string, string> = { 'ag-agcl-seawater': 'Ag/AgCl', cse: 'CSE', sce: 'SCE', zinc: 'Zn' };
 
 interface Editing {
   org: string;
@@ -33,7 +32,7 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
     const base = [
       col.accessor('line', { header: 'Line', meta: { numeric: true }, cell: (c) => c.getValue() ?? '—' }),
       col.accessor('location', { header: 'Location' }),
-      col.accessor('potentialV', { header: 'As measured', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V ${ELECTRODES[c.row.original.electrode ?? ''] ?? ''}`) }),
+      col.accessor('potentialV', { header: 'As measured', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V ${ELECTRODE_SHORT_LABELS[c.row.original.electrode ?? ''] ?? ''}`) }),
       col.accessor('potentialAgAgClV', { header: 'vs Ag/AgCl/seawater', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V`) }),
       col.accessor('potentialStatus', {
         header: 'Protection',

@@ -8,6 +8,7 @@ import { ServerTable } from '@/components/ui/server-table';
 import { StatusTag } from '@/components/ui/panel';
 import { fmt } from '@/lib/format';
 import type { SurveyListRow } from '@/lib/server/services/surveys/survey-details';
+import { SURVEY_METHOD_LABELS } from '@/lib/labels';
 
 export function SurveysTable({ org, assetId }: { org: string; assetId?: string }) {
   const columns = useMemo(() => {
@@ -15,7 +16,7 @@ export function SurveysTable({ org, assetId }: { org: string; assetId?: string }
     return [
       col.accessor('surveyedOn', { id: 'surveyedOn', header: 'Date', cell: (c) => <Link className="text-tide-600 hover:underline" href={`/o/${org}/surveys/${c.row.original.id}`}>{formatDateOnly(c.getValue())}</Link> }),
       col.accessor('assetName', { id: 'asset', header: 'Asset' }),
-      col.accessor('method', { id: 'method', header: 'Method' }),
+      col.accessor('method', { id: 'method', header: 'Method', cell: (c) => SURVEY_METHOD_LABELS[c.getValue()] ?? 'Other' }),
       col.accessor('surveyor', { id: 'surveyor', header: 'Surveyor', enableSorting: false, cell: (c) => c.getValue() ?? '—' }),
       col.accessor('readings', { id: 'readings', header: 'Readings', enableSorting: false, meta: { numeric: true } }),
       col.accessor('leastNegativeV', { id: 'leastNegative', header: 'Least negative (Ag/AgCl)', enableSorting: false, meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V`) }),

@@ -4,7 +4,7 @@ import { Field } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { updateSettingsAction } from '@/app/o/[org]/team/actions';
 import { RENEWAL_THRESHOLD_PERCENT } from '@/lib/schemas/accounts';
-import { RENEW_BY_DATE_WORDS } from '@/lib/words/renewal-rule';
+import { RENEW_BY_DATE_WORDS } from '@/lib/labels';
 
 export interface SettingsValues {
   name: string;

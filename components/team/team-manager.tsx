@@ -11,8 +11,9 @@ import { announce } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { queryKeys } from '@/lib/client/query-client';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
-import { MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
-import { ROLES, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
+import { MAIL_DELIVERY_WORDS } from '@/lib/labels';
+import { ROLES } from '@/lib/roles';
+import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/labels';
 import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, restoreMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));

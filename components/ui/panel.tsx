@@ -1,4 +1,4 @@
-import { CAUTION_SENTENCE } from '@/lib/words/caution';
+import { CAUTION_SENTENCE } from '@/lib/labels';
 
 export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
   return (
@@ -41,7 +41,7 @@ export function StatusTag({ tone, children }: { tone: StatusTone; children: Reac
   return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>;
 }
 
-/** A caution strip; without children it carries the one caution sentence (lib/words/caution.ts). */
+/** A caution strip; without children it carries the one caution sentence (lib/labels/caution.ts). */
 export function Caution({ children }: { children?: React.ReactNode }) {
   return (
     <aside role="note" className="rounded-[3px] border-l-4 border-brass-500 bg-brass-100 px-3 py-2 text-xs text-brass-700">

@@ -1,6 +1,6 @@
 import { writeCsv, type CsvCell } from '@/lib/csv/write-csv';
 import type { AnodeList, AnodeListLine } from './build-anode-list';
-import { alloyWords, ANODE_LIST_LINE_COLUMNS, dimensionsWords, mountingWords, statusWords, ZONE_COLUMN, zoneWords } from './words';
+import { alloyWords, ANODE_LIST_LINE_COLUMNS, dimensionsWords, mountingWords, statusWords, ZONE_COLUMN, zoneWords } from '@/lib/labels/anode-list';
 
 /**
  * The anode list as CSV for the yard's or contractor's spreadsheet: ONE table, the columns and

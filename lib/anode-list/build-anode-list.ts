@@ -1,7 +1,7 @@
 import { compareDateOnly, isDateOnly } from '../dates/date-only';
 import { AnodeListInputError } from './errors';
 import { fittingNotesFor } from './fitting-notes';
-import { anodeListWords, type AnodeListDimensions, type AnodeListWords } from './words';
+import { anodeListWords, type AnodeListDimensions, type AnodeListWords } from '@/lib/labels/anode-list';
 
 /**
  * The anode list: what a yard orders and fits at one docking, or a contractor at one diving

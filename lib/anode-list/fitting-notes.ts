@@ -1,11 +1,11 @@
 /**
  * Fitting notes printed on the anode list, in our own words. Each note says to which lists it
  * applies, so a jetty's list does not talk about propellers, a diving campaign not about blasting
- * and painting, a dry-docking not about divers, and an all-welded list not about bolts. "(practice)" marks common practice of the trade with no
+ * and painting, a dry-docking not about divers, and an all-welded list not about bolts. "(common practice)" marks common practice of the trade with no
  * single source (design-basis.md, Ship hulls, placement notes). No acceptance value is
  * invented: where a limit is needed the note points to the approved procedure.
  */
-import type { AnodeListOccasion } from './words';
+import type { AnodeListOccasion } from '@/lib/labels/anode-list';
 
 /** Which lines a note is about (its `work` says at which kind of docking or campaign). */
 export type FittingNoteScope = 'all' | 'welded' | 'bolted' | 'vessel';
@@ -43,13 +43,13 @@ export const FITTING_NOTES: readonly FittingNote[] = [
     id: 'clean',
     scope: 'all',
     work: 'campaign',
-    text: 'Clean marine growth, scale and corrosion products off each contact face or weld area back to bare metal before fitting (practice). Never coat or grease an anode face.',
+    text: 'Clean marine growth, scale and corrosion products off each contact face or weld area back to bare metal before fitting (common practice). Never coat or grease an anode face.',
   },
   {
     id: 'welded',
     scope: 'welded',
     work: 'docking',
-    text: 'Weld-on anodes: weld the straps, cores or legs to the approved welding procedure, never the anode body itself. Do not weld anodes over fuel tanks without the approval of the owner and class (practice).',
+    text: 'Weld-on anodes: weld the straps, cores or legs to the approved welding procedure, never the anode body itself. Do not weld anodes over fuel tanks without the approval of the owner and class (common practice).',
   },
   {
     id: 'wet-welded',
@@ -67,7 +67,7 @@ export const FITTING_NOTES: readonly FittingNote[] = [
     id: 'flow',
     scope: 'vessel',
     work: 'any',
-    text: 'Keep anodes out of line with the propeller blade tips, and fit them with their long axis along the flow lines (practice).',
+    text: 'Keep anodes out of line with the propeller blade tips, and fit them with their long axis along the flow lines (common practice).',
   },
   {
     id: 'positions',

@@ -39,7 +39,7 @@ export {
   type AnodeListDimensions,
   type AnodeListOccasion,
   type AnodeListWords,
-} from './words';
+} from '@/lib/labels/anode-list';
 // csvField lives in lib/csv (shared with the register export); re-exported for existing callers.
 export { csvField } from '@/lib/csv/write-csv';
 export { FITTING_NOTES, fittingNotesFor, type FittingNote, type FittingNoteScope, type FittingNoteWork } from './fitting-notes';

@@ -56,12 +56,3 @@ export function readOnlyReason(state: BillingState, now = new Date()): string | 
   return null;
 }
 
-export const STATUS_WORDS: Record<string, string> = {
-  trialing: 'Free trial',
-  active: 'Active',
-  past_due: 'Payment overdue',
-  canceled: 'Cancelled',
-  unpaid: 'Unpaid',
-  incomplete: 'Awaiting first payment',
-  incomplete_expired: 'First payment not made',
-};

@@ -2,7 +2,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { fetchJson, queryKeys } from './query-client';
 import type { Role } from '@/lib/roles';
-import type { MailDelivery } from '@/lib/words/mail-delivery';
+import type { MailDelivery } from '@/lib/labels';
 
 export interface TeamMember {
   id: string;

@@ -7,6 +7,7 @@ import { currentDensityWarning, resistivityWarning } from './plausibility';
 import { ALLOYS, isMagnesium } from './tables/alloys';
 import { ANAEROBIC_STEEL_PROTECTION_POTENTIAL_V, MINIMUM_PROTECTION_POTENTIAL, OVER_PROTECTION_LIMIT } from './tables/potential-limits';
 import type { CpWarning } from './types';
+import { METAL_WORDS } from '@/lib/labels/design';
 
 /** Chloride below which aluminium anodes may passivate, ppm (published). */
 export const ALUMINIUM_PASSIVATION_CHLORIDE_PPM = 1450;
@@ -61,7 +62,7 @@ const CHECKS: readonly Check[] = [
     const limit = ALLOYS.zinc.temperatureLimitC ?? Infinity;
     const t = c.job.environment?.temperatureC;
     return c.anode.alloy === 'zinc' && t !== undefined && t > limit
-      ? { code: 'zinc-above-temperature-limit', message: `Zinc anodes are not used above about ${limit} C; the water is ${t} C. Use an aluminium alloy qualified for the temperature.` }
+      ? { code: 'zinc-above-temperature-limit', message: `Zinc anodes are not used above about ${limit} °C; the water is ${t} °C. Use an aluminium alloy qualified for the temperature.` }
       : null;
   },
   (c) =>
@@ -93,13 +94,13 @@ const CHECKS: readonly Check[] = [
   (c) => {
     const drains = c.job.surfaces.filter((s) => s.drainsCurrent !== undefined);
     return drains.length > 0
-      ? { code: 'bare-item-current-drain', message: `Bare ${[...new Set(drains.map((s) => s.drainsCurrent))].join(' and ')} items drain protective current (${drains.map((s) => s.name).join(', ')}); include their demand, keep them bonded, and expect faster anode use near them.` }
+      ? { code: 'bare-item-current-drain', message: `Bare ${[...new Set(drains.map((s) => METAL_WORDS[String(s.drainsCurrent)] ?? 'metal'))].join(' and ')} items drain protective current (${drains.map((s) => s.name).join(', ')}); include their demand, keep them bonded, and expect faster anode use near them.` }
       : null;
   },
   (c) => {
     const criterion = protectionCriterionV(c.job);
     return c.job.protectivePotentialV > criterion + SLACK
-      ? { code: 'protective-potential-less-negative-than-criterion', message: `The design protective potential ${c.job.protectivePotentialV} V is less negative than the ${criterion} V criterion for ${c.job.protectedMetal}.` }
+      ? { code: 'protective-potential-less-negative-than-criterion', message: `The design protective potential ${c.job.protectivePotentialV} V is less negative than the ${criterion} V criterion for ${METAL_WORDS[c.job.protectedMetal] ?? 'the metal'}.` }
       : null;
   },
   (c) => {
@@ -137,12 +138,12 @@ const CHECKS: readonly Check[] = [
       : null,
   (c) =>
     c.anode.alloy === 'zinc' && c.job.environment?.temperatureC === undefined
-      ? { code: 'zinc-temperature-unknown', message: `Zinc anodes lose capacity and may reverse polarity above about ${ALLOYS.zinc.temperatureLimitC ?? 50} C; no water temperature is given. Enter it (cooling-water outlets and tropical harbours can be warm).` }
+      ? { code: 'zinc-temperature-unknown', message: `Zinc anodes lose capacity and may reverse polarity above about ${ALLOYS.zinc.temperatureLimitC ?? 50} °C; no water temperature is given. Enter it (cooling-water outlets and tropical harbours can be warm).` }
       : null,
   (c) => {
     const t = c.job.environment?.temperatureC;
     return c.anode.alloy === 'al-zn-in' && t !== undefined && t > AL_ZN_IN_DERATING_ABOVE_C
-      ? { code: 'al-zn-in-warm-water', message: `Al-Zn-In capacity falls in warm water (${t} C; derating above about ${AL_ZN_IN_DERATING_ABOVE_C} C, from memory): take the capacity from the supplier's data for this temperature.` }
+      ? { code: 'al-zn-in-warm-water', message: `Al-Zn-In capacity falls in warm water (${t} °C; derating above about ${AL_ZN_IN_DERATING_ABOVE_C} °C, from memory): take the capacity from the supplier's data for this temperature.` }
       : null;
   },
   // Figures that do not fit the water or look like a unit slip (lib/cp/plausibility.ts).
@@ -153,7 +154,7 @@ const CHECKS: readonly Check[] = [
 function overProtection(c: WarningContext, metal: 'high-strength-steel' | 'aluminium', code: CpWarning['code'], harm: string): CpWarning | null {
   const limit = OVER_PROTECTION_LIMIT[metal];
   if (c.job.protectedMetal !== metal || !limit || !(c.anode.potentialV < limit.valueV)) return null;
-  return { code, message: `The anode potential ${c.anode.potentialV} V is more negative than the ${limit.valueV} V limit for ${metal}: risk of ${harm}.` };
+  return { code, message: `The anode potential ${c.anode.potentialV} V is more negative than the ${limit.valueV} V limit for ${METAL_WORDS[metal]}: risk of ${harm}.` };
 }
 
 /** Least negative potential that protects the job's metal, V vs Ag/AgCl/seawater. */

@@ -63,7 +63,7 @@ function checkedTemperature(value: unknown, field = 'temperatureC'): number {
   const t = finite(value, field, 'degrees C');
   const { min, max } = PSS78_TEMPERATURE_RANGE_C;
   if (t < min || t > max) {
-    throw new CpInputError(field, `${field} must be between ${min} and ${max} C, the range of the Practical Salinity Scale 1978 (got ${t}).`);
+    throw new CpInputError(field, `${field} must be between ${min} and ${max} °C, the range of the Practical Salinity Scale 1978 (got ${t}).`);
   }
   return t;
 }
@@ -126,7 +126,7 @@ export function practicalSalinity(input: PracticalSalinityInput): number {
   const s = assertFiniteResult(salinityAndSlope(rT, t).s, 'conductivitySPerM');
   const { min, max } = PSS78_SALINITY_RANGE_PSU;
   if (s < min - RANGE_SLACK_PSU || s > max + RANGE_SLACK_PSU) {
-    throw new CpInputError('conductivitySPerM', `conductivitySPerM (${c} S/m at ${t} C) gives ${s.toFixed(3)} PSU, outside the ${min}-${max} PSU range of the Practical Salinity Scale 1978.`);
+    throw new CpInputError('conductivitySPerM', `conductivitySPerM (${c} S/m at ${t} °C) gives ${s.toFixed(3)} PSU, outside the ${min}-${max} PSU range of the Practical Salinity Scale 1978.`);
   }
   return s;
 }

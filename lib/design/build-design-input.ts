@@ -21,6 +21,7 @@ import {
   type DesignJob,
 } from '@/lib/cp';
 import type { DeskInputs, DeskSurface } from '@/lib/schemas/design';
+import { AREA_SOURCE_WORDS, METAL_WORDS } from '@/lib/labels/design';
 
 export interface DeskNotice {
   code: string;
@@ -148,7 +149,7 @@ export function resolveEnvironment(inputs: DeskInputs): ResolvedEnvironment {
   let potentialSource = 'entered';
   if (inputs.potentialSource === 'criterion') {
     protectivePotentialV = protectionCriterionV({ protectedMetal: inputs.protectedMetal, environment: { water: inputs.water, anaerobic: inputs.anaerobic } });
-    potentialSource = inputs.anaerobic && (inputs.protectedMetal === 'steel' || inputs.protectedMetal === 'high-strength-steel') ? 'criterion for anaerobic steel (sulphate-reducing bacteria)' : `criterion for ${inputs.protectedMetal}`;
+    potentialSource = inputs.anaerobic && (inputs.protectedMetal === 'steel' || inputs.protectedMetal === 'high-strength-steel') ? 'criterion for anaerobic steel (sulphate-reducing bacteria)' : `criterion for ${METAL_WORDS[inputs.protectedMetal] ?? 'the metal'}`;
   }
   return { resistivityOhmM, resistivitySource, protectivePotentialV, potentialSource };
 }
@@ -238,11 +239,3 @@ export function deskNotices(inputs: DeskInputs): DeskNotice[] {
 /** Notices that say how the design was sized (method, sources, estimates) rather than warn. */
 export const INFORMATION_NOTICE_CODES: ReadonlySet<string> = new Set(['demand-method', 'resistivity-source', 'potential-source', 'mud-served-from-water', 'areas-estimated']);
 
-/** Where a zone's area comes from, in words. */
-export const AREA_SOURCE_WORDS: Record<string, string> = {
-  entered: 'entered',
-  'denny-mumford': 'estimated, Denny-Mumford S = L(1.7T + CB·B)',
-  'denny-mumford-default-cb': 'estimated, Denny-Mumford with the default block coefficient for the vessel type',
-  estimate: 'estimated by rule of thumb',
-  placeholder: 'placeholder: enter the particulars or the area',
-};

@@ -26,7 +26,7 @@ export {
   yearsBetween,
 } from './dates';
 export { chargeAYears, currentAtA, meanCurrentA, yearsToCharge, type DemandProfile } from './demand-profile';
-export { FORECAST_DATE_LABELS, forecastDateWords, type ForecastDateKind } from './labels';
+export { FORECAST_DATE_LABELS, forecastDateWords, type ForecastDateKind } from '@/lib/labels/forecast';
 export {
   BAND_FRACTION,
   DEFAULT_RENEWAL_THRESHOLD_REMAINING,

@@ -1,7 +1,7 @@
 import { addMonthsUTC, dayNumberUTC } from './dates';
 import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
-import { forecastDateWords } from './labels';
+import { forecastDateWords } from '@/lib/labels/forecast';
 import { date, list, record, text, whole } from './validate';
 
 /**
@@ -345,7 +345,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       deadline,
       needsDockingBy: deadline,
       overdue: false,
-      earlierDocking: { by: deadline, reason: `The ${next}: plan an unplanned docking or campaign by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
+      earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan an unplanned docking or campaign by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
       reason: `No planned docking falls on or before the deadline ${formatDateOnly(deadline)}${because}, and ${next}, so the group needs a docking by the deadline.`,
     };
   });

@@ -33,4 +33,4 @@ export function can(role: Role, permission: Permission): boolean {
   return ROLE_PERMISSIONS[role].includes(permission);
 }
 
-export { ROLE_LABELS, ROLE_DESCRIPTIONS } from '@/lib/roles';
+export { ROLE_LABELS, ROLE_DESCRIPTIONS } from '@/lib/labels/roles';

@@ -13,6 +13,8 @@
  * - aluminium -0.90 to -1.10 V, alkaline corrosion beyond (published, ABYC E-2 practice);
  * - stainless -0.75 V and copper alloys (bronze) -0.55 V minimum, no limit in the basis (published, trade).
  */
+import { POTENTIAL_STATUS_LABELS } from '@/lib/labels/surveys';
+import { METAL_WORDS as METAL_NAMES } from '@/lib/labels/design';
 import { CpInputError, MINIMUM_PROTECTION_POTENTIAL, OVER_PROTECTION_LIMIT, protectionCriterionV, type Flag, type ProtectedMetal } from '@/lib/cp';
 
 export type PotentialStatus = 'under-protected' | 'protected' | 'over-protected';
@@ -51,19 +53,7 @@ export interface PotentialClassification {
   message: string;
 }
 
-export const POTENTIAL_STATUS_LABELS: Readonly<Record<PotentialStatus, string>> = {
-  'under-protected': 'Under-protected',
-  protected: 'Protected',
-  'over-protected': 'Over-protected',
-};
 
-const METAL_NAMES: Readonly<Record<ProtectedMetal, string>> = {
-  steel: 'steel',
-  'high-strength-steel': 'high-strength steel',
-  aluminium: 'aluminium',
-  stainless: 'stainless steel',
-  'copper-alloy': 'copper alloy',
-};
 
 /** What over-protection does to each metal (or its coating). */
 const OVER_PROTECTION_HARM: Readonly<Record<ProtectedMetal, string>> = {
@@ -155,11 +145,6 @@ export function classifyPotential({ potentialAgAgClV, protectedMetal: metalIn, a
 
 export type RemainingStatus = 'sound' | 'renew' | 'renew-soon';
 
-export const REMAINING_STATUS_LABELS: Readonly<Record<RemainingStatus, string>> = {
-  sound: 'Sound',
-  'renew-soon': 'Renew soon',
-  renew: 'Renew',
-};
 
 /** Renew when less than 25 % of the original mass remains (published, NAVFAC mooring practice; design basis, Inspection). */
 export const RENEW_BELOW_REMAINING_FRACTION = 0.25;

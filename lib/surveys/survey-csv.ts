@@ -211,7 +211,7 @@ function containsAscii(bytes: Uint8Array, needle: string, limit: number): boolea
   return false;
 }
 
-const EXCEL_MESSAGE = 'This looks like an Excel workbook; save it as CSV (comma separated) first.';
+const WORKBOOK_MESSAGE = 'This looks like a spreadsheet workbook; save it from the spreadsheet as CSV (comma separated) first.';
 
 /**
  * Checks an uploaded file before parsing: size, binary content, UTF-8, emptiness.
@@ -225,10 +225,10 @@ export function checkCsvBytes(bytes: Uint8Array, { maxBytes }: { maxBytes: numbe
 
   if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04]) || startsWith(bytes, [0x50, 0x4b, 0x05, 0x06]) || startsWith(bytes, [0x50, 0x4b, 0x07, 0x08])) {
     const excel = containsAscii(bytes, 'xl/', 1 << 20) || containsAscii(bytes, '[Content_Types].xml', 1 << 20);
-    return { ok: false, code: 'binary', message: excel ? EXCEL_MESSAGE : 'This is a ZIP archive, not a CSV file; upload the CSV file itself.' };
+    return { ok: false, code: 'binary', message: excel ? WORKBOOK_MESSAGE : 'This is a ZIP archive, not a CSV file; upload the CSV file itself.' };
   }
   if (startsWith(bytes, [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])) {
-    return { ok: false, code: 'binary', message: EXCEL_MESSAGE }; // legacy .xls (OLE2 compound file)
+    return { ok: false, code: 'binary', message: WORKBOOK_MESSAGE }; // legacy .xls (OLE2 compound file)
   }
   if (startsWith(bytes, ascii('%PDF'))) return { ok: false, code: 'binary', message: 'This is a PDF document, not a CSV file.' };
   if (startsWith(bytes, [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])) return { ok: false, code: 'binary', message: 'This is a PNG image, not a CSV file.' };

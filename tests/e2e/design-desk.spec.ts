@@ -7,8 +7,8 @@ test('an engineer edits a draft, sees the results recomputed, saves; a second en
   test.setTimeout(120_000);
   await signIn(page, demoUser('engineer').email);
   await page.goto(`/o/${demo.organisation.slug}/designs`);
-  await page.getByRole('link', { name: 'Kittiwake Sound: anode design' }).click();
-  await expect(page.getByRole('heading', { name: /Kittiwake Sound: anode design/ })).toBeVisible();
+  await page.getByRole('link', { name: 'Kittiwake Crossing: anode design' }).click();
+  await expect(page.getByRole('heading', { name: /Kittiwake Crossing: anode design/ })).toBeVisible();
 
   const count = page.getByTestId('anode-count');
   const before = Number(await count.textContent());
@@ -56,7 +56,7 @@ test('an engineer edits a draft, sees the results recomputed, saves; a second en
   const note = await viewerPage.request.get(noteHref!);
   expect(note.headers()['content-type']).toBe('application/pdf');
   const text = (await pdfText(await note.body())).replace(/\s+/g, ' ');
-  expect(text).toContain('Kittiwake Sound');
+  expect(text).toContain('Kittiwake Crossing');
   expect(text).toContain(`${saved} anodes of`);
   expect(text).toContain('Ilse Varga'); // the checker's name in the revision block
   await viewer.close();

@@ -30,7 +30,7 @@ test('a planner opens a docking, confirms the proposed renewals and prints the a
   const text = (await pdfText(await response.body())).replace(/\s+/g, ' ');
   expect(text).toContain('Wavecrest Minnow');
   expect(text).toMatch(/TW-ZB-2510 250 × 100 × 30 Zinc Flush, bolt-on 6 4\.7 5\.0 28\.2 30\.0/);
-  expect(text).toContain('Harrowgate Dry Dock');
+  expect(text).toContain('Gullhaven Graving Dock');
 
   const csv = await page.request.get(href!.replace('format=pdf', 'format=csv'));
   expect(await csv.text()).toContain('TW-ZB-2510');
@@ -48,16 +48,16 @@ test('an engineer may read the planner but not confirm renewals', async ({ page 
 test('a planner opens the next docking of an overdue vessel, finds its renewal proposed and prints the list on A4', async ({ page }) => {
   await signIn(page, demoUser('planner').email);
   await page.goto(`/o/${demo.organisation.slug}/dockings`);
-  // The demo's Kittiwake Sound: its hull group's renew-by date passed about seven weeks ago, its docking is 75 days ahead.
-  const row = page.getByRole('table', { name: 'Renew-by dates' }).getByRole('row', { name: /Kittiwake Sound/ });
+  // The demo's Kittiwake Crossing: its hull group's renew-by date passed about seven weeks ago, its docking is 75 days ahead.
+  const row = page.getByRole('table', { name: 'Renew-by dates' }).getByRole('row', { name: /Kittiwake Crossing/ });
   await expect(row).toContainText('Overdue');
   await expect(row).toContainText(/Proposed at the docking of \d{1,2} [A-Z][a-z]{2} \d{4} \(overdue; plan an earlier docking by /);
   await expect(row).toContainText(/less 6 months\) has passed/);
   // The earlier unplanned docking is offered with its date.
-  await expect(page.getByRole('list', { name: 'Suggested dockings' })).toContainText(/Kittiwake Sound: Unplanned by \d{1,2} [A-Z][a-z]{2} \d{4}/);
+  await expect(page.getByRole('list', { name: 'Suggested dockings' })).toContainText(/Kittiwake Crossing: Unplanned docking by \d{1,2} [A-Z][a-z]{2} \d{4}/);
 
-  await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Kittiwake Sound/ }).getByRole('link').click();
-  await expect(page.getByRole('heading', { name: /Kittiwake Sound: Intermediate docking/ })).toBeVisible();
+  await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Kittiwake Crossing/ }).getByRole('link').click();
+  await expect(page.getByRole('heading', { name: /Kittiwake Crossing: Intermediate docking/ })).toBeVisible();
   const hull = page.getByRole('table', { name: 'Renewals' }).getByRole('row', { name: /Hull P\/S/ });
   await expect(hull).toContainText('Proposed');
   // The scheduler's reason, with the margin, is on the page (not only in a tooltip).
@@ -68,7 +68,7 @@ test('a planner opens the next docking of an overdue vessel, finds its renewal p
   expect(response.headers()['content-type']).toBe('application/pdf');
   const body = await response.body();
   const text = (await pdfText(body)).replace(/\s+/g, ' ');
-  expect(text).toContain('Kittiwake Sound');
+  expect(text).toContain('Kittiwake Crossing');
   expect(text).toContain('TW-ZW-3015');
   // A4 landscape, 841.89 x 595.28 pt (ISO 216), on every page.
   const pages = await pdfPages(body);
@@ -77,7 +77,7 @@ test('a planner opens the next docking of an overdue vessel, finds its renewal p
 
   // The asset page says the same: overdue, and the same words for the group.
   await page.goto(`/o/${demo.organisation.slug}/dockings`);
-  await page.getByRole('table', { name: 'Renew-by dates' }).getByRole('link', { name: 'Kittiwake Sound' }).click();
+  await page.getByRole('table', { name: 'Renew-by dates' }).getByRole('link', { name: 'Kittiwake Crossing' }).click();
   await expect(page.getByLabel('Protection outlook')).toHaveText('Overdue');
   await expect(page.getByRole('table', { name: 'Forecast by group' }).getByRole('row', { name: /Hull P\/S/ })).toContainText(/Proposed at the docking of .* \(overdue; plan an earlier docking by /);
 });

@@ -9,7 +9,7 @@ test('an inspector records a diver survey, uploads readings as CSV and sees an u
   await page.getByLabel('Method', { exact: true }).selectOption('diver');
   await page.getByLabel('Surveyor or contractor').fill('Harbour dive team');
   await page.getByRole('button', { name: 'Record the survey' }).click();
-  await expect(page.getByRole('heading', { name: /Dolphin South: diver survey of 20 Nov 2026/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Dolphin South: Diver survey of 20 Nov 2026/ })).toBeVisible();
 
   // A file with a bad row first: the line is named and nothing is imported.
   const bad = 'location,potential_v,electrode,remaining\nDS-1,-0.99,ag-agcl-seawater,\nDS-2,minus,ag-agcl-seawater,\n';

@@ -12,7 +12,7 @@ test('an inspector records a survey against zinc with two low readings and corre
   await page.getByLabel('Surveyor or contractor').fill('Berth 2 drop cell');
   await page.getByLabel('Reference electrode used').selectOption('zinc');
   await page.getByRole('button', { name: 'Record the survey' }).click();
-  await expect(page.getByRole('heading', { name: /Dolphin North: drop-cell survey of 24 Nov 2026/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Dolphin North: Drop cell survey of 24 Nov 2026/ })).toBeVisible();
 
   const add = page.getByRole('form', { name: 'Add a reading' });
   // The survey's electrode is the reading's default, and stays chosen after a refused submit.
@@ -58,7 +58,7 @@ test('an inspector deletes a survey after confirming; an engineer restores it fr
   await page.getByLabel('Surveyed on').fill('2026-11-25');
   await page.getByLabel('Method', { exact: true }).selectOption('rov');
   await page.getByRole('button', { name: 'Record the survey' }).click();
-  await expect(page.getByRole('heading', { name: /Dolphin North: rov survey of 25 Nov 2026/ })).toBeVisible();
+  await expect(page.getByRole('heading', { name: /Dolphin North: ROV survey of 25 Nov 2026/ })).toBeVisible();
 
   await page.getByRole('button', { name: 'Delete the survey' }).click();
   await expect(page.getByText('Delete this survey with its 0 readings and 0 attachments? An engineer can restore it within 30 days.')).toBeVisible();
@@ -71,7 +71,7 @@ test('an inspector deletes a survey after confirming; an engineer restores it fr
   await page.context().clearCookies();
   await signIn(page, demoUser('engineer').email);
   await page.goto(`/o/${demo.organisation.slug}/surveys`);
-  const binned = page.getByRole('listitem').filter({ hasText: 'Dolphin North: rov survey of 25 Nov 2026' });
+  const binned = page.getByRole('listitem').filter({ hasText: 'Dolphin North: ROV survey of 25 Nov 2026' });
   await expect(binned).toContainText(`Deleted by ${demoUser('inspector').email}`);
   await binned.getByRole('button', { name: 'Restore' }).click();
   await expect(page.getByText('Survey of Dolphin North on 25 Nov 2026 restored.')).toBeVisible();

@@ -171,7 +171,7 @@ describe('anode list and reminders', () => {
     expect(mails[0].subject).toMatch(/Soon Docking docks in 25 days/);
     expect(mails[0].attachments?.[0].contentType).toBe('application/pdf');
     // The renewals with their renew-by dates, and the rule they follow, in the text itself.
-    expect(mails[0].textBody).toMatch(/- Hull: 20 × TW-ZW-3015, proposed, renew by \d{1,2} [A-Z][a-z]{2} \d{4}\n/);
+    expect(mails[0].textBody).toMatch(/- Hull: 20 × TW-ZW-3015 \(Proposed\), renew by \d{1,2} [A-Z][a-z]{2} \d{4}\n/);
     expect(mails[0].textBody).toContain('Renewals are proposed at the last docking at least 6 months before the renew-by date');
   });
 

@@ -114,6 +114,9 @@ describe('assets, groups and history', () => {
     const rowA = lines.find((l) => l.includes(',Row A,'));
     expect(rowA).toContain('TW-AS-1510');
     expect(rowA).toContain(',12,100,118,1200.0,'); // 12 anodes x 100 kg net
+    // The values a person reads are words (lib/labels), never the stored keys.
+    expect(rowA).toMatch(/,(Vessel|Structure),/);
+    expect(rowA).not.toMatch(/,(vessel|structure|al-zn-in|zinc|magnesium|flush-weld|flush-bolt|standoff|bracelet|pile-mounted),/);
   });
 });
 

@@ -13,7 +13,7 @@ import { getTeam } from '@/lib/server/services/team/get-team';
 import { getAuditLog } from '@/lib/server/services/accounts/get-audit-log';
 import { hashToken } from '@/lib/server/tokens';
 import { deliverDueMail, outboxSettled } from '@/lib/server/mail/outbox';
-import { invitationMailKey, MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
+import { invitationMailKey, MAIL_DELIVERY_WORDS } from '@/lib/labels';
 import { ctxFor, inUnitOfWork, makeOrgWithRoles, makeUser, uniqueEmail, runAs } from '../fixtures/factories';
 
 let organisation: Organisation;

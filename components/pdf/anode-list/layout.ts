@@ -150,7 +150,7 @@ export const assetTitle = (list: AnodeList) => list.words.assetTitle;
 
 export const titleLine = (list: AnodeList) => {
   const d = list.docking;
-  return `${list.asset.name} (${list.asset.kind}) · ${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
+  return `${list.asset.name} (${list.words.assetTitle.toLowerCase()}) · ${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}`;
 };
 export const referenceLine = (list: AnodeList) => (list.docking.reference ? `${list.words.reference} ${list.docking.reference}` : '');
 const titleHeight = (list: AnodeList) =>

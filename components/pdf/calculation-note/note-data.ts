@@ -1,6 +1,7 @@
 import { format } from 'date-fns';
 import { anodeFromModel, HIGH_SPEED_FACTOR, HIGH_SPEED_KNOTS, type DesignAnode } from '@/lib/cp';
-import { AREA_SOURCE_WORDS, DEMAND_METHOD_SOURCES, zoneDemand } from '@/lib/design/build-design-input';
+import { DEMAND_METHOD_SOURCES, zoneDemand } from '@/lib/design/build-design-input';
+import { AREA_SOURCE_WORDS } from '@/lib/labels';
 import {
   ALLOY_LABELS,
   CLIMATE_LABELS,
@@ -16,7 +17,14 @@ import {
   STATUS_LABELS,
   WATER_LABELS,
   ZONE_KIND_LABELS,
-} from '@/lib/design/labels';
+  BASIS_FLAG_WORDS,
+  RESISTANCE_FORMULA_LABELS,
+  RESISTANCE_TREATMENT_WORDS,
+  SHAPE_KIND_LABELS,
+  assetKindWord,
+  METAL_WORDS,
+  MODEL_SOURCE_LABELS,
+} from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import type { AnodeModelSnapshot, StoredDesignResult, StoredInputs } from '@/lib/schemas/design-record';
 
@@ -49,42 +57,21 @@ type Condition = 'initial' | 'mean' | 'final';
 const CONDITIONS: Condition[] = ['initial', 'mean', 'final'];
 const CURRENT_KEY = { initial: 'initialA', mean: 'meanA', final: 'finalA' } as const;
 
-/** The basis flags in the words the note prints. */
-export const FLAG_WORDS: Record<'published' | 'memory' | 'practice', string> = {
-  published: 'published',
-  memory: 'to be confirmed against the licensed edition',
-  practice: 'common practice',
-};
+/** The basis flags in the words the note prints (lib/labels). */
+export const FLAG_WORDS = BASIS_FLAG_WORDS;
 
 export const EQUATIONS: Row[] = [
   ['Current demand of a surface', 'Ic = Ac · fc · ic', 'DNV-RP-B401 (2010) sec. 7'],
   ['Coating breakdown factor', 'fc = a + b·t; fci = a, fcm = a + b·tf/2, fcf = a + b·tf (at most 1)', 'DNV-RP-B401 (2010) sec. 7'],
   ['Net anode mass', 'M = Icm · tf · 8760 / (u · ε)', 'DNV-RP-B401 (2010) sec. 7'],
   ['Anode current output', 'Ia = (Ec - Ea) / Ra', 'DNV-RP-B401 (2010) sec. 7'],
-  ['Resistance, long slender stand-off', 'Ra = ρ/(2πL) · (ln(4L/r) - 1)', 'DNV-RP-B401 (2010) Table 10-7 (modified Dwight)'],
-  ['Resistance, long flush', 'Ra = ρ/(2S), S = (L + W)/2', 'DNV-RP-B401 (2010) Table 10-7'],
-  ['Resistance, short flush and bracelet', 'Ra = 0.315 ρ / sqrt(A)', 'DNV-RP-B401 (2010) Table 10-7 (McCoy)'],
+  ['Resistance, ' + RESISTANCE_FORMULA_LABELS['modified-dwight'], 'Ra = ρ/(2πL) · (ln(4L/r) - 1)', 'DNV-RP-B401 (2010) Table 10-7'],
+  ['Resistance, ' + RESISTANCE_FORMULA_LABELS['long-flush'], 'Ra = ρ/(2S), S = (L + W)/2', 'DNV-RP-B401 (2010) Table 10-7'],
+  ['Resistance, ' + RESISTANCE_FORMULA_LABELS.mccoy, 'Ra = 0.315 ρ / √A', 'DNV-RP-B401 (2010) Table 10-7'],
   ['Count', 'N·m >= M; N·Iai >= Ici; N·Iaf >= Icf', 'DNV-RP-B401 (2010) sec. 7'],
 ];
 export const EQUATIONS_NOTE = 'Section and table numbers of DNV-RP-B401 are given from memory: to be confirmed against the licensed edition.';
 
-const SHAPE_WORDS: Record<string, string> = {
-  'slender-standoff': 'Slender, on stand-off legs',
-  'long-flush': 'Long flush plate',
-  'short-flush': 'Short flush plate',
-  bracelet: 'Bracelet (half-shells)',
-};
-const FORMULA_WORDS: Record<string, string> = {
-  'modified-dwight': 'modified Dwight',
-  'short-slender': 'short slender',
-  'long-flush': 'long flush',
-  mccoy: 'McCoy',
-};
-const TREATMENT_WORDS: Record<string, string> = {
-  'as-given': '',
-  'near-flush-slender': '; slender anode below 0.15 m stand-off taken as flush-mounted',
-  'short-flush-fallback': '; flush plate outside the long-flush limits taken by McCoy',
-};
 
 const mm = (m: number | undefined) => (m === undefined ? null : `${fmtInt(m * 1000)} mm`);
 /** A number with at most `digits` decimals, trailing zeros dropped: 16.5, 150, 0.025. */
@@ -111,7 +98,7 @@ function basisFor(data: CalculationNoteData, topic: (t: string) => boolean): str
 }
 
 export const NOTE_TITLE = 'Calculation note: sacrificial-anode cathodic protection';
-export const titleLine = (data: CalculationNoteData) => `${data.asset.name} (${data.asset.kind}) · ${data.design.title}`;
+export const titleLine = (data: CalculationNoteData) => `${data.asset.name} (${assetKindWord(data.asset.kind)}) · ${data.design.title}`;
 export const revisionLine = (data: CalculationNoteData) => `Revision ${data.design.revision} · ${STATUS_LABELS[data.design.status] ?? data.design.status}`;
 export const footerLeft = (data: CalculationNoteData) => `${data.organisation} · ${data.asset.name} · ${data.design.title} · revision ${data.design.revision} (${STATUS_LABELS[data.design.status] ?? data.design.status})`;
 export const footerRight = (data: CalculationNoteData) => `Printed ${format(data.printedAt, 'd MMM yyyy HH:mm')} by ${data.printedBy}`;
@@ -192,9 +179,9 @@ export function anodeRows(data: CalculationNoteData): Row[] {
         ]
       : [['Rated output', 'none on the data sheet', 'output from the resistance formula']];
   return [
-    ['Designation', m.designation, m.source === 'built-in' ? 'built-in catalogue (generic model)' : "organisation's catalogue"],
+    ['Designation', m.designation, m.source === 'built-in' ? `${MODEL_SOURCE_LABELS['built-in']} catalogue (generic model)` : "organisation's catalogue"],
     ['Alloy', ALLOY_LABELS[m.alloy] ?? m.alloy, ''],
-    ['Mounting; shape', `${MOUNTING_LABELS[m.mounting] ?? m.mounting}; ${SHAPE_WORDS[shape.kind] ?? shape.kind}`, 'catalogue'],
+    ['Mounting; shape', `${MOUNTING_LABELS[m.mounting] ?? m.mounting}; ${SHAPE_KIND_LABELS[shape.kind] ?? 'other shape'}`, 'catalogue'],
     ['Electrochemical capacity ε', used ? `${fmtInt(used.capacityAhPerKg)} Ah/kg` : '–', sheetOr(m.capacityAhPerKg, alloyTable)],
     ['Closed-circuit potential Ea', used ? `${fmt(used.potentialV, 3)} V vs Ag/AgCl/seawater` : '–', sheetOr(m.potentialV, alloyTable)],
     ['Utilisation factor u', used ? fmt(used.utilisationFactor, 2) : '–', sheetOr(m.utilisationFactor, basisFor(data, (t) => t.startsWith('utilisation')) ?? 'by shape')],
@@ -245,7 +232,7 @@ function coatingConstants(surface: Surface, row: SurfaceResult | undefined, desi
 export function zoneAreaRows(data: CalculationNoteData): Row[] {
   return data.inputs.surfaces.map((s, i) => [
     s.name,
-    (ZONE_KIND_LABELS[s.kind] ?? s.kind) + (s.drainsCurrent ? `, bare ${s.drainsCurrent} (drain)` : ''),
+    (ZONE_KIND_LABELS[s.kind] ?? s.kind) + (s.drainsCurrent ? `, bare ${METAL_WORDS[s.drainsCurrent] ?? 'metal'} (drain)` : ''),
     fmt(s.areaM2, 1),
     AREA_SOURCE_WORDS[s.areaSource] ?? s.areaSource,
     DEPTH_BAND_LABELS[s.depthBand] ?? s.depthBand,
@@ -312,7 +299,7 @@ export function performanceRows(result: StoredDesignResult): Row[] {
   return [
     ['Required net mass M', `${fmt(result.requiredNetMassKg, 1)} kg`],
     ['Driving voltage Ec - Ea', `${fmt(result.drivingVoltageV, 3)} V`],
-    ['Resistance formula, initial / end of life', `${FORMULA_WORDS[p.initialFormula] ?? p.initialFormula} / ${FORMULA_WORDS[p.finalFormula] ?? p.finalFormula}${TREATMENT_WORDS[p.initialTreatment] ?? ''}`],
+    ['Resistance formula, initial / end of life', `${RESISTANCE_FORMULA_LABELS[p.initialFormula]} / ${RESISTANCE_FORMULA_LABELS[p.finalFormula]}${RESISTANCE_TREATMENT_WORDS[p.initialTreatment] ?? ''}`],
     ['Resistance, initial / end of life', `${fmtSig(p.initialResistanceOhm, 4)} / ${fmtSig(p.finalResistanceOhm, 4)} Ω`],
     ['Output, initial / end of life', `${fmtSig(p.initialOutputA)} / ${fmtSig(p.finalOutputA)} A${p.ratedOutputUsed ? ' (data sheet)' : ''}`],
     ['Installed net / gross mass', `${fmt(result.installedNetMassKg, 1)} / ${result.installedGrossMassKg !== null ? fmt(result.installedGrossMassKg, 1) : '–'} kg`],

@@ -38,7 +38,7 @@ export const ALLOYS: Readonly<Record<AnodeAlloy, AlloyData>> = {
     densityKgM3: 7100, // common practice
     consumptionKgPerAYear: { min: 11.2, max: 11.2 }, // common practice
     source: { source: `${DNV_RP_B401} Table 10-6; MIL-A-18001`, flag: 'memory' },
-    notes: 'Not above about 50 C; passivates in fresh water; iron impurity passivates it.',
+    notes: 'Not above about 50 °C; passivates in fresh water; iron impurity passivates it.',
   },
   magnesium: {
     label: 'Magnesium (standard, AZ63 type)',

@@ -41,7 +41,7 @@ const VESSELS = [
     blockCoefficient: 0.62,
     hullMaterial: 'steel' as const,
     hasImpressedCurrent: true,
-    tradingWaters: 'Gullhaven Sound, temperate coastal',
+    tradingWaters: 'Gullhaven Firth, temperate coastal',
     zones: [
       { name: 'Hull bottom', kind: 'hull-bottom', areaM2: 1107, areaSource: 'denny-mumford', coatingCategory: 'II', coatingAgeYears: 0 },
       { name: 'Boot-top and sides', kind: 'boot-top-sides', areaM2: 1050, areaSource: 'denny-mumford', coatingCategory: 'II', coatingAgeYears: 0 },
@@ -52,7 +52,7 @@ const VESSELS = [
     ] as ZoneSeed[],
   },
   {
-    name: 'Kittiwake Sound',
+    name: 'Kittiwake Crossing',
     vesselType: 'Double-ended passenger ferry',
     imoNumber: null,
     lengthBppM: 68,
@@ -61,12 +61,12 @@ const VESSELS = [
     blockCoefficient: 0.58,
     hullMaterial: 'steel' as const,
     hasImpressedCurrent: false,
-    tradingWaters: 'Gullhaven Sound',
+    tradingWaters: 'Gullhaven Firth',
     zones: [] as ZoneSeed[],
   },
   {
     name: 'Tern Ledger',
-    vesselType: 'Multicat workboat',
+    vesselType: 'Multi-purpose workboat',
     imoNumber: null,
     lengthBppM: 26,
     beamM: 10,
@@ -159,8 +159,8 @@ export async function seedDemo(em: EntityManager): Promise<{ created: boolean }>
     await approveDesign(checker, ferry.id);
     // The jetty: a draft for a 20-year life with pile-mounted Al-Zn-In anodes.
     await createDesign(engineer, { assetId: assets['Gullhaven Ferry Jetty'], title: 'Ferry jetty piles, 20-year design' });
-    // Kittiwake Sound: a draft from the particulars (Denny-Mumford estimate).
-    await createDesign(engineer, { assetId: assets['Kittiwake Sound'] });
+    // Kittiwake Crossing: a draft from the particulars (Denny-Mumford estimate).
+    await createDesign(engineer, { assetId: assets['Kittiwake Crossing'] });
 
     await seedRegister(tx, engineer, await ctxFor('inspector@gullhaven.example'), assets, ferry.id);
     await seedSubscription(organisation as Organisation);
@@ -199,10 +199,10 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   for (const [zone, label, quantity, positions] of ferryZones) {
     await fit('Brindlemoor', { zoneId: await zoneId('Brindlemoor', zone), label, anodeModelKey: 'builtin:TW-AW-4020', quantity, positions, installedOn: '2025-03-14', designId: ferryDesignId });
   }
-  // Kittiwake Sound is overdue: 40 x TW-ZW-3015 (8.4 kg net, zinc 780 Ah/kg) at 9.5 A use about 106.7 kg a year, so 25 % of the
+  // Kittiwake Crossing is overdue: 40 x TW-ZW-3015 (8.4 kg net, zinc 780 Ah/kg) at 9.5 A use about 106.7 kg a year, so 25 % of the
   // 336 kg is left about 862 days after fitting. Fitted 910 days before the seeding day, the hull group's renew-by date was
   // about seven weeks ago and its margin ran out long before; its next docking (in 75 days) carries the renewal.
-  await fit('Kittiwake Sound', { label: 'Hull P/S', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 40, positions: 'Fr 6-60 P and S', installedOn: inDays(-910), meanCurrentA: 9.5 });
+  await fit('Kittiwake Crossing', { label: 'Hull P/S', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 40, positions: 'Fr 6-60 P and S', installedOn: inDays(-910), meanCurrentA: 9.5 });
   await fit('Tern Ledger', { label: 'Hull and nozzles', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 16, positions: 'Bilge keels and nozzle rims', installedOn: '2025-06-20', meanCurrentA: 2.1 });
   await fit('Wavecrest Minnow', { label: 'Hulls P/S', anodeModelKey: 'builtin:TW-ZB-2510', quantity: 8, positions: 'Transoms and keels, both hulls', installedOn: '2025-04-11', meanCurrentA: 0.9 });
   const jettyImmersed = await zoneId('Gullhaven Ferry Jetty', 'Piles, immersed (48 × Ø 0.61 m × 9.5 m)');
@@ -215,17 +215,17 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   const survey = (asset: string, surveyedOn: string, method: string, surveyor: string, readings: Record<string, unknown>[]) =>
     createSurvey(inspector, { assetId: assets[asset], surveyedOn, method, surveyor, defaultElectrode: 'ag-agcl-seawater', readings });
   const pile = (location: string, potentialV: number, remainingFraction: number | null = null, group: string | null = null) => ({ location, potentialV, electrode: 'ag-agcl-seawater', anodeGroupLabel: group, remainingFraction, comment: null });
-  await survey('Gullhaven Ferry Jetty', '2024-11-18', 'diver', 'Brannock Kelp Divers', [
+  await survey('Gullhaven Ferry Jetty', '2024-11-18', 'diver', 'Gullhaven Harbour Divers', [
     pile('B1-A', -0.99, 0.52, 'Bents 1-6'), pile('B3-C', -0.97), pile('B6-D', -0.96, 0.5, 'Bents 1-6'),
     pile('B7-A', -0.95, 0.47, 'Bents 7-12'), pile('B9-B', -0.93), pile('B12-D', -0.9, 0.44, 'Bents 7-12'),
   ]);
-  await survey('Gullhaven Ferry Jetty', '2025-11-20', 'diver', 'Brannock Kelp Divers', [
+  await survey('Gullhaven Ferry Jetty', '2025-11-20', 'diver', 'Gullhaven Harbour Divers', [
     pile('B1-A', -0.98, 0.45, 'Bents 1-6'), pile('B3-C', -0.95), pile('B6-D', -0.94, 0.43, 'Bents 1-6'),
     pile('B7-A', -0.9, 0.37, 'Bents 7-12'), pile('B9-B', -0.84), pile('B11-C', -0.78, null), pile('B12-D', -0.81, 0.33, 'Bents 7-12'),
   ]);
-  await survey('Dolphin North', '2025-11-21', 'diver', 'Brannock Kelp Divers', [pile('DN-1', -1.01, 0.7, 'Dolphin N bracelets'), pile('DN-4', -1.0)]);
+  await survey('Dolphin North', '2025-11-21', 'diver', 'Gullhaven Harbour Divers', [pile('DN-1', -1.01, 0.7, 'Dolphin N bracelets'), pile('DN-4', -1.0)]);
   await survey('Brindlemoor', '2025-09-03', 'drop-cell', 'Ship staff', [pile('Fr 40 P', -0.97), pile('Fr 40 S', -0.98), pile('Fr 110 P', -0.95)]);
-  await survey('Brindlemoor', '2026-06-12', 'diver', 'Brannock Kelp Divers', [
+  await survey('Brindlemoor', '2026-06-12', 'diver', 'Gullhaven Harbour Divers', [
     pile('Fr 40 P', -0.96, 0.84, 'Bottom P/S'), pile('Fr 110 S', -0.94, 0.82, 'Sides P/S'), pile('Rudder P', -0.93, 0.72, 'Rudders'), pile('Stern frame', -0.91, 0.7, 'Stern frame'),
   ]);
   await survey('Wavecrest Minnow', '2026-03-30', 'drop-cell', 'Ship staff', [pile('Transom P', -1.02), pile('Transom S', -1.03)]);
@@ -235,15 +235,15 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
     const docking = em.create(DockingSchema, { organisation: engineer.organisation, asset: assets[asset], kind: kind as never, status, plannedStart, plannedEnd: null, actualStart: status === 'done' ? plannedStart : null, actualEnd: null, yard, reference: null, notes: null });
     return docking;
   };
-  await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Harrowgate Dry Dock', 'done');
-  await plan('Brindlemoor', 'intermediate', inDays(640), 'Harrowgate Dry Dock');
-  await plan('Kittiwake Sound', 'intermediate', inDays(75), 'Corrie Point Shiprepair');
+  await plan('Brindlemoor', 'renewal-survey', '2025-03-10', 'Gullhaven Graving Dock', 'done');
+  await plan('Brindlemoor', 'intermediate', inDays(640), 'Gullhaven Graving Dock');
+  await plan('Kittiwake Crossing', 'intermediate', inDays(75), 'North Basin Ship Repair');
   // Tern Ledger's hull group is renewed by about November 2027 (25 % of its mass left): its docking falls
   // at least the 6-month margin before that, so the renewal is proposed there.
-  await plan('Tern Ledger', 'intermediate', inDays(120), 'Corrie Point Shiprepair');
-  await plan('Wavecrest Minnow', 'unplanned', inDays(29), 'Harrowgate Dry Dock');
-  await plan('Gullhaven Ferry Jetty', 'campaign', inDays(150), 'Brannock Kelp Divers');
-  await plan('Dolphin North', 'campaign', inDays(150), 'Brannock Kelp Divers');
+  await plan('Tern Ledger', 'intermediate', inDays(120), 'North Basin Ship Repair');
+  await plan('Wavecrest Minnow', 'unplanned', inDays(29), 'Gullhaven Graving Dock');
+  await plan('Gullhaven Ferry Jetty', 'campaign', inDays(150), 'Gullhaven Harbour Divers');
+  await plan('Dolphin North', 'campaign', inDays(150), 'Gullhaven Harbour Divers');
 }
 
 

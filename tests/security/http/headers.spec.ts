@@ -86,7 +86,7 @@ test('the main pages run under the policy without a single violation', async ({ 
   await expectScriptsRan(page);
   // A design desk.
   await page.goto(`/o/${org}/designs`);
-  await page.getByRole('link', { name: 'Kittiwake Sound: anode design' }).click();
+  await page.getByRole('link', { name: 'Kittiwake Crossing: anode design' }).click();
   await expect(page.getByTestId('anode-count')).toBeVisible();
   await expectScriptsRan(page);
   // The planner, with its timeline, and a docking's anode list as a PDF.

@@ -104,8 +104,8 @@ describe('buildAnodeList: fitting notes', () => {
     expect(all).toMatch(/take the masking off/);
     expect(all).toMatch(/Never paint/);
     expect(all).toMatch(/measure continuity to the hull after fitting/);
-    expect(all).toMatch(/fuel tanks .*\(practice\)/);
-    expect(all).toMatch(/propeller blade tips.*flow lines \(practice\)/);
+    expect(all).toMatch(/fuel tanks .*\(common practice\)/);
+    expect(all).toMatch(/propeller blade tips.*flow lines \(common practice\)/);
     expect(all).toMatch(/back in Tidewarden/);
     // No acceptance value in ohms is stated anywhere.
     expect(all).not.toMatch(/ohm|Ω|\d\s*m?Ω/i);

@@ -44,6 +44,6 @@ describe('interlocks: each fires in its case and not in its clean neighbour', ()
     expect(w.find((x) => x.code === 'magnesium-on-coated-steel')?.message).toMatch(/disbond.*zinc or aluminium/);
     expect(w.find((x) => x.code === 'magnesium-in-brackish-water')?.message).toMatch(/zinc or aluminium/);
     const z = designAnodeSystem(variant((d) => { zinc(d); delete d.environment.temperatureC; })).warnings;
-    expect(z.find((x) => x.code === 'zinc-temperature-unknown')?.message).toContain('50 C'); // zinc limit about 50 C (design basis, from memory)
+    expect(z.find((x) => x.code === 'zinc-temperature-unknown')?.message).toContain('50 °C'); // zinc limit about 50 °C (design basis, from memory)
   });
 });

@@ -57,7 +57,7 @@ describe.each([
       }),
     );
     expect(html).toContain('Bottom P1: surveyed 14 Mar 2027, 20 kg');
-    expect(html).toContain('reaches its utilisation factor 1 Mar 2027');
+    expect(html).toContain('end of life 1 Mar 2027 (utilisation factor used up)');
     expect(html).toContain('(end of life Mar 2027)');
     expect(html).toContain('Docking 14 Mar 2027');
   });
@@ -73,7 +73,7 @@ describe.each([
         today: day('2027-01-10'),
       }),
     );
-    expect(html).toContain('Morwenna Tide: intermediate 14 Mar 2027;');
+    expect(html).toContain('Morwenna Tide: Intermediate docking 14 Mar 2027;');
     expect(html).toContain('Bottom P1: renew by 14 Mar 2027');
     expect(html).toMatch(/>Mar<\/text>/);
   });

@@ -31,13 +31,13 @@ describe('checkCsvBytes', () => {
     expect(checkCsvBytes(png, { maxBytes: MB })).toMatchObject({ ok: false, code: 'binary' });
   });
 
-  it('recognises PDF, JPEG and Excel workbooks', () => {
+  it('recognises PDF, JPEG and spreadsheet workbooks, naming no spreadsheet program', () => {
     expect(checkCsvBytes(enc('%PDF-1.7\n...'), { maxBytes: MB })).toMatchObject({ ok: false, code: 'binary' });
     expect(checkCsvBytes(new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 1, 2]), { maxBytes: MB })).toMatchObject({ ok: false, code: 'binary' });
     const xlsx = concat([0x50, 0x4b, 0x03, 0x04], new Uint8Array(26), enc('[Content_Types].xml'), enc('xl/workbook.xml'));
     const r = checkCsvBytes(xlsx, { maxBytes: MB });
     expect(r).toMatchObject({ ok: false, code: 'binary' });
-    if (!r.ok) expect(r.message).toBe('This looks like an Excel workbook; save it as CSV (comma separated) first.');
+    if (!r.ok) expect(r.message).toBe('This looks like a spreadsheet workbook; save it from the spreadsheet as CSV (comma separated) first.');
     const zip = concat([0x50, 0x4b, 0x03, 0x04], new Uint8Array(26), enc('readings.csv'));
     const z = checkCsvBytes(zip, { maxBytes: MB });
     expect(z).toMatchObject({ ok: false, code: 'binary' });

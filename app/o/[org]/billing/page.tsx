@@ -4,7 +4,8 @@ import { getPageOrgContextWith } from '@/lib/server/page-context';
 import { organisationReadOnlyReason } from '@/lib/server/org-context';
 import { confirmCheckout, getBillingOverview, hasLiveSubscription } from '@/lib/server/services/billing/manage-subscription';
 import { checkSubscriptionNow } from '@/lib/server/services/billing/reconcile-subscription';
-import { PLAN_IDS, PLANS, STATUS_WORDS, TRIAL_PLAN, assetLimitOf } from '@/lib/billing/plans';
+import { PLAN_IDS, PLANS, TRIAL_PLAN, assetLimitOf } from '@/lib/billing/plans';
+import { INVOICE_STATUS_LABELS, SUBSCRIPTION_STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
@@ -29,7 +30,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
   const [{ invoices, invoicesError }, activeAssets] = await Promise.all([getBillingOverview(ctx), countActiveAssets(ctx)]);
   const readOnly = organisationReadOnlyReason(o);
   const limit = assetLimitOf({ plan: o.plan ?? null, subscriptionStatus: o.subscriptionStatus, trialEndsAt: o.trialEndsAt ?? null, stripeSubscriptionId: o.stripeSubscriptionId ?? null, pastDueSince: o.pastDueSince ?? null });
-  const status = STATUS_WORDS[o.subscriptionStatus] ?? o.subscriptionStatus;
+  const status = SUBSCRIPTION_STATUS_LABELS[o.subscriptionStatus] ?? 'Unknown';
   const tone = readOnly ? 'overdue' : o.subscriptionStatus === 'past_due' ? 'due' : 'sound';
   const planName = o.plan ? PLANS[o.plan].name : `${PLANS[TRIAL_PLAN].name} limits during the trial`;
   return (
@@ -106,7 +107,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <tr key={i.id} className="border-b border-rule">
                       <td className="py-1">{format(new Date(i.date), 'd MMM yyyy')}</td>
                       <td className="num py-1">{i.currency} {fmt(i.amount, 2)}</td>
-                      <td className="py-1 pl-3"><StatusTag tone={i.status === 'paid' ? 'sound' : i.status === 'open' ? 'due' : 'neutral'}>{i.status}</StatusTag></td>
+                      <td className="py-1 pl-3"><StatusTag tone={i.status === 'paid' ? 'sound' : i.status === 'open' ? 'due' : 'neutral'}>{INVOICE_STATUS_LABELS[i.status] ?? 'Unknown'}</StatusTag></td>
                       <td className="py-1 text-right">{i.url ? <a className="text-tide-600 underline" href={i.url}>View</a> : null}</td>
                     </tr>
                   ))}

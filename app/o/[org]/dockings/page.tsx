@@ -5,7 +5,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getPlannerView } from '@/lib/server/services/planner/planner-view';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, forecastDateWords } from '@/lib/forecast/labels';
+import { FORECAST_DATE_LABELS, dockingKindWords, eventWords, forecastDateWords } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { Timeline } from '@/components/planner/timeline';
 import { AcceptSuggestion, DockingForm } from '@/components/planner/docking-form';
@@ -13,7 +13,6 @@ import { TableFrame } from '@/components/ui/table-frame';
 
 export const metadata: Metadata = { title: 'Docking planner' };
 
-const KIND: Record<string, string> = { intermediate: 'Intermediate', 'renewal-survey': 'Renewal survey', unplanned: 'Unplanned', campaign: 'Campaign' };
 
 export default async function DockingsPage({ params }: { params: Promise<{ org: string }> }) {
   const { org } = await params;
@@ -68,7 +67,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                     <td className="py-1.5">{r.group}</td>
                     <td className="py-1.5">
                       <span className="flex flex-wrap items-center gap-2">
-                        {r.overdue || r.status === 'no-docking' ? <StatusTag tone="overdue">{r.overdue ? 'Overdue' : 'Needs a docking'}</StatusTag> : null}
+                        {r.overdue || r.status === 'no-docking' ? <StatusTag tone="overdue">{r.overdue ? 'Overdue' : `Needs a ${eventWords(r.assetKind).event}`}</StatusTag> : null}
                         {r.dockingId ? (
                           <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${r.dockingId}`}>{r.words}</Link>
                         ) : (
@@ -103,7 +102,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                   <tr key={d.id} className="border-b border-rule">
                     <td className="py-1.5"><Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${d.id}`}>{formatDateOnly(d.start)}</Link></td>
                     <td className="py-1.5">{d.assetName}</td>
-                    <td className="py-1.5">{KIND[d.kind] ?? d.kind}</td>
+                    <td className="py-1.5">{dockingKindWords(d.kind)}</td>
                     <td className="py-1.5">{d.yard ?? '—'}</td>
                     <td className="num py-1.5">{d.openRenewals}</td>
                     <td className="num py-1.5">{fmt(d.massDueKg, 0)} kg</td>
@@ -122,7 +121,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                   {view.suggestions.map((s, i) => (
                     <li key={i} className="flex flex-wrap items-center gap-2">
                       {s.source === 'renewal' ? <StatusTag tone="overdue">For a renewal</StatusTag> : null}
-                      <span>{s.assetName}: {KIND[s.kind] ?? s.kind} {s.source === 'renewal' ? 'by' : 'about'} <strong>{formatDateOnly(s.date)}</strong></span>
+                      <span>{s.assetName}: {dockingKindWords(s.kind)} {s.source === 'renewal' ? 'by' : 'about'} <strong>{formatDateOnly(s.date)}</strong></span>
                       <span className="text-xs text-ink-soft">{s.reason}</span>
                       {canPlan ? <AcceptSuggestion org={org} assetId={s.assetId} date={s.date} kind={s.kind} /> : null}
                     </li>

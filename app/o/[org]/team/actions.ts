@@ -4,7 +4,7 @@ import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { changeMemberRole } from '@/lib/server/services/team/change-member-role';
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { restoreMember } from '@/lib/server/services/team/restore-member';
-import { ROLE_LABELS } from '@/lib/roles';
+import { ROLE_LABELS } from '@/lib/labels';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
 

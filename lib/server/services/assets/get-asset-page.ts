@@ -1,6 +1,6 @@
 import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
 import { parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/words/renewal-rule';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/labels';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { getAssetOrThrow } from './get-asset';
 import { listCatalogue } from '../catalogue/anode-models';
@@ -43,7 +43,7 @@ function basisWords(f: GroupWithForecast): string {
 }
 
 /** The forecast table's rows, in the order of the forecasts (by group label). */
-function forecastRows(forecasts: readonly AssetPlan['groups'][number][]): ForecastRow[] {
+function forecastRows(forecasts: readonly AssetPlan['groups'][number][], assetKind: string): ForecastRow[] {
   return forecasts.map((f) => ({
     groupId: f.group.id,
     label: f.group.label,
@@ -54,7 +54,7 @@ function forecastRows(forecasts: readonly AssetPlan['groups'][number][]): Foreca
     renewByEarly: dayOrNull(f.forecast?.renewByEarly),
     renewByLate: dayOrNull(f.forecast?.renewByLate),
     endOfLife: dayOrNull(f.forecast?.endOfLife),
-    renewal: f.proposal ? renewalPlanWords(renewalPlanSummary(f.proposal)) : null,
+    renewal: f.proposal ? renewalPlanWords(renewalPlanSummary(f.proposal), assetKind) : null,
     renewalReason: f.proposal ? renewalReasonOf(f.proposal) : null,
   }));
 }
@@ -101,11 +101,11 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
       };
     });
   // The rule the renew-by dates follow, in words (the docking planner states the same sentence).
-  const renewalRule = renewalRuleSentence(renewalRuleOf(ctx));
-  const marginWords = renewalMarginSentence(renewalMarginMonths(ctx));
+  const renewalRule = renewalRuleSentence(renewalRuleOf(ctx), asset.kind);
+  const marginWords = renewalMarginSentence(renewalMarginMonths(ctx), asset.kind);
   // Anodes of different alloys on one asset work at different potentials: the more active one is
   // consumed protecting the other (common practice: one alloy per asset).
   const alloys = [...new Set(forecasts.map((f) => f.group.model.alloy))];
   const mixedAlloys = alloys.length > 1 ? alloys : null;
-  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts), renewalRule, marginWords, outlook: plan?.outlook ?? null, catalogue, dockings, changes, series, mixedAlloys };
+  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts, asset.kind), renewalRule, marginWords, outlook: plan?.outlook ?? null, catalogue, dockings, changes, series, mixedAlloys };
 }

@@ -7,6 +7,7 @@ import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 import { shownRevision } from './design-view';
+import { HULL_MATERIAL_LABELS, inSentence, STRUCTURE_TYPE_LABELS } from '@/lib/labels';
 
 /**
  * Renders a design revision's calculation note as PDF bytes: a checked or approved revision from its
@@ -23,11 +24,11 @@ export async function renderCalculationNote(ctx: OrgContext, designId: string): 
           ['Vessel', `${asset.name}${asset.vesselType ? `, ${asset.vesselType}` : ''}${asset.imoNumber ? `, IMO ${asset.imoNumber}` : ''}`],
           ['Length between perpendiculars × beam × draught', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM} × ${asset.draughtM} m` : 'not given'],
           ['Block coefficient', asset.blockCoefficient?.toString() ?? 'not given'],
-          ['Hull material', asset.hullMaterial ?? 'not given'],
+          ['Hull material', asset.hullMaterial ? (HULL_MATERIAL_LABELS[asset.hullMaterial] ?? 'not given') : 'not given'],
           ['Impressed-current system', asset.hasImpressedCurrent ? 'fitted' : 'none'],
         ]
       : [
-          ['Structure', `${asset.name}${asset.structureType ? `, ${asset.structureType}` : ''}`],
+          ['Structure', `${asset.name}${asset.structureType ? `, ${inSentence(STRUCTURE_TYPE_LABELS[asset.structureType] ?? '')}` : ''}`],
           ['Location', asset.location ?? 'not given'],
           ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : 'not given'],
         ];

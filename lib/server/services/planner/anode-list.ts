@@ -2,7 +2,7 @@ import { format } from 'date-fns';
 import { AnodeGroupSchema, AnodeModelSchema } from '@/entities';
 import { buildAnodeList, anodeListCsv, type AnodeListDimensions, type AnodeListInput } from '@/lib/anode-list';
 import { BUILTIN_ANODE_MODELS } from '@/lib/cp';
-import { ROLE_LABELS } from '@/lib/roles';
+import { HULL_MATERIAL_LABELS, inSentence, RENEWAL_REASON_LABELS, ROLE_LABELS, STRUCTURE_TYPE_LABELS } from '@/lib/labels';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
 import { audit } from '../../audit';
 import { requirePermission, type OrgContext } from '../../org-context';
@@ -48,10 +48,10 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
           ['Type', a.vesselType ?? '—'],
           ['IMO number', a.imoNumber ?? '—'],
           ['Length between perpendiculars × beam × draught', a.lengthBppM ? `${a.lengthBppM} × ${a.beamM ?? '?'} × ${a.draughtM ?? '?'} m` : '—'],
-          ['Hull', a.hullMaterial ?? '—'],
+          ['Hull', a.hullMaterial ? (HULL_MATERIAL_LABELS[a.hullMaterial] ?? '—') : '—'],
         ]
       : [
-          ['Structure', a.structureType ?? '—'],
+          ['Structure', a.structureType ? (STRUCTURE_TYPE_LABELS[a.structureType] ?? '—') : '—'],
           ['Location', a.location ?? '—'],
           ['Piles', a.pileCount ? `${a.pileCount} × Ø ${a.pileDiameterM ?? '?'} m` : '—'],
         ];
@@ -75,7 +75,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
       grossMassKg: r.grossMassKg,
       dimensions: dimensions.get(modelKey.get(r.groupId) ?? '') ?? null,
       positions: r.positions,
-      reason: r.reason.replace(/-/g, ' '),
+      reason: inSentence(RENEWAL_REASON_LABELS[r.reason] ?? 'Other'),
       status: r.status,
       renewBy: r.status === 'fitted' ? null : (renewBy.get(r.groupId) ?? null),
     })),

@@ -3,7 +3,7 @@ import { DEFAULT_MARGIN_MONTHS, assetOutlook, massDueKg, proposeRenewals, type A
 import { classifyPotential } from '@/lib/surveys/criteria';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import { requirePermission, type OrgContext } from '../../org-context';
-import type { RenewalRuleSettings } from '@/lib/words/renewal-rule';
+import type { RenewalRuleSettings } from '@/lib/labels';
 import { loadGroupForecasts, renewalThresholdRemaining, type GroupWithForecast } from '../forecast/group-forecasts';
 import { inSequence } from '../../sql';
 
@@ -91,4 +91,4 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
   });
 }
 
-export { OUTLOOK_WORDS } from '@/lib/words/outlook';
+export { OUTLOOK_WORDS } from '@/lib/labels';

@@ -1,8 +1,8 @@
 import { RenewalSchema } from '@/entities';
 import { proposeNextDockings, type RenewalProposal } from '@/lib/forecast';
 import { toDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
-import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence, type RenewalPlanSummary } from '@/lib/words/renewal-rule';
+import { forecastDateWords } from '@/lib/labels';
+import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence, type RenewalPlanSummary } from '@/lib/labels';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { computePlans, dockingDate, renewalMarginMonths, renewalRuleOf, type AssetPlan } from './compute-plans';
@@ -26,6 +26,8 @@ export interface PlannerDocking {
 export interface PlannerRenewBy {
   assetId: string;
   assetName: string;
+  /** 'vessel' or 'structure': the words follow it (docking or campaign). */
+  assetKind: string;
   groupId: string;
   group: string;
   /** The forecast's renew-by date, YYYY-MM-DD (the one date the planner and the asset page show). */
@@ -95,6 +97,7 @@ export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups
   return {
     assetId: p.asset.id,
     assetName: p.asset.name,
+    assetKind: p.asset.kind,
     groupId: g.group.id,
     group: g.group.label,
     renewBy: toDateOnly(due),
@@ -103,7 +106,7 @@ export function plannerRenewBy(p: Pick<AssetPlan, 'asset'>, g: AssetPlan['groups
     dockingDate: summary.dockingDate,
     overdue: summary.overdue,
     earlierDockingBy: summary.earlierDockingBy,
-    words: renewalPlanWords(summary),
+    words: renewalPlanWords(summary, p.asset.kind),
     reason: renewalReasonOf(proposal),
   };
 }

@@ -1,6 +1,7 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { writeCsv } from '@/lib/csv/write-csv';
+import { ALLOY_LABELS, ASSET_KIND_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { ilikePattern, toPage, inSequence } from '../../sql';
 
@@ -98,12 +99,16 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
       }));
 }
 
-/** The whole register (fitted groups) as CSV, for spreadsheets and the yard; formula-safe (lib/csv/write-csv). */
+/**
+ * The whole register (fitted groups) as CSV, for spreadsheets and the yard; formula-safe (lib/csv/write-csv).
+ * A data export: the column names are fixed identifiers and dates are YYYY-MM-DD (machine-readable, so a
+ * spreadsheet sorts them); the values a person reads (kind, alloy, mounting) are in the words of lib/labels.
+ */
 export async function exportAnodeRegisterCsv(ctx: OrgContext) {
   const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
   const header = ['asset', 'asset_kind', 'zone', 'group', 'model', 'alloy', 'mounting', 'quantity', 'net_mass_each_kg', 'gross_mass_each_kg', 'net_mass_total_kg', 'positions', 'installed_on', 'last_remaining_fraction', 'last_surveyed_on'];
   return writeCsv([
     header,
-    ...rows.map((r) => [r.assetName, r.assetKind, r.zoneName, r.label, r.model.designation, r.model.alloy, r.model.mounting, r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]),
+    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]),
   ]);
 }

@@ -7,7 +7,7 @@ import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
 import { OUTLOOK_WORDS, type AssetPlan } from '../planner/compute-plans';
 import { formatDateOnly, toDateOnly } from '@/lib/dates/date-only';
-import { forecastDateWords } from '@/lib/forecast/labels';
+import { eventWords, forecastDateWords } from '@/lib/labels';
 
 /** The earliest renew-by date of the asset's groups with a renewal to book or booked, or null. */
 function firstRenewBy(plan: AssetPlan): Date | null {
@@ -23,7 +23,7 @@ function digestLine(plan: AssetPlan, base: string): string {
   const renewBy = firstRenewBy(plan);
   const notes = [
     ...(renewBy ? [`${forecastDateWords('renewBy')} ${formatDateOnly(renewBy)}`] : []),
-    ...(plan.nextDocking ? [`next docking ${formatDateOnly(plan.nextDocking.plannedStart)}`] : []),
+    ...(plan.nextDocking ? [`next ${eventWords(plan.asset.kind).event} ${formatDateOnly(plan.nextDocking.plannedStart)}`] : []),
   ];
   return `- ${plan.asset.name}: ${OUTLOOK_WORDS[plan.outlook]}${notes.length ? ` (${notes.join('; ')})` : ''}\n  ${base}/assets/${plan.asset.id}`;
 }

@@ -7,7 +7,7 @@ import { readingCorrectionMail, underProtectionMail, type MailedReading } from '
 import { getEnv } from '../../env';
 import type { OrgContext } from '../../org-context';
 
-export const ELECTRODE_WORDS: Record<string, string> = { 'ag-agcl-seawater': 'Ag/AgCl/seawater', cse: 'Cu/CuSO₄ (CSE)', sce: 'calomel (SCE)', zinc: 'zinc' };
+import { electrodeWords, POTENTIAL_STATUS_LABELS, surveyInSentence } from '@/lib/labels';
 
 const volts = (v: number) => `${v > 0 ? '+' : v < 0 ? '-' : ''}${Math.abs(v).toFixed(3)} V`;
 
@@ -17,22 +17,21 @@ export function potentialStatusOf(survey: Survey, reading: Pick<SurveyReading, '
   return classifyPotential({ potentialAgAgClV: reading.potentialAgAgClV, ...surveyCriteriaOf(survey.asset) }).status;
 }
 
-const STATUS_WORDS: Record<PotentialStatus, string> = { 'under-protected': 'under-protected', protected: 'protected', 'over-protected': 'over-protected' };
 
 /** "+0.200 V against zinc (-0.850 V Ag/AgCl/seawater): protected", or the remaining mass when there is no potential. */
 export function describeReading(survey: Survey, reading: Pick<SurveyReading, 'potentialV' | 'electrode' | 'potentialAgAgClV' | 'remainingFraction'>): string {
   const parts: string[] = [];
   if (reading.potentialV !== null && reading.potentialV !== undefined) {
-    const electrode = ELECTRODE_WORDS[reading.electrode ?? ''] ?? reading.electrode ?? '';
+    const electrode = electrodeWords(reading.electrode ?? '');
     const converted = reading.electrode !== 'ag-agcl-seawater' && reading.potentialAgAgClV !== null && reading.potentialAgAgClV !== undefined ? ` (${volts(reading.potentialAgAgClV)} Ag/AgCl/seawater)` : '';
     const status = potentialStatusOf(survey, reading);
-    parts.push(`${volts(reading.potentialV)} against ${electrode}${converted}${status ? `: ${STATUS_WORDS[status]}` : ''}`);
+    parts.push(`${volts(reading.potentialV)} against ${electrode}${converted}${status ? `: ${POTENTIAL_STATUS_LABELS[status].toLowerCase()}` : ''}`);
   }
   if (reading.remainingFraction !== null && reading.remainingFraction !== undefined) parts.push(`${Math.round(reading.remainingFraction * 1000) / 10} % of the anode remaining`);
   return parts.join('; ') || 'no value';
 }
 
-export const surveyLabelOf = (survey: Survey) => `${survey.method} survey of ${formatDateOnly(survey.surveyedOn)}`;
+export const surveyLabelOf = (survey: Survey) => `${surveyInSentence(survey.method)} of ${formatDateOnly(survey.surveyedOn)}`;
 const surveyUrl = (ctx: OrgContext, survey: Survey) => `${getEnv().APP_URL}/o/${ctx.organisation.slug}/surveys/${survey.id}`;
 
 /** The people told about protection: the organisation's engineers and owners. */

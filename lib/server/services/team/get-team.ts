@@ -1,5 +1,5 @@
 import { InvitationSchema, MembershipSchema, OutboxMessageSchema } from '@/entities';
-import { invitationMailKey, mailDelivery } from '@/lib/words/mail-delivery';
+import { invitationMailKey, mailDelivery } from '@/lib/labels';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { inSequence } from '../../sql';
 

@@ -8,7 +8,7 @@ import { invitationMail } from '../../mail/templates';
 import { audit } from '../../audit';
 import { getEnv } from '../../env';
 import { ROLE_LABELS } from '../../permissions';
-import { invitationMailKey } from '@/lib/words/mail-delivery';
+import { invitationMailKey } from '@/lib/labels';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { lockRow } from '../../sql';
 import { LIMITS, takeOrRefuse } from '../../auth/rate-limit';

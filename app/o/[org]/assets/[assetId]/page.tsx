@@ -6,11 +6,10 @@ import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
-import { ALLOY_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, STATUS_LABELS, ZONE_KIND_LABELS } from '@/lib/design/labels';
+import { ALLOY_LABELS, ASSET_KIND_LABELS, CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, HULL_MATERIAL_LABELS, METAL_WORDS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, eventWords, inSentence, surveyMethodWords } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS } from '@/lib/forecast/labels';
-import { RENEW_BY_DATE_WORDS } from '@/lib/words/renewal-rule';
+import { FORECAST_DATE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
 import { criteriaSubject } from '@/lib/surveys/criteria';
@@ -49,14 +48,14 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           ['IMO number', asset.imoNumber],
           ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM ?? '?'} × ${asset.draughtM ?? '?'} m` : null],
           ['Block coefficient', asset.blockCoefficient?.toString()],
-          ['Hull material', asset.hullMaterial],
+          ['Hull material', asset.hullMaterial ? HULL_MATERIAL_LABELS[asset.hullMaterial] : null],
           ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
           ['Trading waters', asset.tradingWaters],
         ]
       : [
-          ['Structure', asset.structureType],
+          ['Structure', asset.structureType ? STRUCTURE_TYPE_LABELS[asset.structureType] : null],
           ['Location', asset.location],
-          ['Water', asset.waterType],
+          ['Water', asset.waterType ? WATER_TYPE_LABELS[asset.waterType] : null],
           ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
           ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
         ];
@@ -81,8 +80,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         }
         subtitle={
           <>
-            <Link href={`/o/${org}`} className="text-tide-600 hover:underline">Fleet overview</Link> · {asset.kind === 'vessel' ? 'Vessel' : 'Structure'}
-            {asset.kind === 'vessel' ? (asset.vesselType ? ` · ${asset.vesselType}` : '') : asset.structureType ? ` · ${asset.structureType}` : ''}
+            <Link href={`/o/${org}`} className="text-tide-600 hover:underline">Fleet overview</Link> · {ASSET_KIND_LABELS[asset.kind]}
+            {asset.kind === 'vessel' ? (asset.vesselType ? ` · ${asset.vesselType}` : '') : asset.structureType ? ` · ${STRUCTURE_TYPE_LABELS[asset.structureType]}` : ''}
           </>
         }
         actions={
@@ -166,15 +165,15 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                       </details>
                     ) : null}
                   </td>
-                  <td className="py-1.5">{ZONE_KIND_LABELS[z.kind] ?? z.kind}</td>
+                  <td className="py-1.5">{ZONE_KIND_LABELS[z.kind] ?? 'Other'}</td>
                   <td className="num py-1.5">{fmt(z.areaM2, 1)}</td>
                   <td className="py-1.5 pl-3">
                     {COATING_LABELS[z.coatingCategory] ?? z.coatingCategory}
                     {z.coatingCategory !== 'bare' && z.coatingAgeYears ? `, ${z.coatingAgeYears} yr old` : ''}
-                    {z.drainsCurrent ? ` · bare ${z.drainsCurrent}` : ''}
+                    {z.drainsCurrent ? ` · bare ${METAL_WORDS[z.drainsCurrent]}` : ''}
                   </td>
-                  <td className="py-1.5">{z.waterType}, {z.climate}</td>
-                  <td className="py-1.5">{DEPTH_BAND_LABELS[z.depthBand] ?? z.depthBand}</td>
+                  <td className="py-1.5">{WATER_TYPE_LABELS[z.waterType]}, {inSentence(CLIMATE_LABELS[z.climate] ?? '')}</td>
+                  <td className="py-1.5">{DEPTH_BAND_LABELS[z.depthBand] ?? '–'}</td>
                   <td className="py-1.5 text-right">{canWrite ? <ArchiveZoneButton org={org} assetId={asset.id} zoneId={z.id} name={z.name} /> : null}</td>
                 </tr>
               ))}
@@ -262,7 +261,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           <DepletionChart
             series={series}
             today={today}
-            dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${d.kind === 'campaign' ? 'Campaign' : 'Docking'} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
+            dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${eventWords(asset.kind).Event} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
           />
           <TableFrame label="Forecast by group">
           <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
@@ -273,7 +272,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                 <th className="py-1 text-right font-medium">Consumption</th>
                 <th className="py-1 pl-3 text-left font-medium">Basis</th>
                 <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.renewBy}</th>
-                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.band} (early – late)</th>
+                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.band}</th>
                 <th className="py-1 text-left font-medium text-ink-faint">{FORECAST_DATE_LABELS.endOfLife}</th>
                 <th className="py-1 pl-3 text-left font-medium">Renewal</th>
               </tr>
@@ -311,7 +310,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               {surveys.map((s) => (
                 <li key={s.id} className="flex items-center justify-between py-1.5">
                   <Link href={`/o/${org}/surveys/${s.id}`} className="text-tide-600 hover:underline">
-                    {formatDateOnly(s.surveyedOn)}: {s.method} survey{s.surveyor ? ` by ${s.surveyor}` : ''}
+                    {formatDateOnly(s.surveyedOn)}: {surveyMethodWords(s.method)}{s.surveyor ? ` by ${s.surveyor}` : ''}
                   </Link>
                 </li>
               ))}

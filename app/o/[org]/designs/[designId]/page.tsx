@@ -5,14 +5,13 @@ import { getPageOrgContext } from '@/lib/server/page-context';
 import { AppError } from '@/lib/server/errors';
 import { allowed } from '@/lib/server/org-context';
 import { getDesignDesk, type DesignDesk as DesignDeskView } from '@/lib/server/services/designs/design-view';
-import { STATUS_LABELS } from '@/lib/design/labels';
+import { assetKindWord, dockingKindWords, HULL_MATERIAL_LABELS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS } from '@/lib/labels';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { DesignDesk } from '@/components/design-desk/design-desk';
 import { SignatureBlock } from '@/components/design-desk/signature-block';
 import { FitDesignForm } from '@/components/design-desk/fit-design-form';
 import { listPlannedDockings } from '@/lib/server/services/planner/dockings';
-import { dockingKindWords } from '@/lib/anode-list/words';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import type { DeskState } from '@/components/design-desk/desk-state';
 
@@ -54,7 +53,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
         }
         subtitle={
           <>
-            <Link href={`/o/${org}/designs`} className="text-tide-600 hover:underline">Design desk</Link> · {asset.name} ({asset.kind}) · revision {design.revision}
+            <Link href={`/o/${org}/designs`} className="text-tide-600 hover:underline">Design desk</Link> · {asset.name} ({assetKindWord(asset.kind)}) · revision {design.revision}
             {design.basedOnRevision ? ` (from revision ${design.basedOnRevision})` : ''} · app {design.appVersion}
             {source === 'stored' ? ' · results as stored with this revision, not recomputed' : ''}
           </>
@@ -124,14 +123,14 @@ function AssetSummary({ asset }: { asset: DesignDeskView['design']['asset'] }) {
           ['IMO', asset.imoNumber],
           ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM} × ${asset.draughtM} m` : null],
           ['Block coefficient', asset.blockCoefficient?.toString()],
-          ['Hull', asset.hullMaterial],
+          ['Hull', asset.hullMaterial ? HULL_MATERIAL_LABELS[asset.hullMaterial] : null],
           ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
           ['Trading waters', asset.tradingWaters],
         ]
       : [
-          ['Type', asset.structureType],
+          ['Type', asset.structureType ? STRUCTURE_TYPE_LABELS[asset.structureType] : null],
           ['Location', asset.location],
-          ['Water', asset.waterType],
+          ['Water', asset.waterType ? WATER_TYPE_LABELS[asset.waterType] : null],
           ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
           ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
         ];

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { anodeListWords } from '@/lib/anode-list/words';
+import { anodeListWords, DOCKING_STATUS_LABELS, dockingKindWords, eventWords } from '@/lib/labels';
 import Link from 'next/link';
 import { notFound } from 'next/navigation';
 import { getPageOrgContext } from '@/lib/server/page-context';
@@ -15,8 +15,6 @@ import { listGroupChoices } from '@/lib/server/services/register/list-group-choi
 import { listPlannedDockings } from '@/lib/server/services/planner/dockings';
 
 export const metadata: Metadata = { title: 'Docking' };
-
-const KIND: Record<string, string> = { intermediate: 'Intermediate docking', 'renewal-survey': 'Renewal-survey docking', unplanned: 'Unplanned docking', campaign: 'Diving or works campaign' };
 
 export default async function DockingPage({ params }: { params: Promise<{ org: string; dockingId: string }> }) {
   const { org, dockingId } = await params;
@@ -44,11 +42,11 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
   return (
     <>
       <PageHeader
-        title={`${docking.asset.name}: ${KIND[docking.kind] ?? docking.kind} of ${formatDateOnly(start)}`}
+        title={`${docking.asset.name}: ${dockingKindWords(docking.kind)} of ${formatDateOnly(start)}`}
         subtitle={
           <>
             <Link href={`/o/${org}/dockings`} className="text-tide-600 hover:underline">Docking planner</Link> · <Link href={`/o/${org}/assets/${docking.asset.id}`} className="text-tide-600 hover:underline">{docking.asset.name}</Link>
-            {docking.yard ? ` · ${docking.yard}` : ''} · <StatusTag tone={docking.status === 'planned' ? 'due' : docking.status === 'done' ? 'sound' : 'neutral'}>{docking.status}</StatusTag>
+            {docking.yard ? ` · ${eventWords(docking.asset.kind).Place}: ${docking.yard}` : ''} · <StatusTag tone={docking.status === 'planned' ? 'due' : docking.status === 'done' ? 'sound' : 'neutral'}>{DOCKING_STATUS_LABELS[docking.status] ?? 'Unknown'}</StatusTag>
           </>
         }
         actions={

@@ -20,6 +20,7 @@ import { queryKeys } from '@/lib/client/query-client';
 import { SURVEY_CSV_COLUMNS } from '@/lib/surveys/survey-csv';
 import { listGroupChoices } from '@/lib/server/services/register/list-group-choices';
 import { TableFrame } from '@/components/ui/table-frame';
+import { surveyMethodWords } from '@/lib/labels';
 
 export const metadata: Metadata = { title: 'Survey' };
 
@@ -39,7 +40,7 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
   return (
     <>
       <PageHeader
-        title={`${survey.assetName}: ${survey.method} survey of ${formatDateOnly(survey.surveyedOn)}`}
+        title={`${survey.assetName}: ${surveyMethodWords(survey.method)} of ${formatDateOnly(survey.surveyedOn)}`}
         subtitle={
           <>
             <Link href={`/o/${org}/surveys`} className="text-tide-600 hover:underline">Surveys</Link> · <Link href={`/o/${org}/assets/${survey.assetId}`} className="text-tide-600 hover:underline">{survey.assetName}</Link>

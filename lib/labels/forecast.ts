@@ -5,10 +5,13 @@
 export const FORECAST_DATE_LABELS = {
   /** GroupForecast.renewBy: the higher of 1 - u and the renewal threshold is reached. */
   renewBy: 'Renew by',
-  /** GroupForecast.endOfLife: the utilisation factor u is used up (1 - u remains). */
+  /**
+   * GroupForecast.endOfLife: the utilisation factor u is used up (1 - u remains). One name everywhere (DNV-RP-B401
+   * speaks of the anode's end of life); never "reaches its utilisation factor".
+   */
   endOfLife: 'End of life',
-  /** early to late dates of either. */
-  band: 'Forecast band',
+  /** The early to late forecast of the renew-by date (a faster and a slower wear rate). */
+  band: 'Renew between (earliest – latest)',
 } as const;
 
 export type ForecastDateKind = keyof typeof FORECAST_DATE_LABELS;

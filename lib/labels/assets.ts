@@ -1,0 +1,19 @@
+/** Words for an asset's particulars (safe for client code). */
+export const ASSET_KIND_LABELS: Record<string, string> = { vessel: 'Vessel', structure: 'Structure' };
+
+/** The asset kind inside a sentence or after a name: "(vessel)", "(structure)". */
+export const assetKindWord = (kind: string): string => (ASSET_KIND_LABELS[kind] ?? kind).toLowerCase();
+
+export const STRUCTURE_TYPE_LABELS: Record<string, string> = {
+  jetty: 'Jetty',
+  wharf: 'Wharf',
+  dolphin: 'Dolphin',
+  pontoon: 'Pontoon',
+  'sheet-pile-wall': 'Sheet-pile wall',
+  other: 'Other structure',
+};
+
+export const HULL_MATERIAL_LABELS: Record<string, string> = { steel: 'Steel', aluminium: 'Aluminium' };
+
+/** The water an asset or a zone sits in (a zone can be buried: sediment). */
+export const WATER_TYPE_LABELS: Record<string, string> = { seawater: 'Seawater', brackish: 'Brackish water', fresh: 'Fresh water', sediment: 'Sediment (buried)' };
