@@ -1,5 +1,5 @@
 'use client';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
@@ -12,10 +12,32 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   const [asking, setAsking] = useState(false);
   const client = useQueryClient();
   const { state, action: submit, pending } = useBoundAction(action, { invalidate });
+  // Focus follows the step: "Delete" moves it to "Keep it" (the safe answer), "Keep it" back to "Delete"; once the
+  // record is gone (this control unmounts with its row) it goes to the list it was in, not to the page body.
+  const box = useRef<HTMLElement | null>(null);
+  const moved = useRef(false);
+  const listAfterDelete = useRef<HTMLElement | null>(null);
+  useEffect(() => {
+    if (!moved.current) return;
+    box.current?.querySelector<HTMLButtonElement>(asking ? 'button[type="button"]' : 'button')?.focus();
+  }, [asking]);
+  useEffect(
+    () => () => {
+      const list = listAfterDelete.current;
+      if (!list?.isConnected) return;
+      if (!list.hasAttribute('tabindex')) list.setAttribute('tabindex', '-1');
+      list.focus();
+    },
+    [],
+  );
+  const ask = (value: boolean) => {
+    moved.current = true;
+    setAsking(value);
+  };
   if (!asking) {
     return (
-      <span className="inline-flex items-center gap-2">
-        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => setAsking(true)}>
+      <span ref={box} className="inline-flex items-center gap-2">
+        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => ask(true)}>
           {label}
         </Button>
         <ActionError state={state} />
@@ -24,9 +46,13 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   }
   return (
     <form
+      ref={(el) => {
+        box.current = el;
+      }}
       action={submit}
       // A delete that navigates away (the survey) never reports success here: drop the cached lists as it is sent.
-      onSubmit={() => {
+      onSubmit={(ev) => {
+        listAfterDelete.current = ev.currentTarget.closest<HTMLElement>('table, section');
         for (const queryKey of invalidate) client.removeQueries({ queryKey });
       }}
       className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
@@ -39,7 +65,7 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
         Yes, delete
       </Button>
-      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setAsking(false)}>
+      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => ask(false)}>
         Keep it
       </Button>
       <ActionError state={state} />

@@ -28,7 +28,7 @@ function RoleCell({ org, member }: { org: string; member: TeamMember }) {
         ))}
       </select>
       <Button type="submit" variant="secondary" disabled={pending} className="px-2 py-0.5 text-xs">
-        Save
+        Save<span className="sr-only"> the role of {member.name}</span>
       </Button>
       <ActionError state={state} />
     </form>
@@ -46,7 +46,7 @@ function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
     >
       <input type="hidden" name="membershipId" value={member.id} />
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
-        Remove
+        Remove<span className="sr-only"> {member.name} from the organisation</span>
       </Button>
       <ActionError state={state} className="ml-1" />
     </form>
@@ -59,7 +59,7 @@ function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitati
     <form action={action}>
       <input type="hidden" name="invitationId" value={invitation.id} />
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
-        Withdraw
+        Withdraw<span className="sr-only"> the invitation to {invitation.email}</span>
       </Button>
     </form>
   );
@@ -76,7 +76,7 @@ export function TeamManager({ org }: { org: string }) {
       col.accessor('email', { header: 'E-mail' }),
       col.accessor('role', { header: 'Role', cell: (c) => <RoleCell org={org} member={c.row.original} /> }),
       col.accessor('since', { header: 'Member since', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy') }),
-      col.display({ id: 'remove', header: '', cell: (c) => <RemoveCell org={org} member={c.row.original} /> }),
+      col.display({ id: 'remove', header: () => <span className="sr-only">Remove</span>, cell: (c) => <RemoveCell org={org} member={c.row.original} /> }),
     ];
   }, [org]);
   const invitationColumns = useMemo(() => {
@@ -86,7 +86,7 @@ export function TeamManager({ org }: { org: string }) {
       col.accessor('role', { header: 'Role', cell: (c) => ROLE_LABELS[c.getValue()] }),
       col.accessor('mail', { header: 'Invitation e-mail', cell: (c) => { const mail = c.getValue(); return mail ? MAIL_DELIVERY_WORDS[mail] : '—'; } }),
       col.accessor('expiresAt', { header: 'Expires', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy HH:mm') }),
-      col.display({ id: 'revoke', header: '', cell: (c) => <RevokeCell org={org} invitation={c.row.original} /> }),
+      col.display({ id: 'revoke', header: () => <span className="sr-only">Revoke</span>, cell: (c) => <RevokeCell org={org} invitation={c.row.original} /> }),
     ];
   }, [org]);
 

@@ -7,6 +7,7 @@ import { checkSubscriptionNow } from '@/lib/server/services/billing/reconcile-su
 import { PLAN_IDS, PLANS, STATUS_WORDS, TRIAL_PLAN, assetLimitOf } from '@/lib/billing/plans';
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { INVOICE_STATUS_TONES, SUBSCRIPTION_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
 import { countActiveAssets } from '@/lib/server/services/assets/list-asset-choices';
 
@@ -29,7 +30,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
   const readOnly = organisationReadOnlyReason(o);
   const limit = assetLimitOf({ plan: o.plan ?? null, subscriptionStatus: o.subscriptionStatus, trialEndsAt: o.trialEndsAt ?? null, stripeSubscriptionId: o.stripeSubscriptionId ?? null, pastDueSince: o.pastDueSince ?? null });
   const status = STATUS_WORDS[o.subscriptionStatus] ?? o.subscriptionStatus;
-  const tone = readOnly ? 'overdue' : o.subscriptionStatus === 'past_due' ? 'due' : 'sound';
+  const tone = readOnly ? 'action' : toneOf(SUBSCRIPTION_STATUS_TONES, o.subscriptionStatus);
   const planName = o.plan ? PLANS[o.plan].name : `${PLANS[TRIAL_PLAN].name} limits during the trial`;
   return (
     <>
@@ -96,7 +97,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <th className="py-1 text-left font-medium">Date</th>
                     <th className="py-1 text-right font-medium">Amount</th>
                     <th className="py-1 pl-3 text-left font-medium">Status</th>
-                    <th />
+                    <th><span className="sr-only">Invoice</span></th>
                   </tr>
                 </thead>
                 <tbody>
@@ -104,7 +105,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <tr key={i.id} className="border-b border-rule">
                       <td className="py-1">{format(new Date(i.date), 'd MMM yyyy')}</td>
                       <td className="num py-1">{i.currency} {fmt(i.amount, 2)}</td>
-                      <td className="py-1 pl-3"><StatusTag tone={i.status === 'paid' ? 'sound' : i.status === 'open' ? 'due' : 'neutral'}>{i.status}</StatusTag></td>
+                      <td className="py-1 pl-3"><StatusTag tone={toneOf(INVOICE_STATUS_TONES, i.status)}>{i.status}</StatusTag></td>
                       <td className="py-1 text-right">{i.url ? <a className="text-tide-600 underline" href={i.url}>View</a> : null}</td>
                     </tr>
                   ))}
