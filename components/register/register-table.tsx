@@ -62,7 +62,7 @@ export function RegisterTable({ org, assetId, pageSize = 50 }: { org: string; as
             <input type="checkbox" checked={removed} onChange={(e) => setRemoved(e.target.checked)} /> Removed groups (history)
           </label>
           {assetId ? null : (
-            <a href={`/api/orgs/${org}/anode-groups/export`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-ink hover:bg-paper-sunk">
+            <a href={`/api/orgs/${org}/anode-groups/export`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-ink no-underline hover:bg-paper-sunk">
               Export CSV
             </a>
           )}

@@ -7,7 +7,7 @@ const styles: Record<Variant, string> = {
   danger: 'bg-paper-raised text-state-overdue hover:bg-state-overduebg border-state-overdue/50',
   ghost: 'bg-transparent text-tide-600 hover:bg-tide-50 border-transparent',
 };
-const base = 'inline-flex items-center justify-center gap-1.5 rounded-[3px] border px-3 py-1.5 text-sm font-medium transition-colors disabled:cursor-not-allowed disabled:opacity-50';
+const base = 'inline-flex items-center justify-center gap-1.5 rounded-[3px] border px-3 py-1.5 text-sm font-medium no-underline transition-colors disabled:cursor-not-allowed disabled:opacity-50';
 
 export function Button({ variant = 'primary', className = '', ...props }: React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return <button className={`${base} ${styles[variant]} ${className}`} {...props} />;

@@ -38,10 +38,12 @@ async function firstHref(page: Page, pattern: RegExp): Promise<string | null> {
 async function assetPages(page: Page): Promise<{ label: string; path: string }[]> {
   await page.goto(org);
   const found: { label: string; path: string }[] = [];
+  const rows = page.getByRole('table', { name: 'Fleet' }).getByRole('row').filter({ has: page.locator(`a[href*="${org}/assets/"]`) });
+  await expect(rows.first()).toBeVisible();
   for (const kind of ['vessel', 'structure']) {
-    const row = page.getByRole('row').filter({ hasText: new RegExp(`\\b${kind}\\b`, 'i') }).first();
+    const row = rows.filter({ hasText: new RegExp(`\\b${kind}\\b`, 'i') }).first();
+    expect(await row.count(), `a ${kind} on the fleet overview`).toBe(1);
     const href = await row.locator(`a[href*="${org}/assets/"]`).first().getAttribute('href');
-    expect(href, `a ${kind} on the fleet overview`).toBeTruthy();
     found.push({ label: `asset (${kind})`, path: href! });
   }
   return found;
