@@ -3,6 +3,7 @@ import { useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
+import { useFocusListAfterRemoval } from '@/components/ui/focus-after-removal';
 
 /**
  * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
@@ -16,20 +17,11 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   // record is gone (this control unmounts with its row) it goes to the list it was in, not to the page body.
   const box = useRef<HTMLElement | null>(null);
   const moved = useRef(false);
-  const listAfterDelete = useRef<HTMLElement | null>(null);
+  const rememberList = useFocusListAfterRemoval();
   useEffect(() => {
     if (!moved.current) return;
     box.current?.querySelector<HTMLButtonElement>(asking ? 'button[type="button"]' : 'button')?.focus();
   }, [asking]);
-  useEffect(
-    () => () => {
-      const list = listAfterDelete.current;
-      if (!list?.isConnected) return;
-      if (!list.hasAttribute('tabindex')) list.setAttribute('tabindex', '-1');
-      list.focus();
-    },
-    [],
-  );
   const ask = (value: boolean) => {
     moved.current = true;
     setAsking(value);
@@ -52,7 +44,7 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       action={submit}
       // A delete that navigates away (the survey) never reports success here: drop the cached lists as it is sent.
       onSubmit={(ev) => {
-        listAfterDelete.current = ev.currentTarget.closest<HTMLElement>('table, section');
+        rememberList(ev.currentTarget);
         for (const queryKey of invalidate) client.removeQueries({ queryKey });
       }}
       className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>

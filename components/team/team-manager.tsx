@@ -8,6 +8,7 @@ import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { Panel } from '@/components/ui/panel';
 import { queryKeys } from '@/lib/client/query-client';
+import { useFocusListAfterRemoval } from '@/components/ui/focus-after-removal';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
 import { MAIL_DELIVERY_WORDS } from '@/lib/words/mail-delivery';
 import { ROLES, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/roles';
@@ -37,11 +38,13 @@ function RoleCell({ org, member }: { org: string; member: TeamMember }) {
 
 function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
   const { state, action, pending } = useBoundAction(removeMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const rememberList = useFocusListAfterRemoval();
   return (
     <form
       action={action}
       onSubmit={(e) => {
         if (!confirm(`Remove ${member.name} (${member.email}) from the organisation?`)) e.preventDefault();
+        else rememberList(e.currentTarget);
       }}
     >
       <input type="hidden" name="membershipId" value={member.id} />
@@ -55,8 +58,9 @@ function RemoveCell({ org, member }: { org: string; member: TeamMember }) {
 
 function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitation }) {
   const { action, pending } = useBoundAction(revokeInvitationAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const rememberList = useFocusListAfterRemoval();
   return (
-    <form action={action}>
+    <form action={action} onSubmit={(e) => rememberList(e.currentTarget)}>
       <input type="hidden" name="invitationId" value={invitation.id} />
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
         Withdraw<span className="sr-only"> the invitation to {invitation.email}</span>

@@ -81,7 +81,7 @@ describe('one status palette', () => {
   });
 
   it.each(STATUS_TONES)('the %s tag shows its word and its shape', (tone) => {
-    const html = renderToStaticMarkup(createElement(StatusTag, { tone }, 'Word of the state'));
+    const html = renderToStaticMarkup(createElement(StatusTag, { tone, children: 'Word of the state' }));
     expect(html).toContain('Word of the state');
     expect(html).toContain(`data-shape="${TONE_SPECS[tone].shape}"`);
     expect(html).toContain(`data-tone="${tone}"`);
