@@ -31,6 +31,8 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       <span ref={box} className="inline-flex items-center gap-2">
         <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => ask(true)}>
           {label}
+          {/* Named for what it deletes: a row of "Delete" buttons reads as "Delete the reading at DS-4", … */}
+          {label === 'Delete' ? <span className="sr-only"> {what}</span> : null}
         </Button>
         <ActionError state={state} />
       </span>

@@ -152,3 +152,37 @@ test.describe('accessibility (axe, WCAG 2.1 AA)', () => {
     expect(findings, report(findings)).toEqual([]);
   });
 });
+
+test.describe('focus after a removal', () => {
+  test('removing a zone on the desk moves focus to the zone that took its place, not to the page body', async ({ page }) => {
+    await signIn(page, 'engineer@gullhaven.example');
+    await page.goto(`${org}/designs`);
+    const draft = page.getByRole('table').getByRole('row').filter({ hasText: /\bDraft\b/ }).first();
+    await draft.getByRole('link').first().click();
+    const zones = page.getByRole('listitem', { name: /^Zone \d+$/ });
+    await expect(zones.first()).toBeVisible();
+    const before = await zones.count();
+    expect(before, 'the demo draft has at least two zones').toBeGreaterThan(1);
+    const second = await zones.nth(1).getByLabel('Zone name').inputValue();
+    await zones.first().getByRole('button', { name: /^Remove zone / }).click();
+    await expect(zones).toHaveCount(before - 1);
+    // The zone that was second is now first, and its name field has the focus.
+    await expect(zones.first().getByLabel('Zone name')).toBeFocused();
+    await expect(zones.first().getByLabel('Zone name')).toHaveValue(second);
+  });
+
+  test('"Delete" moves focus to "Keep it", and "Keep it" back to the delete button named for its reading', async ({ page }) => {
+    await signIn(page, 'inspector@gullhaven.example');
+    await page.goto(`${org}/surveys`);
+    // A survey with readings (the others say "No readings yet").
+    const withReadings = page.locator('main tbody tr').filter({ hasNotText: 'No readings yet' }).first();
+    await withReadings.locator(`a[href*="${org}/surveys/"]`).first().click();
+    const remove = page.getByRole('table', { name: 'Readings' }).getByRole('button', { name: /^Delete the reading at / }).first();
+    await expect(remove).toBeVisible();
+    const name = (await remove.textContent())!.trim();
+    await remove.click();
+    await expect(page.getByRole('button', { name: 'Keep it' })).toBeFocused();
+    await page.getByRole('button', { name: 'Keep it' }).click();
+    await expect(page.getByRole('button', { name, exact: true })).toBeFocused();
+  });
+});
