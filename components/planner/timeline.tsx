@@ -30,7 +30,7 @@ const fillOf = (kind: string) => {
   return style.pattern === 'solid' ? style.colour : `url(#tw-kind-${style.pattern})`;
 };
 
-/** The fill patterns of the kinds, defined once in the timeline's svg and once in the legend's. */
+/** The fill patterns of the kinds, defined in the timeline's svg; the legend's swatches use the same ids. */
 function KindPatterns() {
   const k = DOCKING_KIND_STYLES;
   return (
