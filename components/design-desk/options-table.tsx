@@ -9,7 +9,8 @@ export function OptionsTable({ options, chosenKey, onChoose }: { options: Option
   const unsuitable = options.filter((o): o is Extract<OptionRow, { suitable: false }> => !o.suitable);
   return (
     <div className="flex flex-col gap-2">
-      <div className="max-h-96 overflow-auto">
+      {/* Focusable so the list scrolls from the keyboard when it holds no control (read-only roles). */}
+      <div className="max-h-96 overflow-auto" tabIndex={0} role="region" aria-label="Options compared, scrollable">
         <table className="w-full text-sm" aria-label="Options compared">
           <thead className="sticky top-0 bg-paper-raised text-xs text-ink-soft">
             <tr className="border-b border-rule">
