@@ -8,21 +8,28 @@ const config: Config = {
     extend: {
       colors: {
         paper: { DEFAULT: '#f7f6f2', raised: '#ffffff', sunk: '#eeece6' },
-        ink: { DEFAULT: '#1c232b', soft: '#46505b', faint: '#7b8590' },
+        ink: { DEFAULT: '#1c232b', soft: '#46505b', faint: '#5f6872' },
         rule: { DEFAULT: '#d9d5cc', strong: '#b9b3a7' },
         tide: { 50: '#eef6f6', 100: '#d3e8e8', 300: '#7fb4b6', 500: '#2f7479', 600: '#235c61', 700: '#1a474b', 900: '#0f2b2e' },
         brass: { 100: '#f4ead7', 500: '#a67a2c', 700: '#7a5718' },
+        // The status palette: one meaning per colour (lib/status/palette.ts, DEVELOPERS.md "Status colours").
+        // Text colours are at least 4.5:1 on their own background and on paper.
         state: {
+          action: '#a8322e',
+          actionbg: '#f8e2e0',
+          soon: '#85590c',
+          soonbg: '#faefd6',
           sound: '#2d7244',
           soundbg: '#e5f1e8',
-          due: '#9a6a12',
-          duebg: '#faefd6',
+          progress: '#1f5a85',
+          progressbg: '#e1ecf5',
+          over: '#6a3f8f',
+          overbg: '#efe6f6',
+          // Older names of the same two colours, used by messages and errors: overdue = action, due = soon.
           overdue: '#a8322e',
           overduebg: '#f8e2e0',
-          under: '#6a3f8f',
-          underbg: '#efe6f6',
-          over: '#1f5a85',
-          overbg: '#e1ecf5',
+          due: '#85590c',
+          duebg: '#faefd6',
         },
       },
       fontFamily: {

@@ -5,6 +5,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { format } from 'date-fns';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
+import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { useDesigns } from '@/lib/client/use-designs';
 import { CRITERION_LABELS, STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
@@ -20,7 +21,7 @@ export function DesignsList({ org, initial }: { org: string; initial: DesignList
       col.accessor('revision', { header: 'Rev.', meta: { numeric: true } }),
       col.accessor('status', {
         header: 'Status',
-        cell: (c) => <StatusTag tone={c.getValue() === 'approved' ? 'sound' : c.getValue() === 'checked' ? 'due' : 'neutral'}>{STATUS_LABELS[c.getValue()]}</StatusTag>,
+        cell: (c) => <StatusTag tone={toneOf(DESIGN_STATUS_TONES, c.getValue())}>{STATUS_LABELS[c.getValue()]}</StatusTag>,
       }),
       col.accessor('anodeCount', { header: 'Anodes', meta: { numeric: true }, cell: (c) => (c.row.original.hasError ? 'needs inputs' : (c.getValue() ?? '–')) }),
       col.accessor('governingCriterion', { header: 'Governed by', cell: (c) => (c.getValue() ? CRITERION_LABELS[c.getValue()!] : '–') }),

@@ -36,7 +36,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
                   <th className="py-1 text-left font-medium">Criterion</th>
                   <th className="py-1 text-right font-medium">Exact</th>
                   <th className="py-1 text-right font-medium">Minimum</th>
-                  <th className="py-1 text-right font-medium"></th>
+                  <th className="py-1 text-right font-medium"><span className="sr-only">Governs the count</span></th>
                 </tr>
               </thead>
               <tbody>
@@ -131,7 +131,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
             <table className="w-full text-sm">
               <thead className="text-xs text-ink-soft">
                 <tr className="border-b border-rule">
-                  <th className="py-1 text-left font-medium"></th>
+                  <th className="py-1 text-left font-medium"><span className="sr-only">When</span></th>
                   <th className="py-1 text-right font-medium">Resistance Ω</th>
                   <th className="py-1 text-right font-medium">Output A</th>
                   <th className="py-1 text-left font-medium pl-3">Formula</th>

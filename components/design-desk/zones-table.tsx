@@ -1,4 +1,5 @@
 'use client';
+import { useEffect, useRef } from 'react';
 import { zoneDensitySource } from '@/lib/design/build-design-input';
 import { AREA_SOURCE_WORDS } from '@/lib/labels';
 import { defaultVesselZones } from '@/lib/design/default-zones';
@@ -24,7 +25,18 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
   const disabled = !editable;
   const setZone = (index: number, change: Partial<DeskSurfaceDraft>) =>
     update((s) => ({ ...s, surfaces: s.surfaces.map((z, i) => (i === index ? { ...z, ...change } : z)) }));
-  const removeZone = (index: number) => update((s) => ({ ...s, surfaces: s.surfaces.filter((_, i) => i !== index) }));
+  // After a removal, focus goes to the name of the zone that took its place (or the last one), not to the page body.
+  const focusAfterRemoval = useRef<number | null>(null);
+  useEffect(() => {
+    if (focusAfterRemoval.current === null) return;
+    const next = Math.min(focusAfterRemoval.current, inputs.surfaces.length - 1);
+    focusAfterRemoval.current = null;
+    document.getElementById(`zone-name-${next}`)?.focus();
+  }, [inputs.surfaces.length]);
+  const removeZone = (index: number) => {
+    focusAfterRemoval.current = index;
+    update((s) => ({ ...s, surfaces: s.surfaces.filter((_, i) => i !== index) }));
+  };
   const addZone = () =>
     update((s) => ({
       ...s,

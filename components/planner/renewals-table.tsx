@@ -6,6 +6,7 @@ import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction } from '@/components/ui/action-form';
 import { StatusTag } from '@/components/ui/panel';
+import { RENEWAL_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { fetchJson, queryKeys } from '@/lib/client/query-client';
 import { fmt } from '@/lib/format';
 import { todayDateOnly } from '@/lib/dates/date-only';
@@ -13,7 +14,6 @@ import type { DockingRenewalRow } from '@/lib/server/services/planner/docking-re
 import { renewalStepAction } from '@/app/o/[org]/dockings/actions';
 import { RENEWAL_REASON_LABELS, RENEWAL_STATUS_LABELS } from '@/lib/labels';
 
-const STATUS_TONE: Record<string, 'neutral' | 'due' | 'sound' | 'overdue' | 'under'> = { proposed: 'due', confirmed: 'sound', ordered: 'sound', fitted: 'neutral', cancelled: 'neutral' };
 const STATUS_WORDS = RENEWAL_STATUS_LABELS;
 
 function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: DockingRenewalRow; dockingId: string; canEdit: boolean; dockings: { id: string; label: string }[] }) {
@@ -35,7 +35,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
             ))}
           </select>
           <Button type="submit" name="step" value="update" variant="ghost" className="px-1.5 py-0.5 text-xs" disabled={pending}>
-            Save
+            Save<span className="sr-only"> quantity and docking of {row.groupLabel}</span>
           </Button>
         </>
       ) : (
@@ -48,19 +48,19 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
       ) : null}
       {row.status === 'confirmed' ? (
         <Button type="submit" name="step" value="ordered" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
-          Mark ordered
+          Mark ordered<span className="sr-only">: {row.groupLabel}</span>
         </Button>
       ) : null}
       {row.status === 'confirmed' || row.status === 'ordered' ? (
         <>
           <input type="date" name="fittedOn" defaultValue={today} max={today} aria-label={`Fitted on, ${row.groupLabel}`} className="rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs max-lg:min-h-11" />
           <Button type="submit" name="step" value="fitted" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
-            Fitted
+            Fitted<span className="sr-only">: {row.groupLabel}</span>
           </Button>
         </>
       ) : null}
       <Button type="submit" name="step" value="cancel" variant="ghost" className="px-2 py-0.5 text-xs" disabled={pending}>
-        Cancel
+        Cancel<span className="sr-only"> the renewal of {row.groupLabel}</span>
       </Button>
       <ActionError state={state} className="w-full" />
     </form>
@@ -97,8 +97,8 @@ export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { 
           </span>
         ),
       }),
-      col.accessor('status', { header: 'Status', cell: (c) => <StatusTag tone={STATUS_TONE[c.getValue()] ?? 'neutral'}>{STATUS_WORDS[c.getValue()] ?? c.getValue()}</StatusTag> }),
-      col.display({ id: 'steps', header: '', cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} dockings={dockings} /> }),
+      col.accessor('status', { header: 'Status', cell: (c) => <StatusTag tone={toneOf(RENEWAL_STATUS_TONES, c.getValue())}>{STATUS_WORDS[c.getValue()] ?? c.getValue()}</StatusTag> }),
+      col.display({ id: 'steps', header: () => <span className="sr-only">Next step</span>, cell: (c) => <Steps org={org} row={c.row.original} dockingId={dockingId} canEdit={canEdit} dockings={dockings} /> }),
     ];
     // The docking choices are compared by content: a refreshed page passes an equal but new array.
     // eslint-disable-next-line react-hooks/exhaustive-deps

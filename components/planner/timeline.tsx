@@ -13,7 +13,43 @@ interface Props {
   months?: number;
 }
 
-const KIND_FILL: Record<string, string> = { intermediate: '#2f7479', 'renewal-survey': '#1a474b', unplanned: '#a8322e', campaign: '#a67a2c' };
+/**
+ * How each kind of docking is drawn: a fill pattern and a letter as well as a colour, so the kinds read in grey
+ * print and for anyone who does not tell the colours apart. The colours are tide and ink shades, never a status
+ * colour (red, amber, green, blue, purple mean one state each: lib/status/palette.ts).
+ */
+export const DOCKING_KIND_STYLES: Readonly<Record<string, { label: string; letter: string; pattern: 'solid' | 'diagonal' | 'cross' | 'horizontal'; colour: string }>> = {
+  intermediate: { label: DOCKING_KIND_LABELS['intermediate']!, letter: 'I', pattern: 'solid', colour: '#2f7479' },
+  'renewal-survey': { label: DOCKING_KIND_LABELS['renewal-survey']!, letter: 'R', pattern: 'diagonal', colour: '#1a474b' },
+  unplanned: { label: DOCKING_KIND_LABELS['unplanned']!, letter: 'U', pattern: 'cross', colour: '#46505b' },
+  campaign: { label: DOCKING_KIND_LABELS['campaign']!, letter: 'C', pattern: 'horizontal', colour: '#0f2b2e' },
+};
+const OTHER_KIND = { label: dockingKindWords(''), letter: '', pattern: 'solid', colour: '#46505b' } as const;
+const fillOf = (kind: string) => {
+  const style = DOCKING_KIND_STYLES[kind] ?? OTHER_KIND;
+  return style.pattern === 'solid' ? style.colour : `url(#tw-kind-${style.pattern})`;
+};
+
+/** The fill patterns of the kinds, defined in the timeline's svg; the legend's swatches use the same ids. */
+function KindPatterns() {
+  const k = DOCKING_KIND_STYLES;
+  return (
+    <defs>
+      <pattern id="tw-kind-diagonal" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+        <rect width="6" height="6" fill="#d3e8e8" />
+        <rect width="3" height="6" fill={k['renewal-survey'].colour} />
+      </pattern>
+      <pattern id="tw-kind-cross" width="6" height="6" patternUnits="userSpaceOnUse">
+        <rect width="6" height="6" fill="#ffffff" />
+        <path d="M0 0 L6 6 M6 0 L0 6" stroke={k.unplanned.colour} strokeWidth="1.3" />
+      </pattern>
+      <pattern id="tw-kind-horizontal" width="4" height="4" patternUnits="userSpaceOnUse">
+        <rect width="4" height="4" fill="#eef6f6" />
+        <rect width="4" height="2" fill={k.campaign.colour} />
+      </pattern>
+    </defs>
+  );
+}
 const monthStart = (d: Date) => Date.UTC(d.getUTCFullYear(), d.getUTCMonth(), 1);
 
 /** Months across, assets down: each docking or campaign as a bar with the anode mass due; red marks the renew-by date of a group no planned docking renews in time. */
@@ -28,14 +64,18 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
   const x = (iso: string | number) => labelW + ((typeof iso === 'number' ? iso : parseDateOnly(iso).getTime()) - start) / (end - start) * months * monthW;
   const monthTicks = Array.from({ length: months }, (_, i) => Date.UTC(new Date(start).getUTCFullYear(), new Date(start).getUTCMonth() + i, 1));
   return (
-    <div role="region" aria-label="Docking timeline (scrolls sideways)" tabIndex={0} className="max-w-full overflow-x-auto">
-      <svg width={width} height={height} role="img" aria-label="Docking timeline" className="rounded-[3px] border border-rule bg-paper-raised">
+    // A figure, not an image: the asset names and the bars are links, and an image may not hold links.
+    <figure aria-label="Docking timeline" className="m-0">
+      {/* The chart scrolls sideways inside its own frame (never the page), from the keyboard too. */}
+      <div role="region" aria-label="Docking timeline (scrolls sideways)" tabIndex={0} className="max-w-full overflow-x-auto">
+      <svg width={width} height={height} className="rounded-[3px] border border-rule bg-paper-raised">
+        <KindPatterns />
         {monthTicks.map((t) => {
           const d = new Date(t);
           return (
             <g key={t}>
               <line x1={x(t)} x2={x(t)} y1={0} y2={height} stroke={d.getUTCMonth() === 0 ? '#b9b3a7' : '#eeece6'} />
-              <text x={x(t) + 3} y={14} fontSize="9.5" fill="#7b8590">
+              <text x={x(t) + 3} y={14} fontSize="9.5" fill="#5f6872">
                 {d.getUTCMonth() === 0 ? d.getUTCFullYear() : formatDateOnly(d, 'MMM')}
               </text>
             </g>
@@ -58,13 +98,22 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
                   const x1 = Math.max(labelW, x(d.start));
                   const x2 = Math.max(x1 + 8, x(d.end ?? d.start) + 6);
                   if (x1 > width) return null;
+                  const style = DOCKING_KIND_STYLES[d.kind] ?? OTHER_KIND;
+                  const done = d.status === 'done';
+                  const name = `${a.name}: ${dockingKindWords(d.kind)} ${formatDateOnly(d.start)}${d.yard ? ` (${eventWords(a.kind).place} ${d.yard})` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)${done ? '; done' : ''}`;
                   return (
-                    <Link key={d.id} href={`/o/${org}/dockings/${d.id}`}>
-                      <rect x={x1} y={y + 5} width={x2 - x1} height={rowH - 10} rx={2} fill={KIND_FILL[d.kind] ?? '#46505b'} opacity={d.status === 'done' ? 0.45 : 1}>
-                        <title>{`${a.name}: ${dockingKindWords(d.kind)} ${formatDateOnly(d.start)}${d.yard ? ` (${eventWords(a.kind).place} ${d.yard})` : ''}; ${Math.round(d.massDueKg)} kg of anodes due (${d.openRenewals} renewals open)`}</title>
+                    <Link key={d.id} href={`/o/${org}/dockings/${d.id}`} aria-label={name}>
+                      {/* Done: faded with a dashed outline and the word "done" beside it, not by the fading alone. */}
+                      <rect x={x1} y={y + 5} width={x2 - x1} height={rowH - 10} rx={2} fill={fillOf(d.kind)} opacity={done ? 0.45 : 1} stroke={done ? '#1c232b' : style.colour} strokeWidth={1} strokeDasharray={done ? '3 2' : undefined} data-kind-pattern={style.pattern}>
+                        <title>{name}</title>
                       </rect>
+                      {style.letter && x2 - x1 >= 12 ? (
+                        <text x={(x1 + x2) / 2} y={y + 18.5} textAnchor="middle" fontSize="10" fontWeight="700" fill="#1c232b" stroke="#ffffff" strokeWidth="2.5" paintOrder="stroke" aria-hidden>
+                          {style.letter}
+                        </text>
+                      ) : null}
                       <text x={x2 + 3} y={y + 19} fontSize="10" fill="#1c232b">
-                        {d.massDueKg > 0 ? `${Math.round(d.massDueKg)} kg` : d.status === 'done' ? 'done' : ''}
+                        {[d.massDueKg > 0 ? `${Math.round(d.massDueKg)} kg` : '', done ? 'done' : ''].filter(Boolean).join(' · ')}
                       </text>
                     </Link>
                   );
@@ -82,13 +131,17 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
           );
         })}
       </svg>
-      <p className="mt-2 flex flex-wrap gap-4 text-xs text-ink-soft">
-        {Object.entries(DOCKING_KIND_LABELS).map(([k, label]) => (
+      </div>
+      <figcaption className="mt-2 flex flex-wrap gap-4 text-xs text-ink-soft">
+        {Object.entries(DOCKING_KIND_STYLES).map(([k, style]) => (
           <span key={k} className="inline-flex items-center gap-1.5">
-            <svg width="14" height="10" aria-hidden>
-              <rect width="14" height="10" rx="2" fill={KIND_FILL[k]} />
+            <svg width="22" height="14" aria-hidden>
+              <rect x="0.5" y="0.5" width="21" height="13" rx="2" fill={fillOf(k)} stroke={style.colour} />
+              <text x="11" y="10.5" textAnchor="middle" fontSize="10" fontWeight="700" fill="#1c232b" stroke="#ffffff" strokeWidth="2.5" paintOrder="stroke">
+                {style.letter}
+              </text>
             </svg>
-            {label}
+            {`${style.letter}: ${style.label}`}
           </span>
         ))}
         <span className="inline-flex items-center gap-1.5">
@@ -97,8 +150,8 @@ export function Timeline({ org, assets, dockings, needsDocking, today, months = 
           </svg>
           {`${FORECAST_DATE_LABELS.renewBy} of a group no planned docking renews in time`}
         </span>
-        <span>Labels: net anode mass due at the docking. Faded: done.</span>
-      </p>
-    </div>
+        <span>Labels: net anode mass due at the docking; &ldquo;done&rdquo; (faded, dashed outline) once the docking is done.</span>
+      </figcaption>
+    </figure>
   );
 }

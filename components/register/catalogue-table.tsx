@@ -28,6 +28,7 @@ function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
       <input type="hidden" name="archive" value={model.archived ? '0' : '1'} />
       <Button type="submit" variant="ghost" className="px-1 py-0 text-xs" disabled={pending}>
         {model.archived ? 'Restore' : 'Archive'}
+        <span className="sr-only"> {model.designation}</span>
       </Button>
     </form>
   );
@@ -47,7 +48,7 @@ export function CatalogueTable({ org, initial, canWrite }: { org: string; initia
       col.accessor('netMassKg', { header: 'Net kg', meta: { numeric: true }, cell: (c) => fmt(c.getValue(), 1) }),
       col.accessor('grossMassKg', { header: 'Gross kg', meta: { numeric: true }, cell: (c) => fmt(c.getValue(), 1) }),
       col.accessor('unitPrice', { header: 'Unit price', meta: { numeric: true }, cell: (c) => (c.getValue() === undefined ? '—' : fmt(c.getValue(), 2)) }),
-      col.display({ id: 'actions', header: '', cell: (c) => (canWrite && c.row.original.source === 'organisation' ? <ArchiveButton org={org} model={c.row.original} /> : null) }),
+      col.display({ id: 'actions', header: () => <span className="sr-only">Actions</span>, cell: (c) => (canWrite && c.row.original.source === 'organisation' ? <ArchiveButton org={org} model={c.row.original} /> : null) }),
     ];
   }, [org, canWrite]);
   return <DataTable label="Anode models" data={query.data ?? []} columns={columns} pageSize={50} filterPlaceholder="Filter by designation, alloy, mounting…" />;

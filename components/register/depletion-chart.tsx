@@ -11,9 +11,36 @@ interface Props {
   title?: string;
 }
 
-// Line colours of our own, told apart by dash pattern as well, so the chart reads in grey print too.
+// Line colours of our own; each series also has its own dash pattern, its own point marker and a letter drawn on
+// the line and in the legend, so no two series differ by colour alone and the chart reads in grey print.
 const COLOURS = ['#235c61', '#a67a2c', '#6a3f8f', '#2d7244', '#a8322e', '#3b6ea5', '#7a5718', '#46505b'];
-const DASHES = ['', '6 3', '2 3', '8 3 2 3'];
+const DASHES = ['', '7 3', '2 3', '9 3 2 3', '4 4', '12 4', '2 2 6 2', '9 2 2 2 2 2'];
+// No circle, diamond or cross among them: those mark a survey, the renew-by date and the end of life.
+export type SeriesMarker = 'square' | 'triangle' | 'inverted' | 'bar' | 'chevron';
+const MARKERS: readonly SeriesMarker[] = ['square', 'triangle', 'inverted', 'bar', 'chevron'];
+
+/** The look of the i-th series: colour, dash pattern, marker and letter (A, B, …, Z, AA, …); no two alike for the first 40. */
+export function seriesStyle(i: number): { colour: string; dash: string; marker: SeriesMarker; letter: string } {
+  const letter = i < 26 ? String.fromCharCode(65 + i) : `${String.fromCharCode(65 + Math.floor(i / 26) - 1)}${String.fromCharCode(65 + (i % 26))}`;
+  return { colour: COLOURS[i % COLOURS.length], dash: DASHES[i % DASHES.length], marker: MARKERS[i % MARKERS.length], letter };
+}
+
+/** A series' point marker, centred on (x, y), drawn in its colour on white so it reads over the grid. */
+function Marker({ kind, x, y, colour }: { kind: SeriesMarker; x: number; y: number; colour: string }) {
+  const p = { fill: colour, stroke: '#ffffff', strokeWidth: 1 } as const;
+  switch (kind) {
+    case 'square':
+      return <rect x={x - 3.5} y={y - 3.5} width={7} height={7} {...p} />;
+    case 'triangle':
+      return <path d={`M ${x} ${y - 4.5} L ${x + 4.5} ${y + 3.5} L ${x - 4.5} ${y + 3.5} Z`} {...p} />;
+    case 'inverted':
+      return <path d={`M ${x} ${y + 4.5} L ${x + 4.5} ${y - 3.5} L ${x - 4.5} ${y - 3.5} Z`} {...p} />;
+    case 'bar':
+      return <rect x={x - 1.75} y={y - 5} width={3.5} height={10} {...p} />;
+    default:
+      return <path d={`M ${x - 4.5} ${y - 1} L ${x} ${y - 5} L ${x + 4.5} ${y - 1} L ${x + 4.5} ${y + 3} L ${x} ${y - 1} L ${x - 4.5} ${y + 3} Z`} {...p} />;
+  }
+}
 
 /** Remaining net mass of each group over time, with survey points, renew-by and end-of-life marks, dockings and today. */
 export function DepletionChart({ series, dockings = [], today, title = 'Remaining net anode mass' }: Props) {
@@ -37,18 +64,18 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
         {ticks.map((kg) => (
           <g key={kg}>
             <line x1={pad.left} x2={width - pad.right} y1={y(kg)} y2={y(kg)} stroke="#eeece6" />
-            <text x={pad.left - 6} y={y(kg) + 3} textAnchor="end" fontSize="10" fill="#7b8590">
+            <text x={pad.left - 6} y={y(kg) + 3} textAnchor="end" fontSize="10" fill="#5f6872">
               {Math.round(kg).toLocaleString('en-GB')}
             </text>
           </g>
         ))}
-        <text x={12} y={pad.top + 4} fontSize="10" fill="#7b8590" transform={`rotate(-90 12 ${pad.top + 4})`} textAnchor="end">
+        <text x={12} y={pad.top + 4} fontSize="10" fill="#5f6872" transform={`rotate(-90 12 ${pad.top + 4})`} textAnchor="end">
           kg net
         </text>
         {years.map((t) => (
           <g key={t}>
             <line x1={x(t)} x2={x(t)} y1={pad.top} y2={height - pad.bottom} stroke="#eeece6" />
-            <text x={x(t)} y={height - pad.bottom + 14} textAnchor="middle" fontSize="10" fill="#7b8590">
+            <text x={x(t)} y={height - pad.bottom + 14} textAnchor="middle" fontSize="10" fill="#5f6872">
               {new Date(t).getUTCFullYear()}
             </text>
           </g>
@@ -66,10 +93,22 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
           today
         </text>
         {series.map((s, i) => {
-          const colour = COLOURS[i % COLOURS.length];
+          const { colour, dash, marker, letter } = seriesStyle(i);
+          // Markers at a few points along the line, offset per series so neighbours do not sit on one another;
+          // the letter sits by the first of them.
+          const n = s.points.length;
+          const at = n ? [0.2, 0.45, 0.7, 0.95].map((f) => s.points[Math.min(n - 1, Math.floor(n * ((f + (i % 4) * 0.05) % 1)))]) : [];
           return (
-            <g key={s.label}>
-              <polyline fill="none" stroke={colour} strokeWidth="1.8" strokeDasharray={DASHES[Math.floor(i / COLOURS.length) % DASHES.length] || DASHES[i % DASHES.length]} points={s.points.map((p) => `${x(p.date.getTime())},${y(p.kg)}`).join(' ')} />
+            <g key={s.label} data-series={letter} data-dash={dash} data-marker={marker}>
+              <polyline fill="none" stroke={colour} strokeWidth="1.8" strokeDasharray={dash || undefined} points={s.points.map((p) => `${x(p.date.getTime())},${y(p.kg)}`).join(' ')} />
+              {at.map((p, j) => (
+                <Marker key={j} kind={marker} x={x(p.date.getTime())} y={y(p.kg)} colour={colour} />
+              ))}
+              {at[0] ? (
+                <text x={x(at[0].date.getTime()) + 6} y={y(at[0].kg) - 6} fontSize="10" fontWeight="700" fill="#1c232b" stroke="#ffffff" strokeWidth="2.5" paintOrder="stroke">
+                  {letter}
+                </text>
+              ) : null}
               {s.surveys.map((p, j) => (
                 <circle key={j} cx={x(p.date.getTime())} cy={y(p.kg)} r="3.5" fill="#fff" stroke={colour} strokeWidth="1.8">
                   <title>{`${s.label}: surveyed ${formatDateOnly(p.date)}, ${Math.round(p.kg)} kg`}</title>
@@ -94,15 +133,16 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
       <figcaption className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
         {series.map((s, i) => (
           <span key={s.label} className="inline-flex items-center gap-1.5">
-            <svg width="22" height="8" aria-hidden>
-              <line x1="0" x2="22" y1="4" y2="4" stroke={COLOURS[i % COLOURS.length]} strokeWidth="2" strokeDasharray={DASHES[i % DASHES.length]} />
+            <svg width="34" height="12" aria-hidden>
+              <line x1="0" x2="34" y1="6" y2="6" stroke={seriesStyle(i).colour} strokeWidth="2" strokeDasharray={seriesStyle(i).dash || undefined} />
+              <Marker kind={seriesStyle(i).marker} x={17} y={6} colour={seriesStyle(i).colour} />
             </svg>
-            {s.label}
+            <strong className="font-semibold text-ink">{seriesStyle(i).letter}</strong> {s.label}
             {s.renewBy ? `: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy, 'MMM yyyy')}` : ''}
             {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
-        <span>○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: dockings</span>
+        <span>Letters and markers: one per group · ○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: dockings</span>
       </figcaption>
     </figure>
   );

@@ -1,13 +1,10 @@
 import { classifyPotential, type ClassifyPotentialInput, type PotentialStatus } from '@/lib/surveys/criteria';
-import { StatusTag, type StatusTone } from '@/components/ui/panel';
+import { StatusTag } from '@/components/ui/status-tag';
+import { POTENTIAL_TONES } from '@/lib/status/palette';
 import { fmt } from '@/lib/format';
 
-/** The colour cue of a reading's status, the same on every screen (over-protection has its own). */
-export const POTENTIAL_STATUS_TONES: Readonly<Record<PotentialStatus, StatusTone>> = {
-  'under-protected': 'overdue',
-  protected: 'sound',
-  'over-protected': 'over',
-};
+/** The colour cue of a reading's status, the same on every screen (the one palette, lib/status/palette.ts). */
+export const POTENTIAL_STATUS_TONES: typeof POTENTIAL_TONES = POTENTIAL_TONES;
 
 type Criteria = Omit<ClassifyPotentialInput, 'potentialAgAgClV'>;
 

@@ -5,6 +5,7 @@ import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { ServerTable } from '@/components/ui/server-table';
 import { StatusTag } from '@/components/ui/panel';
+import { REMAINING_TONES } from '@/lib/status/palette';
 import { ALLOY_LABELS } from '@/lib/labels';
 import { classifyRemaining } from '@/lib/surveys/criteria';
 import { REMAINING_STATUS_LABELS } from '@/lib/labels';
@@ -39,7 +40,7 @@ export function RegisterTable({ org, assetId, pageSize = 50 }: { org: string; as
           return (
             <span className="inline-flex items-center gap-1.5">
               {fmt(f * 100, 0)} %<span className="text-2xs text-ink-faint">{day(c.row.original.lastSurveyedOn)}</span>
-              <StatusTag tone={status === 'sound' ? 'sound' : status === 'renew-soon' ? 'due' : 'overdue'}>{REMAINING_STATUS_LABELS[status]}</StatusTag>
+              <StatusTag tone={REMAINING_TONES[status]}>{REMAINING_STATUS_LABELS[status]}</StatusTag>
             </span>
           );
         },
@@ -62,7 +63,7 @@ export function RegisterTable({ org, assetId, pageSize = 50 }: { org: string; as
             <input type="checkbox" checked={removed} onChange={(e) => setRemoved(e.target.checked)} /> Removed groups (history)
           </label>
           {assetId ? null : (
-            <a href={`/api/orgs/${org}/anode-groups/export`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-ink hover:bg-paper-sunk">
+            <a href={`/api/orgs/${org}/anode-groups/export`} className="rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-ink no-underline hover:bg-paper-sunk">
               Export CSV
             </a>
           )}

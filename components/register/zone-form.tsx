@@ -97,7 +97,7 @@ export function ArchiveZoneButton({ org, assetId, zoneId, name }: { org: string;
       <input type="hidden" name="assetId" value={assetId} />
       <input type="hidden" name="zoneId" value={zoneId} />
       <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
-        Archive
+        Archive<span className="sr-only"> the zone {name}</span>
       </Button>
       <ActionError state={refusal} className="ml-2" />
     </form>

@@ -1,8 +1,9 @@
 'use client';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { ActionError, useBoundAction, type BoundAction } from '@/components/ui/action-form';
+import { useFocusListAfterRemoval } from '@/components/ui/focus-after-removal';
 
 /**
  * A delete in two steps: "Delete" asks, in the page, what goes and whether it can come back; only
@@ -12,11 +13,26 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   const [asking, setAsking] = useState(false);
   const client = useQueryClient();
   const { state, action: submit, pending } = useBoundAction(action, { invalidate });
+  // Focus follows the step: "Delete" moves it to "Keep it" (the safe answer), "Keep it" back to "Delete"; once the
+  // record is gone (this control unmounts with its row) it goes to the list it was in, not to the page body.
+  const box = useRef<HTMLElement | null>(null);
+  const moved = useRef(false);
+  const rememberList = useFocusListAfterRemoval();
+  useEffect(() => {
+    if (!moved.current) return;
+    box.current?.querySelector<HTMLButtonElement>(asking ? 'button[type="button"]' : 'button')?.focus();
+  }, [asking]);
+  const ask = (value: boolean) => {
+    moved.current = true;
+    setAsking(value);
+  };
   if (!asking) {
     return (
-      <span className="inline-flex items-center gap-2">
-        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => setAsking(true)}>
+      <span ref={box} className="inline-flex items-center gap-2">
+        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => ask(true)}>
           {label}
+          {/* Named for what it deletes: a row of "Delete" buttons reads as "Delete the reading at DS-4", … */}
+          {label === 'Delete' ? <span className="sr-only"> {what}</span> : null}
         </Button>
         <ActionError state={state} />
       </span>
@@ -24,9 +40,13 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   }
   return (
     <form
+      ref={(el) => {
+        box.current = el;
+      }}
       action={submit}
       // A delete that navigates away (the survey) never reports success here: drop the cached lists as it is sent.
-      onSubmit={() => {
+      onSubmit={(ev) => {
+        rememberList(ev.currentTarget);
         for (const queryKey of invalidate) client.removeQueries({ queryKey });
       }}
       className="inline-flex flex-wrap items-center gap-2 text-xs" role="group" aria-label={`Delete ${what}`}>
@@ -39,7 +59,7 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
         Yes, delete
       </Button>
-      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setAsking(false)}>
+      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => ask(false)}>
         Keep it
       </Button>
       <ActionError state={state} />

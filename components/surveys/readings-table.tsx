@@ -3,6 +3,7 @@ import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
+import { REMAINING_TONES } from '@/lib/status/palette';
 import { Button } from '@/components/ui/button';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
@@ -56,7 +57,7 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
           ) : (
             <span className="inline-flex items-center gap-1.5">
               {fmt(c.getValue()! * 100, 0)} %
-              {c.row.original.remainingStatus ? <StatusTag tone={c.row.original.remainingStatus === 'sound' ? 'sound' : c.row.original.remainingStatus === 'renew-soon' ? 'due' : 'overdue'}>{REMAINING_STATUS_LABELS[c.row.original.remainingStatus]}</StatusTag> : null}
+              {c.row.original.remainingStatus ? <StatusTag tone={REMAINING_TONES[c.row.original.remainingStatus]}>{REMAINING_STATUS_LABELS[c.row.original.remainingStatus]}</StatusTag> : null}
             </span>
           ),
       }),

@@ -6,6 +6,7 @@ import { createColumnHelper } from '@tanstack/react-table';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { ServerTable } from '@/components/ui/server-table';
 import { StatusTag } from '@/components/ui/panel';
+import { POTENTIAL_TONES } from '@/lib/status/palette';
 import { fmt } from '@/lib/format';
 import type { SurveyListRow } from '@/lib/server/services/surveys/survey-details';
 import { SURVEY_METHOD_LABELS } from '@/lib/labels';
@@ -24,7 +25,7 @@ export function SurveysTable({ org, assetId }: { org: string; assetId?: string }
         id: 'under',
         header: 'Outcome',
         enableSorting: false,
-        cell: (c) => (c.row.original.readings === 0 ? <StatusTag tone="neutral">No readings yet</StatusTag> : c.getValue() ? <StatusTag tone="overdue">{c.getValue()} under-protected</StatusTag> : <StatusTag tone="sound">No under-protection</StatusTag>),
+        cell: (c) => (c.row.original.readings === 0 ? <StatusTag tone="neutral">No readings yet</StatusTag> : c.getValue() ? <StatusTag tone={POTENTIAL_TONES['under-protected']}>{c.getValue()} under-protected</StatusTag> : <StatusTag tone="sound">No under-protection</StatusTag>),
       }),
     ];
   }, [org]);

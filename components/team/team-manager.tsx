@@ -10,6 +10,7 @@ import { Panel } from '@/components/ui/panel';
 import { announce } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { queryKeys } from '@/lib/client/query-client';
+import { useFocusListAfterRemoval } from '@/components/ui/focus-after-removal';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
 import { MAIL_DELIVERY_WORDS } from '@/lib/labels';
 import { ROLES } from '@/lib/roles';
@@ -54,11 +55,13 @@ function RemoveCell({ org, member, onRemoved }: { org: string; member: TeamMembe
     // one notice per answer
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [state]);
+  const rememberList = useFocusListAfterRemoval();
   return (
     <form
       action={action}
       onSubmit={(e) => {
         if (!confirm(`Remove ${member.name} (${member.email}) from the organisation?`)) e.preventDefault();
+        else rememberList(e.currentTarget);
       }}
     >
       <input type="hidden" name="membershipId" value={member.id} />
@@ -72,11 +75,12 @@ function RemoveCell({ org, member, onRemoved }: { org: string; member: TeamMembe
 
 function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitation }) {
   const { action, pending } = useBoundAction(revokeInvitationAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const rememberList = useFocusListAfterRemoval();
   return (
-    <form action={action}>
+    <form action={action} onSubmit={(e) => rememberList(e.currentTarget)}>
       <input type="hidden" name="invitationId" value={invitation.id} />
       <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
-        Withdraw
+        Withdraw<span className="sr-only"> the invitation to {invitation.email}</span>
       </Button>
     </form>
   );
@@ -110,7 +114,7 @@ export function TeamManager({ org }: { org: string }) {
       col.accessor('email', { header: 'E-mail' }),
       col.accessor('role', { header: 'Role', cell: (c) => <RoleCell org={org} member={c.row.original} onSaved={(state) => report.current.saved(state)} /> }),
       col.accessor('since', { header: 'Member since', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy') }),
-      col.display({ id: 'remove', header: '', cell: (c) => <RemoveCell org={org} member={c.row.original} onRemoved={(state) => report.current.removed(state)} /> }),
+      col.display({ id: 'remove', header: () => <span className="sr-only">Remove</span>, cell: (c) => <RemoveCell org={org} member={c.row.original} onRemoved={(state) => report.current.removed(state)} /> }),
     ];
   }, [org]);
   const invitationColumns = useMemo(() => {
@@ -120,7 +124,7 @@ export function TeamManager({ org }: { org: string }) {
       col.accessor('role', { header: 'Role', cell: (c) => ROLE_LABELS[c.getValue()] }),
       col.accessor('mail', { header: 'Invitation e-mail', cell: (c) => { const mail = c.getValue(); return mail ? MAIL_DELIVERY_WORDS[mail] : '—'; } }),
       col.accessor('expiresAt', { header: 'Expires', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy HH:mm') }),
-      col.display({ id: 'revoke', header: '', cell: (c) => <RevokeCell org={org} invitation={c.row.original} /> }),
+      col.display({ id: 'revoke', header: () => <span className="sr-only">Revoke</span>, cell: (c) => <RevokeCell org={org} invitation={c.row.original} /> }),
     ];
   }, [org]);
 

@@ -26,20 +26,8 @@ export function PageHeader({ title, subtitle, actions }: { title: React.ReactNod
   );
 }
 
-export type StatusTone = 'sound' | 'due' | 'overdue' | 'under' | 'over' | 'neutral';
-
-/** Status in words first; the colour is a second cue. */
-export function StatusTag({ tone, children }: { tone: StatusTone; children: React.ReactNode }) {
-  const tones: Record<StatusTone, string> = {
-    sound: 'bg-state-soundbg text-state-sound border-state-sound/30',
-    due: 'bg-state-duebg text-state-due border-state-due/30',
-    overdue: 'bg-state-overduebg text-state-overdue border-state-overdue/30',
-    under: 'bg-state-underbg text-state-under border-state-under/30',
-    over: 'bg-state-overbg text-state-over border-state-over/30',
-    neutral: 'bg-paper-sunk text-ink-soft border-rule',
-  };
-  return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tones[tone]}`}>{children}</span>;
-}
+// The status tag lives in its own file with the palette; re-exported here for the pages that import it with the panel.
+export { StatusTag, type StatusTone } from '@/components/ui/status-tag';
 
 /** A caution strip; without children it carries the one caution sentence (lib/labels/caution.ts). */
 export function Caution({ children }: { children?: React.ReactNode }) {

@@ -5,7 +5,7 @@ import { pdfPages, pdfText } from '../fixtures/pdf-text';
 test('a planner opens a docking, confirms the proposed renewals and prints the anode list', async ({ page }) => {
   await signIn(page, demoUser('planner').email);
   await page.goto(`/o/${demo.organisation.slug}/dockings`);
-  await expect(page.getByRole('img', { name: 'Docking timeline' })).toBeVisible();
+  await expect(page.getByRole('figure', { name: 'Docking timeline' })).toBeVisible();
   await page.getByRole('table', { name: 'Planned dockings' }).getByRole('row', { name: /Wavecrest Minnow/ }).getByRole('link').click();
   await expect(page.getByRole('heading', { name: /Wavecrest Minnow: Unplanned docking/ })).toBeVisible();
 

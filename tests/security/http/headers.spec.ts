@@ -91,7 +91,7 @@ test('the main pages run under the policy without a single violation', async ({ 
   await expectScriptsRan(page);
   // The planner, with its timeline, and a docking's anode list as a PDF.
   await page.goto(`/o/${org}/dockings`);
-  await expect(page.getByRole('img', { name: 'Docking timeline' })).toBeVisible();
+  await expect(page.getByRole('figure', { name: 'Docking timeline' })).toBeVisible();
   await expectScriptsRan(page);
   await page.getByRole('table', { name: 'Planned dockings' }).getByRole('link').first().click();
   const href = await page.getByRole('link', { name: /^Print the .*anode list.* \(PDF\)$/ }).getAttribute('href');

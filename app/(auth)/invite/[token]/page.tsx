@@ -44,7 +44,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
           </p>
         )
       ) : hasAccount ? (
-        <Link href={`/sign-in?next=${encodeURIComponent(`/invite/${token}`)}`} className="inline-block rounded-[3px] border border-tide-700 bg-tide-600 px-3 py-1.5 text-sm text-white">
+        <Link href={`/sign-in?next=${encodeURIComponent(`/invite/${token}`)}`} className="inline-block rounded-[3px] border border-tide-700 bg-tide-600 px-3 py-1.5 text-sm text-white no-underline">
           Sign in to accept
         </Link>
       ) : (

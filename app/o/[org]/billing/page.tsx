@@ -8,6 +8,7 @@ import { PLAN_IDS, PLANS, TRIAL_PLAN, assetLimitOf } from '@/lib/billing/plans';
 import { INVOICE_STATUS_LABELS, SUBSCRIPTION_STATUS_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { INVOICE_STATUS_TONES, SUBSCRIPTION_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { CancelButton, ChoosePlanButton, PortalButton } from '@/components/billing/billing-forms';
 import { countActiveAssets } from '@/lib/server/services/assets/list-asset-choices';
 import { TableFrame } from '@/components/ui/table-frame';
@@ -31,7 +32,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
   const readOnly = organisationReadOnlyReason(o);
   const limit = assetLimitOf({ plan: o.plan ?? null, subscriptionStatus: o.subscriptionStatus, trialEndsAt: o.trialEndsAt ?? null, stripeSubscriptionId: o.stripeSubscriptionId ?? null, pastDueSince: o.pastDueSince ?? null });
   const status = SUBSCRIPTION_STATUS_LABELS[o.subscriptionStatus] ?? 'Unknown';
-  const tone = readOnly ? 'overdue' : o.subscriptionStatus === 'past_due' ? 'due' : 'sound';
+  const tone = readOnly ? 'action' : toneOf(SUBSCRIPTION_STATUS_TONES, o.subscriptionStatus);
   const planName = o.plan ? PLANS[o.plan].name : `${PLANS[TRIAL_PLAN].name} limits during the trial`;
   return (
     <>
@@ -99,7 +100,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <th className="py-1 text-left font-medium">Date</th>
                     <th className="py-1 text-right font-medium">Amount</th>
                     <th className="py-1 pl-3 text-left font-medium">Status</th>
-                    <th />
+                    <th><span className="sr-only">Invoice</span></th>
                   </tr>
                 </thead>
                 <tbody>
@@ -107,7 +108,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
                     <tr key={i.id} className="border-b border-rule">
                       <td className="py-1">{format(new Date(i.date), 'd MMM yyyy')}</td>
                       <td className="num py-1">{i.currency} {fmt(i.amount, 2)}</td>
-                      <td className="py-1 pl-3"><StatusTag tone={i.status === 'paid' ? 'sound' : i.status === 'open' ? 'due' : 'neutral'}>{INVOICE_STATUS_LABELS[i.status] ?? 'Unknown'}</StatusTag></td>
+                      <td className="py-1 pl-3"><StatusTag tone={toneOf(INVOICE_STATUS_TONES, i.status)}>{INVOICE_STATUS_LABELS[i.status] ?? 'Unknown'}</StatusTag></td>
                       <td className="py-1 text-right">{i.url ? <a className="text-tide-600 underline" href={i.url}>View</a> : null}</td>
                     </tr>
                   ))}

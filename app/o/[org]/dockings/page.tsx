@@ -35,7 +35,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
               {view.needsDocking.map((n, i) => (
                 <li key={i} className="flex flex-col">
                   <span className="flex flex-wrap items-center gap-2">
-                    <StatusTag tone="overdue">{n.overdue ? 'Overdue' : 'Needs an earlier docking'}</StatusTag>
+                    <StatusTag tone="action">{n.overdue ? 'Overdue' : 'Needs an earlier docking'}</StatusTag>
                     <span className="min-w-0">
                     <Link href={`/o/${org}/assets/${n.assetId}`} className="text-tide-600 hover:underline">{n.assetName}</Link>: {n.group}, {forecastDateWords('renewBy')} <strong>{formatDateOnly(n.renewBy)}</strong>
                     </span>
@@ -67,7 +67,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                     <td className="py-1.5">{r.group}</td>
                     <td className="py-1.5">
                       <span className="flex flex-wrap items-center gap-2">
-                        {r.overdue || r.status === 'no-docking' ? <StatusTag tone="overdue">{r.overdue ? 'Overdue' : `Needs a ${eventWords(r.assetKind).event}`}</StatusTag> : null}
+                        {r.overdue || r.status === 'no-docking' ? <StatusTag tone="action">{r.overdue ? 'Overdue' : `Needs a ${eventWords(r.assetKind).event}`}</StatusTag> : null}
                         {r.dockingId ? (
                           <Link className="text-tide-600 hover:underline" href={`/o/${org}/dockings/${r.dockingId}`}>{r.words}</Link>
                         ) : (
@@ -120,7 +120,7 @@ export default async function DockingsPage({ params }: { params: Promise<{ org: 
                 <ul className="flex flex-col gap-1 text-sm" aria-label="Suggested dockings">
                   {view.suggestions.map((s, i) => (
                     <li key={i} className="flex flex-wrap items-center gap-2">
-                      {s.source === 'renewal' ? <StatusTag tone="overdue">For a renewal</StatusTag> : null}
+                      {s.source === 'renewal' ? <StatusTag tone="action">For a renewal</StatusTag> : null}
                       <span>{s.assetName}: {dockingKindWords(s.kind)} {s.source === 'renewal' ? 'by' : 'about'} <strong>{formatDateOnly(s.date)}</strong></span>
                       <span className="text-xs text-ink-soft">{s.reason}</span>
                       {canPlan ? <AcceptSuggestion org={org} assetId={s.assetId} date={s.date} kind={s.kind} /> : null}

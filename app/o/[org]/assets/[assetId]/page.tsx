@@ -11,6 +11,7 @@ import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
 import { FORECAST_DATE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
 import { criteriaSubject } from '@/lib/surveys/criteria';
 import { ButtonLink } from '@/components/ui/button';
@@ -121,7 +122,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                     </Link>
                     <span className="flex items-center gap-2 text-xs text-ink-soft">
                       {d.preparedBy.name}
-                      <StatusTag tone={d.status === 'approved' ? 'sound' : d.status === 'checked' ? 'due' : 'neutral'}>{STATUS_LABELS[d.status]}</StatusTag>
+                      <StatusTag tone={toneOf(DESIGN_STATUS_TONES, d.status)}>{STATUS_LABELS[d.status]}</StatusTag>
                     </span>
                   </li>
                 ))}
@@ -148,7 +149,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                 <th className="py-1 pl-3 text-left font-medium">Coating</th>
                 <th className="py-1 text-left font-medium">Environment</th>
                 <th className="py-1 text-left font-medium">Depth</th>
-                <th />
+                <th><span className="sr-only">Actions</span></th>
               </tr>
             </thead>
             <tbody>

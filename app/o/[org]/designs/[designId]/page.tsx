@@ -7,6 +7,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getDesignDesk, type DesignDesk as DesignDeskView } from '@/lib/server/services/designs/design-view';
 import { assetKindWord, dockingKindWords, HULL_MATERIAL_LABELS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS } from '@/lib/labels';
 import { PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { ButtonLink } from '@/components/ui/button';
 import { DesignDesk } from '@/components/design-desk/design-desk';
 import { SignatureBlock } from '@/components/design-desk/signature-block';
@@ -48,7 +49,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
         title={
           <span className="flex items-center gap-3">
             {design.title}
-            <StatusTag tone={approved ? 'sound' : design.status === 'checked' ? 'due' : 'neutral'}>{STATUS_LABELS[design.status]}</StatusTag>
+            <StatusTag tone={toneOf(DESIGN_STATUS_TONES, design.status)}>{STATUS_LABELS[design.status]}</StatusTag>
           </span>
         }
         subtitle={

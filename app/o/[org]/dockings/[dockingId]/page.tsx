@@ -8,6 +8,7 @@ import { allowed } from '@/lib/server/org-context';
 import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
+import { DOCKING_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { ButtonLink } from '@/components/ui/button';
 import { RenewalsTable } from '@/components/planner/renewals-table';
 import { AddRenewalForm, DockingEditForm } from '@/components/planner/docking-edit-form';
@@ -46,7 +47,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
         subtitle={
           <>
             <Link href={`/o/${org}/dockings`} className="text-tide-600 hover:underline">Docking planner</Link> · <Link href={`/o/${org}/assets/${docking.asset.id}`} className="text-tide-600 hover:underline">{docking.asset.name}</Link>
-            {docking.yard ? ` · ${eventWords(docking.asset.kind).Place}: ${docking.yard}` : ''} · <StatusTag tone={docking.status === 'planned' ? 'due' : docking.status === 'done' ? 'sound' : 'neutral'}>{DOCKING_STATUS_LABELS[docking.status] ?? 'Unknown'}</StatusTag>
+            {docking.yard ? ` · ${eventWords(docking.asset.kind).Place}: ${docking.yard}` : ''} · <StatusTag tone={toneOf(DOCKING_STATUS_TONES, docking.status)}>{DOCKING_STATUS_LABELS[docking.status] ?? 'Unknown'}</StatusTag>
           </>
         }
         actions={

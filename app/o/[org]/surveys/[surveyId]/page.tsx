@@ -50,8 +50,8 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
       />
       <div className="flex flex-col gap-4">
         <div className="flex flex-wrap gap-2" aria-label="Outcome">
-          <StatusTag tone={counts['under-protected'] ? 'overdue' : 'sound'}>{counts['under-protected']} under-protected</StatusTag>
-          <StatusTag tone="sound">{counts.protected} protected</StatusTag>
+          <StatusTag tone={counts['under-protected'] ? POTENTIAL_STATUS_TONES['under-protected'] : 'neutral'}>{counts['under-protected']} under-protected</StatusTag>
+          <StatusTag tone={counts.protected ? POTENTIAL_STATUS_TONES.protected : 'neutral'}>{counts.protected} protected</StatusTag>
           <StatusTag tone={counts['over-protected'] ? POTENTIAL_STATUS_TONES['over-protected'] : 'neutral'}>{counts['over-protected']} over-protected</StatusTag>
           <span className="text-xs text-ink-soft">of {readings.length} readings</span>
         </div>
