@@ -3,7 +3,7 @@ import { ALLOYS } from '@/lib/cp/tables/alloys';
 import { utilisationFactorFor } from '@/lib/cp/lookups';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import type { AnodeModelSnapshot } from '@/lib/schemas/design-record';
-import { ALLOY_LABELS, MODEL_SOURCE_LABELS, MOUNTING_LABELS } from '@/lib/labels';
+import { ALLOY_LABELS, MODEL_SOURCE_LABELS, MOUNTING_LABELS, versusElectrode } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { DeskState, Update } from './desk-state';
 
@@ -60,7 +60,7 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue, store
           <Fact label="Net / gross mass" value={`${fmt(model.netMassKg, 1)} / ${fmt(model.grossMassKg, 1)} kg`} />
           <Fact label="Utilisation factor" value={fmt(model.utilisationFactor ?? utilisationFactorFor(model.shape), 2)} />
           <Fact label="Electrochemical capacity" value={`${fmt(model.capacityAhPerKg ?? alloy.capacityAhPerKg.seawater, 0)} A·h/kg`} />
-          <Fact label="Closed-circuit potential" value={`${fmt(model.potentialV ?? alloy.closedCircuitPotentialV.seawater, 3)} V Ag/AgCl`} />
+          <Fact label="Closed-circuit potential" value={`${fmt(model.potentialV ?? alloy.closedCircuitPotentialV.seawater, 3)} ${versusElectrode('Ag/AgCl')}`} />
           <Fact label="Resistance formula" value={model.shape.kind.replace('-', ' ')} />
           <Fact label="Rated output" value={model.ratedOutputA ? `${fmt(model.ratedOutputA, 2)} A (data sheet)` : 'computed'} />
         </dl>

@@ -1,7 +1,7 @@
 'use client';
 import { climateFromTemperature } from '@/lib/cp/lookups';
 import { CLIMATE_VALUES, DEMAND_METHOD_VALUES, HULL_CONDITION_VALUES, POTENTIAL_SOURCE_VALUES, PROTECTED_METAL_VALUES, RESISTIVITY_SOURCE_VALUES, WATER_VALUES } from '@/lib/schemas/design';
-import { CLIMATE_LABELS, DEMAND_METHOD_LABELS, HULL_CONDITION_LABELS, METAL_LABELS, POTENTIAL_SOURCE_LABELS, RESISTIVITY_SOURCE_LABELS, WATER_LABELS } from '@/lib/labels';
+import { CLIMATE_LABELS, DEMAND_METHOD_LABELS, HULL_CONDITION_LABELS, METAL_LABELS, POTENTIAL_SOURCE_LABELS, RESISTIVITY_SOURCE_LABELS, WATER_LABELS, versusElectrode } from '@/lib/labels';
 import { CheckboxInput, NumberInput, SelectInput, optionsFrom } from './desk-controls';
 import type { DeskState, Update } from './desk-state';
 
@@ -60,7 +60,7 @@ export function JobFields({ inputs, update, errors, editable }: Props) {
       <SelectInput label="Protective potential from" value={inputs.potentialSource} onChange={(v) => set('potentialSource', v as DeskState['potentialSource'])} options={optionsFrom(POTENTIAL_SOURCE_LABELS, POTENTIAL_SOURCE_VALUES)} errors={errors.potentialSource} disabled={disabled} />
       <NumberInput
         label="Protective potential"
-        unit="V Ag/AgCl"
+        unit={versusElectrode('Ag/AgCl')}
         value={inputs.protectivePotentialV}
         onChange={(v) => set('protectivePotentialV', v)}
         errors={errors.protectivePotentialV}

@@ -1,6 +1,6 @@
 'use client';
 import { INFORMATION_NOTICE_CODES } from '@/lib/design/build-design-input';
-import { CRITERION_LABELS, BASIS_FLAG_WORDS, RESISTANCE_FORMULA_LABELS as FORMULA_LABELS } from '@/lib/labels';
+import { CRITERION_LABELS, BASIS_FLAG_WORDS, RESISTANCE_FORMULA_LABELS as FORMULA_LABELS, versusElectrode } from '@/lib/labels';
 import { fmt, fmtInt, fmtSig } from '@/lib/format';
 import { Panel, StatusTag } from '@/components/ui/panel';
 import type { DeskComputed } from '@/lib/client/desk-calculation';
@@ -71,7 +71,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
             <Figure label="Installed gross mass" value={result.installedGrossMassKg !== null ? `${fmt(result.installedGrossMassKg, 1)} kg` : '–'} />
             <Figure label="Achieved life" value={`${fmt(result.achievedLifeYears, 1)} years`} />
             <Figure label="Driving voltage" value={`${fmt(result.drivingVoltageV, 3)} V`} />
-            <Figure label="Protective potential" value={`${fmt(result.protectivePotentialV, 2)} V Ag/AgCl`} />
+            <Figure label="Protective potential" value={`${fmt(result.protectivePotentialV, 2)} ${versusElectrode('Ag/AgCl')}`} />
           </section>
 
           <section aria-label="Current demand">

@@ -7,7 +7,7 @@ import { REMAINING_TONES } from '@/lib/status/palette';
 import { Button } from '@/components/ui/button';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
-import { ELECTRODE_SHORT_LABELS, REMAINING_STATUS_LABELS } from '@/lib/labels';
+import { ELECTRODE_SHORT_LABELS, REMAINING_STATUS_LABELS, versusElectrode } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { deleteReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
@@ -33,7 +33,7 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
     const base = [
       col.accessor('line', { header: 'Line', meta: { numeric: true }, cell: (c) => c.getValue() ?? '—' }),
       col.accessor('location', { header: 'Location' }),
-      col.accessor('potentialV', { header: 'As measured', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V ${ELECTRODE_SHORT_LABELS[c.row.original.electrode ?? ''] ?? ''}`) }),
+      col.accessor('potentialV', { header: 'As measured', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} ${versusElectrode(ELECTRODE_SHORT_LABELS[c.row.original.electrode ?? ''] ?? 'the survey electrode')}`) }),
       col.accessor('potentialAgAgClV', { header: 'vs Ag/AgCl/seawater', meta: { numeric: true }, cell: (c) => (c.getValue() === null ? '—' : `${fmt(c.getValue(), 3)} V`) }),
       col.accessor('potentialStatus', {
         header: 'Protection',

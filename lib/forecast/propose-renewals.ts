@@ -2,6 +2,7 @@ import { addMonthsUTC, dayNumberUTC } from './dates';
 import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
 import { forecastDateWords } from '@/lib/labels/forecast';
+import { eventWords } from '@/lib/labels/planner';
 import { date, list, record, text, whole } from './validate';
 
 /**
@@ -91,6 +92,8 @@ export interface RenewalOptions {
 export interface ProposeRenewalsInput extends RenewalOptions {
   groups: readonly RenewalGroupInput[];
   dockings: readonly DockingInput[];
+  /** The sentences say "docking" for a vessel and "campaign" for a structure; unknown says "docking or campaign". */
+  assetKind?: 'vessel' | 'structure';
 }
 
 export type RenewalStatus = 'proposed' | 'kept' | 'no-docking' | 'sound';
@@ -129,6 +132,7 @@ export const DEFAULT_TYPICAL_INTERVAL_MONTHS = 30;
 
 export interface FleetAssetInput {
   assetId: string;
+  assetKind?: 'vessel' | 'structure';
   groups: readonly RenewalGroupInput[];
   dockings: readonly DockingInput[];
 }
@@ -159,7 +163,7 @@ interface PreparedDockings {
 export function proposeRenewals(input: ProposeRenewalsInput): RenewalProposal[] {
   const inp = record(input, 'input');
   const settings = readSettings(inp, '');
-  return proposeForAsset(inp.groups, inp.dockings, settings, '');
+  return proposeForAsset(inp.groups, inp.dockings, settings, '', inp.assetKind);
 }
 
 /** The same for many assets; options are read once, dockings sorted once per asset. */
@@ -168,7 +172,7 @@ export function proposeRenewalsForFleet(assets: readonly FleetAssetInput[], opts
   return list(assets, 'assets').map((a, i) => {
     const asset = record(a, `assets[${i}]`);
     const assetId = text(asset.assetId, `assets[${i}].assetId`);
-    return { assetId, proposals: proposeForAsset(asset.groups, asset.dockings, settings, `assets[${i}].`) };
+    return { assetId, proposals: proposeForAsset(asset.groups, asset.dockings, settings, `assets[${i}].`, asset.assetKind) };
   });
 }
 
@@ -220,13 +224,23 @@ function lastAtOrBefore(times: Float64Array, t: number): number {
   return lo - 1;
 }
 
-function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settings, prefix: string): RenewalProposal[] {
+/** The words of the sentences: a vessel docks, a structure's anodes are renewed in a (diving) campaign. */
+function sentenceWords(kind: unknown) {
+  if (kind === 'vessel' || kind === 'structure') {
+    const w = eventWords(kind);
+    return { ev: w.event, evs: w.events, unplanned: kind === 'structure' ? 'a diving campaign' : 'an unplanned docking' };
+  }
+  return { ev: 'docking', evs: 'dockings', unplanned: 'an unplanned docking or campaign' };
+}
+
+function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settings, prefix: string, assetKind?: unknown): RenewalProposal[] {
+  const { ev, evs, unplanned } = sentenceWords(assetKind);
   const groups = list(groupsValue, `${prefix}groups`);
   const docks = prepareDockings(dockingsValue, s.todayDay, prefix);
   const n = docks.times.length;
   const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
   const horizon = addMonthsUTC(horizonBase, s.intervalMonths).getTime();
-  const horizonText = n > 0 ? `the last planned docking (${formatDateOnly(horizonBase)})` : 'today, with no docking planned';
+  const horizonText = n > 0 ? `the last planned ${ev} (${formatDateOnly(horizonBase)})` : `today, with no ${ev} planned`;
   const marginText = `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`;
 
   return groups.map((g, i): RenewalProposal => {
@@ -255,12 +269,12 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         dockingId: confirmedId,
         ...(booked ? { dockingDate: booked.date } : {}),
         ...(deadline ? { deadline } : {}),
-        reason: booked ? `The renewal confirmed at the docking of ${formatDateOnly(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
+        reason: booked ? `The renewal confirmed at the ${ev} of ${formatDateOnly(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
       };
-      if (!booked) out.warning = "The confirmed renewal's docking is not among this asset's dockings.";
-      else if (booked.status === 'cancelled') out.warning = `The docking of ${formatDateOnly(booked.date)} has been cancelled; the renewal needs another docking.`;
+      if (!booked) out.warning = `The confirmed renewal's ${ev} is not among this asset's ${evs}.`;
+      else if (booked.status === 'cancelled') out.warning = `The ${ev} of ${formatDateOnly(booked.date)} has been cancelled; the renewal needs another ${ev}.`;
       else if (deadline && booked.date.getTime() > deadline.getTime()) {
-        out.warning = `The docking of ${formatDateOnly(booked.date)} is after the deadline ${formatDateOnly(deadline)}${because}.`;
+        out.warning = `The ${ev} of ${formatDateOnly(booked.date)} is after the deadline ${formatDateOnly(deadline)}${because}.`;
       }
       return out;
     }
@@ -279,15 +293,15 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
     if (dayNumberUTC(deadline) < s.todayDay) {
       const overdueWords = `The renewal deadline ${formatDateOnly(deadline)}${because} has passed`;
-      const asap = (why: string) => ({ by: s.today, reason: `${why}: plan an unplanned docking or campaign as soon as possible (from ${todayText}).` });
+      const asap = (why: string) => ({ by: s.today, reason: `${why}: plan ${unplanned} as soon as possible (from ${todayText}).` });
       if (n > 0) {
         const dockingDate = docks.dates[0];
         const late = dockingDate.getTime() > due!.getTime();
         return {
           ...atDocking(0),
           overdue: true,
-          ...(late ? { earlierDocking: asap(`The next docking (${formatDateOnly(dockingDate)}) is after the ${dueText}`) } : { withinMargin: true }),
-          reason: `${overdueWords}, so the group is renewed at the next docking, ${formatDateOnly(dockingDate)}${late ? `, which is after the ${dueText}.` : '.'}`,
+          ...(late ? { earlierDocking: asap(`The next ${ev} (${formatDateOnly(dockingDate)}) is after the ${dueText}`) } : { withinMargin: true }),
+          reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${formatDateOnly(dockingDate)}${late ? `, which is after the ${dueText}.` : '.'}`,
         };
       }
       return {
@@ -296,8 +310,8 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         deadline,
         needsDockingBy: deadline,
         overdue: true,
-        earlierDocking: asap('No docking or campaign is planned'),
-        reason: `${overdueWords} and no docking is planned, so the group needs a docking as soon as possible.`,
+        earlierDocking: asap(assetKind === 'vessel' || assetKind === 'structure' ? `No ${ev} is planned` : 'No docking or campaign is planned'),
+        reason: `${overdueWords} and no ${ev} is planned, so the group needs ${unplanned === 'a diving campaign' ? 'a campaign' : 'a docking'} as soon as possible.`,
       };
     }
 
@@ -322,7 +336,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
         ...atDocking(k),
         ...(atRisk ? { atRisk: true } : {}),
         reason:
-          `Renew at the docking of ${formatDateOnly(dockingDate)}, the last docking before the deadline ${formatDateOnly(deadline)}${because}` +
+          `Renew at the ${ev} of ${formatDateOnly(dockingDate)}, the last ${ev} before the deadline ${formatDateOnly(deadline)}${because}` +
           (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${formatDateOnly(earlyDeadline)}.` : '.'),
       };
     }
@@ -333,20 +347,20 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
       return {
         ...atDocking(0),
         withinMargin: true,
-        reason: `Renew at the docking of ${formatDateOnly(dockingDate)}: no docking falls before the deadline ${formatDateOnly(deadline)}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
+        reason: `Renew at the ${ev} of ${formatDateOnly(dockingDate)}: no ${ev} falls before the deadline ${formatDateOnly(deadline)}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
       };
     }
 
     // Rule 9: no docking reaches the group before its due date.
-    const next = n > 0 ? `the next docking (${formatDateOnly(docks.dates[0])}) is after the ${dueText}` : 'no docking or campaign is planned';
+    const next = n > 0 ? `the next ${ev} (${formatDateOnly(docks.dates[0])}) is after the ${dueText}` : assetKind === 'vessel' || assetKind === 'structure' ? `no ${ev} is planned` : 'no docking or campaign is planned';
     return {
       groupId,
       status: 'no-docking',
       deadline,
       needsDockingBy: deadline,
       overdue: false,
-      earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan an unplanned docking or campaign by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
-      reason: `No planned docking falls on or before the deadline ${formatDateOnly(deadline)}${because}, and ${next}, so the group needs a docking by the deadline.`,
+      earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan ${unplanned} by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
+      reason: `No planned ${ev} falls on or before the deadline ${formatDateOnly(deadline)}${because}, and ${next}, so the group needs ${unplanned === 'a diving campaign' ? 'a campaign' : 'a docking'} by the deadline.`,
     };
   });
 }

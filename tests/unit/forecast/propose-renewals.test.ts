@@ -332,3 +332,31 @@ describe('proposeRenewals agrees with a plain linear scan (the binary search is 
     );
   });
 });
+
+describe('proposeRenewals: the sentences follow the asset kind', () => {
+  // A jetty's anodes are renewed in a diving campaign by a contractor; it never "docks" (common practice).
+  const forKind = (assetKind: 'vessel' | 'structure', over: { dockings?: DockingInput[] } = {}) =>
+    proposeRenewals({ groups: [{ id: 'g', endOfLife: utc('2025-08-01') }], dockings: over.dockings ?? [{ id: 'C1', date: utc('2027-12-01'), status: 'planned' }], today, assetKind })[0];
+
+  it('a structure whose next campaign comes too late is told to plan a diving campaign, and no sentence says docking', () => {
+    const p = forKind('structure');
+    expect(p.earlierDocking?.reason).toMatch(/next campaign \(1 Dec 2027\) is after the end of life 1 Aug 2025: plan a diving campaign by 1 Feb 2025/);
+    expect(`${p.reason} ${p.earlierDocking?.reason}`).not.toMatch(/dock/i);
+  });
+
+  it('a structure with nothing planned needs a campaign; a vessel with nothing planned needs an unplanned docking', () => {
+    const jetty = forKind('structure', { dockings: [] });
+    expect(jetty.reason).toMatch(/no campaign is planned, so the group needs a campaign by the deadline/);
+    expect(`${jetty.reason} ${jetty.earlierDocking?.reason}`).not.toMatch(/dock/i);
+    const ship = forKind('vessel', { dockings: [] });
+    expect(ship.earlierDocking?.reason).toMatch(/No docking is planned: plan an unplanned docking by 1 Feb 2025/);
+    expect(`${ship.reason} ${ship.earlierDocking?.reason}`).not.toMatch(/campaign/i);
+  });
+
+  it('a structure past its deadline is renewed at the next campaign', () => {
+    const p = proposeRenewals({ groups: [{ id: 'g', endOfLife: utc('2025-03-01') }], dockings: [{ id: 'C1', date: utc('2025-02-10'), status: 'planned' }], today, assetKind: 'structure' })[0];
+    expect(p).toMatchObject({ status: 'proposed', dockingId: 'C1', overdue: true });
+    expect(p.reason).toMatch(/renewed at the next campaign, 10 Feb 2025/);
+    expect(p.reason).not.toMatch(/dock/i);
+  });
+});

@@ -8,9 +8,7 @@ import { DepletionChart, seriesStyle } from '@/components/register/depletion-cha
 import { DESIGN_STATUSES } from '@/entities/design.entity';
 import { DOCKING_KINDS, DOCKING_STATUSES } from '@/entities/docking.entity';
 import { RENEWAL_STATUSES } from '@/entities/renewal.entity';
-import { STATUS_WORDS as SUBSCRIPTION_STATUS_WORDS } from '@/lib/billing/plans';
-import { OUTLOOK_WORDS } from '@/lib/words/outlook';
-import { POTENTIAL_STATUS_LABELS, REMAINING_STATUS_LABELS } from '@/lib/surveys/criteria';
+import { OUTLOOK_WORDS, POTENTIAL_STATUS_LABELS, REMAINING_STATUS_LABELS, SUBSCRIPTION_STATUS_LABELS as SUBSCRIPTION_STATUS_WORDS } from '@/lib/labels';
 import {
   DESIGN_STATUS_TONES,
   DOCKING_STATUS_TONES,

@@ -64,6 +64,7 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
     const usable = assetDockings.filter((d) => d.status === 'planned');
     const proposals = proposeRenewals({
       today,
+      assetKind: asset.kind,
       marginMonths: renewalMarginMonths(ctx),
       dockings: usable.map((d) => ({ id: d.id, date: dockingDate(d), status: d.status })),
       groups: groups
