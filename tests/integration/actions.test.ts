@@ -394,7 +394,7 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'survey:write',
     table: 'survey_reading',
     input: async () => ({ surveyId: fixtures.survey, location: unique('Frame'), potentialV: '-0.95', electrode: 'ag-agcl-seawater', remainingPercent: '80' }),
-    success: { message: /^Reading added\.$/ },
+    success: { message: /^Reading added at .+: .+ against .+\.$/ },
   },
   {
     module: 'app/o/[org]/surveys/actions.ts',

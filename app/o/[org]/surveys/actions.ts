@@ -6,7 +6,7 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
-import { underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
+import { describeReading, underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
 import { formatDateOnly } from '@/lib/dates/date-only';
 
 export const createSurveyAction = orgAction('survey:write', async (ctx, formData) => {
@@ -17,7 +17,9 @@ export const createSurveyAction = orgAction('survey:write', async (ctx, formData
 /** One reading typed in by hand (a drop-cell reading at a berth, a diver's call over the radio). */
 export const addReadingAction = orgAction('survey:write', async (ctx, formData) => {
   const result = await addReading(ctx, formId(formData, 'surveyId'), formObject(formData));
-  return { ok: true, message: result.under ? `Reading added: it is under-protected; ${underProtectionWords(result)}.` : 'Reading added.' };
+  // The confirmation says what was stored, in the survey's words: "Reading added at Fr 22 P: -0.920 V against Ag/AgCl (seawater): protected."
+  const saved = `at ${result.reading.location}: ${describeReading(result.survey, result.reading)}`;
+  return { ok: true, message: result.under ? `Reading added: it is under-protected; ${underProtectionWords(result)}. Saved ${saved}.` : `Reading added ${saved}.` };
 });
 
 /** A corrected reading (a mistyped value, the wrong electrode). */

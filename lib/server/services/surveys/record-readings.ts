@@ -93,5 +93,5 @@ export async function addReading(ctx: OrgContext, surveyId: string, form: Record
   audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { readingId: readings[0].id, location: reading.location } });
   ctx.effects.assetChanged(survey.asset.id);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
-  return { survey, under, mailed };
+  return { survey, under, mailed, reading: readings[0] };
 }
