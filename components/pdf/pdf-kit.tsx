@@ -95,7 +95,7 @@ export const pdf = StyleSheet.create({
   headRow: { flexDirection: 'row', borderBottomWidth: 0.8, borderBottomColor: '#7b8590', paddingVertical: 2, fontWeight: 600 },
   caution: { marginTop: 10, padding: 6, backgroundColor: '#f4ead7', color: '#7a5718', fontSize: 8 },
   warning: { padding: 4, marginBottom: 3, backgroundColor: '#faefd6', fontSize: 8 },
-  footer: { position: 'absolute', bottom: FOOTER.bottom, left: PAGE_MARGIN.side, right: PAGE_MARGIN.side, flexDirection: 'row', justifyContent: 'space-between', fontSize: FOOTER.size, color: '#7b8590' },
+  footer: { position: 'absolute', bottom: FOOTER.bottom, left: PAGE_MARGIN.side, right: PAGE_MARGIN.side, flexDirection: 'row', justifyContent: 'space-between', fontSize: FOOTER.size, color: '#5f6872' },
 });
 
 export const CAUTION_TEXT = `Caution. ${CAUTION_SENTENCE} Tidewarden does not replace that review.`;

@@ -5,7 +5,7 @@ function render(lines: string[], link?: { url: string; label: string }) {
   const text = [...lines, ...(link ? ['', `${link.label}: ${link.url}`] : []), '', '— Tidewarden'].join('\n');
   const html = `<div style="font-family:sans-serif;font-size:14px;color:#1c232b">${lines.map((l) => `<p>${escape(l)}</p>`).join('')}${
     link ? `<p><a href="${escape(link.url)}">${escape(link.label)}</a></p>` : ''
-  }<p style="color:#7b8590">— Tidewarden</p></div>`;
+  }<p style="color:#5f6872">— Tidewarden</p></div>`;
   return { text, html };
 }
 
