@@ -17,3 +17,25 @@ export const HULL_MATERIAL_LABELS: Record<string, string> = { steel: 'Steel', al
 
 /** The water an asset or a zone sits in (a zone can be buried: sediment). */
 export const WATER_TYPE_LABELS: Record<string, string> = { seawater: 'Seawater', brackish: 'Brackish water', fresh: 'Fresh water', sediment: 'Sediment (buried)' };
+
+/**
+ * The columns of the register export, in order. Headers are words with their unit, like the screens; dates stay
+ * YYYY-MM-DD so a spreadsheet sorts them, and the remaining fraction is a percentage.
+ */
+export const REGISTER_CSV_HEADERS = [
+  'Asset',
+  'Asset kind',
+  'Zone',
+  'Group',
+  'Model',
+  'Alloy',
+  'Mounting',
+  'Quantity',
+  'Net mass each (kg)',
+  'Gross mass each (kg)',
+  'Net mass total (kg)',
+  'Positions',
+  'Installed on (YYYY-MM-DD)',
+  'Last remaining (%)',
+  'Last surveyed on (YYYY-MM-DD)',
+] as const;

@@ -145,7 +145,7 @@ describe('subscriptions through the Stripe SDK and the local fake', () => {
     expect(refused.code).toBe('read-only');
     expect(refused.message).toMatch(/read-only/);
     const csv = await runAs(ctx('viewer'), (c) => exportAnodeRegisterCsv(c));
-    expect(csv.split('\r\n')[0]).toMatch(/^asset,asset_kind/);
+    expect(csv.split('\r\n')[0]).toMatch(/^Asset,Asset kind,/);
     // The owner can still reach billing to renew.
     const url = await runAs(ctx(), (c) => startCheckout(c, { plan: 'fleet' }));
     expect(url).toMatch(/\/checkout\/cs_/);

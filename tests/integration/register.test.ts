@@ -110,7 +110,7 @@ describe('assets, groups and history', () => {
   it('exports the register as CSV with a header and one line per fitted group', async () => {
     const csv = await runAs(ctx('viewer'), (c) => exportAnodeRegisterCsv(c));
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('asset,asset_kind,zone,group,model,alloy,mounting,quantity,net_mass_each_kg,gross_mass_each_kg,net_mass_total_kg,positions,installed_on,last_remaining_fraction,last_surveyed_on');
+    expect(lines[0]).toBe('Asset,Asset kind,Zone,Group,Model,Alloy,Mounting,Quantity,Net mass each (kg),Gross mass each (kg),Net mass total (kg),Positions,Installed on (YYYY-MM-DD),Last remaining (%),Last surveyed on (YYYY-MM-DD)');
     const rowA = lines.find((l) => l.includes(',Row A,'));
     expect(rowA).toContain('TW-AS-1510');
     expect(rowA).toContain(',12,100,118,1200.0,'); // 12 anodes x 100 kg net

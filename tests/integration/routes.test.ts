@@ -93,8 +93,8 @@ const ROUTES: Route[] = [
     permission: all,
     check: (r) => {
       expect(r.type).toBe('text/csv; charset=utf-8');
-      expect(r.text.split('\r\n')[0]).toMatch(/^asset,asset_kind,/);
-      expect(r.text).toContain(`${VESSEL},vessel,`);
+      expect(r.text.split('\r\n')[0]).toMatch(/^Asset,Asset kind,/);
+      expect(r.text).toContain(`${VESSEL},Vessel,`);
     },
   },
   { path: 'calculations', method: 'POST', body: () => CALCULATION, load: () => import('@/app/api/orgs/[org]/calculations/route'), permission: all, check: (r) => expect(r.body.result.anodeCount).toBeGreaterThan(0) },

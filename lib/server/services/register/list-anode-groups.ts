@@ -1,7 +1,7 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { writeCsv } from '@/lib/csv/write-csv';
-import { ALLOY_LABELS, ASSET_KIND_LABELS, MOUNTING_LABELS } from '@/lib/labels';
+import { ALLOY_LABELS, ASSET_KIND_LABELS, MOUNTING_LABELS, REGISTER_CSV_HEADERS } from '@/lib/labels';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { ilikePattern, toPage, inSequence } from '../../sql';
 
@@ -101,14 +101,13 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
 
 /**
  * The whole register (fitted groups) as CSV, for spreadsheets and the yard; formula-safe (lib/csv/write-csv).
- * A data export: the column names are fixed identifiers and dates are YYYY-MM-DD (machine-readable, so a
- * spreadsheet sorts them); the values a person reads (kind, alloy, mounting) are in the words of lib/labels.
+ * Headers and the values a person reads (kind, alloy, mounting) are in the words of lib/labels; dates are
+ * YYYY-MM-DD (the header says so) so a spreadsheet sorts them.
  */
 export async function exportAnodeRegisterCsv(ctx: OrgContext) {
   const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
-  const header = ['asset', 'asset_kind', 'zone', 'group', 'model', 'alloy', 'mounting', 'quantity', 'net_mass_each_kg', 'gross_mass_each_kg', 'net_mass_total_kg', 'positions', 'installed_on', 'last_remaining_fraction', 'last_surveyed_on'];
   return writeCsv([
-    header,
-    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction, r.lastSurveyedOn]),
+    [...REGISTER_CSV_HEADERS],
+    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction === null ? null : Math.round(r.lastRemainingFraction * 1000) / 10, r.lastSurveyedOn]),
   ]);
 }
