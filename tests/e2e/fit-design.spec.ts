@@ -85,7 +85,7 @@ test('a planner books the approved design as renewals at the next docking and fi
     const booked = renewals.getByRole('row', { name: new RegExp(`^${zone}\\b`) }).filter({ hasText: 'Confirmed' });
     await expect(booked).toHaveCount(1);
     await expect(booked).toContainText('TW-AW-4020');
-    await expect(booked).toContainText('other');
+    await expect(booked).toContainText('Other');
   }
   // Booking again is refused: the groups are already booked, and nothing more is written.
   const again = await openApprovedDesign(page);

@@ -112,6 +112,6 @@ test('a chunked 200 MB photo is refused at the limit: 413, memory grows < 50 MB,
   expect(peak - baseline, `RSS grew from ${Math.round(baseline / MB)} MB to ${Math.round(peak / MB)} MB`).toBeLessThan(50 * MB);
 
   await page.goto(`/o/${slug}/surveys/${surveyId}`);
-  await expect(page.getByText('warm-up.png')).toBeVisible();
+  await expect(page.getByRole('link', { name: 'warm-up.png' })).toBeVisible();
   await expect(page.getByText('huge-probe.png')).toHaveCount(0);
 });
