@@ -5,9 +5,14 @@ import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { addRenewalAction, updateDockingAction } from '@/app/o/[org]/dockings/actions';
 import { DOCKING_KIND_OPTIONS } from './docking-form';
-import { RENEWAL_REASON_LABELS } from '@/lib/labels';
+import { DOCKING_STATUS_LABELS, RENEWAL_REASON_LABELS, dockingKindOptions, eventWords } from '@/lib/labels';
 
-export function DockingEditForm({ org, docking }: { org: string; docking: Record<string, string | null> & { id: string } }) {
+/** A docking's or a campaign's dates and status; the words follow the asset (a vessel docks at a yard, a structure has a campaign by a contractor). */
+export function DockingEditForm({ org, docking, assetKind }: { org: string; docking: Record<string, string | null> & { id: string }; assetKind?: string }) {
+  const words = assetKind ? eventWords(assetKind) : null;
+  // The kinds this asset can have, and the stored one even when it is not among them (an older record), so it still shows.
+  const kindOptions = [...(assetKind ? dockingKindOptions(assetKind) : DOCKING_KIND_OPTIONS)];
+  if (docking.kind && !kindOptions.some((o) => o.value === docking.kind)) kindOptions.push(DOCKING_KIND_OPTIONS.find((o) => o.value === docking.kind) ?? { value: docking.kind, label: 'Docking' });
   const form = useBoundAction(updateDockingAction.bind(null, org), {
     initial: Object.fromEntries(Object.entries(docking).map(([k, val]) => [k, val ?? ''])),
     invalidate: [queryKeys.dockingRenewals(org, docking.id)],
@@ -15,17 +20,17 @@ export function DockingEditForm({ org, docking }: { org: string; docking: Record
   return (
     <ActionForm form={form} className="grid grid-cols-2 gap-3" messageClassName="col-span-2" noValidate>
       <input type="hidden" name="dockingId" value={docking.id} />
-      <SelectField label="Kind" {...form.field('kind')} options={DOCKING_KIND_OPTIONS} />
-      <SelectField label="Status" {...form.field('status')} options={[{ value: 'planned', label: 'Planned' }, { value: 'done', label: 'Done' }, { value: 'cancelled', label: 'Cancelled' }]} />
+      <SelectField label="Kind" {...form.field('kind')} options={kindOptions} />
+      <SelectField label="Status" {...form.field('status')} options={['planned', 'done', 'cancelled'].map((value) => ({ value, label: DOCKING_STATUS_LABELS[value]! }))} />
       <Field label="Planned start" {...form.field('plannedStart')} type="date" />
       <Field label="Planned end" {...form.field('plannedEnd')} type="date" />
       <Field label="Actual start" {...form.field('actualStart')} type="date" />
       <Field label="Actual end" {...form.field('actualEnd')} type="date" />
-      <Field label="Yard or contractor" {...form.field('yard')} />
+      <Field label={words ? words.Place : 'Yard or contractor'} {...form.field('yard')} />
       <Field label="Reference" {...form.field('reference')} />
       <Field className="col-span-2" label="Notes" {...form.field('notes')} />
       <div className="col-span-2">
-        <Button type="submit" disabled={form.pending}>Save the docking</Button>
+        <Button type="submit" disabled={form.pending}>Save the {words ? words.event : 'docking'}</Button>
       </div>
     </ActionForm>
   );

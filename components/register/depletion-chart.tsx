@@ -7,6 +7,8 @@ import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-se
 interface Props {
   series: ChartSeries[];
   dockings?: { date: Date; label: string }[];
+  /** What the dashed lines are called in the legend: "dockings" for a vessel, "campaigns" for a structure. */
+  dockingsWord?: string;
   today: Date;
   title?: string;
 }
@@ -43,7 +45,7 @@ function Marker({ kind, x, y, colour }: { kind: SeriesMarker; x: number; y: numb
 }
 
 /** Remaining net mass of each group over time, with survey points, renew-by and end-of-life marks, dockings and today. */
-export function DepletionChart({ series, dockings = [], today, title = 'Remaining net anode mass' }: Props) {
+export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings', today, title = 'Remaining net anode mass' }: Props) {
   const width = 900;
   const height = 300;
   const pad = { left: 56, right: 16, top: 16, bottom: 36 };
@@ -142,7 +144,7 @@ export function DepletionChart({ series, dockings = [], today, title = 'Remainin
             {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
           </span>
         ))}
-        <span>Letters and markers: one per group · ○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: dockings</span>
+        <span>Letters and markers: one per group · ○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: {dockingsWord}</span>
       </figcaption>
     </figure>
   );

@@ -8,7 +8,13 @@ import { PotentialTag } from './potential-tag';
 import { fmt } from '@/lib/format';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
-import { forecastDateWords } from '@/lib/labels';
+import { ASSET_KIND_LABELS, MIXED_EVENT_WORDS, STRUCTURE_TYPE_LABELS, eventWords, forecastDateWords } from '@/lib/labels';
+
+/** "Vessel · Ro-pax ferry" (the vessel type is the user's own words), "Structure · Dolphin" (a stored type, in words). */
+function kindWords(r: Pick<FleetRow, 'kind' | 'type' | 'hullMaterial'>): string {
+  const type = r.type ? (r.kind === 'structure' ? STRUCTURE_TYPE_LABELS[r.type] ?? r.type : r.type) : null;
+  return [ASSET_KIND_LABELS[r.kind] ?? 'Asset', type, r.hullMaterial === 'aluminium' ? 'aluminium hull' : null].filter(Boolean).join(' · ');
+}
 import type { FleetRow } from '@/lib/server/services/assets/list-fleet';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 
@@ -18,7 +24,7 @@ export function FleetTable({ org }: { org: string }) {
     const col = createColumnHelper<FleetRow>();
     return [
       col.accessor('name', { id: 'name', header: 'Asset', cell: (c) => <Link className="font-medium text-tide-600 hover:underline" href={`/o/${org}/assets/${c.row.original.id}`}>{c.getValue()}</Link> }),
-      col.accessor('kind', { id: 'kind', header: 'Kind', cell: (c) => `${c.getValue()}${c.row.original.type ? ` · ${c.row.original.type}` : ''}${c.row.original.hullMaterial === 'aluminium' ? ' · aluminium hull' : ''}` }),
+      col.accessor('kind', { id: 'kind', header: 'Kind', cell: (c) => kindWords(c.row.original) }),
       col.accessor('outlookWords', {
         id: 'outlook',
         header: 'Protection outlook',
@@ -29,14 +35,14 @@ export function FleetTable({ org }: { org: string }) {
           return (
             <span className="flex flex-col gap-0.5">
               <OutlookTag outlook={o} />
-              {c.row.original.renewBy ? <span className="text-2xs text-state-overdue">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no docking planned in time</span> : null}
+              {c.row.original.renewBy ? <span className="text-2xs text-state-overdue">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no {eventWords(c.row.original.kind).event} planned in time</span> : null}
             </span>
           );
         },
       }),
       col.accessor((r) => r.nextDocking?.date ?? null, {
         id: 'nextDocking',
-        header: 'Next docking',
+        header: `Next ${MIXED_EVENT_WORDS.event}`,
         enableSorting: false,
         cell: (c) => {
           const d = c.row.original.nextDocking;

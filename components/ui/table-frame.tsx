@@ -8,9 +8,13 @@ const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_the
  * table instead of widening the page. The sticky cells take the background of their part of the table (`head`: the header row's), so the cells
  * scrolled under them do not show through.
  */
-export function TableFrame({ label, children, className = '', head = 'raised', stickyFirstColumn = true }: { label: string; children: React.ReactNode; className?: string; head?: keyof typeof HEAD; stickyFirstColumn?: boolean }) {
+// A table keeps at least this width and scrolls in its frame below it: squeezed into a phone's width, a column of
+// sentences (a renewal's reason) would shrink to a word per line and make every row a screen tall.
+const MIN_TABLE_WIDTH = '[&_table]:min-w-[44rem]';
+
+export function TableFrame({ label, children, className = '', head = 'raised', stickyFirstColumn = true, minWidth = true }: { label: string; children: React.ReactNode; className?: string; head?: keyof typeof HEAD; stickyFirstColumn?: boolean; minWidth?: boolean }) {
   return (
-    <div role="region" aria-label={label} tabIndex={0} className={`relative max-w-full overflow-x-auto ${stickyFirstColumn ? `${STICKY} ${HEAD[head]}` : ''} ${className}`}>
+    <div role="region" aria-label={label} tabIndex={0} className={`relative max-w-full overflow-x-auto ${minWidth ? MIN_TABLE_WIDTH : ''} ${stickyFirstColumn ? `${STICKY} ${HEAD[head]}` : ''} ${className}`}>
       {children}
     </div>
   );

@@ -262,10 +262,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           <DepletionChart
             series={series}
             today={today}
+            dockingsWord={eventWords(asset.kind).events}
             dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${eventWords(asset.kind).Event} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
           />
           <TableFrame label="Forecast by group">
-          <table className="mt-3 w-full text-sm" aria-label="Forecast by group">
+          <table className="mt-3 w-full min-w-[56rem] text-sm" aria-label="Forecast by group">
             <thead className="text-xs text-ink-soft">
               <tr className="border-b border-rule">
                 <th className="py-1 text-left font-medium">Group</th>

@@ -66,6 +66,7 @@ export default async function DockingPage({ params }: { params: Promise<{ org: s
             <Panel title={`Dates, ${words.worksBy.toLowerCase()} and status`}>
               <DockingEditForm
                 org={org}
+                assetKind={docking.asset.kind}
                 docking={{ id: docking.id, kind: docking.kind, status: docking.status, plannedStart: docking.plannedStart, plannedEnd: docking.plannedEnd ?? null, actualStart: docking.actualStart ?? null, actualEnd: docking.actualEnd ?? null, yard: docking.yard ?? null, reference: docking.reference ?? null, notes: docking.notes ?? null }}
               />
             </Panel>
