@@ -31,6 +31,7 @@ import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { createDocking } from '@/lib/server/services/planner/dockings';
@@ -413,6 +414,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'survey_reading',
     input: async () => ({ surveyId: fixtures.survey, readingId: await surveyReading() }),
     success: { message: /^Reading at Reading \d+ deleted\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'restoreReadingAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_reading',
+    // A reading deleted a moment ago, as the Undo button in the delete's notice sends it.
+    input: async () => {
+      const readingId = await surveyReading();
+      await as('inspector', (c) => deleteReading(c, fixtures.survey, readingId));
+      return { surveyId: fixtures.survey, readingId };
+    },
+    success: { message: /^Reading at Reading \d+ put back: .+\.$/ },
   },
   {
     module: 'app/o/[org]/surveys/actions.ts',

@@ -9,10 +9,13 @@ import { restoreMember, MEMBER_RESTORE_MINUTES } from '@/lib/server/services/tea
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { archiveZone, createZone } from '@/lib/server/services/register/zones';
 import { restoreZone } from '@/lib/server/services/register/restore-zone';
-import { ZoneSchema } from '@/entities';
+import { OutboxMessageSchema, SurveyReadingSchema, ZoneSchema } from '@/entities';
+import { createSurvey } from '@/lib/server/services/surveys/create-survey';
+import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteReading, restoreReading, READING_RESTORE_MINUTES } from '@/lib/server/services/surveys/correct-readings';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
-// Undo of "Remove member" (the same membership back, from the removal's own audit row) and of "Archive zone".
+// Undo of "Remove member" (the same membership back, from the removal's own audit row), of "Archive zone" and of "Delete" beside a reading.
 let organisation: Organisation;
 let users: Record<Role, User>;
 let other: { organisation: Organisation; users: Record<Role, User> };
@@ -126,5 +129,89 @@ describe('restoreZone', () => {
     const id = await archivedZone();
     await expect(as('engineer', (c) => restoreZone(c, id), other)).rejects.toMatchObject({ code: 'not-found' });
     expect(await archivedAt(id)).not.toBeNull();
+  });
+});
+
+describe('restoreReading', () => {
+  let jettyId: string;
+  beforeAll(async () => {
+    jettyId = (await as('engineer', (c) => createAsset(c, { kind: 'structure', name: 'Undo Jetty', structureType: 'jetty', waterType: 'seawater' }))).id;
+  });
+  let day = 0;
+  const newSurvey = () => as('inspector', (c) => createSurvey(c, { assetId: jettyId, surveyedOn: `2025-03-${String(++day).padStart(2, '0')}`, method: 'diver', surveyor: 'Undo Divers', defaultElectrode: 'ag-agcl-seawater' }));
+  const readingsOf = async (surveyId: string) => (await getEm()).find(SurveyReadingSchema, { survey: surveyId }, { orderBy: { location: 'asc' } });
+  const mailsAbout = async (subjectPart: string) => (await getEm()).find(OutboxMessageSchema, { organisationId: organisation.id, subject: { $like: `%${subjectPart}%` }, toAddress: users.engineer.email });
+  const comparable = (r: { id: string; line?: number | null; location: string; potentialV?: number | null; electrode?: string | null; potentialAgAgClV?: number | null; remainingFraction?: number | null; comment?: string | null }) => ({
+    id: r.id, line: r.line ?? null, location: r.location, potentialV: r.potentialV ?? null, electrode: r.electrode ?? null, potentialAgAgClV: r.potentialAgAgClV ?? null, remainingFraction: r.remainingFraction ?? null, comment: r.comment ?? null,
+  });
+
+  /** A survey with one reading (given against a zinc electrode, so the stored converted value is not the typed one), deleted by the inspector. */
+  async function deletedReading(potentialV = '+0.200') {
+    const survey = await newSurvey();
+    await as('inspector', (c) => addReading(c, survey.id, { location: 'Pile 7 splash', potentialV, electrode: 'zinc', remainingPercent: '62.5', comment: 'marine growth scraped' }));
+    const [reading] = await readingsOf(survey.id);
+    const before = comparable(reading);
+    await as('inspector', (c) => deleteReading(c, survey.id, reading.id));
+    expect(await readingsOf(survey.id)).toEqual([]);
+    return { survey, readingId: reading.id, before };
+  }
+
+  it('puts the same reading back, every value as it was, audited once however often it is sent', async () => {
+    const { survey, readingId, before } = await deletedReading();
+    const first = await as('inspector', (c) => restoreReading(c, survey.id, readingId));
+    expect(first.restored).toBe(true);
+    const back = await readingsOf(survey.id);
+    expect(back.map(comparable)).toEqual([before]);
+    const again = await as('inspector', (c) => restoreReading(c, survey.id, readingId));
+    expect(again.restored).toBe(false);
+    expect(await readingsOf(survey.id)).toHaveLength(1);
+    const rows = await auditRows('survey.reading-restored', survey.id);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ organisationId: organisation.id, actorUserId: users.inspector.id, details: { readingId, after: { location: 'Pile 7 splash', comment: 'marine growth scraped' } } });
+  });
+
+  for (const role of ['planner', 'viewer'] as const) {
+    it(`${role} may not put a reading back (survey:write, as for the delete)`, async () => {
+      const { survey, readingId } = await deletedReading();
+      await expect(as(role, (c) => restoreReading(c, survey.id, readingId))).rejects.toMatchObject({ code: 'forbidden' });
+      expect(await readingsOf(survey.id)).toEqual([]);
+    });
+  }
+
+  it("another organisation's inspector gets a 404 and nothing comes back", async () => {
+    const { survey, readingId } = await deletedReading();
+    await expect(as('inspector', (c) => restoreReading(c, survey.id, readingId), other)).rejects.toMatchObject({ code: 'not-found' });
+    expect(await readingsOf(survey.id)).toEqual([]);
+  });
+
+  it('a reading that was never deleted here is a 404: nothing can be invented this way', async () => {
+    const survey = await newSurvey();
+    await expect(as('inspector', (c) => restoreReading(c, survey.id, crypto.randomUUID()))).rejects.toMatchObject({ code: 'not-found' });
+    expect(await readingsOf(survey.id)).toEqual([]);
+  });
+
+  it(`a delete older than ${READING_RESTORE_MINUTES} minutes can no longer be undone`, async () => {
+    const { survey, readingId } = await deletedReading();
+    await (await getEm()).nativeUpdate(AuditEventSchema, { action: 'survey.reading-deleted', targetId: survey.id }, { createdAt: subMinutes(new Date(), READING_RESTORE_MINUTES + 1) });
+    await expect(as('inspector', (c) => restoreReading(c, survey.id, readingId))).rejects.toMatchObject({ code: 'conflict' });
+    expect(await readingsOf(survey.id)).toEqual([]);
+  });
+
+  // Steel in aerobic seawater is under-protected when less negative than -0.80 V Ag/AgCl/seawater (DNV-RP-B401, published; the asset's criteria in lib/register/protected-metal).
+  it('an under-protected reading whose delete was mailed as a correction comes back unflagged and is told once more as a new one is', async () => {
+    const survey = await newSurvey();
+    await as('inspector', (c) => addReading(c, survey.id, { location: 'Pile 9', potentialV: '-0.600', electrode: 'ag-agcl-seawater' }));
+    const [reading] = await readingsOf(survey.id);
+    expect(reading.alertedAt).not.toBeNull();
+    await as('inspector', (c) => deleteReading(c, survey.id, reading.id));
+    const alertsBefore = (await mailsAbout('Under-protection found on Undo Jetty')).length;
+    expect(await mailsAbout('Correction: readings of Undo Jetty')).toHaveLength(1);
+    const result = await as('inspector', (c) => restoreReading(c, survey.id, reading.id));
+    expect(result).toMatchObject({ restored: true, correctionWasMailed: true, isUnder: true, alertMailed: true });
+    const [back] = await readingsOf(survey.id);
+    expect(back.alertedAt).not.toBeNull();
+    expect((await mailsAbout('Under-protection found on Undo Jetty')).length).toBe(alertsBefore + 1);
+    // No second correction: the restore does not contradict the mail that told of the delete.
+    expect(await mailsAbout('Correction: readings of Undo Jetty')).toHaveLength(1);
   });
 });

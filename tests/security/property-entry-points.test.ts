@@ -73,6 +73,7 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     addReadingAction: { surveyId: ids.surveyId, location: 'Fr 20 P', potentialV: '-0.95', electrode: 'ag-agcl-seawater', anodeGroupLabel: 'Probe bottom', comment: 'Probe' },
     updateReadingAction: { surveyId: ids.surveyId, readingId: ids.readingId, location: 'Fr 10 P', potentialV: '-0.97', electrode: 'ag-agcl-seawater', remainingPercent: '70', comment: 'Probe' },
     deleteReadingAction: { surveyId: ids.surveyId, readingId: ids.spareReadingId },
+    restoreReadingAction: { surveyId: ids.surveyId, readingId: ids.spareReadingId },
     updateSurveyAction: { surveyId: ids.surveyId, surveyedOn: day(-11), method: 'rov', surveyor: 'Probe Divers', defaultElectrode: 'ag-agcl-seawater', notes: 'Probe' },
     deleteSurveyAction: { surveyId: ids.spareSurveyId },
     restoreSurveyAction: { surveyId: ids.binnedSurveyId },

@@ -3,7 +3,7 @@ import { redirect } from 'next/navigation';
 import { orgAction, formObject, formId } from '@/lib/server/action';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
-import { deleteReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
+import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { describeReading, underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
@@ -30,8 +30,19 @@ export const updateReadingAction = orgAction('survey:write', async (ctx, formDat
 });
 
 export const deleteReadingAction = orgAction('survey:write', async (ctx, formData) => {
-  const { location, correctionMailed } = await deleteReading(ctx, formId(formData, 'surveyId'), formId(formData, 'readingId'));
-  return { ok: true, message: `Reading at ${location} deleted.${correctionMailed ? ' A correction has been sent to the engineers who were told about it.' : ''}` };
+  const { location, correctionMailed, readingId } = await deleteReading(ctx, formId(formData, 'surveyId'), formId(formData, 'readingId'));
+  return { ok: true, message: `Reading at ${location} deleted.${correctionMailed ? ' A correction has been sent to the engineers who were told about it.' : ''}`, data: { undoReadingId: readingId, location } };
+});
+
+/** Undo of "Delete" beside a reading, a moment ago (restoreReading). */
+export const restoreReadingAction = orgAction('survey:write', async (ctx, formData) => {
+  const { reading, survey, restored, correctionWasMailed, isUnder, alertMailed, groupLost } = await restoreReading(ctx, formId(formData, 'surveyId'), formId(formData, 'readingId'));
+  if (!restored) return { ok: true, message: `The reading at ${reading.location} is already back.` };
+  const parts = [`Reading at ${reading.location} put back: ${describeReading(survey, reading)}.`];
+  if (groupLost) parts.push('The anode group it named has since been taken off, so it has no group now.');
+  if (correctionWasMailed) parts.push('The engineers were sent a correction saying it was deleted; that e-mail is not withdrawn.');
+  if (isUnder) parts.push(alertMailed ? 'It is under-protected; the engineers have been told again.' : 'It is under-protected; it joins the alert already open on this survey, shown on its page.');
+  return { ok: true, message: parts.join(' ') };
 });
 
 export const updateSurveyAction = orgAction('survey:write', async (ctx, formData) => {
