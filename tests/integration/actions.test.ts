@@ -445,7 +445,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'survey:write',
     table: 'survey',
     input: async () => ({ surveyId: await spareSurvey() }),
-    success: { redirect: /^\/o\/[\w-]+\/surveys\?deleted=1$/ },
+    success: { redirect: new RegExp(`^/o/[\\w-]+/surveys\\?deleted=${UUID}$`) },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'undoDeleteSurveyAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey',
+    // A survey deleted a moment ago, as the Undo in the list's notice sends it.
+    input: async () => {
+      const surveyId = await spareSurvey();
+      await as('inspector', (c) => deleteSurvey(c, surveyId));
+      return { surveyId };
+    },
+    success: { message: /^Survey of Action Vessel on \d{1,2} \w{3} \d{4} put back\.$/ },
   },
   {
     module: 'app/o/[org]/surveys/actions.ts',

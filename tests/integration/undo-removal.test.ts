@@ -13,6 +13,8 @@ import { OutboxMessageSchema, SurveyReadingSchema, ZoneSchema } from '@/entities
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, restoreReading, READING_RESTORE_MINUTES } from '@/lib/server/services/surveys/correct-readings';
+import { deleteSurvey, undoDeleteSurvey, SURVEY_UNDO_MINUTES } from '@/lib/server/services/surveys/manage-surveys';
+import { SurveySchema } from '@/entities';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
 // Undo of "Remove member" (the same membership back, from the removal's own audit row), of "Archive zone" and of "Delete" beside a reading.
@@ -213,5 +215,55 @@ describe('restoreReading', () => {
     expect((await mailsAbout('Under-protection found on Undo Jetty')).length).toBe(alertsBefore + 1);
     // No second correction: the restore does not contradict the mail that told of the delete.
     expect(await mailsAbout('Correction: readings of Undo Jetty')).toHaveLength(1);
+  });
+});
+
+describe('undoDeleteSurvey', () => {
+  let jettyId: string;
+  beforeAll(async () => {
+    jettyId = (await as('engineer', (c) => createAsset(c, { kind: 'structure', name: 'Undo Pier', structureType: 'jetty', waterType: 'seawater' }))).id;
+  });
+  let day = 0;
+  /** A survey with two readings, deleted by the inspector a moment ago. */
+  async function deletedSurvey() {
+    const survey = await as('inspector', (c) => createSurvey(c, { assetId: jettyId, surveyedOn: `2025-04-${String(++day).padStart(2, '0')}`, method: 'drop-cell', surveyor: 'Quay Team', defaultElectrode: 'ag-agcl-seawater' }));
+    for (const location of ['Berth 1', 'Berth 2']) await as('inspector', (c) => addReading(c, survey.id, { location, potentialV: '-0.950', electrode: 'ag-agcl-seawater' }));
+    await as('inspector', (c) => deleteSurvey(c, survey.id));
+    return survey.id;
+  }
+  const surveyRow = async (id: string) => (await getEm()).findOne(SurveySchema, { id });
+  const readingCount = async (id: string) => (await getEm()).count(SurveyReadingSchema, { survey: id });
+
+  it('the inspector who may delete may undo: the survey and its readings come back, audited once however often it is sent', async () => {
+    const id = await deletedSurvey();
+    expect(await surveyRow(id)).toBeNull();
+    expect((await as('inspector', (c) => undoDeleteSurvey(c, id))).restored).toBe(true);
+    expect(await surveyRow(id)).not.toBeNull();
+    expect(await readingCount(id)).toBe(2);
+    expect((await as('inspector', (c) => undoDeleteSurvey(c, id))).restored).toBe(false);
+    const rows = await auditRows('survey.restored', id);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]).toMatchObject({ organisationId: organisation.id, actorUserId: users.inspector.id, details: { undo: true, after: { readings: 2 } } });
+  });
+
+  for (const role of ['planner', 'viewer'] as const) {
+    it(`${role} may not undo a survey's delete (survey:write, as for the delete)`, async () => {
+      const id = await deletedSurvey();
+      await expect(as(role, (c) => undoDeleteSurvey(c, id))).rejects.toMatchObject({ code: 'forbidden' });
+      expect(await surveyRow(id)).toBeNull();
+    });
+  }
+
+  it("another organisation's inspector gets a 404 and the survey stays in the bin", async () => {
+    const id = await deletedSurvey();
+    await expect(as('inspector', (c) => undoDeleteSurvey(c, id), other)).rejects.toMatchObject({ code: 'not-found' });
+    expect(await surveyRow(id)).toBeNull();
+  });
+
+  it(`after ${SURVEY_UNDO_MINUTES} minutes the undo is refused (the bin is then an engineer's), and nothing comes back`, async () => {
+    const id = await deletedSurvey();
+    await (await getEm()).execute(`update survey_bin set deleted_at = now() - interval '${SURVEY_UNDO_MINUTES + 1} minutes' where id = ?`, [id]);
+    await expect(as('inspector', (c) => undoDeleteSurvey(c, id))).rejects.toMatchObject({ code: 'conflict' });
+    expect(await surveyRow(id)).toBeNull();
   });
 });

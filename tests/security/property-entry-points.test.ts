@@ -77,6 +77,7 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     updateSurveyAction: { surveyId: ids.surveyId, surveyedOn: day(-11), method: 'rov', surveyor: 'Probe Divers', defaultElectrode: 'ag-agcl-seawater', notes: 'Probe' },
     deleteSurveyAction: { surveyId: ids.spareSurveyId },
     restoreSurveyAction: { surveyId: ids.binnedSurveyId },
+    undoDeleteSurveyAction: { surveyId: ids.binnedSurveyId },
     updateAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.attachmentId, caption: 'Probe caption' },
     deleteAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.spareAttachmentId },
     createDockingAction: { assetId: ids.assetId, kind: 'intermediate', plannedStart: day(400), plannedEnd: day(410), yard: 'North Yard', reference: 'P-1', notes: 'Probe' },

@@ -4,7 +4,7 @@ import { orgAction, formObject, formId } from '@/lib/server/action';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
-import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { deleteSurvey, restoreSurvey, undoDeleteSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { describeReading, underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
 import { formatDateOnly } from '@/lib/dates/date-only';
@@ -52,8 +52,17 @@ export const updateSurveyAction = orgAction('survey:write', async (ctx, formData
 
 /** Deletes a survey (kept 30 days for an engineer to restore) and goes back to the list. */
 export const deleteSurveyAction = orgAction('survey:write', async (ctx, formData) => {
-  await deleteSurvey(ctx, formId(formData, 'surveyId'));
-  redirect(`/o/${ctx.organisation.slug}/surveys?deleted=1`);
+  const surveyId = formId(formData, 'surveyId');
+  await deleteSurvey(ctx, surveyId);
+  // The list names the deleted survey, so its notice can offer the Undo.
+  redirect(`/o/${ctx.organisation.slug}/surveys?deleted=${surveyId}`);
+});
+
+/** Undo of "Delete the survey", from the notice on the list a moment after (undoDeleteSurvey). */
+export const undoDeleteSurveyAction = orgAction('survey:write', async (ctx, formData) => {
+  const { survey, restored } = await undoDeleteSurvey(ctx, formId(formData, 'surveyId'));
+  const what = `Survey of ${survey.asset.name} on ${formatDateOnly(survey.surveyedOn)}`;
+  return { ok: true, message: restored ? `${what} put back.` : `${what} is already back.`, data: { surveyId: survey.id } };
 });
 
 export const restoreSurveyAction = orgAction('survey:restore', async (ctx, formData) => {
