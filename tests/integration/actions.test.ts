@@ -33,7 +33,7 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
-import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { addSurveyAttachment, deleteSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { createDocking } from '@/lib/server/services/planner/dockings';
 import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { approveDesign } from '@/lib/server/services/designs/sign-design';
@@ -491,6 +491,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'survey_attachment',
     input: async () => ({ surveyId: fixtures.survey, attachmentId: await surveyAttachment() }),
     success: { message: /^photo-\d+\.png deleted\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'restoreAttachmentAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_attachment',
+    // An attachment deleted a moment ago, as the Undo in the delete's notice sends it.
+    input: async () => {
+      const attachmentId = await surveyAttachment();
+      await as('inspector', (c) => deleteSurveyAttachment(c, fixtures.survey, attachmentId));
+      return { surveyId: fixtures.survey, attachmentId };
+    },
+    success: { message: /^photo-\d+\.png put back\.$/ },
   },
   // Dockings and renewals
   {

@@ -14,7 +14,8 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, restoreReading, READING_RESTORE_MINUTES } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, undoDeleteSurvey, SURVEY_UNDO_MINUTES } from '@/lib/server/services/surveys/manage-surveys';
-import { SurveySchema } from '@/entities';
+import { SurveySchema, SurveyAttachmentSchema } from '@/entities';
+import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
 // Undo of "Remove member" (the same membership back, from the removal's own audit row), of "Archive zone" and of "Delete" beside a reading.
@@ -265,5 +266,60 @@ describe('undoDeleteSurvey', () => {
     await (await getEm()).execute(`update survey_bin set deleted_at = now() - interval '${SURVEY_UNDO_MINUTES + 1} minutes' where id = ?`, [id]);
     await expect(as('inspector', (c) => undoDeleteSurvey(c, id))).rejects.toMatchObject({ code: 'conflict' });
     expect(await surveyRow(id)).toBeNull();
+  });
+});
+
+describe('restoreSurveyAttachment', () => {
+  let surveyId: string;
+  beforeAll(async () => {
+    const assetId = (await as('engineer', (c) => createAsset(c, { kind: 'structure', name: 'Undo Quay', structureType: 'jetty', waterType: 'seawater' }))).id;
+    surveyId = (await as('inspector', (c) => createSurvey(c, { assetId, surveyedOn: '2025-05-02', method: 'diver', surveyor: 'Photo Divers', defaultElectrode: 'ag-agcl-seawater' }))).id;
+  });
+  // The first bytes of a PNG file (the format's signature and header chunk), enough to be taken as a photo.
+  const PNG = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0]);
+  let serial = 0;
+  async function deletedAttachment() {
+    const attachment = await as('inspector', (c) => addSurveyAttachment(c, surveyId, { name: `pile-${++serial}.png`, bytes: PNG }, 'Pile 4 at low water'));
+    await as('inspector', (c) => deleteSurveyAttachment(c, surveyId, attachment.id));
+    return attachment.id;
+  }
+  const stored = async (id: string) => {
+    const em = await getEm();
+    const [row] = await em.execute<{ filename: string; caption: string | null; data: Buffer }[]>('select filename, caption, data from survey_attachment where id = ?', [id]);
+    return row ?? null;
+  };
+
+  it('puts the same file back, bytes and caption, audited once however often it is sent', async () => {
+    const id = await deletedAttachment();
+    expect(await stored(id)).toBeNull();
+    expect((await as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id))).restored).toBe(true);
+    const back = await stored(id);
+    expect(back).toMatchObject({ caption: 'Pile 4 at low water' });
+    expect(new Uint8Array(back!.data)).toEqual(PNG);
+    expect((await as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id))).restored).toBe(false);
+    expect(await (await getEm()).count(SurveyAttachmentSchema, { id })).toBe(1);
+    const rows = await auditRows('survey.attachment-restored', surveyId);
+    expect(rows.filter((r) => r.details?.attachmentId === id)).toHaveLength(1);
+  });
+
+  for (const role of ['planner', 'viewer'] as const) {
+    it(`${role} may not put an attachment back (survey:write, as for the delete)`, async () => {
+      const id = await deletedAttachment();
+      await expect(as(role, (c) => restoreSurveyAttachment(c, surveyId, id))).rejects.toMatchObject({ code: 'forbidden' });
+      expect(await stored(id)).toBeNull();
+    });
+  }
+
+  it("another organisation's inspector gets a 404 and the file stays deleted", async () => {
+    const id = await deletedAttachment();
+    await expect(as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id), other)).rejects.toMatchObject({ code: 'not-found' });
+    expect(await stored(id)).toBeNull();
+  });
+
+  it(`after ${ATTACHMENT_UNDO_MINUTES} minutes the undo is refused and nothing comes back`, async () => {
+    const id = await deletedAttachment();
+    await (await getEm()).execute(`update survey_attachment_bin set deleted_at = now() - interval '${ATTACHMENT_UNDO_MINUTES + 1} minutes' where id = ?`, [id]);
+    await expect(as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id))).rejects.toMatchObject({ code: 'conflict' });
+    expect(await stored(id)).toBeNull();
   });
 });

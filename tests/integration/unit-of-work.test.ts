@@ -14,7 +14,7 @@ import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/serv
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
-import { addSurveyAttachment, deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
@@ -185,6 +185,7 @@ describe('every write commits as one transaction or not at all', () => {
     const attachment = await runAs(member('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'fr30.png', bytes: png }, null));
     await expectAllOrNothing(as('inspector')((c) => updateSurveyAttachment(c, survey.id, attachment.id, { caption: `Fr 30 ${uniqueEmail('c')}` })));
     await expectAllOrNothing(as('inspector')((c) => deleteSurveyAttachment(c, survey.id, attachment.id)));
+    await expectAllOrNothing(as('inspector')((c) => restoreSurveyAttachment(c, survey.id, attachment.id)));
     await expectAllOrNothing(as('inspector')((c) => deleteSurvey(c, survey.id)));
     await expectAllOrNothing(as('engineer')((c) => restoreSurvey(c, survey.id)));
   });

@@ -80,6 +80,7 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     undoDeleteSurveyAction: { surveyId: ids.binnedSurveyId },
     updateAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.attachmentId, caption: 'Probe caption' },
     deleteAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.spareAttachmentId },
+    restoreAttachmentAction: { surveyId: ids.surveyId, attachmentId: ids.spareAttachmentId },
     createDockingAction: { assetId: ids.assetId, kind: 'intermediate', plannedStart: day(400), plannedEnd: day(410), yard: 'North Yard', reference: 'P-1', notes: 'Probe' },
     updateDockingAction: { dockingId: ids.dockingId, kind: 'intermediate', status: 'planned', plannedStart: day(300), yard: 'South Yard' },
     renewalStepAction: { renewalId: ids.renewalId, step: 'update', quantity: '8', dockingId: ids.dockingId, notes: 'Probe', fittedOn: day(0) },

@@ -5,7 +5,7 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, undoDeleteSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
-import { deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { describeReading, underProtectionWords } from '@/lib/server/services/surveys/reading-alerts';
 import { formatDateOnly } from '@/lib/dates/date-only';
 
@@ -76,6 +76,13 @@ export const updateAttachmentAction = orgAction('survey:write', async (ctx, form
 });
 
 export const deleteAttachmentAction = orgAction('survey:write', async (ctx, formData) => {
-  const { file } = await deleteSurveyAttachment(ctx, formId(formData, 'surveyId'), formId(formData, 'attachmentId'));
-  return { ok: true, message: `${file} deleted.` };
+  const attachmentId = formId(formData, 'attachmentId');
+  const { file } = await deleteSurveyAttachment(ctx, formId(formData, 'surveyId'), attachmentId);
+  return { ok: true, message: `${file} deleted.`, data: { undoAttachmentId: attachmentId, file } };
+});
+
+/** Undo of "Delete" beside an attachment, a moment ago (restoreSurveyAttachment). */
+export const restoreAttachmentAction = orgAction('survey:write', async (ctx, formData) => {
+  const { file, restored } = await restoreSurveyAttachment(ctx, formId(formData, 'surveyId'), formId(formData, 'attachmentId'));
+  return { ok: true, message: restored ? `${file} put back.` : `${file} is already back.` };
 });
