@@ -26,7 +26,7 @@ import { getStripe } from '@/lib/server/billing/stripe';
 import { PLANS } from '@/lib/billing/plans';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { archiveZone, createZone } from '@/lib/server/services/register/zones';
-import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
@@ -276,6 +276,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
       reason: 'Lost in a collision',
     }),
     success: { message: /^Group "Lost group \d+" closed as removed on \d{4}-\d{2}-\d{2}\.$/ },
+  },
+  {
+    module: 'app/o/[org]/assets/actions.ts',
+    name: 'restoreAnodeGroupAction',
+    kind: 'form',
+    permission: 'asset:write',
+    table: 'anode_group',
+    // A group closed a moment ago, as the Undo in the close's notice sends it.
+    input: async () => {
+      const group = await as('engineer', (c) => createAnodeGroup(c, fixtures.vessel, { label: unique('Reopened group'), anodeModelKey: 'builtin:TW-AW-4020', quantity: 2, installedOn: day(-50) }));
+      await as('engineer', (c) => removeAnodeGroup(c, group.id, { removedOn: day(0), reason: 'Closed by mistake' }));
+      return { groupId: group.id };
+    },
+    success: { message: /^Group "Reopened group \d+" is fitted again\.$/ },
   },
   // Designs
   {

@@ -14,7 +14,9 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { deleteReading, restoreReading, READING_RESTORE_MINUTES } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, undoDeleteSurvey, SURVEY_UNDO_MINUTES } from '@/lib/server/services/surveys/manage-surveys';
-import { SurveySchema, SurveyAttachmentSchema } from '@/entities';
+import { SurveySchema, SurveyAttachmentSchema, AnodeGroupSchema, AnodeGroupChangeSchema } from '@/entities';
+import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { restoreAnodeGroup, GROUP_RESTORE_MINUTES } from '@/lib/server/services/register/restore-anode-group';
 import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
@@ -321,5 +323,52 @@ describe('restoreSurveyAttachment', () => {
     await (await getEm()).execute(`update survey_attachment_bin set deleted_at = now() - interval '${ATTACHMENT_UNDO_MINUTES + 1} minutes' where id = ?`, [id]);
     await expect(as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id))).rejects.toMatchObject({ code: 'conflict' });
     expect(await stored(id)).toBeNull();
+  });
+});
+
+describe('restoreAnodeGroup', () => {
+  let assetId: string;
+  beforeAll(async () => {
+    assetId = (await as('engineer', (c) => createAsset(c, { kind: 'vessel', name: 'Undo Coaster', hullMaterial: 'steel' }))).id;
+  });
+  let serial = 0;
+  async function closedGroup() {
+    const group = await as('engineer', (c) => createAnodeGroup(c, assetId, { label: `Bilge keel ${++serial}`, anodeModelKey: 'builtin:TW-AW-4020', quantity: 6, installedOn: '2024-06-01' }));
+    await as('engineer', (c) => removeAnodeGroup(c, group.id, { removedOn: '2026-11-30', reason: 'Closed by mistake' }));
+    return group.id;
+  }
+  const groupRow = async (id: string) => (await getEm()).findOneOrFail(AnodeGroupSchema, { id }, { refresh: true });
+
+  it('fits the group again as it was, with the undo in its history, audited once however often it is sent', async () => {
+    const id = await closedGroup();
+    expect((await groupRow(id)).removedOn).toBe('2026-11-30');
+    expect((await as('engineer', (c) => restoreAnodeGroup(c, id))).restored).toBe(true);
+    const back = await groupRow(id);
+    expect([back.removedOn ?? null, back.removalReason ?? null, back.quantity]).toEqual([null, null, 6]);
+    expect((await as('engineer', (c) => restoreAnodeGroup(c, id))).restored).toBe(false);
+    expect(await auditRows('anode-group.restored', id)).toHaveLength(1);
+    const changes = await (await getEm()).find(AnodeGroupChangeSchema, { group: id }, { orderBy: { createdAt: 'desc' } });
+    expect(changes[0].changes).toEqual({ removedOn: ['2026-11-30', null], removalReason: ['Closed by mistake', null] });
+  });
+
+  for (const role of ['planner', 'inspector', 'viewer'] as const) {
+    it(`${role} may not reopen a group (asset:write, as for closing it)`, async () => {
+      const id = await closedGroup();
+      await expect(as(role, (c) => restoreAnodeGroup(c, id))).rejects.toMatchObject({ code: 'forbidden' });
+      expect((await groupRow(id)).removedOn).toBe('2026-11-30');
+    });
+  }
+
+  it("another organisation's engineer gets a 404 and the group stays closed", async () => {
+    const id = await closedGroup();
+    await expect(as('engineer', (c) => restoreAnodeGroup(c, id), other)).rejects.toMatchObject({ code: 'not-found' });
+    expect((await groupRow(id)).removedOn).toBe('2026-11-30');
+  });
+
+  it(`a close older than ${GROUP_RESTORE_MINUTES} minutes can no longer be undone`, async () => {
+    const id = await closedGroup();
+    await (await getEm()).nativeUpdate(AuditEventSchema, { action: 'anode-group.removed', targetId: id }, { createdAt: subMinutes(new Date(), GROUP_RESTORE_MINUTES + 1) });
+    await expect(as('engineer', (c) => restoreAnodeGroup(c, id))).rejects.toMatchObject({ code: 'conflict' });
+    expect((await groupRow(id)).removedOn).toBe('2026-11-30');
   });
 });

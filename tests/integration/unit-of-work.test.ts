@@ -33,6 +33,7 @@ import { changeMemberRole } from '@/lib/server/services/team/change-member-role'
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { restoreMember } from '@/lib/server/services/team/restore-member';
 import { restoreZone } from '@/lib/server/services/register/restore-zone';
+import { restoreAnodeGroup } from '@/lib/server/services/register/restore-anode-group';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { acceptInvitationAsNewUser, acceptInvitationAsUser } from '@/lib/server/services/team/accept-invitation';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
@@ -158,6 +159,7 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('engineer')((c) => updateAnodeGroup(c, groupId, { zoneId, label: 'Bottom', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 10, installedOn: new Date(Date.now() - 900 * 86_400_000).toISOString().slice(0, 10), meanCurrentA: 2.5 + Math.random() })));
     const spare = await runAs(member('engineer'), (c) => createAnodeGroup(c, vesselId, { label: 'Spare group', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 2, installedOn: '2025-01-01', meanCurrentA: 0.5 }));
     await expectAllOrNothing(as('engineer')((c) => removeAnodeGroup(c, spare.id, { removedOn: '2026-01-01', reason: 'Lost' })));
+    await expectAllOrNothing(as('engineer')((c) => restoreAnodeGroup(c, spare.id)));
   });
 
   it('surveys: record, add a reading (with its alert mail), import a CSV, attach a photo', async () => {

@@ -61,6 +61,7 @@ function plausibleForm(action: string): Record<string, string> | undefined {
     createAnodeGroupAction: { assetId: ids.assetId, label: 'Probe hull', anodeModelKey: 'builtin:TW-AW-4020', quantity: '4', installedOn: day(-100), positions: 'Frames 10-20', notes: 'Probe' },
     updateAnodeGroupAction: { groupId: ids.groupId, label: 'Probe bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: '10', installedOn: day(-365) },
     removeAnodeGroupAction: { groupId: ids.spareGroupId, removedOn: day(-1), reason: 'Lost in a grounding' },
+    restoreAnodeGroupAction: { groupId: ids.spareGroupId },
     createDesignAction: { assetId: ids.assetId, title: 'Probe desk design' },
     checkDesignAction: { designId: ids.designId },
     approveDesignAction: { designId: ids.designId },
