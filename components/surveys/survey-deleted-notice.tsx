@@ -2,7 +2,7 @@
 import { useEffect } from 'react';
 import { useRouter } from 'next/navigation';
 import { useQueryClient } from '@tanstack/react-query';
-import { NoticeBar, useNotice } from '@/components/ui/toast';
+import { announce, NoticeBar, useNotice } from '@/components/ui/toast';
 import { undoDeleteSurveyAction } from '@/app/o/[org]/surveys/actions';
 import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { queryKeys } from '@/lib/client/query-client';
@@ -26,12 +26,15 @@ export function SurveyDeletedNotice({ org, surveyId }: { org: string; surveyId: 
           form.set('surveyId', surveyId);
           form.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
           const answer = await undoDeleteSurveyAction(org, { ok: false }, form);
-          show({ ok: answer.ok, message: answer.message ?? '' });
-          if (!answer.ok) return;
-          // The address no longer names a deleted survey: a reload must not say it was deleted.
-          window.history.replaceState(null, '', `/o/${org}/surveys`);
+          if (!answer.ok) {
+            show({ ok: false, message: answer.message ?? '' });
+            return;
+          }
+          // Said in the page-wide notice, which stays on this page while the address stops naming a deleted
+          // survey (a reload must not say it was deleted) and this notice goes with it.
+          announce({ ok: true, message: answer.message ?? '' });
           await client.invalidateQueries({ queryKey: queryKeys.surveys(org) });
-          router.refresh();
+          router.replace(`/o/${org}/surveys`);
         },
       },
     });

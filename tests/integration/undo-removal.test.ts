@@ -17,6 +17,7 @@ import { deleteSurvey, undoDeleteSurvey, SURVEY_UNDO_MINUTES } from '@/lib/serve
 import { SurveySchema, SurveyAttachmentSchema, AnodeGroupSchema, AnodeGroupChangeSchema } from '@/entities';
 import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { restoreAnodeGroup, GROUP_RESTORE_MINUTES } from '@/lib/server/services/register/restore-anode-group';
+import { createAnodeModel, setAnodeModelArchived } from '@/lib/server/services/catalogue/manage-anode-models';
 import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
@@ -370,5 +371,17 @@ describe('restoreAnodeGroup', () => {
     await (await getEm()).nativeUpdate(AuditEventSchema, { action: 'anode-group.removed', targetId: id }, { createdAt: subMinutes(new Date(), GROUP_RESTORE_MINUTES + 1) });
     await expect(as('engineer', (c) => restoreAnodeGroup(c, id))).rejects.toMatchObject({ code: 'conflict' });
     expect((await groupRow(id)).removedOn).toBe('2026-11-30');
+  });
+});
+
+describe('undo of archiving a catalogue model (the same action, restoring)', () => {
+  it('restores once: the Undo sent twice changes nothing more and is audited once; another organisation gets a 404', async () => {
+    const model = await as('engineer', (c) => createAnodeModel(c, { designation: 'UNDO-PLATE-1', alloy: 'zinc', mounting: 'flush-bolt', shapeKind: 'short-flush', lengthM: 0.3, widthM: 0.15, thicknessM: 0.03, exposedAreaM2: 0.06, netMassKg: 8, grossMassKg: 8.5 }));
+    await as('engineer', (c) => setAnodeModelArchived(c, model.id, true));
+    await expect(as('engineer', (c) => setAnodeModelArchived(c, model.id, false), other)).rejects.toMatchObject({ code: 'not-found' });
+    await as('engineer', (c) => setAnodeModelArchived(c, model.id, false));
+    await as('engineer', (c) => setAnodeModelArchived(c, model.id, false));
+    expect(await auditRows('catalogue.model-archived', model.id)).toHaveLength(1);
+    expect(await auditRows('catalogue.model-restored', model.id)).toHaveLength(1);
   });
 });
