@@ -61,6 +61,7 @@ function deleteWithUndo(editing: Editing, refresh: () => void) {
 export function ReadingsTable({ readings, editing }: { readings: Reading[]; editing?: Editing }) {
   const [openId, setOpenId] = useState<string | null>(null);
   const router = useRouter();
+  const editKey = editing ? JSON.stringify(editing) : '';
   // The reading as the page has it now: after a saved correction the page refreshes and the form shows the new values.
   const open = openId ? (readings.find((r) => r.id === openId) ?? null) : null;
   const columns = useMemo(() => {
@@ -119,7 +120,10 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
         ),
       }),
     ];
-  }, [editing, router]);
+    // Keyed on what editing holds, not its identity: a page refresh (another action's) must not remount the
+    // cells and close a "Delete …?" question the user is answering.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [editKey, router]);
   return (
     <>
       {editing && open ? <ReadingEditForm key={open.id} reading={open} editing={editing} onClose={() => setOpenId(null)} /> : null}

@@ -232,10 +232,11 @@ test('an inspector deletes a reading and puts it back with Undo; a deleted surve
   await add.getByLabel('Potential').fill('0.20');
   await add.getByLabel('Comment').fill('Fender frame, scraped');
   await add.getByRole('button', { name: 'Add reading' }).click();
+  await expect(add.getByText(/^Reading added at UN-7/)).toBeVisible();
   const table = page.getByRole('table', { name: 'Readings' });
   const row = table.getByRole('row', { name: /UN-7/ });
   await expect(row).toContainText('Fender frame, scraped');
-  const asStored = await row.innerText();
+  const asStored = (await row.textContent()) ?? '';
 
   await row.getByRole('button', { name: 'Delete the reading at UN-7' }).click();
   await page.getByRole('button', { name: 'Yes, delete' }).click();
@@ -251,6 +252,7 @@ test('an inspector deletes a reading and puts it back with Undo; a deleted surve
   await page.getByRole('button', { name: 'Yes, delete' }).click();
   await expect(page.getByTestId('notice')).toContainText('Survey deleted.');
   await page.getByRole('button', { name: /^Undo: put the survey back/ }).click();
-  await expect(page.getByTestId('notice')).toContainText('Survey of Dolphin North on 23 Nov 2026 put back.');
+  await expect(page.getByTestId('notice').filter({ hasText: 'Survey of Dolphin North on 23 Nov 2026 put back.' })).toBeVisible();
+  await expect(page).toHaveURL(/\/surveys$/);
   await expect(page.getByRole('table', { name: 'Surveys' }).getByRole('row', { name: /23 Nov 2026/ })).toContainText('Dolphin North');
 });
