@@ -13,6 +13,7 @@ import { Migration20261204200000_rate_limit } from './Migration20261204200000_ra
 import { Migration20261204300000_subscription_unique } from './Migration20261204300000_subscription_unique';
 import { Migration20261204500000_worker_heartbeat } from './Migration20261204500000_worker_heartbeat';
 import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
+import { Migration20261206600000_attachment_undo } from './Migration20261206600000_attachment_undo';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -30,4 +31,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261204300000_subscription_unique', class: Migration20261204300000_subscription_unique },
   { name: 'Migration20261204500000_worker_heartbeat', class: Migration20261204500000_worker_heartbeat },
   { name: 'Migration20261204600000_survey_corrections', class: Migration20261204600000_survey_corrections },
+  { name: 'Migration20261206600000_attachment_undo', class: Migration20261206600000_attachment_undo },
 ];

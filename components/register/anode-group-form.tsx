@@ -1,10 +1,15 @@
 'use client';
 import { queryKeys } from '@/lib/client/query-client';
 import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { createAnodeGroupAction, removeAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
+import { createAnodeGroupAction, removeAnodeGroupAction, restoreAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
+import { announce } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import type { ActionState } from '@/lib/server/action';
 import { todayDateOnly } from '@/lib/dates/date-only';
 
 export interface GroupChoice {
@@ -68,7 +73,33 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
 }
 
 export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: string; label: string }[] }) {
-  const form = useBoundAction(removeAnodeGroupAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
+  const client = useQueryClient();
+  const router = useRouter();
+  // The close, then its Undo in the page's notice for a few seconds.
+  const closeWithUndo = async (prev: ActionState, formData: FormData): Promise<ActionState> => {
+    const answer = await removeAnodeGroupAction(org, prev, formData);
+    const groupId = typeof answer.data?.undoGroupId === 'string' ? answer.data.undoGroupId : null;
+    if (!answer.ok || !groupId) return answer;
+    const label = typeof answer.data?.label === 'string' ? answer.data.label : '';
+    announce({
+      ok: true,
+      message: answer.message ?? `Group "${label}" closed.`,
+      undo: {
+        label: `Undo: fit the group ${label} again`,
+        run: async () => {
+          const restore = new FormData();
+          restore.set('groupId', groupId);
+          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+          const restored = await restoreAnodeGroupAction(org, { ok: false }, restore);
+          announce({ ok: restored.ok, message: restored.message ?? '' });
+          for (const queryKey of [queryKeys.anodeGroups(org), queryKeys.assets(org)]) await client.invalidateQueries({ queryKey });
+          router.refresh();
+        },
+      },
+    });
+    return answer;
+  };
+  const form = useBoundAction(closeWithUndo, { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
   if (!groups.length) return null;
   return (
     <ActionForm form={form} className="grid grid-cols-2 gap-3 md:grid-cols-4" messageClassName="col-span-2 md:col-span-4" noValidate>

@@ -1,6 +1,6 @@
 'use client';
 import { useMemo } from 'react';
-import { useQuery } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { createColumnHelper } from '@tanstack/react-table';
 import { DataTable } from '@/components/ui/data-table';
 import { Button } from '@/components/ui/button';
@@ -11,6 +11,9 @@ import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { archiveAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
+import { announce } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import type { ActionState } from '@/lib/server/action';
 
 function dimensions(m: CatalogueModel) {
   const d = m.dimensions;
@@ -21,7 +24,30 @@ function dimensions(m: CatalogueModel) {
 }
 
 function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
-  const { action, pending } = useBoundAction(archiveAnodeModelAction.bind(null, org), { invalidate: [queryKeys.catalogue(org)] });
+  const client = useQueryClient();
+  // Archiving says so in the page's notice, with an Undo (the same action, restoring); restoring needs none.
+  const archiveWithUndo = async (prev: ActionState, formData: FormData): Promise<ActionState> => {
+    const answer = await archiveAnodeModelAction(org, prev, formData);
+    if (!answer.ok || formData.get('archive') !== '1') return answer;
+    announce({
+      ok: true,
+      message: answer.message ?? `${model.designation} archived.`,
+      undo: {
+        label: `Undo: restore ${model.designation}`,
+        run: async () => {
+          const restore = new FormData();
+          restore.set('modelId', model.id);
+          restore.set('archive', '0');
+          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+          const restored = await archiveAnodeModelAction(org, { ok: false }, restore);
+          announce({ ok: restored.ok, message: restored.message ?? '' });
+          await client.invalidateQueries({ queryKey: queryKeys.catalogue(org) });
+        },
+      },
+    });
+    return answer;
+  };
+  const { action, pending } = useBoundAction(archiveWithUndo, { invalidate: [queryKeys.catalogue(org)] });
   return (
     <form action={action}>
       <input type="hidden" name="modelId" value={model.id} />

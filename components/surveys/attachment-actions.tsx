@@ -3,13 +3,40 @@ import { useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { deleteAttachmentAction, updateAttachmentAction } from '@/app/o/[org]/surveys/actions';
+import { useRouter } from 'next/navigation';
+import { deleteAttachmentAction, restoreAttachmentAction, updateAttachmentAction } from '@/app/o/[org]/surveys/actions';
+import { announce, UNDO_SECONDS } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import type { ActionState } from '@/lib/server/action';
 import { ConfirmDelete } from './confirm-delete';
 
 /** Change an attachment's caption, or delete it (after a confirmation). */
 export function AttachmentActions({ org, surveyId, attachment }: { org: string; surveyId: string; attachment: { id: string; filename: string; caption: string | null } }) {
   const [editing, setEditing] = useState(false);
   const form = useBoundAction(updateAttachmentAction.bind(null, org));
+  const router = useRouter();
+  // The delete, then its Undo in the page's notice (this control is gone with the attachment once the page refreshes).
+  const deleteWithUndo = async (prev: ActionState, formData: FormData): Promise<ActionState> => {
+    const answer = await deleteAttachmentAction(org, prev, formData);
+    if (!answer.ok || answer.data?.undoAttachmentId !== attachment.id) return answer;
+    announce({
+      ok: true,
+      message: answer.message ?? `${attachment.filename} deleted.`,
+      undo: {
+        label: `Undo: put back ${attachment.filename}`,
+        run: async () => {
+          const restore = new FormData();
+          restore.set('surveyId', surveyId);
+          restore.set('attachmentId', attachment.id);
+          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+          const restored = await restoreAttachmentAction(org, { ok: false }, restore);
+          announce({ ok: restored.ok, message: restored.message ?? '' });
+          router.refresh();
+        },
+      },
+    });
+    return answer;
+  };
   return (
     <div className="mt-1 flex flex-col gap-1">
       {editing ? (
@@ -31,7 +58,7 @@ export function AttachmentActions({ org, surveyId, attachment }: { org: string; 
           <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setEditing(true)}>
             Edit caption
           </Button>
-          <ConfirmDelete action={deleteAttachmentAction.bind(null, org)} fields={{ surveyId, attachmentId: attachment.id }} what={attachment.filename} consequence="The file cannot be restored on its own." />
+          <ConfirmDelete action={deleteWithUndo} fields={{ surveyId, attachmentId: attachment.id }} what={attachment.filename} consequence={`You can undo it for ${UNDO_SECONDS} seconds.`} />
         </span>
       )}
     </div>

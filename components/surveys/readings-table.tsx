@@ -1,6 +1,7 @@
 'use client';
 import { useMemo, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
+import { useRouter } from 'next/navigation';
 import { DataTable } from '@/components/ui/data-table';
 import { StatusTag } from '@/components/ui/panel';
 import { REMAINING_TONES } from '@/lib/status/palette';
@@ -9,7 +10,10 @@ import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { ELECTRODE_SHORT_LABELS, REMAINING_STATUS_LABELS, versusElectrode } from '@/lib/labels';
 import { fmt } from '@/lib/format';
-import { deleteReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
+import { deleteReadingAction, restoreReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
+import { announce, UNDO_SECONDS } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import type { ActionState } from '@/lib/server/action';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
 import { ReadingFields } from './reading-form';
 import { ConfirmDelete } from './confirm-delete';
@@ -23,9 +27,41 @@ interface Editing {
   electrode: string;
 }
 
+/**
+ * Deletes a reading, then offers its Undo in the page's notice (the row, and this control, are gone once the
+ * page refreshes, so the notice lives in the page-wide store).
+ */
+function deleteWithUndo(editing: Editing, refresh: () => void) {
+  return async (prev: ActionState, formData: FormData): Promise<ActionState> => {
+    const answer = await deleteReadingAction(editing.org, prev, formData);
+    const readingId = typeof answer.data?.undoReadingId === 'string' ? answer.data.undoReadingId : null;
+    if (!answer.ok || !readingId) return answer;
+    const location = typeof answer.data?.location === 'string' ? answer.data.location : '';
+    announce({
+      ok: true,
+      message: answer.message ?? `Reading at ${location} deleted.`,
+      undo: {
+        label: `Undo: put back the reading at ${location}`,
+        run: async () => {
+          const restore = new FormData();
+          restore.set('surveyId', editing.surveyId);
+          restore.set('readingId', readingId);
+          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+          const restored = await restoreReadingAction(editing.org, { ok: false }, restore);
+          announce({ ok: restored.ok, message: restored.message ?? '' });
+          refresh();
+        },
+      },
+    });
+    return answer;
+  };
+}
+
 /** Readings against the criteria: status in words, colour only as a second cue. With `editing`, each row can be corrected or deleted. */
 export function ReadingsTable({ readings, editing }: { readings: Reading[]; editing?: Editing }) {
   const [openId, setOpenId] = useState<string | null>(null);
+  const router = useRouter();
+  const editKey = editing ? JSON.stringify(editing) : '';
   // The reading as the page has it now: after a saved correction the page refreshes and the form shows the new values.
   const open = openId ? (readings.find((r) => r.id === openId) ?? null) : null;
   const columns = useMemo(() => {
@@ -75,16 +111,19 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
               Edit
             </Button>
             <ConfirmDelete
-              action={deleteReadingAction.bind(null, editing.org)}
+              action={deleteWithUndo(editing, router.refresh)}
               fields={{ surveyId: editing.surveyId, readingId: c.row.original.id }}
               what={`the reading at ${c.row.original.location}`}
-              consequence="It cannot be restored on its own; the audit log keeps its values."
+              consequence={`You can undo it for ${UNDO_SECONDS} seconds; the audit log keeps its values.`}
             />
           </span>
         ),
       }),
     ];
-  }, [editing]);
+    // Keyed on what editing holds, not its identity: a page refresh (another action's) must not remount the
+    // cells and close a "Delete …?" question the user is answering.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [editKey, router]);
   return (
     <>
       {editing && open ? <ReadingEditForm key={open.id} reading={open} editing={editing} onClose={() => setOpenId(null)} /> : null}

@@ -214,3 +214,45 @@ test("Tidewarden's own icons and social image are served to anyone and named in 
   await expect(page.locator('link[rel="apple-touch-icon"]')).toHaveAttribute('href', /\/apple-touch-icon\.png/);
   await expect(page.locator('meta[property="og:image"]')).toHaveAttribute('content', /\/og-image\.png$/);
 });
+
+// Against zinc, +0.20 V on steel is protected (zinc about -1.05 V vs Ag/AgCl/seawater; as in surveys-corrections.spec.ts, common practice).
+test('an inspector deletes a reading and puts it back with Undo; a deleted survey comes back from the list', async ({ page }) => {
+  test.setTimeout(120_000);
+  await signIn(page, demoUser('inspector').email);
+  await page.goto(`/o/${demo.organisation.slug}/surveys`);
+  await page.getByLabel('Asset', { exact: true }).selectOption({ label: 'Dolphin North' });
+  await page.getByLabel('Surveyed on').fill('2026-11-23');
+  await page.getByLabel('Method', { exact: true }).selectOption('drop-cell');
+  await page.getByLabel('Reference electrode used').selectOption('zinc');
+  await page.getByRole('button', { name: 'Record the survey' }).click();
+  await expect(page.getByRole('heading', { name: /Dolphin North: Drop cell survey of 23 Nov 2026/ })).toBeVisible();
+
+  const add = page.getByRole('form', { name: 'Add a reading' });
+  await add.getByLabel('Location').fill('UN-7');
+  await add.getByLabel('Potential').fill('0.20');
+  await add.getByLabel('Comment').fill('Fender frame, scraped');
+  await add.getByRole('button', { name: 'Add reading' }).click();
+  await expect(add.getByText(/^Reading added at UN-7/)).toBeVisible();
+  const table = page.getByRole('table', { name: 'Readings' });
+  const row = table.getByRole('row', { name: /UN-7/ });
+  await expect(row).toContainText('Fender frame, scraped');
+  const asStored = (await row.textContent()) ?? '';
+
+  await row.getByRole('button', { name: 'Delete the reading at UN-7' }).click();
+  await page.getByRole('button', { name: 'Yes, delete' }).click();
+  await expect(page.getByTestId('notice')).toContainText('Reading at UN-7 deleted.');
+  await expect(table.getByRole('row', { name: /UN-7/ })).toHaveCount(0);
+  await page.getByRole('button', { name: /^Undo: put back the reading at UN-7/ }).click();
+  await expect(page.getByTestId('notice')).toContainText('Reading at UN-7 put back: +0.200 V against');
+  // Back without a reload, with the values it had.
+  await expect(table.getByRole('row', { name: /UN-7/ })).toHaveText(asStored);
+
+  // The survey's delete navigates to the list, whose notice offers the Undo.
+  await page.getByRole('button', { name: 'Delete the survey' }).click();
+  await page.getByRole('button', { name: 'Yes, delete' }).click();
+  await expect(page.getByTestId('notice')).toContainText('Survey deleted.');
+  await page.getByRole('button', { name: /^Undo: put the survey back/ }).click();
+  await expect(page.getByTestId('notice').filter({ hasText: 'Survey of Dolphin North on 23 Nov 2026 put back.' })).toBeVisible();
+  await expect(page).toHaveURL(/\/surveys$/);
+  await expect(page.getByRole('table', { name: 'Surveys' }).getByRole('row', { name: /23 Nov 2026/ })).toContainText('Dolphin North');
+});

@@ -63,7 +63,7 @@ test('an inspector deletes a survey after confirming; an engineer restores it fr
   await page.getByRole('button', { name: 'Delete the survey' }).click();
   await expect(page.getByText('Delete this survey with its 0 readings and 0 attachments? An engineer can restore it within 30 days.')).toBeVisible();
   await page.getByRole('button', { name: 'Yes, delete' }).click();
-  await expect(page).toHaveURL(/\/surveys\?deleted=1$/);
+  await expect(page).toHaveURL(/\/surveys\?deleted=[0-9a-f-]{36}$/);
   await expect(page.getByRole('status').filter({ hasText: 'Survey deleted. An engineer can restore it within 30 days.' })).toBeVisible();
   // An inspector deletes but does not restore.
   await expect(page.getByText('Deleted surveys (restorable for 30 days)')).toHaveCount(0);

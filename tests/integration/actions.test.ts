@@ -26,13 +26,14 @@ import { getStripe } from '@/lib/server/billing/stripe';
 import { PLANS } from '@/lib/billing/plans';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { archiveZone, createZone } from '@/lib/server/services/register/zones';
-import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { deleteReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
-import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { addSurveyAttachment, deleteSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { createDocking } from '@/lib/server/services/planner/dockings';
 import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { approveDesign } from '@/lib/server/services/designs/sign-design';
@@ -276,6 +277,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
     }),
     success: { message: /^Group "Lost group \d+" closed as removed on \d{4}-\d{2}-\d{2}\.$/ },
   },
+  {
+    module: 'app/o/[org]/assets/actions.ts',
+    name: 'restoreAnodeGroupAction',
+    kind: 'form',
+    permission: 'asset:write',
+    table: 'anode_group',
+    // A group closed a moment ago, as the Undo in the close's notice sends it.
+    input: async () => {
+      const group = await as('engineer', (c) => createAnodeGroup(c, fixtures.vessel, { label: unique('Reopened group'), anodeModelKey: 'builtin:TW-AW-4020', quantity: 2, installedOn: day(-50) }));
+      await as('engineer', (c) => removeAnodeGroup(c, group.id, { removedOn: day(0), reason: 'Closed by mistake' }));
+      return { groupId: group.id };
+    },
+    success: { message: /^Group "Reopened group \d+" is fitted again\.$/ },
+  },
   // Designs
   {
     module: 'app/o/[org]/designs/actions.ts',
@@ -416,6 +431,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
   },
   {
     module: 'app/o/[org]/surveys/actions.ts',
+    name: 'restoreReadingAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_reading',
+    // A reading deleted a moment ago, as the Undo button in the delete's notice sends it.
+    input: async () => {
+      const readingId = await surveyReading();
+      await as('inspector', (c) => deleteReading(c, fixtures.survey, readingId));
+      return { surveyId: fixtures.survey, readingId };
+    },
+    success: { message: /^Reading at Reading \d+ put back: .+\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
     name: 'updateSurveyAction',
     kind: 'form',
     permission: 'survey:write',
@@ -430,7 +459,21 @@ const ORG_ACTIONS: OrgActionCase[] = [
     permission: 'survey:write',
     table: 'survey',
     input: async () => ({ surveyId: await spareSurvey() }),
-    success: { redirect: /^\/o\/[\w-]+\/surveys\?deleted=1$/ },
+    success: { redirect: new RegExp(`^/o/[\\w-]+/surveys\\?deleted=${UUID}$`) },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'undoDeleteSurveyAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey',
+    // A survey deleted a moment ago, as the Undo in the list's notice sends it.
+    input: async () => {
+      const surveyId = await spareSurvey();
+      await as('inspector', (c) => deleteSurvey(c, surveyId));
+      return { surveyId };
+    },
+    success: { message: /^Survey of Action Vessel on \d{1,2} \w{3} \d{4} put back\.$/ },
   },
   {
     module: 'app/o/[org]/surveys/actions.ts',
@@ -462,6 +505,20 @@ const ORG_ACTIONS: OrgActionCase[] = [
     table: 'survey_attachment',
     input: async () => ({ surveyId: fixtures.survey, attachmentId: await surveyAttachment() }),
     success: { message: /^photo-\d+\.png deleted\.$/ },
+  },
+  {
+    module: 'app/o/[org]/surveys/actions.ts',
+    name: 'restoreAttachmentAction',
+    kind: 'form',
+    permission: 'survey:write',
+    table: 'survey_attachment',
+    // An attachment deleted a moment ago, as the Undo in the delete's notice sends it.
+    input: async () => {
+      const attachmentId = await surveyAttachment();
+      await as('inspector', (c) => deleteSurveyAttachment(c, fixtures.survey, attachmentId));
+      return { surveyId: fixtures.survey, attachmentId };
+    },
+    success: { message: /^photo-\d+\.png put back\.$/ },
   },
   // Dockings and renewals
   {

@@ -14,8 +14,8 @@ import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/serv
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
-import { addSurveyAttachment, deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
-import { deleteReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
+import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal, cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered, updateRenewal } from '@/lib/server/services/planner/renewals';
@@ -33,6 +33,7 @@ import { changeMemberRole } from '@/lib/server/services/team/change-member-role'
 import { removeMember } from '@/lib/server/services/team/remove-member';
 import { restoreMember } from '@/lib/server/services/team/restore-member';
 import { restoreZone } from '@/lib/server/services/register/restore-zone';
+import { restoreAnodeGroup } from '@/lib/server/services/register/restore-anode-group';
 import { revokeInvitation } from '@/lib/server/services/team/revoke-invitation';
 import { acceptInvitationAsNewUser, acceptInvitationAsUser } from '@/lib/server/services/team/accept-invitation';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
@@ -158,6 +159,7 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('engineer')((c) => updateAnodeGroup(c, groupId, { zoneId, label: 'Bottom', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 10, installedOn: new Date(Date.now() - 900 * 86_400_000).toISOString().slice(0, 10), meanCurrentA: 2.5 + Math.random() })));
     const spare = await runAs(member('engineer'), (c) => createAnodeGroup(c, vesselId, { label: 'Spare group', anodeModelKey: 'builtin:TW-ZW-3015', quantity: 2, installedOn: '2025-01-01', meanCurrentA: 0.5 }));
     await expectAllOrNothing(as('engineer')((c) => removeAnodeGroup(c, spare.id, { removedOn: '2026-01-01', reason: 'Lost' })));
+    await expectAllOrNothing(as('engineer')((c) => restoreAnodeGroup(c, spare.id)));
   });
 
   it('surveys: record, add a reading (with its alert mail), import a CSV, attach a photo', async () => {
@@ -170,7 +172,7 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('inspector')((c) => addSurveyAttachment(c, surveyId, { name: 'bottom.png', bytes: png }, 'Bottom anode')));
   });
 
-  it('survey corrections: edit and delete a reading (with its correction mail), edit and delete a survey, restore it, edit and delete an attachment', async () => {
+  it('survey corrections: edit and delete a reading (with its correction mail) and undo the delete, edit and delete a survey, restore it, edit and delete an attachment', async () => {
     const survey = await runAs(member('inspector'), (c) => createSurvey(c, { assetId: vesselId, surveyedOn: '2026-03-01', method: 'diver', defaultElectrode: 'ag-agcl-seawater' }));
     await runAs(member('inspector'), (c) => addReading(c, survey.id, { location: 'Fr 30 P', potentialV: '-0.62', electrode: 'ag-agcl-seawater' }));
     await runAs(member('inspector'), (c) => addReading(c, survey.id, { location: 'Fr 31 P', potentialV: '-0.64', electrode: 'ag-agcl-seawater' }));
@@ -178,11 +180,14 @@ describe('every write commits as one transaction or not at all', () => {
     // Fr 30 P was named by the under-protection message: its correction queues a mail in the same unit.
     await expectAllOrNothing(as('inspector')((c) => updateReading(c, survey.id, ids[0].id, { location: 'Fr 30 P', potentialV: String(-0.95 - Math.random() / 100), electrode: 'ag-agcl-seawater' })));
     await expectAllOrNothing(as('inspector')((c) => deleteReading(c, survey.id, ids[1].id)));
+    // Its undo: the row back from the delete's audit record, and (under-protected) the alert mail, in one unit.
+    await expectAllOrNothing(as('inspector')((c) => restoreReading(c, survey.id, ids[1].id)));
     await expectAllOrNothing(as('inspector')((c) => updateSurvey(c, survey.id, { surveyedOn: '2026-03-02', method: 'rov', surveyor: `ROV ${uniqueEmail('s')}`, defaultElectrode: 'cse' })));
     const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13]);
     const attachment = await runAs(member('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'fr30.png', bytes: png }, null));
     await expectAllOrNothing(as('inspector')((c) => updateSurveyAttachment(c, survey.id, attachment.id, { caption: `Fr 30 ${uniqueEmail('c')}` })));
     await expectAllOrNothing(as('inspector')((c) => deleteSurveyAttachment(c, survey.id, attachment.id)));
+    await expectAllOrNothing(as('inspector')((c) => restoreSurveyAttachment(c, survey.id, attachment.id)));
     await expectAllOrNothing(as('inspector')((c) => deleteSurvey(c, survey.id)));
     await expectAllOrNothing(as('engineer')((c) => restoreSurvey(c, survey.id)));
   });

@@ -4,6 +4,7 @@ import { orgAction, formId, formObject } from '@/lib/server/action';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { setAssetArchived, updateAsset } from '@/lib/server/services/assets/update-asset';
 import { archiveZone, createZone, updateZone } from '@/lib/server/services/register/zones';
+import { restoreAnodeGroup } from '@/lib/server/services/register/restore-anode-group';
 import { restoreZone } from '@/lib/server/services/register/restore-zone';
 import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 
@@ -68,5 +69,11 @@ export const updateAnodeGroupAction = orgAction('asset:write', async (ctx, formD
 export const removeAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
   const group = await removeAnodeGroup(ctx, formId(formData, 'groupId'), formObject(formData));
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/assets/${group.asset.id}`);
-  return { ok: true, message: `Group "${group.label}" closed as removed on ${group.removedOn}.` };
+  return { ok: true, message: `Group "${group.label}" closed as removed on ${group.removedOn}.`, data: { undoGroupId: group.id, label: group.label } };
+});
+
+/** Undo of "Close the group", a moment ago (restoreAnodeGroup). */
+export const restoreAnodeGroupAction = orgAction('asset:write', async (ctx, formData) => {
+  const { group, restored } = await restoreAnodeGroup(ctx, formId(formData, 'groupId'));
+  return { ok: true, message: restored ? `Group "${group.label}" is fitted again.` : `Group "${group.label}" is already fitted.` };
 });

@@ -7,7 +7,9 @@ import { NewSurveyForm } from '@/components/surveys/new-survey-form';
 import { listAssetChoices } from '@/lib/server/services/assets/list-asset-choices';
 import { listDeletedSurveys } from '@/lib/server/services/surveys/manage-surveys';
 import { DeletedSurveys } from '@/components/surveys/deleted-surveys';
-import { FormMessage } from '@/components/ui/field';
+import { SurveyDeletedNotice } from '@/components/surveys/survey-deleted-notice';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export const metadata: Metadata = { title: 'Surveys' };
 
@@ -22,7 +24,7 @@ export default async function SurveysPage({ params, searchParams }: { params: Pr
   return (
     <>
       <PageHeader title="Surveys" subtitle="Diver, drop-cell and ROV surveys: potentials against the protection criteria, and what remains of the anodes." />
-      {deleted === '1' ? <div className="mb-4"><FormMessage state={{ ok: true, message: 'Survey deleted. An engineer can restore it within 30 days.' }} /></div> : null}
+      {deleted && UUID.test(deleted) ? <SurveyDeletedNotice key={deleted} org={org} surveyId={deleted} /> : null}
       <div className={`grid grid-cols-1 items-start gap-4 ${canWrite ? 'xl:grid-cols-[minmax(0,1fr)_22rem]' : ''}`}>
         <Panel title="All surveys">
           <SurveysTable org={org} />

@@ -65,6 +65,8 @@ export async function setAnodeModelArchived(ctx: OrgContext, modelId: string, ar
   requirePermission(ctx, 'catalogue:write');
   const model = isUuid(modelId) ? await ctx.em.findOne(AnodeModelSchema, { id: modelId, organisation: ctx.organisation }) : null;
   if (!model) throw notFound('Anode model');
+  // A repeat (a double click, the Undo sent twice) changes nothing and is not audited again.
+  if (Boolean(model.archivedAt) === archived) return model;
   model.archivedAt = archived ? new Date() : null;
   audit(ctx, { action: archived ? 'catalogue.model-archived' : 'catalogue.model-restored', targetType: 'anode-model', targetId: model.id, details: { designation: model.designation } });
   return model;

@@ -74,8 +74,46 @@ export async function updateSurveyAttachment(ctx: OrgContext, surveyId: string, 
 export async function deleteSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string) {
   const { survey, attachment } = await attachmentForWrite(ctx, surveyId, attachmentId);
   const before = { file: attachment.filename, caption: attachment.caption ?? null, bytes: attachment.sizeBytes, uploadedBy: attachment.uploadedByEmail ?? null };
+  // The whole row, file included, waits ATTACHMENT_UNDO_MINUTES in the bin for an undo; older ones go now.
+  await ctx.em.execute(`delete from survey_attachment_bin where deleted_at <= now() - ? * interval '1 minute'`, [ATTACHMENT_UNDO_MINUTES]);
+  await ctx.em.execute(
+    `insert into survey_attachment_bin (id, organisation_id, survey_id, deleted_at, payload)
+     select a.id, a.organisation_id, a.survey_id, now(), to_jsonb(a) from survey_attachment a where a.id = ?
+     on conflict (id) do update set deleted_at = excluded.deleted_at, payload = excluded.payload`,
+    [attachment.id],
+  );
   ctx.em.remove(attachment);
   audit(ctx, { action: 'survey.attachment-deleted', targetType: 'survey', targetId: survey.id, details: { attachmentId, before, after: null } });
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
   return before;
+}
+
+/** How long a deleted attachment can be put back (the screen offers it for a few seconds; a slow click still works). */
+export const ATTACHMENT_UNDO_MINUTES = 10;
+
+/**
+ * Undo of "Delete" beside an attachment: the same file (same id, bytes, caption, uploader) comes back from
+ * the bin. A repeat finds it back and changes nothing; after ATTACHMENT_UNDO_MINUTES it is gone for good.
+ */
+export async function restoreSurveyAttachment(ctx: OrgContext, surveyId: string, attachmentId: string) {
+  requirePermission(ctx, 'survey:write');
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  uuidOrNotFound(attachmentId, 'Deleted attachment');
+  const live = await ctx.em.findOne(SurveyAttachmentSchema, { id: attachmentId, survey, organisation: ctx.organisation });
+  if (live) return { file: live.filename, restored: false };
+  const [bin] = await ctx.em.execute<{ recent: boolean; filename: string }[]>(
+    `select deleted_at > now() - ? * interval '1 minute' as recent, payload->>'filename' as filename
+       from survey_attachment_bin where id = ? and survey_id = ? and organisation_id = ? for update`,
+    [ATTACHMENT_UNDO_MINUTES, attachmentId, survey.id, ctx.organisation.id],
+  );
+  if (!bin) throw notFound('Deleted attachment');
+  if (!bin.recent) throw new AppError('conflict', `${bin.filename} was deleted more than ${ATTACHMENT_UNDO_MINUTES} minutes ago and can no longer be put back; upload it again instead.`);
+  await ctx.em.execute(
+    `insert into survey_attachment select (jsonb_populate_record(null::survey_attachment, b.payload)).* from survey_attachment_bin b where b.id = ?`,
+    [attachmentId],
+  );
+  await ctx.em.execute('delete from survey_attachment_bin where id = ?', [attachmentId]);
+  audit(ctx, { action: 'survey.attachment-restored', targetType: 'survey', targetId: survey.id, details: { attachmentId, before: null, after: { file: bin.filename } } });
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  return { file: bin.filename, restored: true };
 }

@@ -1,5 +1,5 @@
-import { SurveyReadingSchema, type Survey, type SurveyReading } from '@/entities';
-import { notFound } from '../../errors';
+import { AuditEventSchema, SurveyReadingSchema, type Survey, type SurveyReading } from '@/entities';
+import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
 import { uuidOrNotFound } from '../../ids';
 import { requirePermission, type OrgContext } from '../../org-context';
@@ -79,10 +79,60 @@ export async function deleteReading(ctx: OrgContext, surveyId: string, readingId
   const before = readingRecord(reading);
   const words = describeReading(survey, reading);
   const alerted = Boolean(reading.alertedAt);
+  // The whole row as the database has it (every column, by name), so an undo puts back exactly this reading.
+  const [{ row }] = await ctx.em.execute<{ row: Record<string, unknown> }[]>('select to_jsonb(r) as row from survey_reading r where r.id = ?', [reading.id]);
   ctx.em.remove(reading);
   if (alerted) await mailCorrections(ctx, survey, [{ location: before.location, before: words, after: null }]);
-  audit(ctx, { action: 'survey.reading-deleted', targetType: 'survey', targetId: survey.id, details: { readingId, before, after: null, correctionMailed: alerted } });
+  audit(ctx, { action: 'survey.reading-deleted', targetType: 'survey', targetId: survey.id, details: { readingId, before, after: null, correctionMailed: alerted, row } });
   ctx.effects.assetChanged(survey.asset.id);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
-  return { location: before.location, correctionMailed: alerted };
+  return { location: before.location, correctionMailed: alerted, readingId: reading.id };
+}
+
+/** How long after a delete a reading can be put back (the screen offers it for a few seconds; a slow click still works). */
+export const READING_RESTORE_MINUTES = 10;
+
+/**
+ * Undo of "Delete" beside a reading: the same reading (same id, line, values, electrode and group) comes
+ * back from the row the delete's audit record kept, column for column, so nothing typed is lost. A repeat
+ * finds it back and changes nothing. If the group it named has since gone, it comes back without a group.
+ *
+ * Mail follows the house rules in reading-alerts.ts: if the delete closed an alert with a correction, that
+ * alert stays closed (the reading comes back unflagged), and a restored reading that is under-protected is
+ * told as a newly recorded one is (mailed if no alert is open on the survey, else it joins the open one).
+ */
+export async function restoreReading(ctx: OrgContext, surveyId: string, readingId: string) {
+  requirePermission(ctx, 'survey:write');
+  const survey = await getSurveyOrThrow(ctx, surveyId);
+  await lockSurvey(ctx, survey);
+  uuidOrNotFound(readingId, 'Deleted reading');
+  const existing = await ctx.em.findOne(SurveyReadingSchema, { id: readingId, survey }, { populate: ['anodeGroup'] });
+  if (existing) return { reading: existing, survey, restored: false, correctionWasMailed: false, isUnder: potentialStatusOf(survey, existing) === 'under-protected', alertMailed: false, groupLost: false };
+  const deletions = await ctx.em.find(
+    AuditEventSchema,
+    { organisationId: ctx.organisation.id, action: 'survey.reading-deleted', targetType: 'survey', targetId: survey.id },
+    { orderBy: { createdAt: 'desc' }, limit: 500 },
+  );
+  const deletion = deletions.find((d) => d.details?.readingId === readingId);
+  if (!deletion) throw notFound('Deleted reading');
+  const row = deletion.details?.row;
+  if (!row || typeof row !== 'object' || (row as Record<string, unknown>).survey_id !== survey.id) {
+    throw new AppError('conflict', 'This delete was recorded before it could be undone; add the reading again instead.');
+  }
+  if (Date.now() - deletion.createdAt.getTime() > READING_RESTORE_MINUTES * 60_000) {
+    throw new AppError('conflict', `The reading was deleted more than ${READING_RESTORE_MINUTES} minutes ago and can no longer be put back; add it again instead.`);
+  }
+  const groupId = (row as Record<string, unknown>).anode_group_id;
+  const [{ present }] = await ctx.em.execute<{ present: boolean }[]>('select exists (select 1 from anode_group g where g.id::text = ?) as present', [typeof groupId === 'string' ? groupId : '']);
+  const groupLost = typeof groupId === 'string' && !present;
+  const restoredRow = { ...(row as Record<string, unknown>), alerted_at: null, ...(groupLost ? { anode_group_id: null } : {}) };
+  await ctx.em.execute('insert into survey_reading select (jsonb_populate_record(null::survey_reading, ?::jsonb)).*', [JSON.stringify(restoredRow)]);
+  const reading = await ctx.em.findOneOrFail(SurveyReadingSchema, { id: readingId, survey }, { populate: ['anodeGroup'] });
+  const isUnder = potentialStatusOf(survey, reading) === 'under-protected';
+  const alertMailed = isUnder ? (await alertUnderProtection(ctx, survey, [reading])).mailed : false;
+  const correctionWasMailed = deletion.details?.correctionMailed === true;
+  audit(ctx, { action: 'survey.reading-restored', targetType: 'survey', targetId: survey.id, details: { readingId, after: readingRecord(reading), correctionWasMailed, alertMailed, groupLost } });
+  ctx.effects.assetChanged(survey.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  return { reading, survey, restored: true, correctionWasMailed, isUnder, alertMailed, groupLost };
 }

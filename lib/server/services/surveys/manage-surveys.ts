@@ -1,5 +1,5 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { SurveyReadingSchema } from '@/entities';
+import { SurveyReadingSchema, SurveySchema } from '@/entities';
 import { surveyEditSchema } from '@/lib/schemas/surveys';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
@@ -130,6 +130,33 @@ export async function restoreSurvey(ctx: OrgContext, surveyId: string) {
   );
   if (!bin) throw notFound('Deleted survey');
   if (!bin.fresh) throw new AppError('invalid', `The survey was deleted more than ${SURVEY_RESTORE_DAYS} days ago and can no longer be restored.`);
+  return putBack(ctx, surveyId, bin, false);
+}
+
+/** How long after a delete whoever may delete a survey may also undo it (the screen offers it for a few seconds). */
+export const SURVEY_UNDO_MINUTES = 10;
+
+/**
+ * Undo of "Delete the survey", a moment ago, by anyone who may delete one (an inspector too; restoring from
+ * the bin later stays an engineer's). A repeat finds the survey back and changes nothing.
+ */
+export async function undoDeleteSurvey(ctx: OrgContext, surveyId: string) {
+  requirePermission(ctx, 'survey:write');
+  uuidOrNotFound(surveyId, 'Deleted survey');
+  const [bin] = await ctx.em.execute<{ id: string; asset_id: string; readings: number; recent: boolean }[]>(
+    `select id, asset_id, readings, deleted_at > now() - ? * interval '1 minute' as recent from survey_bin where id = ? and organisation_id = ? for update`,
+    [SURVEY_UNDO_MINUTES, surveyId, ctx.organisation.id],
+  );
+  if (!bin) {
+    const live = await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation });
+    if (live) return { survey: await getSurveyOrThrow(ctx, surveyId), restored: false };
+    throw notFound('Deleted survey');
+  }
+  if (!bin.recent) throw new AppError('conflict', `The survey was deleted more than ${SURVEY_UNDO_MINUTES} minutes ago; an engineer can restore it from the deleted surveys within ${SURVEY_RESTORE_DAYS} days.`);
+  return { survey: await putBack(ctx, surveyId, bin, true), restored: true };
+}
+
+async function putBack(ctx: OrgContext, surveyId: string, bin: { asset_id: string; readings: number }, undo: boolean) {
   await ctx.em.execute(
     `insert into survey
      select (jsonb_populate_record(null::survey,
@@ -153,7 +180,7 @@ export async function restoreSurvey(ctx: OrgContext, surveyId: string) {
   );
   await ctx.em.execute('delete from survey_bin where id = ?', [surveyId]);
   const survey = await getSurveyOrThrow(ctx, surveyId);
-  audit(ctx, { action: 'survey.restored', targetType: 'survey', targetId: surveyId, details: { before: null, after: { asset: survey.asset.name, ...surveyRecord(survey), readings: Number(bin.readings) } } });
+  audit(ctx, { action: 'survey.restored', targetType: 'survey', targetId: surveyId, details: { before: null, after: { asset: survey.asset.name, ...surveyRecord(survey), readings: Number(bin.readings) }, ...(undo ? { undo: true } : {}) } });
   ctx.effects.assetChanged(bin.asset_id);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys`);
   return survey;
