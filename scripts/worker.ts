@@ -13,6 +13,7 @@ import { forgetStaleWorkers, newWorkerIdentity, recordHeartbeat } from '../lib/s
 import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconcile-subscription';
 import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
+import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
@@ -53,6 +54,8 @@ async function main() {
     if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
     const purged = await purgeDeletedSurveys(orm.em.fork());
     if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
+    const files = await purgeAttachmentBin(orm.em.fork());
+    if (files) console.log(`[worker] deleted attachments past their undo window removed: ${files}`);
   });
 
   let stopping = false;

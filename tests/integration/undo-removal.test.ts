@@ -18,7 +18,7 @@ import { SurveySchema, SurveyAttachmentSchema, AnodeGroupSchema, AnodeGroupChang
 import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { restoreAnodeGroup, GROUP_RESTORE_MINUTES } from '@/lib/server/services/register/restore-anode-group';
 import { createAnodeModel, setAnodeModelArchived } from '@/lib/server/services/catalogue/manage-anode-models';
-import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
+import { addSurveyAttachment, deleteSurveyAttachment, purgeAttachmentBin, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
 // Undo of "Remove member" (the same membership back, from the removal's own audit row), of "Archive zone" and of "Delete" beside a reading.
@@ -324,6 +324,14 @@ describe('restoreSurveyAttachment', () => {
     await (await getEm()).execute(`update survey_attachment_bin set deleted_at = now() - interval '${ATTACHMENT_UNDO_MINUTES + 1} minutes' where id = ?`, [id]);
     await expect(as('inspector', (c) => restoreSurveyAttachment(c, surveyId, id))).rejects.toMatchObject({ code: 'conflict' });
     expect(await stored(id)).toBeNull();
+  });
+  it('the housekeeping sweep removes a file from the bin only once its undo window has passed', async () => {
+    const id = await deletedAttachment();
+    const inBin = async () => (await (await getEm()).execute<{ n: string }[]>('select count(*) as n from survey_attachment_bin where id = ?', [id]))[0].n;
+    await purgeAttachmentBin(await getEm());
+    expect(Number(await inBin())).toBe(1);
+    await purgeAttachmentBin(await getEm(), new Date(Date.now() + (ATTACHMENT_UNDO_MINUTES + 1) * 60_000));
+    expect(Number(await inBin())).toBe(0);
   });
 });
 

@@ -1,3 +1,4 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import { SurveyAttachmentSchema } from '@/entities';
 import { AppError, notFound } from '../../errors';
 import { audit } from '../../audit';
@@ -90,6 +91,12 @@ export async function deleteSurveyAttachment(ctx: OrgContext, surveyId: string, 
 
 /** How long a deleted attachment can be put back (the screen offers it for a few seconds; a slow click still works). */
 export const ATTACHMENT_UNDO_MINUTES = 10;
+
+/** The housekeeping job's sweep: files deleted more than ATTACHMENT_UNDO_MINUTES ago leave the bin for good. */
+export async function purgeAttachmentBin(em: EntityManager, now = new Date()) {
+  const rows = await em.execute<{ id: string }[]>(`delete from survey_attachment_bin where deleted_at <= ?::timestamptz - ? * interval '1 minute' returning id`, [now.toISOString(), ATTACHMENT_UNDO_MINUTES]);
+  return rows.length;
+}
 
 /**
  * Undo of "Delete" beside an attachment: the same file (same id, bytes, caption, uploader) comes back from
