@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { atOnceSettled } from '../fixtures/at-once';
 import { subMinutes } from 'date-fns';
 import { AuditEventSchema, MembershipSchema, OrganisationSchema, type Organisation, type User } from '@/entities';
 import { getEm, getOrm } from '@/lib/server/db';
@@ -174,6 +175,16 @@ describe('restoreReading', () => {
     const rows = await auditRows('survey.reading-restored', survey.id);
     expect(rows).toHaveLength(1);
     expect(rows[0]).toMatchObject({ organisationId: organisation.id, actorUserId: users.inspector.id, details: { readingId, after: { location: 'Pile 7 splash', comment: 'marine growth scraped' } } });
+  });
+
+  it('two undos of one deletion sent at the same moment (a double click) put the reading back once, with one audit row', async () => {
+    const { survey, readingId, before } = await deletedReading();
+    const outcomes = await atOnceSettled(2, () => as('inspector', (c) => restoreReading(c, survey.id, readingId)));
+    // Each either restores or finds it restored; at most one says it did the work, and neither fails.
+    expect(outcomes.map((o) => o.status)).toEqual(['fulfilled', 'fulfilled']);
+    expect(outcomes.filter((o) => o.status === 'fulfilled' && o.value.restored)).toHaveLength(1);
+    expect((await readingsOf(survey.id)).map(comparable)).toEqual([before]);
+    expect(await auditRows('survey.reading-restored', survey.id)).toHaveLength(1);
   });
 
   for (const role of ['planner', 'viewer'] as const) {
