@@ -91,7 +91,7 @@ export function RenewalsTable({ org, dockingId, initial, canEdit, dockings }: { 
         header: 'Reason',
         // The scheduler's sentence (with the renew-by date and the margin) in words on the page, not in a tooltip.
         cell: (c) => (
-          <span className="flex max-w-md flex-col">
+          <span className="flex min-w-[16rem] max-w-md flex-col">
             <span>{RENEWAL_REASON_LABELS[c.getValue()] ?? 'Other'}</span>
             {c.row.original.rationale ? <span className="text-2xs text-ink-soft">{c.row.original.rationale}</span> : null}
           </span>
