@@ -7,8 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createAnodeGroupAction, removeAnodeGroupAction, restoreAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
-import { announce } from '@/components/ui/toast';
-import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import { announce, undoBy } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { todayDateOnly } from '@/lib/dates/date-only';
 
@@ -86,15 +85,10 @@ export function RemoveGroupForm({ org, groups }: { org: string; groups: { id: st
       message: answer.message ?? `Group "${label}" closed.`,
       undo: {
         label: `Undo: fit the group ${label} again`,
-        run: async () => {
-          const restore = new FormData();
-          restore.set('groupId', groupId);
-          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const restored = await restoreAnodeGroupAction(org, { ok: false }, restore);
-          announce({ ok: restored.ok, message: restored.message ?? '' });
+        run: undoBy(restoreAnodeGroupAction.bind(null, org), { groupId }, async () => {
           for (const queryKey of [queryKeys.anodeGroups(org), queryKeys.assets(org)]) await client.invalidateQueries({ queryKey });
           router.refresh();
-        },
+        }),
       },
     });
     return answer;

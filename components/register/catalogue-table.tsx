@@ -11,8 +11,7 @@ import { ALLOY_LABELS, MOUNTING_LABELS } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import type { CatalogueModel } from '@/lib/server/services/catalogue/anode-models';
 import { archiveAnodeModelAction } from '@/app/o/[org]/catalogue/actions';
-import { announce } from '@/components/ui/toast';
-import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import { announce, undoBy } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 
 function dimensions(m: CatalogueModel) {
@@ -34,15 +33,7 @@ function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
       message: answer.message ?? `${model.designation} archived.`,
       undo: {
         label: `Undo: restore ${model.designation}`,
-        run: async () => {
-          const restore = new FormData();
-          restore.set('modelId', model.id);
-          restore.set('archive', '0');
-          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const restored = await archiveAnodeModelAction(org, { ok: false }, restore);
-          announce({ ok: restored.ok, message: restored.message ?? '' });
-          await client.invalidateQueries({ queryKey: queryKeys.catalogue(org) });
-        },
+        run: undoBy(archiveAnodeModelAction.bind(null, org), { modelId: model.id, archive: '0' }, () => client.invalidateQueries({ queryKey: queryKeys.catalogue(org) })),
       },
     });
     return answer;

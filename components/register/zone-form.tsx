@@ -2,7 +2,7 @@
 import { useState } from 'react';
 import type { ActionState } from '@/lib/server/action';
 import { useRouter } from 'next/navigation';
-import { announce } from '@/components/ui/toast';
+import { announce, undoBy } from '@/components/ui/toast';
 import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
@@ -75,14 +75,7 @@ export function ArchiveZoneButton({ org, assetId, zoneId, name }: { org: string;
       message: answer.message ?? `Zone "${name}" archived.`,
       undo: {
         label: `Undo: restore the zone ${name}`,
-        run: async () => {
-          const restore = new FormData();
-          restore.set('zoneId', undoZoneId);
-          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const restored = await restoreZoneAction(org, { ok: false }, restore);
-          announce({ ok: restored.ok, message: restored.message ?? '' });
-          router.refresh();
-        },
+        run: undoBy(restoreZoneAction.bind(null, org), { zoneId: undoZoneId }, () => router.refresh()),
       },
     });
     router.refresh();

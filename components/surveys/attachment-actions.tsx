@@ -5,8 +5,7 @@ import { Field } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { useRouter } from 'next/navigation';
 import { deleteAttachmentAction, restoreAttachmentAction, updateAttachmentAction } from '@/app/o/[org]/surveys/actions';
-import { announce, UNDO_SECONDS } from '@/components/ui/toast';
-import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import { announce, undoBy, UNDO_SECONDS } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { ConfirmDelete } from './confirm-delete';
 
@@ -24,15 +23,7 @@ export function AttachmentActions({ org, surveyId, attachment }: { org: string; 
       message: answer.message ?? `${attachment.filename} deleted.`,
       undo: {
         label: `Undo: put back ${attachment.filename}`,
-        run: async () => {
-          const restore = new FormData();
-          restore.set('surveyId', surveyId);
-          restore.set('attachmentId', attachment.id);
-          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const restored = await restoreAttachmentAction(org, { ok: false }, restore);
-          announce({ ok: restored.ok, message: restored.message ?? '' });
-          router.refresh();
-        },
+        run: undoBy(restoreAttachmentAction.bind(null, org), { surveyId, attachmentId: attachment.id }, () => router.refresh()),
       },
     });
     return answer;

@@ -11,8 +11,7 @@ import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { ELECTRODE_SHORT_LABELS, REMAINING_STATUS_LABELS, versusElectrode } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { deleteReadingAction, restoreReadingAction, updateReadingAction } from '@/app/o/[org]/surveys/actions';
-import { announce, UNDO_SECONDS } from '@/components/ui/toast';
-import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import { announce, undoBy, UNDO_SECONDS } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import type { getSurveyDetails } from '@/lib/server/services/surveys/survey-details';
 import { ReadingFields } from './reading-form';
@@ -42,15 +41,7 @@ function deleteWithUndo(editing: Editing, refresh: () => void) {
       message: answer.message ?? `Reading at ${location} deleted.`,
       undo: {
         label: `Undo: put back the reading at ${location}`,
-        run: async () => {
-          const restore = new FormData();
-          restore.set('surveyId', editing.surveyId);
-          restore.set('readingId', readingId);
-          restore.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const restored = await restoreReadingAction(editing.org, { ok: false }, restore);
-          announce({ ok: restored.ok, message: restored.message ?? '' });
-          refresh();
-        },
+        run: undoBy(restoreReadingAction.bind(null, editing.org), { surveyId: editing.surveyId, readingId }, () => refresh()),
       },
     });
     return answer;

@@ -2,9 +2,8 @@
 import { useEffect } from 'react';
 import { useRouter } from 'next/navigation';
 import { useQueryClient } from '@tanstack/react-query';
-import { announce, NoticeBar, useNotice } from '@/components/ui/toast';
+import { NoticeBar, undoBy, useNotice } from '@/components/ui/toast';
 import { undoDeleteSurveyAction } from '@/app/o/[org]/surveys/actions';
-import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { queryKeys } from '@/lib/client/query-client';
 
 /**
@@ -21,21 +20,13 @@ export function SurveyDeletedNotice({ org, surveyId }: { org: string; surveyId: 
       message: 'Survey deleted. An engineer can restore it within 30 days.',
       undo: {
         label: 'Undo: put the survey back',
-        run: async () => {
-          const form = new FormData();
-          form.set('surveyId', surveyId);
-          form.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
-          const answer = await undoDeleteSurveyAction(org, { ok: false }, form);
-          if (!answer.ok) {
-            show({ ok: false, message: answer.message ?? '' });
-            return;
-          }
-          // Said in the page-wide notice, which stays on this page while the address stops naming a deleted
-          // survey (a reload must not say it was deleted) and this notice goes with it.
-          announce({ ok: true, message: answer.message ?? '' });
+        // The answer is said in the page-wide notice, which stays on this page while the address stops naming a
+        // deleted survey (a reload must not say it was deleted) and this notice goes with it.
+        run: undoBy(undoDeleteSurveyAction.bind(null, org), { surveyId }, async (answer) => {
+          if (!answer.ok) return;
           await client.invalidateQueries({ queryKey: queryKeys.surveys(org) });
           router.replace(`/o/${org}/surveys`);
-        },
+        }),
       },
     });
     // Once per deleted survey.

@@ -2,6 +2,8 @@
 import { useEffect, useState, useSyncExternalStore } from 'react';
 import { usePathname } from 'next/navigation';
 import { Button } from './button';
+import type { ActionState } from '@/lib/server/action';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 
 /** How long a removal can be undone from the screen. */
 export const UNDO_SECONDS = 10;
@@ -126,4 +128,23 @@ export function NoticeHost() {
       </div>
     </div>
   );
+}
+
+type UndoableAction = (prev: ActionState, formData: FormData) => Promise<ActionState>;
+
+/**
+ * The Undo button's work for a removal: sends `action` (the restore) with `fields` and says its answer in the
+ * page's notice, then runs `after` (refresh what it changed). The idempotency key is made once, when the notice
+ * is given, so a double click or a retried request restores once and replays the first answer.
+ */
+export function undoBy(action: UndoableAction, fields: Record<string, string>, after?: (answer: ActionState) => void | Promise<void>) {
+  const key = newIdempotencyKey();
+  return async () => {
+    const form = new FormData();
+    for (const [name, value] of Object.entries(fields)) form.set(name, value);
+    form.set(IDEMPOTENCY_FIELD, key);
+    const answer = await action({ ok: false }, form);
+    announce({ ok: answer.ok, message: answer.message ?? '' });
+    await after?.(answer);
+  };
 }
