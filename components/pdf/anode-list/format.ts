@@ -1,5 +1,5 @@
 /*
- * How the anode list writes masses and counts (days: formatDateOnly from lib/dates/date-only; words: lib/anode-list/words). Shared by the page plan, which measures
+ * How the anode list writes masses and counts (days: formatDateOnly from lib/dates/date-only; words: lib/labels/anode-list). Shared by the page plan, which measures
  * these texts, and the rendering, which prints them: both must see the same strings.
  */
 

@@ -1,5 +1,5 @@
 import type { AnodeList, AnodeListLine, AnodeListOrderLine, AnodeListTotals } from '@/lib/anode-list/build-anode-list';
-import { alloyWords, ANODE_LIST_LINE_COLUMNS, DIMENSIONS_KEY, dimensionsWords, dockingKindWords, mountingWords, statusWords, zoneWords } from '@/lib/anode-list/words';
+import { alloyWords, ANODE_LIST_LINE_COLUMNS, DIMENSIONS_KEY, dimensionsWords, dockingKindWords, mountingWords, statusWords, zoneWords } from '@/lib/labels/anode-list';
 import { CAUTION_TEXT, PagePlanner, rowParts as cutRow, sheetArea, textParts, type DrawnColumn, type SheetColumn, type SheetPlan } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { count, kgNumber, kgText } from './format';

@@ -4,7 +4,7 @@ import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
 import { CAUTION_TEXT, DrawnRows, PlannedSheet, SheetRow, pdf, type DrawnRow } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { DIMENSIONS_KEY } from '@/lib/anode-list/words';
+import { DIMENSIONS_KEY } from '@/lib/labels/anode-list';
 import {
   assetRows,
   assetTitle,
