@@ -16,7 +16,7 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
 import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
-import { deleteSurvey, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { deleteSurvey, restoreSurvey, undoDeleteSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal, cancelRenewal, confirmRenewal, markRenewalFitted, markRenewalOrdered, updateRenewal } from '@/lib/server/services/planner/renewals';
 import { anodeListPdf } from '@/lib/server/services/planner/anode-list';
@@ -190,6 +190,9 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('inspector')((c) => restoreSurveyAttachment(c, survey.id, attachment.id)));
     await expectAllOrNothing(as('inspector')((c) => deleteSurvey(c, survey.id)));
     await expectAllOrNothing(as('engineer')((c) => restoreSurvey(c, survey.id)));
+    // The inspector's Undo right after a delete (survey:write, within minutes) is one unit of work too.
+    await runAs(member('inspector'), (c) => deleteSurvey(c, survey.id));
+    await expectAllOrNothing(as('inspector')((c) => undoDeleteSurvey(c, survey.id)));
   });
 
   it('dockings and renewals: plan, move, book, confirm, order, fit, cancel', async () => {
