@@ -13,7 +13,7 @@
  * - anode-list     the anode list's words (PDF and CSV)
  * - roles          the roles and what each may do
  * - billing        subscription and invoice statuses
- * - units          unit symbols
+ * - units          a potential against its electrode ("V vs Ag/AgCl")
  * - text           inSentence: a label inside a sentence
  * - caution, mail-delivery, renewal-rule: sentences several screens share
  */

@@ -1,22 +1,4 @@
-/**
- * Unit symbols, the same on screens, in PDFs, CSV headers and e-mails (safe for client code):
- * the degree sign, superscripts and the middle dot, never "C", "m2" or "ohm m".
- */
-export const UNITS = {
-  celsius: '°C',
-  metre: 'm',
-  millimetre: 'mm',
-  squareMetre: 'm²',
-  kilogram: 'kg',
-  ampere: 'A',
-  ohm: 'Ω',
-  ohmMetre: 'Ω·m',
-  currentDensity: 'mA/m²',
-  capacity: 'A·h/kg',
-  volt: 'V',
-  year: 'years',
-  knot: 'kn',
-} as const;
-
+// Units are written with their symbols where they are used (°C, m², Ω·m, mA/m², A·h/kg), never "C", "m2" or
+// "ohm m"; a potential says which electrode it is against:
 /** "−0.95 V vs Ag/AgCl": a potential against its reference electrode (short name). */
 export const versusElectrode = (electrodeShort: string): string => `V vs ${electrodeShort}`;
