@@ -25,11 +25,6 @@ const config: Config = {
           progressbg: '#e1ecf5',
           over: '#6a3f8f',
           overbg: '#efe6f6',
-          // Older names of the same two colours, used by messages and errors: overdue = action, due = soon.
-          overdue: '#a8322e',
-          overduebg: '#f8e2e0',
-          due: '#85590c',
-          duebg: '#faefd6',
         },
       },
       fontFamily: {

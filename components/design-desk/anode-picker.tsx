@@ -36,7 +36,7 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue, store
           value={inputs.anodeModelKey}
           disabled={!editable}
           onChange={(e) => update((s) => ({ ...s, anodeModelKey: e.target.value }))}
-          className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm text-ink ${errors.anodeModelKey ? 'border-state-overdue' : 'border-rule-strong'}`}
+          className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm text-ink ${errors.anodeModelKey ? 'border-state-action' : 'border-rule-strong'}`}
         >
           {stored && !listed ? <option value={inputs.anodeModelKey}>{stored.model ? `${stored.model.designation} (as stored with this revision)` : inputs.anodeModelKey}</option> : null}
           {!stored && !listed ? <option value={inputs.anodeModelKey}>Not in the catalogue: choose one</option> : null}
@@ -51,7 +51,7 @@ export function AnodePicker({ inputs, update, errors, editable, catalogue, store
           ))}
         </select>
       </label>
-      {errors.anodeModelKey ? <p role="alert" className="text-xs text-state-overdue">{errors.anodeModelKey[0]}</p> : null}
+      {errors.anodeModelKey ? <p role="alert" className="text-xs text-state-action">{errors.anodeModelKey[0]}</p> : null}
       {stored && !stored.model ? <p className="text-xs text-ink-soft">The model&apos;s details were not recorded with this revision.</p> : null}
       {model && alloy ? (
         <dl className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm md:grid-cols-4">

@@ -125,14 +125,14 @@ export function DesignDesk({ org, designId, initialTitle, initialInputs, initial
           <span role="status" className="text-xs text-ink-faint">
             {computing ? 'Recomputing…' : dirty ? 'Unsaved changes' : 'All changes saved'}
           </span>
-          {saveState ? <span role={saveState.ok ? 'status' : 'alert'} className={`text-xs ${saveState.ok ? 'text-state-sound' : 'text-state-overdue'}`}>{saveState.message}</span> : null}
+          {saveState ? <span role={saveState.ok ? 'status' : 'alert'} className={`text-xs ${saveState.ok ? 'text-state-sound' : 'text-state-action'}`}>{saveState.message}</span> : null}
           <Button onClick={save} disabled={saving || !dirty}>
             {saving ? 'Saving…' : 'Save draft'}
           </Button>
         </div>
       ) : null}
       {computeMessage ? (
-        <p role="alert" className="rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
+        <p role="alert" className="rounded-[3px] border border-state-action/40 bg-state-actionbg px-3 py-2 text-sm text-state-action">
           {computeMessage} Results below are from the last valid inputs.
         </p>
       ) : null}

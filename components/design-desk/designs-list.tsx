@@ -32,6 +32,6 @@ export function DesignsList({ org, initial }: { org: string; initial: DesignList
       col.accessor('updatedAt', { header: 'Updated', cell: (c) => format(new Date(c.getValue()), 'd MMM yyyy') }),
     ];
   }, [org]);
-  if (designs.isError) return <p role="alert" className="text-sm text-state-overdue">{designs.error.message}</p>;
+  if (designs.isError) return <p role="alert" className="text-sm text-state-action">{designs.error.message}</p>;
   return <DataTable label="Designs" data={designs.data ?? []} columns={columns} empty="No designs yet." filterPlaceholder="Filter by asset, title, person…" />;
 }

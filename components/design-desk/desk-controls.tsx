@@ -30,12 +30,12 @@ export function NumberInput({ label, value, onChange, unit, errors, hint, disabl
           disabled={disabled}
           onChange={(e) => onChange(e.target.value)}
           aria-invalid={errors?.length ? true : undefined}
-          className={`num w-full min-w-0 rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm disabled:bg-paper-sunk ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'}`}
+          className={`num w-full min-w-0 rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm disabled:bg-paper-sunk ${errors?.length ? 'border-state-action' : 'border-rule-strong'}`}
         />
         {unit ? <span className="shrink-0 text-2xs text-ink-faint">{unit}</span> : null}
       </div>
       {errors?.length ? (
-        <p role="alert" className="text-2xs text-state-overdue">
+        <p role="alert" className="text-2xs text-state-action">
           {errors[0]}
         </p>
       ) : hint ? (
@@ -66,7 +66,7 @@ export function SelectInput({ label, value, onChange, options, errors, disabled 
         value={value ?? ''}
         disabled={disabled}
         onChange={(e) => onChange(e.target.value)}
-        className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm disabled:bg-paper-sunk ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'}`}
+        className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm disabled:bg-paper-sunk ${errors?.length ? 'border-state-action' : 'border-rule-strong'}`}
       >
         {options.map((o) => (
           <option key={o.value} value={o.value}>
@@ -75,7 +75,7 @@ export function SelectInput({ label, value, onChange, options, errors, disabled 
         ))}
       </select>
       {errors?.length ? (
-        <p role="alert" className="text-2xs text-state-overdue">
+        <p role="alert" className="text-2xs text-state-action">
           {errors[0]}
         </p>
       ) : null}

@@ -55,7 +55,7 @@ export function FitDesignForm({ org, designId, assetName, dockings, can }: Props
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="confirmSecondFit" defaultChecked={form.values.confirmSecondFit === 'on'} /> Fit it again (only if this revision is already fitted and a second set is really going on)
       </label>
-      {form.errors('confirmSecondFit') ? <p className="text-xs text-state-overdue">{form.errors('confirmSecondFit')!.join(' ')}</p> : null}
+      {form.errors('confirmSecondFit') ? <p className="text-xs text-state-action">{form.errors('confirmSecondFit')!.join(' ')}</p> : null}
       <div>
         <Button type="submit" disabled={form.pending || (mode === 'renewal' && !dockings.length)}>
           Fit this design

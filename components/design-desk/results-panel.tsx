@@ -14,7 +14,7 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
   return (
     <Panel title={<span>Results {stale ? <span className="text-xs font-normal text-ink-faint">(updating…)</span> : null}</span>}>
       {error ? (
-        <p role="alert" className="mb-3 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
+        <p role="alert" className="mb-3 rounded-[3px] border border-state-action/40 bg-state-actionbg px-3 py-2 text-sm text-state-action">
           These inputs cannot be sized: {error.message} <span className="text-xs">(field: {error.field})</span>
         </p>
       ) : null}
@@ -186,11 +186,11 @@ export function ResultsPanel({ computed, stale }: { computed: DeskComputed | nul
 
       {result?.warnings.length || notices.some((n) => !INFORMATION_NOTICE_CODES.has(n.code)) ? (
         <section aria-label="Warnings" className="mt-4">
-          <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-state-due">Warnings</h3>
+          <h3 className="mb-1 text-xs font-semibold uppercase tracking-wide text-state-soon">Warnings</h3>
           <ul className="flex flex-col gap-1">
             {[...(result?.warnings ?? []), ...notices.filter((n) => !INFORMATION_NOTICE_CODES.has(n.code))].map((w, i) => (
-              <li key={i} className="rounded-[3px] border border-state-due/40 bg-state-duebg px-2 py-1 text-sm text-ink" data-warning={w.code}>
-                <span className="font-semibold text-state-due">Warning: </span>
+              <li key={i} className="rounded-[3px] border border-state-soon/40 bg-state-soonbg px-2 py-1 text-sm text-ink" data-warning={w.code}>
+                <span className="font-semibold text-state-soon">Warning: </span>
                 {w.message}
               </li>
             ))}

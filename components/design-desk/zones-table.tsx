@@ -51,7 +51,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
 
   return (
     <div className="@container flex flex-col gap-3">
-      {errors.surfaces ? <p role="alert" className="text-xs text-state-overdue">{errors.surfaces[0]}</p> : null}
+      {errors.surfaces ? <p role="alert" className="text-xs text-state-action">{errors.surfaces[0]}</p> : null}
       <ol className="flex flex-col gap-2">
         {inputs.surfaces.map((zone, i) => {
           const e = (field: string) => errors[`surfaces.${i}.${field}`];
@@ -70,9 +70,9 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                     value={zone.name}
                     disabled={disabled}
                     onChange={(ev) => setZone(i, { name: ev.target.value })}
-                    className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm ${e('name') ? 'border-state-overdue' : 'border-rule-strong'}`}
+                    className={`rounded-[3px] border bg-paper-raised px-1.5 py-1 text-sm ${e('name') ? 'border-state-action' : 'border-rule-strong'}`}
                   />
-                  {e('name') ? <p role="alert" className="text-2xs text-state-overdue">{e('name')![0]}</p> : null}
+                  {e('name') ? <p role="alert" className="text-2xs text-state-action">{e('name')![0]}</p> : null}
                 </div>
                 <SelectInput label="Kind" value={zone.kind} onChange={(v) => setZone(i, { kind: v as DeskSurfaceDraft['kind'] })} options={optionsFrom(ZONE_KIND_LABELS, ZONE_KIND_VALUES)} disabled={disabled} />
                 <NumberInput

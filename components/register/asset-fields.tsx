@@ -45,7 +45,7 @@ function SurveyCriteriaFields({ kind, n, v, e }: { kind: string; n: (name: strin
         </span>
       </label>
       {e('highStrengthSteel') ? (
-        <p role="alert" className="col-span-2 text-xs text-state-overdue">
+        <p role="alert" className="col-span-2 text-xs text-state-action">
           {e('highStrengthSteel')!.join(' ')}
         </p>
       ) : null}

@@ -35,7 +35,7 @@ export function FleetTable({ org }: { org: string }) {
           return (
             <span className="flex flex-col gap-0.5">
               <OutlookTag outlook={o} />
-              {c.row.original.renewBy ? <span className="text-2xs text-state-overdue">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no {eventWords(c.row.original.kind).event} planned in time</span> : null}
+              {c.row.original.renewBy ? <span className="text-2xs text-state-action">{forecastDateWords('renewBy')} {formatDateOnly(c.row.original.renewBy)}, no {eventWords(c.row.original.kind).event} planned in time</span> : null}
             </span>
           );
         },

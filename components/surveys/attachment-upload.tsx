@@ -44,7 +44,7 @@ export function AttachmentUpload({ org, surveyId }: { org: string; surveyId: str
       <Button type="submit" variant="secondary" disabled={pending}>
         Attach
       </Button>
-      {message ? <p role={message.ok ? 'status' : 'alert'} className={`w-full text-sm ${message.ok ? 'text-state-sound' : 'text-state-overdue'}`}>{message.text}</p> : null}
+      {message ? <p role={message.ok ? 'status' : 'alert'} className={`w-full text-sm ${message.ok ? 'text-state-sound' : 'text-state-action'}`}>{message.text}</p> : null}
     </form>
   );
 }

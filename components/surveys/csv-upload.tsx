@@ -72,7 +72,7 @@ export function CsvUpload({ org, surveyId, electrode }: { org: string; surveyId:
         </a>
       </div>
       {result ? (
-        <div role={result.ok ? 'status' : 'alert'} className={`rounded-[3px] border px-3 py-2 text-sm ${result.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-overdue/40 bg-state-overduebg text-state-overdue'}`}>
+        <div role={result.ok ? 'status' : 'alert'} className={`rounded-[3px] border px-3 py-2 text-sm ${result.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-action/40 bg-state-actionbg text-state-action'}`}>
           <p>{result.message}</p>
           {result.lines?.length ? (
             <ul className="mt-1 max-h-48 list-disc overflow-auto pl-5 text-xs">

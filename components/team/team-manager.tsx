@@ -135,7 +135,7 @@ export function TeamManager({ org }: { org: string }) {
           <input type="hidden" name="membershipId" value={restoreId} readOnly />
         </form>
         <Panel title="Members">
-          {team.isError ? <p role="alert" className="text-sm text-state-overdue">{team.error.message}</p> : null}
+          {team.isError ? <p role="alert" className="text-sm text-state-action">{team.error.message}</p> : null}
           {team.isLoading ? <p className="text-sm text-ink-faint">Loading…</p> : <DataTable label="Members" data={team.data?.members ?? []} columns={memberColumns} />}
         </Panel>
         <Panel title="Open invitations">

@@ -92,7 +92,7 @@ export function ActionForm({ form, messageClassName, children, ...props }: Actio
 export function ActionError({ state, className }: { state: ActionState; className?: string }) {
   if (!state.message || state.ok) return null;
   return (
-    <span role="alert" className={className ? `${className} text-xs text-state-overdue` : 'text-xs text-state-overdue'}>
+    <span role="alert" className={className ? `${className} text-xs text-state-action` : 'text-xs text-state-action'}>
       {state.message}
     </span>
   );

@@ -4,7 +4,7 @@ type Variant = 'primary' | 'secondary' | 'danger' | 'ghost';
 const styles: Record<Variant, string> = {
   primary: 'bg-tide-600 text-white hover:bg-tide-700 border-tide-700',
   secondary: 'bg-paper-raised text-ink hover:bg-paper-sunk border-rule-strong',
-  danger: 'bg-paper-raised text-state-overdue hover:bg-state-overduebg border-state-overdue/50',
+  danger: 'bg-paper-raised text-state-action hover:bg-state-actionbg border-state-action/50',
   ghost: 'bg-transparent text-tide-600 hover:bg-tide-50 border-transparent',
 };
 // Below 1024 px (phones and tablets on the quay) every button is at least 44 px high: a finger, not a pointer.

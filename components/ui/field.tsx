@@ -23,13 +23,13 @@ export function Field({ label, name, errors, hint, unit, className = '', ...prop
           name={name}
           aria-invalid={errors?.length ? true : undefined}
           aria-describedby={describedBy}
-          className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none focus:border-tide-500 max-lg:min-h-11 ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
+          className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none focus:border-tide-500 max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
           {...props}
         />
         {unit ? <span className="min-w-8 text-xs text-ink-faint">{unit}</span> : null}
       </div>
       {errors?.length ? (
-        <p id={`${id}-err`} role="alert" className="text-xs text-state-overdue">
+        <p id={`${id}-err`} role="alert" className="text-xs text-state-action">
           {errors.join(' ')}
         </p>
       ) : hint ? (
@@ -59,7 +59,7 @@ export function SelectField({ label, name, errors, options, className = '', ...p
         id={id}
         name={name}
         aria-invalid={errors?.length ? true : undefined}
-        className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm max-lg:min-h-11 ${errors?.length ? 'border-state-overdue' : 'border-rule-strong'}`}
+        className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'}`}
         {...props}
       >
         {options.map((o) => (
@@ -69,7 +69,7 @@ export function SelectField({ label, name, errors, options, className = '', ...p
         ))}
       </select>
       {errors?.length ? (
-        <p role="alert" className="text-xs text-state-overdue">
+        <p role="alert" className="text-xs text-state-action">
           {errors.join(' ')}
         </p>
       ) : null}
@@ -80,7 +80,7 @@ export function SelectField({ label, name, errors, options, className = '', ...p
 export function FormMessage({ state }: { state: { ok: boolean; message?: string } }) {
   if (!state.message) return null;
   return (
-    <p role={state.ok ? 'status' : 'alert'} className={`rounded-[3px] border px-3 py-2 text-sm ${state.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-overdue/40 bg-state-overduebg text-state-overdue'}`}>
+    <p role={state.ok ? 'status' : 'alert'} className={`rounded-[3px] border px-3 py-2 text-sm ${state.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-action/40 bg-state-actionbg text-state-action'}`}>
       {state.message}
     </p>
   );

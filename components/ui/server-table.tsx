@@ -66,7 +66,7 @@ export function ServerTable<T>({ label, url, queryKey, columns, extraParams = {}
         <input aria-label={`Filter ${label}`} value={typed} onChange={(e) => setTyped(e.target.value)} placeholder={filterPlaceholder} className="w-full max-w-72 rounded-[3px] border border-rule-strong bg-paper-raised px-2 py-1 text-sm max-lg:min-h-11" />
         {toolbar}
       </div>
-      {query.isError ? <p role="alert" className="text-sm text-state-overdue">{query.error.message}</p> : null}
+      {query.isError ? <p role="alert" className="text-sm text-state-action">{query.error.message}</p> : null}
       <TableView table={table} label={label} empty={query.isLoading ? 'Loading…' : empty} busy={query.isFetching} dimmed={query.isFetching && query.isPlaceholderData} />
       <div className="no-print flex flex-wrap items-center gap-3 text-xs text-ink-soft">
         <span className="num text-left">{total.toLocaleString('en-GB')} in all</span>

@@ -39,7 +39,7 @@ export function NoticeBar({ notice, pending = false }: { notice: Notice | null; 
       {notice ? (
         <div
           data-testid="notice"
-          className={`flex flex-wrap items-center gap-3 rounded-[3px] border px-3 py-2 text-sm ${notice.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-overdue/40 bg-state-overduebg text-state-overdue'}`}
+          className={`flex flex-wrap items-center gap-3 rounded-[3px] border px-3 py-2 text-sm ${notice.ok ? 'border-state-sound/40 bg-state-soundbg text-state-sound' : 'border-state-action/40 bg-state-actionbg text-state-action'}`}
         >
           <span className="flex-1">{notice.message}</span>
           {undo ? (

@@ -51,10 +51,10 @@ export default async function DevInboxPage() {
     <main id="content" tabIndex={-1} className="mx-auto max-w-4xl px-4 py-8 outline-none sm:px-6">
       <h1 className="text-2xl font-semibold">Dev inbox</h1>
       <p className="mb-4 text-sm text-ink-soft">Every e-mail the local SMTP fake received, newest first. Only shown while mail goes to the local fake, and only on this machine.</p>
-      {unreachable ? <p role="alert" className="mb-4 text-sm text-state-overdue">The SMTP fake is not reachable at {env.FAKE_MAIL_API}.</p> : null}
+      {unreachable ? <p role="alert" className="mb-4 text-sm text-state-action">The SMTP fake is not reachable at {env.FAKE_MAIL_API}.</p> : null}
       {waiting.length ? (
-        <section className="mb-6 rounded-[4px] border border-state-due/40 bg-state-duebg p-3 text-sm">
-          <h2 className="font-semibold text-state-due">Outbox: {waiting.length} not delivered yet</h2>
+        <section className="mb-6 rounded-[4px] border border-state-soon/40 bg-state-soonbg p-3 text-sm">
+          <h2 className="font-semibold text-state-soon">Outbox: {waiting.length} not delivered yet</h2>
           <ul className="mt-1 text-xs">
             {waiting.map((m) => (
               <li key={m.id}>

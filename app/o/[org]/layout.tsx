@@ -25,7 +25,7 @@ export default async function OrgLayout({ children, params }: { children: React.
   if (can(ctx.role, 'audit:read')) items.push({ href: `${base}/audit`, label: 'Audit log' });
   items.push({ href: `${base}/account`, label: 'My account' });
   const banner = readOnly ? (
-    <div role="alert" className="no-print mb-4 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-4 py-2 text-sm text-state-overdue">
+    <div role="alert" className="no-print mb-4 rounded-[3px] border border-state-action/40 bg-state-actionbg px-4 py-2 text-sm text-state-action">
       <strong>Read-only.</strong> {readOnly} You can read, print and export everything; nothing has been deleted.{' '}
       {can(ctx.role, 'billing:manage') ? (
         <Link href={`${base}/billing`} className="font-semibold underline">

@@ -113,9 +113,10 @@ describe('contrast of the palette (WCAG 2.1 AA, 4.5:1 for text)', () => {
     for (const paper of papers) expect(contrast(text, paper), `${tone} on ${paper}`).toBeGreaterThanOrEqual(4.5);
   });
 
-  it('the older names are the same colours (due is soon, overdue is action)', () => {
-    expect(colours.state.due).toBe(colours.state.soon);
-    expect(colours.state.overdue).toBe(colours.state.action);
+  it('each status colour has one name: the palette holds the tones and their backgrounds, no older second names', () => {
+    const tones = ['action', 'soon', 'sound', 'progress', 'over'];
+    expect(Object.keys(colours.state).sort()).toEqual(tones.flatMap((t) => [t, `${t}bg`]).sort());
+    expect(new Set(Object.values(colours.state)).size).toBe(Object.keys(colours.state).length);
   });
 });
 

@@ -22,7 +22,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     return (
       <>
         <h1 className="mb-2 text-xl font-semibold">This invitation cannot be used</h1>
-        <p role="alert" className="text-sm text-state-overdue">{error.message}</p>
+        <p role="alert" className="text-sm text-state-action">{error.message}</p>
         <Link href="/sign-in" className="mt-4 inline-block text-sm text-tide-600 underline">Sign in</Link>
       </>
     );
@@ -39,7 +39,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
         user.email === invitation.email ? (
           <TokenConfirmForm token={token} label="Accept the invitation" action={acceptInvitationAction} />
         ) : (
-          <p role="alert" className="text-sm text-state-overdue">
+          <p role="alert" className="text-sm text-state-action">
             You are signed in as {user.email}. This invitation is for {invitation.email}: sign out, then open the link again.
           </p>
         )

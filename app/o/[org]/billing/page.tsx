@@ -49,7 +49,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
             </div>
             <div>
               <dt className="text-2xs uppercase tracking-wide text-ink-faint">Status</dt>
-              <dd><StatusTag tone={tone}>{status}</StatusTag>{readOnly ? <span className="ml-2 text-state-overdue">Read-only: {readOnly}</span> : null}</dd>
+              <dd><StatusTag tone={tone}>{status}</StatusTag>{readOnly ? <span className="ml-2 text-state-action">Read-only: {readOnly}</span> : null}</dd>
             </div>
             {o.subscriptionStatus === 'trialing' && o.trialEndsAt ? (
               <div>
@@ -91,7 +91,7 @@ export default async function BillingPage({ params, searchParams }: { params: Pr
             </div>
           </Panel>
           <Panel title="Invoices">
-            {invoicesError ? <p role="alert" className="text-sm text-state-overdue">{invoicesError}</p> : null}
+            {invoicesError ? <p role="alert" className="text-sm text-state-action">{invoicesError}</p> : null}
             {invoices.length ? (
               <TableFrame label="Invoices">
               <table className="w-full text-sm" aria-label="Invoices">

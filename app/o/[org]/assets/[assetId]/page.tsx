@@ -198,8 +198,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
 
         <Panel title="Installed anode groups">
           {mixedAlloys ? (
-            <p role="note" className="mb-2 rounded-[3px] border border-state-due/40 bg-state-duebg px-2 py-1 text-sm text-ink" data-warning="mixed-alloys">
-              <span className="font-semibold text-state-due">Warning: </span>
+            <p role="note" className="mb-2 rounded-[3px] border border-state-soon/40 bg-state-soonbg px-2 py-1 text-sm text-ink" data-warning="mixed-alloys">
+              <span className="font-semibold text-state-soon">Warning: </span>
               Anodes of {mixedAlloys.map((a) => ALLOY_LABELS[a] ?? a).join(' and ')} are fitted on this asset. Mixed alloys work at different potentials: the more active one is consumed protecting the other, and the forecast of both is off. Fit one alloy at the next renewal.
             </p>
           ) : null}

@@ -96,7 +96,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
         </div>
       ) : null}
       {recomputeError ? (
-        <p role="alert" className="mb-4 rounded-[3px] border border-state-overdue/40 bg-state-overduebg px-3 py-2 text-sm text-state-overdue">
+        <p role="alert" className="mb-4 rounded-[3px] border border-state-action/40 bg-state-actionbg px-3 py-2 text-sm text-state-action">
           This draft&apos;s stored inputs cannot be computed today: {recomputeError}
         </p>
       ) : null}
