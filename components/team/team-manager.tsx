@@ -1,4 +1,5 @@
 'use client';
+import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import { format } from 'date-fns';
@@ -7,14 +8,13 @@ import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionError, ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { Panel } from '@/components/ui/panel';
-import { announce } from '@/components/ui/toast';
+import { announce, undoBy } from '@/components/ui/toast';
 import type { ActionState } from '@/lib/server/action';
 import { queryKeys } from '@/lib/client/query-client';
 import { useFocusListAfterRemoval } from '@/components/ui/focus-after-removal';
 import { useTeam, type TeamInvitation, type TeamMember } from '@/lib/client/use-team';
-import { MAIL_DELIVERY_WORDS } from '@/lib/labels';
+import { MAIL_DELIVERY_WORDS, ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/labels';
 import { ROLES } from '@/lib/roles';
-import { ROLE_DESCRIPTIONS, ROLE_LABELS } from '@/lib/labels';
 import { changeMemberRoleAction, inviteMemberAction, removeMemberAction, restoreMemberAction, revokeInvitationAction } from '@/app/o/[org]/team/actions';
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
@@ -89,23 +89,16 @@ function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitati
 export function TeamManager({ org }: { org: string }) {
   const team = useTeam(org);
   const invite = useBoundAction(inviteMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
-  const restore = useBoundAction(restoreMemberAction.bind(null, org), { invalidate: [queryKeys.team(org)] });
+  const client = useQueryClient();
   const show = announce;
-  const restoreForm = useRef<HTMLFormElement>(null);
-  const [restoreId, setRestoreId] = useState('');
   // The cells report through refs, so the columns (and the table's rows) are not rebuilt on every notice.
   const report = useRef({ saved: (_: ActionState) => {}, removed: (_: ActionState) => {} });
   report.current.saved = (state) => show({ ok: state.ok, message: state.message ?? '' });
   report.current.removed = (state) => {
     const id = typeof state.data?.undoMembershipId === 'string' ? state.data.undoMembershipId : '';
-    setRestoreId(id);
-    show({ ok: true, message: state.message ?? 'Removed.', undo: id ? { label: 'Undo the removal', run: () => restoreForm.current?.requestSubmit() } : undefined });
+    const undo = id ? { label: 'Undo the removal', run: undoBy(restoreMemberAction.bind(null, org), { membershipId: id }, () => client.invalidateQueries({ queryKey: queryKeys.team(org) })) } : undefined;
+    show({ ok: true, message: state.message ?? 'Removed.', undo });
   };
-  useEffect(() => {
-    if (restore.state.message) show({ ok: restore.state.ok, message: restore.state.message });
-    // one notice per answer
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [restore.state]);
 
   const memberColumns = useMemo(() => {
     const col = createColumnHelper<TeamMember>();
@@ -131,9 +124,6 @@ export function TeamManager({ org }: { org: string }) {
   return (
     <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div className="flex flex-col gap-5">
-        <form ref={restoreForm} action={restore.action} hidden>
-          <input type="hidden" name="membershipId" value={restoreId} readOnly />
-        </form>
         <Panel title="Members">
           {team.isError ? <p role="alert" className="text-sm text-state-action">{team.error.message}</p> : null}
           {team.isLoading ? <p className="text-sm text-ink-faint">Loading…</p> : <DataTable label="Members" data={team.data?.members ?? []} columns={memberColumns} />}
