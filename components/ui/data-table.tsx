@@ -1,5 +1,5 @@
 'use client';
-import { TableView } from './table-view';
+import { TableView, rowIdOf } from './table-view';
 import { useState } from 'react';
 import {
   getCoreRowModel,
@@ -30,6 +30,7 @@ export function DataTable<T>({ data, columns, filterPlaceholder = 'Filter…', p
     state: { sorting, globalFilter },
     onSortingChange: setSorting,
     onGlobalFilterChange: setGlobalFilter,
+    getRowId: rowIdOf,
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),

@@ -1,5 +1,5 @@
 'use client';
-import { TableView } from './table-view';
+import { TableView, rowIdOf } from './table-view';
 import { useEffect, useState } from 'react';
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
@@ -56,6 +56,7 @@ export function ServerTable<T>({ label, url, queryKey, columns, extraParams = {}
     manualSorting: true,
     manualPagination: true,
     manualFiltering: true,
+    getRowId: rowIdOf,
     getCoreRowModel: getCoreRowModel(),
   });
   const total = query.data?.total ?? 0;

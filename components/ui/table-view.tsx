@@ -58,3 +58,12 @@ export function TableView<T>({ table, label, empty, busy = false, dimmed = false
     </TableFrame>
   );
 }
+
+/**
+ * Rows are keyed by the record's own id when it has one, never by position: a removed row must not hand its
+ * open question or its focus to the row that moves up into its place (or to the record when it comes back).
+ */
+export function rowIdOf(row: unknown, index: number): string {
+  const id = (row as { id?: unknown } | null)?.id;
+  return typeof id === 'string' && id !== '' ? id : String(index);
+}

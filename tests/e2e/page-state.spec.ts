@@ -233,6 +233,11 @@ test('an inspector deletes a reading and puts it back with Undo; a deleted surve
   await add.getByLabel('Comment').fill('Fender frame, scraped');
   await add.getByRole('button', { name: 'Add reading' }).click();
   await expect(add.getByText(/^Reading added at UN-7/)).toBeVisible();
+  // A second reading below it: when UN-7 goes, UN-8 moves up into its row and must not inherit its open question.
+  await add.getByLabel('Location').fill('UN-8');
+  await add.getByLabel('Potential').fill('0.21');
+  await add.getByRole('button', { name: 'Add reading' }).click();
+  await expect(add.getByText(/^Reading added at UN-8/)).toBeVisible();
   const table = page.getByRole('table', { name: 'Readings' });
   const row = table.getByRole('row', { name: /UN-7/ });
   await expect(row).toContainText('Fender frame, scraped');
@@ -242,6 +247,7 @@ test('an inspector deletes a reading and puts it back with Undo; a deleted surve
   await page.getByRole('button', { name: 'Yes, delete' }).click();
   await expect(page.getByTestId('notice')).toContainText('Reading at UN-7 deleted.');
   await expect(table.getByRole('row', { name: /UN-7/ })).toHaveCount(0);
+  await expect(table.getByRole('button', { name: 'Yes, delete' })).toHaveCount(0);
   await page.getByRole('button', { name: /^Undo: put back the reading at UN-7/ }).click();
   await expect(page.getByTestId('notice')).toContainText('Reading at UN-7 put back: +0.200 V against');
   // Back without a reload, with the values it had.
