@@ -14,6 +14,7 @@ import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconc
 import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
 import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
+import { refreshStaleOutlooks } from '../lib/server/services/planner/refresh-outlooks';
 import { describeStartupError } from './lib/describe-error';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
@@ -47,8 +48,10 @@ async function main() {
   });
   await boss.send(JOBS.billing, {}, { singletonKey: 'startup', singletonSeconds: 60 });
   // Housekeeping, hourly: idempotency keys older than their window (48 h) answer no repeat any more, and
-  // deleted surveys leave the bin once they can no longer be restored (30 days).
+  // deleted surveys leave the bin once they can no longer be restored (30 days), and the plan summaries the fleet
+  // overview reads are brought to the new day (until then the overview computes a stale one on the spot).
   await boss.schedule(JOBS.housekeeping, '17 * * * *', {}, { tz: 'UTC' });
+  await boss.send(JOBS.housekeeping, {}, { singletonKey: 'startup', singletonSeconds: 300 });
   await boss.work(JOBS.housekeeping, async () => {
     const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());
     if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
@@ -56,6 +59,8 @@ async function main() {
     if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
     const files = await purgeAttachmentBin(orm.em.fork());
     if (files) console.log(`[worker] deleted attachments past their undo window removed: ${files}`);
+    const outlooks = await refreshStaleOutlooks(orm.em.fork());
+    if (outlooks) console.log(`[worker] asset outlooks brought to today: ${outlooks}`);
   });
 
   let stopping = false;

@@ -30,3 +30,11 @@ export async function lockRow(em: { execute: (sql: string, params: unknown[]) =>
   const rows = (await em.execute(`select id from "${table}" where id = ? for no key update`, [id])) as unknown[];
   return rows.length > 0;
 }
+
+/**
+ * A PostgreSQL array literal for one `?::type[]` parameter (knex would spread a JS array into several
+ * parameters): every element quoted and escaped, null as NULL.
+ */
+export function pgArray(values: readonly (string | number | null)[]): string {
+  return `{${values.map((v) => (v === null ? 'NULL' : `"${String(v).replace(/[\\"]/g, (c) => `\\${c}`)}"`)).join(',')}}`;
+}

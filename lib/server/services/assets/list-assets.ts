@@ -1,6 +1,7 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { ilikePattern, toPage, inSequence } from '../../sql';
+import { storedSummary, type PlanSummary } from '../planner/stored-outlooks';
 
 const SORTS: Record<string, string> = {
   name: 'a.name',
@@ -33,8 +34,11 @@ export interface AssetRow {
   archived: boolean;
 }
 
-/** One page of the organisation's assets with register and survey summaries, in two statements. */
-export async function listAssets(ctx: OrgContext, query: ListQuery) {
+/**
+ * One page of the organisation's assets with register and survey summaries, in two statements. Each row
+ * also has the live asset's stored plan summary (asset_outlook) in `stored` when it is from `today`'s UTC day.
+ */
+export async function listAssets(ctx: OrgContext, query: ListQuery, today = new Date()) {
   requirePermission(ctx, 'org:read');
   const clauses = ['a.organisation_id = ?', query.archived === '1' ? 'a.archived_at is not null' : 'a.archived_at is null'];
   const params: unknown[] = [ctx.organisation.id];
@@ -52,8 +56,12 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
       `select a.id, a.name, a.kind, coalesce(a.vessel_type, a.structure_type) as type, a.hull_material, a.has_impressed_current, a.anaerobic, a.high_strength_steel, a.archived_at,
               (select count(*) from zone z where z.asset_id = a.id and z.archived_at is null) as zones,
               coalesce(g.groups, 0) as groups, coalesce(g.anodes, 0) as anodes, coalesce(g.net_mass, 0) as net_mass,
-              to_char(s.surveyed_on, 'YYYY-MM-DD') as surveyed_on, s.least_negative, s.most_negative
+              to_char(s.surveyed_on, 'YYYY-MM-DD') as surveyed_on, s.least_negative, s.most_negative,
+              to_char(o.computed_on, 'YYYY-MM-DD') as outlook_on, o.outlook as stored_outlook, o.next_docking_id, o.mass_due_next_kg,
+              to_char(o.renew_by, 'YYYY-MM-DD') as renew_by, d.kind as next_docking_kind, to_char(coalesce(d.actual_start, d.planned_start), 'YYYY-MM-DD') as next_docking_on
          from asset a
+         left join asset_outlook o on o.asset_id = a.id and a.archived_at is null
+         left join docking d on d.id = o.next_docking_id
          left join lateral (
            select count(*) as groups, sum(quantity) as anodes, sum(quantity * (model->>'netMassKg')::float8) as net_mass
              from anode_group where asset_id = a.id and removed_on is null) g on true
@@ -68,7 +76,12 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
       [...params, query.pageSize, (query.page - 1) * query.pageSize],
     ),
   );
-  return toPage(countRows, query, rows, (r): AssetRow => ({
+  const stored = new Map<string, PlanSummary>();
+  for (const r of rows) {
+    const summary = storedSummary(r, today);
+    if (summary) stored.set(r.id as string, summary);
+  }
+  const page = toPage(countRows, query, rows, (r): AssetRow => ({
         id: r.id as string,
         name: r.name as string,
         kind: r.kind as AssetRow['kind'],
@@ -86,4 +99,5 @@ export async function listAssets(ctx: OrgContext, query: ListQuery) {
         lastSurveyMostNegativeV: r.most_negative === null || r.most_negative === undefined ? null : Number(r.most_negative),
         archived: r.archived_at !== null,
       }));
+  return { ...page, stored };
 }

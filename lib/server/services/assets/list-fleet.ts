@@ -1,8 +1,8 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AssetOutlook } from '@/lib/forecast';
-import { toDateOnly } from '@/lib/dates/date-only';
 import { requirePermission, type OrgContext } from '../../org-context';
-import { computePlans, dockingDate, OUTLOOK_WORDS } from '../planner/compute-plans';
+import { computePlans, OUTLOOK_WORDS } from '../planner/compute-plans';
+import { planSummaryOf, type PlanSummary } from '../planner/stored-outlooks';
 import { listAssets, type AssetRow } from './list-assets';
 
 export interface FleetRow extends AssetRow {
@@ -14,25 +14,29 @@ export interface FleetRow extends AssetRow {
   renewBy: string | null;
 }
 
-/** The fleet overview page: the asset list with each asset's protection outlook, next docking and mass due there. */
-export async function listFleet(ctx: OrgContext, query: ListQuery) {
+/**
+ * The fleet overview page: the asset list with each asset's protection outlook, next docking and mass due there.
+ * Each live asset's plan summary is the one the unit of work stored when what feeds it last changed, if it was
+ * computed for today (the worker refreshes them once a day); any other is computed here, so the page is never
+ * a day behind.
+ */
+export async function listFleet(ctx: OrgContext, query: ListQuery, today = new Date()) {
   requirePermission(ctx, 'org:read');
-  const page = await listAssets(ctx, query);
-  const plans = query.archived === '1' ? [] : await computePlans(ctx, { assetIds: page.rows.map((r) => r.id) });
-  const byAsset = new Map(plans.map((p) => [p.asset.id, p]));
+  const { stored, ...page } = await listAssets(ctx, query, today);
+  const summaries = new Map<string, PlanSummary>(stored);
+  const missing = query.archived === '1' ? [] : page.rows.filter((r) => !summaries.has(r.id)).map((r) => r.id);
+  if (missing.length) for (const plan of await computePlans(ctx, { assetIds: missing, today })) summaries.set(plan.asset.id, planSummaryOf(plan));
   return {
     ...page,
     rows: page.rows.map((row): FleetRow => {
-      const plan = byAsset.get(row.id);
-      const next = plan?.nextDocking ?? null;
-      const renewBy = plan?.groups.filter((g) => g.proposal?.earlierDocking).map((g) => g.forecast?.renewBy).filter((d): d is Date => Boolean(d)).sort((a, b) => a.getTime() - b.getTime())[0] ?? null;
+      const summary = row.archived ? null : (summaries.get(row.id) ?? null);
       return {
         ...row,
-        outlook: plan?.outlook ?? null,
-        outlookWords: plan ? OUTLOOK_WORDS[plan.outlook] : null,
-        nextDocking: next ? { id: next.id, date: dockingDate(next).toISOString().slice(0, 10), kind: next.kind } : null,
-        massDueAtNextDockingKg: next ? (plan!.massDue.find((m) => m.dockingId === next.id)?.massKg ?? 0) : 0,
-        renewBy: renewBy ? toDateOnly(renewBy) : null,
+        outlook: summary?.outlook ?? null,
+        outlookWords: summary ? OUTLOOK_WORDS[summary.outlook] : null,
+        nextDocking: summary?.nextDocking ?? null,
+        massDueAtNextDockingKg: summary?.massDueAtNextDockingKg ?? 0,
+        renewBy: summary?.renewBy ?? null,
       };
     }),
   };

@@ -31,6 +31,8 @@ export async function computeRecord(ctx: OrgContext, asset: Pick<Asset, 'hasImpr
 export async function storeResults(ctx: OrgContext, design: Design, inputs: unknown) {
   const { desk, record } = await computeRecord(ctx, design.asset, inputs, designLabel(design));
   Object.assign(design, record, { appVersion: APP_VERSION });
+  // Groups linked to this design follow its demand profile: their forecasts, proposals and outlook move with it.
+  ctx.effects.assetChanged(design.asset.id);
   return desk;
 }
 

@@ -3,11 +3,13 @@ import { requirePermission, type OrgContext } from '../../org-context';
 import { classifyRemaining } from '@/lib/surveys/criteria';
 import { computePlans } from './compute-plans';
 import { inSequence } from '../../sql';
+import { storeOutlooks } from './stored-outlooks';
 
 /**
  * Brings the scheduler's proposals up to date for some assets: a group gets a 'proposed' renewal at
  * the docking the forecast picks, a stale proposal is withdrawn, and anything a planner has
- * confirmed, ordered, fitted or cancelled is never touched. Also records each asset's outlook.
+ * confirmed, ordered, fitted or cancelled is never touched. Also records each asset's outlook, and stores
+ * the plan summary the fleet overview reads (stored-outlooks.ts), as of `today`.
  * Runs inside the caller's unit of work (see unit-of-work.ts): services record ctx.effects.assetChanged
  * and the unit of work calls this before commit.
  */
@@ -50,5 +52,6 @@ export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], to
       plan.asset.outlookChangedAt = today;
     }
   }
+  await storeOutlooks(ctx, plans, today);
   return { plans, created, withdrawn };
 }

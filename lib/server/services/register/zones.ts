@@ -29,6 +29,8 @@ export async function updateZone(ctx: OrgContext, zoneId: string, input: unknown
   requirePermission(ctx, 'asset:write');
   const zone = await getZoneOrThrow(ctx, zoneId);
   ctx.em.assign(zone, { ...zoneSchema.parse(input), areaSource: 'entered' });
+  // A linked design's current is shared out by zone name, so a renamed zone can move its groups' forecasts.
+  ctx.effects.assetChanged(zone.asset.id);
   audit(ctx, { action: 'zone.updated', targetType: 'zone', targetId: zone.id, details: { asset: zone.asset.name, zone: zone.name } });
   return zone;
 }
