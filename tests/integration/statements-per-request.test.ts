@@ -15,13 +15,13 @@ import { Effects } from '@/lib/server/unit-of-work';
 import { listQuerySchema } from '@/lib/schemas/register';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createZone } from '@/lib/server/services/register/zones';
-import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
+import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { approveDesign } from '@/lib/server/services/designs/sign-design';
 import { fitDesign } from '@/lib/server/services/designs/fit-design';
 import { createDocking } from '@/lib/server/services/planner/dockings';
-import { addRenewal } from '@/lib/server/services/planner/renewals';
+import { addRenewal, markRenewalFitted, markRenewalOrdered } from '@/lib/server/services/planner/renewals';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
@@ -98,6 +98,8 @@ async function buildOrganisation(name: string, scale: number): Promise<Built> {
     const zone = await as('engineer', (c) => createZone(c, asset.id, { ...ZONE, name: `Bottom ${i + 1}` }));
     await as('engineer', (c) => createAnodeGroup(c, asset.id, { zoneId: zone.id, label: 'Bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 1 }));
     await as('engineer', (c) => createAnodeGroup(c, asset.id, { label: 'Sea chest', anodeModelKey: `org:${models[i % models.length]}`, quantity: 4, installedOn: day(-300), meanCurrentA: 0.2 }));
+    // Worked hard: due for renewal within the year, so the scheduler proposes one.
+    await as('engineer', (c) => createAnodeGroup(c, asset.id, { label: 'Thruster', anodeModelKey: 'builtin:TW-AW-4020', quantity: 2, installedOn: day(-300), meanCurrentA: 3 }));
     dockingIds.push((await as('planner', (c) => createDocking(c, { assetId: asset.id, kind: 'intermediate', plannedStart: day(200 + i), yard: 'Counting Yard' }))).id);
     draftDesignIds.push((await as('engineer', (c) => createDesign(c, { assetId: asset.id }))).id);
   }
@@ -120,11 +122,23 @@ async function buildOrganisation(name: string, scale: number): Promise<Built> {
     await as('engineer', (c) => createAnodeGroup(c, assetId, { zoneId: zoneIds[i % scale], label, anodeModelKey: i % 2 ? `org:${models[i % models.length]}` : 'builtin:TW-AW-4020', quantity: 2, installedOn: day(-400), meanCurrentA: 0.1 }));
     labels.push(label);
   }
+  const { AnodeGroupSchema } = await import('@/entities');
+  // Edited groups (their change history) and removed ones (the register's archive).
+  for (const group of await em.fork().find(AnodeGroupSchema, { asset: assetId, label: { $like: 'Rudder %' } })) {
+    await as('engineer', (c) => updateAnodeGroup(c, group.id, { zoneId: group.zone?.id ?? null, label: group.label, anodeModelKey: group.model.key, quantity: 3, installedOn: group.installedOn, meanCurrentA: 0.1 }));
+  }
+  for (let i = 0; i < scale; i++) {
+    const spare = await as('engineer', (c) => createAnodeGroup(c, assetId, { label: `Spare ${i + 1}`, anodeModelKey: 'builtin:TW-AW-4020', quantity: 1, installedOn: day(-500), meanCurrentA: 0.1 }));
+    await as('engineer', (c) => removeAnodeGroup(c, spare.id, { removedOn: day(-30), reason: 'Lost' }));
+  }
   for (let i = 0; i < scale; i++) await as('planner', (c) => createDocking(c, { assetId, kind: 'renewal-survey', plannedStart: day(600 + 400 * i), yard: 'Counting Yard' }));
   for (let i = 0; i < scale; i++) await as('engineer', (c) => createDesign(c, { assetId }));
-  const { AnodeGroupSchema } = await import('@/entities');
-  for (const group of await em.fork().find(AnodeGroupSchema, { asset: assetId, removedOn: null })) {
-    await as('planner', (c) => addRenewal(c, dockingIds[0], { groupId: group.id, reason: 'damage' }));
+  // Every fitted group of the first vessel booked at its docking: some ordered, some already fitted.
+  const booked = await em.fork().find(AnodeGroupSchema, { asset: assetId, removedOn: null }, { orderBy: { label: 'asc' } });
+  for (const [k, group] of booked.entries()) {
+    const renewal = await as('planner', (c) => addRenewal(c, dockingIds[0], { groupId: group.id, reason: 'damage' }));
+    if (k % 4 === 1) await as('planner', (c) => markRenewalOrdered(c, renewal.id));
+    if (k % 4 === 2) await as('planner', (c) => markRenewalFitted(c, renewal.id, { fittedOn: day(-1) }));
   }
   const readings = labels.map((label, k) => ({ location: `Frame ${k + 1}`, potentialV: -0.95 - k / 1000, electrode: 'ag-agcl-seawater', anodeGroupLabel: label, remainingFraction: 0.7 }));
   const surveyIds: string[] = [];
@@ -216,7 +230,7 @@ interface RouteCase {
   name: string;
   method?: 'GET' | 'POST';
   params?: (o: Built) => Record<string, string>;
-  search?: string;
+  search?: string | ((o: Built) => string);
   body?: unknown;
   /** How much data the answer carries, where that can be read: it must be larger for the large organisation. */
   size?: (a: Answer) => number;
@@ -229,12 +243,17 @@ const ROUTE_CASES: RouteCase[] = [
   { name: 'GET assets, pages of 5, sorted by name', path: 'assets', search: '?pageSize=5&sort=name&dir=desc', size: (a) => a.body.total },
   { name: 'GET anode-groups (register)', path: 'anode-groups', size: (a) => a.body.total },
   { name: 'GET anode-groups sorted by remaining', path: 'anode-groups', search: '?sort=remaining&dir=desc', size: (a) => a.body.total },
+  { name: 'GET anode-groups, removed groups', path: 'anode-groups', search: '?archived=1', size: (a) => a.body.total },
+  { name: 'GET anode-groups searched', path: 'anode-groups', search: '?q=rudder', size: (a) => a.body.total },
   { name: 'GET anode-groups/export (CSV)', path: 'anode-groups/export', size: lines },
   { name: 'GET surveys', path: 'surveys', size: (a) => a.body.total },
+  { name: 'GET surveys of one asset', path: 'surveys', search: (o) => `?assetId=${o.assetId}`, size: (a) => a.body.total },
   { name: 'GET designs', path: 'designs', size: (a) => a.body.designs.length },
+  { name: 'GET designs of one asset', path: 'designs', search: (o) => `?assetId=${o.assetId}`, size: (a) => a.body.designs.length },
   { name: 'GET designs/[designId] (approved)', path: 'designs/[designId]', params: (o) => ({ designId: o.approvedDesignId }) },
   { name: 'GET designs/[designId] (draft)', path: 'designs/[designId]', params: (o) => ({ designId: o.draftDesignId }) },
-  { name: 'GET designs/[designId]/note (PDF)', path: 'designs/[designId]/note', params: (o) => ({ designId: o.approvedDesignId }) },
+  { name: 'GET designs/[designId]/note (PDF, approved)', path: 'designs/[designId]/note', params: (o) => ({ designId: o.approvedDesignId }) },
+  { name: 'GET designs/[designId]/note (PDF, draft)', path: 'designs/[designId]/note', params: (o) => ({ designId: o.draftDesignId }) },
   { name: 'GET catalogue', path: 'catalogue', size: (a) => a.body.models.length },
   { name: 'GET audit', path: 'audit', size: (a) => a.body.total },
   { name: 'GET team', path: 'team', size: (a) => a.body.members.length + a.body.invitations.length },
@@ -250,7 +269,8 @@ async function callRoute(route: RouteCase, o: Built): Promise<Answer> {
   const method = route.method ?? 'GET';
   const handler = (await importFile(`app/api/orgs/[org]/${route.path}/route.ts`))[method] as Handler;
   const init = route.body === undefined ? undefined : { method, body: JSON.stringify(route.body), headers: { 'content-type': 'application/json' } };
-  const req = new NextRequest(`http://127.0.0.1/api/orgs/${o.organisation.slug}/x${route.search ?? ''}`, init);
+  const search = typeof route.search === 'function' ? route.search(o) : (route.search ?? '');
+  const req = new NextRequest(`http://127.0.0.1/api/orgs/${o.organisation.slug}/${route.path}${search}`, init);
   const res = await handler(req, { params: Promise.resolve({ org: o.organisation.slug, ...(route.params?.(o) ?? {}) }) });
   const type = res.headers.get('content-type') ?? '';
   const text = new TextDecoder().decode(await res.arrayBuffer());
