@@ -3,6 +3,7 @@ import { getPageOrgContext } from '@/lib/server/page-context';
 import { allowed } from '@/lib/server/org-context';
 import { Caution, PageHeader, Panel } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
+import { Disclosure } from '@/components/ui/disclosure';
 import { FleetTable } from '@/components/register/fleet-table';
 import { AssetForm } from '@/components/register/asset-form';
 import { FirstRunGuide } from '@/components/onboarding/first-run-guide';
@@ -26,12 +27,11 @@ export default async function FleetOverviewPage({ params }: { params: Promise<{ 
       <div className="flex flex-col gap-4">
         {firstRun ? <FirstRunGuide org={org} progress={firstRun} /> : null}
         {canWrite ? (
-          <details id="add-asset" open={firstRun ? !firstRun.done.asset : undefined} className="rounded-[4px] border border-rule bg-paper-raised">
-            <summary className="cursor-pointer px-4 py-2.5 text-sm font-semibold text-tide-700">Add a vessel or structure</summary>
+          <Disclosure id="add-asset" defaultOpen={firstRun ? !firstRun.done.asset : false} className="rounded-[4px] border border-rule bg-paper-raised" summaryClassName="cursor-pointer px-4 py-2.5 text-sm font-semibold text-tide-700" summary="Add a vessel or structure">
             <div className="max-w-2xl px-4 pb-4">
               <AssetForm org={org} />
             </div>
-          </details>
+          </Disclosure>
         ) : null}
         <Panel title="Assets">
           <FleetTable org={org} />

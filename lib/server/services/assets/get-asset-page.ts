@@ -68,16 +68,17 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   requirePermission(ctx, 'org:read');
   const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, plans, catalogue, dockings] = await inSequence(
+  const [zones, designs, surveys, plans, catalogue] = await inSequence(
     () => ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
     () => ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results', 'anodeModel'] }),
     () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
     // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once archived.
-    () => computePlans(ctx, { assetIds: [asset.id], today }),
+    () => computePlans(ctx, { assetIds: [asset.id], today, loaded: asset }),
     () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
-    () => ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } }),
   );
   const plan = plans[0] ?? null;
+  // The plan read the dockings already (all but cancelled ones, by planned start); an archived asset has no plan.
+  const dockings = plan ? plan.dockings : await ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } });
   const forecasts = plan?.groups ?? [];
   const changes = forecasts.length
     ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { Disclosure } from '@/components/ui/disclosure';
 import { notFound } from 'next/navigation';
 import { format } from 'date-fns';
 import { getPageOrgContext } from '@/lib/server/page-context';
@@ -104,12 +105,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               ))}
             </dl>
             {canWrite ? (
-              <details className="mt-3">
-                <summary className="cursor-pointer text-sm text-tide-600">Edit particulars</summary>
+              <Disclosure className="mt-3" summary="Edit particulars">
                 <div className="mt-3">
                   <AssetForm org={org} asset={{ id: asset.id, kind: asset.kind, values: formValues }} />
                 </div>
-              </details>
+              </Disclosure>
             ) : null}
           </Panel>
           <Panel title="Designs">
@@ -158,12 +158,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                   <td className="py-1.5">
                     {z.name}
                     {canWrite ? (
-                      <details className="mt-1">
-                        <summary className="cursor-pointer text-xs text-tide-600">Edit</summary>
+                      <Disclosure className="mt-1" summaryClassName="cursor-pointer text-xs text-tide-600" summary="Edit">
                         <div className="mt-2 rounded-[3px] border border-rule bg-paper p-3">
                           <ZoneForm org={org} assetId={asset.id} zone={{ id: z.id, name: z.name, kind: z.kind, areaM2: z.areaM2, coatingCategory: z.coatingCategory, coatingAgeYears: z.coatingAgeYears, waterType: z.waterType, climate: z.climate, depthBand: z.depthBand, drainsCurrent: z.drainsCurrent ?? null }} />
                         </div>
-                      </details>
+                      </Disclosure>
                     ) : null}
                   </td>
                   <td className="py-1.5">{ZONE_KIND_LABELS[z.kind] ?? 'Other'}</td>
@@ -187,12 +186,11 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           </table>
           </TableFrame>
           {canWrite ? (
-            <details className="mt-3">
-              <summary className="cursor-pointer text-sm text-tide-600">Add a zone</summary>
+            <Disclosure className="mt-3" summary="Add a zone">
               <div className="mt-3">
                 <ZoneForm org={org} assetId={asset.id} />
               </div>
-            </details>
+            </Disclosure>
           ) : null}
         </Panel>
 
@@ -206,8 +204,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           <RegisterTable org={org} assetId={asset.id} pageSize={25} />
           {canWrite ? (
             <div className="mt-4 grid gap-4">
-              <details>
-                <summary className="cursor-pointer text-sm text-tide-600">Record a fitted group</summary>
+              <Disclosure summary="Record a fitted group">
                 <div className="mt-3">
                   <AnodeGroupForm
                     org={org}
@@ -217,10 +214,9 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                     designs={designs.map((d) => ({ id: d.id, label: `Rev. ${d.revision} (${STATUS_LABELS[d.status]})` }))}
                   />
                 </div>
-              </details>
+              </Disclosure>
               {activeGroups.length ? (
-                <details>
-                  <summary className="cursor-pointer text-sm text-tide-600">Edit a fitted group</summary>
+                <Disclosure summary="Edit a fitted group">
                   <div className="mt-3">
                     <AnodeGroupForm
                       org={org}
@@ -231,15 +227,14 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                       groups={activeGroups.map((g) => ({ id: g.id, label: g.label, zoneId: g.zone?.id ?? null, anodeModelKey: g.model.key, quantity: g.quantity, positions: g.positions ?? null, installedOn: g.installedOn, meanCurrentA: g.meanCurrentA ?? null, notes: g.notes ?? null }))}
                     />
                   </div>
-                </details>
+                </Disclosure>
               ) : null}
               {activeGroups.length ? (
-                <details>
-                  <summary className="cursor-pointer text-sm text-tide-600">Close a group (removed, lost or renewed)</summary>
+                <Disclosure summary="Close a group (removed, lost or renewed)">
                   <div className="mt-3">
                     <RemoveGroupForm org={org} groups={activeGroups.map((g) => ({ id: g.id, label: g.label }))} />
                   </div>
-                </details>
+                </Disclosure>
               ) : null}
             </div>
           ) : null}

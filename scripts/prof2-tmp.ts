@@ -1,0 +1,32 @@
+import { MikroORM } from '@mikro-orm/postgresql';
+import { ormConfig } from '../mikro-orm.config';
+import { UserSchema } from '../entities';
+import { getOrgContextOrThrow } from '../lib/server/org-context';
+import { Effects } from '../lib/server/unit-of-work';
+import { getAssetPage } from '../lib/server/services/assets/get-asset-page';
+import { listFleet } from '../lib/server/services/assets/list-fleet';
+const orm = await MikroORM.init(ormConfig(process.env.DATABASE_URL!));
+const user = await orm.em.fork().findOneOrFail(UserSchema, { email: 'owner@gullhaven.example' });
+const asset = process.env.ASSET!;
+const N = 100;
+async function run(name: string, fn: (ctx: any) => Promise<unknown>) {
+  const once = async () => { const em = orm.em.fork(); const ctx = await getOrgContextOrThrow(em as any, { id: user.id, email: user.email, name: user.name } as any, 'gullhaven', null, new Effects()); return fn(ctx); };
+  for (let i = 0; i < 10; i++) await once();
+  const c0 = process.cpuUsage(); const t0 = performance.now();
+  for (let i = 0; i < N; i++) await once();
+  const c = process.cpuUsage(c0);
+  console.log(name, `wall ${((performance.now() - t0) / N).toFixed(2)} ms, cpu ${((c.user + c.system) / 1000 / N).toFixed(2)} ms`);
+}
+await run('membership only', async () => null);
+import { computePlans } from '../lib/server/services/planner/compute-plans';
+import { loadGroupForecasts } from '../lib/server/services/forecast/group-forecasts';
+import { listCatalogue } from '../lib/server/services/catalogue/anode-models';
+import { AnodeGroupSchema, DesignSchema, AssetSchema } from '../entities';
+await run('computePlans', (ctx) => computePlans(ctx, { assetIds: [asset] }));
+await run('loadGroupForecasts', (ctx) => loadGroupForecasts(ctx, { assetIds: [asset] }));
+await run('groups find', (ctx) => ctx.em.find(AnodeGroupSchema, { asset }, { populate: ['zone', 'asset'] }));
+await run('designs full', (ctx) => ctx.em.find(DesignSchema, { asset }));
+await run('listCatalogue', (ctx) => listCatalogue(ctx));
+await run('getAssetPage', (ctx) => getAssetPage(ctx, asset));
+await run('listFleet', (ctx) => listFleet(ctx, { page: 1, pageSize: 50, dir: 'asc', archived: '0' } as any));
+await orm.close(true);
