@@ -1,6 +1,6 @@
 'use client';
 
-import { useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 
 /**
  * A `<details>` whose content is rendered only once it is first opened (and kept after, so a half-filled form
@@ -10,8 +10,17 @@ import { useState, type ReactNode } from 'react';
 export function Disclosure({ summary, children, className, summaryClassName = 'cursor-pointer text-sm text-tide-600', defaultOpen = false, id }: { summary: ReactNode; children: ReactNode; className?: string; summaryClassName?: string; defaultOpen?: boolean; id?: string }) {
   const [open, setOpen] = useState(defaultOpen);
   const [rendered, setRendered] = useState(defaultOpen);
+  const ref = useRef<HTMLDetailsElement>(null);
+  // Opened before the page came to life (a click while it loaded): the toggle event was missed, so catch up.
+  useEffect(() => {
+    if (ref.current?.open) {
+      setOpen(true);
+      setRendered(true);
+    }
+  }, []);
   return (
     <details
+      ref={ref}
       id={id}
       className={className}
       open={open}
