@@ -15,9 +15,10 @@ import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
 import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
 import { describeStartupError } from './lib/describe-error';
+import { JOBS, SCHEDULES } from '../lib/server/scheduled-jobs';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
-export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest', billing: 'billing-reconcile', housekeeping: 'housekeeping' } as const;
+export { JOBS };
 
 async function main() {
   const env = getEnv();
@@ -26,8 +27,8 @@ async function main() {
   boss.on('error', (error) => console.error('[worker] job queue error:', error.message));
   await boss.start();
   for (const name of Object.values(JOBS)) await boss.createQueue(name);
-  await boss.schedule(JOBS.reminders, '*/15 * * * *', {}, { tz: 'UTC' });
-  await boss.schedule(JOBS.digest, '0 7 * * 1', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.reminders, SCHEDULES[JOBS.reminders], {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.digest, SCHEDULES[JOBS.digest], {}, { tz: 'UTC' });
   await boss.work(JOBS.reminders, async () => {
     const { queued } = await queueDockingReminders(orm.em.fork());
     if (queued) console.log(`[worker] docking reminders queued: ${queued}`);
@@ -40,7 +41,7 @@ async function main() {
   await boss.send(JOBS.reminders, {}, { singletonKey: 'startup', singletonSeconds: 300 });
   // Billing: the subscriptions are read back from the payment service every 10 minutes and once at
   // start, so that webhooks lost while the app was down (a cancellation, a failed payment) still count.
-  await boss.schedule(JOBS.billing, '*/10 * * * *', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.billing, SCHEDULES[JOBS.billing], {}, { tz: 'UTC' });
   await boss.work(JOBS.billing, async () => {
     const { checked, changed, failed } = await reconcileAllSubscriptions(orm.em.fork());
     if (changed || failed) console.log(`[worker] subscriptions reconciled: ${checked} checked, ${changed} repaired, ${failed} could not be checked`);
@@ -48,7 +49,7 @@ async function main() {
   await boss.send(JOBS.billing, {}, { singletonKey: 'startup', singletonSeconds: 60 });
   // Housekeeping, hourly: idempotency keys older than their window (48 h) answer no repeat any more, and
   // deleted surveys leave the bin once they can no longer be restored (30 days).
-  await boss.schedule(JOBS.housekeeping, '17 * * * *', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.housekeeping, SCHEDULES[JOBS.housekeeping], {}, { tz: 'UTC' });
   await boss.work(JOBS.housekeeping, async () => {
     const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());
     if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
