@@ -25,8 +25,15 @@ async function main() {
   const orm = await MikroORM.init(ormConfig(env.DATABASE_URL));
   const boss = new PgBoss({ connectionString: env.DATABASE_URL, schema: 'pgboss', max: 3 });
   boss.on('error', (error) => console.error('[worker] job queue error:', error.message));
-  await boss.start();
-  for (const name of Object.values(JOBS)) await boss.createQueue(name);
+  // pg-boss creates a queue's tables the first time it is asked for the queue, and two workers doing that at the
+  // same moment deadlock in PostgreSQL (each inserts its queue row, then each needs a lock on the queue table the
+  // other's insert holds), so one of them died at start on a fresh database. Workers take their start one at a
+  // time: a transaction-level advisory lock, held on a connection of the ORM while pg-boss works on its own.
+  await orm.em.fork().transactional(async (tx) => {
+    await tx.execute(`select pg_advisory_xact_lock(hashtext('tidewarden:worker-start'))`);
+    await boss.start();
+    for (const name of Object.values(JOBS)) await boss.createQueue(name);
+  });
   await boss.schedule(JOBS.reminders, SCHEDULES[JOBS.reminders], {}, { tz: 'UTC' });
   await boss.schedule(JOBS.digest, SCHEDULES[JOBS.digest], {}, { tz: 'UTC' });
   await boss.work(JOBS.reminders, async () => {

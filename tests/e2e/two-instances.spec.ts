@@ -25,8 +25,6 @@ function stopB() {
   if (instanceB && instanceB.exitCode === null && instanceB.signalCode === null) instanceB.kill('SIGTERM');
 }
 
-test.describe.configure({ mode: 'serial' });
-
 test.beforeAll(async () => {
   test.setTimeout(90_000);
   const distDir = process.env.E2E_DIST_DIR;
