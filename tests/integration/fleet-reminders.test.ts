@@ -74,4 +74,18 @@ describe('two workers running the docking reminders at the same moment', () => {
     expect(later.map((p) => p.queued)).toEqual([0, 0]);
     for (const r of recipients) expect(await inbox(r.user.email)).toHaveLength(1);
   });
+
+  it('recompute the renewal proposals one pass at a time: a proposal that falls due is made once, not once per pass', async () => {
+    // As when the forecast has moved on since the last change: the group is due at the docking but has no
+    // proposal yet, and both passes recompute it as of today before they render the list.
+    const vessel = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: `${vesselName} II`, hullMaterial: 'steel', lengthBppM: 60, beamM: 12, draughtM: 3.5, blockCoefficient: 0.6 }));
+    const group = await runAs(ctx('engineer'), (c) => createAnodeGroup(c, vessel.id, { label: 'Bottom', anodeModelKey: 'builtin:TW-AW-4020', quantity: 10, installedOn: day(-365), meanCurrentA: 5 }));
+    const docking = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: vessel.id, kind: 'intermediate', plannedStart: day(25), yard: 'Twin Yard' }));
+    await (await getEm()).nativeDelete(RenewalSchema, { group: group.id });
+
+    const passes = await atOnce(2, async () => queueDockingReminders(await getEm()));
+    expect(passes.reduce((sum, p) => sum + p.queued, 0)).toBe(2);
+    const proposals = await (await getEm()).find(RenewalSchema, { group: group.id });
+    expect(proposals.map((p) => [p.status, p.docking.id])).toEqual([['proposed', docking.id]]);
+  });
 });
