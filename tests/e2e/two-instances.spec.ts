@@ -29,6 +29,8 @@ test.beforeAll(async () => {
   test.setTimeout(90_000);
   const distDir = process.env.E2E_DIST_DIR;
   if (!distDir) throw new Error('E2E_DIST_DIR is not set: run this spec through npm test or scripts/dev/e2e.mjs, which build the app and name its folder.');
+  // Whatever answers on the port must be the instance started here, not something left running.
+  if (await fetch(new URL('/', urlB)).then(() => true, () => false)) throw new Error(`Port ${portB} (the second instance) is already in use: stop what runs there, or set E2E_SECOND_PORT to a free port.`);
   // Started the way scripts/lib/bootstrap.mjs starts the first: one Node process running next start.
   instanceB = spawn(process.execPath, [path.join(ROOT, 'node_modules', 'next', 'dist', 'bin', 'next'), 'start', '-H', '127.0.0.1', '-p', String(portB)], {
     cwd: ROOT,
