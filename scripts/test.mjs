@@ -40,7 +40,8 @@ async function main() {
     mailApi: portFrom('TIDEWARDEN_TEST_MAIL_API_PORT', 2626),
     stripe: portFrom('TIDEWARDEN_TEST_STRIPE_PORT', 12211),
   };
-  const { env, appUrl, cluster } = await bringUp({ mode: 'test', ports, cluster: 'test', database: 'tidewarden_e2e', freshDatabase: true, distDir: '.next-test' });
+  const distDir = '.next-test';
+  const { env, appUrl, cluster } = await bringUp({ mode: 'test', ports, cluster: 'test', database: 'tidewarden_e2e', freshDatabase: true, distDir });
 
   const counts = { passed: 0, failed: 0, skipped: 0 };
   const vitestJson = path.join(resultsDir, 'vitest.json');
@@ -66,6 +67,8 @@ async function main() {
   const e2eExit = runSuite('end-to-end', process.execPath, [path.join(root, 'node_modules', '@playwright', 'test', 'cli.js'), 'test', '-c', 'tests/e2e/playwright.config.ts'], {
     ...env,
     E2E_BASE_URL: appUrl,
+    // The build the app is served from: tests/e2e/two-instances.spec.ts starts a second instance of it.
+    E2E_DIST_DIR: distDir,
     PLAYWRIGHT_JSON_OUTPUT_NAME: playwrightJson,
   });
   const playwright = readJson(playwrightJson);

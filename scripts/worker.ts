@@ -16,19 +16,27 @@ import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surve
 import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
 import { refreshStaleOutlooks } from '../lib/server/services/planner/refresh-outlooks';
 import { describeStartupError } from './lib/describe-error';
+import { JOBS, SCHEDULES } from '../lib/server/scheduled-jobs';
 
 const INTERVAL_MS = Number(process.env.TIDEWARDEN_WORKER_INTERVAL_MS ?? 3000);
-export const JOBS = { reminders: 'docking-reminders', digest: 'weekly-digest', billing: 'billing-reconcile', housekeeping: 'housekeeping' } as const;
+export { JOBS };
 
 async function main() {
   const env = getEnv();
   const orm = await MikroORM.init(ormConfig(env.DATABASE_URL));
   const boss = new PgBoss({ connectionString: env.DATABASE_URL, schema: 'pgboss', max: 3 });
   boss.on('error', (error) => console.error('[worker] job queue error:', error.message));
-  await boss.start();
-  for (const name of Object.values(JOBS)) await boss.createQueue(name);
-  await boss.schedule(JOBS.reminders, '*/15 * * * *', {}, { tz: 'UTC' });
-  await boss.schedule(JOBS.digest, '0 7 * * 1', {}, { tz: 'UTC' });
+  // pg-boss creates a queue's tables the first time it is asked for the queue, and two workers doing that at the
+  // same moment deadlock in PostgreSQL (each inserts its queue row, then each needs a lock on the queue table the
+  // other's insert holds), so one of them died at start on a fresh database. Workers take their start one at a
+  // time: a transaction-level advisory lock, held on a connection of the ORM while pg-boss works on its own.
+  await orm.em.fork().transactional(async (tx) => {
+    await tx.execute(`select pg_advisory_xact_lock(hashtext('tidewarden:worker-start'))`);
+    await boss.start();
+    for (const name of Object.values(JOBS)) await boss.createQueue(name);
+  });
+  await boss.schedule(JOBS.reminders, SCHEDULES[JOBS.reminders], {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.digest, SCHEDULES[JOBS.digest], {}, { tz: 'UTC' });
   await boss.work(JOBS.reminders, async () => {
     const { queued } = await queueDockingReminders(orm.em.fork());
     if (queued) console.log(`[worker] docking reminders queued: ${queued}`);
@@ -41,7 +49,7 @@ async function main() {
   await boss.send(JOBS.reminders, {}, { singletonKey: 'startup', singletonSeconds: 300 });
   // Billing: the subscriptions are read back from the payment service every 10 minutes and once at
   // start, so that webhooks lost while the app was down (a cancellation, a failed payment) still count.
-  await boss.schedule(JOBS.billing, '*/10 * * * *', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.billing, SCHEDULES[JOBS.billing], {}, { tz: 'UTC' });
   await boss.work(JOBS.billing, async () => {
     const { checked, changed, failed } = await reconcileAllSubscriptions(orm.em.fork());
     if (changed || failed) console.log(`[worker] subscriptions reconciled: ${checked} checked, ${changed} repaired, ${failed} could not be checked`);
@@ -50,7 +58,7 @@ async function main() {
   // Housekeeping, hourly: idempotency keys older than their window (48 h) answer no repeat any more, and
   // deleted surveys leave the bin once they can no longer be restored (30 days), and the plan summaries the fleet
   // overview reads are brought to the new day (until then the overview computes a stale one on the spot).
-  await boss.schedule(JOBS.housekeeping, '17 * * * *', {}, { tz: 'UTC' });
+  await boss.schedule(JOBS.housekeeping, SCHEDULES[JOBS.housekeeping], {}, { tz: 'UTC' });
   await boss.send(JOBS.housekeeping, {}, { singletonKey: 'startup', singletonSeconds: 300 });
   await boss.work(JOBS.housekeeping, async () => {
     const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());

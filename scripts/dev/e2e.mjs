@@ -14,10 +14,11 @@ const ports = { pg: base, app: base + 1, smtp: base + 2, mailApi: base + 3, stri
 
 async function main() {
   onShutdown(stopAll);
-  const { env, appUrl } = await bringUp({ mode: 'test', ports, cluster: clusterName, database: `${clusterName}_e2e`, freshDatabase: true, stateName: clusterName, distDir: `.next-${clusterName}` });
+  const distDir = `.next-${clusterName}`;
+  const { env, appUrl } = await bringUp({ mode: 'test', ports, cluster: clusterName, database: `${clusterName}_e2e`, freshDatabase: true, stateName: clusterName, distDir });
   const result = spawnSync(process.execPath, [path.join(root, 'node_modules', '@playwright', 'test', 'cli.js'), 'test', '-c', 'tests/e2e/playwright.config.ts', ...process.argv.slice(2)], {
     cwd: root,
-    env: { ...env, E2E_BASE_URL: appUrl },
+    env: { ...env, E2E_BASE_URL: appUrl, E2E_DIST_DIR: distDir },
     stdio: 'inherit',
   });
   await stopAll();

@@ -5,6 +5,7 @@ import { getEnv } from '../../env';
 import { anodeListFor, anodeListPdf } from '../planner/anode-list';
 import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
+import { lockRow } from '../../sql';
 import { formatDateOnly, parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
 import { eventWords, forecastDateWords, statusWords, type EventWords } from '@/lib/labels';
 import type { AnodeList } from '@/lib/anode-list';
@@ -72,6 +73,10 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     const prepared = await runAsSystem(
       docking.organisation.id,
       async (ctx) => {
+        // One pass at a time per asset: two workers' passes at once (a start-up pass and a cron slot) each found
+        // no proposal for a group that had fallen due and each made one. The second now waits here and, once the
+        // first has committed, finds its proposal.
+        await lockRow(ctx.em, 'asset', docking.asset.id);
         const { plans } = await recomputeRenewals(ctx, [docking.asset.id], now);
         const { list } = await anodeListFor(ctx, docking.id);
         if (openLines(list).length) return await anodeListPdf(ctx, docking.id);
