@@ -13,6 +13,7 @@ import path from 'node:path';
 import zlib from 'node:zlib';
 import autocannon from 'autocannon';
 import { root, runTsForOutput, say } from './lib/bootstrap.mjs';
+import { runProblems, scriptSources, throughputVerdict, wrongAnswer } from './lib/bench-judge.mjs';
 
 const CONNECTIONS = 20;
 const LIST_TARGET = 0.35;
@@ -80,14 +81,6 @@ async function probe(appUrl, endpoint) {
   return { status: response.status, type: response.headers.get('content-type') ?? '', text, location: response.headers.get('location') };
 }
 
-/** Null when the response is what the endpoint should answer; otherwise why not. */
-function wrongAnswer(endpoint, answer) {
-  if (answer.status < 200 || answer.status > 299) return `status ${answer.status}${answer.location ? ` to ${answer.location}` : ''}`;
-  if (!answer.type.startsWith(endpoint.expectType)) return `content type ${answer.type || 'none'}, expected ${endpoint.expectType}`;
-  if (endpoint.check) return endpoint.check(answer.text);
-  return null;
-}
-
 async function measure(appUrl, endpoint, seconds) {
   const row = { label: endpoint.label, path: endpoint.path, kind: endpoint.kind, target: endpoint.target, problems: [] };
   try {
@@ -113,15 +106,7 @@ async function measure(appUrl, endpoint, seconds) {
     row.p50 = result.latency.p50;
     row.p99 = result.latency.p99;
     row.non2xx = result.non2xx;
-    row.errors = result.errors;
-    row.timeouts = result.timeouts;
-    if (result.non2xx) {
-      const codes = Object.entries(result.statusCodeStats ?? {}).filter(([code]) => !code.startsWith('2')).map(([code, { count }]) => `${count} x ${code}`);
-      row.problems.push(`${result.non2xx} non-2xx responses during the run (${codes.join(', ')})`);
-    }
-    if (result.errors || result.timeouts) row.problems.push(`${result.errors} errors, ${result.timeouts} timeouts during the run`);
-    if (!result.requests.total) row.problems.push(`no response came back within the ${seconds} s run (lengthen TIDEWARDEN_BENCH_HTTP_SECONDS)`);
-    else if (!result['2xx']) row.problems.push('no 2xx response during the run');
+    row.problems.push(...runProblems(result, seconds));
     const after = await probe(appUrl, endpoint);
     const wrongAfter = wrongAnswer(endpoint, after);
     if (wrongAfter) row.problems.push(`after the run: ${wrongAfter}`);
@@ -132,19 +117,6 @@ async function measure(appUrl, endpoint, seconds) {
 }
 
 // ---------- first-load JavaScript ----------
-/** The scripts a browser loads for the page: every <script src>, less the noModule polyfills a modern browser skips. */
-function scriptSources(html) {
-  const sources = new Set();
-  let skipped = 0;
-  for (const [tag] of html.matchAll(/<script\b[^>]*>/g)) {
-    const src = /\ssrc="([^"]+)"/.exec(tag)?.[1];
-    if (!src) continue;
-    if (/\snomodule\b/i.test(tag)) skipped++;
-    else sources.add(src.replace(/&amp;/g, '&'));
-  }
-  return { sources: [...sources], noModule: skipped };
-}
-
 async function firstLoad(appUrl, pages, cookie) {
   const chunkCache = new Map(); // src -> { raw, gzip } or { error }
   const chunk = async (src) => {
@@ -324,23 +296,10 @@ export async function runHttpBench({ appUrl, env, distDir }) {
   out('');
   const throughput = rows.map((r) => {
     const ran = r.requestsPerSecond !== undefined && r.total > 0;
-    const ratio = ran && reference ? r.requestsPerSecond / reference : null;
-    let result;
-    if (r.problems.length) {
-      result = 'FAILED';
-      failed++;
-    } else if (r.target === null) {
-      result = 'reference';
-    } else if (ratio === null) {
-      result = 'FAILED (no reference)';
-      failed++;
-    } else if (ratio >= r.target) {
-      result = 'met';
-      met++;
-    } else {
-      result = 'NOT met';
-      notMet++;
-    }
+    const { result, ratio } = throughputVerdict(r, reference);
+    if (result === 'met') met++;
+    else if (result === 'NOT met') notMet++;
+    else if (result !== 'reference') failed++;
     const non2xx = r.non2xx === undefined ? '-' : String(r.non2xx);
     return [r.label, ran ? fixed(r.requestsPerSecond, 1) : '-', ran ? String(r.p50) : '-', ran ? String(r.p99) : '-', non2xx, ratio === null ? '-' : fixed(ratio, 2), r.target === null ? '-' : `>= ${r.target}`, result];
   });
