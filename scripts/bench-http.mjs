@@ -1,7 +1,7 @@
 // The HTTP stage of `npm run bench` (called by scripts/bench.mjs once the production app is up on its own
 // ports, against a fresh database seeded with the demo scenario). Two measurements:
 //  1. throughput: autocannon, 20 connections, TIDEWARDEN_BENCH_HTTP_SECONDS (default 10) per endpoint, signed
-//     in as the demo owner. /api/health is measured first and last; the mean of the two is the reference, and
+//     in as the demo owner, after one unrecorded warm-up round (3 s per endpoint). /api/health is measured first and last; the mean of the two is the reference, and
 //     each row's requests/s is given as a ratio to it (machines differ; ratios compare). Targets: every JSON
 //     list API and the calculations POST >= 0.35 of health, the fleet and asset pages >= 0.25.
 //  2. first-load JavaScript of every page route: the distinct <script src> chunks its HTML references (what a
@@ -9,6 +9,7 @@
 // Every response's status is checked before and after each run: a redirect (to sign-in), a 4xx/5xx or an
 // error during the run makes the row FAILED instead of a fast number.
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import autocannon from 'autocannon';
@@ -19,6 +20,7 @@ const CONNECTIONS = 20;
 const LIST_TARGET = 0.35;
 const PAGE_TARGET = 0.25;
 const FIRST_LOAD_TARGET = 1.5;
+const WARMUP_SECONDS = 3;
 
 /** GET routes under app/api/orgs/[org] that answer a file or one record, not a list (so no list target). */
 const NOT_LISTS = {
@@ -251,6 +253,15 @@ export async function runHttpBench({ appUrl, env, distDir }) {
   const assetPage = get('asset page', `/o/${slug}/assets/${ids.assetId}`, 'page', PAGE_TARGET, 'text/html', html);
 
   const endpoints = [health(), ...lists, calculations, fleetPage, assetPage, { ...health(), label: '/api/health (again)' }];
+  // A freshly started server is slow until its code paths are compiled and its pools are filled: one unrecorded
+  // round over every endpoint first, so that the rows measured early (the first health among them) are not
+  // measured cold and the later ones warm.
+  const warmup = Math.min(WARMUP_SECONDS, seconds);
+  say(`Warming the server up: ${warmup} s per endpoint, not recorded...`);
+  for (const endpoint of endpoints) {
+    if (endpoint.error) continue;
+    await autocannon({ url: appUrl + endpoint.path, method: endpoint.method, headers: endpoint.headers, body: endpoint.body, connections: CONNECTIONS, duration: warmup, timeout: 30 });
+  }
   say(`Measuring ${endpoints.length} endpoints with autocannon, ${CONNECTIONS} connections, ${seconds} s each (about ${Math.ceil((endpoints.length * (seconds + 2)) / 60)} min)...`);
   const rows = [];
   for (const endpoint of endpoints) {
@@ -291,8 +302,12 @@ export async function runHttpBench({ appUrl, env, distDir }) {
   out('');
   out(`HTTP: autocannon, ${CONNECTIONS} connections, ${seconds} s per endpoint, signed in as the demo owner, against ${appUrl} (next start, production build in ${distDir}).`);
   out(
-    `/api/health: ${fixed(healthFirst.requestsPerSecond, 1)} requests/s first, ${fixed(healthLast.requestsPerSecond, 1)} last; reference (their mean) ${reference === null ? 'none: health FAILED' : `${fixed(reference, 1)} requests/s`}.`,
+    `/api/health: ${fixed(healthFirst.requestsPerSecond, 1)} requests/s first, ${fixed(healthLast.requestsPerSecond, 1)} last; reference (their mean) ${reference === null ? 'none: health FAILED' : `${fixed(reference, 1)} requests/s`}. Load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')} on ${os.cpus().length} cores.`,
   );
+  if (reference !== null) {
+    const drift = Math.abs(healthFirst.requestsPerSecond - healthLast.requestsPerSecond) / reference;
+    if (drift > 0.25) out(`Note: the two health runs differ by ${Math.round(drift * 100)} % of their mean: the machine's load changed during the run, so the ratios are uncertain by about that much.`);
+  }
   out('');
   const throughput = rows.map((r) => {
     const ran = r.requestsPerSecond !== undefined && r.total > 0;
