@@ -1,9 +1,10 @@
 // The HTTP stage of `npm run bench` (called by scripts/bench.mjs once the production app is up on its own
 // ports, against a fresh database seeded with the demo scenario). Two measurements:
 //  1. throughput: autocannon, 20 connections, TIDEWARDEN_BENCH_HTTP_SECONDS (default 10) per endpoint, signed
-//     in as the demo owner, after one unrecorded warm-up round (3 s per endpoint). /api/health is measured first and last; the mean of the two is the reference, and
-//     each row's requests/s is given as a ratio to it (machines differ; ratios compare). Targets: every JSON
-//     list API and the calculations POST >= 0.35 of health, the fleet and asset pages >= 0.25.
+//     in as the demo owner, after one unrecorded warm-up round (3 s per endpoint). /api/health is measured
+//     first and last; the mean of the two is the reference, and each row's requests/s is given as a ratio to
+//     it (machines differ; ratios compare). Targets: every JSON list API and the calculations POST >= 0.35 of
+//     health, the fleet and asset pages >= 0.25.
 //  2. first-load JavaScript of every page route: the distinct <script src> chunks its HTML references (what a
 //     browser loads before the page runs), raw and gzip; target <= 1.5 x the smallest route.
 // Every response's status is checked before and after each run: a redirect (to sign-in), a 4xx/5xx or an
