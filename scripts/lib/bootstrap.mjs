@@ -235,6 +235,11 @@ export function runTs(script, args, env, failure) {
   runOrFail(process.execPath, ['--import', `file://${tsxLoader()}`, script, ...args], failure, { env });
 }
 
+/** Runs a TypeScript script to completion like runTs, but returns what it wrote on stdout (stderr is shown). */
+export function runTsForOutput(script, args, env, failure) {
+  return runOrFail(process.execPath, ['--import', `file://${tsxLoader()}`, script, ...args], failure, { env, stdio: ['ignore', 'pipe', 'inherit'] }).stdout;
+}
+
 /** Starts a long-running child and records it for stopAll(). */
 export function startChild(name, command, args, env, { quiet = false } = {}) {
   const child = spawn(command, args, { cwd: root, env, stdio: quiet ? ['ignore', 'ignore', 'inherit'] : ['ignore', 'inherit', 'inherit'] });

@@ -9,7 +9,8 @@ export function demoSignIns() {
 
 /**
  * @param {{ mode: 'development'|'test', ports: { app:number, pg:number, smtp:number, mailApi:number, stripe:number },
- *           cluster: string, database: string, freshDatabase: boolean, distDir: string }} options
+ *           cluster: string, database: string, freshDatabase: boolean, distDir: string, stateName?: string,
+ *           portVariables?: { app?: string, smtp?: string, mailApi?: string, stripe?: string } }} options
  */
 /**
  * What the app and the fakes need to find each other on loopback: the SMTP fake and its inbox API,
@@ -38,10 +39,12 @@ export function fakesEnv({ ports, appUrl, stateName }) {
 
 export async function bringUp(options) {
   const { ports } = options;
-  await requireFreePort(ports.app, 'the web app', options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT');
-  await requireFreePort(ports.smtp, 'the SMTP fake', 'FAKE_SMTP_PORT');
-  await requireFreePort(ports.mailApi, 'the SMTP fake inbox', 'FAKE_MAIL_API_PORT');
-  await requireFreePort(ports.stripe, 'the Stripe fake', 'FAKE_STRIPE_PORT');
+  // The variables that choose each port, named when one is taken (the bench has its own).
+  const variables = { app: options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT', smtp: 'FAKE_SMTP_PORT', mailApi: 'FAKE_MAIL_API_PORT', stripe: 'FAKE_STRIPE_PORT', ...options.portVariables };
+  await requireFreePort(ports.app, 'the web app', variables.app);
+  await requireFreePort(ports.smtp, 'the SMTP fake', variables.smtp);
+  await requireFreePort(ports.mailApi, 'the SMTP fake inbox', variables.mailApi);
+  await requireFreePort(ports.stripe, 'the Stripe fake', variables.stripe);
 
   let databaseUrl = options.mode === 'development' ? process.env.DATABASE_URL : undefined;
   let cluster = null;
