@@ -1,7 +1,7 @@
 import { HOURS_PER_YEAR, MS_PER_YEAR, addMonthsUTC } from './dates';
 import { chargeAYears, constantProfile, currentAtA, meanCurrentA, readDemandProfile, yearsToCharge, type DemandProfile } from './demand-profile';
 import { ForecastInputError } from './errors';
-import { date, fraction, list, nonNegative, positive, record, unitFraction, whole } from './validate';
+import { date, fraction, isRecord, isValidDate, list, nonNegative, positive, record, unitFraction, whole } from './validate';
 
 /**
  * Depletion forecast of one installed anode group: when it is to be renewed (renewBy) and
@@ -265,30 +265,7 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const end = dateBand(m, fit, endFraction);
   const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
 
-  const startConsumed = consumedAt(m, startYears);
-  const remainingFractionAt = (at: Date): number => {
-    const t = date(at, 'date').getTime();
-    if (t >= start.t) return clamp01(start.f - fit.k * (consumedAt(m, (t - t0) / MS_PER_YEAR) - startConsumed));
-    return clamp01(historyAt(m.history, t));
-  };
-
-  const remainingSeries = (from: Date, to: Date, stepMonths: number): RemainingPoint[] => {
-    const a = date(from, 'from');
-    const b = date(to, 'to');
-    const step = whole(stepMonths, 'stepMonths', 1);
-    if (b.getTime() < a.getTime()) throw new ForecastInputError('to', 'to must not be before from.');
-    const out: RemainingPoint[] = [];
-    for (let k = 0; ; k++) {
-      const d = addMonthsUTC(a, k * step);
-      if (d.getTime() > b.getTime()) break;
-      if (out.length >= MAX_SERIES_POINTS) {
-        throw new ForecastInputError('stepMonths', `The series would exceed ${MAX_SERIES_POINTS} points; use a longer step.`);
-      }
-      out.push({ date: d, remainingFraction: remainingFractionAt(d) });
-    }
-    if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionAt(b) });
-    return out;
-  };
+  const curve: Curve = { m, start, k: fit.k, startConsumed: consumedAt(m, startYears) };
 
   const latest = kept.length > 0 ? kept[kept.length - 1] : null;
   const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
@@ -307,13 +284,56 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
     renewBy: renew.at,
     renewByEarly: renew.early,
     renewByLate: renew.late,
-    remainingFractionAt,
-    remainingMassKgAt: (at: Date) => remainingFractionAt(at) * installedMassKg,
-    remainingSeries,
+    // Methods rather than arrow functions: they share forecastGroup's one closure context, and
+    // transpilers that keep function names do not rename each of them on every call.
+    remainingFractionAt(at: Date): number {
+      return remainingFractionOn(curve, at);
+    },
+    remainingMassKgAt(at: Date): number {
+      return remainingFractionOn(curve, at) * installedMassKg;
+    },
+    remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+      return remainingSeriesOf(curve, from, to, stepMonths);
+    },
   };
   if (observedRateFrac !== undefined) forecast.observedRatePerYearKg = observedRateFrac * installedMassKg;
   if (designScaleA > 0) forecast.profileScale = fit.k / designScaleA;
   return forecast;
+}
+
+/** What the remaining fraction is read from: the model, the forecast's start point, its factor K. */
+interface Curve {
+  m: Model;
+  start: Point;
+  k: number;
+  /** The unit profile's consumed fraction at the start point. */
+  startConsumed: number;
+}
+
+/** GroupForecast.remainingFractionAt. */
+function remainingFractionOn(c: Curve, at: Date): number {
+  const t = date(at, 'date').getTime();
+  if (t >= c.start.t) return clamp01(c.start.f - c.k * (consumedAt(c.m, (t - c.m.t0) / MS_PER_YEAR) - c.startConsumed));
+  return clamp01(historyAt(c.m.history, t));
+}
+
+/** GroupForecast.remainingSeries. */
+function remainingSeriesOf(c: Curve, from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+  const a = date(from, 'from');
+  const b = date(to, 'to');
+  const step = whole(stepMonths, 'stepMonths', 1);
+  if (b.getTime() < a.getTime()) throw new ForecastInputError('to', 'to must not be before from.');
+  const out: RemainingPoint[] = [];
+  for (let k = 0; ; k++) {
+    const d = addMonthsUTC(a, k * step);
+    if (d.getTime() > b.getTime()) break;
+    if (out.length >= MAX_SERIES_POINTS) {
+      throw new ForecastInputError('stepMonths', `The series would exceed ${MAX_SERIES_POINTS} points; use a longer step.`);
+    }
+    out.push({ date: d, remainingFraction: remainingFractionOn(c, d) });
+  }
+  if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionOn(c, b) });
+  return out;
 }
 
 /** The unit profile's consumed fraction `years` after installation. */
@@ -352,17 +372,24 @@ function dateBand(m: Model, fit: Fit, target: number): DateBand {
 function readSurveys(value: unknown, installedOn: Date): Point[] {
   if (value === undefined || value === null) return [];
   const raw = list(value, 'surveys');
-  const points: Point[] = raw.map((s, i) => {
-    const r = record(s, `surveys[${i}]`);
-    const d = date(r.date, `surveys[${i}].date`);
-    if (d.getTime() < installedOn.getTime()) {
+  const installed = installedOn.getTime();
+  const points: Point[] = new Array(raw.length);
+  for (let i = 0; i < raw.length; i++) {
+    const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], `surveys[${i}]`);
+    const d = isValidDate(r.date) ? r.date : date(r.date, `surveys[${i}].date`);
+    if (d.getTime() < installed) {
       throw new ForecastInputError(`surveys[${i}].date`, `surveys[${i}].date must not be before installedOn.`);
     }
-    return { t: d.getTime(), f: fraction(r.remainingFraction, `surveys[${i}].remainingFraction`) };
-  });
+    const f = r.remainingFraction;
+    points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`) };
+  }
+  if (points.length < 2) return points;
   points.sort((a, b) => a.t - b.t || a.f - b.f);
   // Same instant: keep the first after sorting, the lowest fraction.
-  return points.filter((p, i) => i === 0 || p.t !== points[i - 1].t);
+  let n = 1;
+  for (let i = 1; i < points.length; i++) if (points[i].t !== points[n - 1].t) points[n++] = points[i];
+  points.length = n;
+  return points;
 }
 
 /**
@@ -374,7 +401,9 @@ function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
   let sumPP = 0;
   let sumCP = 0;
   let sumP = 0;
-  const spread = { low: Infinity, high: 0 };
+  // The spread of the single-survey and interval factors; positive, finite factors only.
+  let spreadLow = Infinity;
+  let spreadHigh = 0;
   for (let i = 0; i < kept.length; i++) {
     const s = kept[i];
     if (s.years >= MIN_SURVEY_BASELINE_YEARS && s.p > 0) {
@@ -382,25 +411,25 @@ function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
       sumPP += s.p * s.p;
       sumCP += consumed * s.p;
       sumP += s.p;
-      widen(spread, consumed / s.p); // this survey's own factor
+      const factor = consumed / s.p; // this survey's own factor
+      if (factor > 0 && Number.isFinite(factor)) {
+        spreadLow = Math.min(spreadLow, factor);
+        spreadHigh = Math.max(spreadHigh, factor);
+      }
     }
     const before = i > 0 ? kept[i - 1] : null;
     if (before !== null && s.years - before.years >= MIN_SURVEY_BASELINE_YEARS && s.p > before.p) {
-      widen(spread, (before.f - s.f) / (s.p - before.p)); // the interval since the survey before
+      const factor = (before.f - s.f) / (s.p - before.p); // the interval since the survey before
+      if (factor > 0 && Number.isFinite(factor)) {
+        spreadLow = Math.min(spreadLow, factor);
+        spreadHigh = Math.max(spreadHigh, factor);
+      }
     }
   }
   if (!(sumPP > 0)) return { k: designScaleA, low: (1 - BAND_FRACTION) * designScaleA, high: (1 + BAND_FRACTION) * designScaleA };
   const k = sumCP / sumPP;
   const reading = (READING_UNCERTAINTY * sumP) / sumPP;
-  return { k, low: Math.min(Math.max(0, k - reading), spread.low), high: Math.max(k + reading, spread.high) };
-}
-
-/** Widens the range to take in a positive, finite factor; others are ignored. */
-function widen(range: { low: number; high: number }, factor: number): void {
-  if (factor > 0 && Number.isFinite(factor)) {
-    range.low = Math.min(range.low, factor);
-    range.high = Math.max(range.high, factor);
-  }
+  return { k, low: Math.min(Math.max(0, k - reading), spreadLow), high: Math.max(k + reading, spreadHigh) };
 }
 
 /**
