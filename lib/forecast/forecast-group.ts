@@ -210,6 +210,9 @@ interface Model {
   fractionPerAYear: number;
   /** Installation (fraction 1), then the surveys kept. */
   history: Point[];
+  /** Where the forecast starts (the last point of the history): its years since installation and the unit profile's charge then (A x years). */
+  anchorYears: number;
+  anchorCharge: number;
 }
 
 interface DateBand {
@@ -247,25 +250,34 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
     t0,
     unit: designScaleA > 0 ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears } : constantProfile(1),
     fractionPerAYear: HOURS_PER_YEAR / (eps * installedMassKg),
-    history: [{ t: t0, f: 1 }],
+    history: [],
+    anchorYears: 0,
+    anchorCharge: 0,
   };
 
   // Rule 1: readings of no loss are set aside; the rest, with the unit profile's consumption.
-  const kept: SurveyPoint[] = [];
-  for (const r of readings) {
+  let keptCount = 0;
+  for (let i = 0; i < readings.length; i++) if (readings[i].f < 1) keptCount++;
+  const kept: SurveyPoint[] = new Array(keptCount);
+  m.history = new Array(keptCount + 1);
+  m.history[0] = { t: t0, f: 1 };
+  for (let i = 0, j = 0; i < readings.length; i++) {
+    const r = readings[i];
     if (r.f >= 1) continue;
     const years = (r.t - t0) / MS_PER_YEAR;
     const point = { t: r.t, f: r.f, years, p: consumedAt(m, years) };
-    kept.push(point);
-    m.history.push(point);
+    kept[j++] = point;
+    m.history[j] = point;
   }
-  const start = m.history[m.history.length - 1];
+  const start = m.history[keptCount];
   const startYears = (start.t - t0) / MS_PER_YEAR;
+  m.anchorYears = startYears;
+  m.anchorCharge = chargeAYears(m.unit, startYears);
   const fit = fitScale(kept, designScaleA);
   const end = dateBand(m, fit, endFraction);
   const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
 
-  const curve: Curve = { m, start, k: fit.k, startConsumed: consumedAt(m, startYears) };
+  const curve: Curve = { m, start, k: fit.k, startConsumed: m.fractionPerAYear * m.anchorCharge };
 
   const latest = kept.length > 0 ? kept[kept.length - 1] : null;
   const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
@@ -352,9 +364,8 @@ function reach(m: Model, delta: number, k: number, target: number): number | nul
   const anchorF = m.history.length > 1 ? clamp01(anchor.f + delta) : anchor.f;
   if (anchorF <= target) return Math.round(firstCrossing(m.history, target, delta));
   if (!(k > 0)) return null;
-  const anchorYears = (anchor.t - m.t0) / MS_PER_YEAR;
-  const years = yearsToCharge(m.unit, chargeAYears(m.unit, anchorYears) + (anchorF - target) / (k * m.fractionPerAYear));
-  if (!(years - anchorYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
+  const years = yearsToCharge(m.unit, m.anchorCharge + (anchorF - target) / (k * m.fractionPerAYear));
+  if (!(years - m.anchorYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
   return Math.max(anchor.t, Math.round(m.t0 + years * MS_PER_YEAR));
 }
 
@@ -437,11 +448,14 @@ function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
  * (within 0..1; installation stays at 1), reaches fraction `target` < 1; it ends at or below it.
  */
 function firstCrossing(history: readonly Point[], target: number, delta: number): number {
-  let a = history[0];
+  let aT = history[0].t;
+  let aF = history[0].f;
   for (let i = 1; i < history.length; i++) {
-    const b = { t: history[i].t, f: clamp01(history[i].f + delta) };
-    if (a.f > target && b.f <= target) return a.t + ((a.f - target) / (a.f - b.f)) * (b.t - a.t);
-    a = b;
+    const bT = history[i].t;
+    const bF = clamp01(history[i].f + delta);
+    if (aF > target && bF <= target) return aT + ((aF - target) / (aF - bF)) * (bT - aT);
+    aT = bT;
+    aF = bF;
   }
   // Unreachable: history starts at 1 > target and ends at or below it.
   return history[history.length - 1].t;
