@@ -395,12 +395,34 @@ function readSurveys(value: unknown, installedOn: Date): Point[] {
     points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`) };
   }
   if (points.length < 2) return points;
-  points.sort((a, b) => a.t - b.t || a.f - b.f);
+  sortByTimeThenFraction(points);
   // Same instant: keep the first after sorting, the lowest fraction.
   let n = 1;
   for (let i = 1; i < points.length; i++) if (points[i].t !== points[n - 1].t) points[n++] = points[i];
   points.length = n;
   return points;
+}
+
+const byTimeThenFraction = (a: Point, b: Point) => a.t - b.t || a.f - b.f;
+
+/**
+ * Sorts in place by time, then fraction; stable. A few surveys (the usual case) by insertion,
+ * which gives the same order as Array.prototype.sort without its work array.
+ */
+function sortByTimeThenFraction(points: Point[]): void {
+  if (points.length > 16) {
+    points.sort(byTimeThenFraction);
+    return;
+  }
+  for (let i = 1; i < points.length; i++) {
+    const p = points[i];
+    let j = i - 1;
+    while (j >= 0 && byTimeThenFraction(points[j], p) > 0) {
+      points[j + 1] = points[j];
+      j--;
+    }
+    points[j + 1] = p;
+  }
 }
 
 /**
