@@ -151,6 +151,10 @@ interface Settings {
   intervalMonths: number;
   /** formatDateOnly of an instant (ms), remembered per UTC day for the length of one call. */
   dayText: (ms: number) => string;
+  /** '6 months' */
+  marginText: string;
+  /** ' (renew by 3 May 2029 less 6 months)': why the deadline is where it is, remembered per due day for one call. */
+  becauseText: (onRenewBy: boolean, dueMs: number) => string;
 }
 
 interface PreparedDockings {
@@ -185,7 +189,25 @@ function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
     inp.typicalIntervalMonths === undefined
       ? DEFAULT_TYPICAL_INTERVAL_MONTHS
       : whole(inp.typicalIntervalMonths, `${prefix}typicalIntervalMonths`, 1, 120);
-  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText: dayTextCache() };
+  const dayText = dayTextCache();
+  const marginText = `${marginMonths} month${marginMonths === 1 ? '' : 's'}`;
+  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText, marginText, becauseText: becauseTextCache(dayText, marginText) };
+}
+
+/** The parenthesis after a deadline, by due date kind and UTC day, each built once per call (most groups share their due day with others). */
+function becauseTextCache(dayText: (ms: number) => string, marginText: string): (onRenewBy: boolean, dueMs: number) => string {
+  const onRenewBy = new Map<number, string>();
+  const onEndOfLife = new Map<number, string>();
+  return (renewBy, dueMs) => {
+    const byDay = renewBy ? onRenewBy : onEndOfLife;
+    const dayNumber = Math.floor(dueMs / MS_PER_DAY);
+    let words = byDay.get(dayNumber);
+    if (words === undefined) {
+      words = ` (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
+      byDay.set(dayNumber, words);
+    }
+    return words;
+  };
 }
 
 /**
@@ -271,8 +293,10 @@ interface AssetPlan {
   unplanned: string;
   /** Rule 6's horizon, ms. */
   horizon: number;
-  horizonText: string;
-  marginText: string;
+  /** Rule 7's sentence up to the deadline, per candidate docking: 'Renew at the docking of 4 Jun 2029, the last docking before the deadline '. */
+  renewAtText: string[];
+  /** Rule 6's sentence after the deadline and its parenthesis. */
+  soundText: string;
 }
 
 /** A group's validated inputs. */
@@ -290,6 +314,7 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
   const docks = prepareDockings(dockingsValue, s.todayDay, prefix);
   const n = docks.times.length;
   const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
+  const horizonText = n > 0 ? `the last planned ${ev} (${s.dayText(docks.times[n - 1])})` : `today, with no ${ev} planned`;
   const plan: AssetPlan = {
     s,
     docks,
@@ -299,8 +324,8 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     evs,
     unplanned,
     horizon: addMonthsMs(horizonBase.getTime(), s.intervalMonths),
-    horizonText: n > 0 ? `the last planned ${ev} (${s.dayText(docks.times[n - 1])})` : `today, with no ${ev} planned`,
-    marginText: `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`,
+    renewAtText: docks.ids.map((_, k) => `Renew at the ${ev} of ${s.dayText(docks.times[k])}, the last ${ev} before the deadline `),
+    soundText: ` is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
   };
   const proposals: RenewalProposal[] = new Array(groups.length);
   for (let i = 0; i < groups.length; i++) proposals[i] = proposeForGroup(plan, readGroup(groups[i], prefix, i));
@@ -332,13 +357,14 @@ function readGroup(g: unknown, prefix: string, i: number): GroupDue {
 
 /** Rules 1-9 for one group (dates as epoch ms, each day's words formatted once per call). */
 function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirmedId }: GroupDue): RenewalProposal {
-  const { s, docks, n, ev, unplanned, marginText } = a;
+  const { s, docks, n, ev, unplanned } = a;
+  const marginText = s.marginText;
   const day = s.dayText;
   const dueWords = DUE_WORDS[onRenewBy ? 'renewBy' : 'endOfLife'];
   const dueMs = due === null ? NaN : due.getTime();
   const deadlineMs = due === null ? NaN : addMonthsMs(dueMs, -s.marginMonths);
   const deadline = due === null ? null : new Date(deadlineMs);
-  const because = due === null ? '' : ` (${dueWords} ${day(dueMs)} less ${marginText})`;
+  const because = due === null ? '' : s.becauseText(onRenewBy, dueMs);
 
   // Rule 1: a confirmed renewal is kept as it is.
   if (confirmedId !== null) {
@@ -401,7 +427,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
       status: 'sound',
       deadline,
       nextReviewBy: deadline,
-      reason: `The deadline ${deadlineText}${because} is more than ${s.intervalMonths} months after ${a.horizonText}, so nothing needs booking yet.`,
+      reason: `The deadline ${deadlineText}${because}${a.soundText}`,
     };
   }
 
@@ -409,7 +435,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
   const k = lastAtOrBefore(docks.times, deadlineMs);
   if (k >= 0) {
     const earlyDeadlineMs = early === null ? NaN : addMonthsMs(early.getTime(), -s.marginMonths);
-    const lastBefore = `Renew at the ${ev} of ${day(docks.times[k])}, the last ${ev} before the deadline ${deadlineText}${because}`;
+    const lastBefore = `${a.renewAtText[k]}${deadlineText}${because}`;
     if (early !== null && docks.times[k] > earlyDeadlineMs) {
       return {
         groupId,
