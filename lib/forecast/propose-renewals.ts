@@ -153,8 +153,11 @@ interface Settings {
   dayText: (ms: number) => string;
   /** '6 months' */
   marginText: string;
-  /** ' (renew by 3 May 2029 less 6 months)': why the deadline is where it is, remembered per due day for one call. */
-  becauseText: (onRenewBy: boolean, dueMs: number) => string;
+  /**
+   * '3 Nov 2028 (renew by 3 May 2029 less 6 months)': the deadline and why it is there, remembered per
+   * due day for one call (the deadline's day follows from the due date's day).
+   */
+  deadlineWords: (onRenewBy: boolean, dueMs: number, deadlineMs: number) => string;
 }
 
 interface PreparedDockings {
@@ -191,19 +194,19 @@ function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
       : whole(inp.typicalIntervalMonths, `${prefix}typicalIntervalMonths`, 1, 120);
   const dayText = dayTextCache();
   const marginText = `${marginMonths} month${marginMonths === 1 ? '' : 's'}`;
-  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText, marginText, becauseText: becauseTextCache(dayText, marginText) };
+  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText, marginText, deadlineWords: deadlineWordsCache(dayText, marginText) };
 }
 
-/** The parenthesis after a deadline, by due date kind and UTC day, each built once per call (most groups share their due day with others). */
-function becauseTextCache(dayText: (ms: number) => string, marginText: string): (onRenewBy: boolean, dueMs: number) => string {
+/** Settings.deadlineWords: by due date kind and UTC day, each built once per call (most groups share their due day with others). */
+function deadlineWordsCache(dayText: (ms: number) => string, marginText: string): Settings['deadlineWords'] {
   const onRenewBy = new Map<number, string>();
   const onEndOfLife = new Map<number, string>();
-  return (renewBy, dueMs) => {
+  return (renewBy, dueMs, deadlineMs) => {
     const byDay = renewBy ? onRenewBy : onEndOfLife;
     const dayNumber = Math.floor(dueMs / MS_PER_DAY);
     let words = byDay.get(dayNumber);
     if (words === undefined) {
-      words = ` (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
+      words = `${dayText(deadlineMs)} (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
       byDay.set(dayNumber, words);
     }
     return words;
@@ -364,7 +367,6 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
   const dueMs = due === null ? NaN : due.getTime();
   const deadlineMs = due === null ? NaN : addMonthsMs(dueMs, -s.marginMonths);
   const deadline = due === null ? null : new Date(deadlineMs);
-  const because = due === null ? '' : s.becauseText(onRenewBy, dueMs);
 
   // Rule 1: a confirmed renewal is kept as it is.
   if (confirmedId !== null) {
@@ -381,7 +383,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     if (!booked) out.warning = `The confirmed renewal's ${ev} is not among this asset's ${a.evs}.`;
     else if (booked.status === 'cancelled') out.warning = `The ${ev} of ${bookedText} has been cancelled; the renewal needs another ${ev}.`;
     else if (deadline && booked.date.getTime() > deadlineMs) {
-      out.warning = `The ${ev} of ${bookedText} is after the deadline ${day(deadlineMs)}${because}.`;
+      out.warning = `The ${ev} of ${bookedText} is after the deadline ${s.deadlineWords(onRenewBy, dueMs, deadlineMs)}.`;
     }
     return out;
   }
@@ -392,13 +394,13 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
   }
 
-  const dueText = `${dueWords} ${day(dueMs)}`;
-  const deadlineText = day(deadlineMs);
+  const deadlineWords = s.deadlineWords(onRenewBy, dueMs, deadlineMs);
   const needs = unplanned === 'a diving campaign' ? 'a campaign' : 'a docking';
 
   // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
   if (Math.floor(deadlineMs / MS_PER_DAY) < s.todayDay) {
-    const overdueWords = `The renewal deadline ${deadlineText}${because} has passed`;
+    const overdueWords = `The renewal deadline ${deadlineWords} has passed`;
+    const dueText = `${dueWords} ${day(dueMs)}`;
     const asap = (why: string) => ({ by: s.today, reason: `${why}: plan ${unplanned} as soon as possible (from ${day(s.today.getTime())}).` });
     if (n > 0) {
       const dockingText = day(docks.times[0]);
@@ -427,7 +429,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
       status: 'sound',
       deadline,
       nextReviewBy: deadline,
-      reason: `The deadline ${deadlineText}${because}${a.soundText}`,
+      reason: `The deadline ${deadlineWords}${a.soundText}`,
     };
   }
 
@@ -435,7 +437,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
   const k = lastAtOrBefore(docks.times, deadlineMs);
   if (k >= 0) {
     const earlyDeadlineMs = early === null ? NaN : addMonthsMs(early.getTime(), -s.marginMonths);
-    const lastBefore = `${a.renewAtText[k]}${deadlineText}${because}`;
+    const lastBefore = `${a.renewAtText[k]}${deadlineWords}`;
     if (early !== null && docks.times[k] > earlyDeadlineMs) {
       return {
         groupId,
@@ -450,6 +452,8 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     return { groupId, status: 'proposed', dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline, reason: `${lastBefore}.` };
   }
 
+  const dueText = `${dueWords} ${day(dueMs)}`;
+
   // Rule 8: the first candidate after the deadline that is still on or before the due date (inside the margin).
   if (n > 0 && docks.times[0] <= dueMs) {
     return {
@@ -459,7 +463,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
       dockingDate: docks.dates[0],
       deadline,
       withinMargin: true,
-      reason: `Renew at the ${ev} of ${day(docks.times[0])}: no ${ev} falls before the deadline ${deadlineText}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
+      reason: `Renew at the ${ev} of ${day(docks.times[0])}: no ${ev} falls before the deadline ${deadlineWords}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
     };
   }
 
@@ -471,7 +475,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     deadline,
     needsDockingBy: deadline,
     overdue: false,
-    earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan ${unplanned} by ${deadlineText} (the ${dueText} less ${marginText}).` },
-    reason: `No planned ${ev} falls on or before the deadline ${deadlineText}${because}, and ${next}, so the group needs ${needs} by the deadline.`,
+    earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan ${unplanned} by ${day(deadlineMs)} (the ${dueText} less ${marginText}).` },
+    reason: `No planned ${ev} falls on or before the deadline ${deadlineWords}, and ${next}, so the group needs ${needs} by the deadline.`,
   };
 }
