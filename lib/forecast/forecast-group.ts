@@ -210,10 +210,19 @@ interface Model {
   fractionPerAYear: number;
   /** Installation (fraction 1), then the surveys kept. */
   history: Point[];
-  /** Where the forecast starts (the last point of the history): its years since installation and the unit profile's charge then (A x years). */
-  anchorYears: number;
-  anchorCharge: number;
+  /** Where the forecast starts: the last point of the history. */
+  start: Point;
+  /** The start's years since installation, and the unit profile's charge by then (A x years). */
+  startYears: number;
+  startCharge: number;
+  /** The unit profile's consumed fraction at the start. */
+  startConsumed: number;
+  /** The fitted factor K (A, on the unit profile) the forecast goes on at. */
+  k: number;
 }
+
+/** The unit profile of a constant current (and of a design without current): 1 A throughout. */
+const CONSTANT_UNIT_PROFILE: DemandProfile = constantProfile(1);
 
 interface DateBand {
   at: Date | null;
@@ -248,11 +257,18 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const t0 = installedOn.getTime();
   const m: Model = {
     t0,
-    unit: designScaleA > 0 ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears } : constantProfile(1),
+    // A constant current c scales to c / c = 1 A exactly: the shared constant profile.
+    unit:
+      hasProfile && designScaleA > 0
+        ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears }
+        : CONSTANT_UNIT_PROFILE,
     fractionPerAYear: HOURS_PER_YEAR / (eps * installedMassKg),
     history: [],
-    anchorYears: 0,
-    anchorCharge: 0,
+    start: { t: t0, f: 1 },
+    startYears: 0,
+    startCharge: 0,
+    startConsumed: 0,
+    k: 0,
   };
 
   // Rule 1: readings of no loss are set aside; the rest, with the unit profile's consumption.
@@ -260,24 +276,25 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   for (let i = 0; i < readings.length; i++) if (readings[i].f < 1) keptCount++;
   const kept: SurveyPoint[] = new Array(keptCount);
   m.history = new Array(keptCount + 1);
-  m.history[0] = { t: t0, f: 1 };
+  m.history[0] = m.start;
   for (let i = 0, j = 0; i < readings.length; i++) {
-    const r = readings[i];
-    if (r.f >= 1) continue;
-    const years = (r.t - t0) / MS_PER_YEAR;
-    const point = { t: r.t, f: r.f, years, p: consumedAt(m, years) };
+    const point = readings[i];
+    if (point.f >= 1) continue;
+    point.years = (point.t - t0) / MS_PER_YEAR;
+    point.p = consumedAt(m, point.years);
     kept[j++] = point;
     m.history[j] = point;
   }
   const start = m.history[keptCount];
   const startYears = (start.t - t0) / MS_PER_YEAR;
-  m.anchorYears = startYears;
-  m.anchorCharge = chargeAYears(m.unit, startYears);
+  m.start = start;
+  m.startYears = startYears;
+  m.startCharge = chargeAYears(m.unit, startYears);
+  m.startConsumed = m.fractionPerAYear * m.startCharge;
   const fit = fitScale(kept, designScaleA);
+  m.k = fit.k;
   const end = dateBand(m, fit, endFraction);
   const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
-
-  const curve: Curve = { m, start, k: fit.k, startConsumed: m.fractionPerAYear * m.anchorCharge };
 
   const latest = kept.length > 0 ? kept[kept.length - 1] : null;
   const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
@@ -299,13 +316,13 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
     // Methods rather than arrow functions: they share forecastGroup's one closure context, and
     // transpilers that keep function names do not rename each of them on every call.
     remainingFractionAt(at: Date): number {
-      return remainingFractionOn(curve, at);
+      return remainingFractionOn(m, at);
     },
     remainingMassKgAt(at: Date): number {
-      return remainingFractionOn(curve, at) * installedMassKg;
+      return remainingFractionOn(m, at) * installedMassKg;
     },
     remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[] {
-      return remainingSeriesOf(curve, from, to, stepMonths);
+      return remainingSeriesOf(m, from, to, stepMonths);
     },
   };
   if (observedRateFrac !== undefined) forecast.observedRatePerYearKg = observedRateFrac * installedMassKg;
@@ -313,24 +330,15 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   return forecast;
 }
 
-/** What the remaining fraction is read from: the model, the forecast's start point, its factor K. */
-interface Curve {
-  m: Model;
-  start: Point;
-  k: number;
-  /** The unit profile's consumed fraction at the start point. */
-  startConsumed: number;
-}
-
 /** GroupForecast.remainingFractionAt. */
-function remainingFractionOn(c: Curve, at: Date): number {
+function remainingFractionOn(m: Model, at: Date): number {
   const t = date(at, 'date').getTime();
-  if (t >= c.start.t) return clamp01(c.start.f - c.k * (consumedAt(c.m, (t - c.m.t0) / MS_PER_YEAR) - c.startConsumed));
-  return clamp01(historyAt(c.m.history, t));
+  if (t >= m.start.t) return clamp01(m.start.f - m.k * (consumedAt(m, (t - m.t0) / MS_PER_YEAR) - m.startConsumed));
+  return clamp01(historyAt(m.history, t));
 }
 
 /** GroupForecast.remainingSeries. */
-function remainingSeriesOf(c: Curve, from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+function remainingSeriesOf(m: Model, from: Date, to: Date, stepMonths: number): RemainingPoint[] {
   const a = date(from, 'from');
   const b = date(to, 'to');
   const step = whole(stepMonths, 'stepMonths', 1);
@@ -342,9 +350,9 @@ function remainingSeriesOf(c: Curve, from: Date, to: Date, stepMonths: number): 
     if (out.length >= MAX_SERIES_POINTS) {
       throw new ForecastInputError('stepMonths', `The series would exceed ${MAX_SERIES_POINTS} points; use a longer step.`);
     }
-    out.push({ date: d, remainingFraction: remainingFractionOn(c, d) });
+    out.push({ date: d, remainingFraction: remainingFractionOn(m, d) });
   }
-  if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionOn(c, b) });
+  if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionOn(m, b) });
   return out;
 }
 
@@ -364,8 +372,8 @@ function reach(m: Model, delta: number, k: number, target: number): number | nul
   const anchorF = m.history.length > 1 ? clamp01(anchor.f + delta) : anchor.f;
   if (anchorF <= target) return Math.round(firstCrossing(m.history, target, delta));
   if (!(k > 0)) return null;
-  const years = yearsToCharge(m.unit, m.anchorCharge + (anchorF - target) / (k * m.fractionPerAYear));
-  if (!(years - m.anchorYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
+  const years = yearsToCharge(m.unit, m.startCharge + (anchorF - target) / (k * m.fractionPerAYear));
+  if (!(years - m.startYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
   return Math.max(anchor.t, Math.round(m.t0 + years * MS_PER_YEAR));
 }
 
@@ -379,12 +387,15 @@ function dateBand(m: Model, fit: Fit, target: number): DateBand {
   return { at: new Date(at), early: new Date(Math.min(early ?? at, at)), late: late === null ? null : new Date(Math.max(late, at)) };
 }
 
-/** Validated surveys as history points, sorted by time, one per instant (lowest reading). */
-function readSurveys(value: unknown, installedOn: Date): Point[] {
+/**
+ * Validated surveys as history points, sorted by time, one per instant (lowest reading); `years`
+ * and `p` are filled in for the surveys kept.
+ */
+function readSurveys(value: unknown, installedOn: Date): SurveyPoint[] {
   if (value === undefined || value === null) return [];
   const raw = list(value, 'surveys');
   const installed = installedOn.getTime();
-  const points: Point[] = new Array(raw.length);
+  const points: SurveyPoint[] = new Array(raw.length);
   for (let i = 0; i < raw.length; i++) {
     const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], `surveys[${i}]`);
     const d = isValidDate(r.date) ? r.date : date(r.date, `surveys[${i}].date`);
@@ -392,7 +403,7 @@ function readSurveys(value: unknown, installedOn: Date): Point[] {
       throw new ForecastInputError(`surveys[${i}].date`, `surveys[${i}].date must not be before installedOn.`);
     }
     const f = r.remainingFraction;
-    points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`) };
+    points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`), years: 0, p: 0 };
   }
   if (points.length < 2) return points;
   sortByTimeThenFraction(points);
@@ -409,7 +420,7 @@ const byTimeThenFraction = (a: Point, b: Point) => a.t - b.t || a.f - b.f;
  * Sorts in place by time, then fraction; stable. A few surveys (the usual case) by insertion,
  * which gives the same order as Array.prototype.sort without its work array.
  */
-function sortByTimeThenFraction(points: Point[]): void {
+function sortByTimeThenFraction(points: SurveyPoint[]): void {
   if (points.length > 16) {
     points.sort(byTimeThenFraction);
     return;
