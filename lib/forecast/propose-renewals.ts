@@ -235,26 +235,34 @@ function prepareDockings(value: unknown, todayDay: number, prefix: string): Prep
   const raw = list(value, `${prefix}dockings`);
   const byId = new Map<string, { date: Date; status: DockingStatus }>();
   const candidates: { id: string; date: Date }[] = [];
-  raw.forEach((d, i) => {
-    const field = `${prefix}dockings[${i}]`;
-    const r = record(d, field);
-    const id = text(r.id, `${field}.id`);
-    const when = date(r.date, `${field}.date`);
+  /** The error path of the i-th docking, built only to refuse a value. */
+  const field = (i: number) => `${prefix}dockings[${i}]`;
+  for (let i = 0; i < raw.length; i++) {
+    const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], field(i));
+    const id = isText(r.id) ? r.id : text(r.id, `${field(i)}.id`);
+    const when = isValidDate(r.date) ? r.date : date(r.date, `${field(i)}.date`);
     let status: DockingStatus = 'planned';
     if (r.status !== undefined) {
       if (typeof r.status !== 'string' || !(DOCKING_STATUSES as readonly string[]).includes(r.status)) {
-        throw new ForecastInputError(`${field}.status`, `${field}.status must be one of 'planned', 'done', 'cancelled'.`);
+        throw new ForecastInputError(`${field(i)}.status`, `${field(i)}.status must be one of 'planned', 'done', 'cancelled'.`);
       }
       status = r.status as DockingStatus;
     }
-    if (byId.has(id)) throw new ForecastInputError(`${field}.id`, `${field}.id ${JSON.stringify(id)} appears twice.`);
+    if (byId.has(id)) throw new ForecastInputError(`${field(i)}.id`, `${field(i)}.id ${JSON.stringify(id)} appears twice.`);
     byId.set(id, { date: when, status });
     if (status === 'planned' && dayNumberUTC(when) >= todayDay) candidates.push({ id, date: when });
-  });
+  }
   candidates.sort((a, b) => a.date.getTime() - b.date.getTime() || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const times = new Float64Array(candidates.length);
-  candidates.forEach((c, i) => (times[i] = c.date.getTime()));
-  return { byId, ids: candidates.map((c) => c.id), dates: candidates.map((c) => c.date), times };
+  const n = candidates.length;
+  const ids: string[] = new Array(n);
+  const dates: Date[] = new Array(n);
+  const times = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    ids[k] = candidates[k].id;
+    dates[k] = candidates[k].date;
+    times[k] = candidates[k].date.getTime();
+  }
+  return { byId, ids, dates, times };
 }
 
 /** Index of the last time <= t, or -1. */
