@@ -215,8 +215,8 @@ function deadlineWordsCache(dayText: (ms: number) => string, marginText: string)
 
 /**
  * formatDateOnly by UTC day number, each day formatted once: a fleet's sentences name the same
- * few hundred days (dockings, deadlines) thousands of times. One cache per call, so it is bounded
- * by the call's input.
+ * days again and again (15,000 groups of the bench fleet fall due on about 2,500 days, their
+ * dockings on 70). One cache per call, so it is bounded by the call's input.
  */
 function dayTextCache(): (ms: number) => string {
   const byDay = new Map<number, string>();
