@@ -342,7 +342,9 @@ async function main() {
   if (selected('forecast')) await bench('forecast + renewals, 500 vessels x 30 groups x 10 dockings', 200, async () => {
     const { big, small, notes } = await benchFleetPair();
     fleetSmall = small;
-    return { timing: big, notes };
+    // 10.3: the ratio of this benchmark recorded when issue 15 was filed (242 ms on the 2-core machine); the issue
+    // asks for under half of it.
+    return { timing: big, notes, ratioTarget: { below: 10.3 / 2, source: 'half of 10.3, the ratio recorded when issue 15 was filed' } };
   });
   const bigRow = rows[rows.length - 1];
   if (fleetSmall && bigRow?.timing) {

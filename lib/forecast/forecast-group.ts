@@ -1,7 +1,7 @@
 import { HOURS_PER_YEAR, MS_PER_YEAR, addMonthsUTC } from './dates';
 import { chargeAYears, constantProfile, currentAtA, meanCurrentA, readDemandProfile, yearsToCharge, type DemandProfile } from './demand-profile';
 import { ForecastInputError } from './errors';
-import { date, fraction, list, nonNegative, positive, record, unitFraction, whole } from './validate';
+import { date, fraction, isRecord, isValidDate, list, nonNegative, positive, record, unitFraction, whole } from './validate';
 
 /**
  * Depletion forecast of one installed anode group: when it is to be renewed (renewBy) and
@@ -210,7 +210,19 @@ interface Model {
   fractionPerAYear: number;
   /** Installation (fraction 1), then the surveys kept. */
   history: Point[];
+  /** Where the forecast starts: the last point of the history. */
+  start: Point;
+  /** The start's years since installation, and the unit profile's charge by then (A x years). */
+  startYears: number;
+  startCharge: number;
+  /** The unit profile's consumed fraction at the start. */
+  startConsumed: number;
+  /** The fitted factor K (A, on the unit profile) the forecast goes on at. */
+  k: number;
 }
+
+/** The unit profile of a constant current (and of a design without current): 1 A throughout. */
+const CONSTANT_UNIT_PROFILE: DemandProfile = constantProfile(1);
 
 interface DateBand {
   at: Date | null;
@@ -245,50 +257,44 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const t0 = installedOn.getTime();
   const m: Model = {
     t0,
-    unit: designScaleA > 0 ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears } : constantProfile(1),
+    // A constant current c scales to c / c = 1 A exactly: the shared constant profile.
+    unit:
+      hasProfile && designScaleA > 0
+        ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears }
+        : CONSTANT_UNIT_PROFILE,
     fractionPerAYear: HOURS_PER_YEAR / (eps * installedMassKg),
-    history: [{ t: t0, f: 1 }],
+    history: [],
+    start: { t: t0, f: 1 },
+    startYears: 0,
+    startCharge: 0,
+    startConsumed: 0,
+    k: 0,
   };
 
   // Rule 1: readings of no loss are set aside; the rest, with the unit profile's consumption.
-  const kept: SurveyPoint[] = [];
-  for (const r of readings) {
-    if (r.f >= 1) continue;
-    const years = (r.t - t0) / MS_PER_YEAR;
-    const point = { t: r.t, f: r.f, years, p: consumedAt(m, years) };
-    kept.push(point);
-    m.history.push(point);
+  let keptCount = 0;
+  for (let i = 0; i < readings.length; i++) if (readings[i].f < 1) keptCount++;
+  const kept: SurveyPoint[] = new Array(keptCount);
+  m.history = new Array(keptCount + 1);
+  m.history[0] = m.start;
+  for (let i = 0, j = 0; i < readings.length; i++) {
+    const point = readings[i];
+    if (point.f >= 1) continue;
+    point.years = (point.t - t0) / MS_PER_YEAR;
+    point.p = consumedAt(m, point.years);
+    kept[j++] = point;
+    m.history[j] = point;
   }
-  const start = m.history[m.history.length - 1];
+  const start = m.history[keptCount];
   const startYears = (start.t - t0) / MS_PER_YEAR;
+  m.start = start;
+  m.startYears = startYears;
+  m.startCharge = chargeAYears(m.unit, startYears);
+  m.startConsumed = m.fractionPerAYear * m.startCharge;
   const fit = fitScale(kept, designScaleA);
+  m.k = fit.k;
   const end = dateBand(m, fit, endFraction);
   const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
-
-  const startConsumed = consumedAt(m, startYears);
-  const remainingFractionAt = (at: Date): number => {
-    const t = date(at, 'date').getTime();
-    if (t >= start.t) return clamp01(start.f - fit.k * (consumedAt(m, (t - t0) / MS_PER_YEAR) - startConsumed));
-    return clamp01(historyAt(m.history, t));
-  };
-
-  const remainingSeries = (from: Date, to: Date, stepMonths: number): RemainingPoint[] => {
-    const a = date(from, 'from');
-    const b = date(to, 'to');
-    const step = whole(stepMonths, 'stepMonths', 1);
-    if (b.getTime() < a.getTime()) throw new ForecastInputError('to', 'to must not be before from.');
-    const out: RemainingPoint[] = [];
-    for (let k = 0; ; k++) {
-      const d = addMonthsUTC(a, k * step);
-      if (d.getTime() > b.getTime()) break;
-      if (out.length >= MAX_SERIES_POINTS) {
-        throw new ForecastInputError('stepMonths', `The series would exceed ${MAX_SERIES_POINTS} points; use a longer step.`);
-      }
-      out.push({ date: d, remainingFraction: remainingFractionAt(d) });
-    }
-    if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionAt(b) });
-    return out;
-  };
 
   const latest = kept.length > 0 ? kept[kept.length - 1] : null;
   const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
@@ -307,13 +313,47 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
     renewBy: renew.at,
     renewByEarly: renew.early,
     renewByLate: renew.late,
-    remainingFractionAt,
-    remainingMassKgAt: (at: Date) => remainingFractionAt(at) * installedMassKg,
-    remainingSeries,
+    // Methods rather than arrow functions: they share forecastGroup's one closure context, and
+    // transpilers that keep function names do not rename each of them on every call.
+    remainingFractionAt(at: Date): number {
+      return remainingFractionOn(m, at);
+    },
+    remainingMassKgAt(at: Date): number {
+      return remainingFractionOn(m, at) * installedMassKg;
+    },
+    remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+      return remainingSeriesOf(m, from, to, stepMonths);
+    },
   };
   if (observedRateFrac !== undefined) forecast.observedRatePerYearKg = observedRateFrac * installedMassKg;
   if (designScaleA > 0) forecast.profileScale = fit.k / designScaleA;
   return forecast;
+}
+
+/** GroupForecast.remainingFractionAt. */
+function remainingFractionOn(m: Model, at: Date): number {
+  const t = date(at, 'date').getTime();
+  if (t >= m.start.t) return clamp01(m.start.f - m.k * (consumedAt(m, (t - m.t0) / MS_PER_YEAR) - m.startConsumed));
+  return clamp01(historyAt(m.history, t));
+}
+
+/** GroupForecast.remainingSeries. */
+function remainingSeriesOf(m: Model, from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+  const a = date(from, 'from');
+  const b = date(to, 'to');
+  const step = whole(stepMonths, 'stepMonths', 1);
+  if (b.getTime() < a.getTime()) throw new ForecastInputError('to', 'to must not be before from.');
+  const out: RemainingPoint[] = [];
+  for (let k = 0; ; k++) {
+    const d = addMonthsUTC(a, k * step);
+    if (d.getTime() > b.getTime()) break;
+    if (out.length >= MAX_SERIES_POINTS) {
+      throw new ForecastInputError('stepMonths', `The series would exceed ${MAX_SERIES_POINTS} points; use a longer step.`);
+    }
+    out.push({ date: d, remainingFraction: remainingFractionOn(m, d) });
+  }
+  if (out[out.length - 1].date.getTime() < b.getTime()) out.push({ date: new Date(b.getTime()), remainingFraction: remainingFractionOn(m, b) });
+  return out;
 }
 
 /** The unit profile's consumed fraction `years` after installation. */
@@ -332,9 +372,8 @@ function reach(m: Model, delta: number, k: number, target: number): number | nul
   const anchorF = m.history.length > 1 ? clamp01(anchor.f + delta) : anchor.f;
   if (anchorF <= target) return Math.round(firstCrossing(m.history, target, delta));
   if (!(k > 0)) return null;
-  const anchorYears = (anchor.t - m.t0) / MS_PER_YEAR;
-  const years = yearsToCharge(m.unit, chargeAYears(m.unit, anchorYears) + (anchorF - target) / (k * m.fractionPerAYear));
-  if (!(years - anchorYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
+  const years = yearsToCharge(m.unit, m.startCharge + (anchorF - target) / (k * m.fractionPerAYear));
+  if (!(years - m.startYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
   return Math.max(anchor.t, Math.round(m.t0 + years * MS_PER_YEAR));
 }
 
@@ -348,21 +387,53 @@ function dateBand(m: Model, fit: Fit, target: number): DateBand {
   return { at: new Date(at), early: new Date(Math.min(early ?? at, at)), late: late === null ? null : new Date(Math.max(late, at)) };
 }
 
-/** Validated surveys as history points, sorted by time, one per instant (lowest reading). */
-function readSurveys(value: unknown, installedOn: Date): Point[] {
+/**
+ * Validated surveys as history points, sorted by time, one per instant (lowest reading); `years`
+ * and `p` are filled in for the surveys kept.
+ */
+function readSurveys(value: unknown, installedOn: Date): SurveyPoint[] {
   if (value === undefined || value === null) return [];
   const raw = list(value, 'surveys');
-  const points: Point[] = raw.map((s, i) => {
-    const r = record(s, `surveys[${i}]`);
-    const d = date(r.date, `surveys[${i}].date`);
-    if (d.getTime() < installedOn.getTime()) {
+  const installed = installedOn.getTime();
+  const points: SurveyPoint[] = new Array(raw.length);
+  for (let i = 0; i < raw.length; i++) {
+    const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], `surveys[${i}]`);
+    const d = isValidDate(r.date) ? r.date : date(r.date, `surveys[${i}].date`);
+    if (d.getTime() < installed) {
       throw new ForecastInputError(`surveys[${i}].date`, `surveys[${i}].date must not be before installedOn.`);
     }
-    return { t: d.getTime(), f: fraction(r.remainingFraction, `surveys[${i}].remainingFraction`) };
-  });
-  points.sort((a, b) => a.t - b.t || a.f - b.f);
+    const f = r.remainingFraction;
+    points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`), years: 0, p: 0 };
+  }
+  if (points.length < 2) return points;
+  sortByTimeThenFraction(points);
   // Same instant: keep the first after sorting, the lowest fraction.
-  return points.filter((p, i) => i === 0 || p.t !== points[i - 1].t);
+  let n = 1;
+  for (let i = 1; i < points.length; i++) if (points[i].t !== points[n - 1].t) points[n++] = points[i];
+  points.length = n;
+  return points;
+}
+
+const byTimeThenFraction = (a: Point, b: Point) => a.t - b.t || a.f - b.f;
+
+/**
+ * Sorts in place by time, then fraction; stable. A few surveys (the usual case) by insertion,
+ * which gives the same order as Array.prototype.sort without its work array.
+ */
+function sortByTimeThenFraction(points: SurveyPoint[]): void {
+  if (points.length > 16) {
+    points.sort(byTimeThenFraction);
+    return;
+  }
+  for (let i = 1; i < points.length; i++) {
+    const p = points[i];
+    let j = i - 1;
+    while (j >= 0 && byTimeThenFraction(points[j], p) > 0) {
+      points[j + 1] = points[j];
+      j--;
+    }
+    points[j + 1] = p;
+  }
 }
 
 /**
@@ -374,7 +445,9 @@ function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
   let sumPP = 0;
   let sumCP = 0;
   let sumP = 0;
-  const spread = { low: Infinity, high: 0 };
+  // The spread of the single-survey and interval factors; positive, finite factors only.
+  let spreadLow = Infinity;
+  let spreadHigh = 0;
   for (let i = 0; i < kept.length; i++) {
     const s = kept[i];
     if (s.years >= MIN_SURVEY_BASELINE_YEARS && s.p > 0) {
@@ -382,25 +455,25 @@ function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
       sumPP += s.p * s.p;
       sumCP += consumed * s.p;
       sumP += s.p;
-      widen(spread, consumed / s.p); // this survey's own factor
+      const factor = consumed / s.p; // this survey's own factor
+      if (factor > 0 && Number.isFinite(factor)) {
+        spreadLow = Math.min(spreadLow, factor);
+        spreadHigh = Math.max(spreadHigh, factor);
+      }
     }
     const before = i > 0 ? kept[i - 1] : null;
     if (before !== null && s.years - before.years >= MIN_SURVEY_BASELINE_YEARS && s.p > before.p) {
-      widen(spread, (before.f - s.f) / (s.p - before.p)); // the interval since the survey before
+      const factor = (before.f - s.f) / (s.p - before.p); // the interval since the survey before
+      if (factor > 0 && Number.isFinite(factor)) {
+        spreadLow = Math.min(spreadLow, factor);
+        spreadHigh = Math.max(spreadHigh, factor);
+      }
     }
   }
   if (!(sumPP > 0)) return { k: designScaleA, low: (1 - BAND_FRACTION) * designScaleA, high: (1 + BAND_FRACTION) * designScaleA };
   const k = sumCP / sumPP;
   const reading = (READING_UNCERTAINTY * sumP) / sumPP;
-  return { k, low: Math.min(Math.max(0, k - reading), spread.low), high: Math.max(k + reading, spread.high) };
-}
-
-/** Widens the range to take in a positive, finite factor; others are ignored. */
-function widen(range: { low: number; high: number }, factor: number): void {
-  if (factor > 0 && Number.isFinite(factor)) {
-    range.low = Math.min(range.low, factor);
-    range.high = Math.max(range.high, factor);
-  }
+  return { k, low: Math.min(Math.max(0, k - reading), spreadLow), high: Math.max(k + reading, spreadHigh) };
 }
 
 /**
@@ -408,11 +481,14 @@ function widen(range: { low: number; high: number }, factor: number): void {
  * (within 0..1; installation stays at 1), reaches fraction `target` < 1; it ends at or below it.
  */
 function firstCrossing(history: readonly Point[], target: number, delta: number): number {
-  let a = history[0];
+  let aT = history[0].t;
+  let aF = history[0].f;
   for (let i = 1; i < history.length; i++) {
-    const b = { t: history[i].t, f: clamp01(history[i].f + delta) };
-    if (a.f > target && b.f <= target) return a.t + ((a.f - target) / (a.f - b.f)) * (b.t - a.t);
-    a = b;
+    const bT = history[i].t;
+    const bF = clamp01(history[i].f + delta);
+    if (aF > target && bF <= target) return aT + ((aF - target) / (aF - bF)) * (bT - aT);
+    aT = bT;
+    aF = bF;
   }
   // Unreachable: history starts at 1 > target and ends at or below it.
   return history[history.length - 1].t;

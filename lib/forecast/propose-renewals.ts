@@ -1,9 +1,9 @@
-import { addMonthsUTC, dayNumberUTC } from './dates';
+import { MS_PER_DAY, addMonthsMs, dayNumberUTC } from './dates';
 import { formatDateOnly } from '../dates/date-only';
 import { ForecastInputError } from './errors';
 import { forecastDateWords } from '@/lib/labels/forecast';
 import { eventWords } from '@/lib/labels/planner';
-import { date, list, record, text, whole } from './validate';
+import { date, isRecord, isText, isValidDate, list, record, text, whole } from './validate';
 
 /**
  * Renewal scheduling: which docking (or diving campaign) renews each anode group.
@@ -149,6 +149,15 @@ interface Settings {
   todayDay: number;
   marginMonths: number;
   intervalMonths: number;
+  /** formatDateOnly of an instant (ms), remembered per UTC day for the length of one call. */
+  dayText: (ms: number) => string;
+  /** '6 months' */
+  marginText: string;
+  /**
+   * '3 Nov 2028 (renew by 3 May 2029 less 6 months)': the deadline and why it is there, remembered per
+   * due day for one call (the deadline's day follows from the due date's day).
+   */
+  deadlineWords: (onRenewBy: boolean, dueMs: number, deadlineMs: number) => string;
 }
 
 interface PreparedDockings {
@@ -183,33 +192,77 @@ function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
     inp.typicalIntervalMonths === undefined
       ? DEFAULT_TYPICAL_INTERVAL_MONTHS
       : whole(inp.typicalIntervalMonths, `${prefix}typicalIntervalMonths`, 1, 120);
-  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths };
+  const dayText = dayTextCache();
+  const marginText = `${marginMonths} month${marginMonths === 1 ? '' : 's'}`;
+  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText, marginText, deadlineWords: deadlineWordsCache(dayText, marginText) };
+}
+
+/** Settings.deadlineWords: by due date kind and UTC day, each built once per call (most groups share their due day with others). */
+function deadlineWordsCache(dayText: (ms: number) => string, marginText: string): Settings['deadlineWords'] {
+  const onRenewBy = new Map<number, string>();
+  const onEndOfLife = new Map<number, string>();
+  return (renewBy, dueMs, deadlineMs) => {
+    const byDay = renewBy ? onRenewBy : onEndOfLife;
+    const dayNumber = Math.floor(dueMs / MS_PER_DAY);
+    let words = byDay.get(dayNumber);
+    if (words === undefined) {
+      words = `${dayText(deadlineMs)} (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
+      byDay.set(dayNumber, words);
+    }
+    return words;
+  };
+}
+
+/**
+ * formatDateOnly by UTC day number, each day formatted once: a fleet's sentences name the same
+ * days again and again (15,000 groups of the bench fleet fall due on about 2,500 days, their
+ * dockings on 70). One cache per call, so it is bounded by the call's input.
+ */
+function dayTextCache(): (ms: number) => string {
+  const byDay = new Map<number, string>();
+  return (ms) => {
+    const dayNumber = Math.floor(ms / MS_PER_DAY);
+    let words = byDay.get(dayNumber);
+    if (words === undefined) {
+      words = formatDateOnly(new Date(ms));
+      byDay.set(dayNumber, words);
+    }
+    return words;
+  };
 }
 
 function prepareDockings(value: unknown, todayDay: number, prefix: string): PreparedDockings {
   const raw = list(value, `${prefix}dockings`);
   const byId = new Map<string, { date: Date; status: DockingStatus }>();
   const candidates: { id: string; date: Date }[] = [];
-  raw.forEach((d, i) => {
-    const field = `${prefix}dockings[${i}]`;
-    const r = record(d, field);
-    const id = text(r.id, `${field}.id`);
-    const when = date(r.date, `${field}.date`);
+  /** The error path of the i-th docking, built only to refuse a value. */
+  const field = (i: number) => `${prefix}dockings[${i}]`;
+  for (let i = 0; i < raw.length; i++) {
+    const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], field(i));
+    const id = isText(r.id) ? r.id : text(r.id, `${field(i)}.id`);
+    const when = isValidDate(r.date) ? r.date : date(r.date, `${field(i)}.date`);
     let status: DockingStatus = 'planned';
     if (r.status !== undefined) {
       if (typeof r.status !== 'string' || !(DOCKING_STATUSES as readonly string[]).includes(r.status)) {
-        throw new ForecastInputError(`${field}.status`, `${field}.status must be one of 'planned', 'done', 'cancelled'.`);
+        throw new ForecastInputError(`${field(i)}.status`, `${field(i)}.status must be one of 'planned', 'done', 'cancelled'.`);
       }
       status = r.status as DockingStatus;
     }
-    if (byId.has(id)) throw new ForecastInputError(`${field}.id`, `${field}.id ${JSON.stringify(id)} appears twice.`);
+    if (byId.has(id)) throw new ForecastInputError(`${field(i)}.id`, `${field(i)}.id ${JSON.stringify(id)} appears twice.`);
     byId.set(id, { date: when, status });
     if (status === 'planned' && dayNumberUTC(when) >= todayDay) candidates.push({ id, date: when });
-  });
+  }
   candidates.sort((a, b) => a.date.getTime() - b.date.getTime() || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const times = new Float64Array(candidates.length);
-  candidates.forEach((c, i) => (times[i] = c.date.getTime()));
-  return { byId, ids: candidates.map((c) => c.id), dates: candidates.map((c) => c.date), times };
+  const n = candidates.length;
+  const ids: string[] = new Array(n);
+  const dates: Date[] = new Array(n);
+  const times = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    ids[k] = candidates[k].id;
+    dates[k] = candidates[k].date;
+    times[k] = candidates[k].date.getTime();
+  }
+  return { byId, ids, dates, times };
 }
 
 /** Index of the last time <= t, or -1. */
@@ -233,134 +286,204 @@ function sentenceWords(kind: unknown) {
   return { ev: 'docking', evs: 'dockings', unplanned: 'an unplanned docking or campaign' };
 }
 
+/** The words of a due date inside a sentence ('renew by', 'end of life'), looked up once. */
+const DUE_WORDS = { renewBy: forecastDateWords('renewBy'), endOfLife: forecastDateWords('endOfLife') } as const;
+
+/** The error path of a group's field ('assets[3].groups[7]'), built only when a value is refused. */
+const groupField = (prefix: string, i: number) => `${prefix}groups[${i}]`;
+
+/** What every group of one asset is scheduled against: its candidate dockings and the words of its sentences. */
+interface AssetPlan {
+  s: Settings;
+  docks: PreparedDockings;
+  /** The number of candidate dockings. */
+  n: number;
+  assetKind: unknown;
+  ev: string;
+  evs: string;
+  unplanned: string;
+  /** Rule 6's horizon, ms. */
+  horizon: number;
+  /** Rule 7's sentence up to the deadline, per candidate docking: 'Renew at the docking of 4 Jun 2029, the last docking before the deadline '. */
+  renewAtText: string[];
+  /** Rule 6's sentence after the deadline and its parenthesis. */
+  soundText: string;
+}
+
+/** A group's validated inputs. */
+interface GroupDue {
+  groupId: string;
+  onRenewBy: boolean;
+  due: Date | null;
+  early: Date | null;
+  confirmedId: string | null;
+}
+
 function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settings, prefix: string, assetKind?: unknown): RenewalProposal[] {
   const { ev, evs, unplanned } = sentenceWords(assetKind);
   const groups = list(groupsValue, `${prefix}groups`);
   const docks = prepareDockings(dockingsValue, s.todayDay, prefix);
   const n = docks.times.length;
   const horizonBase = n > 0 ? docks.dates[n - 1] : s.today;
-  const horizon = addMonthsUTC(horizonBase, s.intervalMonths).getTime();
-  const horizonText = n > 0 ? `the last planned ${ev} (${formatDateOnly(horizonBase)})` : `today, with no ${ev} planned`;
-  const marginText = `${s.marginMonths} month${s.marginMonths === 1 ? '' : 's'}`;
+  const horizonText = n > 0 ? `the last planned ${ev} (${s.dayText(docks.times[n - 1])})` : `today, with no ${ev} planned`;
+  const plan: AssetPlan = {
+    s,
+    docks,
+    n,
+    assetKind,
+    ev,
+    evs,
+    unplanned,
+    horizon: addMonthsMs(horizonBase.getTime(), s.intervalMonths),
+    renewAtText: docks.ids.map((_, k) => `Renew at the ${ev} of ${s.dayText(docks.times[k])}, the last ${ev} before the deadline `),
+    soundText: ` is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
+  };
+  const proposals: RenewalProposal[] = new Array(groups.length);
+  for (let i = 0; i < groups.length; i++) proposals[i] = proposeForGroup(plan, readGroup(groups[i], prefix, i));
+  return proposals;
+}
 
-  return groups.map((g, i): RenewalProposal => {
-    const field = `${prefix}groups[${i}]`;
-    const r = record(g, field);
-    const groupId = text(r.id, `${field}.id`);
-    // The due date: renewBy when the caller gives it, else endOfLife (see the module comment).
-    const onRenewBy = r.renewBy !== undefined;
-    const dueKey = onRenewBy ? 'renewBy' : 'endOfLife';
-    const earlyKey = onRenewBy ? 'renewByEarly' : 'early';
-    const due = r[dueKey] === null ? null : date(r[dueKey], `${field}.${dueKey}`);
-    const early = r[earlyKey] === undefined || r[earlyKey] === null ? null : date(r[earlyKey], `${field}.${earlyKey}`);
-    let confirmedId: string | null = null;
-    if (r.confirmedRenewal !== undefined && r.confirmedRenewal !== null) {
-      confirmedId = text(record(r.confirmedRenewal, `${field}.confirmedRenewal`).dockingId, `${field}.confirmedRenewal.dockingId`);
+/** A group's inputs, validated in the order the errors are reported (id, due date, early date, confirmed renewal). */
+function readGroup(g: unknown, prefix: string, i: number): GroupDue {
+  const r = isRecord(g) ? g : record(g, groupField(prefix, i));
+  const groupId = isText(r.id) ? r.id : text(r.id, `${groupField(prefix, i)}.id`);
+  // The due date: renewBy when the caller gives it, else endOfLife (see the module comment).
+  const onRenewBy = r.renewBy !== undefined;
+  const dueValue = onRenewBy ? r.renewBy : r.endOfLife;
+  const earlyValue = onRenewBy ? r.renewByEarly : r.early;
+  const due = dueValue === null ? null : isValidDate(dueValue) ? dueValue : date(dueValue, `${groupField(prefix, i)}.${onRenewBy ? 'renewBy' : 'endOfLife'}`);
+  const early =
+    earlyValue === undefined || earlyValue === null
+      ? null
+      : isValidDate(earlyValue)
+        ? earlyValue
+        : date(earlyValue, `${groupField(prefix, i)}.${onRenewBy ? 'renewByEarly' : 'early'}`);
+  let confirmedId: string | null = null;
+  if (r.confirmedRenewal !== undefined && r.confirmedRenewal !== null) {
+    const field = `${groupField(prefix, i)}.confirmedRenewal`;
+    confirmedId = text(record(r.confirmedRenewal, field).dockingId, `${field}.dockingId`);
+  }
+  return { groupId, onRenewBy, due, early, confirmedId };
+}
+
+/** Rules 1-9 for one group (dates as epoch ms, each day's words formatted once per call). */
+function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirmedId }: GroupDue): RenewalProposal {
+  const { s, docks, n, ev, unplanned } = a;
+  const marginText = s.marginText;
+  const day = s.dayText;
+  const dueWords = DUE_WORDS[onRenewBy ? 'renewBy' : 'endOfLife'];
+  const dueMs = due === null ? NaN : due.getTime();
+  const deadlineMs = due === null ? NaN : addMonthsMs(dueMs, -s.marginMonths);
+  const deadline = due === null ? null : new Date(deadlineMs);
+
+  // Rule 1: a confirmed renewal is kept as it is.
+  if (confirmedId !== null) {
+    const booked = docks.byId.get(confirmedId);
+    const bookedText = booked ? day(booked.date.getTime()) : '';
+    const out: RenewalProposal = {
+      groupId,
+      status: 'kept',
+      dockingId: confirmedId,
+      ...(booked ? { dockingDate: booked.date } : {}),
+      ...(deadline ? { deadline } : {}),
+      reason: booked ? `The renewal confirmed at the ${ev} of ${bookedText} is kept as booked.` : 'The confirmed renewal is kept as booked.',
+    };
+    if (!booked) out.warning = `The confirmed renewal's ${ev} is not among this asset's ${a.evs}.`;
+    else if (booked.status === 'cancelled') out.warning = `The ${ev} of ${bookedText} has been cancelled; the renewal needs another ${ev}.`;
+    else if (deadline && booked.date.getTime() > deadlineMs) {
+      out.warning = `The ${ev} of ${bookedText} is after the deadline ${s.deadlineWords(onRenewBy, dueMs, deadlineMs)}.`;
     }
-    const deadline = due === null ? null : addMonthsUTC(due, -s.marginMonths);
-    const because = due === null ? '' : ` (${forecastDateWords(dueKey)} ${formatDateOnly(due)} less ${marginText})`;
+    return out;
+  }
 
-    // Rule 1: a confirmed renewal is kept as it is.
-    if (confirmedId !== null) {
-      const booked = docks.byId.get(confirmedId);
-      const out: RenewalProposal = {
-        groupId,
-        status: 'kept',
-        dockingId: confirmedId,
-        ...(booked ? { dockingDate: booked.date } : {}),
-        ...(deadline ? { deadline } : {}),
-        reason: booked ? `The renewal confirmed at the ${ev} of ${formatDateOnly(booked.date)} is kept as booked.` : 'The confirmed renewal is kept as booked.',
-      };
-      if (!booked) out.warning = `The confirmed renewal's ${ev} is not among this asset's ${evs}.`;
-      else if (booked.status === 'cancelled') out.warning = `The ${ev} of ${formatDateOnly(booked.date)} has been cancelled; the renewal needs another ${ev}.`;
-      else if (deadline && booked.date.getTime() > deadline.getTime()) {
-        out.warning = `The ${ev} of ${formatDateOnly(booked.date)} is after the deadline ${formatDateOnly(deadline)}${because}.`;
+  // Rule 2: never depletes.
+  if (deadline === null) {
+    const point = onRenewBy ? 'renewal threshold' : 'end of life';
+    return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
+  }
+
+  const deadlineWords = s.deadlineWords(onRenewBy, dueMs, deadlineMs);
+  const needs = unplanned === 'a diving campaign' ? 'a campaign' : 'a docking';
+
+  // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
+  if (Math.floor(deadlineMs / MS_PER_DAY) < s.todayDay) {
+    const overdueWords = `The renewal deadline ${deadlineWords} has passed`;
+    const dueText = `${dueWords} ${day(dueMs)}`;
+    const asap = (why: string) => ({ by: s.today, reason: `${why}: plan ${unplanned} as soon as possible (from ${day(s.today.getTime())}).` });
+    if (n > 0) {
+      const dockingText = day(docks.times[0]);
+      const base = { groupId, status: 'proposed' as const, dockingId: docks.ids[0], dockingDate: docks.dates[0], deadline, overdue: true };
+      if (docks.times[0] > dueMs) {
+        const earlierDocking = asap(`The next ${ev} (${dockingText}) is after the ${dueText}`);
+        return { ...base, earlierDocking, reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}, which is after the ${dueText}.` };
       }
-      return out;
+      return { ...base, withinMargin: true, reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}.` };
     }
-
-    // Rule 2: never depletes.
-    if (deadline === null) {
-      const point = onRenewBy ? 'renewal threshold' : 'end of life';
-      return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
-    }
-
-    const dueText = `${forecastDateWords(dueKey)} ${formatDateOnly(due!)}`;
-    const todayText = formatDateOnly(s.today);
-    /** The common fields of a proposal at the k-th candidate docking. */
-    const atDocking = (k: number) => ({ groupId, status: 'proposed' as const, dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline });
-
-    // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
-    if (dayNumberUTC(deadline) < s.todayDay) {
-      const overdueWords = `The renewal deadline ${formatDateOnly(deadline)}${because} has passed`;
-      const asap = (why: string) => ({ by: s.today, reason: `${why}: plan ${unplanned} as soon as possible (from ${todayText}).` });
-      if (n > 0) {
-        const dockingDate = docks.dates[0];
-        const late = dockingDate.getTime() > due!.getTime();
-        return {
-          ...atDocking(0),
-          overdue: true,
-          ...(late ? { earlierDocking: asap(`The next ${ev} (${formatDateOnly(dockingDate)}) is after the ${dueText}`) } : { withinMargin: true }),
-          reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${formatDateOnly(dockingDate)}${late ? `, which is after the ${dueText}.` : '.'}`,
-        };
-      }
-      return {
-        groupId,
-        status: 'no-docking',
-        deadline,
-        needsDockingBy: deadline,
-        overdue: true,
-        earlierDocking: asap(assetKind === 'vessel' || assetKind === 'structure' ? `No ${ev} is planned` : 'No docking or campaign is planned'),
-        reason: `${overdueWords} and no ${ev} is planned, so the group needs ${unplanned === 'a diving campaign' ? 'a campaign' : 'a docking'} as soon as possible.`,
-      };
-    }
-
-    // Rule 6: outlives the planned dockings and the next expected one.
-    if (deadline.getTime() > horizon) {
-      return {
-        groupId,
-        status: 'sound',
-        deadline,
-        nextReviewBy: deadline,
-        reason: `The deadline ${formatDateOnly(deadline)}${because} is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
-      };
-    }
-
-    // Rule 7: the last candidate on or before the deadline.
-    const k = lastAtOrBefore(docks.times, deadline.getTime());
-    if (k >= 0) {
-      const dockingDate = docks.dates[k];
-      const earlyDeadline = early ? addMonthsUTC(early, -s.marginMonths) : null;
-      const atRisk = earlyDeadline !== null && dockingDate.getTime() > earlyDeadline.getTime();
-      return {
-        ...atDocking(k),
-        ...(atRisk ? { atRisk: true } : {}),
-        reason:
-          `Renew at the ${ev} of ${formatDateOnly(dockingDate)}, the last ${ev} before the deadline ${formatDateOnly(deadline)}${because}` +
-          (atRisk && earlyDeadline ? `, although the early end of the forecast would need renewal by ${formatDateOnly(earlyDeadline)}.` : '.'),
-      };
-    }
-
-    // Rule 8: the first candidate after the deadline that is still on or before the due date (inside the margin).
-    if (n > 0 && docks.times[0] <= due!.getTime()) {
-      const dockingDate = docks.dates[0];
-      return {
-        ...atDocking(0),
-        withinMargin: true,
-        reason: `Renew at the ${ev} of ${formatDateOnly(dockingDate)}: no ${ev} falls before the deadline ${formatDateOnly(deadline)}${because}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
-      };
-    }
-
-    // Rule 9: no docking reaches the group before its due date.
-    const next = n > 0 ? `the next ${ev} (${formatDateOnly(docks.dates[0])}) is after the ${dueText}` : assetKind === 'vessel' || assetKind === 'structure' ? `no ${ev} is planned` : 'no docking or campaign is planned';
     return {
       groupId,
       status: 'no-docking',
       deadline,
       needsDockingBy: deadline,
-      overdue: false,
-      earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan ${unplanned} by ${formatDateOnly(deadline)} (the ${dueText} less ${marginText}).` },
-      reason: `No planned ${ev} falls on or before the deadline ${formatDateOnly(deadline)}${because}, and ${next}, so the group needs ${unplanned === 'a diving campaign' ? 'a campaign' : 'a docking'} by the deadline.`,
+      overdue: true,
+      earlierDocking: asap(a.assetKind === 'vessel' || a.assetKind === 'structure' ? `No ${ev} is planned` : 'No docking or campaign is planned'),
+      reason: `${overdueWords} and no ${ev} is planned, so the group needs ${needs} as soon as possible.`,
     };
-  });
+  }
+
+  // Rule 6: outlives the planned dockings and the next expected one.
+  if (deadlineMs > a.horizon) {
+    return {
+      groupId,
+      status: 'sound',
+      deadline,
+      nextReviewBy: deadline,
+      reason: `The deadline ${deadlineWords}${a.soundText}`,
+    };
+  }
+
+  // Rule 7: the last candidate on or before the deadline.
+  const k = lastAtOrBefore(docks.times, deadlineMs);
+  if (k >= 0) {
+    const earlyDeadlineMs = early === null ? NaN : addMonthsMs(early.getTime(), -s.marginMonths);
+    const lastBefore = `${a.renewAtText[k]}${deadlineWords}`;
+    if (early !== null && docks.times[k] > earlyDeadlineMs) {
+      return {
+        groupId,
+        status: 'proposed',
+        dockingId: docks.ids[k],
+        dockingDate: docks.dates[k],
+        deadline,
+        atRisk: true,
+        reason: `${lastBefore}, although the early end of the forecast would need renewal by ${day(earlyDeadlineMs)}.`,
+      };
+    }
+    return { groupId, status: 'proposed', dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline, reason: `${lastBefore}.` };
+  }
+
+  const dueText = `${dueWords} ${day(dueMs)}`;
+
+  // Rule 8: the first candidate after the deadline that is still on or before the due date (inside the margin).
+  if (n > 0 && docks.times[0] <= dueMs) {
+    return {
+      groupId,
+      status: 'proposed',
+      dockingId: docks.ids[0],
+      dockingDate: docks.dates[0],
+      deadline,
+      withinMargin: true,
+      reason: `Renew at the ${ev} of ${day(docks.times[0])}: no ${ev} falls before the deadline ${deadlineWords}, and this one is still before the ${dueText}, inside the ${marginText} margin.`,
+    };
+  }
+
+  // Rule 9: no docking reaches the group before its due date.
+  const next = n > 0 ? `the next ${ev} (${day(docks.times[0])}) is after the ${dueText}` : a.assetKind === 'vessel' || a.assetKind === 'structure' ? `no ${ev} is planned` : 'no docking or campaign is planned';
+  return {
+    groupId,
+    status: 'no-docking',
+    deadline,
+    needsDockingBy: deadline,
+    overdue: false,
+    earlierDocking: { by: deadline, reason: `${next.charAt(0).toUpperCase()}${next.slice(1)}: plan ${unplanned} by ${day(deadlineMs)} (the ${dueText} less ${marginText}).` },
+    reason: `No planned ${ev} falls on or before the deadline ${deadlineWords}, and ${next}, so the group needs ${needs} by the deadline.`,
+  };
 }

@@ -10,6 +10,11 @@ function show(value: unknown): string {
   return `a ${typeof value}`;
 }
 
+/** The checks of record, date and text without the error: hot loops test first and build a field path only to refuse. */
+export const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null && !Array.isArray(value);
+export const isValidDate = (value: unknown): value is Date => value instanceof Date && Number.isFinite(value.getTime());
+export const isText = (value: unknown): value is string => typeof value === 'string' && value.length > 0;
+
 export function record(value: unknown, field: string): Record<string, unknown> {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
     throw new ForecastInputError(field, `${field} must be an object (got ${show(value)}).`);

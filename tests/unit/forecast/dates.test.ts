@@ -37,3 +37,44 @@ describe('8760-hour years', () => {
     expect(toDateOnly(addYears8760(utc('2023-03-01'), 1))).toBe('2024-02-29');
   });
 });
+
+describe('addMonthsUTC in integer arithmetic', () => {
+  /** The month addition through the Date's UTC fields, as addMonthsUTC was first written. */
+  function throughDateFields(d: Date, months: number): number {
+    const m = d.getUTCMonth() + months;
+    const year = d.getUTCFullYear() + Math.floor(m / 12);
+    const month = ((m % 12) + 12) % 12;
+    const day = Math.min(d.getUTCDate(), new Date(Date.UTC(year, month + 1, 0)).getUTCDate());
+    return Date.UTC(year, month, day, d.getUTCHours(), d.getUTCMinutes(), d.getUTCSeconds(), d.getUTCMilliseconds());
+  }
+
+  it('agrees with the Date fields on every day from 1890 to 2110, leap days and month ends included', () => {
+    const from = Date.UTC(1890, 0, 1) / 86_400_000;
+    const to = Date.UTC(2110, 0, 1) / 86_400_000;
+    let differences = 0;
+    for (let day = from; day < to; day++) {
+      const t = day * 86_400_000 + ((day * 7919) % 86_400_000); // a different time of day each day
+      for (const months of [-121, -13, -6, -1, 1, 6, 13, 30, 121]) {
+        if (!Object.is(addMonthsUTC(new Date(t), months).getTime(), throughDateFields(new Date(t), months))) differences++;
+      }
+    }
+    expect(differences).toBe(0);
+  });
+
+  it('agrees where it hands over to the Date fields: years 0-99, the ends of the Date range, fractional months', () => {
+    const cases: [string, number][] = [
+      ['0100-03-31T12:00:00Z', -1],
+      ['0101-01-31T00:00:00Z', -13],
+      ['0099-12-31T00:00:00Z', 2],
+      ['-000400-02-29T00:00:00Z', 12],
+      ['+275000-06-30T00:00:00Z', 6],
+      ['+275760-08-13T00:00:00Z', 1],
+      ['-271821-04-20T00:00:00Z', -1],
+      ['2025-01-31T00:00:00Z', 1.5],
+    ];
+    for (const [iso, months] of cases) {
+      const d = new Date(iso);
+      expect(addMonthsUTC(d, months).getTime(), `${iso} + ${months}`).toEqual(throughDateFields(d, months));
+    }
+  });
+});
