@@ -54,8 +54,10 @@ export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings
   const t0 = Math.min(...all.map((p) => p.date.getTime()));
   const t1 = Math.max(...all.map((p) => p.date.getTime()), today.getTime());
   const maxKg = Math.max(...all.map((p) => p.kg), 1);
-  const x = (t: number) => pad.left + ((t - t0) / Math.max(1, t1 - t0)) * (width - pad.left - pad.right);
-  const y = (kg: number) => pad.top + (1 - kg / maxKg) * (height - pad.top - pad.bottom);
+  // Coordinates to a tenth of a drawing unit (far below a pixel): fifteen-digit floats tripled the page's size.
+  const tenth = (v: number) => Math.round(v * 10) / 10;
+  const x = (t: number) => tenth(pad.left + ((t - t0) / Math.max(1, t1 - t0)) * (width - pad.left - pad.right));
+  const y = (kg: number) => tenth(pad.top + (1 - kg / maxKg) * (height - pad.top - pad.bottom));
   const years: number[] = [];
   for (let yr = new Date(t0).getUTCFullYear() + 1; Date.UTC(yr, 0, 1) <= t1; yr++) years.push(Date.UTC(yr, 0, 1));
   const ticks = [0, 0.25, 0.5, 0.75, 1].map((f) => f * maxKg);

@@ -4,7 +4,7 @@ import { AppError, toErrorBody } from './errors';
 import { getCurrentSession, toCurrentUser, clientAddress } from './auth/session';
 import type { OrgContext } from './org-context';
 import type { Permission } from './permissions';
-import { runInOrg } from './unit-of-work';
+import { readInOrg, runInOrg } from './unit-of-work';
 import { claimIdempotencyKey, IDEMPOTENCY_HEADER, idempotencyFingerprint, readIdempotencyKey, storeIdempotentResult, type StoredResult } from './idempotency';
 
 type Params = Record<string, string>;
@@ -12,6 +12,8 @@ type Params = Record<string, string>;
 interface Options<Q extends z.ZodType | undefined> {
   permission: Permission;
   query?: Q;
+  /** A GET that only reads: served through readInOrg (no transaction); a change recorded there throws. */
+  readOnly?: boolean;
 }
 
 export interface OrgRouteArgs<Q> {
@@ -63,7 +65,8 @@ export function withOrg<Q extends z.ZodType | undefined = undefined>(
       if (!user) throw new AppError('unauthenticated', 'Sign in to continue.');
       const key = UNSAFE.has(req.method) ? readIdempotencyKey(req.headers.get(IDEMPOTENCY_HEADER)) : null;
       const claim = key ? { owner: user.id, key, fingerprint: await requestFingerprint(req) } : null;
-      const result = await runInOrg({ user: toCurrentUser(user), slug: params.org ?? '', permission: options.permission, ip: await clientAddress() }, async (ctx) => {
+      const readOnly = options.readOnly === true && req.method === 'GET';
+      const result = await (readOnly ? readInOrg : runInOrg)({ user: toCurrentUser(user), slug: params.org ?? '', permission: options.permission, ip: await clientAddress() }, async (ctx) => {
         if (claim) {
           const replay = await claimIdempotencyKey(ctx.em, claim);
           if (replay) return replayResponse(replay);

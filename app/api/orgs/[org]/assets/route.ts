@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { text } from '@/lib/schemas/text';
 
 // GET /api/orgs/[org]/assets?page&pageSize&sort&dir&q&archived: the fleet, one page, with register and survey summaries and each asset's outlook.
-export const GET = withOrg(async ({ ctx, query }) => listFleet(ctx, query), { permission: 'org:read', query: listQuerySchema });
+export const GET = withOrg(async ({ ctx, query }) => listFleet(ctx, query), { permission: 'org:read', readOnly: true, query: listQuerySchema });
 
 // POST /api/orgs/[org]/assets: a new vessel or structure (engineers).
 export const POST = withOrg(

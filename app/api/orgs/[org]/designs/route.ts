@@ -9,6 +9,7 @@ import { getDesignOrThrow } from '@/lib/server/services/designs/get-design';
 // GET /api/orgs/[org]/designs?assetId=: every design revision of the organisation, newest first.
 export const GET = withOrg(async ({ ctx, query }) => ({ designs: await listDesigns(ctx, { assetId: query.assetId }) }), {
   permission: 'org:read',
+  readOnly: true,
   query: z.object({ assetId: z.uuid().optional() }),
 });
 

@@ -6,7 +6,7 @@ import { listSurveys } from '@/lib/server/services/surveys/survey-details';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 
 // GET /api/orgs/[org]/surveys?page&pageSize&sort&dir&q&assetId: surveys with their reading counts.
-export const GET = withOrg(async ({ ctx, query }) => listSurveys(ctx, query), { permission: 'org:read', query: listQuerySchema });
+export const GET = withOrg(async ({ ctx, query }) => listSurveys(ctx, query), { permission: 'org:read', readOnly: true, query: listQuerySchema });
 
 // POST /api/orgs/[org]/surveys: a survey with its readings, as JSON (inspectors, engineers, owners).
 export const POST = withOrg(

@@ -2,4 +2,4 @@ import { withOrg } from '@/lib/server/with-org';
 import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
 
 // GET /api/orgs/[org]/dockings/[dockingId]/renewals: the renewals booked at a docking.
-export const GET = withOrg(async ({ ctx, params }) => ({ renewals: (await listDockingRenewals(ctx, params.dockingId)).rows }), { permission: 'org:read' });
+export const GET = withOrg(async ({ ctx, params }) => ({ renewals: (await listDockingRenewals(ctx, params.dockingId)).rows }), { permission: 'org:read', readOnly: true });
