@@ -15,7 +15,8 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
 import { confirmRenewal } from '@/lib/server/services/planner/renewals';
 import { computePlans } from '@/lib/server/services/planner/compute-plans';
-import { planSummaryOf } from '@/lib/server/services/planner/stored-outlooks';
+import { forgetKeptPlans, planSummaryOf } from '@/lib/server/services/planner/stored-outlooks';
+import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { refreshStaleOutlooks } from '@/lib/server/services/planner/refresh-outlooks';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
@@ -218,6 +219,31 @@ describe('the stored plan summary (asset_outlook)', () => {
     );
     expect(outcomes.map((o) => o.status)).toEqual(['fulfilled', 'fulfilled']);
     await expectOverviewMatchesFreshPlans();
+  });
+
+  it("the asset page keeps its plan while the stored version stands, and computes it again after any change or on another day", async () => {
+    forgetKeptPlans();
+    const page = async () => getAssetPage(await ctx('viewer'), ids.tug);
+    const first = await page();
+    const second = await page();
+    // Nothing changed: the same forecasts (the very objects) are shown, not computed again.
+    expect(second.forecasts).toBe(first.forecasts);
+    expect(second.rows).toEqual(first.rows);
+    // A group grows: the page shows the new quantity's forecast at once.
+    await runAs(ctx('engineer'), (c) => updateAnodeGroup(c, ids.groups[2], { label: 'Rudder', zoneId: ids.zone, anodeModelKey: 'builtin:TW-AW-4020', quantity: 16, installedOn: day(-30), meanCurrentA: 1 }));
+    const third = await page();
+    expect(third.forecasts).not.toBe(first.forecasts);
+    expect(third.rows.find((r) => r.label === 'Rudder')!.installedNetKg).toBeCloseTo(16 * 7.7, 9); // TW-AW-4020: 7.7 kg net (catalogue)
+    const fresh = (await computePlans(await ctx('viewer'), { assetIds: [ids.tug] }))[0];
+    expect(third.rows.map((r) => [r.label, r.renewBy, r.renewal])).toEqual(fresh.groups.map((g) => [g.group.label, g.forecast?.renewBy ? toDateOnly(g.forecast.renewBy) : null, third.rows.find((r) => r.groupId === g.group.id)!.renewal]));
+    expect(third.outlook).toBe(fresh.outlook);
+    // A stored version from another day is not trusted: computed afresh each time until the worker refreshes it.
+    await (await getEm()).fork().getConnection().execute(`update asset_outlook set computed_on = computed_on - 1 where asset_id = ?`, [ids.tug]);
+    const fourth = await page();
+    const fifth = await page();
+    expect(fifth.forecasts).not.toBe(fourth.forecasts);
+    expect(fifth.rows).toEqual(fourth.rows);
+    await refreshStaleOutlooks((await getEm()).fork());
   });
 
   it('a change that rolls back leaves the stored summary as it was', async () => {

@@ -8,6 +8,7 @@ import type { GroupWithForecast } from '../forecast/group-forecasts';
 import { computePlans, renewalMarginMonths, renewalRuleOf, type AssetPlan } from '../planner/compute-plans';
 import { renewalPlanSummary, renewalReasonOf } from '../planner/planner-view';
 import { inSequence } from '../../sql';
+import { assetPlanFor } from '../planner/stored-outlooks';
 
 export type { DepletionSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries } from '@/lib/register/depletion-series';
@@ -68,15 +69,15 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   requirePermission(ctx, 'org:read');
   const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, plans, catalogue] = await inSequence(
+  const [zones, designs, surveys, plan, catalogue] = await inSequence(
     () => ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
     () => ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results', 'anodeModel'] }),
     () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
-    // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once archived.
-    () => computePlans(ctx, { assetIds: [asset.id], today, loaded: asset }),
+    // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once
+    // archived. Kept per process while the asset's stored version stands (stored-outlooks.ts).
+    () => assetPlanFor(ctx, asset, today, async () => (await computePlans(ctx, { assetIds: [asset.id], today, loaded: asset }))[0] ?? null),
     () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
   );
-  const plan = plans[0] ?? null;
   // The plan read the dockings already (all but cancelled ones, by planned start); an archived asset has no plan.
   const dockings = plan ? plan.dockings : await ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } });
   const forecasts = plan?.groups ?? [];

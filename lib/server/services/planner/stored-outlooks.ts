@@ -1,5 +1,6 @@
 import type { AssetOutlook } from '@/lib/forecast';
 import { toDateOnly } from '@/lib/dates/date-only';
+import type { Asset } from '@/entities';
 import type { OrgContext } from '../../org-context';
 import { pgArray } from '../../sql';
 import { dockingDate, type AssetPlan } from './compute-plans';
@@ -42,11 +43,11 @@ export async function storeOutlooks(ctx: Pick<OrgContext, 'em' | 'organisation'>
   const day = toDateOnly(today);
   const rows = [...plans].sort((a, b) => (a.asset.id < b.asset.id ? -1 : a.asset.id > b.asset.id ? 1 : 0)).map((plan) => ({ id: plan.asset.id, ...planSummaryOf(plan) }));
   await ctx.em.execute(
-    `insert into asset_outlook (asset_id, organisation_id, computed_on, outlook, next_docking_id, mass_due_next_kg, renew_by, updated_at)
-     select t.asset_id, ?::uuid, ?::date, t.outlook, t.next_docking_id, t.mass_due_next_kg, t.renew_by, now()
+    `insert into asset_outlook (asset_id, organisation_id, computed_on, outlook, next_docking_id, mass_due_next_kg, renew_by, version, updated_at)
+     select t.asset_id, ?::uuid, ?::date, t.outlook, t.next_docking_id, t.mass_due_next_kg, t.renew_by, gen_random_uuid(), now()
        from unnest(?::uuid[], ?::text[], ?::uuid[], ?::float8[], ?::date[]) as t(asset_id, outlook, next_docking_id, mass_due_next_kg, renew_by)
      on conflict (asset_id) do update set computed_on = excluded.computed_on, outlook = excluded.outlook, next_docking_id = excluded.next_docking_id,
-       mass_due_next_kg = excluded.mass_due_next_kg, renew_by = excluded.renew_by, updated_at = excluded.updated_at`,
+       mass_due_next_kg = excluded.mass_due_next_kg, renew_by = excluded.renew_by, version = excluded.version, updated_at = excluded.updated_at`,
     [
       ctx.organisation.id,
       day,
@@ -69,4 +70,43 @@ export function storedSummary(row: Record<string, unknown>, today: Date): PlanSu
     massDueAtNextDockingKg: Number(row.mass_due_next_kg ?? 0),
     renewBy: (row.renew_by as string | null) ?? null,
   };
+}
+
+// ---------- the asset page's plan, kept per process while its stored version stands ----------
+
+const KEPT_PLANS = 256;
+const keptPlans = new Map<string, { version: string; day: string; plan: AssetPlan }>();
+
+/**
+ * The plan of one asset (what the asset page shows: forecasts, proposals, outlook), computed once per stored
+ * version. The unit of work stores a new version (storeOutlooks) in the transaction of every change that feeds
+ * the plan, so a plan kept here under the version read now was computed from the same data; a version of
+ * another day, or none, is computed afresh and not kept. Several app instances each keep their own, all keyed
+ * on the one version in PostgreSQL. At most KEPT_PLANS plans, the least recently used dropped first.
+ */
+export async function assetPlanFor(ctx: OrgContext, asset: Asset, today: Date, compute: () => Promise<AssetPlan | null>): Promise<AssetPlan | null> {
+  if (asset.archivedAt) return compute();
+  const day = toDateOnly(today);
+  const [stored] = await ctx.em.execute<{ version: string; day: string }[]>(
+    `select version, to_char(computed_on, 'YYYY-MM-DD') as day from asset_outlook where asset_id = ? and organisation_id = ?`,
+    [asset.id, ctx.organisation.id],
+  );
+  const kept = keptPlans.get(asset.id);
+  if (stored && stored.day === day && kept && kept.version === stored.version && kept.day === day) {
+    keptPlans.delete(asset.id);
+    keptPlans.set(asset.id, kept);
+    return kept.plan;
+  }
+  const plan = await compute();
+  if (plan && stored && stored.day === day) {
+    keptPlans.delete(asset.id);
+    keptPlans.set(asset.id, { version: stored.version, day, plan });
+    if (keptPlans.size > KEPT_PLANS) keptPlans.delete(keptPlans.keys().next().value!);
+  }
+  return plan;
+}
+
+/** For tests: forget every kept plan. */
+export function forgetKeptPlans() {
+  keptPlans.clear();
 }
