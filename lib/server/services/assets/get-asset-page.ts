@@ -36,6 +36,16 @@ export interface ForecastRow {
 
 const dayOrNull = (d: Date | null | undefined) => (d ? toDateOnly(d) : null);
 
+/**
+ * The depletion chart's step: a month, or longer so a line has at most about CHART_POINTS points. The chart is
+ * some 700 drawing units wide; a point a month over a horizon of decades only added weight to the page.
+ */
+const CHART_POINTS = 120;
+export function chartStepMonths(from: Date, to: Date): number {
+  const months = (to.getTime() - from.getTime()) / (30.436875 * 86_400_000);
+  return Math.max(1, Math.ceil(months / CHART_POINTS));
+}
+
 function basisWords(f: GroupWithForecast): string {
   if (!f.forecast) return f.noForecastReason ?? 'no forecast';
   const p = f.demandProfile;
@@ -94,7 +104,7 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
       const start = parseDateOnly(f.group.installedOn);
       return {
         label: f.group.label,
-        points: fc.remainingSeries(start, horizon, 1).map((p) => ({ date: p.date, kg: p.remainingFraction * fc.installedMassKg })),
+        points: fc.remainingSeries(start, horizon, chartStepMonths(start, horizon)).map((p) => ({ date: p.date, kg: p.remainingFraction * fc.installedMassKg })),
         surveys: f.surveys.map((s) => ({ date: s.date, kg: s.remainingFraction * fc.installedMassKg })),
         endKg: fc.endFraction * fc.installedMassKg,
         endOfLife: fc.endOfLife,
