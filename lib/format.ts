@@ -1,7 +1,19 @@
 // Number formatting for engineering screens and printed lists: fixed digits, thin grouping, unit beside.
+// One formatter per number of digits, made once: toLocaleString with options builds a new one on every call,
+// which was the single largest cost of rendering a page of figures.
+const formatters = new Map<number, Intl.NumberFormat>();
+function formatterFor(digits: number): Intl.NumberFormat {
+  let formatter = formatters.get(digits);
+  if (!formatter) {
+    formatter = new Intl.NumberFormat('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+    formatters.set(digits, formatter);
+  }
+  return formatter;
+}
+
 export function fmt(value: number | null | undefined, digits = 2): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
-  return value.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  return formatterFor(digits).format(value);
 }
 
 /** Significant-figure formatting for quantities whose size varies a lot (resistances, currents). */
