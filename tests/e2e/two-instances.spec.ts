@@ -3,13 +3,13 @@
 // environment on another port, and checks that what must be shared is shared: a session made on one instance
 // works on the other and ends on both, and the sign-in rate limits count across both (they live in PostgreSQL).
 // The scheduled jobs and reminders with two workers are checked in tests/integration/fleet-*.test.ts.
-import http from 'node:http';
 import path from 'node:path';
 import { randomInt } from 'node:crypto';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { expect, request as playwrightRequest, test, type APIRequestContext } from '@playwright/test';
 import { LIMITS } from '@/lib/server/auth/rate-limit';
 import { demo, demoUser, signIn } from './helpers';
+import { guess, newPeer, signInForm } from '../fixtures/raw-sign-in';
 
 const ROOT = path.resolve(import.meta.dirname, '..', '..');
 const urlA = new URL(process.env.E2E_BASE_URL ?? 'http://127.0.0.1:3100');
@@ -112,49 +112,6 @@ test('a session made on one instance works on the other, and signing out on the 
 });
 
 // ----- rate limits: no-script form posts from an address of their own in 127/8 (as tests/security/http/throttling.spec.ts) -----
-
-function send(base: URL, peer: string, method: 'GET' | 'POST', pathname: string, headers: Record<string, string>, body?: Buffer) {
-  return new Promise<{ status: number; text: string }>((resolve, reject) => {
-    const req = http.request({ host: base.hostname, port: base.port, method, path: pathname, localAddress: peer, headers: { ...headers, ...(body ? { 'content-length': String(body.length) } : {}) } }, (res) => {
-      const chunks: Buffer[] = [];
-      res.on('data', (c: Buffer) => chunks.push(c));
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, text: Buffer.concat(chunks).toString('utf8') }));
-    });
-    req.on('error', reject);
-    req.end(body);
-  });
-}
-
-const decode = (s: string) => s.replace(/&quot;/g, '"').replace(/&#x27;/g, "'").replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&amp;/g, '&');
-
-/** The sign-in form's fields as an instance rendered them (the action's hidden fields included). */
-async function signInForm(base: URL, peer: string) {
-  const page = await send(base, peer, 'GET', '/sign-in', {});
-  expect(page.status).toBe(200);
-  const form = page.text.match(/<form[^>]*>([\s\S]*?)<\/form>/)?.[1] ?? '';
-  const fields: [string, string][] = [];
-  for (const [input] of form.matchAll(/<input[^>]*>/g)) {
-    const name = input.match(/name="([^"]*)"/)?.[1];
-    if (name) fields.push([decode(name), decode(input.match(/value="([^"]*)"/)?.[1] ?? '')]);
-  }
-  expect(fields.some(([name]) => name.startsWith('$ACTION'))).toBe(true);
-  return fields;
-}
-
-async function guess(base: URL, peer: string, fields: [string, string][], email: string): Promise<string> {
-  const form = new FormData();
-  for (const [name, value] of fields) form.append(name, name === 'email' ? email : name === 'password' ? 'Winter2026!-guess' : value);
-  if (!fields.some(([n]) => n === 'email')) form.append('email', email);
-  if (!fields.some(([n]) => n === 'password')) form.append('password', 'Winter2026!-guess');
-  const encoded = new Request('http://x/', { method: 'POST', body: form });
-  const body = Buffer.from(await encoded.arrayBuffer());
-  const response = await send(base, peer, 'POST', '/sign-in', { 'content-type': encoded.headers.get('content-type')!, origin: base.origin }, body);
-  if (response.text.includes('Too many failed sign-ins')) return 'blocked';
-  if (response.text.includes('The e-mail address or password is not right.')) return 'refused';
-  return `other (${response.status})`;
-}
-
-const newPeer = () => `127.${randomInt(1, 254)}.${randomInt(1, 254)}.${randomInt(2, 254)}`;
 
 /** Failed sign-ins from one address, the n-th sent to instances[n % instances.length]; the outcome of each. */
 async function guesses(instances: URL[], count: number, emailFor: (i: number) => string) {
