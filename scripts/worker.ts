@@ -38,8 +38,8 @@ async function main() {
   await boss.schedule(JOBS.reminders, SCHEDULES[JOBS.reminders], {}, { tz: 'UTC' });
   await boss.schedule(JOBS.digest, SCHEDULES[JOBS.digest], {}, { tz: 'UTC' });
   await boss.work(JOBS.reminders, async () => {
-    const { queued } = await queueDockingReminders(orm.em.fork());
-    if (queued) console.log(`[worker] docking reminders queued: ${queued}`);
+    const { queued, failed } = await queueDockingReminders(orm.em.fork());
+    if (queued || failed) console.log(`[worker] docking reminders queued: ${queued}${failed ? `; ${failed} could not be prepared (tried again next pass)` : ''}`);
   });
   await boss.work(JOBS.digest, async () => {
     const { queued } = await queueWeeklyDigests(orm.em.fork());
@@ -61,14 +61,15 @@ async function main() {
   await boss.schedule(JOBS.housekeeping, SCHEDULES[JOBS.housekeeping], {}, { tz: 'UTC' });
   await boss.send(JOBS.housekeeping, {}, { singletonKey: 'startup', singletonSeconds: 300 });
   await boss.work(JOBS.housekeeping, async () => {
+    // First, so that a failure of the clean-ups below does not leave the overview on yesterday's summaries.
+    const outlooks = await refreshStaleOutlooks(orm.em.fork());
+    if (outlooks) console.log(`[worker] asset outlooks brought to today: ${outlooks}`);
     const removed = await deleteExpiredIdempotencyKeys(orm.em.fork());
     if (removed) console.log(`[worker] expired idempotency keys removed: ${removed}`);
     const purged = await purgeDeletedSurveys(orm.em.fork());
     if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
     const files = await purgeAttachmentBin(orm.em.fork());
     if (files) console.log(`[worker] deleted attachments past their undo window removed: ${files}`);
-    const outlooks = await refreshStaleOutlooks(orm.em.fork());
-    if (outlooks) console.log(`[worker] asset outlooks brought to today: ${outlooks}`);
   });
 
   let stopping = false;

@@ -5,7 +5,8 @@ import { useEffect, useRef, useState, type ReactNode } from 'react';
 /**
  * A `<details>` whose content is rendered only once it is first opened (and kept after, so a half-filled form
  * survives closing it). Pages carry many closed edit forms: rendering each on every request cost more than the
- * rest of the page (measured on the asset page, `npm run bench`).
+ * rest of the page (measured on the asset page, `npm run bench`). Without JavaScript the content does not appear;
+ * the app's tables and forms need it anyway.
  */
 export function Disclosure({ summary, children, className, summaryClassName = 'cursor-pointer text-sm text-tide-600', defaultOpen = false, id }: { summary: ReactNode; children: ReactNode; className?: string; summaryClassName?: string; defaultOpen?: boolean; id?: string }) {
   const [open, setOpen] = useState(defaultOpen);

@@ -125,7 +125,9 @@ export function runInOrg<T>(access: OrgAccess, work: (ctx: OrgContext) => Promis
  * The way in for an organisation entry point that only reads (the JSON lists): the same membership and
  * permission checks as runInOrg, without a transaction (a read has nothing to commit or roll back, and
  * begin, flush and commit were a third of a list request's cost). A read that records a change is a
- * programming error: it throws before answering, and nothing is written (nothing is ever flushed here).
+ * programming error: it throws before answering, and nothing is written (nothing is ever flushed here). The check
+ * sees the entity manager's changes and the effects; a native statement (em.execute, nativeUpdate) would run on its
+ * own, so a read-only route must call only services that read.
  */
 export async function readInOrg<T>(access: OrgAccess, work: (ctx: OrgContext) => Promise<T>): Promise<T> {
   const em = await getEm();

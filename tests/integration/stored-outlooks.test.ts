@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { addDays } from 'date-fns';
-import { DesignSchema, RenewalSchema, type Organisation, type User } from '@/entities';
+import { DesignSchema, DockingSchema, RenewalSchema, type Organisation, type User } from '@/entities';
 import type { Role } from '@/lib/roles';
 import { toDateOnly } from '@/lib/dates/date-only';
 import { getEm, getOrm } from '@/lib/server/db';
@@ -13,7 +13,7 @@ import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/serv
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { createDocking, updateDocking } from '@/lib/server/services/planner/dockings';
-import { confirmRenewal } from '@/lib/server/services/planner/renewals';
+import { addRenewal, cancelRenewal, confirmRenewal, updateRenewal } from '@/lib/server/services/planner/renewals';
 import { computePlans } from '@/lib/server/services/planner/compute-plans';
 import { forgetKeptPlans, planSummaryOf } from '@/lib/server/services/planner/stored-outlooks';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
@@ -76,6 +76,11 @@ async function expectOverviewMatchesFreshPlans() {
       renewBy: want.renewBy,
     });
   }
+  // The tug's asset page, as this process keeps it, against the same page computed afresh.
+  const kept = await getAssetPage(await ctx('viewer'), ids.tug, today);
+  forgetKeptPlans();
+  const afresh = await getAssetPage(await ctx('viewer'), ids.tug, today);
+  expect({ outlook: kept.outlook, rows: kept.rows }).toEqual({ outlook: afresh.outlook, rows: afresh.rows });
   return fleet;
 }
 
@@ -125,6 +130,16 @@ describe('the stored plan summary (asset_outlook)', () => {
       ['the asset becomes high-strength steel', () => as('engineer')((c) => updateAsset(c, ids.tug, { kind: 'vessel', name: 'Store Tug', hullMaterial: 'steel', lengthBppM: 30, beamM: 9, draughtM: 3.5, blockCoefficient: 0.55, highStrengthSteel: 'on' }))],
       ['a group is enlarged', () => as('engineer')((c) => updateAnodeGroup(c, ids.groups[1], { label: 'Bottom S1', zoneId: ids.zone, anodeModelKey: 'builtin:TW-AW-4020', quantity: 30, installedOn: day(-1100), meanCurrentA: 5 }))],
       ['the renewal margin changes for the whole organisation', () => as('owner')((c) => updateOrganisationSettings(c, { name: 'Outlook Store Marine', renewalMarginMonths: 18, renewalThresholdPercent: 30, fittingRatePerKg: '', currency: 'EUR' }))],
+      ['a booked renewal moves to another docking', async () => {
+        const booked = await (await getEm()).fork().find(RenewalSchema, { group: { asset: ids.tug }, status: 'confirmed' }, { populate: ['docking'] });
+        const other = await (await getEm()).fork().find(DockingSchema, { asset: ids.tug, id: { $ne: booked[0].docking.id }, status: 'planned' });
+        return as('planner')((c) => updateRenewal(c, booked[0].id, { dockingId: other[0].id, quantity: 10, notes: '' }));
+      }],
+      ['a booked renewal is cancelled', async () => {
+        const booked = await (await getEm()).fork().find(RenewalSchema, { group: { asset: ids.tug }, status: 'confirmed' });
+        return as('planner')((c) => cancelRenewal(c, booked[0].id));
+      }],
+      ['a renewal is booked by hand', () => as('planner')((c) => addRenewal(c, ids.docking, { groupId: ids.groups[2], reason: 'damage', quantity: '', notes: 'Bent by a fender' }))],
       ['a group is removed', () => as('engineer')((c) => removeAnodeGroup(c, ids.groups[0], { removedOn: day(0), reason: 'Renewed in service' }))],
     ];
     const outlooks = new Set<string | null>();
@@ -207,6 +222,11 @@ describe('the stored plan summary (asset_outlook)', () => {
     expect(archived.rows.map((r) => [r.name, r.outlook, r.nextDocking])).toEqual([['Store Jetty', null, null]]);
     await (await getEm()).fork().getConnection().execute(`update asset_outlook set computed_on = computed_on - 3 where asset_id = ?`, [ids.jetty]);
     expect(await refreshStaleOutlooks((await getEm()).fork())).toBe(0);
+    await expectOverviewMatchesFreshPlans();
+    // While archived, the organisation's settings move every plan; restored, the jetty shows its plan as it is now.
+    await runAs(ctx('owner'), (c) => updateOrganisationSettings(c, { name: 'Outlook Store Marine', renewalMarginMonths: 3, renewalThresholdPercent: 20, fittingRatePerKg: '', currency: 'EUR' }));
+    await runAs(ctx('engineer'), (c) => setAssetArchived(c, ids.jetty, false));
+    expect((await storedRows()).find((r) => r.asset_id === ids.jetty)!.computed_on).toBe(day(0));
     await expectOverviewMatchesFreshPlans();
   });
 

@@ -16,9 +16,13 @@ async function runMigration(orm: MikroORM, direction: 'up' | 'down') {
   for (const sql of migration.getQueries()) await em.execute(String(sql));
 }
 
+// A whole model snapshot, as the app writes one (TW-AW-4020: 7.7 kg net, the built-in catalogue), so that nothing else
+// reading the shared test database (the docking reminders scan every organisation) trips over this test's rows.
+const MODEL = JSON.stringify({ key: 'builtin:TW-AW-4020', designation: 'TW-AW-4020', alloy: 'al-zn-in', mounting: 'flush-weld', netMassKg: 7.7, grossMassKg: 8.7, capacityAhPerKg: 2000, utilisationFactor: 0.8, potentialV: -1.05 });
+
 const insertGroup = (id: string, org: string, asset: string, label: string, extra: { replaces?: string; removedOn?: string; createdAt?: string } = {}) =>
   `insert into anode_group (id, organisation_id, asset_id, label, model, quantity, installed_on, removed_on, replaces_group_id, created_at, updated_at)
-   values ('${id}', '${org}', '${asset}', '${label}', '{}', 4, '2025-01-01', ${extra.removedOn ? `'${extra.removedOn}'` : 'null'}, ${extra.replaces ? `'${extra.replaces}'` : 'null'}, ${extra.createdAt ? `'${extra.createdAt}'` : 'now()'}, now())`;
+   values ('${id}', '${org}', '${asset}', '${label}', '${MODEL}', 4, '2025-01-01', ${extra.removedOn ? `'${extra.removedOn}'` : 'null'}, ${extra.replaces ? `'${extra.replaces}'` : 'null'}, ${extra.createdAt ? `'${extra.createdAt}'` : 'now()'}, now())`;
 
 afterAll(async () => (await getOrm()).close(true));
 
@@ -33,7 +37,7 @@ describe('the exactly-once migration', () => {
     await runMigration(orm, 'down');
     try {
       await em.execute(`insert into asset (id, organisation_id, kind, name, has_impressed_current, anaerobic, high_strength_steel, created_at, updated_at) values ('${asset}', '${org}', 'vessel', 'Duplicate Vessel', false, false, false, now(), now())`);
-      await em.execute(`insert into docking (id, organisation_id, asset_id, kind, status, planned_start, created_at, updated_at) values ('${docking}', '${org}', '${asset}', 'intermediate', 'planned', '2027-01-01', now(), now())`);
+      await em.execute(`insert into docking (id, organisation_id, asset_id, kind, status, planned_start, created_at, updated_at) values ('${docking}', '${org}', '${asset}', 'intermediate', 'planned', '2021-01-01', now(), now())`);
       const [old, copyA, copyB, twinA, twinB] = [randomUUID(), randomUUID(), randomUUID(), randomUUID(), randomUUID()];
       // A renewal recorded as fitted twice: two new groups replacing one.
       await em.execute(insertGroup(old, org, asset, 'Bottom P1', { removedOn: '2026-06-01' }));

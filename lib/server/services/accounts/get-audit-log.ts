@@ -3,10 +3,10 @@ import { inSequence } from '../../sql';
 
 // The organisation's own events, plus its members' account events (sign-ins, lock-outs, password changes),
 // which belong to no organisation. Plain SQL, two statements: the log is read page by page and often.
-const WHERE = `e.organisation_id = ?
+const WHERE = `(e.organisation_id = ?
    or (e.organisation_id is null and e.actor_user_id in (select mb.user_id from membership mb where mb.organisation_id = ?))
    or (e.organisation_id is null and e.action = 'user.sign-in-locked'
-       and e.actor_email in (select u.email from membership mb join app_user u on u.id = mb.user_id where mb.organisation_id = ?))`;
+       and e.actor_email in (select u.email from membership mb join app_user u on u.id = mb.user_id where mb.organisation_id = ?)))`;
 
 export async function getAuditLog(ctx: OrgContext, { page = 1, pageSize = 50 }: { page?: number; pageSize?: number } = {}) {
   requirePermission(ctx, 'audit:read');

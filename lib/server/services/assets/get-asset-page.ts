@@ -85,7 +85,8 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
     () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
     // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once
     // archived. Kept per process while the asset's stored version stands (stored-outlooks.ts).
-    () => assetPlanFor(ctx, asset, today, async () => (await computePlans(ctx, { assetIds: [asset.id], today, loaded: asset }))[0] ?? null),
+    // The plan reads the asset again (not `asset`, read before the version): a plan kept under a version is computed from data no older than it.
+    () => assetPlanFor(ctx, asset, today, async () => (await computePlans(ctx, { assetIds: [asset.id], today }))[0] ?? null),
     () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
   );
   // The plan read the dockings already (all but cancelled ones, by planned start); an archived asset has no plan.

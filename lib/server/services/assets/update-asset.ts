@@ -32,5 +32,7 @@ export async function setAssetArchived(ctx: OrgContext, assetId: string, archive
   if (!archived && asset.archivedAt) await assertAssetLimit(ctx);
   asset.archivedAt = archived ? new Date() : null;
   audit(ctx, { action: archived ? 'asset.archived' : 'asset.restored', targetType: 'asset', targetId: asset.id, details: { name: asset.name } });
+  // A restored asset's plan may have moved while it was archived (settings, dockings): store it afresh.
+  if (!archived) ctx.effects.assetChanged(asset.id);
   return asset;
 }

@@ -38,12 +38,9 @@ export const dockingDate = (d: Pick<Docking, 'plannedStart' | 'actualStart'>) =>
  * renew-by date (the organisation's renewal threshold, or the utilisation factor if that comes first)
  * less the organisation's renewal margin.
  */
-export async function computePlans(ctx: OrgContext, { assetIds, today = new Date(), loaded }: { assetIds?: string[]; today?: Date; loaded?: Asset } = {}): Promise<AssetPlan[]> {
+export async function computePlans(ctx: OrgContext, { assetIds, today = new Date() }: { assetIds?: string[]; today?: Date } = {}): Promise<AssetPlan[]> {
   requirePermission(ctx, 'org:read');
-  // `loaded`: the one asset the caller has already read in this context (the asset page), not read again.
-  const assets = loaded
-    ? loaded.archivedAt || loaded.organisation.id !== ctx.organisation.id ? [] : [loaded]
-    : await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) }, { orderBy: { name: 'asc' } });
+  const assets = await ctx.em.find(AssetSchema, { organisation: ctx.organisation, archivedAt: null, ...(assetIds ? { id: { $in: assetIds } } : {}) }, { orderBy: { name: 'asc' } });
   if (!assets.length) return [];
   const ids = assets.map((a) => a.id);
   const [forecasts, dockings, booked, latest] = await inSequence(

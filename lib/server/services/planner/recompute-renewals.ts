@@ -2,7 +2,7 @@ import { RenewalSchema } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { classifyRemaining } from '@/lib/surveys/criteria';
 import { computePlans } from './compute-plans';
-import { inSequence } from '../../sql';
+import { inSequence, pgArray } from '../../sql';
 import { storeOutlooks } from './stored-outlooks';
 
 /**
@@ -16,6 +16,12 @@ import { storeOutlooks } from './stored-outlooks';
 export async function recomputeRenewals(ctx: OrgContext, assetIds?: string[], today = new Date()) {
   // Derived data that any member's permitted change may refresh (an inspector's survey moves proposals).
   requirePermission(ctx, 'org:read');
+  // One recompute of an asset at a time, in asset-id order: a second change to the same asset waits here and then
+  // computes from what the first committed, so neither stores a summary (or proposals) without the other's change.
+  await ctx.em.execute(
+    `select id from asset where organisation_id = ? and archived_at is null ${assetIds ? 'and id = any(?::uuid[])' : ''} order by id for no key update`,
+    assetIds ? [ctx.organisation.id, pgArray(assetIds)] : [ctx.organisation.id],
+  );
   const plans = await computePlans(ctx, { assetIds, today });
   const groupIds = plans.flatMap((p) => p.groups.map((g) => g.group.id));
   const [proposed, cancelled] = groupIds.length

@@ -30,6 +30,8 @@ export async function confirmRenewal(ctx: OrgContext, renewalId: string) {
   r.confirmedByEmail = ctx.user.email;
   r.confirmedAt = new Date();
   log(ctx, 'renewal.confirmed', r);
+  // A booked renewal is 'kept' by the scheduler: the outlook, the mass due and the asset page's words follow it.
+  ctx.effects.assetChanged(r.docking.asset.id);
   return r;
 }
 
@@ -50,6 +52,7 @@ export async function updateRenewal(ctx: OrgContext, renewalId: string, input: u
     r.confirmedAt = new Date();
   }
   log(ctx, 'renewal.updated', r, { quantity: data.quantity });
+  ctx.effects.assetChanged(docking.asset.id);
   return r;
 }
 
@@ -109,6 +112,7 @@ export async function cancelRenewal(ctx: OrgContext, renewalId: string) {
   if (r.status === 'fitted' || r.status === 'cancelled') throw new AppError('conflict', `This renewal is already ${r.status}.`);
   r.status = 'cancelled';
   log(ctx, 'renewal.cancelled', r);
+  ctx.effects.assetChanged(r.docking.asset.id);
   return r;
 }
 
@@ -127,6 +131,7 @@ export async function addRenewal(ctx: OrgContext, dockingId: string, input: unkn
   await ctx.em.nativeDelete(RenewalSchema, { group, status: 'proposed' });
   const r = ctx.em.create(RenewalSchema, { organisation: ctx.organisation, docking, group, status: 'confirmed', reason: data.reason, quantity: data.quantity ?? group.quantity, notes: data.notes, rationale: null, confirmedByEmail: ctx.user.email, confirmedAt: new Date(), fittedOn: null, newGroupId: null });
   audit(ctx, { action: 'renewal.booked', targetType: 'renewal', targetId: r.id, details: { asset: docking.asset.name, group: group.label, reason: data.reason } });
+  ctx.effects.assetChanged(docking.asset.id);
   return r;
 }
 

@@ -35,8 +35,8 @@ export function planSummaryOf(plan: AssetPlan): PlanSummary {
 
 /**
  * Stores the plans' summaries as of `today` (its UTC day), in one statement, inside the caller's transaction:
- * they commit with the change that moved them or not at all. Rows are written in asset-id order, so two
- * transactions storing overlapping assets wait for each other instead of deadlocking.
+ * they commit with the change that moved them or not at all. recomputeRenewals has locked the assets' rows (in
+ * id order) before computing, so two changes to one asset store one after the other, each from committed data.
  */
 export async function storeOutlooks(ctx: Pick<OrgContext, 'em' | 'organisation'>, plans: readonly AssetPlan[], today: Date) {
   if (!plans.length) return;

@@ -57,6 +57,7 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     ? await em.find(MembershipSchema, { organisation: { $in: [...new Set(dockings.map((d) => d.organisation.id))] }, role: { $in: ['planner', 'owner'] } }, { populate: ['user'] })
     : [];
   let queued = 0;
+  let failed = 0;
   for (const docking of dockings) {
     // Whole UTC days between two date-only values, whatever the server's time zone.
     const days = Math.round((parseDateOnly(docking.plannedStart).getTime() - parseDateOnly(today).getTime()) / 86_400_000);
@@ -70,7 +71,8 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     const words = eventWords(docking.asset.kind);
     // The proposals as of today (a group may have become overdue since the last change), then the list; the PDF
     // only when the list has something to fit: an empty list is never attached, the e-mail says what is missing.
-    const prepared = await runAsSystem(
+    let prepared: Awaited<ReturnType<typeof prepare>>;
+    const prepare = () => runAsSystem(
       docking.organisation.id,
       async (ctx) => {
         // One pass at a time per asset: two workers' passes at once (a start-up pass and a cron slot) each found
@@ -84,6 +86,15 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
       },
       { em: em.fork() },
     );
+    try {
+      prepared = await prepare();
+    } catch (error) {
+      // One docking's bad data must not hold back every other organisation's reminders; this one is tried again at
+      // the next pass (nothing was queued for it).
+      failed++;
+      console.error(`[tidewarden] the reminder for docking ${docking.id} could not be prepared; it is tried again at the next pass:`, error instanceof Error ? error.message : error);
+      continue;
+    }
     const rule = renewalRuleSentence(renewalRuleOf({ organisation: docking.organisation }), docking.asset.kind);
     const base = `${getEnv().APP_URL}/o/${docking.organisation.slug}`;
     const url = `${base}/dockings/${docking.id}`;
@@ -115,5 +126,5 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
       if (sent) queued++;
     }
   }
-  return { queued };
+  return { queued, failed };
 }
