@@ -12,7 +12,7 @@ type Params = Record<string, string>;
 interface Options<Q extends z.ZodType | undefined> {
   permission: Permission;
   query?: Q;
-  /** A GET that only reads: served through readInOrg (no transaction); a change recorded there throws. */
+  /** An entry point that only reads or computes (the JSON lists, the stateless calculation): served through readInOrg (no transaction); a change recorded there throws. */
   readOnly?: boolean;
 }
 
@@ -65,7 +65,8 @@ export function withOrg<Q extends z.ZodType | undefined = undefined>(
       if (!user) throw new AppError('unauthenticated', 'Sign in to continue.');
       const key = UNSAFE.has(req.method) ? readIdempotencyKey(req.headers.get(IDEMPOTENCY_HEADER)) : null;
       const claim = key ? { owner: user.id, key, fingerprint: await requestFingerprint(req) } : null;
-      const readOnly = options.readOnly === true && req.method === 'GET';
+      // A keyed request stores its answer for repeats, which is a write: it takes the unit of work.
+      const readOnly = options.readOnly === true && !claim;
       const result = await (readOnly ? readInOrg : runInOrg)({ user: toCurrentUser(user), slug: params.org ?? '', permission: options.permission, ip: await clientAddress() }, async (ctx) => {
         if (claim) {
           const replay = await claimIdempotencyKey(ctx.em, claim);

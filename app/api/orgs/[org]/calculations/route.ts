@@ -14,5 +14,5 @@ export const POST = withOrg(
     }
     return { result: designAnodeSystem(body as Parameters<typeof designAnodeSystem>[0]) };
   },
-  { permission: 'org:read' },
+  { permission: 'org:read', readOnly: true },
 );
