@@ -2,6 +2,7 @@ import { AnodeGroupSchema, DesignSchema, type AnodeGroup } from '@/entities';
 import { DEFAULT_RENEWAL_THRESHOLD_REMAINING, forecastGroup, ForecastInputError, type DemandProfile, type GroupForecast } from '@/lib/forecast';
 import { StoredRecordError, type DesignRecord } from '@/lib/schemas/design-record';
 import { requirePermission, type OrgContext } from '../../org-context';
+import { pgArray } from '../../sql';
 import { readDesignRecord } from '../designs/read-design-record';
 import { shareOfDesignCurrent } from '../register/anode-groups';
 import { designDemandProfile } from './design-demand-profile';
@@ -43,7 +44,7 @@ export async function loadGroupForecasts(ctx: OrgContext, { assetIds }: { assetI
        from survey_reading r join survey s on s.id = r.survey_id
       where r.remaining_fraction is not null and s.organisation_id = ? and r.anode_group_id = any(?::uuid[])
       order by s.surveyed_on`,
-    [ctx.organisation.id, `{${groups.map((g) => g.id).join(',')}}`],
+    [ctx.organisation.id, pgArray(groups.map((g) => g.id))],
   );
   const byGroup = new Map<string, { date: Date; remainingFraction: number }[]>();
   for (const r of readings) {

@@ -5,7 +5,7 @@ import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import { requirePermission, type OrgContext } from '../../org-context';
 import type { RenewalRuleSettings } from '@/lib/labels';
 import { loadGroupForecasts, renewalThresholdRemaining, type GroupWithForecast } from '../forecast/group-forecasts';
-import { inSequence } from '../../sql';
+import { inSequence, pgArray } from '../../sql';
 
 export interface AssetPlan {
   asset: Asset;
@@ -52,7 +52,7 @@ export async function computePlans(ctx: OrgContext, { assetIds, today = new Date
               (select max(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as least_negative,
               (select min(r.potential_ag_ag_cl_v) from survey_reading r where r.survey_id = s.id) as most_negative
          from survey s where s.organisation_id = ? and s.asset_id = any(?::uuid[]) order by s.asset_id, s.surveyed_on desc, s.created_at desc`,
-      [ctx.organisation.id, `{${ids.join(',')}}`],
+      [ctx.organisation.id, pgArray(ids)],
     ),
   );
   // The latest survey's extremes, V vs Ag/AgCl/seawater: the least negative reading decides under-protection, the most negative over-protection.

@@ -5,7 +5,6 @@ import { getEnv } from '../../env';
 import { anodeListFor, anodeListPdf } from '../planner/anode-list';
 import { recomputeRenewals } from '../planner/recompute-renewals';
 import { runAsSystem } from '../../unit-of-work';
-import { lockRow } from '../../sql';
 import { formatDateOnly, parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
 import { eventWords, forecastDateWords, statusWords, type EventWords } from '@/lib/labels';
 import type { AnodeList } from '@/lib/anode-list';
@@ -71,14 +70,11 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
     const words = eventWords(docking.asset.kind);
     // The proposals as of today (a group may have become overdue since the last change), then the list; the PDF
     // only when the list has something to fit: an empty list is never attached, the e-mail says what is missing.
-    let prepared: Awaited<ReturnType<typeof prepare>>;
     const prepare = () => runAsSystem(
       docking.organisation.id,
       async (ctx) => {
-        // One pass at a time per asset: two workers' passes at once (a start-up pass and a cron slot) each found
-        // no proposal for a group that had fallen due and each made one. The second now waits here and, once the
-        // first has committed, finds its proposal.
-        await lockRow(ctx.em, 'asset', docking.asset.id);
+        // recomputeRenewals locks the asset first: of two workers' passes at once (a start-up pass and a cron slot),
+        // the second waits and then finds the proposal the first made, instead of making a second one.
         const { plans } = await recomputeRenewals(ctx, [docking.asset.id], now);
         const { list } = await anodeListFor(ctx, docking.id);
         if (openLines(list).length) return await anodeListPdf(ctx, docking.id);
@@ -86,6 +82,7 @@ export async function queueDockingReminders(em: EntityManager, now = new Date())
       },
       { em: em.fork() },
     );
+    let prepared: Awaited<ReturnType<typeof prepare>>;
     try {
       prepared = await prepare();
     } catch (error) {
