@@ -1,13 +1,16 @@
-import { AnodeGroupChangeSchema, DesignSchema, DockingSchema, SurveySchema, ZoneSchema } from '@/entities';
+import { AssetSchema, DockingSchema } from '@/entities';
+import type { SurveyMethod, ZoneKind } from '@/entities';
 import { parseDateOnly, toDateOnly } from '@/lib/dates/date-only';
 import { renewalMarginSentence, renewalPlanWords, renewalRuleSentence } from '@/lib/labels';
 import { requirePermission, allowed, type OrgContext } from '../../org-context';
-import { getAssetOrThrow } from './get-asset';
-import { listCatalogue } from '../catalogue/anode-models';
+import { builtinKey, orgKey } from '../catalogue/anode-models';
+import { BUILTIN_ANODE_MODELS } from '@/lib/cp';
+import { notFound } from '../../errors';
+import { uuidOrNotFound } from '../../ids';
 import type { GroupWithForecast } from '../forecast/group-forecasts';
 import { computePlans, renewalMarginMonths, renewalRuleOf, type AssetPlan } from '../planner/compute-plans';
 import { renewalPlanSummary, renewalReasonOf } from '../planner/planner-view';
-import { inSequence } from '../../sql';
+import { pgArray } from '../../sql';
 import { assetPlanFor } from '../planner/stored-outlooks';
 
 export type { DepletionSeries } from '@/lib/register/depletion-series';
@@ -70,6 +73,54 @@ function forecastRows(forecasts: readonly AssetPlan['groups'][number][], assetKi
   }));
 }
 
+/** A zone as the asset page shows it and its edit form takes it. */
+interface PageZone {
+  id: string;
+  name: string;
+  kind: ZoneKind;
+  areaM2: number;
+  coatingCategory: string;
+  coatingAgeYears: number | null;
+  waterType: 'seawater' | 'brackish' | 'fresh' | 'sediment';
+  climate: string;
+  depthBand: string;
+  drainsCurrent: 'copper-alloy' | 'stainless' | null;
+}
+/** An anode model as the group form offers it. */
+export interface PageModel {
+  key: string;
+  designation: string;
+  alloy: string;
+  netMassKg: number;
+}
+type PageRow = Record<string, unknown> & {
+  tw_zones: PageZone[] | null;
+  tw_designs: { id: string; revision: number; title: string; status: string; preparedByName: string }[] | null;
+  tw_surveys: { id: string; surveyedOn: string; method: SurveyMethod; surveyor: string | null }[] | null;
+  tw_models: { id: string; designation: string; alloy: string; netMassKg: number }[] | null;
+  tw_version: string | null;
+  tw_day: string | null;
+};
+
+// Parameters: organisation (models), asset id, organisation. Archived assets included.
+const PAGE_SQL = `
+select a.*,
+  (select json_agg(json_build_object('id', z.id, 'name', z.name, 'kind', z.kind, 'areaM2', z.area_m2, 'coatingCategory', z.coating_category,
+          'coatingAgeYears', z.coating_age_years, 'waterType', z.water_type, 'climate', z.climate, 'depthBand', z.depth_band,
+          'drainsCurrent', z.drains_current) order by z.sort_order, z.created_at)
+     from zone z where z.asset_id = a.id and z.archived_at is null) as tw_zones,
+  (select json_agg(json_build_object('id', d.id, 'revision', d.revision, 'title', d.title, 'status', d.status, 'preparedByName', u.name)
+          order by d.revision desc)
+     from design d join app_user u on u.id = d.prepared_by_id where d.asset_id = a.id) as tw_designs,
+  (select json_agg(json_build_object('id', s.id, 'surveyedOn', to_char(s.surveyed_on, 'YYYY-MM-DD'), 'method', s.method, 'surveyor', s.surveyor)
+          order by s.surveyed_on desc, s.created_at desc)
+     from (select * from survey where asset_id = a.id order by surveyed_on desc, created_at desc limit 20) s) as tw_surveys,
+  (select json_agg(json_build_object('id', m.id, 'designation', m.designation, 'alloy', m.alloy, 'netMassKg', m.net_mass_kg) order by m.designation)
+     from anode_model m where m.organisation_id = ? and m.archived_at is null) as tw_models,
+  o.version as tw_version, to_char(o.computed_on, 'YYYY-MM-DD') as tw_day
+from asset a left join asset_outlook o on o.asset_id = a.id and o.organisation_id = a.organisation_id
+where a.id = ? and a.organisation_id = ?`;
+
 /**
  * Everything the asset page shows, read in one place: particulars, zones, designs, surveys, dockings,
  * the installed groups with their forecasts and the depletion curves, the latest changes, and the
@@ -77,23 +128,42 @@ function forecastRows(forecasts: readonly AssetPlan['groups'][number][], assetKi
  */
 export async function getAssetPage(ctx: OrgContext, assetId: string, today = new Date()) {
   requirePermission(ctx, 'org:read');
-  const asset = await getAssetOrThrow(ctx, assetId, { includeArchived: true });
+  uuidOrNotFound(assetId, 'Asset');
+  // Zones, designs, surveys, the stored plan version and (for a member who may fit anodes) the organisation's
+  // catalogue come with the asset in one plain statement: the page reads them only to show them, and building
+  // five ORM queries cost more than the page's rendering (measured). The version is read before the plan is
+  // computed (assetPlanFor), as it must be.
+  const [row] = await ctx.em.execute<PageRow[]>(PAGE_SQL, [ctx.organisation.id, assetId, ctx.organisation.id]);
+  if (!row) throw notFound('Asset');
+  const { tw_zones, tw_designs, tw_surveys, tw_models, tw_version, tw_day, ...assetRow } = row;
+  const asset = ctx.em.map(AssetSchema, assetRow);
   const canWrite = allowed(ctx, 'asset:write') && !asset.archivedAt;
-  const [zones, designs, surveys, plan, catalogue] = await inSequence(
-    () => ctx.em.find(ZoneSchema, { asset, archivedAt: null }, { orderBy: { sortOrder: 'asc', createdAt: 'asc' } }),
-    () => ctx.em.find(DesignSchema, { asset }, { orderBy: { revision: 'desc' }, populate: ['preparedBy', 'approvedBy'], exclude: ['inputs', 'basis', 'results', 'anodeModel'] }),
-    () => ctx.em.find(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc' }, limit: 20 }),
-    // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once
-    // archived. Kept per process while the asset's stored version stands (stored-outlooks.ts).
-    // The plan reads the asset again (not `asset`, read before the version): a plan kept under a version is computed from data no older than it.
-    () => assetPlanFor(ctx, asset, today, async () => (await computePlans(ctx, { assetIds: [asset.id], today }))[0] ?? null),
-    () => canWrite ? listCatalogue(ctx) : Promise.resolve([]),
-  );
+  const zones = (tw_zones ?? []).map((z) => ({ ...z, coatingAgeYears: z.coatingAgeYears ?? 0 }));
+  const designs = (tw_designs ?? []).map(({ preparedByName, ...d }) => ({ ...d, preparedBy: { name: preparedByName } }));
+  const surveys = tw_surveys ?? [];
+  const catalogue: PageModel[] = canWrite
+    ? [
+        ...BUILTIN_ANODE_MODELS.map((m) => ({ key: builtinKey(m.id), designation: m.designation, alloy: m.alloy, netMassKg: m.netMassKg })),
+        ...(tw_models ?? []).map((m) => ({ key: orgKey(m.id), designation: m.designation, alloy: m.alloy, netMassKg: m.netMassKg })),
+      ]
+    : [];
+  // The plan of the asset (forecasts with their renewals and the outlook), as the planner computes it; none once
+  // archived. Kept per process while the asset's stored version stands (stored-outlooks.ts).
+  // The plan reads the asset again (not `asset`, read before the version): a plan kept under a version is computed from data no older than it.
+  const plan = await assetPlanFor(ctx, asset, today, async () => (await computePlans(ctx, { assetIds: [asset.id], today }))[0] ?? null, tw_version ? { version: tw_version, day: tw_day! } : null);
   // The plan read the dockings already (all but cancelled ones, by planned start); an archived asset has no plan.
   const dockings = plan ? plan.dockings : await ctx.em.find(DockingSchema, { asset, status: { $ne: 'cancelled' } }, { orderBy: { plannedStart: 'asc' } });
   const forecasts = plan?.groups ?? [];
   const changes = forecasts.length
-    ? await ctx.em.find(AnodeGroupChangeSchema, { group: { $in: forecasts.map((f) => f.group.id) } }, { orderBy: { createdAt: 'desc' }, limit: 20, populate: ['group'] })
+    ? (
+        await ctx.em.execute<{ id: string; createdAt: Date; label: string; changedByEmail: string | null; changes: Record<string, [unknown, unknown]> }[]>(
+          `select c.id, c.created_at as "createdAt", g.label, c.changed_by_email as "changedByEmail", c.changes
+             from anode_group_change c join anode_group g on g.id = c.group_id
+            where c.group_id = any(?::uuid[]) and g.organisation_id = ?
+            order by c.created_at desc limit 20`,
+          [pgArray(forecasts.map((f) => f.group.id)), ctx.organisation.id],
+        )
+      ).map(({ label, createdAt, ...c }) => ({ ...c, createdAt: new Date(createdAt), group: { label } }))
     : [];
 
   // The chart runs half a year past the last end of life (or renew-by date), so every group's crossings are visible.

@@ -84,13 +84,23 @@ const keptPlans = new Map<string, { version: string; day: string; plan: AssetPla
  * another day, or none, is computed afresh and not kept. Several app instances each keep their own, all keyed
  * on the one version in PostgreSQL. At most KEPT_PLANS plans, the least recently used dropped first.
  */
-export async function assetPlanFor(ctx: OrgContext, asset: Asset, today: Date, compute: () => Promise<AssetPlan | null>): Promise<AssetPlan | null> {
+export async function assetPlanFor(
+  ctx: OrgContext,
+  asset: Asset,
+  today: Date,
+  compute: () => Promise<AssetPlan | null>,
+  /** The stored version and day when the caller read them already (read before anything the plan is computed from); null: none stored. */
+  read?: { version: string; day: string } | null,
+): Promise<AssetPlan | null> {
   if (asset.archivedAt) return compute();
   const day = toDateOnly(today);
-  const [stored] = await ctx.em.execute<{ version: string; day: string }[]>(
-    `select version, to_char(computed_on, 'YYYY-MM-DD') as day from asset_outlook where asset_id = ? and organisation_id = ?`,
-    [asset.id, ctx.organisation.id],
-  );
+  const [stored] =
+    read !== undefined
+      ? read ? [read] : []
+      : await ctx.em.execute<{ version: string; day: string }[]>(
+          `select version, to_char(computed_on, 'YYYY-MM-DD') as day from asset_outlook where asset_id = ? and organisation_id = ?`,
+          [asset.id, ctx.organisation.id],
+        );
   const kept = keptPlans.get(asset.id);
   if (stored && stored.day === day && kept && kept.version === stored.version && kept.day === day) {
     keptPlans.delete(asset.id);
