@@ -120,18 +120,26 @@ describe('POST /api/orgs/[org]/surveys/[surveyId]/capture', () => {
     expect(await readingsOf(survey.id)).toHaveLength(0);
   });
 
-  it('a deleted survey answers conflict for every item, with the words of lib/labels, and writes nothing', async () => {
+  it('a deleted survey answers 404 for the batch with the words of lib/labels (the phone marks each item), and writes nothing', async () => {
     const survey = await newSurvey();
     await as('engineer', (c) => deleteSurvey(c, survey.id));
     await signInAs(org.users.inspector);
     const { status, body } = await send(survey.id, { items: [reading('Dolphin 1'), reading('Dolphin 2')] });
-    expect(status).toBe(200);
-    expect(body.results.map((r: { status: string; message: string }) => [r.status, r.message])).toEqual([
-      ['conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone],
-      ['conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone],
-    ]);
+    expect(status).toBe(404);
+    expect(body.error).toMatchObject({ code: 'not-found', message: CAPTURE_CONFLICT_MESSAGES.surveyGone });
     const em = await getEm();
     expect(await em.count(SurveyReadingSchema, { location: { $in: ['Dolphin 1', 'Dolphin 2'] } })).toBe(0);
+  });
+
+  it('a survey deleted while a batch is under way is a conflict for the items after it', async () => {
+    const survey = await newSurvey();
+    await signInAs(org.users.inspector);
+    const em = await getEm();
+    const { captureReading } = await import('@/lib/server/services/surveys/capture-reading');
+    await as('engineer', (c) => deleteSurvey(c, survey.id));
+    const refused = await as('inspector', (c) => captureReading(c, survey.id, reading('Dolphin 3'))).then(() => null, (e) => e);
+    expect(refused).toMatchObject({ code: 'conflict', message: CAPTURE_CONFLICT_MESSAGES.surveyGone });
+    expect(await em.count(SurveyReadingSchema, { location: 'Dolphin 3' })).toBe(0);
   });
 
   it('an archived asset or a closed anode group is a conflict; an item recorded before stays a duplicate', async () => {
@@ -187,13 +195,15 @@ describe('POST /api/orgs/[org]/surveys/[surveyId]/capture', () => {
     expect((await readingsOf(survey.id)).map((r) => r.location)).toEqual(['Stair 1']);
   });
 
-  it("a non-member gets 404 for the whole batch; another organisation's survey id is a conflict for a member there", async () => {
+  it("a non-member gets 404 for the whole batch, and so does another organisation's survey id sent to one's own", async () => {
     const survey = await newSurvey();
     await signInAs(other.users.owner);
     const outsider = await send(survey.id, { items: [reading('Gate 1')] });
     expect(outsider.status).toBe(404);
+    expect(outsider.body.error.message).toBe('Organisation was not found.');
     const inOwn = await send(survey.id, { items: [reading('Gate 2')] }, other.organisation.slug);
-    expect(inOwn.body.results[0]).toMatchObject({ status: 'conflict', message: CAPTURE_CONFLICT_MESSAGES.surveyGone });
+    expect(inOwn.status).toBe(404);
+    expect(inOwn.body.error.message).toBe(CAPTURE_CONFLICT_MESSAGES.surveyGone);
     expect(await readingsOf(survey.id)).toHaveLength(0);
   });
 

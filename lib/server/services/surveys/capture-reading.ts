@@ -53,6 +53,18 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   return { deviceId, status: 'recorded', readingId: created.id, message: under ? `${saved} It is under-protected; ${underProtectionWords({ under, mailed })}.` : saved };
 }
 
+/**
+ * The survey a batch is sent to, checked once before its items: a survey that does not exist (deleted since the
+ * phone opened it, or never this organisation's) answers 404 for the whole batch, with the sentence the phone
+ * shows beside each of its items. Only reads.
+ */
+export async function getCaptureSurveyOrThrow(ctx: OrgContext, surveyId: string) {
+  requirePermission(ctx, 'org:read');
+  const survey = isUuid(surveyId) ? await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation }, { fields: ['id'] }) : null;
+  if (!survey) throw new AppError('not-found', CAPTURE_CONFLICT_MESSAGES.surveyGone);
+  return survey;
+}
+
 /** How a refused item is answered: its fields (`invalid`) or something the member must resolve (`conflict`); null for anything else. */
 export function captureRefusal(deviceId: string, error: unknown): CaptureItemResult | null {
   if (error instanceof ZodError) {
