@@ -35,8 +35,10 @@ const plugins = () => [notRedirected, new CacheableResponsePlugin({ statuses: [2
 
 const serwist = new Serwist({
   precacheEntries: self.__SW_MANIFEST,
+  // A new build's worker takes over at once; an open page is not claimed mid-way (a form being sent, a router
+  // navigation under way): it is served by the worker from its next load. Offline reloads need no more.
   skipWaiting: true,
-  clientsClaim: true,
+  clientsClaim: false,
   navigationPreload: false,
   runtimeCaching: [
     {

@@ -23,7 +23,8 @@ async function newSurvey(page: Page, day: string, surveyor: string) {
 }
 
 const status = (page: Page) => page.getByTestId('capture-status');
-const readingRows = (page: Page, location: string) => page.getByRole('table', { name: 'Readings' }).getByRole('row', { name: new RegExp(`^${location.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\b`) });
+/** The readings table's cells holding exactly this location: one per recorded reading. */
+const readingRows = (page: Page, location: string) => page.getByRole('table', { name: 'Readings' }).getByRole('cell', { name: location, exact: true });
 
 async function saveReading(page: Page, values: { location?: string; potential?: string; remaining?: string; group?: boolean; comment?: string }) {
   const form = page.getByRole('form', { name: 'Capture a reading' });
