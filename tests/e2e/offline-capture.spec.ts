@@ -158,3 +158,45 @@ test.describe('a cut connection mid-send', () => {
     await expect(readingRows(page, 'Dolphin 4')).toHaveCount(1);
   });
 });
+
+test.describe('signing out on a shared phone', () => {
+  test.use({ viewport: PHONE, serviceWorkers: 'allow' });
+
+  test('asks before deleting unsent items, then leaves no cached survey page and no queue behind', async ({ page }) => {
+    await signIn(page, demoUser('inspector').email);
+    await newSurvey(page, '2026-11-18', 'Sign-out check');
+    await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
+    expect(await page.evaluate(() => caches.keys())).toContain('tidewarden-survey-pages');
+    // The capture request never gets through: the reading stays on the phone.
+    await page.route('**/capture', (route) => route.abort('internetdisconnected'));
+    await saveReading(page, { location: 'Bollard 3', potential: '-0.94' });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect(page.getByRole('alert').filter({ hasText: '1 captured item has not been sent. Signing out deletes it from this phone.' })).toBeVisible();
+    await page.getByRole('button', { name: 'Keep them and stay signed in' }).click();
+    await expect(status(page)).toContainText('1 waiting to send');
+    await expect(page).toHaveURL(/\/surveys\/[0-9a-f-]{36}$/);
+
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('button', { name: 'Delete and sign out' }).click();
+    await expect(page).toHaveURL(/\/sign-in/);
+    expect(await page.evaluate(() => caches.keys())).not.toContain('tidewarden-survey-pages');
+    const left = await page.evaluate(
+      () =>
+        new Promise<number>((resolve, reject) => {
+          const open = indexedDB.open('tidewarden-capture');
+          open.onerror = () => reject(open.error);
+          open.onsuccess = () => {
+            const db = open.result;
+            if (!db.objectStoreNames.contains('items')) return resolve(0);
+            const count = db.transaction('items').objectStore('items').count();
+            count.onsuccess = () => resolve(count.result);
+            count.onerror = () => reject(count.error);
+          };
+        }),
+    );
+    expect(left).toBe(0);
+  });
+});
