@@ -46,6 +46,8 @@ export const SurveyReadingSchema = defineEntity({
     comment: p.text().nullable(),
     /** When an under-protection alert named this reading; a correction of it is mailed to the same people. */
     alertedAt: p.datetime().nullable(),
+    /** The UUID a phone gave the reading when it was captured (offline capture); unique per survey. */
+    deviceId: p.uuid().nullable(),
   },
 });
 export type SurveyReading = InferEntity<typeof SurveyReadingSchema>;

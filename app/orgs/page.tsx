@@ -4,9 +4,9 @@ import { getEm } from '@/lib/server/db';
 import { requireUser } from '@/lib/server/auth/session';
 import { ROLE_LABELS } from '@/lib/server/permissions';
 import { Panel } from '@/components/ui/panel';
-import { Button } from '@/components/ui/button';
 import { CreateOrganisationForm, ResendVerificationForm } from '@/components/auth/orgs-forms';
 import { signOutAction } from './actions';
+import { SignOutForm } from '@/components/offline/sign-out-form';
 import { listMyOrganisations } from '@/lib/server/services/accounts/list-my-organisations';
 
 export const metadata: Metadata = { title: 'Your organisations' };
@@ -22,12 +22,9 @@ export default async function OrgsPage({ searchParams }: { searchParams: Promise
           <Link href="/" className="text-lg font-semibold tracking-tight text-tide-700">
             Tidewarden
           </Link>
-          <form action={signOutAction} className="flex min-w-0 items-center gap-3 text-sm text-ink-soft">
+          <SignOutForm action={signOutAction} className="flex min-w-0 flex-wrap items-center gap-3 text-sm text-ink-soft" buttonClassName="inline-flex items-center justify-center rounded-[3px] border border-transparent px-3 py-1.5 text-sm font-medium text-tide-600 hover:bg-tide-50 max-lg:min-h-11">
             <span className="min-w-0 break-all">{user.email}</span>
-            <Button type="submit" variant="ghost">
-              Sign out
-            </Button>
-          </form>
+          </SignOutForm>
         </div>
       </header>
       <main id="content" tabIndex={-1} className="mx-auto flex max-w-3xl flex-col gap-5 px-3 py-6 outline-none sm:px-6 sm:py-8">

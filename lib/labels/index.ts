@@ -31,3 +31,4 @@ export * from './text';
 export * from './caution';
 export * from './mail-delivery';
 export * from './renewal-rule';
+export * from './capture';

@@ -55,3 +55,55 @@ export const importModeSchema = z.object({
   goodLinesOnly: z.preprocess((v) => v === '1' || v === 'true' || v === true, z.boolean()).default(false),
 });
 
+
+/** The most items one capture request may carry; a phone sends a longer queue in several requests. */
+export const CAPTURE_BATCH_MAX = 50;
+
+/**
+ * A batch from the phone's capture queue (POST /api/orgs/[org]/surveys/[surveyId]/capture). The envelope is
+ * checked whole (every item must carry the UUID the phone gave it, so it can be answered); each item's own
+ * fields are checked one by one (`captureReadingSchema`), so one bad item does not refuse the others.
+ */
+export const captureBatchSchema = z.object({
+  items: z
+    .array(z.object({ deviceId: z.uuid({ error: 'Each item needs the UUID made on the device.' }) }).passthrough(), { error: 'Send the items as a list.' })
+    .min(1, 'Send at least one item.')
+    .max(CAPTURE_BATCH_MAX, `Send at most ${CAPTURE_BATCH_MAX} items at once.`),
+});
+
+const optionalNumber = z.preprocess((v) => (v === '' || v === undefined ? null : v), z.number({ error: 'Enter a number.' }).nullable());
+
+/**
+ * One captured reading: the fields of a reading typed in by hand, with the anode group named by its id (the
+ * phone chose it from the list it was given) and the electrode left out meaning the survey's own.
+ */
+export function captureReadingSchema(surveyElectrode: (typeof SURVEY_ELECTRODE_VALUES)[number]) {
+  return z
+    .object({
+      deviceId: z.uuid(),
+      kind: z.literal('reading', { error: 'Only readings are sent this way.' }),
+      anodeGroupId: z.preprocess((v) => (v === '' || v === undefined ? null : v), z.uuid({ error: 'Choose one of the asset\'s anode groups.' }).nullable()),
+      potentialV: optionalNumber,
+      remainingFraction: optionalNumber,
+    })
+    .passthrough()
+    .transform(({ deviceId, kind, anodeGroupId, ...rest }, context) => {
+      const electrode = rest.electrode === '' || rest.electrode === undefined || rest.electrode === null ? surveyElectrode : rest.electrode;
+      const parsed = readingSchema.safeParse({ ...rest, electrode: rest.potentialV === null ? null : electrode, anodeGroupLabel: null });
+      if (!parsed.success) {
+        for (const issue of parsed.error.issues) context.addIssue({ code: 'custom', message: issue.message, path: issue.path });
+        return z.NEVER;
+      }
+      return { deviceId, kind, anodeGroupId, ...parsed.data };
+    });
+}
+export type CaptureReading = z.output<ReturnType<typeof captureReadingSchema>>;
+
+/** The answer for one item. */
+export interface CaptureItemResult {
+  deviceId: string;
+  status: 'recorded' | 'duplicate' | 'conflict' | 'invalid';
+  message: string;
+  readingId?: string;
+  fieldErrors?: Record<string, string[]>;
+}

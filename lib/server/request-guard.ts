@@ -143,7 +143,7 @@ export interface HeaderOptions {
 
 /**
  * The page policy: scripts and styles only from our origin or carrying this response's nonce (Next
- * puts the nonce on its own scripts), nothing framed, no plugins, forms only to us and the payment
+ * puts the nonce on its own scripts), workers (the offline service worker) only from our origin, nothing framed, no plugins, forms only to us and the payment
  * service's checkout and portal.
  */
 export function contentSecurityPolicy({ nonce, https, development, formTargets }: HeaderOptions): string {
@@ -155,6 +155,9 @@ export function contentSecurityPolicy({ nonce, https, development, formTargets }
     "img-src 'self' blob: data:",
     "font-src 'self'",
     "connect-src 'self'",
+    // The offline service worker (/serwist/sw.js) and nothing else: 'strict-dynamic' would otherwise decide for workers.
+    "worker-src 'self'",
+    "manifest-src 'self'",
     "object-src 'none'",
     "base-uri 'self'",
     `form-action 'self'${formTargets.length ? ` ${formTargets.join(' ')}` : ''}`,

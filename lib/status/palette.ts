@@ -98,6 +98,16 @@ export const INVOICE_STATUS_TONES: Readonly<Record<string, StatusTone>> = {
 };
 
 /** The tone of a value from one of the maps above; anything unknown is neutral rather than a guess. */
+/** Where an item of the phone's capture queue stands (lib/offline/capture-state.ts): waiting is amber, needing the member red. */
+export const CAPTURE_STATE_TONES: Readonly<Record<'waiting' | 'sending' | 'sent' | 'conflict' | 'invalid' | 'failed', StatusTone>> = {
+  waiting: 'soon',
+  sending: 'progress',
+  sent: 'sound',
+  conflict: 'action',
+  invalid: 'action',
+  failed: 'action',
+};
+
 export function toneOf(map: Readonly<Record<string, StatusTone>>, value: string | null | undefined): StatusTone {
   return (value != null && map[value]) || 'neutral';
 }

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { randomUUID } from 'node:crypto';
 import { NextRequest } from 'next/server';
 import { addDays } from 'date-fns';
 import { StripeEventSchema, SurveyReadingSchema, type Organisation, type User } from '@/entities';
@@ -119,6 +120,27 @@ const ROUTES: Route[] = [
     check: (r) => expect(r.body).toEqual({ imported: 2, underProtected: 0, engineersMailed: false, duplicates: 0, badLinesSkipped: 0, message: '2 readings imported.' }),
   },
   {
+    path: 'surveys/[surveyId]/capture',
+    method: 'POST',
+    // A new UUID on every call: an item already recorded would be answered as a duplicate.
+    body: () => ({ items: [{ deviceId: randomUUID(), kind: 'reading', location: `Capture ${++captureCalls}`, potentialV: -0.97 }] }),
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/capture/route'),
+    // Every member is answered item by item: a role that may not write gets a conflict for each item, and nothing is written.
+    permission: all,
+    check: async (r, role) => {
+      expect(r.body.results).toHaveLength(1);
+      const [result] = r.body.results;
+      const rows = await (await getEm()).count(SurveyReadingSchema, { survey: ids.surveyId, deviceId: result.deviceId });
+      if (surveyors(role)) {
+        expect(result).toMatchObject({ status: 'recorded', readingId: expect.any(String) });
+        expect(rows).toBe(1);
+      } else {
+        expect(result).toMatchObject({ status: 'conflict', message: 'Your role in this organisation no longer allows recording readings. Ask an owner, or discard the item.' });
+        expect(rows).toBe(0);
+      }
+    },
+  },
+  {
     path: 'surveys/[surveyId]/attachments',
     method: 'POST',
     status: 201,
@@ -164,6 +186,7 @@ const ROUTES: Route[] = [
 ];
 
 let csvCalls = 0;
+let captureCalls = 0;
 let home: { organisation: Organisation; users: Record<Role, User> };
 let other: { organisation: Organisation; users: Record<Role, User> };
 let ids: Ids;

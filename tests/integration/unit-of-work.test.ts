@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { MembershipSchema, type Organisation, type User } from '@/entities';
 import type { Role } from '@/lib/roles';
@@ -13,6 +14,7 @@ import { archiveZone, createZone, updateZone } from '@/lib/server/services/regis
 import { createAnodeGroup, removeAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
+import { captureReading } from '@/lib/server/services/surveys/capture-reading';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
 import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
@@ -166,6 +168,8 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('inspector')((c) => createSurvey(c, { assetId: vesselId, surveyedOn: '2026-02-01', method: 'drop-cell', defaultElectrode: 'ag-agcl-seawater', readings: [{ location: 'Fr 10 P', potentialV: -0.95, electrode: 'ag-agcl-seawater' }] })));
     // Under-protected: the outbox message must roll back with the reading.
     await expectAllOrNothing(as('inspector')((c) => addReading(c, surveyId, { location: `Fr 12 S ${uniqueEmail('r')}`, potentialV: '-0.62', electrode: 'ag-agcl-seawater' })));
+    // A reading captured on a phone, under-protected: its device id, its alert mail and the recompute roll back together.
+    await expectAllOrNothing(as('inspector')((c) => captureReading(c, surveyId, { deviceId: randomUUID(), kind: 'reading', location: `Fr 14 S ${uniqueEmail('d')}`, potentialV: -0.6, anodeGroupId: groupId })));
     const csv = new TextEncoder().encode(`location,potential_v,electrode,anode_group,remaining\nFr 20 P,-0.93,ag-agcl-seawater,Bottom,70%\n`);
     await expectAllOrNothing(as('inspector')((c) => importSurveyCsv(c, surveyId, csv)));
     const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 1, 0, 0, 0, 1, 8, 2, 0, 0, 0]);

@@ -6,6 +6,8 @@ import { ROLE_LABELS } from '@/lib/server/permissions';
 import type { NavItem } from '@/components/shell/org-nav';
 import { OrgShell } from '@/components/shell/org-shell';
 import { signOutAction } from '@/app/orgs/actions';
+import { SignOutForm } from '@/components/offline/sign-out-form';
+import { OfflineSupport } from '@/components/offline/offline-support';
 
 export default async function OrgLayout({ children, params }: { children: React.ReactNode; params: Promise<{ org: string }> }) {
   const { org } = await params;
@@ -36,15 +38,10 @@ export default async function OrgLayout({ children, params }: { children: React.
       )}
     </div>
   ) : null;
-  const signOut = (
-    <form action={signOutAction}>
-      <button type="submit" className="mt-1 text-tide-300 hover:text-white hover:underline max-lg:min-h-11 max-lg:text-sm">
-        Sign out
-      </button>
-    </form>
-  );
+  const signOut = <SignOutForm action={signOutAction} buttonClassName="mt-1 text-left text-tide-300 hover:text-white hover:underline max-lg:min-h-11 max-lg:text-sm" />;
   return (
     <OrgShell organisationName={ctx.organisation.name} userName={ctx.user.name} roleLabel={ROLE_LABELS[ctx.role]} items={items} signOut={signOut} banner={banner}>
+      <OfflineSupport userId={ctx.user.id} />
       {children}
     </OrgShell>
   );

@@ -11,6 +11,7 @@ import { POTENTIAL_STATUS_TONES } from '@/components/register/potential-tag';
 import { ReadingsTable } from '@/components/surveys/readings-table';
 import { CsvUpload } from '@/components/surveys/csv-upload';
 import { ReadingForm } from '@/components/surveys/reading-form';
+import { CapturePanel } from '@/components/surveys/capture-panel';
 import { AttachmentUpload } from '@/components/surveys/attachment-upload';
 import { AttachmentActions } from '@/components/surveys/attachment-actions';
 import { SurveyEditForm } from '@/components/surveys/survey-edit-form';
@@ -36,7 +37,8 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
   }
   const { survey, readings, counts, attachments } = details;
   const canWrite = allowed(ctx, 'survey:write');
-  const groups = canWrite ? (await listGroupChoices(ctx, survey.assetId)).map((g) => g.label) : [];
+  const groupChoices = canWrite ? await listGroupChoices(ctx, survey.assetId) : [];
+  const groups = groupChoices.map((g) => g.label);
   return (
     <>
       <PageHeader
@@ -56,6 +58,18 @@ export default async function SurveyPage({ params }: { params: Promise<{ org: st
           <span className="text-xs text-ink-soft">of {readings.length} readings</span>
         </div>
         {survey.notes ? <p className="text-sm text-ink-soft">{survey.notes}</p> : null}
+        {canWrite ? (
+          <Panel title="Capture on site">
+            <CapturePanel
+              org={org}
+              surveyId={survey.id}
+              userId={ctx.user.id}
+              defaultElectrode={survey.defaultElectrode}
+              groups={groupChoices}
+              lastLocations={readings.slice(-2).map((r) => r.location)}
+            />
+          </Panel>
+        ) : null}
         <Panel title="Readings">
           <ReadingsTable readings={readings} editing={canWrite ? { org, surveyId: survey.id, groups, electrode: survey.defaultElectrode } : undefined} />
         </Panel>

@@ -1,0 +1,49 @@
+'use client';
+import { useEffect } from 'react';
+import { usePathname } from 'next/navigation';
+import { putSetting } from '@/lib/offline/capture-db';
+import { CURRENT_USER_SETTING } from '@/lib/offline/cache-names';
+
+const SW_URL = '/serwist/sw.js';
+const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
+
+/**
+ * Registers the service worker (lib/offline/service-worker.ts) inside an organisation, names the member signed
+ * in (only their capture queue is sent), and asks the worker to keep the survey page just opened, so it opens
+ * again without signal; `data-offline-ready` on <html> says it has been kept.
+ */
+export function OfflineSupport({ userId }: { userId: string }) {
+  const pathname = usePathname();
+
+  useEffect(() => {
+    void putSetting(CURRENT_USER_SETTING, userId).catch(() => undefined);
+  }, [userId]);
+
+  useEffect(() => {
+    if (!('serviceWorker' in navigator)) return;
+    void navigator.serviceWorker.register(SW_URL, { scope: '/', type: 'module' }).catch((error) => console.warn('[tidewarden] the offline worker could not start', error));
+  }, []);
+
+  useEffect(() => {
+    if (!('serviceWorker' in navigator) || !SURVEY_PAGE.test(pathname)) return;
+    const root = document.documentElement;
+    root.removeAttribute('data-offline-ready');
+    let live = true;
+    void (async () => {
+      if (!navigator.onLine) return;
+      const registration = await navigator.serviceWorker.ready;
+      const worker = registration.active;
+      if (!worker || !live) return;
+      const channel = new MessageChannel();
+      const kept = new Promise<void>((resolve) => (channel.port1.onmessage = () => resolve()));
+      worker.postMessage({ type: 'CACHE_URLS', payload: { urlsToCache: [window.location.href] } }, [channel.port2]);
+      await kept;
+      if (live) root.setAttribute('data-offline-ready', 'true');
+    })();
+    return () => {
+      live = false;
+    };
+  }, [pathname]);
+
+  return null;
+}

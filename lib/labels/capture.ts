@@ -1,0 +1,47 @@
+/**
+ * Words for offline capture on the survey page (safe for client code, the service worker included): what
+ * became of each queued item, and the sentences the capture route answers a refused item with.
+ */
+
+/** How the capture route answered one item. */
+export const CAPTURE_RESULT_STATUSES = ['recorded', 'duplicate', 'conflict', 'invalid'] as const;
+export type CaptureResultStatus = (typeof CAPTURE_RESULT_STATUSES)[number];
+
+/** Where a queued item stands on the phone. */
+export const CAPTURE_ITEM_STATES = ['waiting', 'sending', 'sent', 'conflict', 'invalid', 'failed'] as const;
+export type CaptureItemState = (typeof CAPTURE_ITEM_STATES)[number];
+
+export const CAPTURE_RESULT_LABELS: Readonly<Record<CaptureResultStatus, string>> = {
+  recorded: 'Sent',
+  duplicate: 'Sent (already recorded)',
+  conflict: 'Not accepted',
+  invalid: 'Needs a correction',
+};
+
+export const CAPTURE_ITEM_STATE_LABELS: Readonly<Record<CaptureItemState, string>> = {
+  waiting: 'Saved on this phone, waiting to send',
+  sending: 'Sending',
+  sent: 'Sent',
+  conflict: 'Not accepted: needs you',
+  invalid: 'Needs a correction',
+  failed: 'Upload refused',
+};
+
+export const CAPTURE_KIND_LABELS: Readonly<Record<'reading' | 'photo', string>> = { reading: 'Reading', photo: 'Photo' };
+
+/** The sentences the capture route gives a refused item; the phone shows them beside the item. */
+export const CAPTURE_CONFLICT_MESSAGES = {
+  surveyGone: 'This survey no longer exists (it was deleted). An engineer can restore it from the bin; then send again, or discard the item.',
+  assetArchived: 'The asset of this survey has been archived, so no readings can be added. Ask an engineer to restore it, or discard the item.',
+  groupGone: 'That anode group is no longer fitted to this asset (closed or renewed). Choose another group, or none, and send again.',
+  groupNotOnAsset: 'That anode group is not fitted to the asset of this survey. Choose one of its groups, or none, and send again.',
+  notAllowed: 'Your role in this organisation no longer allows recording readings. Ask an owner, or discard the item.',
+} as const;
+
+/** "Saved on this phone — 3 waiting to send", "Everything is sent": the count the status region reads out. */
+export function captureQueueSummary(waiting: number, needsYou: number): string {
+  const parts: string[] = [];
+  if (waiting) parts.push(`Saved on this phone — ${waiting} waiting to send`);
+  if (needsYou) parts.push(`${needsYou} need${needsYou === 1 ? 's' : ''} your attention`);
+  return parts.length ? parts.join('; ') : 'Everything captured here is sent.';
+}

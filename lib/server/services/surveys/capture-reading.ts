@@ -1,0 +1,81 @@
+import { ZodError } from 'zod';
+import { AnodeGroupSchema, SurveyReadingSchema, SurveySchema } from '@/entities';
+import { InputError } from '@/lib/errors/input-error';
+import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
+import { captureReadingSchema, type CaptureItemResult } from '@/lib/schemas/surveys';
+import { AppError, fieldErrorsFromZod } from '../../errors';
+import { isUuid } from '../../ids';
+import { requirePermission, type OrgContext } from '../../org-context';
+import { audit } from '../../audit';
+import { addReadings, surveyElectrodeOf } from './record-readings';
+import { describeReading, lockSurvey, underProtectionWords } from './reading-alerts';
+
+/**
+ * One item of a phone's capture queue, in its own unit of work (the caller's): recorded once per survey
+ * whatever the retries. The survey is locked first, so two sends of the same item at the same moment take
+ * turns and the second finds the first's reading (`duplicate`, with its id); the unique index on
+ * (survey_id, device_id) holds the same rule in the database. The reading goes through `addReadings`
+ * (conversion to Ag/AgCl/seawater, classification, the under-protection alert once per survey).
+ *
+ * An item already recorded is answered `duplicate` before anything else is checked, so a phone that lost
+ * the answer learns its reading is safe even if the survey's asset was archived or the member's role
+ * changed since. What the member must resolve (the survey deleted, the asset archived, the group closed or
+ * not on the asset, no permission to write, a read-only organisation) throws an AppError of code
+ * `conflict`, `forbidden` or `read-only`; bad fields throw a ZodError or an `invalid` AppError.
+ */
+export async function captureReading(ctx: OrgContext, surveyId: string, item: Record<string, unknown>): Promise<CaptureItemResult> {
+  requirePermission(ctx, 'org:read');
+  const deviceId = String(item.deviceId ?? '');
+  if (!isUuid(surveyId)) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
+  const survey = await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation }, { populate: ['asset'] });
+  if (!survey) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
+  await lockSurvey(ctx, survey);
+  const existing = isUuid(deviceId) ? await ctx.em.findOne(SurveyReadingSchema, { survey, deviceId }) : null;
+  if (existing) return { deviceId, status: 'duplicate', readingId: existing.id, message: `Already recorded at ${existing.location}.` };
+
+  requirePermission(ctx, 'survey:write');
+  if (survey.asset.archivedAt) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.assetArchived);
+  const reading = captureReadingSchema(surveyElectrodeOf(survey)).parse(item);
+  let groupLabel: string | null = null;
+  if (reading.anodeGroupId) {
+    const group = await ctx.em.findOne(AnodeGroupSchema, { id: reading.anodeGroupId, organisation: ctx.organisation });
+    if (!group || group.asset.id !== survey.asset.id) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.groupNotOnAsset);
+    if (group.removedOn) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.groupGone);
+    groupLabel = group.label;
+  }
+  const { under, mailed, readings } = await addReadings(ctx, survey, [{ ...reading, anodeGroupLabel: groupLabel, line: null }]);
+  const [created] = readings;
+  created.deviceId = reading.deviceId;
+  audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { readingId: created.id, location: created.location, deviceId: reading.deviceId } });
+  ctx.effects.assetChanged(survey.asset.id);
+  ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
+  const saved = `Recorded at ${created.location}: ${describeReading(survey, created)}.`;
+  return { deviceId, status: 'recorded', readingId: created.id, message: under ? `${saved} It is under-protected; ${underProtectionWords({ under, mailed })}.` : saved };
+}
+
+/**
+ * The survey a batch is sent to, checked once before its items: a survey that does not exist (deleted since the
+ * phone opened it, or never this organisation's) answers 404 for the whole batch, with the sentence the phone
+ * shows beside each of its items. Only reads.
+ */
+export async function getCaptureSurveyOrThrow(ctx: OrgContext, surveyId: string) {
+  requirePermission(ctx, 'org:read');
+  const survey = isUuid(surveyId) ? await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation }, { fields: ['id'] }) : null;
+  if (!survey) throw new AppError('not-found', CAPTURE_CONFLICT_MESSAGES.surveyGone);
+  return survey;
+}
+
+/** How a refused item is answered: its fields (`invalid`) or something the member must resolve (`conflict`); null for anything else. */
+export function captureRefusal(deviceId: string, error: unknown): CaptureItemResult | null {
+  if (error instanceof ZodError) {
+    const fieldErrors = fieldErrorsFromZod(error);
+    return { deviceId, status: 'invalid', message: Object.values(fieldErrors)[0]?.[0] ?? 'Some fields need attention.', fieldErrors };
+  }
+  if (error instanceof InputError) return { deviceId, status: 'invalid', message: error.message, fieldErrors: { [error.field]: [error.message] } };
+  if (error instanceof AppError) {
+    if (error.code === 'invalid') return { deviceId, status: 'invalid', message: error.message, fieldErrors: Object.keys(error.fieldErrors).length ? error.fieldErrors : undefined };
+    if (error.code === 'forbidden') return { deviceId, status: 'conflict', message: CAPTURE_CONFLICT_MESSAGES.notAllowed };
+    if (error.code === 'conflict' || error.code === 'read-only' || error.code === 'not-found') return { deviceId, status: 'conflict', message: error.message };
+  }
+  return null;
+}

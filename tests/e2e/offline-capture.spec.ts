@@ -1,0 +1,202 @@
+import { expect, test, type Page } from '@playwright/test';
+import { demo, demoUser, signIn } from './helpers';
+
+// Survey capture on the quay without signal: the survey page opens from the service worker's copy, readings and
+// photos wait on the phone, and each reaches the server exactly once when the connection returns.
+const PHONE = { width: 390, height: 844 };
+const org = `/o/${demo.organisation.slug}`;
+// Valid 1 x 1 images (PNG specification, ISO/IEC 15948; a baseline JFIF JPEG): the upload checks the content, not the name.
+const ONE_PIXEL_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
+const ONE_PIXEL_JPEG = Buffer.from(
+  '/9j/4AAQSkZJRgABAQEASABIAAD/2wBDAP//////////////////////////////////////////////////////////////////////////////////////wgALCAABAAEBAREA/8QAFBABAAAAAAAAAAAAAAAAAAAAAP/aAAgBAQABPxA=',
+  'base64',
+);
+
+/** A new survey of the first asset, dated `day`, opened on its page; returns its address. */
+async function newSurvey(page: Page, day: string, surveyor: string) {
+  await page.goto(`${org}/surveys`);
+  await page.getByLabel('Surveyed on').fill(day);
+  await page.getByLabel('Surveyor or contractor').fill(surveyor);
+  await page.getByRole('button', { name: 'Record the survey' }).click();
+  await expect(page).toHaveURL(/\/surveys\/[0-9a-f-]{36}$/);
+  return new URL(page.url()).pathname;
+}
+
+const status = (page: Page) => page.getByTestId('capture-status');
+/** The readings table's cells holding exactly this location: one per recorded reading. */
+const readingRows = (page: Page, location: string) => page.getByRole('table', { name: 'Readings' }).getByRole('cell', { name: location, exact: true });
+
+async function saveReading(page: Page, values: { location?: string; potential?: string; remaining?: string; group?: boolean; comment?: string }) {
+  const form = page.getByRole('form', { name: 'Capture a reading' });
+  if (values.location !== undefined) await form.getByLabel('Location').fill(values.location);
+  if (values.potential !== undefined) await form.getByLabel('Potential').fill(values.potential);
+  if (values.remaining !== undefined) await form.getByLabel('Remaining').fill(values.remaining);
+  if (values.comment !== undefined) await form.getByLabel('Comment').fill(values.comment);
+  if (values.group) {
+    const options = await form.getByLabel('Anode group').locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value).filter(Boolean));
+    if (options.length) await form.getByLabel('Anode group').selectOption(options[0]);
+  }
+  await form.getByRole('button', { name: 'Save reading' }).click();
+}
+
+test.describe('offline capture at 390 x 844', () => {
+  test.use({ viewport: PHONE, serviceWorkers: 'allow' });
+
+  test('the survey page opens without signal; five readings and two photos wait, then reach the server once each', async ({ page, context }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-21', 'Offline pontoon check');
+    // The service worker has kept this page (it says so on <html>) before the signal goes.
+    await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
+    const heading = await page.getByRole('heading', { level: 1 }).textContent();
+
+    await context.setOffline(true);
+    const reloaded = await page.reload();
+    expect(reloaded?.fromServiceWorker(), 'the page came from the service worker').toBe(true);
+    await expect(page.getByRole('heading', { level: 1 })).toHaveText(heading!);
+    expect(await page.evaluate(() => navigator.onLine)).toBe(false);
+    await expect(status(page)).toContainText('Everything captured here is sent.');
+
+    const form = page.getByRole('form', { name: 'Capture a reading' });
+    // Large targets for a gloved finger.
+    for (const name of ['Location', 'Potential', 'Remaining']) expect((await form.getByLabel(name).boundingBox())!.height).toBeGreaterThanOrEqual(44);
+    expect((await form.getByRole('button', { name: 'Save reading' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
+
+    await saveReading(page, { location: 'Fr 20 P', potential: '-0.95', group: true });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+    await saveReading(page, { location: 'Fr 22 P', potential: '-0.97', remaining: '65' });
+    // The next location is proposed from the step between the last two.
+    await expect(form.getByLabel('Location')).toHaveValue('Fr 24 P');
+    await saveReading(page, { potential: '-0.93', comment: 'Bracelet loose' });
+    await expect(form.getByLabel('Location')).toHaveValue('Fr 26 P');
+    await saveReading(page, { potential: '-0.91' });
+    // A mistake is shown at once, offline too, and nothing is queued for it.
+    await saveReading(page, { location: 'Fr 28 P', potential: '-7' });
+    await expect(form.getByText('A potential below -2.0 V is not plausible.')).toBeVisible();
+    await expect(status(page)).toContainText('4 waiting to send');
+    await saveReading(page, { potential: '-0.90' });
+    await expect(status(page)).toContainText('5 waiting to send');
+
+    const photo = page.getByRole('form', { name: 'Capture a photo' });
+    await expect(photo.getByLabel('Photo', { exact: true })).toHaveAttribute('capture', 'environment');
+    await photo.getByLabel('Photo', { exact: true }).setInputFiles({ name: 'offline-fr-20.png', mimeType: 'image/png', buffer: ONE_PIXEL_PNG });
+    await photo.getByLabel('What the photo shows').fill('Anode at Fr 20 P');
+    await photo.getByRole('button', { name: 'Save photo' }).click();
+    await expect(status(page)).toContainText('6 waiting to send');
+    await photo.getByLabel('Photo', { exact: true }).setInputFiles({ name: 'offline-fr-24.jpg', mimeType: 'image/jpeg', buffer: ONE_PIXEL_JPEG });
+    await photo.getByRole('button', { name: 'Save photo' }).click();
+    await expect(status(page)).toContainText('Saved on this phone — 7 waiting to send');
+    await expect(page.getByTestId('capture-item')).toHaveCount(7);
+
+    // Still offline: "Send now" keeps everything and says why.
+    await page.getByRole('button', { name: 'Send now' }).click();
+    await expect(status(page)).toContainText('No connection');
+    await expect(status(page)).toContainText('7 waiting to send');
+
+    await context.setOffline(false);
+    await expect(status(page)).toContainText('Everything captured here is sent.', { timeout: 30_000 });
+    await expect(page.getByTestId('capture-item')).toHaveCount(0);
+
+    // On the server, each exactly once.
+    await page.goto(surveyPath);
+    for (const location of ['Fr 20 P', 'Fr 22 P', 'Fr 24 P', 'Fr 26 P', 'Fr 28 P']) await expect(readingRows(page, location)).toHaveCount(1);
+    await expect(page.getByRole('link', { name: 'offline-fr-20.png' })).toHaveCount(1);
+    await expect(page.getByRole('link', { name: 'offline-fr-24.jpg' })).toHaveCount(1);
+    await expect(page.getByText('Anode at Fr 20 P')).toHaveCount(1);
+  });
+});
+
+test.describe('a cut connection mid-send', () => {
+  // page.route sees the page's own requests only when no service worker stands between.
+  test.use({ viewport: PHONE, serviceWorkers: 'block' });
+
+  test('the answer lost on the way back: the reading waits, is sent again and recorded once', async ({ page }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-22', 'Cut connection check');
+    let cut = 0;
+    // The first capture request reaches the server, which records the reading; its answer never arrives.
+    await page.route('**/capture', async (route) => {
+      if (cut++ === 0) {
+        await route.fetch();
+        await route.abort('connectionreset');
+      } else await route.continue();
+    });
+    await saveReading(page, { location: 'Pile B7', potential: '-0.96' });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+    await expect(status(page)).toContainText('No connection');
+    await expect(page.getByTestId('capture-item')).toContainText('Saved on this phone, waiting to send');
+
+    await page.getByRole('button', { name: 'Send now' }).click();
+    await expect(status(page)).toContainText('Everything captured here is sent.');
+    await expect(status(page)).toContainText('1 sent.');
+    expect(cut).toBe(2);
+    await page.goto(surveyPath);
+    await expect(readingRows(page, 'Pile B7')).toHaveCount(1);
+    // The next location follows the last one.
+    await expect(page.getByRole('form', { name: 'Capture a reading' }).getByLabel('Location')).toHaveValue('Pile B8');
+  });
+
+  test('the app closed while sending: the reading is sent on the next open and recorded once', async ({ page }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-23', 'Restart check');
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    let calls = 0;
+    // The first send is held until the page has gone; the server still records it.
+    await page.route('**/capture', async (route) => {
+      calls += 1;
+      if (calls === 1) {
+        await held;
+        await route.continue().catch(() => undefined);
+      } else await route.continue();
+    });
+    await saveReading(page, { location: 'Dolphin 4', potential: '-0.99' });
+    await expect.poll(() => calls).toBe(1);
+    await page.reload();
+    release();
+    await expect(status(page)).toContainText('Everything captured here is sent.', { timeout: 20_000 });
+    await page.goto(surveyPath);
+    await expect(readingRows(page, 'Dolphin 4')).toHaveCount(1);
+  });
+});
+
+test.describe('signing out on a shared phone', () => {
+  test.use({ viewport: PHONE, serviceWorkers: 'allow' });
+
+  test('asks before deleting unsent items, then leaves no cached survey page and no queue behind', async ({ page }) => {
+    await signIn(page, demoUser('inspector').email);
+    await newSurvey(page, '2026-11-18', 'Sign-out check');
+    await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
+    expect(await page.evaluate(() => caches.keys())).toContain('tidewarden-survey-pages');
+    // The capture request never gets through: the reading stays on the phone.
+    await page.route('**/capture', (route) => route.abort('internetdisconnected'));
+    await saveReading(page, { location: 'Bollard 3', potential: '-0.94' });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+
+    await page.getByRole('button', { name: 'Menu' }).click();
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect(page.getByRole('alert').filter({ hasText: '1 captured item has not been sent. Signing out deletes it from this phone.' })).toBeVisible();
+    await page.getByRole('button', { name: 'Keep them and stay signed in' }).click();
+    await expect(status(page)).toContainText('1 waiting to send');
+    await expect(page).toHaveURL(/\/surveys\/[0-9a-f-]{36}$/);
+
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.getByRole('button', { name: 'Delete and sign out' }).click();
+    await expect(page).toHaveURL(/\/sign-in/);
+    expect(await page.evaluate(() => caches.keys())).not.toContain('tidewarden-survey-pages');
+    const left = await page.evaluate(
+      () =>
+        new Promise<number>((resolve, reject) => {
+          const open = indexedDB.open('tidewarden-capture');
+          open.onerror = () => reject(open.error);
+          open.onsuccess = () => {
+            const db = open.result;
+            if (!db.objectStoreNames.contains('items')) return resolve(0);
+            const count = db.transaction('items').objectStore('items').count();
+            count.onsuccess = () => resolve(count.result);
+            count.onerror = () => reject(count.error);
+          };
+        }),
+    );
+    expect(left).toBe(0);
+  });
+});
