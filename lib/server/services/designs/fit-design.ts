@@ -160,6 +160,7 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
       model,
       quantity: count,
       positions: null,
+      position: null,
       installedOn: data.fittedOn,
       design,
       meanCurrentA: shareOfDesignCurrent(results, surface.name, count),
