@@ -123,7 +123,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     return row(g, piles.length > 0, at);
   });
   return {
-    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k))], notes, rows, grid, groups: [...groups], readings: [...readings] },
+    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
     missing: null,
   };
 }
