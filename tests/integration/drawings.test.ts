@@ -9,7 +9,12 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { Migration20261214000000_structured_positions } from '@/migrations/Migration20261214000000_structured_positions';
 import { EMPTY_POSITION } from '@/lib/schemas/anode-position';
+import { createDocking } from '@/lib/server/services/planner/dockings';
+import { addRenewal } from '@/lib/server/services/planner/renewals';
+import { anodeListCsvFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
+import { A4 } from '@/components/pdf/pdf-kit';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
+import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
 
 let home: { organisation: Organisation; users: Record<Role, User> };
 const ctx = async (role: Role) => ctxFor(await getEm(), home.organisation, home.users[role]);
@@ -129,5 +134,31 @@ describe('the asset page draws the asset', () => {
     const bare = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'No particulars', hullMaterial: 'steel' }));
     const page = await getAssetPage(await ctx('viewer'), bare.id);
     expect(page.drawing).toEqual({ drawing: null, missing: 'Enter the length between perpendiculars and the draught in the particulars to draw the hull.' });
+  });
+});
+
+describe('the anode list prints the drawing', () => {
+  const textOf = (page: PdfPage) => page.items.map((i) => i.str).join(' ').replace(/\s+/g, ' ');
+
+  it('adds a sheet with the hull drawn and the groups on the list at their positions, in words', async () => {
+    const ship = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'List Coaster', hullMaterial: 'steel', lengthBppM: 80, beamM: 13, draughtM: 5, blockCoefficient: 0.7 }));
+    const g = await runAs(ctx('engineer'), (c) => createAnodeGroup(c, ship.id, { label: 'Bottom S', anodeModelKey: model, quantity: 6, installedOn: '2024-05-01', meanCurrentA: 2, positions: 'frames 118 to 124 stbd, 1.2 m above keel' }));
+    const docking = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: ship.id, kind: 'intermediate', plannedStart: '2027-05-03', plannedEnd: '2027-05-14', yard: 'Saltmarsh Ship Repair' }));
+    await runAs(ctx('planner'), (c) => addRenewal(c, docking.id, { groupId: g.id, reason: 'forecast-depletion' }));
+    const { pdf } = await runAs(ctx('planner'), (c) => anodeListPdf(c, docking.id));
+    const pages = await pdfPages(pdf);
+    const last = textOf(pages[pages.length - 1]!);
+    expect(last).toContain('Where the anodes go: List Coaster');
+    expect(last).toContain('Starboard side (bow right)');
+    expect(last).toContain('Port side (bow left)');
+    expect(last).toMatch(/Bottom S · 6 · \d+ % left/);
+    expect(last).toContain('Frames 118–124, starboard, 1.2 m above keel');
+    pages.forEach((page, i) => {
+      expect(page.width).toBeCloseTo(A4.height, 1);
+      expect(textOf(page)).toContain(`page ${i + 1} of ${pages.length}`);
+    });
+    // The list's positions column says the same structure in words.
+    const { csv } = await runAs(ctx('planner'), (c) => anodeListCsvFor(c, docking.id));
+    expect(csv).toContain('"Frames 118–124, starboard, 1.2 m above keel"');
   });
 });
