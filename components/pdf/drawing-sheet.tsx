@@ -75,16 +75,18 @@ const COLS = [
  * The drawing, its key and notes on the left; on the right the groups it shows in words (position, count, what is
  * left), so the sheet reads without the drawing too. For a landscape sheet of `width` points.
  */
-export function PdfAssetDrawing({ drawing, width, heading, subtitle }: { drawing: AssetDrawing; width: number; heading: string; subtitle?: string }) {
+export function PdfAssetDrawing({ drawing, width, heading, subtitle, layout = 'landscape' }: { drawing: AssetDrawing; width: number; heading: string; subtitle?: string; layout?: 'landscape' | 'portrait' }) {
   const shown = drawing.rows.slice(0, MAX_ROWS);
-  const left = Math.round(width * 0.6);
-  const right = width - left - 14;
+  // Landscape: the drawing on the left, the list on the right; portrait: the list under the drawing.
+  const side = layout === 'landscape';
+  const left = side ? Math.round(width * 0.6) : width;
+  const right = side ? width - left - 14 : width;
   return (
     <View>
       <Text style={pdf.h2}>{heading}</Text>
       {subtitle ? <Text style={s.note}>{subtitle}</Text> : null}
-      <View style={{ flexDirection: 'row', marginTop: 4 }}>
-        <View style={{ width: left, marginRight: 14 }}>
+      <View style={{ flexDirection: side ? 'row' : 'column', marginTop: 4 }}>
+        <View style={{ width: left, marginRight: side ? 14 : 0, marginBottom: side ? 0 : 8 }}>
           {drawing.views.map((view) => (
             <PdfDrawingView key={view.id} view={view} width={left} />
           ))}

@@ -13,6 +13,8 @@ import { createDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal } from '@/lib/server/services/planner/renewals';
 import { anodeListCsvFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
 import { A4 } from '@/components/pdf/pdf-kit';
+import { createDesign } from '@/lib/server/services/designs/create-design';
+import { renderCalculationNote } from '@/lib/server/services/designs/calculation-note';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
 
@@ -160,5 +162,22 @@ describe('the anode list prints the drawing', () => {
     // The list's positions column says the same structure in words.
     const { csv } = await runAs(ctx('planner'), (c) => anodeListCsvFor(c, docking.id));
     expect(csv).toContain('"Frames 118–124, starboard, 1.2 m above keel"');
+  });
+});
+
+describe('the calculation note prints the drawing', () => {
+  const textOf = (page: PdfPage) => page.items.map((i) => i.str).join(' ').replace(/\s+/g, ' ');
+
+  it('ends with a portrait sheet drawing the asset with its groups and readings', async () => {
+    const design = await runAs(ctx('engineer'), (c) => createDesign(c, { assetId: vesselId, title: 'Coaster hull' }));
+    const { pdf } = await runAs(ctx('viewer'), (c) => renderCalculationNote(c, design.id));
+    const pages = await pdfPages(pdf);
+    const last = textOf(pages[pages.length - 1]!);
+    expect(last).toContain('Where the anodes are: Test Coaster');
+    expect(last).toContain('The groups fitted on the asset (none from this revision yet)');
+    expect(last).toContain('Rudder, port and starboard');
+    expect(last).toContain('-0.95 V, protected');
+    expect(last).toContain(`page ${pages.length} of ${pages.length}`);
+    for (const page of pages) expect(page.width).toBeCloseTo(A4.width, 1);
   });
 });
