@@ -1,5 +1,5 @@
 import type { AssetDrawingResult } from '@/lib/drawings/asset-drawing';
-import { DrawingSvg, KeySwatch } from './drawing-svg';
+import { DrawingSvg, KeySwatch, PatternDefs } from './drawing-svg';
 import { PileElevation } from './pile-elevation';
 import { TableFrame } from '@/components/ui/table-frame';
 
@@ -13,7 +13,8 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
   const d = result.drawing;
   const listId = 'drawing-groups';
   return (
-    <div className="flex flex-col gap-3" data-drawing={d.kind}>
+    <div className="relative flex flex-col gap-3" data-drawing={d.kind}>
+      <PatternDefs />
       {d.views.map((view) => (
         <DrawingSvg key={view.id} view={view} idPrefix={`drawing-${view.id}`} describedBy={listId} className="w-full rounded-[3px] border border-rule bg-white" />
       ))}
@@ -21,7 +22,7 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
       <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Key to the drawing">
         {d.key.map((k) => (
           <li key={k.role} className="flex items-center gap-1.5">
-            <KeySwatch role={k.role} idPrefix={`key-${k.role}`} />
+            <KeySwatch role={k.role} />
             {k.label}
           </li>
         ))}

@@ -29,50 +29,47 @@ export const ROLE_STYLES: Record<ShapeRole, Style> = {
   title: { fill: '#212121', fontSize: 11, fontWeight: 600 },
 };
 
-function styleProps(role: ShapeRole, idPrefix: string) {
-  const s = ROLE_STYLES[role];
-  const fill = s.fill?.startsWith('pattern:') ? `url(#${idPrefix}-${s.fill.slice(8)})` : (s.fill ?? 'none');
-  return { fill, stroke: s.stroke, strokeWidth: s.strokeWidth, strokeDasharray: s.strokeDasharray };
-}
+/** The class of a role: its look is in app/globals.css (.dw-<role>), which keeps every shape's markup short. */
+const cls = (role: ShapeRole) => `dw-${role}`;
 
-function ShapeEl({ shape, idPrefix }: { shape: Shape; idPrefix: string }) {
+function ShapeEl({ shape }: { shape: Shape }) {
   switch (shape.kind) {
     case 'rect':
-      return <rect x={shape.x} y={shape.y} width={shape.w} height={shape.h} {...styleProps(shape.role, idPrefix)} />;
+      return <rect x={shape.x} y={shape.y} width={shape.w} height={shape.h} className={cls(shape.role)} />;
     case 'path':
-      return <path d={shape.d} {...styleProps(shape.role, idPrefix)} />;
+      return <path d={shape.d} className={cls(shape.role)} />;
     case 'ellipse':
-      return <ellipse cx={shape.cx} cy={shape.cy} rx={shape.rx} ry={shape.ry} {...styleProps(shape.role, idPrefix)} />;
+      return <ellipse cx={shape.cx} cy={shape.cy} rx={shape.rx} ry={shape.ry} className={cls(shape.role)} />;
     case 'line':
-      return <line x1={shape.x1} y1={shape.y1} x2={shape.x2} y2={shape.y2} {...styleProps(shape.role, idPrefix)} />;
-    case 'text': {
-      const s = ROLE_STYLES[shape.role];
+      return <line x1={shape.x1} y1={shape.y1} x2={shape.x2} y2={shape.y2} className={cls(shape.role)} />;
+    case 'text':
       return (
-        <text x={shape.x} y={shape.y} textAnchor={shape.anchor} fontSize={s.fontSize} fontWeight={s.fontWeight} fill={s.fill}>
+        <text x={shape.x} y={shape.y} textAnchor={shape.anchor === 'start' ? undefined : shape.anchor} className={cls(shape.role)}>
           {shape.text}
         </text>
       );
-    }
   }
 }
 
-/** The hatch, dot and cross patterns of the zones. */
-export function PatternDefs({ idPrefix }: { idPrefix: string }) {
+/** The hatch, dot and cross patterns of the zones (referred to by the classes as url(#dw-…)): once per page. */
+export function PatternDefs() {
   return (
+    <svg width="0" height="0" aria-hidden="true" focusable="false" className="absolute">
     <defs>
-      <pattern id={`${idPrefix}-hatch`} width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+      <pattern id="dw-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
         <rect width="6" height="6" fill="#fafafa" />
         <line x1="0" y1="0" x2="0" y2="6" stroke="#b0b0b0" strokeWidth="1" />
       </pattern>
-      <pattern id={`${idPrefix}-dots`} width="5" height="5" patternUnits="userSpaceOnUse">
+      <pattern id="dw-dots" width="5" height="5" patternUnits="userSpaceOnUse">
         <rect width="5" height="5" fill="#f2f2f2" />
         <circle cx="2.5" cy="2.5" r="0.9" fill="#8a8a8a" />
       </pattern>
-      <pattern id={`${idPrefix}-cross`} width="5" height="5" patternUnits="userSpaceOnUse">
+      <pattern id="dw-cross" width="5" height="5" patternUnits="userSpaceOnUse">
         <rect width="5" height="5" fill="#ffffff" />
         <path d="M0 0L5 5M5 0L0 5" stroke="#8a8a8a" strokeWidth="0.7" />
       </pattern>
     </defs>
+    </svg>
   );
 }
 
@@ -81,7 +78,7 @@ export function PatternDefs({ idPrefix }: { idPrefix: string }) {
  * its row in that list (or its pile) with its own title. A drawing with links is a group (an image's children are
  * presentational, so links inside one would be hidden from assistive technology); one without links is an image.
  */
-export function DrawingSvg({ view, idPrefix, describedBy, className }: { view: DrawingView; idPrefix: string; describedBy?: string; className?: string }) {
+export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { view: DrawingView; idPrefix: string; describedBy?: string; className?: string }) {
   const titleId = `${idPrefix}-title`;
   return (
     <svg
@@ -89,43 +86,37 @@ export function DrawingSvg({ view, idPrefix, describedBy, className }: { view: D
       role={view.groups.length ? 'group' : 'img'}
       aria-labelledby={titleId}
       aria-describedby={describedBy}
-      className={className}
-      style={{ fontFamily: 'inherit', maxWidth: '100%', height: 'auto' }}
+      className={`dw h-auto max-w-full ${className}`}
       data-drawing-view={view.id}
     >
       <title id={titleId}>{view.title}</title>
-      <PatternDefs idPrefix={idPrefix} />
       {view.shapes.map((shape, i) => (
-        <ShapeEl key={i} shape={shape} idPrefix={idPrefix} />
+        <ShapeEl key={i} shape={shape} />
       ))}
       {view.groups.map((g) => (
-        <a key={g.target} href={`#${g.target}`} aria-label={g.title} data-target={g.target}>
-          <g>
-            <title>{g.title}</title>
-            {g.shapes.map((shape, i) => (
-              <ShapeEl key={i} shape={shape} idPrefix={idPrefix} />
-            ))}
-          </g>
+        <a key={g.target} href={`#${g.target}`} aria-label={g.title}>
+          {g.shapes.map((shape, i) => (
+            <ShapeEl key={i} shape={shape} />
+          ))}
         </a>
       ))}
     </svg>
   );
 }
 
-/** A small swatch of a role for the drawing's key. */
-export function KeySwatch({ role, idPrefix }: { role: ShapeRole; idPrefix: string }) {
+/** A small swatch of a role for the drawing's key (the patterns come from the page's PatternDefs). */
+export function KeySwatch({ role }: { role: ShapeRole }) {
   return (
-    <svg width="22" height="12" viewBox="0 0 22 12" aria-hidden="true" className="inline-block shrink-0 align-middle">
-      <PatternDefs idPrefix={idPrefix} />
+    <svg width="22" height="12" viewBox="0 0 22 12" aria-hidden="true" className="dw inline-block shrink-0 align-middle">
       {role === 'anode' ? (
         <>
-          <rect x="6" y="5" width="9" height="4" {...styleProps('anode-left', idPrefix)} />
-          <rect x="6" y="1" width="9" height="8" {...styleProps('anode', idPrefix)} />
+          <rect x="6" y="5" width="9" height="4" className={cls('anode-left')} />
+          <rect x="6" y="1" width="9" height="8" className={cls('anode')} />
         </>
       ) : role === 'reading' ? (
-        <path d="M11 1l5 5l-5 5l-5 -5z" {...styleProps('reading', idPrefix)} />
+        <path d="M11 1l5 5l-5 5l-5 -5z" className={cls('reading')} />
       ) : (
-        <rect x="1" y="1" width="20" height="10" {...styleProps(role, idPrefix)} />
+        <rect x="1" y="1" width="20" height="10" className={cls(role)} />
       )}
     </svg>
   );

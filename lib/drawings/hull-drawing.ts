@@ -1,6 +1,6 @@
 import type { AnodePosition, HullPlace } from '@/lib/schemas/anode-position';
 import { HULL_VIEW_LABELS, ZONE_KIND_LABELS } from '@/lib/labels';
-import { ellipse, fillSymbol, line, polygon, r1, rect, remainingWords, text, type DrawingView, type Shape, type ShapeGroup } from './shapes';
+import { ellipse, fillSymbol, line, polygon, r1, rect, remainingWords, spreadLabels, text, type DrawingView, type Shape, type ShapeGroup } from './shapes';
 
 /*
  * The hull profile: frames to drawing coordinates, the zones, and each anode group at its position. Frame 0 is at
@@ -210,7 +210,11 @@ export function hullView(p: HullParticulars, view: 'port' | 'starboard', groups:
   shapes.push(...hullShapes(scale, view), ...frameTicks(scale, view));
   const placed = groups.filter((g) => inView(g.position, view) && (g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null));
   const shown = placed.map((g) => groupSymbols(scale, view, g));
-  for (const r of readings) if (inView(r.position, view) && (r.position.frameFrom !== null || r.position.place !== null)) shapes.push(...readingMarker(scale, view, r));
+  const markers = readings.filter((r) => inView(r.position, view) && (r.position.frameFrom !== null || r.position.place !== null)).flatMap((r) => readingMarker(scale, view, r));
+  shapes.push(...markers);
+  // Group and reading texts close together (the stern) are moved apart.
+  const isText = (s: Shape): s is Extract<Shape, { kind: 'text' }> => s.kind === 'text';
+  spreadLabels([...shown.flatMap((g) => g.shapes.filter(isText)), ...markers.filter(isText)]);
   return { id: view, title: HULL_VIEW_LABELS[view], width: HULL_DRAWING_WIDTH, height, shapes, groups: shown };
 }
 

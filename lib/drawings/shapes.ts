@@ -89,3 +89,26 @@ export function fillSymbol(x: number, y: number, w: number, h: number, remaining
 export function remainingWords(remainingFraction: number | null): string {
   return remainingFraction === null ? 'remaining not forecast' : `${Math.round(remainingFraction * 100)} % left`;
 }
+
+/** Estimated width of a label in drawing units (8.5-unit text, about 0.56 em a character). */
+export const labelWidth = (value: string, fontSize = 8.5) => value.length * fontSize * 0.56;
+
+/**
+ * Moves labels up, a line at a time, until none overlaps one placed before it (left to right), so the texts of
+ * groups and readings close together stay readable. At most `levels` lines up; past that a label stays where it is.
+ */
+export function spreadLabels(labels: Extract<Shape, { kind: 'text' }>[], lineHeight = 10, levels = 5): void {
+  const placed: { x0: number; x1: number; y: number }[] = [];
+  const box = (t: Extract<Shape, { kind: 'text' }>) => {
+    const w = labelWidth(t.text);
+    const x0 = t.anchor === 'start' ? t.x : t.anchor === 'end' ? t.x - w : t.x - w / 2;
+    return { x0, x1: x0 + w };
+  };
+  for (const t of [...labels].sort((a, b) => box(a).x0 - box(b).x0)) {
+    const { x0, x1 } = box(t);
+    let y = t.y;
+    for (let i = 0; i < levels && placed.some((p) => p.x0 < x1 + 2 && x0 < p.x1 + 2 && Math.abs(p.y - y) < lineHeight - 1); i++) y -= lineHeight;
+    t.y = r1(y);
+    placed.push({ x0, x1, y: t.y });
+  }
+}
