@@ -115,7 +115,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
   const datums = [...new Set(groups.flatMap((g) => (g.position.datum ? [g.position.datum] : [])))];
   const notes = [
     `Pile grid ${grid.rows} rows (A–${String.fromCharCode(64 + grid.rows)}) by ${grid.bents} bents (1–${grid.bents}), ${PARTICULAR_SOURCE_LABELS[source]}. Piles by bent and row letter (common practice).`,
-    `Each pile is filled to the lowest remaining fraction of the anodes on it; a group's anodes are shared evenly over the piles it names.${datums.length ? ` Depths below ${datums.map((d) => TIDAL_DATUM_LABELS[d]).join(', ')}.` : ''} Choose a pile for its elevation.`,
+    `Each pile is filled to the lowest remaining fraction of the anodes on it; a group's anodes are shared evenly over the piles it names.${datums.length ? ` Depths below ${datums.map((d) => TIDAL_DATUM_LABELS[d]).join(', ')}.` : ''}`,
   ];
   const rows = groups.map((g) => {
     const piles = pilesCovered(g.position, grid);
