@@ -8,7 +8,8 @@ import { HULL_END_LABELS, HULL_SIDE_LABELS, TIDAL_DATUM_LABELS, ZONE_KIND_LABELS
  * written is lost. Pure: no I/O.
  */
 
-type Rule = { pattern: RegExp; apply: (p: AnodePosition, m: RegExpExecArray) => void };
+/** A rule sets fields from a match; it returns false when the match says something else than what is already set (the words then stay in the note). */
+type Rule = { pattern: RegExp; apply: (p: AnodePosition, m: RegExpExecArray) => boolean | void };
 
 const num = (s: string) => Number(s.replace(/\s+/g, ''));
 const round = (x: number) => Math.round(x * 1000) / 1000;
@@ -25,27 +26,39 @@ const DATUM_WORDS: [RegExp, TidalDatum][] = [
 const datumOf = (word: string): TidalDatum => DATUM_WORDS.find(([re]) => re.test(word.trim()))![1];
 
 const ref = (bent: string | undefined, row: string | undefined): PileRef => ({ bent: bent ? Number(bent) : null, row: row ? row.toUpperCase() : null });
-function setPiles(p: AnodePosition, from: PileRef, to: PileRef | null) {
-  if (p.pileFrom) return;
+function setPiles(p: AnodePosition, from: PileRef, to: PileRef | null): boolean {
+  if (p.pileFrom) return false;
   p.pileFrom = from;
   p.pileTo = to && (to.bent !== from.bent || to.row !== from.row) ? to : null;
+  return true;
 }
-function setPlace(p: AnodePosition, place: HullPlace) {
-  if (!p.place) p.place = place;
+function setPlace(p: AnodePosition, place: HullPlace): boolean {
+  if (p.place && p.place !== place) return false;
+  p.place = place;
+  return true;
+}
+/** Sets a field unless it holds another value already. */
+function setOnce<K extends 'side' | 'end'>(p: AnodePosition, key: K, value: NonNullable<AnodePosition[K]>): boolean {
+  if (p[key] !== null && p[key] !== value) return false;
+  p[key] = value;
+  return true;
 }
 
 const RULES: Rule[] = [
   // Height above the keel (or base line): "1.2 m above keel".
   {
     pattern: /(\d+(?:\.\d+)?)\s*m\s+(?:above|abv\.?)\s+(?:the\s+)?(?:keel|base\s*line|BL)\b/gi,
-    apply: (p, m) => { p.heightAboveKeelM ??= num(m[1]); },
+    apply: (p, m) => {
+      if (p.heightAboveKeelM !== null) return false;
+      p.heightAboveKeelM = num(m[1]);
+    },
   },
   // A level against a tidal datum: "-2.0 m LAT", "1.5 m below MLWS", "at -4 m CD", "+0.5 m CD". A signed or bare
   // value is a level (minus is below the datum); "below" and "above" say it in words.
   {
     pattern: /(?:\bat\s+)?([+-]?)\s?(\d+(?:\.\d+)?)\s*m\s*(?:(below|under|above)\s+)?(LAT|CD|MLWS|MLLW|MLW|MSL|LW|chart\s+datum|low\s+water)\b/gi,
     apply: (p, m) => {
-      if (p.datum) return;
+      if (p.datum) return false;
       const value = num(m[2]);
       const word = m[3]?.toLowerCase();
       const below = word ? word !== 'above' : m[1] === '-';
@@ -57,7 +70,7 @@ const RULES: Rule[] = [
   {
     pattern: /\b(?:frames?|frs?)\.?\s*(\d{1,4})(?:\s*(?:-|to)\s*(?:(?:frames?|frs?)\.?\s*)?(\d{1,4}))?\b/gi,
     apply: (p, m) => {
-      if (p.frameFrom !== null) return;
+      if (p.frameFrom !== null) return false;
       const a = Number(m[1]);
       const b = m[2] ? Number(m[2]) : a;
       p.frameFrom = Math.min(a, b);
@@ -83,8 +96,8 @@ const RULES: Rule[] = [
   {
     pattern: /\b(?:(bow|stern|fwd|forward|aft)\s+)?(?:thruster\s+tunnels?|thrusters?|tunnels?)\b/gi,
     apply: (p, m) => {
-      setPlace(p, 'thruster-tunnel');
-      if (m[1]) p.end ??= /^(?:stern|aft)$/i.test(m[1]) ? 'aft' : 'fore';
+      if (!setPlace(p, 'thruster-tunnel')) return false;
+      if (m[1]) setOnce(p, 'end', /^(?:stern|aft)$/i.test(m[1]) ? 'aft' : 'fore');
     },
   },
   { pattern: /\bsea\s*-?\s*chests?\b/gi, apply: (p) => setPlace(p, 'sea-chest') },
@@ -92,23 +105,23 @@ const RULES: Rule[] = [
   {
     pattern: /\b(?:stern\s+frame|stern\s+tube|stern\s+boss|shaft\s+brackets?|A-brackets?|propeller\s+shafts?|propeller\s+boss|shafts?|propellers?(?!\s+tips?))\b/gi,
     apply: (p, m) => {
-      setPlace(p, 'propeller-shaft');
-      if (/stern/i.test(m[0])) p.end ??= 'aft';
+      if (!setPlace(p, 'propeller-shaft')) return false;
+      if (/stern/i.test(m[0])) setOnce(p, 'end', 'aft');
     },
   },
   { pattern: /\b(?:flat\s+(?:of\s+)?bottom|bottom|bilge\s+keels?|bilge\s+strakes?|bilges?|keels?)\b/gi, apply: (p) => setPlace(p, 'hull-bottom') },
   { pattern: /\b(?:boot-?\s*tops?|topsides?|sides)\b/gi, apply: (p) => setPlace(p, 'boot-top-sides') },
   // Sides: both first, so "P and S" is not read as port.
-  { pattern: /\b(?:P\s*(?:\/|&|\+|and)\s*S|S\s*(?:\/|&|and)\s*P|PS|P\/SB)\b/g, apply: (p) => { p.side ??= 'both'; } },
-  { pattern: /\b(?:port\s*(?:and|&|\/)\s*starboard|both\s+sides)\b/gi, apply: (p) => { p.side ??= 'both'; } },
-  { pattern: /\bport(?:\s+side)?\b/gi, apply: (p) => { p.side ??= 'port'; } },
-  { pattern: /\bP\b/g, apply: (p) => { p.side ??= 'port'; } },
-  { pattern: /\b(?:starboard|stbd|stb|sb)(?:\s+side)?\b/gi, apply: (p) => { p.side ??= 'starboard'; } },
-  { pattern: /\bS\b/g, apply: (p) => { p.side ??= 'starboard'; } },
-  { pattern: /(?:\b(?:centre\s*line|center\s*line|on\s+centre|CL)\b|\bC\/L\b)/gi, apply: (p) => { p.side ??= 'centre'; } },
+  { pattern: /\b(?:P\s*(?:\/|&|\+|and)\s*S|S\s*(?:\/|&|and)\s*P|PS|P\/SB)\b/g, apply: (p) => setOnce(p, 'side', 'both') },
+  { pattern: /\b(?:port\s*(?:and|&|\/)\s*starboard|both\s+sides)\b/gi, apply: (p) => setOnce(p, 'side', 'both') },
+  { pattern: /\bport(?:\s+side)?\b/gi, apply: (p) => setOnce(p, 'side', 'port') },
+  { pattern: /\bP\b/g, apply: (p) => setOnce(p, 'side', 'port') },
+  { pattern: /\b(?:starboard|stbd|stb|sb)(?:\s+side)?\b/gi, apply: (p) => setOnce(p, 'side', 'starboard') },
+  { pattern: /\bS\b/g, apply: (p) => setOnce(p, 'side', 'starboard') },
+  { pattern: /(?:\b(?:centre\s*line|center\s*line|on\s+centre|CL)\b|\bC\/L\b)/gi, apply: (p) => setOnce(p, 'side', 'centre') },
   // Which end, when no part of the hull said it.
-  { pattern: /\b(?:aft|astern|stern)\b/gi, apply: (p) => { p.end ??= 'aft'; } },
-  { pattern: /\b(?:fwd|forward|fore|bow)\b/gi, apply: (p) => { p.end ??= 'fore'; } },
+  { pattern: /\b(?:aft|astern|stern)\b/gi, apply: (p) => setOnce(p, 'end', 'aft') },
+  { pattern: /\b(?:fwd|forward|fore|bow)\b/gi, apply: (p) => setOnce(p, 'end', 'fore') },
 ];
 
 const CONNECTOR = /^(?:and|to|at|of|on|with|from|in|&|-|\/|\+)$/i;
@@ -136,8 +149,8 @@ export function parsePosition(text: string | null | undefined): AnodePosition {
   for (const rule of RULES) {
     rest = rest.replace(rule.pattern, (...args) => {
       const m = args.slice(0, -2) as unknown as RegExpExecArray;
-      rule.apply(p, m);
-      return ' ';
+      // Words that contradict what is already read stay in the note, so nothing written is lost.
+      return rule.apply(p, m) === false ? m[0] : ' ';
     });
   }
   const note = leftover(rest);

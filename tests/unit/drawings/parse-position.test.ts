@@ -74,3 +74,13 @@ describe('formatPosition says a position in words', () => {
     expect(formatPosition(EMPTY_POSITION)).toBeNull();
   });
 });
+
+describe('parsePosition loses nothing', () => {
+  it('keeps a second frame range, side or place in the note instead of dropping it', () => {
+    expect(parsePosition('Fr 20-130 P/S, 4 of them within Fr 8-43')).toMatchObject({ frameFrom: 20, frameTo: 130, side: 'both', note: '4 of them within Fr 8-43' });
+    expect(parsePosition('Fr 10-20 P, then S')).toMatchObject({ side: 'port', note: 'then S' });
+    // Parts are read in a fixed order (sea chest before rudder); the other part stays in the note.
+    expect(parsePosition('rudder, sea chest')).toMatchObject({ place: 'sea-chest', note: 'rudder' });
+    expect(parsePosition('Pile B7 -2 m LAT, pile C3 -4 m LAT')).toMatchObject({ pileFrom: { bent: 7, row: 'B' }, depthBelowDatumM: 2, note: 'pile C3 -4 m LAT' });
+  });
+});
