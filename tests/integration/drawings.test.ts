@@ -6,6 +6,7 @@ import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { updateAsset } from '@/lib/server/services/assets/update-asset';
 import { createAnodeGroup, updateAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
+import { exportAnodeRegisterCsv } from '@/lib/server/services/register/list-anode-groups';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { Migration20261214000000_structured_positions } from '@/migrations/Migration20261214000000_structured_positions';
 import { EMPTY_POSITION } from '@/lib/schemas/anode-position';
@@ -179,5 +180,18 @@ describe('the calculation note prints the drawing', () => {
     expect(last).toContain('-0.95 V, protected');
     expect(last).toContain(`page ${pages.length} of ${pages.length}`);
     for (const page of pages) expect(page.width).toBeCloseTo(A4.width, 1);
+  });
+});
+
+describe('the register export', () => {
+  it('gives the position as data in columns of words besides the text', async () => {
+    const csv = await runAs(ctx('viewer'), (c) => exportAnodeRegisterCsv(c));
+    const header = csv.split('\r\n')[0]!.split(',');
+    const line = csv.split('\r\n').find((l) => l.includes(',List Coaster,') || l.startsWith('List Coaster,'))!;
+    expect(header.slice(-8)).toEqual(['Frames', 'Side', 'Height above keel (m)', 'Part of the hull', 'Piles', 'Depth below datum (m)', 'Datum', 'Position note']);
+    expect(line).toContain('"frames 118 to 124 stbd, 1.2 m above keel"');
+    expect(line.endsWith(',118–124,starboard,1.2,,,,,')).toBe(true);
+    const pier = csv.split('\r\n').find((l) => l.includes(',Bents 1-3,'))!;
+    expect(pier.endsWith(',,,,,bent 1 row A to bent 3 row B,4,chart datum (CD),one per pile')).toBe(true);
   });
 });

@@ -296,7 +296,7 @@ const SERVICE_CASES: ServiceCase[] = [
   { name: 'docking and survey pages: listGroupChoices', run: (c, o) => listGroupChoices(c, o.assetId), size: (v) => v.length },
   { name: 'design page: getDesignDesk (draft)', run: (c, o) => getDesignDesk(c, o.draftDesignId) },
   { name: 'design page: getDesignDesk (approved)', run: (c, o) => getDesignDesk(c, o.approvedDesignId) },
-  { name: 'design page: proposeDesignPositions (approved)', run: (c, o) => proposeDesignPositions(c, o.approvedDesignId), size: (v) => v.length },
+  { name: 'design page: proposeDesignPositions (approved)', run: (c, o) => proposeDesignPositions(c, o.approvedDesignId) },
   { name: 'designs page: listDesigns', run: (c) => listDesigns(c), size: (v) => v.length },
   { name: 'designs and surveys pages: listAssetChoices', run: (c) => listAssetChoices(c), size: (v) => v.length },
   { name: 'survey page: getSurveyDetails', run: (c, o) => getSurveyDetails(c, o.surveyId), size: (v) => v.readings.length + v.attachments.length },
