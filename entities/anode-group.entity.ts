@@ -4,6 +4,7 @@ import { OrganisationSchema } from './organisation.entity';
 import { AssetSchema } from './asset.entity';
 import { ZoneSchema } from './zone.entity';
 import { DesignSchema } from './design.entity';
+import type { AnodePosition } from '@/lib/schemas/anode-position';
 
 /** What the register keeps of a catalogue model when the group is fitted (the catalogue may change later). */
 export interface AnodeGroupModelSnapshot {
@@ -33,6 +34,9 @@ export const AnodeGroupSchema = defineEntity({
     model: p.json<AnodeGroupModelSnapshot>(),
     quantity: p.integer(),
     positions: p.text().nullable(),
+    // The position as data, parsed from `positions` on every write (lib/drawings/parse-position.ts); read with
+    // positionOf (lib/drawings/position-of.ts), which checks it against anodePositionSchema.
+    position: p.json<AnodePosition>().nullable(),
     installedOn: p.date(),
     design: p.manyToOne(DesignSchema).nullable().deleteRule('set null'),
     // The group's share of its design's mean current, A (or a measured output); drives the forecast.

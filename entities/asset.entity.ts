@@ -24,6 +24,9 @@ export const AssetSchema = defineEntity({
     beamM: double().nullable(),
     draughtM: double().nullable(),
     blockCoefficient: double().nullable(),
+    // Frame spacing, m, for the hull drawing; its source 'entered' or 'estimate' (null with no value).
+    frameSpacingM: double().nullable(),
+    frameSpacingSource: p.string().length(16).nullable().$type<'entered' | 'estimate'>(),
     hullMaterial: p.string().length(16).nullable().$type<'steel' | 'aluminium'>(),
     hasImpressedCurrent: p.boolean().default(false),
     tradingWaters: p.string().length(120).nullable(),
@@ -34,6 +37,10 @@ export const AssetSchema = defineEntity({
     designLifeYears: double().nullable(),
     pileCount: p.integer().nullable(),
     pileDiameterM: double().nullable(),
+    // The pile grid for the plan: rows (lettered) by bents (numbered); its source 'entered' or 'estimate'.
+    pileRows: p.integer().nullable(),
+    pileBents: p.integer().nullable(),
+    pileGridSource: p.string().length(16).nullable().$type<'entered' | 'estimate'>(),
     // What the survey criteria need (lib/surveys/criteria.ts), for either kind: the salinity of the water the
     // readings are taken in, PSU, for the chloride correction of an Ag/AgCl/seawater electrode (null: 35 PSU
     // in seawater, unknown otherwise); anaerobic conditions with sulphate-reducing bacteria (steel -0.90 V);

@@ -14,6 +14,7 @@ import { Migration20261204300000_subscription_unique } from './Migration20261204
 import { Migration20261204500000_worker_heartbeat } from './Migration20261204500000_worker_heartbeat';
 import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
 import { Migration20261206600000_attachment_undo } from './Migration20261206600000_attachment_undo';
+import { Migration20261214000000_structured_positions } from './Migration20261214000000_structured_positions';
 import { Migration20261210000000_asset_outlook } from './Migration20261210000000_asset_outlook';
 import { Migration20261212000000_capture_device_id } from './Migration20261212000000_capture_device_id';
 
@@ -36,4 +37,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261206600000_attachment_undo', class: Migration20261206600000_attachment_undo },
   { name: 'Migration20261210000000_asset_outlook', class: Migration20261210000000_asset_outlook },
   { name: 'Migration20261212000000_capture_device_id', class: Migration20261212000000_capture_device_id },
+  { name: 'Migration20261214000000_structured_positions', class: Migration20261214000000_structured_positions },
 ];

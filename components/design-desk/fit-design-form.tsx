@@ -13,6 +13,8 @@ interface Props {
   /** Planned dockings or campaigns of the asset: [id, "Intermediate docking from 3 May 2027"]. */
   dockings: { value: string; label: string }[];
   can: { install: boolean; book: boolean };
+  /** Where each zone's anodes go, proposed from the design (editable before fitting). */
+  proposals?: { zone: string; text: string; basis: string }[];
 }
 
 /**
@@ -20,7 +22,7 @@ interface Props {
  * booked as renewals at a planned docking or campaign. The form carries an idempotency key, so a
  * double click or a resend is recognised as the same request.
  */
-export function FitDesignForm({ org, designId, assetName, dockings, can }: Props) {
+export function FitDesignForm({ org, designId, assetName, dockings, can, proposals = [] }: Props) {
   // Recording an installation is an engineer's (asset:write), booking renewals a planner's (renewal:write): one action each.
   const fit = useBoundAction(fitDesignAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
   const book = useBoundAction(bookDesignRenewalsAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
@@ -46,7 +48,20 @@ export function FitDesignForm({ org, designId, assetName, dockings, can }: Props
         ) : null}
       </fieldset>
       {mode === 'installed' ? (
-        <Field label="Fitted on" type="date" {...form.field('fittedOn')} />
+        <>
+          <Field label="Fitted on" type="date" {...form.field('fittedOn')} />
+          {proposals.length ? (
+            <fieldset className="flex flex-col gap-2">
+              <legend className="mb-1 text-xs font-medium text-ink-soft">Where the anodes go: proposed from the design, edit any before fitting (frames and side, or piles and depth)</legend>
+              {proposals.map((p, i) => (
+                <div key={p.zone}>
+                  <input type="hidden" name={`positionZone-${i}`} value={p.zone} />
+                  <Field label={`Position, ${p.zone}`} {...form.field(`position-${i}`, p.text)} hint={p.basis} />
+                </div>
+              ))}
+            </fieldset>
+          ) : null}
+        </>
       ) : dockings.length ? (
         <SelectField label="Docking or campaign" options={dockings} {...form.field('dockingId', dockings[0]?.value)} />
       ) : (

@@ -60,7 +60,7 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
         <SelectField label="From design" {...f('designId', designs[0]?.id ?? '')} options={[{ value: '', label: 'None' }, ...designs.map((d) => ({ value: d.id, label: d.label }))]} />
       ) : null}
       <Field label="Mean current (optional)" {...f('meanCurrentA')} type="number" step="any" unit="A" hint={editing ? 'Drives the forecast' : 'Blank: the design’s share'} />
-      <Field className="col-span-2" label="Positions" {...f('positions')} hint="Frame numbers on a hull (Fr 12–18 P/S); pile ids by bent and letter on a jetty" />
+      <Field className="col-span-2" label="Positions" {...f('positions')} hint="On a hull: frames, side, height and part, e.g. “Fr 22–30 P, 1.2 m above keel”, “rudder”, “sea chest SB aft”. On a structure: piles and depth, e.g. “B1-A to B6-D, −4 m CD”, “bent 3 row C, 1.5 m below MLWS”. These place the group on the drawing; the rest is kept as a note." />
       <Field className="col-span-2" label="Notes" {...f('notes')} />
       <div className="col-span-2 flex items-end md:col-span-4">
         <Button type="submit" disabled={form.pending}>

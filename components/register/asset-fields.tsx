@@ -68,6 +68,7 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
         <Field label="Beam" name={n('beamM')} type="number" step="any" unit="m" defaultValue={v('beamM')} errors={e('beamM')} />
         <Field label="Draught" name={n('draughtM')} type="number" step="any" unit="m" defaultValue={v('draughtM')} errors={e('draughtM')} />
         <Field label="Block coefficient" name={n('blockCoefficient')} type="number" step="any" defaultValue={v('blockCoefficient')} errors={e('blockCoefficient')} />
+        <Field label="Frame spacing (optional)" name={n('frameSpacingM')} type="number" step="any" unit="m" defaultValue={v('frameSpacingM')} errors={e('frameSpacingM')} hint="For the drawing of the hull. Blank: estimated from the length." />
         <SelectField label="Hull material" name={n('hullMaterial')} defaultValue={v('hullMaterial') ?? 'steel'} options={Object.entries(HULL_MATERIAL_LABELS).map(([value, label]) => ({ value, label }))} errors={e('hullMaterial')} />
         <Field label="Usual trading waters" name={n('tradingWaters')} defaultValue={v('tradingWaters')} errors={e('tradingWaters')} />
         <label className="col-span-2 flex items-center gap-2 text-sm">
@@ -89,6 +90,8 @@ export function AssetFields({ prefix = '', kind, values, errors = {} }: Props) {
       />
       <SelectField label="Water" name={n('waterType')} defaultValue={v('waterType') ?? 'seawater'} options={(['seawater', 'brackish', 'fresh'] as const).map((value) => ({ value, label: WATER_TYPE_LABELS[value]! }))} errors={e('waterType')} />
       <Field label="Number of piles" name={n('pileCount')} type="number" defaultValue={v('pileCount')} errors={e('pileCount')} />
+      <Field label="Pile rows (optional)" name={n('pileRows')} type="number" defaultValue={v('pileRows')} errors={e('pileRows')} hint="Lines of piles along the structure, lettered A, B, … on the plan." />
+      <Field label="Pile bents (optional)" name={n('pileBents')} type="number" defaultValue={v('pileBents')} errors={e('pileBents')} hint="Lines across it, numbered 1, 2, …; blank: estimated from the piles and positions." />
       <Field label="Pile diameter" name={n('pileDiameterM')} type="number" step="any" unit="m" defaultValue={v('pileDiameterM')} errors={e('pileDiameterM')} />
       <Field label="Design life" name={n('designLifeYears')} type="number" step="any" unit="years" defaultValue={v('designLifeYears')} errors={e('designLifeYears')} />
       <Field label="Location" name={n('location')} defaultValue={v('location')} errors={e('location')} />

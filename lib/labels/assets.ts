@@ -38,4 +38,13 @@ export const REGISTER_CSV_HEADERS = [
   'Installed on (YYYY-MM-DD)',
   'Last remaining (%)',
   'Last surveyed on (YYYY-MM-DD)',
+  // The position as data (read from "Positions"): frames, side, height and part of a hull; piles and depth of a structure.
+  'Frames',
+  'Side',
+  'Height above keel (m)',
+  'Part of the hull',
+  'Piles',
+  'Depth below datum (m)',
+  'Datum',
+  'Position note',
 ] as const;

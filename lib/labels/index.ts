@@ -28,6 +28,7 @@ export * from './roles';
 export * from './billing';
 export * from './units';
 export * from './text';
+export * from './drawings';
 export * from './caution';
 export * from './mail-delivery';
 export * from './renewal-rule';

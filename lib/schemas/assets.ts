@@ -39,6 +39,8 @@ export const vesselSchema = z.object({
   beamM: optionalNumber('Beam', 'm', 1, 80),
   draughtM: optionalNumber('Draught', 'm', 0.3, 30),
   blockCoefficient: optionalNumber('Block coefficient', '', 0.3, 0.95),
+  // Left out (undefined): kept as it is; blank: not known (the drawing estimates it).
+  frameSpacingM: optionalNumber('Frame spacing', 'm', 0.2, 3).optional(),
   hullMaterial: z.enum(['steel', 'aluminium'], { error: 'Choose the hull material.' }),
   hasImpressedCurrent: checkbox.default(false),
   tradingWaters: optionalText(120),
@@ -55,6 +57,8 @@ export const structureSchema = z.object({
   designLifeYears: optionalNumber('Design life', 'years', 1, 100),
   pileCount: optionalNumber('Number of piles', '', 1, 10000).pipe(z.number().int('Enter a whole number of piles.').nullable()),
   pileDiameterM: optionalNumber('Pile diameter', 'm', 0.05, 5),
+  pileRows: optionalNumber('Pile rows', '', 1, 26).pipe(z.number().int('Enter a whole number of rows.').nullable()).optional(),
+  pileBents: optionalNumber('Pile bents', '', 1, 200).pipe(z.number().int('Enter a whole number of bents.').nullable()).optional(),
   ...surveyCriteriaFields,
   notes: optionalText(2000, { multiline: true }),
 });

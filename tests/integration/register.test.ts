@@ -110,7 +110,7 @@ describe('assets, groups and history', () => {
   it('exports the register as CSV with a header and one line per fitted group', async () => {
     const csv = await runAs(ctx('viewer'), (c) => exportAnodeRegisterCsv(c));
     const lines = csv.trim().split('\r\n');
-    expect(lines[0]).toBe('Asset,Asset kind,Zone,Group,Model,Alloy,Mounting,Quantity,Net mass each (kg),Gross mass each (kg),Net mass total (kg),Positions,Installed on (YYYY-MM-DD),Last remaining (%),Last surveyed on (YYYY-MM-DD)');
+    expect(lines[0]).toBe('Asset,Asset kind,Zone,Group,Model,Alloy,Mounting,Quantity,Net mass each (kg),Gross mass each (kg),Net mass total (kg),Positions,Installed on (YYYY-MM-DD),Last remaining (%),Last surveyed on (YYYY-MM-DD),Frames,Side,Height above keel (m),Part of the hull,Piles,Depth below datum (m),Datum,Position note');
     const rowA = lines.find((l) => l.includes(',Row A,'));
     expect(rowA).toContain('TW-AS-1510');
     expect(rowA).toContain(',12,100,118,1200.0,'); // 12 anodes x 100 kg net

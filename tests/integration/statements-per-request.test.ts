@@ -27,6 +27,7 @@ import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { inviteMember } from '@/lib/server/services/team/invite-member';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
+import { proposeDesignPositions } from '@/lib/server/services/designs/fit-design';
 import { listFleet } from '@/lib/server/services/assets/list-fleet';
 import { listAssetChoices } from '@/lib/server/services/assets/list-asset-choices';
 import { getPlannerView } from '@/lib/server/services/planner/planner-view';
@@ -295,6 +296,7 @@ const SERVICE_CASES: ServiceCase[] = [
   { name: 'docking and survey pages: listGroupChoices', run: (c, o) => listGroupChoices(c, o.assetId), size: (v) => v.length },
   { name: 'design page: getDesignDesk (draft)', run: (c, o) => getDesignDesk(c, o.draftDesignId) },
   { name: 'design page: getDesignDesk (approved)', run: (c, o) => getDesignDesk(c, o.approvedDesignId) },
+  { name: 'design page: proposeDesignPositions (approved)', run: (c, o) => proposeDesignPositions(c, o.approvedDesignId) },
   { name: 'designs page: listDesigns', run: (c) => listDesigns(c), size: (v) => v.length },
   { name: 'designs and surveys pages: listAssetChoices', run: (c) => listAssetChoices(c), size: (v) => v.length },
   { name: 'survey page: getSurveyDetails', run: (c, o) => getSurveyDetails(c, o.surveyId), size: (v) => v.readings.length + v.attachments.length },

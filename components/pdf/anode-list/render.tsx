@@ -2,7 +2,9 @@ import type { ReactNode } from 'react';
 import { Document, StyleSheet, Text, View } from '@react-pdf/renderer';
 import { format } from 'date-fns';
 import type { AnodeList } from '@/lib/anode-list/build-anode-list';
-import { CAUTION_TEXT, DrawnRows, PlannedSheet, SheetRow, pdf, type DrawnRow } from '../pdf-kit';
+import type { AssetDrawing } from '@/lib/drawings/asset-drawing';
+import { PdfAssetDrawing } from '../drawing-sheet';
+import { CAUTION_TEXT, DrawnRows, PlannedSheet, SheetRow, pdf, sheetArea, type DrawnRow } from '../pdf-kit';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { DIMENSIONS_KEY } from '@/lib/labels/anode-list';
 import {
@@ -208,20 +210,27 @@ const NO_CALT = StyleSheet.create({ p: { fontFeatureSettings: { calt: false } } 
  * `pagination="checked"` lets every sheet wrap instead, so a test can compare react-pdf's page
  * count with the plan (the numbers printed are still the plan's).
  */
-export function AnodeListDocument({ list, pagination = 'planned' }: { list: AnodeList; pagination?: 'planned' | 'checked' }) {
+export function AnodeListDocument({ list, pagination = 'planned', drawing = null }: { list: AnodeList; pagination?: 'planned' | 'checked'; drawing?: AssetDrawing | null }) {
   const d = list.docking;
   const footer = `${list.organisation.name} · ${list.asset.name} · ${list.words.title}, ${list.words.occasionTitle.toLowerCase()} from ${formatDateOnly(d.plannedStart)} · revision ${list.revision.number}`;
   const printed = `Printed ${format(list.printedAt, 'd MMM yyyy HH:mm')} by ${list.printedBy}`;
   const plan = planAnodeListPages(list);
   // Should an estimate ever exceed a sheet, let react-pdf continue it rather than cut text off.
   const wrap = pagination === 'checked' || !plan.fits;
+  // The drawing of where the anodes go, on a sheet of its own after the list.
+  const pages = plan.pages.length + (drawing ? 1 : 0);
   return (
     <Document title={`${list.words.title}: ${list.asset.name}, ${formatDateOnly(d.plannedStart)}, revision ${list.revision.number}`} author="Tidewarden" subject={`Sacrificial anodes to order and fit at a ${list.words.occasionTitle.toLowerCase()}`}>
       {plan.pages.map((items, p) => (
-        <PlannedSheet key={p} orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: p + 1, pages: plan.pages.length }}>
+        <PlannedSheet key={p} orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: p + 1, pages }}>
           <SheetItems items={items} list={list} />
         </PlannedSheet>
       ))}
+      {drawing ? (
+        <PlannedSheet orientation="landscape" style={NO_CALT} wrap={wrap} footer={{ left: footer, right: printed, page: pages, pages }}>
+          <PdfAssetDrawing drawing={drawing} width={sheetArea('landscape').width} heading={`Where the anodes go: ${list.asset.name}`} subtitle={`The groups on this list at their positions, each filled to the mass the forecast leaves at the ${list.words.occasionTitle.toLowerCase()} ("Left").`} />
+        </PlannedSheet>
+      ) : null}
     </Document>
   );
 }

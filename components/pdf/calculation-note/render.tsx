@@ -1,6 +1,8 @@
 import type { ComponentProps } from 'react';
 import { Document, Text, View } from '@react-pdf/renderer';
-import { PlannedSheet, SheetRow, pdf } from '../pdf-kit';
+import { PlannedSheet, SheetRow, pdf, sheetArea } from '../pdf-kit';
+import type { AssetDrawing } from '@/lib/drawings/asset-drawing';
+import { PdfAssetDrawing } from '../drawing-sheet';
 import { CELL_PAD, colWidth, COLUMNS, CONTENT_WIDTH, planCalculationNote, SIGNATURE_GAP, TEXT_STYLES, TITLE_LEFT_SHARE, type NoteTable, type PlanItem } from './layout';
 import { footerLeft, footerRight, NOTE_TITLE, revisionLine, titleLine, type CalculationNoteData } from './note-data';
 
@@ -62,8 +64,10 @@ function PlanItemView({ item, data }: { item: PlanItem; data: CalculationNoteDat
  * "page N of M" written in. `pagination="checked"` lets every sheet wrap instead, so a test can
  * compare react-pdf's page count with the plan (the numbers printed are still the plan's).
  */
-export function CalculationNote({ data, pagination = 'planned' }: { data: CalculationNoteData; pagination?: 'planned' | 'checked' }) {
+export function CalculationNote({ data, pagination = 'planned', drawing = null }: { data: CalculationNoteData; pagination?: 'planned' | 'checked'; drawing?: { drawing: AssetDrawing; heading: string; subtitle: string } | null }) {
   const plan = planCalculationNote(data);
+  // The drawing of the asset with its anodes, on a sheet of its own after the note.
+  const pages = plan.pages.length + (drawing ? 1 : 0);
   // Should an estimate ever exceed a sheet, let react-pdf continue it rather than draw into the footer.
   const wrap = pagination === 'checked' || !plan.fits;
   const left = footerLeft(data);
@@ -71,12 +75,17 @@ export function CalculationNote({ data, pagination = 'planned' }: { data: Calcul
   return (
     <Document title={`Calculation note: ${data.asset.name}, revision ${data.design.revision}`} author="Tidewarden" subject="Sacrificial-anode cathodic protection design">
       {plan.pages.map((items, p) => (
-        <PlannedSheet key={p} orientation="portrait" wrap={wrap} footer={{ left, right, page: p + 1, pages: plan.pages.length }}>
+        <PlannedSheet key={p} orientation="portrait" wrap={wrap} footer={{ left, right, page: p + 1, pages }}>
           {items.map((item, i) => (
             <PlanItemView key={i} item={item} data={data} />
           ))}
         </PlannedSheet>
       ))}
+      {drawing ? (
+        <PlannedSheet orientation="portrait" wrap={wrap} footer={{ left, right, page: pages, pages }}>
+          <PdfAssetDrawing drawing={drawing.drawing} width={sheetArea('portrait').width} heading={drawing.heading} subtitle={drawing.subtitle} layout="portrait" />
+        </PlannedSheet>
+      ) : null}
     </Document>
   );
 }

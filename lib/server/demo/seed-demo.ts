@@ -12,6 +12,7 @@ import { runUnitOfWork } from '../unit-of-work';
 import demo from '@/scripts/demo-sign-ins.json' with { type: 'json' };
 import { addDays } from 'date-fns';
 import { toDateOnly } from '@/lib/dates/date-only';
+import { estimatedFrameSpacingM } from '@/lib/drawings/hull-drawing';
 import { PLANS, TRIAL_DAYS } from '@/lib/billing/plans';
 import { getEnv } from '../env';
 import { getStripe } from '../billing/stripe';
@@ -39,6 +40,9 @@ const VESSELS = [
     beamM: 18.6,
     draughtM: 4.6,
     blockCoefficient: 0.62,
+    // Not on the particulars we were given: estimated from the length (0.002 L + 0.48 m) and marked so.
+    frameSpacingM: estimatedFrameSpacingM(96),
+    frameSpacingSource: 'estimate' as const,
     hullMaterial: 'steel' as const,
     hasImpressedCurrent: true,
     tradingWaters: 'Gullhaven Firth, temperate coastal',
@@ -101,13 +105,17 @@ const STRUCTURES = [
     designLifeYears: 20,
     pileCount: 48,
     pileDiameterM: 0.61,
+    // The grid as the positions name it (bents 1-12, rows A-D); not given with the particulars, so marked estimated.
+    pileRows: 4,
+    pileBents: 12,
+    pileGridSource: 'estimate' as const,
     zones: [
       { name: 'Piles, immersed (48 × Ø 0.61 m × 9.5 m)', kind: 'pile-immersed', areaM2: 874, coatingCategory: 'bare' },
       { name: 'Piles, mud zone (48 × Ø 0.61 m × 12 m)', kind: 'pile-mud', areaM2: 1104, coatingCategory: 'bare', depthBand: 'sediment' },
     ] as ZoneSeed[],
   },
-  { name: 'Dolphin North', structureType: 'dolphin', location: 'Port of Gullhaven, berth 2', waterType: 'seawater' as const, designLifeYears: 20, pileCount: 6, pileDiameterM: 0.762, zones: [] as ZoneSeed[] },
-  { name: 'Dolphin South', structureType: 'dolphin', location: 'Port of Gullhaven, berth 2', waterType: 'seawater' as const, designLifeYears: 20, pileCount: 6, pileDiameterM: 0.762, zones: [] as ZoneSeed[] },
+  { name: 'Dolphin North', structureType: 'dolphin', location: 'Port of Gullhaven, berth 2', waterType: 'seawater' as const, designLifeYears: 20, pileCount: 6, pileDiameterM: 0.762, pileRows: 2, pileBents: 3, pileGridSource: 'estimate' as const, zones: [] as ZoneSeed[] },
+  { name: 'Dolphin South', structureType: 'dolphin', location: 'Port of Gullhaven, berth 2', waterType: 'seawater' as const, designLifeYears: 20, pileCount: 6, pileDiameterM: 0.762, pileRows: 2, pileBents: 3, pileGridSource: 'estimate' as const, zones: [] as ZoneSeed[] },
 ];
 
 /**
@@ -190,11 +198,11 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   const inDays = (n: number) => toDateOnly(new Date(Date.now() + n * 86_400_000));
   // Brindlemoor, fitted at the March 2025 docking from the approved design.
   const ferryZones: [string, string, number, string][] = [
-    ['Hull bottom', 'Bottom P/S', 22, 'Fr 20-130, bilge strakes P and S, 6 m pitch'],
-    ['Boot-top and sides', 'Sides P/S', 20, 'Fr 18-132 below light waterline, P and S'],
-    ['Rudders (2)', 'Rudders', 1, 'Rudder stocks P and S, both faces'],
-    ['Propellers and shafts', 'Stern frame', 12, 'Stern frame and shaft brackets, clear of propeller tips'],
-    ['Sea chests', 'Sea chests', 1, 'Main sea chest gratings'],
+    ['Hull bottom', 'Bottom P/S', 22, 'Fr 20-130 P/S, bilge strakes, 0.4 m above keel, 6 m pitch'],
+    ['Boot-top and sides', 'Sides P/S', 20, 'Fr 18-132 P/S, boot-top and sides, 3.2 m above keel'],
+    ['Rudders (2)', 'Rudders', 1, 'Rudders P and S, both faces'],
+    ['Propellers and shafts', 'Stern frame', 12, 'Stern frame and shaft brackets P/S, clear of propeller tips'],
+    ['Sea chests', 'Sea chests', 1, 'Sea chest P aft, gratings'],
   ];
   for (const [zone, label, quantity, positions] of ferryZones) {
     await fit('Brindlemoor', { zoneId: await zoneId('Brindlemoor', zone), label, anodeModelKey: 'builtin:TW-AW-4020', quantity, positions, installedOn: '2025-03-14', designId: ferryDesignId });
@@ -208,8 +216,8 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
   const jettyImmersed = await zoneId('Gullhaven Ferry Jetty', 'Piles, immersed (48 × Ø 0.61 m × 9.5 m)');
   await fit('Gullhaven Ferry Jetty', { zoneId: jettyImmersed, label: 'Bents 1-6', anodeModelKey: 'builtin:TW-AS-2018', quantity: 24, positions: 'B1-A to B6-D, one per pile at -4 m CD', installedOn: '2016-05-10', meanCurrentA: 46 });
   await fit('Gullhaven Ferry Jetty', { zoneId: jettyImmersed, label: 'Bents 7-12', anodeModelKey: 'builtin:TW-AS-2018', quantity: 24, positions: 'B7-A to B12-D, one per pile at -4 m CD', installedOn: '2016-05-10', meanCurrentA: 52 });
-  await fit('Dolphin North', { label: 'Dolphin N bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'One bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.2 });
-  await fit('Dolphin South', { label: 'Dolphin S bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'One bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.4 });
+  await fit('Dolphin North', { label: 'Dolphin N bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'Bents 1-3, one bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.2 });
+  await fit('Dolphin South', { label: 'Dolphin S bracelets', anodeModelKey: 'builtin:TW-AK-0610', quantity: 6, positions: 'Bents 1-3, one bracelet per pile at -3 m CD', installedOn: '2019-08-01', meanCurrentA: 4.4 });
   await em.flush();
 
   const survey = (asset: string, surveyedOn: string, method: string, surveyor: string, readings: Record<string, unknown>[]) =>
@@ -220,8 +228,8 @@ async function seedRegister(em: EntityManager, engineer: OrgContext, inspector: 
     pile('B7-A', -0.95, 0.47, 'Bents 7-12'), pile('B9-B', -0.93), pile('B12-D', -0.9, 0.44, 'Bents 7-12'),
   ]);
   await survey('Gullhaven Ferry Jetty', '2025-11-20', 'diver', 'Gullhaven Harbour Divers', [
-    pile('B1-A', -0.98, 0.45, 'Bents 1-6'), pile('B3-C', -0.95), pile('B6-D', -0.94, 0.43, 'Bents 1-6'),
-    pile('B7-A', -0.9, 0.37, 'Bents 7-12'), pile('B9-B', -0.84), pile('B11-C', -0.78, null), pile('B12-D', -0.81, 0.33, 'Bents 7-12'),
+    pile('B1-A, -4 m CD', -0.98, 0.45, 'Bents 1-6'), pile('B3-C, -2 m CD', -0.95), pile('B6-D, -4 m CD', -0.94, 0.43, 'Bents 1-6'),
+    pile('B7-A, -4 m CD', -0.9, 0.37, 'Bents 7-12'), pile('B9-B, -6 m CD', -0.84), pile('B11-C, -2 m CD', -0.78, null), pile('B12-D, -4 m CD', -0.81, 0.33, 'Bents 7-12'),
   ]);
   await survey('Dolphin North', '2025-11-21', 'diver', 'Gullhaven Harbour Divers', [pile('DN-1', -1.01, 0.7, 'Dolphin N bracelets'), pile('DN-4', -1.0)]);
   await survey('Brindlemoor', '2025-09-03', 'drop-cell', 'Ship staff', [pile('Fr 40 P', -0.97), pile('Fr 40 S', -0.98), pile('Fr 110 P', -0.95)]);

@@ -12,6 +12,7 @@ import { computePlans, renewalMarginMonths, renewalRuleOf, type AssetPlan } from
 import { renewalPlanSummary, renewalReasonOf } from '../planner/planner-view';
 import { pgArray } from '../../sql';
 import { assetPlanFor } from '../planner/stored-outlooks';
+import { loadAssetDrawing } from './asset-drawing';
 
 export type { DepletionSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries } from '@/lib/register/depletion-series';
@@ -166,6 +167,9 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
       ).map(({ label, createdAt, ...c }) => ({ ...c, createdAt: new Date(createdAt), group: { label } }))
     : [];
 
+  // The drawing of the asset with its groups and the latest survey's readings (one statement more).
+  const drawing = await loadAssetDrawing(ctx, asset, forecasts, surveys[0] ?? null, today);
+
   // The chart runs half a year past the last end of life (or renew-by date), so every group's crossings are visible.
   const horizon = new Date(Math.max(today.getTime(), ...forecasts.map((f) => (f.forecast?.endOfLife ?? f.forecast?.renewBy ?? today).getTime())) + 180 * 86_400_000);
   const series: DepletionSeries[] = forecasts
@@ -190,5 +194,5 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   // consumed protecting the other (common practice: one alloy per asset).
   const alloys = [...new Set(forecasts.map((f) => f.group.model.alloy))];
   const mixedAlloys = alloys.length > 1 ? alloys : null;
-  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts, asset.kind), renewalRule, marginWords, outlook: plan?.outlook ?? null, catalogue, dockings, changes, series, mixedAlloys };
+  return { today, asset, canWrite, zones, designs, surveys, forecasts, rows: forecastRows(forecasts, asset.kind), renewalRule, marginWords, outlook: plan?.outlook ?? null, catalogue, dockings, changes, series, mixedAlloys, drawing };
 }

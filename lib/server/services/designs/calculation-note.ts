@@ -8,6 +8,10 @@ import { requirePermission, type OrgContext } from '../../org-context';
 import { getDesignOrThrow } from './get-design';
 import { shownRevision } from './design-view';
 import { HULL_MATERIAL_LABELS, inSentence, STRUCTURE_TYPE_LABELS } from '@/lib/labels';
+import { SurveySchema } from '@/entities';
+import { loadGroupForecasts } from '../forecast/group-forecasts';
+import { loadAssetDrawing } from '../assets/asset-drawing';
+import { formatDateOnly, toDateOnly } from '@/lib/dates/date-only';
 
 /**
  * Renders a design revision's calculation note as PDF bytes: a checked or approved revision from its
@@ -51,8 +55,22 @@ export async function renderCalculationNote(ctx: OrgContext, designId: string): 
     printedAt: new Date(),
     printedBy: ctx.user.name,
   };
+  // The asset's drawing: the groups fitted from this revision, or every fitted group when none was, each filled to
+  // what its forecast leaves today, with the latest survey's readings. A fixed number of statements.
+  const today = new Date();
+  const forecasts = await loadGroupForecasts(ctx, { assetIds: [asset.id] });
+  const fromThis = forecasts.filter((f) => f.group.design?.id === design.id);
+  const latestSurvey = await ctx.em.findOne(SurveySchema, { asset }, { orderBy: { surveyedOn: 'desc', createdAt: 'desc' } });
+  const drawn = await loadAssetDrawing(ctx, asset, fromThis.length ? fromThis : forecasts, latestSurvey, today);
+  const drawing = drawn.drawing
+    ? {
+        drawing: drawn.drawing,
+        heading: `Where the anodes are: ${asset.name}`,
+        subtitle: `${fromThis.length ? `The groups fitted from this revision` : forecasts.length ? 'The groups fitted on the asset (none from this revision yet)' : 'No groups fitted yet'}, each filled to what its forecast leaves on ${formatDateOnly(toDateOnly(today))}${latestSurvey ? `; readings of the survey of ${formatDateOnly(latestSurvey.surveyedOn)}` : ''}.`,
+      }
+    : null;
   registerPdfFonts();
-  const pdf = await renderToBuffer(createElement(CalculationNote, { data }) as unknown as ReactElement<DocumentProps>);
+  const pdf = await renderToBuffer(createElement(CalculationNote, { data, drawing }) as unknown as ReactElement<DocumentProps>);
   audit(ctx, { action: 'design.printed', targetType: 'design', targetId: design.id, details: { revision: design.revision } });
   const safeName = asset.name.replace(/[^A-Za-z0-9]+/g, '-').replace(/^-|-$/g, '');
   return { pdf, filename: `calculation-note-${safeName}-rev${design.revision}.pdf` };

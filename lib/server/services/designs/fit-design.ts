@@ -1,6 +1,8 @@
 import { AnodeGroupSchema, RenewalSchema, ZoneSchema, type Design } from '@/entities';
 import { formatDateOnly } from '@/lib/dates/date-only';
-import { fitDesignSchema } from '@/lib/schemas/fit-design';
+import { fitDesignSchema, fitPositionsFrom } from '@/lib/schemas/fit-design';
+import { proposePositions, type ProposedPosition } from '@/lib/drawings/propose-positions';
+import { storedPosition } from '@/lib/drawings/position-of';
 import type { DesignRecord, StoredResults } from '@/lib/schemas/design-record';
 import { AppError } from '../../errors';
 import { audit } from '../../audit';
@@ -56,8 +58,24 @@ function freeLabel(taken: Set<string>, zoneName: string, revision: number): stri
   return label;
 }
 
+/**
+ * Where the revision's anodes go, proposed zone by zone (lib/drawings/propose-positions.ts) for the fit form, which
+ * lets the engineer edit each before "fit this design". Empty unless the revision is approved with results.
+ */
+export async function proposeDesignPositions(ctx: OrgContext, designId: string): Promise<ProposedPosition[]> {
+  requirePermission(ctx, 'org:read');
+  const design = await getDesignOrThrow(ctx, designId);
+  if (design.status !== 'approved') return [];
+  const record = readDesignRecord(design);
+  if (!record.results) return [];
+  const counts = record.inputs.surfaces.map((surface) => ({ name: surface.name, kind: surface.kind, count: record.results!.distribution.surfaces.find((s) => s.name === surface.name)?.count ?? 0 }));
+  return proposePositions(design.asset, counts);
+}
+
 export async function fitDesign(ctx: OrgContext, designId: string, input: unknown): Promise<FitDesignResult> {
   const data = fitDesignSchema.parse(input);
+  // Read before anything is written, so a bad position refuses the fit whole.
+  const edited = fitPositionsFrom(input);
   requirePermission(ctx, data.mode === 'installed' ? 'asset:write' : 'renewal:write');
   const design = await getDesignOrThrow(ctx, designId);
   if (design.status !== 'approved') {
@@ -126,6 +144,12 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
   }
 
   const taken = new Set((await ctx.em.find(AnodeGroupSchema, { asset, removedOn: null })).map((g) => g.label));
+  // Each zone's position: as the engineer left it on the form, else the proposal.
+  const proposed = proposePositions(asset, counts.map((c) => ({ name: c.surface.name, kind: c.surface.kind, count: c.count })));
+  const positionText = (zoneName: string): string | null => {
+    const kept = edited.find((e) => e.zone === zoneName);
+    return kept ? kept.text : (proposed.find((p) => p.zone === zoneName)?.text ?? null);
+  };
   for (const { surface, count } of counts) {
     let zone = zoneNamed(surface.name);
     if (!zone) {
@@ -159,7 +183,8 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
       label: freeLabel(taken, surface.name, design.revision),
       model,
       quantity: count,
-      positions: null,
+      positions: positionText(surface.name),
+      position: storedPosition(positionText(surface.name)),
       installedOn: data.fittedOn,
       design,
       meanCurrentA: shareOfDesignCurrent(results, surface.name, count),

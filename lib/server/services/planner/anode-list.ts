@@ -10,6 +10,10 @@ import { toDateOnly } from '@/lib/dates/date-only';
 import { listDockingRenewals } from './docking-renewals';
 import { loadGroupForecasts } from '../forecast/group-forecasts';
 import { isUuid } from '../../ids';
+import { buildAssetDrawing } from '@/lib/drawings/asset-drawing';
+import { formatPosition } from '@/lib/drawings/parse-position';
+import { positionOf } from '@/lib/drawings/position-of';
+import { parseDateOnly } from '@/lib/dates/date-only';
 
 /**
  * The catalogue dimensions of the models on the list, by catalogue key (a group keeps a snapshot of
@@ -59,6 +63,9 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   // The groups are in the identity map already (listDockingRenewals populates them); their snapshots carry the catalogue key.
   const groups = live.length ? await ctx.em.find(AnodeGroupSchema, { id: { $in: live.map((r) => r.groupId) }, organisation: ctx.organisation }) : [];
   const modelKey = new Map(groups.map((g) => [g.id, g.model.key]));
+  // Positions in the words of their structure (the drawing's list says the same), the text when nothing was read from it.
+  const positionOfGroup = new Map(groups.map((g) => [g.id, positionOf(g)]));
+  const positionWords = new Map(groups.map((g) => [g.id, formatPosition(positionOfGroup.get(g.id)!)]));
   const dimensions = await dimensionsByKey(ctx, groups.map((g) => g.model.key));
   const input: AnodeListInput = {
     organisation: { name: ctx.organisation.name },
@@ -74,7 +81,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
       netMassKg: r.netMassKg,
       grossMassKg: r.grossMassKg,
       dimensions: dimensions.get(modelKey.get(r.groupId) ?? '') ?? null,
-      positions: r.positions,
+      positions: positionWords.get(r.groupId) ?? r.positions,
       reason: inSentence(RENEWAL_REASON_LABELS[r.reason] ?? 'Other'),
       status: r.status,
       renewBy: r.status === 'fitted' ? null : (renewBy.get(r.groupId) ?? null),
@@ -84,13 +91,25 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
     printedBy: ctx.user.name,
   };
   const list = buildAnodeList(input);
+  // The drawing for the yard or the divers: each line's group at its position, filled to what the forecast leaves at the docking.
+  const atDocking = parseDateOnly(docking.actualStart ?? docking.plannedStart);
+  const forecastOf = new Map(forecasts.map((f) => [f.group.id, f.forecast]));
+  const drawn = buildAssetDrawing(
+    a,
+    live.map((r) => {
+      const forecast = r.status === 'fitted' ? null : forecastOf.get(r.groupId);
+      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }), remainingFraction: forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null };
+    }),
+    [],
+  );
+  const drawing = live.length ? drawn.drawing : null;
   const filename = `anode-list-${a.name.replace(/[^A-Za-z0-9]+/g, '-')}-${docking.plannedStart}`;
-  return { list, filename };
+  return { list, filename, drawing };
 }
 
 export async function anodeListPdf(ctx: OrgContext, dockingId: string) {
-  const { list, filename } = await anodeListFor(ctx, dockingId);
-  const pdf = await renderAnodeListPdf(list);
+  const { list, filename, drawing } = await anodeListFor(ctx, dockingId);
+  const pdf = await renderAnodeListPdf(list, drawing);
   audit(ctx, { action: 'docking.anode-list-printed', targetType: 'docking', targetId: dockingId, details: { printedAt: format(new Date(), 'yyyy-MM-dd HH:mm') } });
   return { pdf, filename: `${filename}.pdf`, list };
 }

@@ -90,6 +90,7 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
     model: old.model,
     quantity: r.quantity,
     positions: old.positions ?? null,
+    position: old.position ?? null,
     installedOn: fittedOn,
     design: old.design ?? null,
     meanCurrentA: old.meanCurrentA !== null && old.meanCurrentA !== undefined ? (old.meanCurrentA * r.quantity) / old.quantity : null,

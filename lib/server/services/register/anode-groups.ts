@@ -10,6 +10,7 @@ import { resolveAnodeModel, type CatalogueModel } from '../catalogue/anode-model
 import { uuidOrNotFound } from '../../ids';
 import { lockRow } from '../../sql';
 import { readDesignResults } from '../designs/read-design-record';
+import { storedPosition } from '@/lib/drawings/position-of';
 
 export function modelSnapshot(model: CatalogueModel): AnodeGroupModelSnapshot {
   const alloy = ALLOYS[model.alloy];
@@ -65,6 +66,7 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
     model: modelSnapshot(model),
     quantity: data.quantity,
     positions: data.positions,
+    position: storedPosition(data.positions),
     installedOn: data.installedOn,
     design,
     meanCurrentA,
@@ -99,7 +101,7 @@ export async function updateAnodeGroup(ctx: OrgContext, groupId: string, input: 
   const before = { label: group.label, zone: group.zone?.id ?? null, model: group.model.designation, quantity: group.quantity, positions: group.positions ?? null, installedOn: group.installedOn, meanCurrentA: group.meanCurrentA ?? null, notes: group.notes ?? null };
   const changes = Object.fromEntries(Object.entries(next).filter(([k, v]) => before[k as keyof typeof before] !== v).map(([k, v]) => [k, [before[k as keyof typeof before], v]])) as Record<string, [unknown, unknown]>;
   if (!Object.keys(changes).length) return group;
-  ctx.em.assign(group, { label: data.label, zone, model, quantity: data.quantity, positions: data.positions, installedOn: data.installedOn, meanCurrentA: next.meanCurrentA, notes: data.notes });
+  ctx.em.assign(group, { label: data.label, zone, model, quantity: data.quantity, positions: data.positions, position: storedPosition(data.positions), installedOn: data.installedOn, meanCurrentA: next.meanCurrentA, notes: data.notes });
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes });
   audit(ctx, { action: 'anode-group.updated', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, fields: Object.keys(changes).join(', ') } });
   ctx.effects.assetChanged(group.asset.id);

@@ -1,7 +1,25 @@
 import type { ListQuery } from '@/lib/schemas/register';
 import type { AnodeGroupModelSnapshot } from '@/entities';
 import { writeCsv } from '@/lib/csv/write-csv';
-import { ALLOY_LABELS, ASSET_KIND_LABELS, MOUNTING_LABELS, REGISTER_CSV_HEADERS } from '@/lib/labels';
+import { ALLOY_LABELS, ASSET_KIND_LABELS, HULL_END_LABELS, HULL_SIDE_LABELS, MOUNTING_LABELS, REGISTER_CSV_HEADERS, TIDAL_DATUM_LABELS, ZONE_KIND_LABELS } from '@/lib/labels';
+import { positionOf } from '@/lib/drawings/position-of';
+import type { AnodePosition, PileRef } from '@/lib/schemas/anode-position';
+
+const pileWords = (r: PileRef) => [r.bent !== null ? `bent ${r.bent}` : null, r.row !== null ? `row ${r.row}` : null].filter(Boolean).join(' ');
+
+/** The register CSV's position columns, in words (REGISTER_CSV_HEADERS, from "Frames" on). */
+export function positionCells(p: AnodePosition): (string | number | null)[] {
+  return [
+    p.frameFrom === null ? null : p.frameTo !== null && p.frameTo !== p.frameFrom ? `${p.frameFrom}–${p.frameTo}` : `${p.frameFrom}`,
+    p.side ? HULL_SIDE_LABELS[p.side] : null,
+    p.heightAboveKeelM,
+    p.place ? `${ZONE_KIND_LABELS[p.place] ?? p.place}${p.end ? `, ${HULL_END_LABELS[p.end]}` : ''}` : p.end ? HULL_END_LABELS[p.end] : null,
+    p.pileFrom ? (p.pileTo ? `${pileWords(p.pileFrom)} to ${pileWords(p.pileTo)}` : pileWords(p.pileFrom)) : null,
+    p.depthBelowDatumM,
+    p.datum ? TIDAL_DATUM_LABELS[p.datum] : null,
+    p.note,
+  ];
+}
 import { requirePermission, type OrgContext } from '../../org-context';
 import { ilikePattern, toPage, inSequence } from '../../sql';
 
@@ -104,10 +122,11 @@ export async function listAnodeGroups(ctx: OrgContext, query: ListQuery) {
  * Headers and the values a person reads (kind, alloy, mounting) are in the words of lib/labels; dates are
  * YYYY-MM-DD (the header says so) so a spreadsheet sorts them.
  */
+// The position columns come from the text the row carries: the stored position is that text read on every write.
 export async function exportAnodeRegisterCsv(ctx: OrgContext) {
   const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
   return writeCsv([
     [...REGISTER_CSV_HEADERS],
-    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction === null ? null : Math.round(r.lastRemainingFraction * 1000) / 10, r.lastSurveyedOn]),
+    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction === null ? null : Math.round(r.lastRemainingFraction * 1000) / 10, r.lastSurveyedOn, ...positionCells(positionOf({ positions: r.positions }))]),
   ]);
 }

@@ -10,7 +10,7 @@ import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, ASSET_KIND_LABELS, CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, HULL_MATERIAL_LABELS, METAL_WORDS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, eventWords, inSentence, surveyMethodWords } from '@/lib/labels';
 import { fmt } from '@/lib/format';
 import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
-import { FORECAST_DATE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
+import { FORECAST_DATE_LABELS, PARTICULAR_SOURCE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { surveyCriteriaOf, waterSalinityOf } from '@/lib/register/protected-metal';
@@ -24,6 +24,7 @@ import { RegisterTable } from '@/components/register/register-table';
 import { DepletionChart } from '@/components/register/depletion-chart';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 import { TableFrame } from '@/components/ui/table-frame';
+import { AssetDrawingPanel } from '@/components/drawings/asset-drawing-panel';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -37,7 +38,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, outlook, catalogue, dockings, changes, series, mixedAlloys } = page;
+  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, outlook, catalogue, dockings, changes, series, mixedAlloys, drawing } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -50,6 +51,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           ['IMO number', asset.imoNumber],
           ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM ?? '?'} × ${asset.draughtM ?? '?'} m` : null],
           ['Block coefficient', asset.blockCoefficient?.toString()],
+          ['Frame spacing', asset.frameSpacingM ? `${asset.frameSpacingM} m${asset.frameSpacingSource === 'estimate' ? ` (${PARTICULAR_SOURCE_LABELS.estimate})` : ''}` : null],
           ['Hull material', asset.hullMaterial ? HULL_MATERIAL_LABELS[asset.hullMaterial] : null],
           ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
           ['Trading waters', asset.tradingWaters],
@@ -59,6 +61,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           ['Location', asset.location],
           ['Water', asset.waterType ? WATER_TYPE_LABELS[asset.waterType] : null],
           ['Piles', asset.pileCount ? `${asset.pileCount} × Ø ${asset.pileDiameterM ?? '?'} m` : null],
+          ['Pile grid', asset.pileRows && asset.pileBents ? `${asset.pileRows} rows × ${asset.pileBents} bents${asset.pileGridSource === 'estimate' ? ` (${PARTICULAR_SOURCE_LABELS.estimate})` : ''}` : null],
           ['Design life', asset.designLifeYears ? `${asset.designLifeYears} years` : null],
         ];
   particulars.push(...surveyParticulars);
@@ -137,6 +140,10 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
             ) : null}
           </Panel>
         </div>
+
+        <Panel title={asset.kind === 'vessel' ? 'Drawing: where the anodes are' : 'Plan: anodes by pile'}>
+          <AssetDrawingPanel result={drawing} />
+        </Panel>
 
         <Panel title="Zones">
           <TableFrame label="Zones">

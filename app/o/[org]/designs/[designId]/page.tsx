@@ -13,6 +13,7 @@ import { DesignDesk } from '@/components/design-desk/design-desk';
 import { SignatureBlock } from '@/components/design-desk/signature-block';
 import { FitDesignForm } from '@/components/design-desk/fit-design-form';
 import { listPlannedDockings } from '@/lib/server/services/planner/dockings';
+import { proposeDesignPositions } from '@/lib/server/services/designs/fit-design';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import type { DeskState } from '@/components/design-desk/desk-state';
 
@@ -36,6 +37,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
   const asset = design.asset;
   const canFit = { install: allowed(ctx, 'asset:write'), book: allowed(ctx, 'renewal:write') };
   const dockings = approved && (canFit.install || canFit.book) ? await listPlannedDockings(ctx, asset.id) : [];
+  const proposals = approved && canFit.install ? (await proposeDesignPositions(ctx, design.id)).map((p) => ({ zone: p.zone, text: p.text, basis: p.basis })) : [];
   const reason = approved
     ? 'This revision is approved and immutable. Make a new revision to change anything.'
     : isPreparer && allowed(ctx, 'design:approve')
@@ -91,6 +93,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
               assetName={asset.name}
               dockings={dockings.map((d) => ({ value: d.id, label: `${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}` }))}
               can={canFit}
+              proposals={proposals}
             />
           </Panel>
         </div>

@@ -1,0 +1,106 @@
+import { estimatedFrameSpacingM } from './hull-drawing';
+import { pileGridOf, rowLetter } from './pile-plan';
+import { parsePosition } from './parse-position';
+import type { AnodePosition } from '@/lib/schemas/anode-position';
+
+/*
+ * Where an approved design's anodes go, proposed zone by zone from the zone's anode count (the design distributes
+ * the anodes by zone demand) and the asset's particulars, as position texts the engineer can edit before fitting.
+ * Hull placement follows the design basis (../shared/design-basis.md, "Placement (practice)"): anodes about 6 m
+ * apart, 15-20 % (some say a third) at the stern and rudder, none in line with the propeller tips, long axis along
+ * the flow lines. On a structure the anodes are shared evenly over the piles (common practice). Pure.
+ */
+
+/** Spacing along the hull (design basis, placement, practice). */
+export const HULL_ANODE_SPACING_M = 6;
+/** Share of the bottom's anodes placed in its aft quarter, besides the rudder and stern-frame zones (design basis, practice: 15-20 %). */
+export const STERN_SHARE = 0.2;
+
+export interface ProposalZone {
+  name: string;
+  kind: string;
+  count: number;
+}
+
+export interface ProposalAsset {
+  kind: 'vessel' | 'structure';
+  lengthBppM?: number | null;
+  draughtM?: number | null;
+  frameSpacingM?: number | null;
+  pileCount?: number | null;
+  pileRows?: number | null;
+  pileBents?: number | null;
+}
+
+export interface ProposedPosition {
+  zone: string;
+  /** The position as text (what the form shows and the group keeps); parsePosition reads it back. */
+  text: string;
+  position: AnodePosition;
+  /** Why it is placed so, naming the practice it follows. */
+  basis: string;
+}
+
+const frame = (m: number, spacing: number) => Math.max(0, Math.round(m / spacing));
+
+function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+  const L = a.lengthBppM ?? 0;
+  const T = a.draughtM ?? 0;
+  const spacing = a.frameSpacingM || (L ? estimatedFrameSpacingM(L) : 0);
+  const perSide = Math.ceil(z.count / 2);
+  const spread = (fromM: number, toM: number) => {
+    // About 6 m apart: the span the anodes of one side need, centred on the stretch, no longer than it.
+    const need = Math.min(toM - fromM, Math.max(0, perSide - 1) * HULL_ANODE_SPACING_M);
+    const mid = (fromM + toM) / 2;
+    return [frame(mid - need / 2, spacing), frame(mid + need / 2, spacing)] as const;
+  };
+  const spacingWords = `about ${HULL_ANODE_SPACING_M} m apart`;
+  switch (z.kind) {
+    case 'rudder':
+      return { text: 'Rudder P/S, both faces', basis: 'Rudder: the stern sees the highest flow (design basis, practice).' };
+    case 'propeller-shaft':
+      return { text: 'Stern frame and shaft brackets P/S, clear of propeller tips', basis: 'None in line with the propeller tips (design basis, practice).' };
+    case 'sea-chest':
+      return { text: 'Sea chest P/S aft, gratings', basis: 'Inside the sea chests, at the gratings (common practice).' };
+    case 'thruster-tunnel':
+      return { text: 'Bow thruster tunnel', basis: 'Inside the tunnel, clear of the blades (common practice).' };
+    case 'boot-top-sides': {
+      if (!L || !spacing) return { text: 'Boot-top and sides P/S', basis: 'Enter the length to propose frames.' };
+      const [f0, f1] = spread(0.1 * L, 0.95 * L);
+      return { text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice).` };
+    }
+    default: {
+      // The bottom: a fifth of its anodes in the aft quarter (towards the propeller and rudder), the rest forward of it.
+      if (!L || !spacing) return { text: 'Bottom P/S', basis: 'Enter the length to propose frames.' };
+      const [f0, f1] = spread(0.08 * L, 0.92 * L);
+      const aft = Math.round(z.count * STERN_SHARE);
+      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${frame(0.3 * L, spacing)}` : '';
+      return {
+        text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
+        basis: `${spacingWords}; ${Math.round(STERN_SHARE * 100)} % towards the stern, where the flow is highest (design basis, practice: 15-20 %).`,
+      };
+    }
+  }
+}
+
+function pileProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+  const grid = pileGridOf({ pileCount: a.pileCount ?? null, pileRows: a.pileRows ?? null, pileBents: a.pileBents ?? null }, []);
+  const piles = grid.rows * grid.bents;
+  const per = z.count / piles;
+  const each = Number.isInteger(per) ? `${per} per pile` : `${z.count} over ${piles} piles, evenly`;
+  const where = z.kind.endsWith('mud') ? ', below the mudline' : '';
+  return {
+    text: `B1-A to B${grid.bents}-${rowLetter(grid.rows - 1)}, ${each}${where}`,
+    basis: 'Evenly per pile (common practice; the design basis is silent on the split between piles).',
+  };
+}
+
+/** Positions for each zone of a design that has anodes, in the zones' order. */
+export function proposePositions(asset: ProposalAsset, zones: readonly ProposalZone[]): ProposedPosition[] {
+  return zones
+    .filter((z) => z.count > 0)
+    .map((z) => {
+      const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z) : pileProposal(asset, z);
+      return { zone: z.name, text, position: parsePosition(text), basis };
+    });
+}

@@ -1,0 +1,50 @@
+import { describe, expect, it } from 'vitest';
+import { HULL_ANODE_SPACING_M, STERN_SHARE, proposePositions } from '@/lib/drawings/propose-positions';
+import { pilesCovered } from '@/lib/drawings/pile-plan';
+
+// An invented ro-pax ferry (Lpp 96 m, T 4.6 m, frames 0.6 m) and an invented jetty of 4 rows by 12 bents.
+const ferry = { kind: 'vessel' as const, lengthBppM: 96, draughtM: 4.6, frameSpacingM: 0.6 };
+const jetty = { kind: 'structure' as const, pileCount: 48, pileRows: 4, pileBents: 12 };
+
+describe('placement proposal', () => {
+  it('spreads the bottom anodes about 6 m apart on each side and puts a fifth of them towards the stern', () => {
+    const [bottom] = proposePositions(ferry, [{ name: 'Hull bottom', kind: 'hull-bottom', count: 22 }]);
+    // 11 a side, 10 gaps of 6 m = 60 m = 100 frames of 0.6 m, centred on 0.08-0.92 L. // design basis, practice
+    expect(bottom!.position.frameTo! - bottom!.position.frameFrom!).toBe(100);
+    expect((bottom!.position.frameFrom! + bottom!.position.frameTo!) / 2).toBeCloseTo((0.5 * 96) / 0.6, 0);
+    expect(bottom!.position.side).toBe('both');
+    expect(bottom!.position.place).toBe('hull-bottom');
+    expect(HULL_ANODE_SPACING_M).toBe(6); // design basis: about 6 m apart (practice)
+    expect(STERN_SHARE).toBeGreaterThanOrEqual(0.15); // design basis: 15-20 % at stern and rudder (practice)
+    expect(bottom!.text).toContain(`${Math.round(22 * STERN_SHARE)} of them within Fr`);
+    expect(bottom!.basis).toMatch(/design basis, practice/);
+  });
+
+  it('never proposes more length than the hull has', () => {
+    const [sides] = proposePositions(ferry, [{ name: 'Sides', kind: 'boot-top-sides', count: 200 }]);
+    expect(sides!.position.frameFrom).toBe(Math.round((0.1 * 96) / 0.6));
+    expect(sides!.position.frameTo).toBe(Math.round((0.95 * 96) / 0.6));
+  });
+
+  it('places the stern appendages clear of the propeller tips, and skips zones without anodes', () => {
+    const out = proposePositions(ferry, [
+      { name: 'Rudder', kind: 'rudder', count: 2 },
+      { name: 'Propeller and shaft', kind: 'propeller-shaft', count: 6 },
+      { name: 'Sea chests', kind: 'sea-chest', count: 0 },
+    ]);
+    expect(out.map((p) => p.zone)).toEqual(['Rudder', 'Propeller and shaft']);
+    expect(out[0]!.position).toMatchObject({ place: 'rudder', side: 'both' });
+    expect(out[1]!.position).toMatchObject({ place: 'propeller-shaft', end: 'aft', note: 'clear of propeller tips' });
+  });
+
+  it('shares a structure zone evenly over every pile of the grid', () => {
+    const [immersed, mud] = proposePositions(jetty, [
+      { name: 'Piles immersed', kind: 'pile-immersed', count: 48 },
+      { name: 'Piles mud', kind: 'pile-mud', count: 30 },
+    ]);
+    expect(pilesCovered(immersed!.position, { rows: 4, bents: 12 })).toHaveLength(48);
+    expect(immersed!.text).toBe('B1-A to B12-D, 1 per pile');
+    expect(mud!.text).toBe('B1-A to B12-D, 30 over 48 piles, evenly, below the mudline');
+    expect(immersed!.basis).toMatch(/common practice/);
+  });
+});
