@@ -1,0 +1,13 @@
+/** The storage could not be reached or answered with an error of its own; nothing about the file is known. */
+export class StorageUnavailableError extends Error {
+  constructor(
+    readonly operation: string,
+    cause?: unknown,
+  ) {
+    super(`The file storage did not answer the ${operation}.`, { cause });
+    this.name = 'StorageUnavailableError';
+  }
+}
+
+/** What a user reads when the storage is down: true whatever the operation, since the caller rolls back. */
+export const STORAGE_UNAVAILABLE_MESSAGE = 'The file storage cannot be reached just now; nothing was recorded. Try again in a few minutes.';
