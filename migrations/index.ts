@@ -15,6 +15,7 @@ import { Migration20261204500000_worker_heartbeat } from './Migration20261204500
 import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
 import { Migration20261206600000_attachment_undo } from './Migration20261206600000_attachment_undo';
 import { Migration20261210000000_asset_outlook } from './Migration20261210000000_asset_outlook';
+import { Migration20261211000000_object_storage } from './Migration20261211000000_object_storage';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
 export const migrationsList: MigrationObject[] = [
@@ -34,4 +35,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261204600000_survey_corrections', class: Migration20261204600000_survey_corrections },
   { name: 'Migration20261206600000_attachment_undo', class: Migration20261206600000_attachment_undo },
   { name: 'Migration20261210000000_asset_outlook', class: Migration20261210000000_asset_outlook },
+  { name: 'Migration20261211000000_object_storage', class: Migration20261211000000_object_storage },
 ];

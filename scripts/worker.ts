@@ -14,6 +14,7 @@ import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconc
 import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
 import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
+import { sweepOrphanObjects } from '../lib/server/services/storage/sweep-orphan-objects';
 import { refreshStaleOutlooks } from '../lib/server/services/planner/refresh-outlooks';
 import { describeStartupError } from './lib/describe-error';
 import { JOBS, SCHEDULES } from '../lib/server/scheduled-jobs';
@@ -70,6 +71,12 @@ async function main() {
     if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
     const files = await purgeAttachmentBin(orm.em.fork());
     if (files) console.log(`[worker] deleted attachments past their undo window removed: ${files}`);
+  });
+  // Nightly: the objects in the storage that no row names any more (the safety net behind the deletes after commit).
+  await boss.schedule(JOBS.storageSweep, SCHEDULES[JOBS.storageSweep], {}, { tz: 'UTC' });
+  await boss.work(JOBS.storageSweep, async () => {
+    const { listed, deleted, staleUploads } = await sweepOrphanObjects(orm.em.fork());
+    console.log(`[worker] storage clean-up: ${listed} files checked, ${deleted} without a record removed, ${staleUploads} unfinished uploads forgotten`);
   });
 
   let stopping = false;

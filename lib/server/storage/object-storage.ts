@@ -161,13 +161,3 @@ const globalForStorage = globalThis as unknown as { tidewardenStorage?: ObjectSt
 export function getStorage(): ObjectStorage {
   return (globalForStorage.tidewardenStorage ??= new ObjectStorage(getEnv()));
 }
-
-/** The storage origin for the page policy, or null when the environment does not name a valid one. */
-export function storageOrigin(endpoint: string | undefined): string | null {
-  if (!endpoint) return null;
-  try {
-    return new URL(endpoint).origin;
-  } catch {
-    return null;
-  }
-}
