@@ -154,6 +154,30 @@ describe('direct upload to the object storage', () => {
     expect(await storage().headObject(link.objectKey)).toBeNull();
   });
 
+  it('the storage checks the signature of the app\'s own requests too: a wrong key is refused, and listing pages by continuation', async () => {
+    const key = attachmentObjectKey(home.organisation.id, surveyId);
+    await storage().putObject(key, PNG, 'image/png');
+    const { parseEnv } = await import('@/lib/server/env');
+    const { ObjectStorage } = await import('@/lib/server/storage/object-storage');
+    const wrongKey = new ObjectStorage({ ...parseEnv(process.env), S3_SECRET_ACCESS_KEY: 'not-the-secret' });
+    const error = await wrongKey.getObject(key).then(() => null, (e: Error) => e);
+    expect(error?.name).toBe('StorageUnavailableError');
+    expect((error?.cause as Error).name).toBe('SignatureDoesNotMatch');
+    expect(await storage().getObject(key)).toEqual(PNG);
+
+    const prefix = `org/${home.organisation.id}/survey/listing-${randomUUID()}/`;
+    for (let i = 0; i < 5; i++) await storage().putObject(`${prefix}${i}`, PNG, 'image/png');
+    const seen: string[] = [];
+    let token: string | undefined;
+    do {
+      const page = await storage().listObjects(prefix, token, 2);
+      expect(page.objects.length).toBeLessThanOrEqual(2);
+      seen.push(...page.objects.map((o) => o.key));
+      token = page.nextToken ?? undefined;
+    } while (token);
+    expect(seen).toEqual([0, 1, 2, 3, 4].map((i) => `${prefix}${i}`));
+  });
+
   it('a file that is not a photo or a PDF is refused (422), deleted from the storage, and nothing is recorded', async () => {
     const deviceId = item();
     // The browser claims a PNG; the bytes are a web page.
