@@ -76,6 +76,8 @@ export async function bringUp(options) {
     ...fakesEnv({ ports, appUrl, stateName: options.stateName ?? options.mode }),
     NEXT_TELEMETRY_DISABLED: '1',
   };
+  // Pages served under a public APP_URL of their own upload to the storage too.
+  env.FAKE_S3_CORS_ORIGINS = [...new Set([appUrl, env.APP_URL])].join(',');
   // The fakes start first: the seed sets up the demo subscription through the Stripe fake, and the migration
   // moves stored files into the object storage.
   // A fresh database starts with an empty storage too (the objects belong to the rows).
