@@ -4,9 +4,12 @@
 // X-Amz-Date + X-Amz-Expires is 403 AccessDenied "Request has expired", and every signed header (a presigned
 // PUT's Content-Type and Content-Length) must be sent as signed. Objects live on disk under FAKE_S3_DATA_DIR
 // (.data/s3-<state>/), so they survive a restart. POST /_fake/down and /_fake/up switch it "down" for tests
-// (every storage request then answers 503), like the SMTP fake's switch.
-// Supported: CreateBucket, HeadBucket, PutObject, GetObject (Range, response-* overrides), HeadObject,
-// DeleteObject, ListObjectsV2 (prefix, continuation, max-keys, start-after); CORS for the app's origin.
+// (every storage request then answers 503), like the SMTP fake's switch; POST /_fake/hang makes it accept every
+// storage request and never answer (a stalled storage) until /_fake/up; POST /_fake/down-after/<n> lets n more
+// object writes through and then goes down (a storage that fails half-way through a long job).
+// Supported: CreateBucket, HeadBucket, PutObject, CopyObject (x-amz-copy-source, x-amz-copy-source-if-match,
+// x-amz-metadata-directive), GetObject and HeadObject (Range, If-Match, response-* overrides), DeleteObject,
+// ListObjectsV2 (prefix, continuation, max-keys, start-after); CORS for the app's origin.
 import http from 'node:http';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -23,6 +26,11 @@ const allowedOrigins = new Set((process.env.FAKE_S3_CORS_ORIGINS ?? process.env.
 const MAX_OBJECT_BYTES = 64 * 1024 * 1024;
 const MAX_CLOCK_SKEW_MS = 15 * 60 * 1000;
 let isDown = false;
+// "hang": every storage request is accepted and never answered (a storage that stalls), until /_fake/up.
+let isHanging = false;
+// Go down after this many more object writes (a storage that fails half-way through a long job); null: never.
+let writesUntilDown: number | null = null;
+const hangingRequests = new Set<http.ServerResponse>();
 
 interface ObjectMeta {
   key: string;
@@ -257,6 +265,12 @@ function parseRange(header: string | null, size: number): { start: number; end: 
   return { start, end };
 }
 
+/** If-Match: "*" or a list of ETags (quoted or not). */
+function etagMatches(header: string, etag: string): boolean {
+  const bare = (t: string) => t.trim().replace(/^W\//, '').replace(/^"|"$/g, '');
+  return header.split(',').some((t) => t.trim() === '*' || bare(t) === bare(etag));
+}
+
 async function handle(req: http.IncomingMessage, res: http.ServerResponse) {
   const rawUrl = req.url ?? '/';
   const qIndex = rawUrl.indexOf('?');
@@ -265,10 +279,25 @@ async function handle(req: http.IncomingMessage, res: http.ServerResponse) {
 
   // Test-only controls, outside any bucket (a bucket name cannot contain "_").
   if (rawPath.startsWith('/_fake/')) {
-    if (req.method === 'POST' && (rawPath === '/_fake/down' || rawPath === '/_fake/up')) {
+    if (req.method === 'POST' && (rawPath === '/_fake/down' || rawPath === '/_fake/up' || rawPath === '/_fake/hang')) {
       isDown = rawPath.endsWith('down');
+      isHanging = rawPath.endsWith('hang');
+      writesUntilDown = null;
+      if (!isHanging) {
+        // The stalled requests end now (their callers gave up long ago or are about to).
+        for (const stalled of hangingRequests) stalled.destroy();
+        hangingRequests.clear();
+      }
       res.writeHead(200, { 'content-type': 'application/json' });
-      return res.end(JSON.stringify({ down: isDown }));
+      return res.end(JSON.stringify({ down: isDown, hanging: isHanging }));
+    }
+    const downAfter = /^\/_fake\/down-after\/(\d+)$/.exec(rawPath);
+    if (req.method === 'POST' && downAfter) {
+      isDown = false;
+      isHanging = false;
+      writesUntilDown = Number(downAfter[1]);
+      res.writeHead(200, { 'content-type': 'application/json' });
+      return res.end(JSON.stringify({ writesUntilDown }));
     }
     if (req.method === 'GET' && rawPath === '/_fake/health') {
       res.writeHead(200, { 'content-type': 'application/json' });
@@ -292,6 +321,12 @@ async function handle(req: http.IncomingMessage, res: http.ServerResponse) {
     return res.end();
   }
 
+  if (isHanging) {
+    req.resume();
+    hangingRequests.add(res);
+    res.on('close', () => hangingRequests.delete(res));
+    return;
+  }
   if (isDown) return sendError(req, res, 503, 'ServiceUnavailable', 'Service is unable to handle request (the fake is switched down).');
 
   const segments = rawPath.split('/');
@@ -338,8 +373,33 @@ async function handle(req: http.IncomingMessage, res: http.ServerResponse) {
   if (Buffer.byteLength(key) > 1024) return sendError(req, res, 400, 'KeyTooLongError', 'Your key is too long');
 
   // ---- object operations ----
+  if (req.method === 'PUT' && writesUntilDown !== null) {
+    if (writesUntilDown <= 0) {
+      isDown = true;
+      writesUntilDown = null;
+      req.resume();
+      return sendError(req, res, 503, 'ServiceUnavailable', 'Service is unable to handle request (the fake went down after its writes).');
+    }
+    writesUntilDown--;
+  }
+  if (req.method === 'PUT' && req.headers['x-amz-copy-source']) {
+    // CopyObject: x-amz-copy-source is "<bucket>/<key>" (URL-encoded, optionally with a leading "/"), within this fake.
+    await readBody(req);
+    const source = decodeURIComponent(String(req.headers['x-amz-copy-source']).replace(/^\//, '').split('?')[0]!);
+    const slash = source.indexOf('/');
+    const sourceBucket = source.slice(0, slash);
+    const sourceKey = source.slice(slash + 1);
+    if (slash < 1 || !bucketExists(sourceBucket)) return sendError(req, res, 404, 'NoSuchBucket', 'The specified bucket does not exist', sourceBucket);
+    const sourceMeta = readMeta(sourceBucket, sourceKey);
+    if (!sourceMeta) return sendError(req, res, 404, 'NoSuchKey', 'The specified key does not exist.', sourceKey);
+    const ifMatch = headerValue(req, 'x-amz-copy-source-if-match');
+    if (ifMatch && !etagMatches(ifMatch, sourceMeta.etag)) return sendError(req, res, 412, 'PreconditionFailed', 'At least one of the pre-conditions you specified did not hold', 'x-amz-copy-source-If-Match');
+    const bytes = fs.readFileSync(`${objectBase(sourceBucket, sourceKey)}.bin`);
+    const replace = headerValue(req, 'x-amz-metadata-directive') === 'REPLACE';
+    const meta = writeObject(bucket, key, bytes, replace ? (headerValue(req, 'content-type') ?? 'binary/octet-stream') : sourceMeta.contentType);
+    return sendXml(req, res, 200, `<?xml version="1.0" encoding="UTF-8"?><CopyObjectResult><LastModified>${meta.lastModified}</LastModified><ETag>${xmlEscape(meta.etag)}</ETag></CopyObjectResult>`);
+  }
   if (req.method === 'PUT') {
-    if (req.headers['x-amz-copy-source']) return sendError(req, res, 501, 'NotImplemented', 'Copying objects is not implemented by this fake.');
     const body = await readBody(req);
     const declared = req.headers['content-length'];
     if (declared === undefined) return sendError(req, res, 411, 'MissingContentLength', 'You must provide the Content-Length HTTP header.');
@@ -354,6 +414,8 @@ async function handle(req: http.IncomingMessage, res: http.ServerResponse) {
   if (req.method === 'GET' || req.method === 'HEAD') {
     const meta = readMeta(bucket, key);
     if (!meta) return sendError(req, res, 404, 'NoSuchKey', 'The specified key does not exist.', key);
+    const ifMatch = headerValue(req, 'if-match');
+    if (ifMatch && !etagMatches(ifMatch, meta.etag)) return sendError(req, res, 412, 'PreconditionFailed', 'At least one of the pre-conditions you specified did not hold', 'If-Match');
     const range = parseRange(headerValue(req, 'range'), meta.size);
     if (range === 'invalid') return sendError(req, res, 416, 'InvalidRange', 'The requested range is not satisfiable');
     const headers: Record<string, string | number> = {

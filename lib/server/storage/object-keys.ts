@@ -8,6 +8,16 @@ export const organisationPrefix = (organisationId: string) => `org/${organisatio
 /** The key of a survey's photo or report: org/<organisation>/survey/<survey>/<uuid>. */
 export const attachmentObjectKey = (organisationId: string, surveyId: string, id: string = randomUUID()) => `${organisationPrefix(organisationId)}survey/${surveyId}/${id}`;
 
+/**
+ * Where the browser sends one upload: org/<organisation>/upload/<pending upload>/<nonce>, new for every link
+ * asked for. Only this key is ever in a PUT link; complete copies it (server-side) to a fresh attachment key,
+ * so a link used again later writes to an object nothing names (the clean-up job removes it).
+ */
+export const stagingObjectKey = (organisationId: string, pendingUploadId: string, nonce: string = randomUUID()) => `${organisationPrefix(organisationId)}upload/${pendingUploadId}/${nonce}`;
+
+/** True for a staging key of this organisation (see stagingObjectKey). */
+export const isStagingKey = (key: string, organisationId: string) => isOrganisationKey(key, organisationId) && key.startsWith(`${organisationPrefix(organisationId)}upload/`);
+
 /** Every key this app writes is under "org/"; the clean-up job lists only that. */
 export const STORED_FILES_PREFIX = 'org/';
 

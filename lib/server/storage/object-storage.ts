@@ -1,7 +1,11 @@
 // The object storage (S3-compatible) that keeps survey photos and reports. One client per process; every
-// call that reaches the storage turns a network failure or a storage-side error into StorageUnavailableError,
-// which the error mapper answers 503 with a sentence that says nothing was recorded.
+// call that reaches the storage turns a network failure, a timeout or a storage-side error into
+// StorageUnavailableError (503, nothing recorded, try again), except the answers that mean the app's own settings
+// are wrong (StorageMisconfiguredError, 500: retrying will not help, an administrator must act).
+// Every call is bounded in time: a storage that accepts the connection and never answers must not hold a
+// request (and its database connection) for ever.
 import {
+  CopyObjectCommand,
   CreateBucketCommand,
   DeleteObjectCommand,
   GetObjectCommand,
@@ -14,12 +18,21 @@ import {
 } from '@aws-sdk/client-s3';
 import { getSignedUrl } from '@aws-sdk/s3-request-presigner';
 import { getEnv, type Env } from '../env';
-import { StorageUnavailableError } from './storage-error';
+import { StorageMisconfiguredError, StorageUnavailableError } from './storage-error';
 
-export { StorageUnavailableError };
+export { StorageMisconfiguredError, StorageUnavailableError };
+
+/** How long the connection to the storage may take to open. */
+export const STORAGE_CONNECT_TIMEOUT_MS = 2_000;
+/** How long one request to the storage may take in all (HEAD, a ranged read, a server-side copy, a delete). */
+export const STORAGE_REQUEST_TIMEOUT_MS = 10_000;
+/** How long the server-side upload of a whole file (up to 10 MB, the multipart route and the mover) may take. */
+export const STORAGE_UPLOAD_TIMEOUT_MS = 60_000;
 
 export interface ObjectHead {
   sizeBytes: number;
+  /** The storage's version tag of these bytes; a conditional read or copy with it fails if the object changed. */
+  etag: string | null;
   contentType: string | null;
   lastModified: Date | null;
 }
@@ -47,6 +60,8 @@ export class ObjectStorage {
       credentials: { accessKeyId: settings.S3_ACCESS_KEY_ID, secretAccessKey: settings.S3_SECRET_ACCESS_KEY },
       // One quick retry: a user waits on these calls, and the caller answers "try again later" anyway.
       maxAttempts: 2,
+      // Bounded: a hanging storage becomes a TimeoutError (then a 503) instead of a request that never ends.
+      requestHandler: { connectionTimeout: STORAGE_CONNECT_TIMEOUT_MS, requestTimeout: STORAGE_REQUEST_TIMEOUT_MS, throwOnRequestTimeout: true },
       // Checksums only where the API requires them: a presigned PUT from a browser cannot add a trailer.
       requestChecksumCalculation: 'WHEN_REQUIRED',
       responseChecksumValidation: 'WHEN_REQUIRED',
@@ -62,33 +77,55 @@ export class ObjectStorage {
     try {
       return await run();
     } catch (error) {
-      throw new StorageUnavailableError(operation, error);
+      throw storageFailure(operation, error);
     }
   }
 
   async putObject(key: string, bytes: Uint8Array, contentType: string): Promise<void> {
-    await this.call('upload', () => this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.length })));
+    await this.call('upload', () =>
+      this.client.send(new PutObjectCommand({ Bucket: this.bucket, Key: key, Body: bytes, ContentType: contentType, ContentLength: bytes.length }), { requestTimeout: STORAGE_UPLOAD_TIMEOUT_MS }),
+    );
   }
 
   /** The object's size and type, or null when there is no such object. */
   async headObject(key: string): Promise<ObjectHead | null> {
     try {
       const head = await this.client.send(new HeadObjectCommand({ Bucket: this.bucket, Key: key }));
-      return { sizeBytes: Number(head.ContentLength ?? 0), contentType: head.ContentType ?? null, lastModified: head.LastModified ?? null };
+      return { sizeBytes: Number(head.ContentLength ?? 0), etag: head.ETag ?? null, contentType: head.ContentType ?? null, lastModified: head.LastModified ?? null };
     } catch (error) {
-      if (isMissing(error)) return null;
-      throw new StorageUnavailableError('check of a file', error);
+      if (isMissingKey(error)) return null;
+      throw storageFailure('check of a file', error);
     }
   }
 
-  /** The first `count` bytes of an object (fewer if it is shorter), or null when there is no such object. */
-  async readFirstBytes(key: string, count: number): Promise<Uint8Array | null> {
+  /**
+   * The first `count` bytes of an object (fewer if it is shorter), or null when there is no such object. With
+   * `ifMatch` (an ETag from headObject), 'changed' when the object is no longer those bytes.
+   */
+  async readFirstBytes(key: string, count: number, ifMatch?: string): Promise<Uint8Array | null | 'changed'> {
     try {
-      const got = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: key, Range: `bytes=0-${count - 1}` }));
+      const got = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: key, Range: `bytes=0-${count - 1}`, IfMatch: ifMatch }));
       return got.Body ? await got.Body.transformToByteArray() : new Uint8Array();
     } catch (error) {
-      if (isMissing(error)) return null;
-      throw new StorageUnavailableError('read of a file', error);
+      if (isMissingKey(error)) return null;
+      if (isPreconditionFailed(error)) return 'changed';
+      throw storageFailure('read of a file', error);
+    }
+  }
+
+  /**
+   * Server-side copy of `from` to `to`, only if `from` is still the bytes tagged `ifMatch`; 'changed' when it is
+   * not (or is gone). The copy is what gets recorded: no client ever has a link that writes to `to`.
+   */
+  async copyObject(from: string, to: string, ifMatch: string): Promise<'copied' | 'changed'> {
+    try {
+      await this.client.send(
+        new CopyObjectCommand({ Bucket: this.bucket, Key: to, CopySource: `${this.bucket}/${from.split('/').map(encodeURIComponent).join('/')}`, CopySourceIfMatch: ifMatch }),
+      );
+      return 'copied';
+    } catch (error) {
+      if (isPreconditionFailed(error) || isMissingKey(error)) return 'changed';
+      throw storageFailure('copy of a file', error);
     }
   }
 
@@ -98,8 +135,8 @@ export class ObjectStorage {
       const got = await this.client.send(new GetObjectCommand({ Bucket: this.bucket, Key: key }));
       return got.Body ? await got.Body.transformToByteArray() : new Uint8Array();
     } catch (error) {
-      if (isMissing(error)) return null;
-      throw new StorageUnavailableError('read of a file', error);
+      if (isMissingKey(error)) return null;
+      throw storageFailure('read of a file', error);
     }
   }
 
@@ -124,7 +161,9 @@ export class ObjectStorage {
     try {
       await this.client.send(new HeadBucketCommand({ Bucket: this.bucket }));
     } catch (error) {
-      if (!isMissing(error)) throw new StorageUnavailableError('check of the bucket', error);
+      if (!(error instanceof S3ServiceException && (error.$metadata?.httpStatusCode === 404 || error.name === 'NotFound' || error.name === 'NoSuchBucket'))) {
+        throw storageFailure('check of the bucket', error);
+      }
       await this.call('creation of the bucket', () => this.client.send(new CreateBucketCommand({ Bucket: this.bucket })));
     }
   }
@@ -150,9 +189,24 @@ export class ObjectStorage {
   }
 }
 
-function isMissing(error: unknown): boolean {
+/** The object is not there (the bucket is: a missing bucket is a misconfiguration, not a file that did not arrive). */
+function isMissingKey(error: unknown): boolean {
   if (!(error instanceof S3ServiceException)) return false;
-  return error.$metadata?.httpStatusCode === 404 || error.name === 'NotFound' || error.name === 'NoSuchKey' || error.name === 'NoSuchBucket';
+  if (error.name === 'NoSuchBucket') return false;
+  return error.name === 'NotFound' || error.name === 'NoSuchKey' || (error.$metadata?.httpStatusCode === 404 && error.name !== 'NoSuchBucket');
+}
+
+function isPreconditionFailed(error: unknown): boolean {
+  return error instanceof S3ServiceException && (error.name === 'PreconditionFailed' || error.$metadata?.httpStatusCode === 412);
+}
+
+/** Answers that mean the app's settings (keys, bucket, region) are wrong: retrying will not help. */
+const CONFIGURATION_ERRORS = new Set(['AccessDenied', 'SignatureDoesNotMatch', 'InvalidAccessKeyId', 'NoSuchBucket', 'AuthorizationHeaderMalformed', 'PermanentRedirect', 'InvalidBucketName']);
+
+/** A failed call as the error the mapper answers: misconfigured (500) or unavailable (503). */
+export function storageFailure(operation: string, error: unknown): StorageUnavailableError | StorageMisconfiguredError {
+  if (error instanceof S3ServiceException && CONFIGURATION_ERRORS.has(error.name)) return new StorageMisconfiguredError(operation, error);
+  return new StorageUnavailableError(operation, error);
 }
 
 const globalForStorage = globalThis as unknown as { tidewardenStorage?: ObjectStorage };

@@ -11,3 +11,17 @@ export class StorageUnavailableError extends Error {
 
 /** What a user reads when the storage is down: true whatever the operation, since the caller rolls back. */
 export const STORAGE_UNAVAILABLE_MESSAGE = 'The file storage cannot be reached just now; nothing was recorded. Try again in a few minutes.';
+
+/** The storage refused the app itself (wrong keys, no such bucket, no permission): an administrator must act. */
+export class StorageMisconfiguredError extends Error {
+  constructor(
+    readonly operation: string,
+    cause?: unknown,
+  ) {
+    super(`The file storage refused the ${operation}: the storage settings (S3_*) are wrong.`, { cause });
+    this.name = 'StorageMisconfiguredError';
+  }
+}
+
+/** What a user reads when the storage refuses the app's own settings: retrying will not help. */
+export const STORAGE_MISCONFIGURED_MESSAGE = 'The file storage is misconfigured; nothing was recorded. Tell your administrator.';

@@ -20,8 +20,17 @@ export async function deleteObjectsNow(keys: Keys, storage: Pick<ObjectStorage, 
   return deleted;
 }
 
-/** Deletes the objects once the unit of work has committed (never when it rolls back). */
+/**
+ * Deletes the objects once the unit of work has committed (never when it rolls back), in the background: the
+ * request does not wait on the storage (a slow or stalled one must not hold the user's answer, nor another
+ * organisation's). A delete that fails or never ends leaves an object no row names; the clean-up job removes it.
+ */
 export function deleteObjectsLater(ctx: Pick<OrgContext, 'effects'>, keys: Keys) {
   const list = [...keys].filter((k): k is string => Boolean(k));
-  if (list.length) ctx.effects.onCommit(() => deleteObjectsNow(list));
+  if (list.length) ctx.effects.onCommit(() => deleteObjectsInBackground(list));
+}
+
+/** Starts the deletes and returns at once; failures are logged (deleteObjectsNow never throws). */
+export function deleteObjectsInBackground(keys: Keys): void {
+  void deleteObjectsNow(keys);
 }
