@@ -64,7 +64,9 @@ export const SurveyAttachmentSchema = defineEntity({
     filename: p.string().length(200),
     contentType: p.string().length(60),
     sizeBytes: p.integer(),
-    objectKey: p.string().length(300).unique(),
+    // NULL only for a file kept in PostgreSQL before the move to the object storage and not moved yet (its
+    // bytes are still in the unmapped column `data`; see move-stored-files.ts). Every new file has its key.
+    objectKey: p.string().length(300).unique().nullable(),
     deviceId: p.string().length(64).nullable(),
     caption: p.string().length(200).nullable(),
     uploadedByEmail: p.string().length(254).nullable(),
@@ -73,8 +75,9 @@ export const SurveyAttachmentSchema = defineEntity({
 });
 export type SurveyAttachment = InferEntity<typeof SurveyAttachmentSchema>;
 
-// An upload the browser was given a presigned URL for and has not completed yet. A repeat of the request for
-// the same device item returns the same object key; completing it turns it into a survey_attachment row.
+// An upload the browser was given a presigned URL for and has not completed yet. `objectKey` is the staging key
+// of the latest link (a repeat of the request for the same device item gets a new one); completing it copies the
+// object to a fresh key and turns it into a survey_attachment row.
 // Rows older than a day are removed by the storage clean-up job, and their objects with them.
 export const SurveyAttachmentUploadSchema = defineEntity({
   name: 'SurveyAttachmentUpload',

@@ -4,11 +4,14 @@
 // An object is kept while any of these names it: a live attachment, an attachment waiting in its undo bin,
 // an attachment of a deleted survey in the survey bin, or an upload asked for less than a day ago.
 // Objects younger than ORPHAN_GRACE_MINUTES are never touched: their row may be in a transaction not yet committed.
+// Nothing at all is touched while any row still holds bytes awaiting the move into the storage
+// (move-stored-files.ts): a half-done move must never meet a clean-up.
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getStorage, type ObjectStorage } from '../../storage/object-storage';
 import { STORED_FILES_PREFIX } from '../../storage/object-keys';
 import { deleteObjectsNow } from './delete-objects';
 import { pgArray } from '../../sql';
+import { storedFilesAwaitingMove } from '../../storage/move-stored-files';
 
 /** A pending upload is kept this long; its presigned link expired long before. */
 export const PENDING_UPLOAD_HOURS = 24;
@@ -16,6 +19,8 @@ export const PENDING_UPLOAD_HOURS = 24;
 export const ORPHAN_GRACE_MINUTES = 60;
 
 export interface OrphanSweep {
+  /** True when the sweep did nothing because files still await the move out of PostgreSQL. */
+  skipped: boolean;
   listed: number;
   deleted: number;
   staleUploads: number;
@@ -43,8 +48,9 @@ async function referencedKeys(em: EntityManager, keys: string[], now: Date): Pro
 export async function sweepOrphanObjects(em: EntityManager, options: { now?: Date; storage?: ObjectStorage; pageSize?: number } = {}): Promise<OrphanSweep> {
   const now = options.now ?? new Date();
   const storage = options.storage ?? getStorage();
+  if (await storedFilesAwaitingMove((sql, params) => em.execute(sql, params ?? []))) return { skipped: true, listed: 0, deleted: 0, staleUploads: 0 };
   const stale = await em.execute<{ id: string }[]>(`delete from survey_attachment_upload where created_at <= ?::timestamptz - ? * interval '1 hour' returning id`, [now.toISOString(), PENDING_UPLOAD_HOURS]);
-  const result: OrphanSweep = { listed: 0, deleted: 0, staleUploads: stale.length };
+  const result: OrphanSweep = { skipped: false, listed: 0, deleted: 0, staleUploads: stale.length };
   const graceStart = now.getTime() - ORPHAN_GRACE_MINUTES * 60_000;
   let token: string | undefined;
   do {

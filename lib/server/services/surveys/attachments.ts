@@ -72,7 +72,9 @@ export const DOWNLOAD_URL_SECONDS = 5 * 60;
  * A short-lived link that serves the file straight from the storage, with its sniffed type and its name
  * (a PDF is offered as a download, a photo is shown). Signing is local: it works even while the storage is down.
  */
-export async function attachmentDownloadUrl(attachment: { objectKey: string; contentType: string; filename: string }) {
+export async function attachmentDownloadUrl(attachment: { objectKey?: string | null; contentType: string; filename: string }) {
+  // A file from before the object storage whose bytes the mover has not reached yet (move-stored-files.ts).
+  if (!attachment.objectKey) throw new AppError('unavailable', 'This file is still being moved into the file storage; try again in a few minutes.');
   const disposition = `${attachment.contentType === 'application/pdf' ? 'attachment' : 'inline'}; filename="${attachment.filename.replace(/["\\\r\n]/g, '_')}"`;
   return getStorage().presignGet(attachment.objectKey, { contentType: attachment.contentType, contentDisposition: disposition }, DOWNLOAD_URL_SECONDS);
 }

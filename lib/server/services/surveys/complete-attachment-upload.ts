@@ -55,9 +55,10 @@ export async function completeAttachmentUpload(ctx: OrgContext, surveyId: string
   if (!isStagingKey(staging, ctx.organisation.id)) throw new AppError('invalid', 'The file is not stored under this organisation; send it again.');
 
   const storage = getStorage();
-  // A refused file leaves the storage (in the background; the clean-up job removes it otherwise) and nothing is recorded.
-  const refuse = (message: string): never => {
-    deleteObjectsInBackground([staging]);
+  // A refused file leaves the storage at once (bounded by the storage timeouts; the clean-up job removes it if the
+  // delete fails) and nothing is recorded.
+  const refuse = async (message: string): Promise<never> => {
+    await storage.deleteObject(staging).catch(() => undefined);
     throw new AppError('invalid', message, { file: [message] });
   };
   const notArrived = 'The file did not arrive in the storage; send it again.';
