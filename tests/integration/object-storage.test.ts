@@ -548,8 +548,12 @@ describe('the migration out of PostgreSQL, through `tsx scripts/migrate.ts up`',
       };
       const oldRow = (id: string, surveyOf: string) => ({ id, organisation_id: orgId, survey_id: surveyOf, filename: 'old', content_type: 'image/png', size_bytes: files[id]!.bytes.length, data: `\\x${Buffer.from(files[id]!.bytes).toString('hex')}`, caption: null });
       await orm.em.fork().transactional(async (tx) => {
-        // Rows only (the organisation and survey they belong to do not matter to the move): no foreign-key checks.
-        await tx.execute(`set local session_replication_role = replica`);
+        // Rows only (the organisation and survey they belong to do not matter to the move): this throwaway
+        // database drops the bins' and attachments' foreign keys.
+        const fks = await tx.execute<{ table_name: string; name: string }[]>(
+          `select conrelid::regclass::text as table_name, conname as name from pg_constraint where contype = 'f' and conrelid::regclass::text in ('survey_attachment', 'survey_attachment_bin', 'survey_bin')`,
+        );
+        for (const fk of fks) await tx.execute(`alter table ${fk.table_name} drop constraint "${fk.name}"`);
         for (const id of live) {
           await tx.execute(`insert into survey_attachment (id, organisation_id, survey_id, filename, content_type, size_bytes, data, created_at) values (?, ?, ?, 'old', 'image/png', ?, ?, now())`, [id, orgId, survey, files[id]!.bytes.length, Buffer.from(files[id]!.bytes)]);
         }
@@ -580,10 +584,11 @@ describe('the migration out of PostgreSQL, through `tsx scripts/migrate.ts up`',
         { id: live[1], object_key: files[live[1]!]!.key, has_data: false },
         { id: live[2], object_key: null, has_data: true },
       ]);
+      await fakeControl('up');
       expect(await storage().getObject(files[live[0]!]!.key)).toEqual(JPEG);
       expect(await storage().getObject(files[live[1]!]!.key)).toEqual(PDF);
+      expect(await storage().headObject(files[live[2]!]!.key)).toBeNull();
       // The clean-up job, even hours later, touches nothing while rows still hold bytes.
-      await fakeControl('up');
       const sweep = await sweepOrphanObjects(em(), { now: new Date(Date.now() + 3 * 3600_000) });
       expect(sweep).toEqual({ skipped: true, listed: 0, deleted: 0, staleUploads: 0 });
       expect(await storage().getObject(files[live[0]!]!.key)).toEqual(JPEG);
@@ -611,7 +616,6 @@ describe('the migration out of PostgreSQL, through `tsx scripts/migrate.ts up`',
       // Bytes that cannot be read stop the move with the row named; the row keeps what it had.
       const broken = randomUUID();
       await em().transactional(async (tx) => {
-        await tx.execute(`set local session_replication_role = replica`);
         await tx.execute(`insert into survey_attachment_bin (id, organisation_id, survey_id, deleted_at, payload) values (?, ?, ?, now(), ?::jsonb)`, [broken, orgId, survey, JSON.stringify({ ...oldRow(binned, survey), id: broken, data: 'ÿØÿ escaped' })]);
       });
       const execute = (sql: string, params?: unknown[]) => em().execute<Record<string, unknown>[]>(sql, params ?? []);

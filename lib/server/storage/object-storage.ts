@@ -93,7 +93,11 @@ export class ObjectStorage {
       const head = await this.client.send(new HeadObjectCommand({ Bucket: this.bucket, Key: key }));
       return { sizeBytes: Number(head.ContentLength ?? 0), etag: head.ETag ?? null, contentType: head.ContentType ?? null, lastModified: head.LastModified ?? null };
     } catch (error) {
-      if (isMissingKey(error)) return null;
+      if (isMissingKey(error)) {
+        // A HEAD answer has no body: a missing object and a missing bucket both read 404. Tell them apart.
+        await this.throwIfBucketMissing('check of a file');
+        return null;
+      }
       throw storageFailure('check of a file', error);
     }
   }
@@ -154,6 +158,18 @@ export class ObjectStorage {
       objects: (page.Contents ?? []).map((o) => ({ key: o.Key ?? '', sizeBytes: Number(o.Size ?? 0), lastModified: o.LastModified ?? new Date(0) })).filter((o) => o.key),
       nextToken: page.IsTruncated ? (page.NextContinuationToken ?? null) : null,
     };
+  }
+
+  /** A StorageMisconfiguredError when the bucket itself is not there (the settings name a bucket that does not exist). */
+  private async throwIfBucketMissing(operation: string): Promise<void> {
+    try {
+      await this.client.send(new HeadBucketCommand({ Bucket: this.bucket }));
+    } catch (error) {
+      if (error instanceof S3ServiceException && (error.$metadata?.httpStatusCode === 404 || error.name === 'NoSuchBucket' || error.name === 'NotFound')) {
+        throw new StorageMisconfiguredError(operation, error);
+      }
+      throw storageFailure(operation, error);
+    }
   }
 
   /** Creates the bucket when it is missing (the local fake creates its own; a fresh store may not have one). */

@@ -61,20 +61,24 @@ export async function completeAttachmentUpload(ctx: OrgContext, surveyId: string
     await storage.deleteObject(staging).catch(() => undefined);
     throw new AppError('invalid', message, { file: [message] });
   };
+  // The staging object gone or changed may mean that another completion of this item won meanwhile (it removes
+  // the staging object once committed): then that attachment is the answer.
   const notArrived = 'The file did not arrive in the storage; send it again.';
+  const missing = async () => (await already()) ?? Promise.reject(new AppError('invalid', notArrived, { file: [notArrived] }));
+  const changed = async () => (await already()) ?? Promise.reject(new AppError('conflict', CHANGED_MESSAGE));
   const head = await storage.headObject(staging);
-  if (!head) throw new AppError('invalid', notArrived, { file: [notArrived] });
-  if (!head.etag) throw new AppError('invalid', CHANGED_MESSAGE, { file: [CHANGED_MESSAGE] });
+  if (!head) return missing();
+  if (!head.etag) return changed();
   if (head.sizeBytes > MAX_ATTACHMENT_BYTES) return refuse(`The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB; reduce it and try again.`);
   if (head.sizeBytes === 0) return refuse('The file is empty.');
   if (head.sizeBytes !== Number(pending.size_bytes)) return refuse('The file that arrived is not the size announced; send it again.');
   const first = await storage.readFirstBytes(staging, 16, head.etag);
-  if (first === 'changed') throw new AppError('conflict', CHANGED_MESSAGE);
-  if (!first) throw new AppError('invalid', notArrived, { file: [notArrived] });
+  if (first === 'changed') return changed();
+  if (!first) return missing();
   const contentType = sniffContentType(first);
   if (!contentType) return refuse('Only JPEG and PNG photos and PDF reports can be attached.');
   const finalKey = attachmentObjectKey(ctx.organisation.id, survey.id);
-  if ((await storage.copyObject(staging, finalKey, head.etag)) === 'changed') throw new AppError('conflict', CHANGED_MESSAGE);
+  if ((await storage.copyObject(staging, finalKey, head.etag)) === 'changed') return changed();
 
   // Now the row: locked, and still the upload that was checked (another completion may have won meanwhile, or a
   // retry on the device may have asked for a new link).
