@@ -1,7 +1,7 @@
 // Direct upload of a survey photo or report from the browser: ask the app for an upload link (presign), PUT the
 // file to the object storage, then ask the app to check and record it (complete). `deviceId` names the item on
 // the device: calling again with the same id after any failure is safe (the app answers "already attached" or
-// the same upload with a fresh link), which is what an offline queue does.
+// the same upload with a fresh link to a new staging key), which is what an offline queue does.
 
 export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string };
 
@@ -65,7 +65,7 @@ async function complete(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
 export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
   const contentType = declaredType(args.file, args.filename);
   try {
-    // An expired link is answered by asking for a fresh one (same key): at most one more round.
+    // An expired link is answered by asking for a fresh one (a new staging key): at most one more round.
     for (let attempt = 0; attempt < 2; attempt++) {
       const res = await presign(args, contentType);
       if (!res.ok) return { ok: false, retry: retryable(res.status), message: await errorMessage(res, `The upload was refused (${res.status}).`) };
@@ -83,7 +83,7 @@ export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPh
       }
       if (put.ok) return await complete(args);
       const text = await put.text().catch(() => '');
-      // The link's time ran out (a slow network, a phone asleep): a fresh link for the same key.
+      // The link's time ran out (a slow network, a phone asleep): ask for a fresh link.
       if (put.status === 403 && /Request has expired/i.test(text)) continue;
       if (put.status >= 500) return { ok: false, retry: true, message: STORAGE_DOWN };
       return { ok: false, retry: false, message: `The file storage refused the file (${put.status}); it was not attached.` };

@@ -158,7 +158,8 @@ const ROUTES: Route[] = [
     permission: surveyors,
     check: (r) => {
       expect(r.body.upload).toMatchObject({ status: 'upload', method: 'PUT', headers: { 'content-type': 'image/png' } });
-      expect(r.body.upload.objectKey).toMatch(new RegExp(`^org/${home.organisation.id}/survey/${ids.surveyId}/[0-9a-f-]{36}$`));
+      // A staging key under the organisation's prefix, new for this request; the attachment is recorded under another.
+      expect(r.body.upload.objectKey).toMatch(new RegExp(`^org/${home.organisation.id}/upload/[0-9a-f-]{36}/[0-9a-f-]{36}$`));
       expect(r.body.upload.url).toMatch(/X-Amz-SignedHeaders=content-length%3Bcontent-type%3Bhost/);
     },
   },
