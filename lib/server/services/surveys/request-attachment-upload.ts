@@ -6,6 +6,7 @@ import { requirePermission, type OrgContext } from '../../org-context';
 import { getStorage } from '../../storage/object-storage';
 import { stagingObjectKey } from '../../storage/object-keys';
 import { getSurveyOrThrow } from './survey-access';
+import { PENDING_UPLOAD_HOURS } from '../storage/sweep-orphan-objects';
 
 /** How long the browser has to send the file to its upload link. */
 export const UPLOAD_URL_SECONDS = 10 * 60;
@@ -56,8 +57,9 @@ export async function requestAttachmentUpload(ctx: OrgContext, surveyId: string,
   }
 
   const [waiting] = await ctx.em.execute<{ n: string }[]>(
-    'select count(*) as n from survey_attachment_upload where organisation_id = ? and uploaded_by_email = ? and device_id <> ?',
-    [ctx.organisation.id, ctx.user.email, data.deviceId],
+    // Uploads older than a day are forgotten by the clean-up job (their links expired long ago): they do not count.
+    `select count(*) as n from survey_attachment_upload where organisation_id = ? and uploaded_by_email = ? and device_id <> ? and created_at > now() - ? * interval '1 hour'`,
+    [ctx.organisation.id, ctx.user.email, data.deviceId, PENDING_UPLOAD_HOURS],
   );
   if (Number(waiting?.n ?? 0) >= MAX_PENDING_UPLOADS_PER_MEMBER) {
     throw new AppError('rate-limited', `You have ${MAX_PENDING_UPLOADS_PER_MEMBER} uploads waiting to be finished; let them finish (or wait a day) before starting more. Nothing was recorded.`);
