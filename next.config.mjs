@@ -44,6 +44,8 @@ const nextConfig = {
     '@react-pdf/renderer',
     'nodemailer',
     'stripe',
+    '@aws-sdk/client-s3',
+    '@aws-sdk/s3-request-presigner',
   ],
 };
 

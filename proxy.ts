@@ -9,6 +9,8 @@ import {
   STATIC_SECURITY_HEADERS,
   type Refusal,
 } from '@/lib/server/request-guard';
+import { storageOrigin } from '@/lib/server/storage/storage-origin';
+import { DEMO_S3 } from '@/lib/server/env';
 
 // In front of every page, server action and route handler (Node runtime):
 //  - unsafe requests (POST, PUT, PATCH, DELETE) must come from our own origin, route handlers must say
@@ -50,6 +52,7 @@ export async function proxy(request: NextRequest) {
     nonce,
     https,
     development: process.env.NODE_ENV === 'development',
+    storageOrigin: storageOrigin(process.env.S3_ENDPOINT || DEMO_S3.endpoint),
     formTargets: paymentFormTargets({
       FAKE_STRIPE_PUBLIC_URL: process.env.FAKE_STRIPE_PUBLIC_URL,
       STRIPE_API_HOST: process.env.STRIPE_API_HOST,
@@ -68,8 +71,9 @@ export async function proxy(request: NextRequest) {
 
 export const config = {
   matcher: [
-    // Everything but the build's static files and the two upload routes.
-    { source: '/((?!_next/static|_next/image|favicon.ico|api/orgs/[^/]+/surveys/[^/]+/(?:attachments|readings)).*)' },
+    // Everything but the build's static files and the two upload routes (only those paths themselves: the
+    // attachment links and the direct-upload routes below them take every check).
+    { source: '/((?!_next/static|_next/image|favicon.ico|api/orgs/[^/]+/surveys/[^/]+/(?:attachments|readings)/?$).*)' },
     // The upload routes too, except a browser's same-origin request: Next copies any body the proxy sees
     // into memory (experimental.proxyClientMaxBodySize), so the app's own uploads go straight to the
     // route, which streams them. Only a browser sets Sec-Fetch-Site, and a page cannot forge it.

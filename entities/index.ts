@@ -13,7 +13,7 @@ import { ZoneSchema } from './zone.entity';
 import { AnodeModelSchema } from './anode-model.entity';
 import { DesignSchema } from './design.entity';
 import { AnodeGroupSchema, AnodeGroupChangeSchema } from './anode-group.entity';
-import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema } from './survey.entity';
+import { SurveySchema, SurveyReadingSchema, SurveyAttachmentSchema, SurveyAttachmentUploadSchema } from './survey.entity';
 import { StripeEventSchema } from './stripe-event.entity';
 import { DockingSchema } from './docking.entity';
 import { RenewalSchema } from './renewal.entity';
@@ -57,6 +57,7 @@ export const allEntities = [
   SurveySchema,
   SurveyReadingSchema,
   SurveyAttachmentSchema,
+  SurveyAttachmentUploadSchema,
   StripeEventSchema,
   DockingSchema,
   IdempotencyKeySchema,

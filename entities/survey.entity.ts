@@ -52,10 +52,13 @@ export const SurveyReadingSchema = defineEntity({
 });
 export type SurveyReading = InferEntity<typeof SurveyReadingSchema>;
 
-// Photos and reports, kept in PostgreSQL so a backup of the database is a backup of everything.
+// Photos and reports: the row says what the file is; its bytes are an object in the object storage under
+// `objectKey` (org/<organisation>/survey/<survey>/<uuid>). A file sent from a device carries the device's id
+// for the item (`deviceId`), unique per organisation, so the same item is accepted once whatever the retries.
 export const SurveyAttachmentSchema = defineEntity({
   name: 'SurveyAttachment',
   tableName: 'survey_attachment',
+  uniques: [{ properties: ['organisation', 'deviceId'] }],
   properties: {
     id: uuidPk(),
     organisation: p.manyToOne(OrganisationSchema).deleteRule('cascade'),
@@ -63,10 +66,37 @@ export const SurveyAttachmentSchema = defineEntity({
     filename: p.string().length(200),
     contentType: p.string().length(60),
     sizeBytes: p.integer(),
-    data: p.blob().lazy(),
+    // NULL only for a file kept in PostgreSQL before the move to the object storage and not moved yet (its
+    // bytes are still in the unmapped column `data`; see move-stored-files.ts). Every new file has its key.
+    objectKey: p.string().length(300).unique().nullable(),
+    deviceId: p.string().length(64).nullable(),
     caption: p.string().length(200).nullable(),
     uploadedByEmail: p.string().length(254).nullable(),
     createdAt: createdAt(),
   },
 });
 export type SurveyAttachment = InferEntity<typeof SurveyAttachmentSchema>;
+
+// An upload the browser was given a presigned URL for and has not completed yet. `objectKey` is the staging key
+// of the latest link (a repeat of the request for the same device item gets a new one); completing it copies the
+// object to a fresh key and turns it into a survey_attachment row.
+// Rows older than a day are removed by the storage clean-up job, and their objects with them.
+export const SurveyAttachmentUploadSchema = defineEntity({
+  name: 'SurveyAttachmentUpload',
+  tableName: 'survey_attachment_upload',
+  uniques: [{ properties: ['organisation', 'deviceId'] }],
+  properties: {
+    id: uuidPk(),
+    organisation: p.manyToOne(OrganisationSchema).deleteRule('cascade'),
+    survey: p.manyToOne(SurveySchema).deleteRule('cascade').index(),
+    deviceId: p.string().length(64),
+    objectKey: p.string().length(300).unique(),
+    filename: p.string().length(200),
+    contentType: p.string().length(60),
+    sizeBytes: p.integer(),
+    caption: p.string().length(200).nullable(),
+    uploadedByEmail: p.string().length(254).nullable(),
+    createdAt: createdAt().index(),
+  },
+});
+export type SurveyAttachmentUpload = InferEntity<typeof SurveyAttachmentUploadSchema>;

@@ -16,6 +16,7 @@ import { Migration20261204600000_survey_corrections } from './Migration202612046
 import { Migration20261206600000_attachment_undo } from './Migration20261206600000_attachment_undo';
 import { Migration20261214000000_structured_positions } from './Migration20261214000000_structured_positions';
 import { Migration20261210000000_asset_outlook } from './Migration20261210000000_asset_outlook';
+import { Migration20261211000000_object_storage } from './Migration20261211000000_object_storage';
 import { Migration20261212000000_capture_device_id } from './Migration20261212000000_capture_device_id';
 
 // Every migration, in order. `npm run migrate -- create <name>` writes a new file; add it here.
@@ -36,6 +37,7 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261204600000_survey_corrections', class: Migration20261204600000_survey_corrections },
   { name: 'Migration20261206600000_attachment_undo', class: Migration20261206600000_attachment_undo },
   { name: 'Migration20261210000000_asset_outlook', class: Migration20261210000000_asset_outlook },
+  { name: 'Migration20261211000000_object_storage', class: Migration20261211000000_object_storage },
   { name: 'Migration20261212000000_capture_device_id', class: Migration20261212000000_capture_device_id },
   { name: 'Migration20261214000000_structured_positions', class: Migration20261214000000_structured_positions },
 ];

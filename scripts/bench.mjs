@@ -3,9 +3,9 @@
 //    migrates a fresh `tidewarden_bench` database and runs scripts/bench.ts against it.
 //  - HTTP (scripts/bench-http.mjs): builds the production app into .next-bench when stale, brings it up like
 //    `npm test` does (lib/services.mjs bringUp: a fresh `tidewarden_bench_http` database in the same cluster,
-//    migrated and seeded with the demo scenario, the SMTP and Stripe fakes, the worker, `next start`) on ports
+//    migrated and seeded with the demo scenario, the SMTP, Stripe and object-storage fakes, the worker, `next start`) on ports
 //    of its own (TIDEWARDEN_BENCH_PORT 3200, TIDEWARDEN_BENCH_SMTP_PORT 2725, TIDEWARDEN_BENCH_MAIL_API_PORT 2726,
-//    TIDEWARDEN_BENCH_STRIPE_PORT 12311), and measures it over HTTP. The worker runs as in a deployment: the
+//    TIDEWARDEN_BENCH_STRIPE_PORT 12311, TIDEWARDEN_BENCH_S3_PORT 12321), and measures it over HTTP. The worker runs as in a deployment: the
 //    app's /api/health, the reference of every ratio, answers 503 without its heartbeat.
 // TIDEWARDEN_BENCH_ONLY (a comma list of design, forecast, pdf, database, http) picks benchmarks; `http` alone
 // skips the in-process stage, and without `http` the app is not built or started.
@@ -53,6 +53,7 @@ async function httpStage(pgPort) {
     smtp: portFrom('TIDEWARDEN_BENCH_SMTP_PORT', 2725),
     mailApi: portFrom('TIDEWARDEN_BENCH_MAIL_API_PORT', 2726),
     stripe: portFrom('TIDEWARDEN_BENCH_STRIPE_PORT', 12311),
+    s3: portFrom('TIDEWARDEN_BENCH_S3_PORT', 12321),
   };
   const distDir = '.next-bench';
   const { env, appUrl } = await bringUp({
@@ -63,7 +64,7 @@ async function httpStage(pgPort) {
     freshDatabase: true,
     stateName: 'bench',
     distDir,
-    portVariables: { app: 'TIDEWARDEN_BENCH_PORT', smtp: 'TIDEWARDEN_BENCH_SMTP_PORT', mailApi: 'TIDEWARDEN_BENCH_MAIL_API_PORT', stripe: 'TIDEWARDEN_BENCH_STRIPE_PORT' },
+    portVariables: { app: 'TIDEWARDEN_BENCH_PORT', smtp: 'TIDEWARDEN_BENCH_SMTP_PORT', mailApi: 'TIDEWARDEN_BENCH_MAIL_API_PORT', stripe: 'TIDEWARDEN_BENCH_STRIPE_PORT', s3: 'TIDEWARDEN_BENCH_S3_PORT' },
   });
   await waitForHealth(appUrl);
   return runHttpBench({ appUrl, env, distDir });

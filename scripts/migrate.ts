@@ -4,6 +4,8 @@ import { MikroORM } from '@mikro-orm/postgresql';
 import { ormConfig } from '../mikro-orm.config';
 import { getEnv } from '../lib/server/env';
 import { describeStartupError } from './lib/describe-error';
+import { moveStoredFilesToObjectStorage } from '../lib/server/storage/move-stored-files';
+import { getStorage } from '../lib/server/storage/object-storage';
 
 async function main() {
   const command = process.argv[2] ?? 'up';
@@ -14,6 +16,12 @@ async function main() {
     if (command === 'up') {
       const done = await migrator.up();
       console.log(done.length ? `Applied ${done.length} migration(s): ${done.map((m) => m.name).join(', ')}` : 'Database schema is up to date.');
+      // Photos and reports still kept in PostgreSQL go to the object storage, row by row (each row commits on its
+      // own, outside the migrations' transaction); a failure stops here and the next run carries on.
+      const em = orm.em.fork();
+      const moved = await moveStoredFilesToObjectStorage((sql, params) => em.execute(sql, params ?? []), () => getStorage());
+      const total = moved.attachments + moved.attachmentBin + moved.surveyBin;
+      if (total) console.log(`Moved ${total} stored file(s) into the object storage (${moved.attachments} attachments, ${moved.attachmentBin} in the attachment bin, ${moved.surveyBin} in deleted surveys).`);
     } else if (command === 'create') {
       const result = await migrator.createMigration('migrations', false, false, process.argv[3]);
       console.log(result.fileName ? `Wrote migrations/${result.fileName}; add it to migrations/index.ts.` : 'No schema changes.');
@@ -30,6 +38,7 @@ async function main() {
 }
 
 main().catch((error) => {
-  console.error(`Migration failed: ${describeStartupError(error)}`);
+  const cause = error instanceof Error && error.cause instanceof Error ? ` (${error.cause.name}: ${error.cause.message})` : '';
+  console.error(`Migration failed: ${describeStartupError(error)}${cause}`);
   process.exit(1);
 });

@@ -12,6 +12,7 @@ async function main() {
     smtp: portFrom('FAKE_SMTP_PORT', 2525),
     mailApi: portFrom('FAKE_MAIL_API_PORT', 2526),
     stripe: portFrom('FAKE_STRIPE_PORT', 12111),
+    s3: portFrom('FAKE_S3_PORT', 12121),
   };
   const { appUrl } = await bringUp({ mode: 'development', ports, cluster: 'dev', database: 'tidewarden', freshDatabase: false, distDir: '.next' });
   const demo = demoSignIns();

@@ -39,9 +39,10 @@ async function main() {
     smtp: portFrom('TIDEWARDEN_TEST_SMTP_PORT', 2625),
     mailApi: portFrom('TIDEWARDEN_TEST_MAIL_API_PORT', 2626),
     stripe: portFrom('TIDEWARDEN_TEST_STRIPE_PORT', 12211),
+    s3: portFrom('TIDEWARDEN_TEST_S3_PORT', 12221),
   };
   const distDir = '.next-test';
-  const { env, appUrl, cluster } = await bringUp({ mode: 'test', ports, cluster: 'test', database: 'tidewarden_e2e', freshDatabase: true, distDir });
+  const { env, appUrl, cluster } = await bringUp({ mode: 'test', ports, cluster: 'test', database: 'tidewarden_e2e', freshDatabase: true, distDir, portVariables: { s3: 'TIDEWARDEN_TEST_S3_PORT' } });
 
   const counts = { passed: 0, failed: 0, skipped: 0 };
   const vitestJson = path.join(resultsDir, 'vitest.json');
@@ -49,6 +50,8 @@ async function main() {
     ...env,
     DATABASE_URL: cluster.urlFor('tidewarden_it'),
     TIDEWARDEN_IT_DATABASE_URL: cluster.urlFor('tidewarden_it'),
+    // A bucket of their own (made by their global set-up), so the storage clean-up tests never see the served app's files.
+    S3_BUCKET: 'tidewarden-it',
     E2E_BASE_URL: appUrl,
   };
   const vitestExit = runSuite('unit and integration', process.execPath, [path.join(root, 'node_modules', 'vitest', 'vitest.mjs'), 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestJson}`], vitestEnv);

@@ -14,6 +14,9 @@ import { reconcileAllSubscriptions } from '../lib/server/services/billing/reconc
 import { deleteExpiredIdempotencyKeys } from '../lib/server/idempotency';
 import { purgeDeletedSurveys } from '../lib/server/services/surveys/manage-surveys';
 import { purgeAttachmentBin } from '../lib/server/services/surveys/attachments';
+import { sweepOrphanObjects } from '../lib/server/services/storage/sweep-orphan-objects';
+import { moveStoredFilesToObjectStorage } from '../lib/server/storage/move-stored-files';
+import { getStorage } from '../lib/server/storage/object-storage';
 import { refreshStaleOutlooks } from '../lib/server/services/planner/refresh-outlooks';
 import { describeStartupError } from './lib/describe-error';
 import { JOBS, SCHEDULES } from '../lib/server/scheduled-jobs';
@@ -35,6 +38,15 @@ async function main() {
     await boss.start();
     for (const name of Object.values(JOBS)) await boss.createQueue(name);
   });
+  // Photos and reports still kept in PostgreSQL (a release whose `migrate.ts up` stopped half-way, say while the
+  // storage was down) go to the object storage, row by row, in the background; the clean-up job waits for it.
+  const moverEm = orm.em.fork();
+  void moveStoredFilesToObjectStorage((sql, params) => moverEm.execute(sql, params ?? []), () => getStorage())
+    .then((moved) => {
+      const total = moved.attachments + moved.attachmentBin + moved.surveyBin;
+      if (total) console.log(`[worker] moved ${total} stored file(s) from PostgreSQL into the object storage`);
+    })
+    .catch((error) => console.error(`[worker] moving stored files into the object storage stopped (the next start carries on): ${error instanceof Error ? error.message : error}`));
   await boss.schedule(JOBS.reminders, SCHEDULES[JOBS.reminders], {}, { tz: 'UTC' });
   await boss.schedule(JOBS.digest, SCHEDULES[JOBS.digest], {}, { tz: 'UTC' });
   await boss.work(JOBS.reminders, async () => {
@@ -70,6 +82,13 @@ async function main() {
     if (purged) console.log(`[worker] deleted surveys past their restore window removed: ${purged}`);
     const files = await purgeAttachmentBin(orm.em.fork());
     if (files) console.log(`[worker] deleted attachments past their undo window removed: ${files}`);
+  });
+  // Nightly: the objects in the storage that no row names any more (the safety net behind the deletes after commit).
+  await boss.schedule(JOBS.storageSweep, SCHEDULES[JOBS.storageSweep], {}, { tz: 'UTC' });
+  await boss.work(JOBS.storageSweep, async () => {
+    const { skipped, listed, deleted, staleUploads } = await sweepOrphanObjects(orm.em.fork());
+    if (skipped) return console.log('[worker] storage clean-up skipped: some photos or reports still await the move into the object storage');
+    console.log(`[worker] storage clean-up: ${listed} files checked, ${deleted} without a record removed, ${staleUploads} unfinished uploads forgotten`);
   });
 
   let stopping = false;

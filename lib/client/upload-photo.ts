@@ -1,14 +1,11 @@
-/**
- * Uploads one survey photo from the phone's capture queue. The integrator may swap this file for the version
- * that uploads straight to object storage: callers rely only on this signature and its answers.
- *
- * Sent over the multipart attachments route with the item's UUID as its Idempotency-Key, so a repeat (a retry
- * after a cut connection, the app restarted mid-send) is stored once: the server answers it with the first
- * upload's attachment. `retry: true` means nothing final happened (no connection, session ended, server busy):
- * keep the photo and send it again later; `retry: false` means the server refused this photo (type, size,
- * permission) and sending it again will not help.
- */
-export async function uploadSurveyPhoto(args: {
+// Direct upload of a survey photo or report from the browser: ask the app for an upload link (presign), PUT the
+// file to the object storage, then ask the app to check and record it (complete). `deviceId` names the item on
+// the device: calling again with the same id after any failure is safe (the app answers "already attached" or
+// the same upload with a fresh link to a new staging key), which is what an offline queue does.
+
+export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string };
+
+export interface UploadPhotoArgs {
   org: string;
   surveyId: string;
   deviceId: string;
@@ -16,27 +13,84 @@ export async function uploadSurveyPhoto(args: {
   filename: string;
   caption: string | null;
   signal?: AbortSignal;
-}): Promise<{ ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string }> {
-  const form = new FormData();
-  form.set('file', args.file, args.filename);
-  if (args.caption) form.set('caption', args.caption);
-  let res: Response;
+}
+
+const ALLOWED_TYPES = ['image/jpeg', 'image/png', 'application/pdf'];
+const OFFLINE = 'The upload could not reach the server; it can be sent again later.';
+const STORAGE_DOWN = 'The file storage cannot be reached just now; nothing was recorded. Try again in a few minutes.';
+
+/** The type to declare: the browser's, or from the name when the browser gives none (the server sniffs the bytes anyway). */
+function declaredType(file: Blob, filename: string): string {
+  if (ALLOWED_TYPES.includes(file.type)) return file.type;
+  const ext = filename.toLowerCase().split('.').pop();
+  if (ext === 'jpg' || ext === 'jpeg') return 'image/jpeg';
+  if (ext === 'png') return 'image/png';
+  if (ext === 'pdf') return 'application/pdf';
+  return file.type || 'application/octet-stream';
+}
+
+async function errorMessage(res: Response, fallback: string): Promise<string> {
+  const body = (await res.json().catch(() => null)) as { error?: { message?: string; fieldErrors?: Record<string, string[]> } } | null;
+  const field = body?.error?.fieldErrors ? Object.values(body.error.fieldErrors).flat()[0] : undefined;
+  return field ?? body?.error?.message ?? fallback;
+}
+
+/** A refusal the user has to act on (wrong type, too large, no permission) is final; the rest can be retried. */
+const retryable = (status: number) => status === 408 || status === 429 || status >= 500;
+
+async function presign(args: UploadPhotoArgs, contentType: string) {
+  const res = await fetch(`/api/orgs/${encodeURIComponent(args.org)}/surveys/${encodeURIComponent(args.surveyId)}/attachments/uploads`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ deviceId: args.deviceId, filename: args.filename, contentType, sizeBytes: args.file.size, caption: args.caption }),
+    signal: args.signal,
+    credentials: 'same-origin',
+  });
+  return res;
+}
+
+async function complete(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
+  const res = await fetch(`/api/orgs/${encodeURIComponent(args.org)}/surveys/${encodeURIComponent(args.surveyId)}/attachments/uploads/${encodeURIComponent(args.deviceId)}/complete`, {
+    method: 'POST',
+    signal: args.signal,
+    credentials: 'same-origin',
+  });
+  if (res.ok) {
+    const body = (await res.json()) as { attachment: { id: string } };
+    return { ok: true, attachmentId: body.attachment.id };
+  }
+  return { ok: false, retry: retryable(res.status), message: await errorMessage(res, `The upload could not be recorded (${res.status}).`) };
+}
+
+export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
+  const contentType = declaredType(args.file, args.filename);
   try {
-    res = await fetch(`/api/orgs/${encodeURIComponent(args.org)}/surveys/${encodeURIComponent(args.surveyId)}/attachments`, {
-      method: 'POST',
-      body: form,
-      headers: { 'Idempotency-Key': args.deviceId },
-      credentials: 'same-origin',
-      signal: args.signal,
-    });
-  } catch {
-    return { ok: false, retry: true, message: 'No connection: the photo stays saved on this phone and is sent when the connection returns.' };
+    // An expired link is answered by asking for a fresh one (a new staging key): at most one more round.
+    for (let attempt = 0; attempt < 2; attempt++) {
+      const res = await presign(args, contentType);
+      if (!res.ok) return { ok: false, retry: retryable(res.status), message: await errorMessage(res, `The upload was refused (${res.status}).`) };
+      const { upload } = (await res.json()) as {
+        upload: { status: 'done'; attachment: { id: string } } | { status: 'upload'; url: string; method: 'PUT'; headers: Record<string, string> };
+      };
+      if (upload.status === 'done') return { ok: true, attachmentId: upload.attachment.id };
+      let put: Response;
+      try {
+        put = await fetch(upload.url, { method: upload.method, headers: upload.headers, body: args.file, signal: args.signal, credentials: 'omit' });
+      } catch (error) {
+        if (args.signal?.aborted) throw error;
+        // A storage that does not answer (or refuses the cross-origin request outright) looks the same from here.
+        return { ok: false, retry: true, message: STORAGE_DOWN };
+      }
+      if (put.ok) return await complete(args);
+      const text = await put.text().catch(() => '');
+      // The link's time ran out (a slow network, a phone asleep): ask for a fresh link.
+      if (put.status === 403 && /Request has expired/i.test(text)) continue;
+      if (put.status >= 500) return { ok: false, retry: true, message: STORAGE_DOWN };
+      return { ok: false, retry: false, message: `The file storage refused the file (${put.status}); it was not attached.` };
+    }
+    return { ok: false, retry: true, message: 'The upload link kept expiring before the file arrived; try again on a better connection.' };
+  } catch (error) {
+    if (args.signal?.aborted) return { ok: false, retry: true, message: 'The upload was cancelled; nothing was attached.' };
+    return { ok: false, retry: true, message: OFFLINE };
   }
-  const body = (await res.json().catch(() => null)) as { attachment?: { id: string }; error?: { message?: string } } | null;
-  if (res.ok && body?.attachment?.id) return { ok: true, attachmentId: body.attachment.id };
-  if (res.status === 401) return { ok: false, retry: true, message: 'Your session has ended: sign in again to send the photo; it stays saved on this phone.' };
-  if (res.status >= 500 || res.status === 408 || res.status === 409 || res.status === 429 || res.ok) {
-    return { ok: false, retry: true, message: 'The server did not take the photo this time; it stays saved on this phone and is sent again.' };
-  }
-  return { ok: false, retry: false, message: body?.error?.message ?? `The photo was refused (${res.status}).` };
 }

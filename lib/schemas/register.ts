@@ -69,6 +69,28 @@ export const surveySchema = z.object({
 /** The caption sent with a survey photo or report (multipart field "caption"). */
 export const attachmentCaptionSchema = z.object({ caption: optionalText(200, { multiline: true }) });
 
+/** The largest photo or report a survey takes. */
+export const MAX_ATTACHMENT_BYTES = 10 * 1024 * 1024;
+/** What a survey takes: JPEG and PNG photos and PDF reports (the stored type is sniffed from the bytes). */
+export const ATTACHMENT_CONTENT_TYPES = ['image/jpeg', 'image/png', 'application/pdf'] as const;
+
+/**
+ * A browser's request for an upload link (POST .../attachments/uploads). `deviceId` names the item on the
+ * device that sends it; the same id later is the same upload (the same object key, a fresh link).
+ */
+export const attachmentUploadRequestSchema = z.object({
+  deviceId: z.string({ error: 'The upload needs the id of the item on your device.' }).regex(/^[A-Za-z0-9_-]{8,64}$/, 'The device item id must be 8 to 64 letters, digits, "-" or "_".'),
+  filename: text().trim().min(1, 'The file needs a name.').max(200, 'The file name must be at most 200 characters.'),
+  contentType: z.enum(ATTACHMENT_CONTENT_TYPES, { error: 'Only JPEG and PNG photos and PDF reports can be attached.' }),
+  sizeBytes: z
+    .number({ error: 'The size of the file in bytes is needed.' })
+    .int('The size of the file in bytes is needed.')
+    .min(1, 'The file is empty.')
+    .max(MAX_ATTACHMENT_BYTES, `The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB; reduce it and try again.`),
+  caption: optionalText(200, { multiline: true }),
+});
+export type AttachmentUploadRequest = z.infer<typeof attachmentUploadRequestSchema>;
+
 export const listQuerySchema = z.object({
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(5).max(200).default(50),

@@ -19,6 +19,15 @@ const envSchema = z.object({
   STRIPE_API_PORT: z.coerce.number().int().optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   STRIPE_WEBHOOK_SECRET: z.string().trim().optional(),
+  // Object storage for survey photos and reports (S3-compatible; the local fake in development and tests).
+  // The browser talks to S3_ENDPOINT directly (presigned URLs), so it must be reachable from users' browsers.
+  S3_ENDPOINT: z.url('S3_ENDPOINT must be a full URL such as http://127.0.0.1:12121.').optional(),
+  S3_BUCKET: z.string().trim().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'S3_BUCKET must be a bucket name (3 to 63 lower-case letters, digits, dots or hyphens).').optional(),
+  S3_ACCESS_KEY_ID: z.string().trim().optional(),
+  S3_SECRET_ACCESS_KEY: z.string().trim().optional(),
+  S3_REGION: z.string().trim().default('us-east-1'),
+  // Path-style addressing (http://host/bucket/key) as the local fake and most self-hosted stores need.
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false', '1', '0']).default('true').transform((v) => v === 'true' || v === '1'),
   // How many proxies in front of the app append to X-Forwarded-For (0: clients connect to the app directly).
   TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
 });
@@ -26,6 +35,8 @@ const envSchema = z.object({
 /** The demo keys of the local payment fake; accepted everywhere but in production. */
 export const DEMO_STRIPE_SECRET_KEY = 'sk_test_tidewarden_local';
 export const DEMO_STRIPE_WEBHOOK_SECRET = 'whsec_tidewarden_local';
+/** The local object-storage fake's address, bucket and demo keys; accepted everywhere but in production. */
+export const DEMO_S3 = { endpoint: 'http://127.0.0.1:12121', bucket: 'tidewarden-local', accessKeyId: 'tidewarden-local', secretAccessKey: 'tidewarden-local-secret' } as const;
 
 const withPaymentKeys = envSchema
   .superRefine((env, ctx) => {
@@ -35,11 +46,20 @@ const withPaymentKeys = envSchema
     else if (env.STRIPE_SECRET_KEY === DEMO_STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'it is the demo key of the local payment fake; production needs the secret key of your payment account.' });
     if (!env.STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: "it must be set in production (the signing secret of the payment service's webhook endpoint)." });
     else if (env.STRIPE_WEBHOOK_SECRET === DEMO_STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: "it is the demo secret of the local payment fake; production needs the signing secret of your webhook endpoint." });
+    // Without these the photos and reports would go to a local fake that does not exist in production.
+    for (const name of ['S3_ENDPOINT', 'S3_BUCKET', 'S3_ACCESS_KEY_ID', 'S3_SECRET_ACCESS_KEY'] as const) {
+      if (!env[name]) ctx.addIssue({ code: 'custom', path: [name], message: 'it must be set in production (the object storage that keeps survey photos and reports).' });
+    }
+    if (env.S3_SECRET_ACCESS_KEY === DEMO_S3.secretAccessKey) ctx.addIssue({ code: 'custom', path: ['S3_SECRET_ACCESS_KEY'], message: "it is the demo key of the local storage fake; production needs your storage account's key." });
   })
   .transform((env) => ({
     ...env,
     STRIPE_SECRET_KEY: env.STRIPE_SECRET_KEY || DEMO_STRIPE_SECRET_KEY,
     STRIPE_WEBHOOK_SECRET: env.STRIPE_WEBHOOK_SECRET || DEMO_STRIPE_WEBHOOK_SECRET,
+    S3_ENDPOINT: (env.S3_ENDPOINT || DEMO_S3.endpoint).replace(/\/+$/, ''),
+    S3_BUCKET: env.S3_BUCKET || DEMO_S3.bucket,
+    S3_ACCESS_KEY_ID: env.S3_ACCESS_KEY_ID || DEMO_S3.accessKeyId,
+    S3_SECRET_ACCESS_KEY: env.S3_SECRET_ACCESS_KEY || DEMO_S3.secretAccessKey,
   }));
 
 export type Env = z.infer<typeof withPaymentKeys>;

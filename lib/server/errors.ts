@@ -1,9 +1,10 @@
 import { ZodError } from 'zod';
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { InputError } from '@/lib/errors/input-error';
+import { StorageMisconfiguredError, StorageUnavailableError, STORAGE_MISCONFIGURED_MESSAGE, STORAGE_UNAVAILABLE_MESSAGE } from './storage/storage-error';
 
 // One error type for the whole server side; the code decides the HTTP status and what the user sees.
-export type AppErrorCode = 'unauthenticated' | 'forbidden' | 'not-found' | 'conflict' | 'invalid' | 'rate-limited' | 'read-only' | 'payload-too-large' | 'unsupported';
+export type AppErrorCode = 'unauthenticated' | 'forbidden' | 'not-found' | 'conflict' | 'invalid' | 'rate-limited' | 'read-only' | 'payload-too-large' | 'unsupported' | 'unavailable';
 
 const STATUS: Record<AppErrorCode, number> = {
   unauthenticated: 401,
@@ -15,6 +16,7 @@ const STATUS: Record<AppErrorCode, number> = {
   'read-only': 423,
   'payload-too-large': 413,
   unsupported: 415,
+  unavailable: 503,
 };
 
 export class AppError extends Error {
@@ -35,7 +37,7 @@ export const notFound = (what = 'That item') => new AppError('not-found', `${wha
 
 /** The one shape every failure takes on its way to a client. */
 export interface ErrorBody {
-  error: { code: AppErrorCode | 'internal'; message: string; fieldErrors?: Record<string, string[]> };
+  error: { code: AppErrorCode | 'internal' | 'misconfigured'; message: string; fieldErrors?: Record<string, string[]> };
 }
 
 export function fieldErrorsFromZod(error: ZodError): Record<string, string[]> {
@@ -58,6 +60,16 @@ export function toErrorBody(error: unknown): { status: number; body: ErrorBody }
   if (error instanceof UniqueConstraintViolationException) {
     // Two requests raced to create the same thing; the database kept one and refused the other.
     return { status: 409, body: { error: { code: 'conflict', message: 'That already exists (it was just created by another request). Reload and check.' } } };
+  }
+  if (error instanceof StorageMisconfiguredError) {
+    // Not an outage: the storage refused the app's own keys or bucket. Loud, because nothing will work until fixed.
+    console.error(`[tidewarden] STORAGE MISCONFIGURED: ${error.message}`, error.cause instanceof Error ? `${error.cause.name}: ${error.cause.message}` : error.cause);
+    return { status: 500, body: { error: { code: 'misconfigured', message: STORAGE_MISCONFIGURED_MESSAGE } } };
+  }
+  if (error instanceof StorageUnavailableError) {
+    // The unit of work rolled back; the operator's log gets the storage's own answer.
+    console.error(`[tidewarden] ${error.message}`, error.cause instanceof Error ? error.cause.message : error.cause);
+    return { status: 503, body: { error: { code: 'unavailable', message: STORAGE_UNAVAILABLE_MESSAGE } } };
   }
   if (error instanceof ZodError) {
     return { status: 422, body: { error: { code: 'invalid', message: 'Some fields need attention.', fieldErrors: fieldErrorsFromZod(error) } } };

@@ -139,22 +139,25 @@ export interface HeaderOptions {
   https: boolean;
   development: boolean;
   formTargets: string[];
+  /** The object storage's origin: photos are shown from it and uploaded to it directly (presigned links). */
+  storageOrigin?: string | null;
 }
 
 /**
  * The page policy: scripts and styles only from our origin or carrying this response's nonce (Next
- * puts the nonce on its own scripts), workers (the offline service worker) only from our origin, nothing framed, no plugins, forms only to us and the payment
- * service's checkout and portal.
+ * puts the nonce on its own scripts), workers (the offline service worker) only from our origin, nothing framed, no plugins,
+ * forms only to us and the payment service's checkout and portal; images from and uploads to the object storage.
  */
-export function contentSecurityPolicy({ nonce, https, development, formTargets }: HeaderOptions): string {
+export function contentSecurityPolicy({ nonce, https, development, formTargets, storageOrigin }: HeaderOptions): string {
   const nonceSource = nonce ? ` 'nonce-${nonce}'` : '';
+  const storage = storageOrigin ? ` ${storageOrigin}` : '';
   return [
     "default-src 'self'",
     `script-src 'self'${nonceSource} 'strict-dynamic'${development ? " 'unsafe-eval'" : ''}`,
     `style-src 'self'${nonceSource}`,
-    "img-src 'self' blob: data:",
+    `img-src 'self' blob: data:${storage}`,
     "font-src 'self'",
-    "connect-src 'self'",
+    `connect-src 'self'${storage}`,
     // The offline service worker (/serwist/sw.js) and nothing else: 'strict-dynamic' would otherwise decide for workers.
     "worker-src 'self'",
     "manifest-src 'self'",

@@ -1,7 +1,7 @@
 // Developer shortcut: builds and serves the app like `npm test` on ports of its own, then runs Playwright
 // with the given arguments (spec files, -g filters) instead of every suite.
 //   node scripts/dev/e2e.mjs tests/security/http/origin.spec.ts
-// Ports: TIDEWARDEN_DEV_E2E_BASE (default 15000) + 0..4; the cluster is named by DEV_E2E_CLUSTER (default deve2e),
+// Ports: TIDEWARDEN_DEV_E2E_BASE (default 15000) + 0..5; the cluster is named by DEV_E2E_CLUSTER (default deve2e),
 // so several developers can run at once on separate bases and clusters. No npm ci here.
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
@@ -10,7 +10,7 @@ import { bringUp } from '../lib/services.mjs';
 
 const base = portFrom('TIDEWARDEN_DEV_E2E_BASE', 15000);
 const clusterName = process.env.DEV_E2E_CLUSTER || 'deve2e';
-const ports = { pg: base, app: base + 1, smtp: base + 2, mailApi: base + 3, stripe: base + 4 };
+const ports = { pg: base, app: base + 1, smtp: base + 2, mailApi: base + 3, stripe: base + 4, s3: base + 5 };
 
 async function main() {
   onShutdown(stopAll);

@@ -8,15 +8,15 @@ export function demoSignIns() {
 }
 
 /**
- * @param {{ mode: 'development'|'test', ports: { app:number, pg:number, smtp:number, mailApi:number, stripe:number },
+ * @param {{ mode: 'development'|'test', ports: { app:number, pg:number, smtp:number, mailApi:number, stripe:number, s3:number },
  *           cluster: string, database: string, freshDatabase: boolean, distDir: string, stateName?: string,
- *           portVariables?: { app?: string, smtp?: string, mailApi?: string, stripe?: string } }} options
+ *           portVariables?: { app?: string, smtp?: string, mailApi?: string, stripe?: string, s3?: string } }} options
  */
 /**
  * What the app and the fakes need to find each other on loopback: the SMTP fake and its inbox API,
- * the Stripe fake (API, pages, webhooks to the app) and the local keys. Shared by npm start, npm test
- * and the developer shortcut scripts/dev/vitest.mjs.
- * @param {{ ports: { smtp:number, mailApi:number, stripe:number }, appUrl: string, stateName: string }} options
+ * the Stripe fake (API, pages, webhooks to the app), the object-storage fake (its bucket, keys and the folder
+ * its objects live in) and the local keys. Shared by npm start, npm test and the developer shortcut scripts/dev/vitest.mjs.
+ * @param {{ ports: { smtp:number, mailApi:number, stripe:number, s3:number }, appUrl: string, stateName: string }} options
  */
 export function fakesEnv({ ports, appUrl, stateName }) {
   return {
@@ -34,17 +34,28 @@ export function fakesEnv({ ports, appUrl, stateName }) {
     STRIPE_API_PROTOCOL: 'http',
     STRIPE_SECRET_KEY: 'sk_test_tidewarden_local',
     STRIPE_WEBHOOK_SECRET: process.env.STRIPE_WEBHOOK_SECRET || 'whsec_tidewarden_local',
+    FAKE_S3_PORT: String(ports.s3),
+    FAKE_S3_DATA_DIR: path.join(root, '.data', `s3-${stateName}`),
+    // The bucket's CORS rule: the app's pages upload to and read from the storage directly.
+    FAKE_S3_CORS_ORIGINS: appUrl,
+    S3_ENDPOINT: `http://127.0.0.1:${ports.s3}`,
+    S3_BUCKET: 'tidewarden-local',
+    S3_ACCESS_KEY_ID: 'tidewarden-local',
+    S3_SECRET_ACCESS_KEY: 'tidewarden-local-secret',
+    S3_REGION: 'us-east-1',
+    S3_FORCE_PATH_STYLE: 'true',
   };
 }
 
 export async function bringUp(options) {
   const { ports } = options;
   // The variables that choose each port, named when one is taken (the bench has its own).
-  const variables = { app: options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT', smtp: 'FAKE_SMTP_PORT', mailApi: 'FAKE_MAIL_API_PORT', stripe: 'FAKE_STRIPE_PORT', ...options.portVariables };
+  const variables = { app: options.mode === 'test' ? 'TIDEWARDEN_TEST_PORT' : 'PORT', smtp: 'FAKE_SMTP_PORT', mailApi: 'FAKE_MAIL_API_PORT', stripe: 'FAKE_STRIPE_PORT', s3: 'FAKE_S3_PORT', ...options.portVariables };
   await requireFreePort(ports.app, 'the web app', variables.app);
   await requireFreePort(ports.smtp, 'the SMTP fake', variables.smtp);
   await requireFreePort(ports.mailApi, 'the SMTP fake inbox', variables.mailApi);
   await requireFreePort(ports.stripe, 'the Stripe fake', variables.stripe);
+  await requireFreePort(ports.s3, 'the object-storage fake', variables.s3);
 
   let databaseUrl = options.mode === 'development' ? process.env.DATABASE_URL : undefined;
   let cluster = null;
@@ -65,13 +76,23 @@ export async function bringUp(options) {
     ...fakesEnv({ ports, appUrl, stateName: options.stateName ?? options.mode }),
     NEXT_TELEMETRY_DISABLED: '1',
   };
-  // The fakes start first: the seed sets up the demo subscription through the Stripe fake.
-  if (options.freshDatabase) fs.rmSync(env.FAKE_STRIPE_STATE_FILE, { force: true });
+  // Pages served under a public APP_URL of their own upload to the storage too.
+  env.FAKE_S3_CORS_ORIGINS = [...new Set([appUrl, env.APP_URL])].join(',');
+  // The fakes start first: the seed sets up the demo subscription through the Stripe fake, and the migration
+  // moves stored files into the object storage.
+  // A fresh database starts with an empty storage too (the objects belong to the rows).
+  if (options.freshDatabase) {
+    fs.rmSync(env.FAKE_STRIPE_STATE_FILE, { force: true });
+    fs.rmSync(env.FAKE_S3_DATA_DIR, { recursive: true, force: true });
+  }
   // The fakes and the worker are supervised: if one dies it is started again with back-off (a line in the log).
   const smtp = startSupervisedTsChild('fake-smtp', 'The SMTP fake', 'fakes/smtp/server.ts', env);
   const stripe = startSupervisedTsChild('fake-stripe', 'The Stripe fake', 'fakes/stripe/server.ts', env);
   await waitForPort(ports.mailApi, 'The SMTP fake', 30_000, smtp.child);
+  const s3 = startSupervisedTsChild('fake-s3', 'The object-storage fake', 'fakes/s3/server.ts', env);
   await waitForPort(ports.stripe, 'The Stripe fake', 30_000, stripe.child);
+  // Before the migration: it moves files that were kept in PostgreSQL into the storage.
+  await waitForPort(ports.s3, 'The object-storage fake', 30_000, s3.child);
 
   say('Migrating the database...');
   runTs('scripts/migrate.ts', ['up'], env, 'The database migration failed; see the message above.');

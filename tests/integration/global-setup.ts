@@ -21,6 +21,11 @@ export default async function setup() {
   await admin.em.getConnection().execute(`create database "${database}"`);
   await admin.close(true);
 
+  // The tests' bucket in the object-storage fake (npm test gives them one of their own).
+  const { ObjectStorage } = await import('../../lib/server/storage/object-storage');
+  const { parseEnv } = await import('../../lib/server/env');
+  await new ObjectStorage(parseEnv(process.env)).ensureBucket();
+
   const orm = await MikroORM.init(ormConfig(url));
   await orm.getMigrator().up();
   await orm.close(true);

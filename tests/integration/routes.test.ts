@@ -16,6 +16,7 @@ import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
 import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs, CALCULATION, PNG_HEADER as PNG } from '../fixtures/entry-points';
 import { pdfText } from '../fixtures/pdf-text';
+import { uploadDirect } from '../fixtures/direct-upload';
 import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
 
 vi.mock('next/headers', () => nextHeadersMock);
@@ -25,7 +26,7 @@ vi.mock('next/headers', () => nextHeadersMock);
 const VESSEL = 'Route Test Vessel';
 const day = (offset: number) => addDays(new Date(), offset).toISOString().slice(0, 10);
 
-type Ids = Record<'designId' | 'dockingId' | 'surveyId' | 'attachmentId' | 'assetId', string>;
+type Ids = Record<'designId' | 'dockingId' | 'surveyId' | 'attachmentId' | 'assetId' | 'deviceId', string>;
 type Method = (typeof HTTP_METHODS)[number];
 type Handler = (req: NextRequest, route: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface Called {
@@ -34,6 +35,7 @@ interface Called {
   bytes: Uint8Array;
   text: string;
   body: any;
+  location: string | null;
 }
 interface Route {
   /** The route's folder under app/api/orgs/[org], with its dynamic segments as named there. */
@@ -159,10 +161,37 @@ const ROUTES: Route[] = [
     method: 'GET',
     load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/[attachmentId]/route'),
     permission: all,
-    check: (r) => {
-      expect(r.type).toBe('image/png');
-      expect(r.bytes).toEqual(PNG);
+    // A redirect to a short-lived link of the object storage, which serves the bytes with the sniffed type.
+    status: 302,
+    check: async (r) => {
+      expect(r.location).toMatch(/X-Amz-Signature=[0-9a-f]{64}/);
+      const served = await fetch(r.location!);
+      expect(served.status).toBe(200);
+      expect(served.headers.get('content-type')).toBe('image/png');
+      expect(served.headers.get('content-disposition')).toBe('inline; filename="bow.png"');
+      expect(new Uint8Array(await served.arrayBuffer())).toEqual(PNG);
     },
+  },
+  {
+    path: 'surveys/[surveyId]/attachments/uploads',
+    method: 'POST',
+    body: () => ({ deviceId: `route-item-${++uploadCalls}`, filename: 'keel.png', contentType: 'image/png', sizeBytes: PNG.length, caption: 'Keel' }),
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/uploads/route'),
+    permission: surveyors,
+    check: (r) => {
+      expect(r.body.upload).toMatchObject({ status: 'upload', method: 'PUT', headers: { 'content-type': 'image/png' } });
+      // A staging key under the organisation's prefix, new for this request; the attachment is recorded under another.
+      expect(r.body.upload.objectKey).toMatch(new RegExp(`^org/${home.organisation.id}/upload/[0-9a-f-]{36}/[0-9a-f-]{36}$`));
+      expect(r.body.upload.url).toMatch(/X-Amz-SignedHeaders=content-length%3Bcontent-type%3Bhost/);
+    },
+  },
+  {
+    path: 'surveys/[surveyId]/attachments/uploads/[deviceId]/complete',
+    method: 'POST',
+    // The device item was completed once in the set-up: a permitted repeat finds the same attachment (200).
+    load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/attachments/uploads/[deviceId]/complete/route'),
+    permission: surveyors,
+    check: (r) => expect(r.body.attachment).toMatchObject({ id: completedAttachmentId, filename: 'rudder.png', contentType: 'image/png', sizeBytes: PNG.length }),
   },
   {
     path: 'surveys/template',
@@ -187,6 +216,8 @@ const ROUTES: Route[] = [
 
 let csvCalls = 0;
 let captureCalls = 0;
+let uploadCalls = 0;
+let completedAttachmentId = '';
 let home: { organisation: Organisation; users: Record<Role, User> };
 let other: { organisation: Organisation; users: Record<Role, User> };
 let ids: Ids;
@@ -209,7 +240,7 @@ async function call(route: Route, slug: string, search = '', body = route.body?.
   const type = res.headers.get('content-type') ?? '';
   const bytes = new Uint8Array(await res.arrayBuffer());
   const text = new TextDecoder().decode(bytes);
-  return { status: res.status, type, bytes, text, body: type.startsWith('application/json') ? JSON.parse(text) : undefined };
+  return { status: res.status, type, bytes, text, body: type.startsWith('application/json') ? JSON.parse(text) : undefined, location: res.headers.get('location') };
 }
 
 /** A refused request answers and writes nothing. */
@@ -231,7 +262,9 @@ beforeAll(async () => {
   await runAs(as('planner'), (c) => addRenewal(c, docking.id, { groupId: group.id, reason: 'damage' }));
   const survey = await runAs(as('inspector'), (c) => createSurvey(c, { assetId: vessel.id, surveyedOn: day(-10), method: 'diver', defaultElectrode: 'ag-agcl-seawater' }));
   const attachment = await runAs(as('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'bow.png', bytes: PNG }, 'Bow thruster'));
-  ids = { assetId: vessel.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id };
+  const direct = await uploadDirect(await as('inspector'), survey.id, 'route-completed-item', { name: 'rudder.png', bytes: PNG, contentType: 'image/png' });
+  completedAttachmentId = direct.completed.attachment.id;
+  ids = { assetId: vessel.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'route-completed-item' };
 });
 afterAll(async () => (await getOrm()).close(true));
 
@@ -350,7 +383,8 @@ describe('organisation route handlers', () => {
     const docking = await runAs(outsider('planner'), (c) => createDocking(c, { assetId: boat.id, kind: 'unplanned', plannedStart: day(30) }));
     const survey = await runAs(outsider('inspector'), (c) => createSurvey(c, { assetId: boat.id, surveyedOn: day(-1), method: 'diver', defaultElectrode: 'cse' }));
     const attachment = await runAs(outsider('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'foreign.png', bytes: PNG }, null));
-    const foreign: Ids = { assetId: boat.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id };
+    await uploadDirect(await outsider('inspector'), survey.id, 'foreign-completed-item', { name: 'foreign.png', bytes: PNG, contentType: 'image/png' });
+    const foreign: Ids = { assetId: boat.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'foreign-completed-item' };
     await signInAs(home.users.owner);
     const saved = ids;
     try {

@@ -9,6 +9,7 @@ import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
 import { deleteReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, listDeletedSurveys, purgeDeletedSurveys, restoreSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { getStorage } from '@/lib/server/storage/object-storage';
 import { addSurveyAttachment, deleteSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 
@@ -184,9 +185,10 @@ describe('a deleted survey, restorable for 30 days', () => {
     await as('engineer', (c) => restoreSurvey(c, survey.id));
     const back = await readingsOf(survey.id);
     expect(back.map((r) => [r.location, r.potentialV, r.remainingFraction])).toEqual([['B1', -0.7, 0.55], ['B2', -0.98, null]]);
-    const [file] = await (await getEm()).execute<{ data: Buffer; caption: string }[]>('select data, caption from survey_attachment where id = ?', [attachment.id]);
+    const [file] = await (await getEm()).execute<{ object_key: string; caption: string }[]>('select object_key, caption from survey_attachment where id = ?', [attachment.id]);
     expect(file.caption).toBe('Pile B1');
-    expect(new Uint8Array(file.data)).toEqual(PNG);
+    // The file itself stayed in the object storage while the survey was in the bin.
+    expect(await getStorage().getObject(file.object_key)).toEqual(PNG);
     expect((await auditOf('survey.restored', survey.id))[0].details).toMatchObject({ before: null, after: { asset: 'Bin Jetty', readings: 2 } });
     expect((await listDeletedSurveys(await ctx('engineer'))).find((r) => r.id === survey.id)).toBeUndefined();
   });

@@ -19,6 +19,7 @@ import { SurveySchema, SurveyAttachmentSchema, AnodeGroupSchema, AnodeGroupChang
 import { createAnodeGroup, removeAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { restoreAnodeGroup, GROUP_RESTORE_MINUTES } from '@/lib/server/services/register/restore-anode-group';
 import { createAnodeModel, setAnodeModelArchived } from '@/lib/server/services/catalogue/manage-anode-models';
+import { getStorage } from '@/lib/server/storage/object-storage';
 import { addSurveyAttachment, deleteSurveyAttachment, purgeAttachmentBin, restoreSurveyAttachment, ATTACHMENT_UNDO_MINUTES } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, makeUser, runAs } from '../fixtures/factories';
 
@@ -299,8 +300,9 @@ describe('restoreSurveyAttachment', () => {
   }
   const stored = async (id: string) => {
     const em = await getEm();
-    const [row] = await em.execute<{ filename: string; caption: string | null; data: Buffer }[]>('select filename, caption, data from survey_attachment where id = ?', [id]);
-    return row ?? null;
+    const [row] = await em.execute<{ filename: string; caption: string | null; object_key: string }[]>('select filename, caption, object_key from survey_attachment where id = ?', [id]);
+    // The bytes are the object the row names in the storage.
+    return row ? { ...row, data: (await getStorage().getObject(row.object_key)) ?? new Uint8Array() } : null;
   };
 
   it('puts the same file back, bytes and caption, audited once however often it is sent', async () => {

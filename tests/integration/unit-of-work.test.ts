@@ -16,6 +16,9 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addReading } from '@/lib/server/services/surveys/record-readings';
 import { captureReading } from '@/lib/server/services/surveys/capture-reading';
 import { importSurveyCsv } from '@/lib/server/services/surveys/import-survey-csv';
+import { requestAttachmentUpload } from '@/lib/server/services/surveys/request-attachment-upload';
+import { completeAttachmentUpload } from '@/lib/server/services/surveys/complete-attachment-upload';
+import { putToLink, requestUpload } from '../fixtures/direct-upload';
 import { addSurveyAttachment, deleteSurveyAttachment, restoreSurveyAttachment, updateSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { deleteReading, restoreReading, updateReading } from '@/lib/server/services/surveys/correct-readings';
 import { deleteSurvey, restoreSurvey, undoDeleteSurvey, updateSurvey } from '@/lib/server/services/surveys/manage-surveys';
@@ -192,6 +195,12 @@ describe('every write commits as one transaction or not at all', () => {
     await expectAllOrNothing(as('inspector')((c) => updateSurveyAttachment(c, survey.id, attachment.id, { caption: `Fr 30 ${uniqueEmail('c')}` })));
     await expectAllOrNothing(as('inspector')((c) => deleteSurveyAttachment(c, survey.id, attachment.id)));
     await expectAllOrNothing(as('inspector')((c) => restoreSurveyAttachment(c, survey.id, attachment.id)));
+    // A direct upload: the link (its pending row), then the check in the storage and the attachment row with its audit.
+    const deviceId = `uow-${Date.now().toString(36)}-${Math.random().toString(36).slice(2, 8)}`;
+    const uploadInput = { deviceId, filename: 'fr31.png', contentType: 'image/png', sizeBytes: png.length };
+    await expectAllOrNothing(as('inspector')((c) => requestAttachmentUpload(c, survey.id, uploadInput)));
+    expect((await putToLink(await requestUpload(await member('inspector'), survey.id, uploadInput), png)).status).toBe(200);
+    await expectAllOrNothing(as('inspector')((c) => completeAttachmentUpload(c, survey.id, deviceId)));
     await expectAllOrNothing(as('inspector')((c) => deleteSurvey(c, survey.id)));
     await expectAllOrNothing(as('engineer')((c) => restoreSurvey(c, survey.id)));
     // The inspector's Undo right after a delete (survey:write, within minutes) is one unit of work too.

@@ -7,6 +7,7 @@ import { uuidOrNotFound } from '../../ids';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getSurveyOrThrow } from './survey-access';
 import { describeReading, lockSurvey, mailCorrections } from './reading-alerts';
+import { deleteObjectsNow } from '../storage/delete-objects';
 
 /** How long a deleted survey can be restored. */
 export const SURVEY_RESTORE_DAYS = 30;
@@ -186,8 +187,17 @@ async function putBack(ctx: OrgContext, surveyId: string, bin: { asset_id: strin
   return survey;
 }
 
-/** Empties the bin of surveys deleted more than SURVEY_RESTORE_DAYS days ago (the worker runs it daily). */
+/**
+ * Empties the bin of surveys deleted more than SURVEY_RESTORE_DAYS days ago (the worker runs it), then deletes
+ * their photos and reports from the storage: the delete of the rows commits first (no transaction here), and a
+ * file whose delete fails has no row left, so the storage clean-up job removes it later.
+ */
 export async function purgeDeletedSurveys(em: EntityManager, now = new Date()) {
-  const rows = await em.execute<{ id: string }[]>(`delete from survey_bin where deleted_at <= ?::timestamptz - ? * interval '1 day' returning id`, [now.toISOString(), SURVEY_RESTORE_DAYS]);
+  const rows = await em.execute<{ id: string; object_keys: string[] | null }[]>(
+    `delete from survey_bin where deleted_at <= ?::timestamptz - ? * interval '1 day'
+     returning id, array(select e->>'object_key' from jsonb_array_elements(coalesce(payload->'attachments', '[]'::jsonb)) e) as object_keys`,
+    [now.toISOString(), SURVEY_RESTORE_DAYS],
+  );
+  await deleteObjectsNow(rows.flatMap((r) => r.object_keys ?? []));
   return rows.length;
 }

@@ -1,18 +1,15 @@
 import { withOrg } from '@/lib/server/with-org';
-import { getSurveyAttachment } from '@/lib/server/services/surveys/attachments';
+import { attachmentDownloadUrl, getSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 
-// GET /api/orgs/[org]/surveys/[surveyId]/attachments/[attachmentId]: the stored file, with its sniffed type.
+// GET /api/orgs/[org]/surveys/[surveyId]/attachments/[attachmentId]: after the permission check, a redirect to a
+// short-lived link that serves the stored file from the object storage with its sniffed type and its name.
 export const GET = withOrg(
   async ({ ctx, params }) => {
     const a = await getSurveyAttachment(ctx, params.surveyId, params.attachmentId);
-    return new Response(new Uint8Array(a.data.$ as Uint8Array), {
-      headers: {
-        'content-type': a.contentType,
-        'content-disposition': `${a.contentType === 'application/pdf' ? 'attachment' : 'inline'}; filename="${a.filename}"`,
-        'x-content-type-options': 'nosniff',
-        'cache-control': 'private, max-age=3600',
-      },
+    return new Response(null, {
+      status: 302,
+      headers: { location: await attachmentDownloadUrl(a), 'cache-control': 'private, no-store' },
     });
   },
-  { permission: 'org:read' },
+  { permission: 'org:read', readOnly: true },
 );
