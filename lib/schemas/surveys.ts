@@ -60,11 +60,13 @@ export const importModeSchema = z.object({
 export const CAPTURE_BATCH_MAX = 50;
 
 /**
- * A batch from the phone's capture queue (POST /api/orgs/[org]/surveys/[surveyId]/capture). The envelope is
+ * A batch from the phone's capture queue (POST /api/orgs/[org]/surveys/[surveyId]/capture), one member's. The envelope is
  * checked whole (every item must carry the UUID the phone gave it, so it can be answered); each item's own
  * fields are checked one by one (`captureReadingSchema`), so one bad item does not refuse the others.
  */
 export const captureBatchSchema = z.object({
+  /** The member who captured the items on the phone: they are recorded only under that member's own session. */
+  capturedBy: z.string({ error: 'Say which member captured the items.' }).min(1, 'Say which member captured the items.').max(100),
   items: z
     .array(z.object({ deviceId: z.uuid({ error: 'Each item needs the UUID made on the device.' }) }).passthrough(), { error: 'Send the items as a list.' })
     .min(1, 'Send at least one item.')
