@@ -68,7 +68,7 @@ export const CAPTURE_BATCH_MAX = 50;
  */
 export const captureBatchSchema = z.object({
   /** The member who captured the items on the phone: they are recorded only under that member's own session. */
-  capturedBy: z.string({ error: 'Say which member captured the items.' }).min(1, 'Say which member captured the items.').max(100),
+  capturedBy: text({ error: 'Say which member captured the items.' }).min(1, 'Say which member captured the items.').max(100),
   items: z
     .array(z.object({ deviceId: z.uuid({ error: 'Each item needs the UUID made on the device.' }) }).passthrough(), { error: 'Send the items as a list.' })
     .min(1, 'Send at least one item.')
