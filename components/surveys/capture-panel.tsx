@@ -24,6 +24,7 @@ const DISCARD_AFTER_ATTEMPTS = 5;
 /** Below this much free storage the panel says so (photos are kept as they were taken). */
 const LOW_STORAGE_BYTES = 50 * 1024 * 1024;
 /** What the status says when the phone's storage refused an item: nothing was kept. */
+const NOT_OPENED = "This phone's storage could not be opened (full, or private browsing): nothing captured here can be kept on it now. Free some space or leave private browsing, then open the page again.";
 const NOT_SAVED = 'NOT saved on this phone: its storage refused it (full, or private browsing). Free some space or leave private browsing, then save again; what you typed is still in the form.';
 
 interface Props {
@@ -141,7 +142,12 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       }
       const mine = await reload();
       if (live && mine.some(isWaiting)) void send('auto');
-    })();
+    })().catch(() => {
+      // The phone's storage cannot be opened (full, private browsing): say so rather than wait for ever.
+      if (!live) return;
+      setLoaded(true);
+      setSaveError(NOT_OPENED);
+    });
     return () => {
       live = false;
     };
