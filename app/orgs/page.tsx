@@ -7,6 +7,7 @@ import { Panel } from '@/components/ui/panel';
 import { CreateOrganisationForm, ResendVerificationForm } from '@/components/auth/orgs-forms';
 import { signOutAction } from './actions';
 import { SignOutForm } from '@/components/offline/sign-out-form';
+import { SignedInMark } from '@/components/offline/signed-in-mark';
 import { listMyOrganisations } from '@/lib/server/services/accounts/list-my-organisations';
 
 export const metadata: Metadata = { title: 'Your organisations' };
@@ -17,6 +18,7 @@ export default async function OrgsPage({ searchParams }: { searchParams: Promise
   const memberships = await listMyOrganisations(await getEm(), user);
   return (
     <div className="min-h-screen bg-paper-sunk">
+      <SignedInMark userId={user.id} />
       <header className="border-b border-rule bg-paper-raised">
         <div className="mx-auto flex max-w-3xl flex-wrap items-center justify-between gap-2 px-3 py-3 sm:px-6">
           <Link href="/" className="text-lg font-semibold tracking-tight text-tide-700">

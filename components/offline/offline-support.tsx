@@ -1,23 +1,19 @@
 'use client';
 import { useEffect } from 'react';
 import { usePathname } from 'next/navigation';
-import { putSetting } from '@/lib/offline/capture-db';
-import { CURRENT_USER_SETTING } from '@/lib/offline/cache-names';
+import { markSignedIn } from '@/lib/offline/sign-out';
+import { SignedInMark } from './signed-in-mark';
 
 const SW_URL = '/serwist/sw.js';
 const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
 
 /**
  * Registers the service worker (lib/offline/service-worker.ts) inside an organisation, names the member signed
- * in (only their capture queue is sent), and asks the worker to keep the survey page just opened, so it opens
- * again without signal; `data-offline-ready` on <html> says it has been kept.
+ * in (only their capture queue is sent and their cached pages served; other members' cached pages are
+ * deleted), and asks the worker to keep the survey page just opened, so it opens again without signal; `data-offline-ready` on <html> says it has been kept.
  */
 export function OfflineSupport({ userId }: { userId: string }) {
   const pathname = usePathname();
-
-  useEffect(() => {
-    void putSetting(CURRENT_USER_SETTING, userId).catch(() => undefined);
-  }, [userId]);
 
   useEffect(() => {
     if (!('serviceWorker' in navigator)) return;
@@ -31,6 +27,8 @@ export function OfflineSupport({ userId }: { userId: string }) {
     let live = true;
     void (async () => {
       if (!navigator.onLine) return;
+      // The page is kept in the signed-in member's cache: name them before asking.
+      await markSignedIn(userId);
       const registration = await navigator.serviceWorker.ready;
       const worker = registration.active;
       if (!worker || !live) return;
@@ -43,7 +41,7 @@ export function OfflineSupport({ userId }: { userId: string }) {
     return () => {
       live = false;
     };
-  }, [pathname]);
+  }, [pathname, userId]);
 
-  return null;
+  return <SignedInMark userId={userId} />;
 }

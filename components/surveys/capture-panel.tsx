@@ -16,6 +16,16 @@ import { CAPTURE_SYNC_TAG, sendCaptureQueue } from '@/lib/offline/send-queue';
 type Electrode = (typeof SURVEY_ELECTRODE_VALUES)[number];
 const ELECTRODE_OPTIONS = SURVEY_ELECTRODE_VALUES.map((value) => ({ value, label: ELECTRODE_LABELS[value] ?? value }));
 const RETRY_MS = 20_000;
+/** The attachments route's limit (MAX_ATTACHMENT_BYTES): a larger photo is refused before it is queued. */
+const PHOTO_MAX_BYTES = 10 * 1024 * 1024;
+const PHOTO_TYPES = ['image/jpeg', 'image/png'];
+/** After this many tries a reading that still waits can be discarded (a server fault that will not pass). */
+const DISCARD_AFTER_ATTEMPTS = 5;
+/** Below this much free storage the panel says so (photos are kept as they were taken). */
+const LOW_STORAGE_BYTES = 50 * 1024 * 1024;
+/** What the status says when the phone's storage refused an item: nothing was kept. */
+const NOT_OPENED = "This phone's storage could not be opened (full, or private browsing): nothing captured here can be kept on it now. Free some space or leave private browsing, then open the page again.";
+const NOT_SAVED = 'NOT saved on this phone: its storage refused it (full, or private browsing). Free some space or leave private browsing, then save again; what you typed is still in the form.';
 
 interface Props {
   org: string;
@@ -36,7 +46,8 @@ interface Draft {
 }
 
 const emptyDraft = (location: string, anodeGroupId = ''): Draft => ({ location, potentialV: '', anodeGroupId, remainingPercent: '', comment: '' });
-const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text.trim().replace(',', '.')));
+// A typographic minus (U+2212) from a text keyboard counts as a minus sign.
+const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text.trim().replace('\u2212', '-').replace(',', '.')));
 
 /** Asks the service worker to send the queue when the connection returns, where the browser has Background Sync. */
 async function askForBackgroundSync() {
@@ -61,7 +72,18 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
   const [loaded, setLoaded] = useState(false);
   const [electrode, setElectrode] = useState<Electrode>((SURVEY_ELECTRODE_VALUES as readonly string[]).includes(defaultElectrode) ? (defaultElectrode as Electrode) : 'ag-agcl-seawater');
   const [recent, setRecent] = useState<string[]>(lastLocations.slice(-2));
-  const [draft, setDraft] = useState<Draft>(() => emptyDraft(lastLocations.length ? nextLocation(lastLocations.at(-1)!, lastLocations.at(-2)) : ''));
+  const serverProposal = lastLocations.length ? nextLocation(lastLocations.at(-1)!, lastLocations.at(-2)) : '';
+  const [draft, setDraft] = useState<Draft>(() => emptyDraft(serverProposal));
+  // The UUID of the reading and of the photo being captured: made when the draft starts and kept through every
+  // tap and retry of its save, renewed only once it is saved, so a double tap saves one item.
+  const [draftId, setDraftId] = useState(() => newIdempotencyKey());
+  const [photoId, setPhotoId] = useState(() => newIdempotencyKey());
+  const saving = useRef(false);
+  const [busy, setBusy] = useState(false);
+  // The electrode of the reading being edited (its own, not the one chosen for new readings).
+  const [editElectrode, setEditElectrode] = useState<Electrode | null>(null);
+  const [saveError, setSaveError] = useState<string | null>(null);
+  const [storageNote, setStorageNote] = useState<string | null>(null);
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [editing, setEditing] = useState<string | null>(null);
   const [notice, setNotice] = useState<string>('');
@@ -112,18 +134,39 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     (async () => {
       const chosen = await getSetting<Electrode>(electrodeKey);
       if (live && chosen) setElectrode(chosen);
+      // The phone's own last two captures come before the survey's stored readings (which carry no order of capture).
       const locations = await getSetting<string[]>(locationsKey);
       if (live && locations?.length) {
         setRecent(locations);
-        setDraft((d) => (d.location ? d : { ...d, location: nextLocation(locations.at(-1)!, locations.at(-2)) }));
+        setDraft((d) => (d.location && d.location !== serverProposal ? d : { ...d, location: nextLocation(locations.at(-1)!, locations.at(-2)) }));
       }
       const mine = await reload();
       if (live && mine.some(isWaiting)) void send('auto');
-    })();
+    })().catch(() => {
+      // The phone's storage cannot be opened (full, private browsing): say so rather than wait for ever.
+      if (!live) return;
+      setLoaded(true);
+      setSaveError(NOT_OPENED);
+    });
     return () => {
       live = false;
     };
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the proposal from the server is the first render's
   }, [electrodeKey, locationsKey, reload, send]);
+
+  // Ask the browser to keep the queue through storage pressure, and say so when little room is left.
+  useEffect(() => {
+    const storage = navigator.storage;
+    void storage?.persist?.().catch(() => false);
+    void storage
+      ?.estimate?.()
+      .then(({ quota, usage }) => {
+        if (quota !== undefined && usage !== undefined && quota - usage < LOW_STORAGE_BYTES) {
+          setStorageNote(`Little room left on this phone for captured items: about ${Math.max(0, Math.floor((quota - usage) / 1024 / 1024))} MB free.`);
+        }
+      })
+      .catch(() => undefined);
+  }, []);
 
   // Follow the queue as other tabs and the service worker change it; send when the connection returns, and
   // try again now and then while something waits.
@@ -155,18 +198,31 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
 
   async function saveReading(event: React.FormEvent) {
     event.preventDefault();
+    if (saving.current || !loaded) return;
+    saving.current = true;
+    setBusy(true);
+    try {
+      await saveReadingNow();
+    } finally {
+      saving.current = false;
+      setBusy(false);
+    }
+  }
+
+  async function saveReadingNow() {
+    const readingElectrode = editing && editElectrode ? editElectrode : electrode;
     const reading: QueuedReading = {
       location: draft.location.trim(),
       potentialV: numberOrNull(draft.potentialV),
-      electrode: draft.potentialV.trim() === '' ? null : electrode,
+      electrode: draft.potentialV.trim() === '' ? null : readingElectrode,
       anodeGroupId: draft.anodeGroupId || null,
       anodeGroupLabel: groups.find((g) => g.id === draft.anodeGroupId)?.label ?? null,
       remainingFraction: draft.remainingPercent.trim() === '' ? null : Number(draft.remainingPercent.trim().replace(',', '.')) / 100,
       comment: draft.comment.trim() || null,
     };
-    const deviceId = editing ?? newIdempotencyKey();
+    const deviceId = editing ?? draftId;
     // The server's own rules, checked here first so a mistake is shown at once, offline too.
-    const checked = captureReadingSchema(electrode).safeParse({ deviceId, kind: 'reading', ...reading });
+    const checked = captureReadingSchema(readingElectrode).safeParse({ deviceId, kind: 'reading', ...reading });
     if (!checked.success || (reading.remainingFraction !== null && Number.isNaN(reading.remainingFraction))) {
       const fieldErrors: Record<string, string[]> = {};
       for (const issue of checked.success ? [] : checked.error.issues) {
@@ -183,13 +239,27 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     const item: CaptureItem = existing
       ? resubmit(existing, reading)
       : { deviceId, kind: 'reading', org, surveyId, userId, createdAt: Date.now(), state: 'waiting', message: null, attempts: 0, reading };
-    await putItem(item);
-    const locations = [...recent, reading.location].slice(-2);
-    setRecent(locations);
-    await putSetting(locationsKey, locations);
+    try {
+      await putItem(item);
+    } catch {
+      setNotice('');
+      setSaveError(NOT_SAVED);
+      return;
+    }
+    setSaveError(null);
     setErrors({});
     setEditing(null);
-    setDraft(emptyDraft(nextLocation(reading.location, recent.at(-1) ?? null), draft.anodeGroupId));
+    setEditElectrode(null);
+    if (existing) {
+      // An old item corrected: the proposal goes on from the last capture, not from the edited one.
+      setDraft(emptyDraft(recent.length ? nextLocation(recent.at(-1)!, recent.at(-2)) : '', draft.anodeGroupId));
+    } else {
+      const locations = [...recent, reading.location].slice(-2);
+      setRecent(locations);
+      await putSetting(locationsKey, locations).catch(() => undefined);
+      setDraft(emptyDraft(nextLocation(reading.location, recent.at(-1) ?? null), draft.anodeGroupId));
+      setDraftId(newIdempotencyKey());
+    }
     setNotice(`Saved on this phone: reading at ${reading.location}.`);
     await reload();
     queued();
@@ -197,11 +267,24 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
 
   async function savePhoto(event: React.FormEvent) {
     event.preventDefault();
+    if (saving.current || !loaded) return;
+    saving.current = true;
+    setBusy(true);
+    try {
+      await savePhotoNow();
+    } finally {
+      saving.current = false;
+      setBusy(false);
+    }
+  }
+
+  async function savePhotoNow() {
     const file = photoInput.current?.files?.[0];
     if (!file || !file.size) return setPhotoError('Take or choose a photo first.');
-    if (!file.type.startsWith('image/')) return setPhotoError('Choose a photo (JPEG or PNG).');
+    if (!PHOTO_TYPES.includes(file.type)) return setPhotoError('Choose a photo in JPEG or PNG.');
+    if (file.size > PHOTO_MAX_BYTES) return setPhotoError(`The photo is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB; take it at a lower resolution and save again.`);
     setPhotoError(null);
-    const deviceId = newIdempotencyKey();
+    const deviceId = photoId;
     const item: CaptureItem = {
       deviceId,
       kind: 'photo',
@@ -214,7 +297,15 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       attempts: 0,
       photo: { file: new Blob([await file.arrayBuffer()], { type: file.type }), filename: file.name || `photo-${deviceId.slice(0, 8)}.jpg`, caption: caption.trim() || null },
     };
-    await putItem(item);
+    try {
+      await putItem(item);
+    } catch {
+      setNotice('');
+      setSaveError(NOT_SAVED);
+      return;
+    }
+    setSaveError(null);
+    setPhotoId(newIdempotencyKey());
     if (photoInput.current) photoInput.current.value = '';
     setCaption('');
     setNotice(`Saved on this phone: photo ${item.photo!.filename}.`);
@@ -225,6 +316,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
   function edit(item: CaptureItem) {
     const r = item.reading!;
     setEditing(item.deviceId);
+    setEditElectrode(r.electrode && (SURVEY_ELECTRODE_VALUES as readonly string[]).includes(r.electrode) ? (r.electrode as Electrode) : null);
     setErrors(item.fieldErrors?.remainingFraction ? { ...item.fieldErrors, remainingPercent: item.fieldErrors.remainingFraction } : (item.fieldErrors ?? {}));
     setDraft({
       location: r.location,
@@ -233,7 +325,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       remainingPercent: r.remainingFraction === null ? '' : String(Math.round(r.remainingFraction * 1000) / 10),
       comment: r.comment ?? '',
     });
-    setNotice(`Editing the reading at ${r.location}: change it and save to send it again.`);
+    setNotice(`Editing the reading at ${r.location}${r.electrode ? ` (taken against ${ELECTRODE_LABELS[r.electrode] ?? r.electrode})` : ''}: change it and save to send it again.`);
   }
 
   async function sendAgain(item: CaptureItem) {
@@ -246,7 +338,10 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     const item = items.find((i) => i.deviceId === deviceId);
     await deleteItem(deviceId);
     setConfirmDiscard(null);
-    if (editing === deviceId) setEditing(null);
+    if (editing === deviceId) {
+      setEditing(null);
+      setEditElectrode(null);
+    }
     setNotice(item ? `Discarded: ${describe(item)}. It was never recorded.` : 'Discarded.');
     await reload();
   }
@@ -267,6 +362,10 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
           {loaded ? summary.sentence : 'Reading what is saved on this phone…'}
           {notice ? <span className="block font-normal text-ink-soft">{notice}</span> : null}
         </p>
+        <p role="alert" className="text-sm font-semibold text-state-action empty:hidden" data-testid="capture-save-error">
+          {saveError ?? ''}
+        </p>
+        {storageNote ? <p className="text-sm text-ink-soft">{storageNote}</p> : null}
         <div className="mt-2 flex flex-wrap items-center gap-2">
           <Button type="button" variant="secondary" onClick={() => void send('button')} disabled={sending || !summary.waiting}>
             {sending ? 'Sending…' : 'Send now'}
@@ -275,30 +374,34 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       </div>
 
       <SelectField
-        label="Reference electrode for this survey"
+        label={editing ? 'Reference electrode of the reading being edited' : 'Reference electrode for this survey'}
         name="captureElectrode"
-        value={electrode}
+        value={editing && editElectrode ? editElectrode : electrode}
         options={ELECTRODE_OPTIONS}
         onChange={(e) => {
           const value = e.target.value as Electrode;
+          if (editing) return setEditElectrode(value);
           setElectrode(value);
-          void putSetting(electrodeKey, value);
+          void putSetting(electrodeKey, value).catch(() => undefined);
         }}
       />
 
       <form onSubmit={saveReading} noValidate aria-label="Capture a reading" className="grid grid-cols-2 gap-3">
         <Field className="col-span-2" label="Location" {...field('location')} autoComplete="off" placeholder="Fr 22 P, Pile B7" />
-        <Field label="Potential" {...field('potentialV')} inputMode="decimal" unit="V" hint={`against ${ELECTRODE_LABELS[electrode]}`} />
+        {/* A text keyboard: the decimal pad of some phones has no minus sign, and potentials are negative. */}
+        <Field label="Potential" {...field('potentialV')} inputMode="text" pattern="[+\-]?[0-9]*([.,][0-9]*)?" autoComplete="off" autoCorrect="off" spellCheck={false} unit="V" hint={`against ${ELECTRODE_LABELS[editing && editElectrode ? editElectrode : electrode]}`} />
         <Field label="Remaining" {...field('remainingPercent')} inputMode="decimal" unit="%" />
         <SelectField className="col-span-2" label="Anode group" {...field('anodeGroupId')} options={[{ value: '', label: 'None' }, ...groups.map((g) => ({ value: g.id, label: g.label }))]} />
         <Field className="col-span-2" label="Comment" {...field('comment')} />
         <div className="col-span-2 flex flex-wrap gap-2">
-          <Button type="submit" className="min-h-11 flex-1">
+          {/* Disabled until the page has started and read the queue: a tap before that would not be saved. */}
+          <Button type="submit" className="min-h-11 flex-1" disabled={!loaded || busy}>
             {editing ? 'Save and send again' : 'Save reading'}
           </Button>
           {editing ? (
             <Button type="button" variant="secondary" className="min-h-11" onClick={() => {
               setEditing(null);
+              setEditElectrode(null);
               setErrors({});
               setDraft(emptyDraft(recent.length ? nextLocation(recent.at(-1)!, recent.at(-2)) : ''));
             }}>
@@ -311,11 +414,11 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       <form onSubmit={savePhoto} noValidate aria-label="Capture a photo" className="flex flex-col gap-3 border-t border-rule pt-3">
         <label className="flex flex-col gap-1 text-xs font-medium text-ink-soft">
           Photo
-          <input ref={photoInput} type="file" name="photo" accept="image/*" capture="environment" className="min-h-11 max-w-full text-sm text-ink" onChange={() => setPhotoError(null)} />
+          <input ref={photoInput} type="file" name="photo" accept={PHOTO_TYPES.join(',')} capture="environment" className="min-h-11 max-w-full text-sm text-ink" onChange={() => setPhotoError(null)} />
         </label>
         <Field label="What the photo shows" name="photoCaption" value={caption} onChange={(e) => setCaption(e.target.value)} />
         {photoError ? <p role="alert" className="text-sm text-state-action">{photoError}</p> : null}
-        <Button type="submit" variant="secondary" className="min-h-11">
+        <Button type="submit" variant="secondary" className="min-h-11" disabled={!loaded || busy}>
           Save photo
         </Button>
       </form>
@@ -331,7 +434,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
                   <span className="min-w-0 break-words">{CAPTURE_KIND_LABELS[item.kind]}: {describe(item)}</span>
                 </div>
                 {item.message ? <p className={`mt-1 ${needsYou(item) ? 'text-state-action' : 'text-ink-soft'}`}>{item.message}</p> : null}
-                {needsYou(item) ? (
+                {needsYou(item) || (item.state === 'waiting' && item.attempts >= DISCARD_AFTER_ATTEMPTS) ? (
                   <div className="mt-2 flex flex-wrap gap-2">
                     {item.kind === 'reading' ? (
                       <Button type="button" variant="secondary" className="min-h-11" onClick={() => edit(item)}>

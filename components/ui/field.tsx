@@ -23,7 +23,7 @@ export function Field({ label, name, errors, hint, unit, className = '', ...prop
           name={name}
           aria-invalid={errors?.length ? true : undefined}
           aria-describedby={describedBy}
-          className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none focus:border-tide-500 max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
+          className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm outline-none max-sm:text-base focus:border-tide-500 max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'} ${props.type === 'number' ? 'num' : ''}`}
           {...props}
         />
         {unit ? <span className="min-w-8 text-xs text-ink-faint">{unit}</span> : null}
@@ -59,7 +59,7 @@ export function SelectField({ label, name, errors, options, className = '', ...p
         id={id}
         name={name}
         aria-invalid={errors?.length ? true : undefined}
-        className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'}`}
+        className={`w-full min-w-0 rounded-[3px] border bg-paper-raised px-2 py-1.5 text-sm max-sm:text-base max-lg:min-h-11 ${errors?.length ? 'border-state-action' : 'border-rule-strong'}`}
         {...props}
       >
         {options.map((o) => (

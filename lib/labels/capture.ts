@@ -36,6 +36,7 @@ export const CAPTURE_CONFLICT_MESSAGES = {
   groupGone: 'That anode group is no longer fitted to this asset (closed or renewed). Choose another group, or none, and send again.',
   groupNotOnAsset: 'That anode group is not fitted to the asset of this survey. Choose one of its groups, or none, and send again.',
   notAllowed: 'Your role in this organisation no longer allows recording readings. Ask an owner, or discard the item.',
+  otherMember: 'Captured by another member on this phone; sign in as them to send.',
 } as const;
 
 /** "Saved on this phone — 3 waiting to send", "Everything is sent": the count the status region reads out. */

@@ -18,7 +18,12 @@ export const CAPTURE_CHANGED_EVENT = 'tidewarden:capture-changed';
 let opened: Promise<IDBPDatabase<CaptureDb>> | null = null;
 
 export function captureDb() {
-  opened ??= openDB<CaptureDb>(CAPTURE_DB_NAME, 1, {
+  opened ??= openCaptureDb();
+  return opened;
+}
+
+function openCaptureDb() {
+  const opening = openDB<CaptureDb>(CAPTURE_DB_NAME, 1, {
     upgrade(db) {
       const items = db.createObjectStore('items', { keyPath: 'deviceId' });
       items.createIndex('byUser', 'userId');
@@ -30,7 +35,12 @@ export function captureDb() {
       opened = null;
     },
   });
-  return opened;
+  // A refused open (storage full, private mode, another tab blocking) is not kept: the next call tries again.
+  const kept = opening.catch((error: unknown) => {
+    if (opened === kept) opened = null;
+    throw error;
+  });
+  return kept;
 }
 
 export async function putItem(item: CaptureItem) {

@@ -57,6 +57,47 @@ export function toCaptureRequestItem(item: CaptureItem) {
   return { deviceId: item.deviceId, kind: 'reading' as const, location: r.location, potentialV: r.potentialV, electrode: r.electrode, anodeGroupId: r.anodeGroupId, remainingFraction: r.remainingFraction, comment: r.comment };
 }
 
+/** The most readings one request carries (CAPTURE_BATCH_MAX on the server). */
+export const CAPTURE_BATCH_SIZE = 50;
+
+/**
+ * The readings that wait, in the requests that carry them: one member, one survey and at most
+ * CAPTURE_BATCH_SIZE items per request, oldest first. A request names the member who captured its items
+ * (`capturedBy`), and the server records them only under that member's own session.
+ */
+export function captureBatches(items: CaptureItem[]): { org: string; surveyId: string; capturedBy: string; items: CaptureItem[] }[] {
+  const groups = new Map<string, CaptureItem[]>();
+  for (const item of items) {
+    if (item.kind !== 'reading') continue;
+    const key = JSON.stringify([item.userId, item.org, item.surveyId]);
+    groups.set(key, [...(groups.get(key) ?? []), item]);
+  }
+  const batches: { org: string; surveyId: string; capturedBy: string; items: CaptureItem[] }[] = [];
+  for (const group of groups.values()) {
+    for (let start = 0; start < group.length; start += CAPTURE_BATCH_SIZE) {
+      const slice = group.slice(start, start + CAPTURE_BATCH_SIZE);
+      batches.push({ org: slice[0].org, surveyId: slice[0].surveyId, capturedBy: slice[0].userId, items: slice });
+    }
+  }
+  return batches;
+}
+
+/** The body of one capture request. */
+export const captureRequestBody = (batch: { capturedBy: string; items: CaptureItem[] }) => ({ capturedBy: batch.capturedBy, items: batch.items.map(toCaptureRequestItem) });
+
+/**
+ * What a capture request's answer means: results item by item, or a failure of the whole request. A 200 that
+ * is not our JSON (a hotel or harbour Wi-Fi login page, a redirect followed to another page) was never seen
+ * by the capture route: the items wait and are sent again.
+ */
+export function readCaptureResponse(res: { status: number; ok: boolean; redirected: boolean } | null, body: unknown): { results: CaptureItemResult[] } | BatchFailure {
+  if (!res) return { kind: 'offline' };
+  const parsed = body && typeof body === 'object' ? (body as { results?: unknown; error?: { message?: unknown } }) : null;
+  if (res.ok && !res.redirected && Array.isArray(parsed?.results)) return { results: parsed.results as CaptureItemResult[] };
+  if (res.ok || res.redirected || !parsed) return res.status === 401 ? { kind: 'signed-out' } : { kind: 'server', status: res.status };
+  return batchFailureOf(res.status, typeof parsed.error?.message === 'string' ? parsed.error.message : null);
+}
+
 /** An item after the server's answer for it. */
 export function applyCaptureResult(item: CaptureItem, result: CaptureItemResult): CaptureItem {
   switch (result.status) {
@@ -101,10 +142,19 @@ export function applyBatchFailure(item: CaptureItem, failure: BatchFailure): Cap
   }
 }
 
-/** A photo after its upload: sent, waiting again (`retry`), or refused for good until discarded. */
-export function applyPhotoResult(item: CaptureItem, result: { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string }): CaptureItem {
+/** What an upload answers (lib/client/upload-photo.ts); `conflict` is read when the uploader gives it. */
+export type PhotoUploadResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean };
+
+/**
+ * A photo after its upload: sent, waiting again (`retry`), a conflict the member can resolve and send again
+ * (`conflict`: the survey deleted, the role changed, another member's photo; the file itself is fine), or
+ * refused for the file's own faults (type, size) until discarded.
+ */
+export function applyPhotoResult(item: CaptureItem, result: PhotoUploadResult): CaptureItem {
   if (result.ok) return { ...item, state: 'sent', message: 'Photo sent.', serverId: result.attachmentId };
-  return { ...item, state: result.retry ? 'waiting' : 'failed', message: result.message };
+  if (result.retry) return { ...item, state: 'waiting', message: result.message };
+  const conflict = 'conflict' in result && result.conflict === true;
+  return { ...item, state: conflict ? 'conflict' : 'failed', message: result.message };
 }
 
 /** An item taken up again by the member (edited or "send again"): waiting, its old answer forgotten. */

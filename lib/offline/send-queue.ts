@@ -1,10 +1,9 @@
 import { uploadSurveyPhoto } from '@/lib/client/upload-photo';
-import type { CaptureItemResult } from '@/lib/schemas/surveys';
 import { deleteItem, getItem, itemsOf, allItems, putItem } from './capture-db';
-import { applyBatchFailure, applyCaptureResult, applyPhotoResult, batchFailureOf, isWaiting, toCaptureRequestItem, type CaptureItem } from './capture-state';
+import { applyBatchFailure, applyCaptureResult, applyPhotoResult, batchFailureOf, captureBatches, captureRequestBody, isWaiting, readCaptureResponse, type BatchFailure, type CaptureItem } from './capture-state';
 
-/** The most readings one request carries (CAPTURE_BATCH_MAX on the server). */
-const BATCH = 50;
+/** How long one request may take before it counts as no connection. */
+const SEND_TIMEOUT_MS = 30_000;
 export const CAPTURE_SYNC_TAG = 'tidewarden-capture';
 
 export interface SendOutcome {
@@ -30,44 +29,60 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
   const items = (userId ? await itemsOf(userId) : await allItems()).filter(isWaiting);
   let sent = 0;
   let offline = false;
-  const readings = items.filter((i) => i.kind === 'reading');
-  const groups = new Map<string, CaptureItem[]>();
-  for (const item of readings) groups.set(`${item.org}/${item.surveyId}`, [...(groups.get(`${item.org}/${item.surveyId}`) ?? []), item]);
-  for (const group of groups.values()) {
-    for (let start = 0; start < group.length && !offline; start += BATCH) {
-      const batch = group.slice(start, start + BATCH);
-      for (const item of batch) await putItem({ ...item, state: 'sending', attempts: item.attempts + 1 });
-      let res: Response | null = null;
-      try {
-        res = await fetcher(`/api/orgs/${encodeURIComponent(batch[0].org)}/surveys/${encodeURIComponent(batch[0].surveyId)}/capture`, {
-          method: 'POST',
-          headers: { 'content-type': 'application/json' },
-          credentials: 'same-origin',
-          body: JSON.stringify({ items: batch.map(toCaptureRequestItem) }),
-        });
-      } catch {
-        res = null;
+
+  /** Sends one request and writes its answer back item by item; returns the whole request's failure, if any. */
+  const sendBatch = async (batch: { org: string; surveyId: string; capturedBy: string; items: CaptureItem[] }): Promise<BatchFailure | null> => {
+    for (const item of batch.items) {
+      const current = await getItem(item.deviceId);
+      if (current) await putItem({ ...current, state: 'sending', attempts: current.attempts + 1 });
+    }
+    let res: Response | null = null;
+    let body: unknown = null;
+    try {
+      res = await fetcher(`/api/orgs/${encodeURIComponent(batch.org)}/surveys/${encodeURIComponent(batch.surveyId)}/capture`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        credentials: 'same-origin',
+        body: JSON.stringify(captureRequestBody(batch)),
+        // A request that hangs (a dying signal) must not hold the send lock for ever: after this long it counts as no connection.
+        signal: AbortSignal.timeout(SEND_TIMEOUT_MS),
+      });
+      body = await res.json().catch(() => null);
+    } catch {
+      res = null;
+    }
+    const answer = readCaptureResponse(res, body);
+    if ('results' in answer) {
+      const byId = new Map(answer.results.map((r) => [r.deviceId, r]));
+      for (const item of batch.items) {
+        const result = byId.get(item.deviceId);
+        const current = await getItem(item.deviceId);
+        if (!current) continue; // discarded meanwhile
+        const next = result ? applyCaptureResult(current, result) : applyBatchFailure(current, batchFailureOf(500));
+        if (next.state === 'sent') {
+          await deleteItem(item.deviceId);
+          sent += 1;
+        } else await putItem(next);
       }
-      const body = res ? ((await res.json().catch(() => null)) as { results?: CaptureItemResult[]; error?: { message?: string } } | null) : null;
-      if (res?.ok && body?.results) {
-        const byId = new Map(body.results.map((r) => [r.deviceId, r]));
-        for (const item of batch) {
-          const result = byId.get(item.deviceId);
-          const current = await getItem(item.deviceId);
-          if (!current) continue; // discarded meanwhile
-          const next = result ? applyCaptureResult(current, result) : applyBatchFailure(current, batchFailureOf(500));
-          if (next.state === 'sent') {
-            await deleteItem(item.deviceId);
-            sent += 1;
-          } else await putItem(next);
-        }
-      } else {
-        const failure = batchFailureOf(res ? res.status : null, body?.error?.message);
-        if (failure.kind === 'offline') offline = true;
-        for (const item of batch) {
-          const current = await getItem(item.deviceId);
-          if (current) await putItem(applyBatchFailure(current, failure));
-        }
+      return null;
+    }
+    for (const item of batch.items) {
+      const current = await getItem(item.deviceId);
+      if (current) await putItem(applyBatchFailure(current, answer));
+    }
+    return answer;
+  };
+
+  for (const batch of captureBatches(items)) {
+    if (offline) break;
+    const failure = await sendBatch(batch);
+    if (failure?.kind === 'offline') offline = true;
+    // A server fault on a batch may be one item's doing: send its items one at a time, so the others are recorded
+    // and only the one that fails waits (and can be discarded after a few attempts).
+    else if (failure?.kind === 'server' && failure.status >= 500 && batch.items.length > 1) {
+      for (const item of batch.items) {
+        if (offline) break;
+        if ((await sendBatch({ ...batch, items: [item] }))?.kind === 'offline') offline = true;
       }
     }
   }
@@ -76,7 +91,7 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
     const current = await getItem(item.deviceId);
     if (!current || !isWaiting(current) || !current.photo) continue;
     await putItem({ ...current, state: 'sending', attempts: current.attempts + 1 });
-    const result = await uploadSurveyPhoto({ org: current.org, surveyId: current.surveyId, deviceId: current.deviceId, file: current.photo.file, filename: current.photo.filename, caption: current.photo.caption });
+    const result = await uploadSurveyPhoto({ org: current.org, surveyId: current.surveyId, deviceId: current.deviceId, file: current.photo.file, filename: current.photo.filename, caption: current.photo.caption, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
     const latest = await getItem(item.deviceId);
     if (!latest) continue;
     const next = applyPhotoResult(latest, result);

@@ -18,6 +18,8 @@ export const surveyEditSchema = z.object({
   notes: optionalText(4000, { multiline: true }),
 });
 
+const REMAINING_PERCENT_RANGE = 'The remaining mass is between 0 and 100 %.';
+
 /**
  * The remaining anode mass as the reading form asks for it, in per cent; the register keeps a fraction.
  * The message speaks in the field's own unit.
@@ -27,7 +29,7 @@ export const remainingPercentField = z.preprocess(
   z.coerce
     .number({ error: 'Remaining: enter a number of per cent, e.g. 65.' })
     .refine(Number.isFinite, 'Remaining: enter a number of per cent, e.g. 65.')
-    .pipe(z.number().min(0, 'The remaining mass is between 0 and 100 %.').max(100, 'The remaining mass is between 0 and 100 %.'))
+    .pipe(z.number().min(0, REMAINING_PERCENT_RANGE).max(100, REMAINING_PERCENT_RANGE))
     .optional(),
 );
 
@@ -60,11 +62,13 @@ export const importModeSchema = z.object({
 export const CAPTURE_BATCH_MAX = 50;
 
 /**
- * A batch from the phone's capture queue (POST /api/orgs/[org]/surveys/[surveyId]/capture). The envelope is
+ * A batch from the phone's capture queue (POST /api/orgs/[org]/surveys/[surveyId]/capture), one member's. The envelope is
  * checked whole (every item must carry the UUID the phone gave it, so it can be answered); each item's own
  * fields are checked one by one (`captureReadingSchema`), so one bad item does not refuse the others.
  */
 export const captureBatchSchema = z.object({
+  /** The member who captured the items on the phone: they are recorded only under that member's own session. */
+  capturedBy: text({ error: 'Say which member captured the items.' }).min(1, 'Say which member captured the items.').max(100),
   items: z
     .array(z.object({ deviceId: z.uuid({ error: 'Each item needs the UUID made on the device.' }) }).passthrough(), { error: 'Send the items as a list.' })
     .min(1, 'Send at least one item.')
@@ -91,7 +95,8 @@ export function captureReadingSchema(surveyElectrode: (typeof SURVEY_ELECTRODE_V
       const electrode = rest.electrode === '' || rest.electrode === undefined || rest.electrode === null ? surveyElectrode : rest.electrode;
       const parsed = readingSchema.safeParse({ ...rest, electrode: rest.potentialV === null ? null : electrode, anodeGroupLabel: null });
       if (!parsed.success) {
-        for (const issue of parsed.error.issues) context.addIssue({ code: 'custom', message: issue.message, path: issue.path });
+        // The phone asks for the remaining mass in per cent, so its message speaks in per cent too.
+        for (const issue of parsed.error.issues) context.addIssue({ code: 'custom', message: issue.path[0] === 'remainingFraction' ? REMAINING_PERCENT_RANGE : issue.message, path: issue.path });
         return z.NEVER;
       }
       return { deviceId, kind, anodeGroupId, ...parsed.data };

@@ -97,10 +97,12 @@ export const INVOICE_STATUS_TONES: Readonly<Record<string, StatusTone>> = {
   uncollectible: 'action',
 };
 
-/** The tone of a value from one of the maps above; anything unknown is neutral rather than a guess. */
-/** Where an item of the phone's capture queue stands (lib/offline/capture-state.ts): waiting is amber, needing the member red. */
+/**
+ * Where an item of the phone's capture queue stands (lib/offline/capture-state.ts): waiting and sending are in
+ * progress (blue), sent is sound, needing the member red. Amber stays for "due soon / a decision".
+ */
 export const CAPTURE_STATE_TONES: Readonly<Record<'waiting' | 'sending' | 'sent' | 'conflict' | 'invalid' | 'failed', StatusTone>> = {
-  waiting: 'soon',
+  waiting: 'progress',
   sending: 'progress',
   sent: 'sound',
   conflict: 'action',
@@ -108,6 +110,7 @@ export const CAPTURE_STATE_TONES: Readonly<Record<'waiting' | 'sending' | 'sent'
   failed: 'action',
 };
 
+/** The tone of a value from one of the maps above; anything unknown is neutral rather than a guess. */
 export function toneOf(map: Readonly<Record<string, StatusTone>>, value: string | null | undefined): StatusTone {
   return (value != null && map[value]) || 'neutral';
 }

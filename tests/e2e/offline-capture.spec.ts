@@ -166,7 +166,8 @@ test.describe('signing out on a shared phone', () => {
     await signIn(page, demoUser('inspector').email);
     await newSurvey(page, '2026-11-18', 'Sign-out check');
     await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
-    expect(await page.evaluate(() => caches.keys())).toContain('tidewarden-survey-pages');
+    // Kept in this member's own cache (named with the member's id).
+    expect((await page.evaluate(() => caches.keys())).filter((name) => /^tidewarden-survey-pages:.+/.test(name))).toHaveLength(1);
     // The capture request never gets through: the reading stays on the phone.
     await page.route('**/capture', (route) => route.abort('internetdisconnected'));
     await saveReading(page, { location: 'Bollard 3', potential: '-0.94' });
@@ -182,7 +183,7 @@ test.describe('signing out on a shared phone', () => {
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.getByRole('button', { name: 'Delete and sign out' }).click();
     await expect(page).toHaveURL(/\/sign-in/);
-    expect(await page.evaluate(() => caches.keys())).not.toContain('tidewarden-survey-pages');
+    expect((await page.evaluate(() => caches.keys())).filter((name) => name.startsWith('tidewarden-survey-pages'))).toEqual([]);
     const left = await page.evaluate(
       () =>
         new Promise<number>((resolve, reject) => {
@@ -198,5 +199,117 @@ test.describe('signing out on a shared phone', () => {
         }),
     );
     expect(left).toBe(0);
+  });
+});
+
+test.describe('one phone, two members', () => {
+  test.use({ viewport: PHONE, serviceWorkers: 'block' });
+
+  test("a tab left open from one member's session never records that member's readings under another member's session", async ({ page, context }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-24', 'Shared phone check');
+    await page.route('**/capture', (route) => route.abort('internetdisconnected'));
+    await saveReading(page, { location: 'Mooring 1', potential: '-0.95' });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+
+    // The inspector's session ends; the engineer signs in on the same phone, in another tab.
+    await context.clearCookies();
+    const other = await context.newPage();
+    await signIn(other, demoUser('engineer').email);
+    // The inspector's tab sends its queue with the engineer's cookie: refused, kept on the phone, and said why.
+    await page.unroute('**/capture');
+    await page.getByRole('button', { name: 'Send now' }).click();
+    const item = page.getByTestId('capture-item');
+    await expect(item).toContainText('Not accepted: needs you');
+    await expect(item).toContainText('Captured by another member on this phone; sign in as them to send.');
+    await other.goto(surveyPath);
+    await expect(other.getByRole('form', { name: 'Capture a reading' })).toBeVisible();
+    await expect(readingRows(other, 'Mooring 1')).toHaveCount(0);
+    // The engineer's own page does not show (or send) the inspector's item.
+    await expect(other.getByTestId('capture-item')).toHaveCount(0);
+    await other.close();
+
+    // Back as the inspector: "Send again" records it, once.
+    await context.clearCookies();
+    await signIn(page, demoUser('inspector').email);
+    await page.goto(surveyPath);
+    await page.getByRole('button', { name: 'Send again' }).click();
+    await expect(status(page)).toContainText('Everything captured here is sent.');
+    await page.goto(surveyPath);
+    await expect(readingRows(page, 'Mooring 1')).toHaveCount(1);
+  });
+
+  test('a double tap saves one reading and one photo; a reading the phone could not store is said to be NOT saved', async ({ page }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-25', 'Double tap check');
+    // Before the page has started, Save does nothing: the server's HTML has it disabled.
+    const html = await (await page.request.get(surveyPath)).text();
+    const buttons = html.match(/<button[^>]*>(?:(?!<\/button>)[\s\S])*<\/button>/g) ?? [];
+    for (const name of ['Save reading', 'Save photo']) {
+      const button = buttons.find((b) => b.includes(name));
+      expect(button, name).toBeDefined();
+      expect(button!, name).toMatch(/\sdisabled(=""|\s|>)/);
+    }
+
+    await page.route('**/capture', (route) => route.abort('internetdisconnected'));
+    await page.route('**/attachments', (route) => route.abort('internetdisconnected'));
+    const form = page.getByRole('form', { name: 'Capture a reading' });
+    await expect(form.getByRole('button', { name: 'Save reading' })).toBeEnabled();
+    // A text keyboard on phones, whose decimal pad has no minus sign.
+    await expect(form.getByLabel('Potential')).toHaveAttribute('inputmode', 'text');
+    await form.getByLabel('Location').fill('Quay 7');
+    await form.getByLabel('Potential').fill('-0.94');
+    // Two submits before the page could answer the first (a gloved double tap).
+    await form.evaluate((f: HTMLFormElement) => {
+      f.requestSubmit();
+      f.requestSubmit();
+    });
+    await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
+    const photo = page.getByRole('form', { name: 'Capture a photo' });
+    await photo.getByLabel('Photo', { exact: true }).setInputFiles({ name: 'quay-7.png', mimeType: 'image/png', buffer: ONE_PIXEL_PNG });
+    await photo.evaluate((f: HTMLFormElement) => {
+      f.requestSubmit();
+      f.requestSubmit();
+    });
+    await expect(status(page)).toContainText('Saved on this phone — 2 waiting to send');
+    await expect(page.getByTestId('capture-item')).toHaveCount(2);
+
+    // The phone's storage refuses the next one: the screen says so and keeps what was typed.
+    await page.evaluate(() => {
+      IDBObjectStore.prototype.put = function refused() {
+        throw new DOMException('The quota has been exceeded.', 'QuotaExceededError');
+      };
+    });
+    await saveReading(page, { location: 'Quay 8', potential: '-0.93' });
+    await expect(page.getByRole('alert').filter({ hasText: 'NOT saved on this phone' })).toBeVisible();
+    await expect(status(page)).not.toContainText('Saved on this phone: reading at Quay 8');
+    await expect(form.getByLabel('Location')).toHaveValue('Quay 8');
+    await expect(page.getByTestId('capture-item')).toHaveCount(2);
+  });
+});
+
+test.describe('cached survey pages on a shared phone', () => {
+  test.use({ viewport: PHONE, serviceWorkers: 'allow' });
+
+  test("one member's kept survey page is never served to the next member, and is deleted when they sign in", async ({ page, context }) => {
+    await signIn(page, demoUser('inspector').email);
+    const surveyPath = await newSurvey(page, '2026-11-26', 'Kept page check');
+    await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
+    const kept = (await page.evaluate(() => caches.keys())).filter((name) => name.startsWith('tidewarden-survey-pages:'));
+    expect(kept).toHaveLength(1);
+
+    // The inspector's session ends without signing out; the engineer signs in on the same phone.
+    await context.clearCookies();
+    await signIn(page, demoUser('engineer').email);
+    await expect.poll(async () => (await page.evaluate(() => caches.keys())).filter((name) => kept.includes(name))).toEqual([]);
+
+    // Without signal the inspector's copy is not there to open.
+    await context.setOffline(true);
+    const opened = await page.goto(surveyPath).then(
+      (response) => response?.fromServiceWorker() ?? false,
+      () => false,
+    );
+    expect(opened).toBe(false);
+    await context.setOffline(false);
   });
 });

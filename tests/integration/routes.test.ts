@@ -14,7 +14,7 @@ import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { addSurveyAttachment } from '@/lib/server/services/surveys/attachments';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
-import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs, CALCULATION, PNG_HEADER as PNG } from '../fixtures/entry-points';
+import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs, signedInUserId, CALCULATION, PNG_HEADER as PNG } from '../fixtures/entry-points';
 import { pdfText } from '../fixtures/pdf-text';
 import { uploadDirect } from '../fixtures/direct-upload';
 import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
@@ -125,7 +125,8 @@ const ROUTES: Route[] = [
     path: 'surveys/[surveyId]/capture',
     method: 'POST',
     // A new UUID on every call: an item already recorded would be answered as a duplicate.
-    body: () => ({ items: [{ deviceId: randomUUID(), kind: 'reading', location: `Capture ${++captureCalls}`, potentialV: -0.97 }] }),
+    // Sent as captured by whoever is signed in, as the phone does.
+    body: () => ({ capturedBy: signedInUserId() ?? 'nobody', items: [{ deviceId: randomUUID(), kind: 'reading', location: `Capture ${++captureCalls}`, potentialV: -0.97 }] }),
     load: () => import('@/app/api/orgs/[org]/surveys/[surveyId]/capture/route'),
     // Every member is answered item by item: a role that may not write gets a conflict for each item, and nothing is written.
     permission: all,

@@ -11,7 +11,7 @@ import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
-import { signInAs } from '../fixtures/entry-points';
+import { signInAs, signedInUserId } from '../fixtures/entry-points';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
@@ -26,9 +26,11 @@ const newSurvey = () => as('inspector', (c) => createSurvey(c, { assetId, survey
 const reading = (location: string, extra: Record<string, unknown> = {}) => ({ deviceId: randomUUID(), kind: 'reading', location, potentialV: -0.95, ...extra });
 const readingsOf = async (surveyId: string) => (await getEm()).find(SurveyReadingSchema, { survey: surveyId }, { orderBy: { location: 'asc' } });
 
-async function send(surveyId: string, body: unknown, slug = org.organisation.slug) {
+// Sent as captured by the member signed in, as the phone does, unless the body names someone.
+async function send(surveyId: string, body: Record<string, unknown>, slug = org.organisation.slug) {
   const { POST } = await import('@/app/api/orgs/[org]/surveys/[surveyId]/capture/route');
-  const req = new NextRequest(`http://127.0.0.1/api/orgs/${slug}/surveys/${surveyId}/capture`, { method: 'POST', body: JSON.stringify(body), headers: { 'content-type': 'application/json' } });
+  const sent = 'capturedBy' in body ? body : { capturedBy: signedInUserId(), ...body };
+  const req = new NextRequest(`http://127.0.0.1/api/orgs/${slug}/surveys/${surveyId}/capture`, { method: 'POST', body: JSON.stringify(sent), headers: { 'content-type': 'application/json' } });
   const res = await POST(req, { params: Promise.resolve({ org: slug, surveyId }) });
   return { status: res.status, body: await res.json() };
 }
@@ -193,6 +195,32 @@ describe('POST /api/orgs/[org]/surveys/[surveyId]/capture', () => {
       await em.execute(`update organisation set subscription_status = ? where id = ?`, [org.organisation.subscriptionStatus, org.organisation.id]);
     }
     expect((await readingsOf(survey.id)).map((r) => r.location)).toEqual(['Stair 1']);
+  });
+
+  it("items captured by another member on the phone are refused per item under this member's session, and recorded once their own member sends them", async () => {
+    const survey = await newSurvey();
+    const items = [reading('Bollard 1'), reading('Bollard 2')];
+    // The inspector's session ended; the engineer signed in on the same phone, and the inspector's queue is sent with the engineer's cookie.
+    await signInAs(org.users.engineer);
+    const refused = await send(survey.id, { capturedBy: org.users.inspector.id, items });
+    expect(refused.status).toBe(200);
+    expect(refused.body.results).toEqual(items.map((i) => ({ deviceId: i.deviceId, status: 'conflict', message: CAPTURE_CONFLICT_MESSAGES.otherMember })));
+    expect(await readingsOf(survey.id)).toHaveLength(0);
+    const audits = await (await getEm()).count(AuditEventSchema, { organisationId: org.organisation.id, action: 'survey.reading-added', targetId: survey.id });
+    expect(audits).toBe(0);
+
+    // A batch that does not say who captured it is refused whole.
+    const unnamed = await send(survey.id, { capturedBy: undefined, items });
+    expect(unnamed.status).toBe(422);
+    expect(await readingsOf(survey.id)).toHaveLength(0);
+
+    await signInAs(org.users.inspector);
+    const own = await send(survey.id, { capturedBy: org.users.inspector.id, items });
+    expect(own.body.results.map((r: { status: string }) => r.status)).toEqual(['recorded', 'recorded']);
+    const rows = await (await getEm()).find(SurveyReadingSchema, { survey: survey.id }, { orderBy: { location: 'asc' } });
+    expect(rows.map((r) => r.location)).toEqual(['Bollard 1', 'Bollard 2']);
+    const actors = await (await getEm()).find(AuditEventSchema, { organisationId: org.organisation.id, action: 'survey.reading-added', targetId: survey.id });
+    expect(actors.map((a) => a.actorUserId)).toEqual([org.users.inspector.id, org.users.inspector.id]);
   });
 
   it("a non-member gets 404 for the whole batch, and so does another organisation's survey id sent to one's own", async () => {

@@ -4,7 +4,10 @@ import {
   applyCaptureResult,
   applyPhotoResult,
   batchFailureOf,
+  captureBatches,
+  captureRequestBody,
   OFFLINE_MESSAGE,
+  readCaptureResponse,
   resubmit,
   SIGNED_OUT_MESSAGE,
   summarize,
@@ -52,6 +55,48 @@ describe('the capture queue state machine', () => {
     expect(applyPhotoResult(photo(), { ok: true, attachmentId: 'a1' })).toMatchObject({ state: 'sent', serverId: 'a1' });
     expect(applyPhotoResult(photo(), { ok: false, retry: true, message: 'No connection.' })).toMatchObject({ state: 'waiting', message: 'No connection.' });
     expect(applyPhotoResult(photo(), { ok: false, retry: false, message: 'Not a photo.' })).toMatchObject({ state: 'failed', message: 'Not a photo.' });
+  });
+
+  it('a photo refused for a reason that can pass (the uploader says conflict) can be sent again; one refused for the file itself cannot', () => {
+    const conflict = applyPhotoResult(photo(), { ok: false, retry: false, message: 'This survey no longer exists.', conflict: true });
+    expect(conflict).toMatchObject({ state: 'conflict', message: 'This survey no longer exists.' });
+    expect(resubmit(conflict)).toMatchObject({ state: 'waiting', message: null });
+    expect(applyPhotoResult(photo(), { ok: false, retry: false, message: 'Too large.', conflict: false }).state).toBe('failed');
+    expect(summarize([conflict]).attention).toBe(1);
+  });
+
+  it('a request carries one member\'s readings of one survey, at most 50, and names that member', () => {
+    const mine = Array.from({ length: 51 }, (_, i) => reading({ deviceId: `m${i}`, state: 'waiting', createdAt: i }));
+    const theirs = reading({ deviceId: 't1', userId: 'u2', state: 'waiting' });
+    const otherSurvey = reading({ deviceId: 'o1', surveyId: 'c2f0a7a4-6f0b-4a55-9e8c-5d1f3a2b4c61', state: 'waiting' });
+    const batches = captureBatches([...mine.slice(0, 10), theirs, otherSurvey, ...mine.slice(10), photo({ deviceId: 'p1', state: 'waiting' })]);
+    expect(batches.map((b) => [b.capturedBy, b.surveyId, b.items.length])).toEqual([
+      ['u1', reading().surveyId, 50],
+      ['u1', reading().surveyId, 1],
+      ['u2', reading().surveyId, 1],
+      ['u1', otherSurvey.surveyId, 1],
+    ]);
+    for (const batch of batches) expect(new Set(batch.items.map((i) => i.userId))).toEqual(new Set([batch.capturedBy]));
+    expect(batches[0].items.map((i) => i.deviceId)).toEqual(mine.slice(0, 50).map((i) => i.deviceId));
+    expect(captureRequestBody(batches[2])).toEqual({ capturedBy: 'u2', items: [toCaptureRequestItem(theirs)] });
+  });
+
+  it('a 200 that is not the capture route\'s answer (a Wi-Fi login page, a followed redirect) leaves the items waiting', () => {
+    const results = [{ deviceId: 'x', status: 'recorded' as const, message: 'Recorded.' }];
+    expect(readCaptureResponse({ status: 200, ok: true, redirected: false }, { results })).toEqual({ results });
+    for (const [res, body] of [
+      [{ status: 200, ok: true, redirected: false }, null],
+      [{ status: 200, ok: true, redirected: false }, { welcome: 'Harbour Wi-Fi' }],
+      [{ status: 200, ok: true, redirected: true }, { results }],
+    ] as const) {
+      const failure = readCaptureResponse(res, body);
+      expect(failure).toMatchObject({ kind: 'server' });
+      expect(applyBatchFailure(reading(), failure as Parameters<typeof applyBatchFailure>[1]).state).toBe('waiting');
+    }
+    expect(readCaptureResponse(null, null)).toEqual({ kind: 'offline' });
+    expect(readCaptureResponse({ status: 401, ok: false, redirected: false }, null)).toEqual({ kind: 'signed-out' });
+    expect(readCaptureResponse({ status: 404, ok: false, redirected: false }, { error: { message: 'Gone.' } })).toEqual({ kind: 'not-member', message: 'Gone.' });
+    expect(readCaptureResponse({ status: 422, ok: false, redirected: false }, { error: { message: 'Bad.' } })).toMatchObject({ kind: 'refused', message: 'Bad.' });
   });
 
   it('an edited item waits again under the same UUID, its old answer forgotten', () => {

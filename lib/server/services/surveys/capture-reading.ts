@@ -12,8 +12,9 @@ import { describeReading, lockSurvey, underProtectionWords } from './reading-ale
 
 /**
  * One item of a phone's capture queue, in its own unit of work (the caller's): recorded once per survey
- * whatever the retries. The survey is locked first, so two sends of the same item at the same moment take
- * turns and the second finds the first's reading (`duplicate`, with its id); the unique index on
+ * whatever the retries. An item already recorded is answered at once; otherwise the permission is checked and
+ * the survey locked, so two sends of the same item at the same moment take turns and the second finds the
+ * first's reading (`duplicate`, with its id); the unique index on
  * (survey_id, device_id) holds the same rule in the database. The reading goes through `addReadings`
  * (conversion to Ag/AgCl/seawater, classification, the under-protection alert once per survey).
  *
@@ -29,11 +30,18 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   if (!isUuid(surveyId)) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
   const survey = await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation }, { populate: ['asset'] });
   if (!survey) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
-  await lockSurvey(ctx, survey);
-  const existing = isUuid(deviceId) ? await ctx.em.findOne(SurveyReadingSchema, { survey, deviceId }) : null;
-  if (existing) return { deviceId, status: 'duplicate', readingId: existing.id, message: `Already recorded at ${existing.location}.` };
+  const findExisting = () => (isUuid(deviceId) ? ctx.em.findOne(SurveyReadingSchema, { survey, deviceId }, { refresh: true }) : Promise.resolve(null));
+  const duplicate = (existing: { id: string; location: string }): CaptureItemResult => ({ deviceId, status: 'duplicate', readingId: existing.id, message: `Already recorded at ${existing.location}.` });
+  // Already recorded: answered without a lock or a permission check (a reading is safe whatever changed since).
+  const earlier = await findExisting();
+  if (earlier) return duplicate(earlier);
 
+  // Only a member who may write takes the survey's lock (a viewer's queue never holds up the writers).
   requirePermission(ctx, 'survey:write');
+  await lockSurvey(ctx, survey);
+  // A send of the same item that held the lock first has recorded it meanwhile.
+  const existing = await findExisting();
+  if (existing) return duplicate(existing);
   if (survey.asset.archivedAt) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.assetArchived);
   const reading = captureReadingSchema(surveyElectrodeOf(survey)).parse(item);
   let groupLabel: string | null = null;

@@ -1,6 +1,7 @@
 import { UniqueConstraintViolationException } from '@mikro-orm/core';
 import { readJson, withOrg } from '@/lib/server/with-org';
 import { runInOrg } from '@/lib/server/unit-of-work';
+import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { captureBatchSchema, type CaptureItemResult } from '@/lib/schemas/surveys';
 import { captureReading, captureRefusal, getCaptureSurveyOrThrow } from '@/lib/server/services/surveys/capture-reading';
 
@@ -12,12 +13,20 @@ import { captureReading, captureRefusal, getCaptureSurveyOrThrow } from '@/lib/s
 // item (a survey deleted while the batch runs is a conflict per item). Each item
 // then runs through runInOrg on its own, so one refused item does not refuse the others, and an item the
 // member may no longer write (role changed, organisation read-only) comes back as a conflict beside the rest.
+// A batch names the member who captured it (`capturedBy`); one captured by anyone but the signed-in member is
+// answered as a conflict per item and nothing is recorded.
 // The items carry their own keys, so no Idempotency-Key is needed. Anything unexpected fails the whole
 // request (500): the phone keeps every item and sends again, and the items already recorded answer `duplicate`.
 export const POST = withOrg(
   async ({ ctx, req, params }) => {
     await getCaptureSurveyOrThrow(ctx, params.surveyId);
-    const { items } = await readJson(req, captureBatchSchema);
+    const { capturedBy, items } = await readJson(req, captureBatchSchema);
+    // Items captured by another member on this phone (their session ended, someone else signed in, a tab left
+    // open from their session) are never recorded as this member's: each stays on the phone until its own
+    // member signs in and sends it.
+    if (capturedBy !== ctx.user.id) {
+      return { results: items.map((item): CaptureItemResult => ({ deviceId: item.deviceId, status: 'conflict', message: CAPTURE_CONFLICT_MESSAGES.otherMember })) };
+    }
     const access = { user: ctx.user, slug: ctx.organisation.slug, permission: 'org:read' as const, ip: ctx.ip };
     const results: CaptureItemResult[] = [];
     for (const item of items) {
