@@ -3,7 +3,11 @@
 // the device: calling again with the same id after any failure is safe (the app answers "already attached" or
 // the same upload with a fresh link to a new staging key), which is what an offline queue does.
 
-export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string };
+/**
+ * `conflict`: refused for a reason that can pass (no permission now, the survey deleted and perhaps restored later,
+ * captured by another member on this phone): the queue keeps the photo and offers to send it again.
+ */
+export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean };
 
 export interface UploadPhotoArgs {
   org: string;
@@ -12,6 +16,8 @@ export interface UploadPhotoArgs {
   file: Blob;
   filename: string;
   caption: string | null;
+  /** The member who captured the photo on this device (sent by the offline queue). */
+  capturedBy?: string;
   signal?: AbortSignal;
 }
 
@@ -37,12 +43,20 @@ async function errorMessage(res: Response, fallback: string): Promise<string> {
 
 /** A refusal the user has to act on (wrong type, too large, no permission) is final; the rest can be retried. */
 const retryable = (status: number) => status === 408 || status === 429 || status >= 500;
+/** No permission (now) or no such survey (deleted, perhaps restored later): not the file's fault. */
+const passing = (status: number) => status === 403 || status === 404;
+const refusal = async (res: Response, fallback: string): Promise<UploadPhotoResult> => ({
+  ok: false,
+  retry: retryable(res.status),
+  message: await errorMessage(res, fallback),
+  ...(passing(res.status) ? { conflict: true } : {}),
+});
 
 async function presign(args: UploadPhotoArgs, contentType: string) {
   const res = await fetch(`/api/orgs/${encodeURIComponent(args.org)}/surveys/${encodeURIComponent(args.surveyId)}/attachments/uploads`, {
     method: 'POST',
     headers: { 'content-type': 'application/json' },
-    body: JSON.stringify({ deviceId: args.deviceId, filename: args.filename, contentType, sizeBytes: args.file.size, caption: args.caption }),
+    body: JSON.stringify({ deviceId: args.deviceId, filename: args.filename, contentType, sizeBytes: args.file.size, caption: args.caption, capturedBy: args.capturedBy }),
     signal: args.signal,
     credentials: 'same-origin',
   });
@@ -59,7 +73,7 @@ async function complete(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
     const body = (await res.json()) as { attachment: { id: string } };
     return { ok: true, attachmentId: body.attachment.id };
   }
-  return { ok: false, retry: retryable(res.status), message: await errorMessage(res, `The upload could not be recorded (${res.status}).`) };
+  return refusal(res, `The upload could not be recorded (${res.status}).`);
 }
 
 export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPhotoResult> {
@@ -68,7 +82,7 @@ export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPh
     // An expired link is answered by asking for a fresh one (a new staging key): at most one more round.
     for (let attempt = 0; attempt < 2; attempt++) {
       const res = await presign(args, contentType);
-      if (!res.ok) return { ok: false, retry: retryable(res.status), message: await errorMessage(res, `The upload was refused (${res.status}).`) };
+      if (!res.ok) return refusal(res, `The upload was refused (${res.status}).`);
       const { upload } = (await res.json()) as {
         upload: { status: 'done'; attachment: { id: string } } | { status: 'upload'; url: string; method: 'PUT'; headers: Record<string, string> };
       };

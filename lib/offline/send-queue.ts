@@ -91,7 +91,7 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
     const current = await getItem(item.deviceId);
     if (!current || !isWaiting(current) || !current.photo) continue;
     await putItem({ ...current, state: 'sending', attempts: current.attempts + 1 });
-    const result = await uploadSurveyPhoto({ org: current.org, surveyId: current.surveyId, deviceId: current.deviceId, file: current.photo.file, filename: current.photo.filename, caption: current.photo.caption, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
+    const result = await uploadSurveyPhoto({ org: current.org, surveyId: current.surveyId, deviceId: current.deviceId, file: current.photo.file, filename: current.photo.filename, caption: current.photo.caption, capturedBy: current.userId, signal: AbortSignal.timeout(SEND_TIMEOUT_MS) });
     const latest = await getItem(item.deviceId);
     if (!latest) continue;
     const next = applyPhotoResult(latest, result);

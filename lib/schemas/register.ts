@@ -88,6 +88,8 @@ export const attachmentUploadRequestSchema = z.object({
     .min(1, 'The file is empty.')
     .max(MAX_ATTACHMENT_BYTES, `The file is larger than ${MAX_ATTACHMENT_BYTES / 1024 / 1024} MB; reduce it and try again.`),
   caption: optionalText(200, { multiline: true }),
+  /** The member who took the photo on the device (the offline queue says so); one taken by another member is refused. */
+  capturedBy: text().min(1).max(100).optional(),
 });
 export type AttachmentUploadRequest = z.infer<typeof attachmentUploadRequestSchema>;
 

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { execFile } from 'node:child_process';
+import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { NextRequest } from 'next/server';
 import { PutObjectCommand } from '@aws-sdk/client-s3';
@@ -377,6 +378,18 @@ describe('what a link can write, and what gets recorded', () => {
     expect(lateComplete).toEqual({ status: 409, body: { error: { code: 'conflict', message } } });
     expect(await attachmentsOfDevice(deviceId)).toBe(0);
     expect(await pendingOfDevice(deviceId)).toBe(0);
+  });
+
+  it('a photo queued on a shared phone by another member is refused (403, nothing written); its own member sends it', async () => {
+    const deviceId = item();
+    const asker = await member();
+    const other = home.users.engineer.id;
+    const refused = await failure(runAs(asker, (c) => requestAttachmentUpload(c, surveyId, { deviceId, filename: 'shared.png', contentType: 'image/png', sizeBytes: PNG.length, capturedBy: other })));
+    expect(refused).toEqual({ status: 403, body: { error: { code: 'forbidden', message: CAPTURE_CONFLICT_MESSAGES.otherMember } } });
+    expect(await pendingOfDevice(deviceId)).toBe(0);
+    const own = await runAs(member(), (c) => requestAttachmentUpload(c, surveyId, { deviceId, filename: 'shared.png', contentType: 'image/png', sizeBytes: PNG.length, capturedBy: home.users.inspector.id }));
+    expect(own.status).toBe('upload');
+    expect(await pendingOfDevice(deviceId)).toBe(1);
   });
 
   it('a repeat link request keeps the pending upload alive; a member with 50 uploads waiting is told to let them finish', async () => {

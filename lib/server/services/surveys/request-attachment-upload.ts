@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { SurveyAttachmentSchema, SurveyAttachmentUploadSchema } from '@/entities';
 import { attachmentUploadRequestSchema } from '@/lib/schemas/register';
+import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { AppError } from '../../errors';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { getStorage } from '../../storage/object-storage';
@@ -49,6 +50,9 @@ export async function requestAttachmentUpload(ctx: OrgContext, surveyId: string,
   requirePermission(ctx, 'survey:write');
   const survey = await getSurveyOrThrow(ctx, surveyId);
   const data = attachmentUploadRequestSchema.parse(input);
+  // A photo queued on a shared phone by another member (their session ended, someone else signed in) is never
+  // attached as this member's: it waits on the phone until its own member sends it. Nothing is written.
+  if (data.capturedBy !== undefined && data.capturedBy !== ctx.user.id) throw new AppError('forbidden', CAPTURE_CONFLICT_MESSAGES.otherMember);
 
   const done = await findRecordedDeviceItem(ctx, data.deviceId);
   if (done) {
