@@ -59,6 +59,7 @@ export type AssetDrawingResult = { drawing: AssetDrawing; missing: null } | { dr
 
 const SYMBOL_KEY: { role: ShapeRole; label: string }[] = [
   { role: 'anode', label: 'Anode: the filled part is the mass left (full: new, empty: used up)' },
+  { role: 'anode-unknown', label: 'Anode, mass left not known (no forecast): dashed outline with "?"' },
   { role: 'reading', label: 'Survey reading: value and verdict written beside it' },
 ];
 
@@ -123,7 +124,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     return row(g, piles.length > 0, at);
   });
   return {
-    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
+    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k.role === 'anode-unknown' ? { ...k, label: 'Pile with anodes, mass left not known (no forecast): dashed outline with "?"' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
     missing: null,
   };
 }

@@ -98,8 +98,10 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   const drawn = buildAssetDrawing(
     a,
     live.map((r) => {
+      // A fitted renewal is a new anode: full. A line without a forecast is drawn as "not known", never as used up.
       const forecast = r.status === 'fitted' ? null : forecastOf.get(r.groupId);
-      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }), remainingFraction: forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null };
+      const remainingFraction = r.status === 'fitted' ? 1 : forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null;
+      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }), remainingFraction };
     }),
     [],
   );
