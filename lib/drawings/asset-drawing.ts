@@ -1,6 +1,6 @@
 import type { AnodePosition } from '@/lib/schemas/anode-position';
 import { PARTICULAR_SOURCE_LABELS, TIDAL_DATUM_LABELS } from '@/lib/labels';
-import { HULL_ZONE_KEY, frameSpacingOf, hullScale, hullView, type DrawnGroup, type DrawnReading } from './hull-drawing';
+import { HULL_ZONE_KEY, beyondHull, frameSpacingOf, hullScale, hullView, type DrawnGroup, type DrawnReading, type HullScale } from './hull-drawing';
 import { pileGridOf, pilePlanView, pileStates, pilesCovered } from './pile-plan';
 import { positionPlaceWords } from './parse-position';
 import { remainingWords, type DrawingView, type ShapeRole } from './shapes';
@@ -70,9 +70,16 @@ function sameSpot(a: AnodePosition, b: AnodePosition): boolean {
   return b.frameFrom >= a.frameFrom && b.frameFrom <= (a.frameTo ?? a.frameFrom) && (a.side === null || b.side === null || a.side === 'both' || a.side === b.side);
 }
 
-function hullRows(groups: readonly DrawnGroup[], readings: readonly DrawnReading[]): DrawingRow[] {
+/** Said of a group whose frames lie outside the hull drawn (listed, not drawn). */
+export const BEYOND_HULL_WORDS = 'beyond the hull (check the frame spacing)';
+
+function hullRows(scale: HullScale, groups: readonly DrawnGroup[], readings: readonly DrawnReading[]): DrawingRow[] {
   return groups.map((g) => {
     const at = readings.filter((r) => sameSpot(g.position, r.position));
+    if (beyondHull(scale, g.position)) {
+      const r = row(g, false, at);
+      return { ...r, where: `${r.where}, ${BEYOND_HULL_WORDS}` };
+    }
     const drawn = g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null;
     return row(g, drawn, at);
   });
@@ -105,7 +112,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     ];
     const views = [hullView(particulars, 'starboard', groups, readings), hullView(particulars, 'port', groups, readings)];
     return {
-      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(groups, readings), grid: null, groups: [...groups], readings: [...readings] },
+      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(scale, groups, readings), grid: null, groups: [...groups], readings: [...readings] },
       missing: null,
     };
   }

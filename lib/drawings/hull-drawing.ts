@@ -92,6 +92,17 @@ export function toDrawing(scale: HullScale, view: 'port' | 'starboard', xm: numb
 /** A frame number to metres forward of the aft perpendicular. */
 export const frameToMetres = (scale: HullScale, frame: number) => frame * scale.spacingM;
 
+/**
+ * True when the position's frames fall outside the hull drawn (aft of the stern overhang or forward of the bow,
+ * 1.04 L): the frame numbers and the frame spacing do not agree, so the group is listed, not drawn.
+ */
+export function beyondHull(scale: HullScale, p: AnodePosition): boolean {
+  if (p.frameFrom === null) return false;
+  const from = frameToMetres(scale, p.frameFrom);
+  const to = frameToMetres(scale, p.frameTo ?? p.frameFrom);
+  return from < -scale.aftM || to > scale.lengthBppM * 1.04;
+}
+
 /** Where a part of the hull is, in metres (along: from the aft perpendicular; up: above the keel). */
 function placeBox(place: HullPlace | null, end: 'fore' | 'aft' | null, L: number, T: number): { from: number; to: number; h: number } {
   switch (place) {
@@ -208,9 +219,9 @@ export function hullView(p: HullParticulars, view: 'port' | 'starboard', groups:
   const height = Math.round(MARGIN_TOP + scale.depthM * scale.sy + MARGIN_BOTTOM);
   const shapes: Shape[] = [text('title', view === 'starboard' ? MARGIN_X : HULL_DRAWING_WIDTH - MARGIN_X, 16, `${HULL_VIEW_LABELS[view]} (bow ${view === 'starboard' ? 'right' : 'left'})`, view === 'starboard' ? 'start' : 'end')];
   shapes.push(...hullShapes(scale, view), ...frameTicks(scale, view));
-  const placed = groups.filter((g) => inView(g.position, view) && (g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null));
+  const placed = groups.filter((g) => inView(g.position, view) && !beyondHull(scale, g.position) && (g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null));
   const shown = placed.map((g) => groupSymbols(scale, view, g));
-  const markers = readings.filter((r) => inView(r.position, view) && (r.position.frameFrom !== null || r.position.place !== null)).flatMap((r) => readingMarker(scale, view, r));
+  const markers = readings.filter((r) => inView(r.position, view) && !beyondHull(scale, r.position) && (r.position.frameFrom !== null || r.position.place !== null)).flatMap((r) => readingMarker(scale, view, r));
   shapes.push(...markers);
   // Group and reading texts close together (the stern) are moved apart.
   const isText = (s: Shape): s is Extract<Shape, { kind: 'text' }> => s.kind === 'text';

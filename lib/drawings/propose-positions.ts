@@ -101,6 +101,6 @@ export function proposePositions(asset: ProposalAsset, zones: readonly ProposalZ
     .filter((z) => z.count > 0)
     .map((z) => {
       const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z) : pileProposal(asset, z);
-      return { zone: z.name, text, position: parsePosition(text), basis };
+      return { zone: z.name, text, position: parsePosition(text, asset.kind), basis };
     });
 }

@@ -64,7 +64,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   const groups = live.length ? await ctx.em.find(AnodeGroupSchema, { id: { $in: live.map((r) => r.groupId) }, organisation: ctx.organisation }) : [];
   const modelKey = new Map(groups.map((g) => [g.id, g.model.key]));
   // The yard works from the engineer's own words; the structured reading (what the drawing shows) follows as "Read as: …".
-  const positionOfGroup = new Map(groups.map((g) => [g.id, positionOf(g)]));
+  const positionOfGroup = new Map(groups.map((g) => [g.id, positionOf(g, a.kind)]));
   const positionWords = new Map(groups.map((g) => [g.id, formatPosition(positionOfGroup.get(g.id)!)]));
   const dimensions = await dimensionsByKey(ctx, groups.map((g) => g.model.key));
   const input: AnodeListInput = {
@@ -101,7 +101,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
       // A fitted renewal is a new anode: full. A line without a forecast is drawn as "not known", never as used up.
       const forecast = r.status === 'fitted' ? null : forecastOf.get(r.groupId);
       const remainingFraction = r.status === 'fitted' ? 1 : forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null;
-      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }), remainingFraction };
+      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }, a.kind), remainingFraction };
     }),
     [],
   );
