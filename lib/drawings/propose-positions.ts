@@ -1,7 +1,7 @@
 import { estimatedFrameSpacingM } from './hull-drawing';
 import { pileGridOf, rowLetter } from './pile-plan';
 import { parsePosition } from './parse-position';
-import type { AnodePosition } from '@/lib/schemas/anode-position';
+import { EMPTY_POSITION, type AnodePosition } from '@/lib/schemas/anode-position';
 
 /*
  * Where an approved design's anodes go, proposed zone by zone from the zone's anode count (the design distributes
@@ -27,14 +27,20 @@ export interface ProposalAsset {
   lengthBppM?: number | null;
   draughtM?: number | null;
   frameSpacingM?: number | null;
+  /** 'estimate' when the frame spacing on record is Tidewarden's estimate, not the yard's frame plan. */
+  frameSpacingSource?: 'entered' | 'estimate' | null;
+  /** A structure's type (STRUCTURE_TYPE_LABELS): sheet-pile walls and pontoons have no pile grid. */
+  structureType?: string | null;
   pileCount?: number | null;
   pileRows?: number | null;
   pileBents?: number | null;
+  /** 'estimate' when the rows and bents on record are estimated, not entered. */
+  pileGridSource?: 'entered' | 'estimate' | null;
 }
 
 export interface ProposedPosition {
   zone: string;
-  /** The position as text (what the form shows and the group keeps); parsePosition reads it back. */
+  /** The position as text (what the form shows and the group keeps); parsePosition reads it back. Empty when none is proposed (the basis says why). */
   text: string;
   position: AnodePosition;
   /** Why it is placed so, naming the practice it follows. */
@@ -47,6 +53,10 @@ function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis:
   const L = a.lengthBppM ?? 0;
   const T = a.draughtM ?? 0;
   const spacing = a.frameSpacingM || (L ? estimatedFrameSpacingM(L) : 0);
+  // Frame numbers from an estimated spacing go into the text the yard works from: the text says so.
+  const estimated = !a.frameSpacingM || a.frameSpacingSource === 'estimate';
+  const estimateWords = `frames from an estimated ${Math.round(spacing * 100) / 100} m spacing: check the frame plan`;
+  const framed = (r: { text: string; basis: string }) => (estimated ? { text: `${r.text}; ${estimateWords}`, basis: `${r.basis} Frames from an estimated ${Math.round(spacing * 100) / 100} m spacing (0.002 L + 0.48 m, from memory of common practice, not in the design basis): check the frame plan.` } : r);
   const perSide = Math.ceil(z.count / 2);
   const spread = (fromM: number, toM: number) => {
     // About 6 m apart: the span the anodes of one side need, centred on the stretch, no longer than it.
@@ -67,7 +77,7 @@ function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis:
     case 'boot-top-sides': {
       if (!L || !spacing) return { text: 'Boot-top and sides P/S', basis: 'Enter the length to propose frames.' };
       const [f0, f1] = spread(0.1 * L, 0.95 * L);
-      return { text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice).` };
+      return framed({ text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice).` });
     }
     default: {
       // The bottom: a fifth of its anodes in the aft quarter (towards the propeller and rudder), the rest forward of it.
@@ -75,15 +85,20 @@ function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis:
       const [f0, f1] = spread(0.08 * L, 0.92 * L);
       const aft = Math.round(z.count * STERN_SHARE);
       const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${frame(0.3 * L, spacing)}` : '';
-      return {
+      return framed({
         text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
         basis: `${spacingWords}; ${Math.round(STERN_SHARE * 100)} % towards the stern, where the flow is highest (design basis, practice: 15-20 %).`,
-      };
+      });
     }
   }
 }
 
 function pileProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+  // No invented piles: a sheet-pile wall is placed by chainage, a pontoon by its hull, and a pile grid only when its
+  // rows and bents were entered.
+  if (a.structureType === 'sheet-pile-wall') return { text: '', basis: 'No position proposed: a sheet-pile wall has no piles to share the anodes over. Enter where they go by chainage and depth (for example "Ch 120-180 m, 1.5 m below LAT").' };
+  if (a.structureType === 'pontoon') return { text: '', basis: 'No position proposed: a pontoon has no pile grid. Enter where the anodes go on its hull.' };
+  if (!a.pileRows || !a.pileBents || a.pileGridSource === 'estimate') return { text: '', basis: "No position proposed: the pile grid is not known. Enter the structure's rows and bents in its particulars, or enter the piles here." };
   const grid = pileGridOf({ pileCount: a.pileCount ?? null, pileRows: a.pileRows ?? null, pileBents: a.pileBents ?? null }, []);
   const piles = grid.rows * grid.bents;
   const per = z.count / piles;
@@ -101,6 +116,6 @@ export function proposePositions(asset: ProposalAsset, zones: readonly ProposalZ
     .filter((z) => z.count > 0)
     .map((z) => {
       const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z) : pileProposal(asset, z);
-      return { zone: z.name, text, position: parsePosition(text, asset.kind), basis };
+      return { zone: z.name, text, position: text ? parsePosition(text, asset.kind) : { ...EMPTY_POSITION }, basis };
     });
 }

@@ -48,3 +48,40 @@ describe('placement proposal', () => {
     expect(immersed!.basis).toMatch(/common practice/);
   });
 });
+
+describe('placement proposal from estimated or missing particulars', () => {
+  it('says in the text and in the hint when the frames come from an estimated spacing', () => {
+    // No frame spacing entered: 0.002 × 96 + 0.48 = 0.672 m.
+    const [bottom, sides] = proposePositions({ kind: 'vessel', lengthBppM: 96, draughtM: 4.6, frameSpacingM: null }, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 22 },
+      { name: 'Sides', kind: 'boot-top-sides', count: 10 },
+    ]);
+    for (const p of [bottom!, sides!]) {
+      expect(p.text).toContain('frames from an estimated 0.67 m spacing: check the frame plan');
+      expect(p.basis).toMatch(/estimated 0\.67 m spacing.*check the frame plan/);
+      // The warning stays with the position as its note.
+      expect(p.position.note).toContain('frames from an estimated 0.67 m spacing');
+    }
+    // A spacing on record that is itself an estimate says so too; an entered one does not.
+    const [marked] = proposePositions({ ...ferry, frameSpacingSource: 'estimate' }, [{ name: 'Hull bottom', kind: 'hull-bottom', count: 22 }]);
+    expect(marked!.text).toContain('frames from an estimated 0.6 m spacing: check the frame plan');
+    const [entered] = proposePositions({ ...ferry, frameSpacingSource: 'entered' }, [{ name: 'Hull bottom', kind: 'hull-bottom', count: 22 }]);
+    expect(entered!.text).not.toContain('estimated');
+  });
+
+  it('proposes no piles when the grid is not known, nor on a sheet-pile wall or a pontoon', () => {
+    const zones = [{ name: 'Piles immersed', kind: 'pile-immersed', count: 24 }];
+    const cases = [
+      { asset: { kind: 'structure' as const, pileCount: 48, pileRows: null, pileBents: null }, basis: /pile grid is not known/ },
+      { asset: { kind: 'structure' as const, pileCount: 48, pileRows: 2, pileBents: 24, pileGridSource: 'estimate' as const }, basis: /pile grid is not known/ },
+      { asset: { kind: 'structure' as const, structureType: 'sheet-pile-wall', pileCount: null }, basis: /sheet-pile wall.*chainage/ },
+      { asset: { kind: 'structure' as const, structureType: 'pontoon', pileCount: null }, basis: /pontoon has no pile grid/ },
+    ];
+    for (const { asset, basis } of cases) {
+      const [p] = proposePositions(asset, zones);
+      expect(p!.text).toBe('');
+      expect(p!.position.pileFrom).toBeNull();
+      expect(p!.basis).toMatch(basis);
+    }
+  });
+});

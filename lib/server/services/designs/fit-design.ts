@@ -148,7 +148,7 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
   const proposed = proposePositions(asset, counts.map((c) => ({ name: c.surface.name, kind: c.surface.kind, count: c.count })));
   const positionText = (zoneName: string): string | null => {
     const kept = edited.find((e) => e.zone === zoneName);
-    return kept ? kept.text : (proposed.find((p) => p.zone === zoneName)?.text ?? null);
+    return kept ? kept.text : proposed.find((p) => p.zone === zoneName)?.text || null;
   };
   // Every zone's position is read before anything is written: one that cannot be stored refuses the fit whole, with
   // the message on that zone's position field.
