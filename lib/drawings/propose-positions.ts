@@ -13,8 +13,17 @@ import { EMPTY_POSITION, type AnodePosition } from '@/lib/schemas/anode-position
 
 /** Spacing along the hull (design basis, placement, practice). */
 export const HULL_ANODE_SPACING_M = 6;
-/** Share of the bottom's anodes placed in its aft quarter, besides the rudder and stern-frame zones (design basis, practice: 15-20 %). */
+/**
+ * Share of all the hull's anodes at the stern and rudder (design basis line 64, practice: 15-20 %; some say a third,
+ * some 40-50 %). The rudder and stern-frame zones count towards it; the bottom makes up the rest in its aft quarter.
+ */
 export const STERN_SHARE = 0.2;
+/** The aft part of the bottom that counts as "at the stern": its aft quarter. */
+export const STERN_REACH_L = 0.25;
+/** Design basis line 64: "not over fuel tanks if welded". */
+export const FUEL_TANK_CAUTION = 'Not over fuel tanks if the anodes are welded (design basis, practice): check the tank plan.';
+/** The heights proposed (0.07 T on the bottom, 0.6 T on the sides) are not in the design basis. */
+const HEIGHT_ASSUMPTION = 'The height is an assumption (not in the design basis): set it from the shell expansion.';
 
 export interface ProposalZone {
   name: string;
@@ -47,9 +56,12 @@ export interface ProposedPosition {
   basis: string;
 }
 
+/** The zone kinds of a hull (the anodes counted for the stern share). */
+const HULL_KINDS = new Set(['hull-bottom', 'boot-top-sides', 'rudder', 'propeller-shaft', 'sea-chest', 'thruster-tunnel', 'other']);
+
 const frame = (m: number, spacing: number) => Math.max(0, Math.round(m / spacing));
 
-function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+function hullProposal(a: ProposalAsset, z: ProposalZone, zones: readonly ProposalZone[]): { text: string; basis: string } {
   const L = a.lengthBppM ?? 0;
   const T = a.draughtM ?? 0;
   const spacing = a.frameSpacingM || (L ? estimatedFrameSpacingM(L) : 0);
@@ -77,19 +89,26 @@ function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis:
     case 'boot-top-sides': {
       if (!L || !spacing) return { text: 'Boot-top and sides P/S', basis: 'Enter the length to propose frames.' };
       const [f0, f1] = spread(0.1 * L, 0.95 * L);
-      return framed({ text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice).` });
+      return framed({ text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice). ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}` });
     }
-    default: {
-      // The bottom: a fifth of its anodes in the aft quarter (towards the propeller and rudder), the rest forward of it.
+    case 'hull-bottom': {
+      // 15-20 % of all the hull's anodes at the stern and rudder: what the rudder and stern-frame zones do not
+      // already have goes in the bottom's aft quarter (towards the propeller and rudder), the rest forward of it.
       if (!L || !spacing) return { text: 'Bottom P/S', basis: 'Enter the length to propose frames.' };
       const [f0, f1] = spread(0.08 * L, 0.92 * L);
-      const aft = Math.round(z.count * STERN_SHARE);
-      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${frame(0.3 * L, spacing)}` : '';
+      const total = zones.filter((x) => HULL_KINDS.has(x.kind)).reduce((n, x) => n + Math.max(0, x.count), 0);
+      const atStern = zones.filter((x) => x.kind === 'rudder' || x.kind === 'propeller-shaft').reduce((n, x) => n + Math.max(0, x.count), 0);
+      const aft = Math.min(z.count, Math.max(0, Math.round(total * STERN_SHARE) - atStern));
+      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${Math.max(f0, frame(STERN_REACH_L * L, spacing))}` : '';
+      const share = `${Math.round(STERN_SHARE * 100)} % of the hull's ${total} anodes at the stern and rudder (design basis, practice: 15-20 %; some say a third, some 40-50 %)`;
       return framed({
         text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
-        basis: `${spacingWords}; ${Math.round(STERN_SHARE * 100)} % towards the stern, where the flow is highest (design basis, practice: 15-20 %).`,
+        basis: `${spacingWords}; ${share}: the rudder and stern-frame zones have ${atStern}, the bottom's aft quarter ${aft}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
       });
     }
+    default:
+      // A zone of another kind has no usual place on the hull: no frames are made up for it.
+      return { text: '', basis: 'No position proposed for this kind of zone: enter where its anodes go.' };
   }
 }
 
@@ -115,7 +134,7 @@ export function proposePositions(asset: ProposalAsset, zones: readonly ProposalZ
   return zones
     .filter((z) => z.count > 0)
     .map((z) => {
-      const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z) : pileProposal(asset, z);
+      const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z, zones) : pileProposal(asset, z);
       return { zone: z.name, text, position: text ? parsePosition(text, asset.kind) : { ...EMPTY_POSITION }, basis };
     });
 }
