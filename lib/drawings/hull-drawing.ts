@@ -184,6 +184,17 @@ function frameTicks(scale: HullScale, view: 'port' | 'starboard'): Shape[] {
 const SYMBOL_W = 9;
 const SYMBOL_H = 7;
 
+/**
+ * How many of a group's anodes a view shows, truthfully: a group without a side is shown in both views with its
+ * whole count ("side not given"); an odd count on both sides is drawn rounded up on each side and says so.
+ */
+function sideCountWords(g: DrawnGroup, n: number): string {
+  const anodes = (k: number) => `${k} anode${k === 1 ? '' : 's'}`;
+  if (g.position.side === null) return `${anodes(g.quantity)}, side not given (shown on both sides)`;
+  if (g.position.side === 'both' && g.quantity % 2 === 1) return `${anodes(g.quantity)} on both sides, ${n} drawn on this side (an odd count, rounded up for symmetry)`;
+  return `${anodes(n)} on this side`;
+}
+
 /** One group's symbols in one view: up to MAX_SYMBOLS anodes spread over its span, each filled to its remaining fraction. */
 export function groupSymbols(scale: HullScale, view: 'port' | 'starboard', g: DrawnGroup): ShapeGroup {
   const n = anodesInView(g);
@@ -199,7 +210,7 @@ export function groupSymbols(scale: HullScale, view: 'port' | 'starboard', g: Dr
   for (let i = 0; i < drawn; i++) shapes.push(...fillSymbol(start + i * step - SYMBOL_W / 2, y - SYMBOL_H / 2, SYMBOL_W, SYMBOL_H, g.remainingFraction));
   const countText = `${g.label} · ${n}${drawn < n ? ` (${drawn} drawn)` : ''} · ${remainingWords(g.remainingFraction)}`;
   shapes.push(text('label', start + ((drawn - 1) * step) / 2, y - SYMBOL_H / 2 - 3, countText, 'middle'));
-  return { target: `drawing-group-${g.id}`, title: `${g.label}: ${n} anode${n === 1 ? '' : 's'} on this side, ${remainingWords(g.remainingFraction)}`, shapes };
+  return { target: `drawing-group-${g.id}`, title: `${g.label}: ${sideCountWords(g, n)}, ${remainingWords(g.remainingFraction)}`, shapes };
 }
 
 /** A reading's marker: a diamond with its value and word. */

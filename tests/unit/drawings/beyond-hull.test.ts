@@ -21,3 +21,13 @@ describe('frames beyond the hull', () => {
     for (const v of drawing!.views) for (const s of v.groups.flatMap((x) => x.shapes)) if (s.kind === 'rect') expect(s.x).toBeGreaterThanOrEqual(0), expect(s.x).toBeLessThanOrEqual(v.width);
   });
 });
+
+describe('the count a view shows', () => {
+  it('says "side not given" for a group without a side, and rounding up for an odd count on both sides', () => {
+    const { drawing } = buildAssetDrawing(ferry, [g('Rudder', 'rudder'), { ...g('Odd', 'Fr 20-130 P/S'), quantity: 21 }, g('Port only', 'Fr 30-40 P')], []);
+    const titles = drawing!.views.flatMap((v) => v.groups.map((x) => x.title));
+    expect(titles.filter((t) => t.startsWith('Rudder:'))).toEqual(['Rudder: 4 anodes, side not given (shown on both sides), 50 % left', 'Rudder: 4 anodes, side not given (shown on both sides), 50 % left']);
+    expect(titles.filter((t) => t.startsWith('Odd:'))).toEqual(Array(2).fill('Odd: 21 anodes on both sides, 11 drawn on this side (an odd count, rounded up for symmetry), 50 % left'));
+    expect(titles.filter((t) => t.startsWith('Port only:'))).toEqual(['Port only: 4 anodes on this side, 50 % left']);
+  });
+});
