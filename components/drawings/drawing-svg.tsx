@@ -97,6 +97,8 @@ export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { vi
       ))}
       {view.groups.map((g) => (
         <a key={g.target} href={`#${g.target}`} aria-label={g.title}>
+          {/* The tooltip on hover (aria-label gives none). */}
+          <title>{g.title}</title>
           {g.shapes.map((shape, i) => (
             <ShapeEl key={i} shape={shape} />
           ))}

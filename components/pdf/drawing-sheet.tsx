@@ -127,7 +127,7 @@ export function PdfAssetDrawing({ drawing, width, heading, subtitle, layout = 'l
           {shown.map((r) => (
             <View key={r.id} style={pdf.row} wrap={false}>
               <Text style={[s.cell, { width: right * COLS[0]!.share }]}>{r.label}</Text>
-              <Text style={[s.cell, { width: right * COLS[1]!.share }]}>{r.where}{r.drawn ? '' : ' (not on the drawing)'}</Text>
+              <Text style={[s.cell, { width: right * COLS[1]!.share }]}>{r.where}{r.note ? `; ${r.note}` : ''}{r.drawn ? '' : ' (not on the drawing)'}</Text>
               <Text style={[s.cell, { width: right * COLS[2]!.share }]}>{r.count}</Text>
               <Text style={[s.cell, { width: right * COLS[3]!.share }]}>{r.remaining}</Text>
             </View>
