@@ -70,6 +70,10 @@ function sameSpot(a: AnodePosition, b: AnodePosition): boolean {
   return b.frameFrom >= a.frameFrom && b.frameFrom <= (a.frameTo ?? a.frameFrom) && (a.side === null || b.side === null || a.side === 'both' || a.side === b.side);
 }
 
+/** The most rows and bents the pile plan draws (a larger grid is drawn in part, and the notes say so). */
+export const MAX_PLAN_GRID = { rows: 30, bents: 60 };
+const rowIndexOf = (row: string) => row.charCodeAt(0) - 65;
+
 /** Said of a group whose frames lie outside the hull drawn (listed, not drawn). */
 export const BEYOND_HULL_WORDS = 'beyond the hull (check the frame spacing)';
 
@@ -119,11 +123,16 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
   const grid = pileGridOf({ pileCount: asset.pileCount ?? null, pileRows: asset.pileRows ?? null, pileBents: asset.pileBents ?? null }, [...groups.map((g) => g.position), ...readings.map((r) => r.position)]);
   const source = grid.source === 'estimate' || asset.pileGridSource === 'estimate' ? 'estimate' : 'entered';
   const states = pileStates(grid, groups, readings);
-  const plan = pilePlanView(`Plan: ${grid.rows} rows × ${grid.bents} bents`, grid, states);
+  // A large grid is drawn in part (the page and the sheet stay readable and light); the list gives every group.
+  const shownGrid = { rows: Math.min(grid.rows, MAX_PLAN_GRID.rows), bents: Math.min(grid.bents, MAX_PLAN_GRID.bents) };
+  const capped = shownGrid.rows < grid.rows || shownGrid.bents < grid.bents;
+  const shownStates = capped ? states.filter((s) => s.pile.bent <= shownGrid.bents && rowIndexOf(s.pile.row) < shownGrid.rows) : states;
+  const plan = pilePlanView(`Plan: ${grid.rows} rows × ${grid.bents} bents${capped ? ` (first ${shownGrid.rows} × ${shownGrid.bents} drawn)` : ''}`, shownGrid, shownStates);
   const datums = [...new Set(groups.flatMap((g) => (g.position.datum ? [g.position.datum] : [])))];
   const notes = [
     `Pile grid ${grid.rows} rows (A–${String.fromCharCode(64 + grid.rows)}) by ${grid.bents} bents (1–${grid.bents}), ${PARTICULAR_SOURCE_LABELS[source]}. Piles by bent and row letter (common practice).`,
     `Each pile is filled to the lowest remaining fraction of the anodes on it; a group's anodes are shared evenly over the piles it names.${datums.length ? ` Depths below ${datums.map((d) => TIDAL_DATUM_LABELS[d]).join(', ')}.` : ''}`,
+    ...(capped ? [`The plan draws the first ${shownGrid.rows} rows and ${shownGrid.bents} bents of the ${grid.rows} × ${grid.bents} grid; every group is in the list with its piles.`] : []),
   ];
   const rows = groups.map((g) => {
     const piles = pilesCovered(g.position, grid);

@@ -31,3 +31,17 @@ describe('an anode whose remaining fraction is not known', () => {
     expect(drawing!.key.find((k) => k.role === 'anode-unknown')!.label).toMatch(/not known.*dashed outline with "\?"/);
   });
 });
+
+describe('a large pile grid', () => {
+  it('is drawn in part, at most 30 rows by 60 bents, and the notes say so', () => {
+    const groups = [{ id: 'g', label: 'All', quantity: 400, position: parsePosition('B1-A to B100-D', 'structure'), remainingFraction: 0.5 }];
+    const { drawing } = buildAssetDrawing({ kind: 'structure', name: 'Long Wharf', pileCount: 400, pileRows: 4, pileBents: 100 } as never, groups, []);
+    expect(drawing!.views[0]!.groups).toHaveLength(4 * 60);
+    expect(drawing!.views[0]!.title).toBe('Plan: 4 rows × 100 bents (first 4 × 60 drawn)');
+    expect(drawing!.notes.some((n) => n.startsWith('The plan draws the first 4 rows and 60 bents of the 4 × 100 grid'))).toBe(true);
+    // A grid within the cap is drawn whole, with no such note.
+    const small = buildAssetDrawing({ kind: 'structure', name: 'Short Jetty', pileCount: 8, pileRows: 2, pileBents: 4 } as never, [], []).drawing!;
+    expect(small.views[0]!.groups).toHaveLength(8);
+    expect(small.notes.some((n) => n.startsWith('The plan draws the first'))).toBe(false);
+  });
+});
