@@ -37,6 +37,8 @@ export const AnodeGroupSchema = defineEntity({
     // The position as data, parsed from `positions` on every write (lib/drawings/parse-position.ts); read with
     // positionOf (lib/drawings/position-of.ts), which checks it against anodePositionSchema.
     position: p.json<AnodePosition>().nullable(),
+    // The parser version that wrote `position` (PARSER_VERSION); positionOf reads the text again when it is older.
+    positionParserVersion: p.integer().nullable(),
     installedOn: p.date(),
     design: p.manyToOne(DesignSchema).nullable().deleteRule('set null'),
     // The group's share of its design's mean current, A (or a measured output); drives the forecast.

@@ -1,10 +1,12 @@
 import { Migration } from '@mikro-orm/migrations';
-import { parsePosition } from '../lib/drawings/parse-position';
+import { parsePositionV1 } from './frozen/parse-position-v1';
 
 // Anode positions as data (anode_group.position, jsonb: frames, side, height above keel and part of the hull, or
 // piles by bent and row and depth below a datum, with what could not be read kept as the note), parsed from the
 // free text each group already has; and the particulars the drawings need (frame spacing, pile rows and bents,
-// each with where it comes from: 'entered' or 'estimate'). Idempotent: the columns are added if missing and only
+// each with where it comes from: 'entered' or 'estimate'). The parser is frozen at its first version (a migration
+// gives the same result on every install); the rows carry no parser version, so positionOf reads them again with
+// the parser of the day. Idempotent: the columns are added if missing and only
 // groups without a parsed position are parsed, so a second run changes nothing.
 export class Migration20261214000000_structured_positions extends Migration {
 
@@ -15,7 +17,7 @@ export class Migration20261214000000_structured_positions extends Migration {
     for (;;) {
       const rows = (await this.execute(`select "id", "positions" from "anode_group" where "position" is null and "positions" is not null and btrim("positions") <> '' order by "id" limit 500;`)) as { id: string; positions: string }[];
       if (!rows.length) break;
-      const parsed = rows.map((r) => ({ id: r.id, pos: parsePosition(r.positions) }));
+      const parsed = rows.map((r) => ({ id: r.id, pos: parsePositionV1(r.positions) }));
       await this.execute(
         `update "anode_group" g set "position" = v.pos from jsonb_to_recordset(?::jsonb) as v(id uuid, pos jsonb) where g."id" = v.id and g."position" is null;`,
         [JSON.stringify(parsed)],

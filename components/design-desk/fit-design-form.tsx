@@ -2,6 +2,7 @@
 import { useMemo, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
+import { PositionField } from '@/components/drawings/position-field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { bookDesignRenewalsAction, fitDesignAction } from '@/app/o/[org]/designs/actions';
 import { queryKeys } from '@/lib/client/query-client';
@@ -15,6 +16,8 @@ interface Props {
   can: { install: boolean; book: boolean };
   /** Where each zone's anodes go, proposed from the design (editable before fitting). */
   proposals?: { zone: string; text: string; basis: string }[];
+  /** The asset's kind, for the position preview. */
+  assetKind?: 'vessel' | 'structure';
 }
 
 /**
@@ -22,7 +25,7 @@ interface Props {
  * booked as renewals at a planned docking or campaign. The form carries an idempotency key, so a
  * double click or a resend is recognised as the same request.
  */
-export function FitDesignForm({ org, designId, assetName, dockings, can, proposals = [] }: Props) {
+export function FitDesignForm({ org, designId, assetName, dockings, can, proposals = [], assetKind }: Props) {
   // Recording an installation is an engineer's (asset:write), booking renewals a planner's (renewal:write): one action each.
   const fit = useBoundAction(fitDesignAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
   const book = useBoundAction(bookDesignRenewalsAction.bind(null, org), { invalidate: [queryKeys.anodeGroups(org), queryKeys.assets(org)] });
@@ -56,7 +59,7 @@ export function FitDesignForm({ org, designId, assetName, dockings, can, proposa
               {proposals.map((p, i) => (
                 <div key={p.zone}>
                   <input type="hidden" name={`positionZone-${i}`} value={p.zone} />
-                  <Field label={`Position, ${p.zone}`} {...form.field(`position-${i}`, p.text)} hint={p.basis} />
+                  <PositionField kind={assetKind} label={`Position, ${p.zone}`} {...form.field(`position-${i}`, p.text)} hint={p.basis} />
                 </div>
               ))}
             </fieldset>

@@ -21,6 +21,8 @@ export const ROLE_STYLES: Record<ShapeRole, Style> = {
   grid: { stroke: '#9e9e9e', strokeWidth: 0.6 },
   anode: { fill: 'none', stroke: '#111111', strokeWidth: 0.9 },
   'anode-left': { fill: '#424242' },
+  'anode-unknown': { fill: '#ffffff', stroke: '#111111', strokeWidth: 0.9, strokeDasharray: '1.5 1' },
+  'anode-unknown-mark': { fill: '#111111', fontSize: 6.5, fontWeight: 700 },
   pile: { fill: '#ffffff', stroke: '#757575', strokeWidth: 0.8 },
   reading: { fill: '#ffffff', stroke: '#111111', strokeWidth: 1.2 },
   datum: { stroke: '#333333', strokeWidth: 0.8, strokeDasharray: '4 2' },
@@ -95,6 +97,8 @@ export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { vi
       ))}
       {view.groups.map((g) => (
         <a key={g.target} href={`#${g.target}`} aria-label={g.title}>
+          {/* The tooltip on hover (aria-label gives none). */}
+          <title>{g.title}</title>
           {g.shapes.map((shape, i) => (
             <ShapeEl key={i} shape={shape} />
           ))}
@@ -112,6 +116,13 @@ export function KeySwatch({ role }: { role: ShapeRole }) {
         <>
           <rect x="6" y="5" width="9" height="4" className={cls('anode-left')} />
           <rect x="6" y="1" width="9" height="8" className={cls('anode')} />
+        </>
+      ) : role === 'anode-unknown' ? (
+        <>
+          <rect x="6" y="1" width="9" height="8" className={cls('anode-unknown')} />
+          <text x="10.5" y="7.3" textAnchor="middle" className={cls('anode-unknown-mark')}>
+            ?
+          </text>
         </>
       ) : role === 'reading' ? (
         <path d="M11 1l5 5l-5 5l-5 -5z" className={cls('reading')} />

@@ -15,7 +15,8 @@ export function PileElevation({ grid, groups, readings }: { grid: { rows: number
   }, []);
   const state = key ? pileStates(grid, groups, readings).find((s) => s.pile.key === key) : undefined;
   return (
-    <div aria-live="polite" className="mt-3" data-testid="pile-elevation">
+    // The plan's pile links point here: the elevation takes the id of the pile it shows.
+    <div id={state ? `pile-${state.pile.key}` : undefined} aria-live="polite" className="mt-3 scroll-mt-24" data-testid="pile-elevation">
       {state ? (
         <DrawingSvg view={pileElevationView(state)} idPrefix="pile-elevation" className="w-full max-w-md rounded-[3px] border border-rule bg-white" />
       ) : (

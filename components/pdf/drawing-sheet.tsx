@@ -99,6 +99,11 @@ export function PdfAssetDrawing({ drawing, width, heading, subtitle, layout = 'l
                       <Rect x={6} y={5} width={9} height={4} {...paint('anode-left')} />
                       <Rect x={6} y={1} width={9} height={8} {...paint('anode')} />
                     </>
+                  ) : k.role === 'anode-unknown' ? (
+                    <>
+                      <Rect x={6} y={1} width={9} height={8} {...paint('anode-unknown')} />
+                      <PdfShape shape={{ kind: 'text', role: 'anode-unknown-mark', x: 10.5, y: 7.3, text: '?', anchor: 'middle' }} />
+                    </>
                   ) : k.role === 'reading' ? (
                     <Path d="M11 1l5 5l-5 5l-5 -5z" {...paint('reading')} />
                   ) : (
@@ -122,7 +127,7 @@ export function PdfAssetDrawing({ drawing, width, heading, subtitle, layout = 'l
           {shown.map((r) => (
             <View key={r.id} style={pdf.row} wrap={false}>
               <Text style={[s.cell, { width: right * COLS[0]!.share }]}>{r.label}</Text>
-              <Text style={[s.cell, { width: right * COLS[1]!.share }]}>{r.where}{r.drawn ? '' : ' (not on the drawing)'}</Text>
+              <Text style={[s.cell, { width: right * COLS[1]!.share }]}>{r.where}{r.note ? `; ${r.note}` : ''}{r.drawn ? '' : ' (not on the drawing)'}</Text>
               <Text style={[s.cell, { width: right * COLS[2]!.share }]}>{r.count}</Text>
               <Text style={[s.cell, { width: right * COLS[3]!.share }]}>{r.remaining}</Text>
             </View>

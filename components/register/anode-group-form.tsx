@@ -5,6 +5,7 @@ import { useRouter } from 'next/navigation';
 import { useQueryClient } from '@tanstack/react-query';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
+import { PositionField } from '@/components/drawings/position-field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
 import { createAnodeGroupAction, removeAnodeGroupAction, restoreAnodeGroupAction, updateAnodeGroupAction } from '@/app/o/[org]/assets/actions';
 import { announce, undoBy } from '@/components/ui/toast';
@@ -30,10 +31,12 @@ interface Props {
   models: { key: string; label: string }[];
   designs: { id: string; label: string }[];
   groups?: GroupChoice[];
+  /** The asset's kind: the position preview reads hull words on a vessel and pile words on a structure. */
+  assetKind?: 'vessel' | 'structure';
 }
 
 /** Record anodes fitted on a zone (new group), or edit a fitted group; edits are kept in its history. */
-export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }: Props) {
+export function AnodeGroupForm({ org, assetId, zones, models, designs, groups, assetKind }: Props) {
   const editing = Boolean(groups);
   const [groupId, setGroupId] = useState(groups?.[0]?.id ?? '');
   const group = groups?.find((g) => g.id === groupId);
@@ -60,7 +63,7 @@ export function AnodeGroupForm({ org, assetId, zones, models, designs, groups }:
         <SelectField label="From design" {...f('designId', designs[0]?.id ?? '')} options={[{ value: '', label: 'None' }, ...designs.map((d) => ({ value: d.id, label: d.label }))]} />
       ) : null}
       <Field label="Mean current (optional)" {...f('meanCurrentA')} type="number" step="any" unit="A" hint={editing ? 'Drives the forecast' : 'Blank: the design’s share'} />
-      <Field className="col-span-2" label="Positions" {...f('positions')} hint="On a hull: frames, side, height and part, e.g. “Fr 22–30 P, 1.2 m above keel”, “rudder”, “sea chest SB aft”. On a structure: piles and depth, e.g. “B1-A to B6-D, −4 m CD”, “bent 3 row C, 1.5 m below MLWS”. These place the group on the drawing; the rest is kept as a note." />
+      <PositionField kind={assetKind} className="col-span-2" label="Positions" {...f('positions')} hint="On a hull: frames, side, height and part, e.g. “Fr 22–30 P, 1.2 m above keel”, “rudder”, “sea chest SB aft”. On a structure: piles and depth, e.g. “B1-A to B6-D, −4 m CD”, “bent 3 row C, 1.5 m below MLWS”. These place the group on the drawing; the rest is kept as a note." />
       <Field className="col-span-2" label="Notes" {...f('notes')} />
       <div className="col-span-2 flex items-end md:col-span-4">
         <Button type="submit" disabled={form.pending}>

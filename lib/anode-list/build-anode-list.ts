@@ -40,7 +40,10 @@ export interface AnodeListRenewalInput {
   grossMassKg: number;
   /** The model's overall dimensions from the catalogue, m; null or absent when unknown. */
   dimensions?: AnodeListDimensions | null;
+  /** The position exactly as the engineer wrote it: the yard works from these words. */
   positions: string | null;
+  /** How Tidewarden read the position (lib/drawings formatPosition), printed under it as "Read as: …"; null or absent when it says nothing more. */
+  positionReadAs?: string | null;
   /** e.g. 'forecast depletion', 'survey finding', 'damage'. */
   reason: string;
   /** 'proposed' | 'confirmed' | 'ordered' | 'fitted' */
@@ -99,6 +102,8 @@ export interface AnodeListLine {
   grossMassTotalKg: number;
   dimensions: AnodeListDimensions | null;
   positions: string | null;
+  /** The structured reading of the position, or null when there is none or it repeats the text. */
+  positionReadAs: string | null;
   reason: string;
   status: string;
   /** YYYY-MM-DD, or null. */
@@ -283,6 +288,12 @@ function readLine(value: unknown, field: string): AnodeListLine {
     positions: nullable(r.positions, (v) => {
       if (typeof v !== 'string') throw new AnodeListInputError(`${field}.positions`, `${field}.positions must be a text or null.`);
       return v.trim() === '' ? null : v.trim();
+    }),
+    positionReadAs: nullable(r.positionReadAs, (v) => {
+      if (typeof v !== 'string') throw new AnodeListInputError(`${field}.positionReadAs`, `${field}.positionReadAs must be a text or null.`);
+      const readAs = v.trim();
+      // Nothing to add when there is no text to read, or the reading says the text again.
+      return readAs === '' || typeof r.positions !== 'string' || r.positions.trim() === '' || readAs === r.positions.trim() ? null : readAs;
     }),
     reason: typeof r.reason === 'string' ? r.reason.trim() : fail(`${field}.reason`, `${field}.reason must be a text.`),
     status: oneOf(r.status, ANODE_LIST_STATUSES, `${field}.status`),

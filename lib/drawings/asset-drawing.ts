@@ -1,6 +1,6 @@
 import type { AnodePosition } from '@/lib/schemas/anode-position';
 import { PARTICULAR_SOURCE_LABELS, TIDAL_DATUM_LABELS } from '@/lib/labels';
-import { HULL_ZONE_KEY, frameSpacingOf, hullScale, hullView, type DrawnGroup, type DrawnReading } from './hull-drawing';
+import { HULL_ZONE_KEY, beyondHull, frameSpacingOf, hullScale, hullView, type DrawnGroup, type DrawnReading, type HullScale } from './hull-drawing';
 import { pileGridOf, pilePlanView, pileStates, pilesCovered } from './pile-plan';
 import { positionPlaceWords } from './parse-position';
 import { remainingWords, type DrawingView, type ShapeRole } from './shapes';
@@ -59,6 +59,7 @@ export type AssetDrawingResult = { drawing: AssetDrawing; missing: null } | { dr
 
 const SYMBOL_KEY: { role: ShapeRole; label: string }[] = [
   { role: 'anode', label: 'Anode: the filled part is the mass left (full: new, empty: used up)' },
+  { role: 'anode-unknown', label: 'Anode, mass left not known (no forecast): dashed outline with "?"' },
   { role: 'reading', label: 'Survey reading: value and verdict written beside it' },
 ];
 
@@ -69,9 +70,20 @@ function sameSpot(a: AnodePosition, b: AnodePosition): boolean {
   return b.frameFrom >= a.frameFrom && b.frameFrom <= (a.frameTo ?? a.frameFrom) && (a.side === null || b.side === null || a.side === 'both' || a.side === b.side);
 }
 
-function hullRows(groups: readonly DrawnGroup[], readings: readonly DrawnReading[]): DrawingRow[] {
+/** The most rows and bents the pile plan draws (a larger grid is drawn in part, and the notes say so). */
+export const MAX_PLAN_GRID = { rows: 30, bents: 60 };
+const rowIndexOf = (row: string) => row.charCodeAt(0) - 65;
+
+/** Said of a group whose frames lie outside the hull drawn (listed, not drawn). */
+export const BEYOND_HULL_WORDS = 'beyond the hull (check the frame spacing)';
+
+function hullRows(scale: HullScale, groups: readonly DrawnGroup[], readings: readonly DrawnReading[]): DrawingRow[] {
   return groups.map((g) => {
     const at = readings.filter((r) => sameSpot(g.position, r.position));
+    if (beyondHull(scale, g.position)) {
+      const r = row(g, false, at);
+      return { ...r, where: `${r.where}, ${BEYOND_HULL_WORDS}` };
+    }
     const drawn = g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null;
     return row(g, drawn, at);
   });
@@ -104,18 +116,23 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     ];
     const views = [hullView(particulars, 'starboard', groups, readings), hullView(particulars, 'port', groups, readings)];
     return {
-      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(groups, readings), grid: null, groups: [...groups], readings: [...readings] },
+      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(scale, groups, readings), grid: null, groups: [...groups], readings: [...readings] },
       missing: null,
     };
   }
   const grid = pileGridOf({ pileCount: asset.pileCount ?? null, pileRows: asset.pileRows ?? null, pileBents: asset.pileBents ?? null }, [...groups.map((g) => g.position), ...readings.map((r) => r.position)]);
   const source = grid.source === 'estimate' || asset.pileGridSource === 'estimate' ? 'estimate' : 'entered';
   const states = pileStates(grid, groups, readings);
-  const plan = pilePlanView(`Plan: ${grid.rows} rows × ${grid.bents} bents`, grid, states);
+  // A large grid is drawn in part (the page and the sheet stay readable and light); the list gives every group.
+  const shownGrid = { rows: Math.min(grid.rows, MAX_PLAN_GRID.rows), bents: Math.min(grid.bents, MAX_PLAN_GRID.bents) };
+  const capped = shownGrid.rows < grid.rows || shownGrid.bents < grid.bents;
+  const shownStates = capped ? states.filter((s) => s.pile.bent <= shownGrid.bents && rowIndexOf(s.pile.row) < shownGrid.rows) : states;
+  const plan = pilePlanView(`Plan: ${grid.rows} rows × ${grid.bents} bents${capped ? ` (first ${shownGrid.rows} × ${shownGrid.bents} drawn)` : ''}`, shownGrid, shownStates);
   const datums = [...new Set(groups.flatMap((g) => (g.position.datum ? [g.position.datum] : [])))];
   const notes = [
     `Pile grid ${grid.rows} rows (A–${String.fromCharCode(64 + grid.rows)}) by ${grid.bents} bents (1–${grid.bents}), ${PARTICULAR_SOURCE_LABELS[source]}. Piles by bent and row letter (common practice).`,
     `Each pile is filled to the lowest remaining fraction of the anodes on it; a group's anodes are shared evenly over the piles it names.${datums.length ? ` Depths below ${datums.map((d) => TIDAL_DATUM_LABELS[d]).join(', ')}.` : ''}`,
+    ...(capped ? [`The plan draws the first ${shownGrid.rows} rows and ${shownGrid.bents} bents of the ${grid.rows} × ${grid.bents} grid; every group is in the list with its piles.`] : []),
   ];
   const rows = groups.map((g) => {
     const piles = pilesCovered(g.position, grid);
@@ -123,7 +140,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     return row(g, piles.length > 0, at);
   });
   return {
-    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
+    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k.role === 'anode-unknown' ? { ...k, label: 'Pile with anodes, mass left not known (no forecast): dashed outline with "?"' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
     missing: null,
   };
 }

@@ -92,6 +92,17 @@ export function toDrawing(scale: HullScale, view: 'port' | 'starboard', xm: numb
 /** A frame number to metres forward of the aft perpendicular. */
 export const frameToMetres = (scale: HullScale, frame: number) => frame * scale.spacingM;
 
+/**
+ * True when the position's frames fall outside the hull drawn (aft of the stern overhang or forward of the bow,
+ * 1.04 L): the frame numbers and the frame spacing do not agree, so the group is listed, not drawn.
+ */
+export function beyondHull(scale: HullScale, p: AnodePosition): boolean {
+  if (p.frameFrom === null) return false;
+  const from = frameToMetres(scale, p.frameFrom);
+  const to = frameToMetres(scale, p.frameTo ?? p.frameFrom);
+  return from < -scale.aftM || to > scale.lengthBppM * 1.04;
+}
+
 /** Where a part of the hull is, in metres (along: from the aft perpendicular; up: above the keel). */
 function placeBox(place: HullPlace | null, end: 'fore' | 'aft' | null, L: number, T: number): { from: number; to: number; h: number } {
   switch (place) {
@@ -173,6 +184,17 @@ function frameTicks(scale: HullScale, view: 'port' | 'starboard'): Shape[] {
 const SYMBOL_W = 9;
 const SYMBOL_H = 7;
 
+/**
+ * How many of a group's anodes a view shows, truthfully: a group without a side is shown in both views with its
+ * whole count ("side not given"); an odd count on both sides is drawn rounded up on each side and says so.
+ */
+function sideCountWords(g: DrawnGroup, n: number): string {
+  const anodes = (k: number) => `${k} anode${k === 1 ? '' : 's'}`;
+  if (g.position.side === null) return `${anodes(g.quantity)}, side not given (shown on both sides)`;
+  if (g.position.side === 'both' && g.quantity % 2 === 1) return `${anodes(g.quantity)} on both sides, ${n} drawn on this side (an odd count, rounded up for symmetry)`;
+  return `${anodes(n)} on this side`;
+}
+
 /** One group's symbols in one view: up to MAX_SYMBOLS anodes spread over its span, each filled to its remaining fraction. */
 export function groupSymbols(scale: HullScale, view: 'port' | 'starboard', g: DrawnGroup): ShapeGroup {
   const n = anodesInView(g);
@@ -188,7 +210,7 @@ export function groupSymbols(scale: HullScale, view: 'port' | 'starboard', g: Dr
   for (let i = 0; i < drawn; i++) shapes.push(...fillSymbol(start + i * step - SYMBOL_W / 2, y - SYMBOL_H / 2, SYMBOL_W, SYMBOL_H, g.remainingFraction));
   const countText = `${g.label} · ${n}${drawn < n ? ` (${drawn} drawn)` : ''} · ${remainingWords(g.remainingFraction)}`;
   shapes.push(text('label', start + ((drawn - 1) * step) / 2, y - SYMBOL_H / 2 - 3, countText, 'middle'));
-  return { target: `drawing-group-${g.id}`, title: `${g.label}: ${n} anode${n === 1 ? '' : 's'} on this side, ${remainingWords(g.remainingFraction)}`, shapes };
+  return { target: `drawing-group-${g.id}`, title: `${g.label}: ${sideCountWords(g, n)}, ${remainingWords(g.remainingFraction)}`, shapes };
 }
 
 /** A reading's marker: a diamond with its value and word. */
@@ -208,9 +230,9 @@ export function hullView(p: HullParticulars, view: 'port' | 'starboard', groups:
   const height = Math.round(MARGIN_TOP + scale.depthM * scale.sy + MARGIN_BOTTOM);
   const shapes: Shape[] = [text('title', view === 'starboard' ? MARGIN_X : HULL_DRAWING_WIDTH - MARGIN_X, 16, `${HULL_VIEW_LABELS[view]} (bow ${view === 'starboard' ? 'right' : 'left'})`, view === 'starboard' ? 'start' : 'end')];
   shapes.push(...hullShapes(scale, view), ...frameTicks(scale, view));
-  const placed = groups.filter((g) => inView(g.position, view) && (g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null));
+  const placed = groups.filter((g) => inView(g.position, view) && !beyondHull(scale, g.position) && (g.position.frameFrom !== null || g.position.place !== null || g.position.heightAboveKeelM !== null));
   const shown = placed.map((g) => groupSymbols(scale, view, g));
-  const markers = readings.filter((r) => inView(r.position, view) && (r.position.frameFrom !== null || r.position.place !== null)).flatMap((r) => readingMarker(scale, view, r));
+  const markers = readings.filter((r) => inView(r.position, view) && !beyondHull(scale, r.position) && (r.position.frameFrom !== null || r.position.place !== null)).flatMap((r) => readingMarker(scale, view, r));
   shapes.push(...markers);
   // Group and reading texts close together (the stern) are moved apart.
   const isText = (s: Shape): s is Extract<Shape, { kind: 'text' }> => s.kind === 'text';

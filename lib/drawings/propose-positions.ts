@@ -1,7 +1,7 @@
 import { estimatedFrameSpacingM } from './hull-drawing';
 import { pileGridOf, rowLetter } from './pile-plan';
 import { parsePosition } from './parse-position';
-import type { AnodePosition } from '@/lib/schemas/anode-position';
+import { EMPTY_POSITION, type AnodePosition } from '@/lib/schemas/anode-position';
 
 /*
  * Where an approved design's anodes go, proposed zone by zone from the zone's anode count (the design distributes
@@ -13,8 +13,17 @@ import type { AnodePosition } from '@/lib/schemas/anode-position';
 
 /** Spacing along the hull (design basis, placement, practice). */
 export const HULL_ANODE_SPACING_M = 6;
-/** Share of the bottom's anodes placed in its aft quarter, besides the rudder and stern-frame zones (design basis, practice: 15-20 %). */
+/**
+ * Share of all the hull's anodes at the stern and rudder (design basis line 64, practice: 15-20 %; some say a third,
+ * some 40-50 %). The rudder and stern-frame zones count towards it; the bottom makes up the rest in its aft quarter.
+ */
 export const STERN_SHARE = 0.2;
+/** The aft part of the bottom that counts as "at the stern": its aft quarter. */
+export const STERN_REACH_L = 0.25;
+/** Design basis line 64: "not over fuel tanks if welded". */
+export const FUEL_TANK_CAUTION = 'Not over fuel tanks if the anodes are welded (design basis, practice): check the tank plan.';
+/** The heights proposed (0.07 T on the bottom, 0.6 T on the sides) are not in the design basis. */
+const HEIGHT_ASSUMPTION = 'The height is an assumption (not in the design basis): set it from the shell expansion.';
 
 export interface ProposalZone {
   name: string;
@@ -27,26 +36,39 @@ export interface ProposalAsset {
   lengthBppM?: number | null;
   draughtM?: number | null;
   frameSpacingM?: number | null;
+  /** 'estimate' when the frame spacing on record is Tidewarden's estimate, not the yard's frame plan. */
+  frameSpacingSource?: 'entered' | 'estimate' | null;
+  /** A structure's type (STRUCTURE_TYPE_LABELS): sheet-pile walls and pontoons have no pile grid. */
+  structureType?: string | null;
   pileCount?: number | null;
   pileRows?: number | null;
   pileBents?: number | null;
+  /** 'estimate' when the rows and bents on record are estimated, not entered. */
+  pileGridSource?: 'entered' | 'estimate' | null;
 }
 
 export interface ProposedPosition {
   zone: string;
-  /** The position as text (what the form shows and the group keeps); parsePosition reads it back. */
+  /** The position as text (what the form shows and the group keeps); parsePosition reads it back. Empty when none is proposed (the basis says why). */
   text: string;
   position: AnodePosition;
   /** Why it is placed so, naming the practice it follows. */
   basis: string;
 }
 
+/** The zone kinds of a hull (the anodes counted for the stern share). */
+const HULL_KINDS = new Set(['hull-bottom', 'boot-top-sides', 'rudder', 'propeller-shaft', 'sea-chest', 'thruster-tunnel', 'other']);
+
 const frame = (m: number, spacing: number) => Math.max(0, Math.round(m / spacing));
 
-function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+function hullProposal(a: ProposalAsset, z: ProposalZone, zones: readonly ProposalZone[]): { text: string; basis: string } {
   const L = a.lengthBppM ?? 0;
   const T = a.draughtM ?? 0;
   const spacing = a.frameSpacingM || (L ? estimatedFrameSpacingM(L) : 0);
+  // Frame numbers from an estimated spacing go into the text the yard works from: the text says so.
+  const estimated = !a.frameSpacingM || a.frameSpacingSource === 'estimate';
+  const estimateWords = `frames from an estimated ${Math.round(spacing * 100) / 100} m spacing: check the frame plan`;
+  const framed = (r: { text: string; basis: string }) => (estimated ? { text: `${r.text}; ${estimateWords}`, basis: `${r.basis} Frames from an estimated ${Math.round(spacing * 100) / 100} m spacing (0.002 L + 0.48 m, from memory of common practice, not in the design basis): check the frame plan.` } : r);
   const perSide = Math.ceil(z.count / 2);
   const spread = (fromM: number, toM: number) => {
     // About 6 m apart: the span the anodes of one side need, centred on the stretch, no longer than it.
@@ -67,23 +89,35 @@ function hullProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis:
     case 'boot-top-sides': {
       if (!L || !spacing) return { text: 'Boot-top and sides P/S', basis: 'Enter the length to propose frames.' };
       const [f0, f1] = spread(0.1 * L, 0.95 * L);
-      return { text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice).` };
+      return framed({ text: `Fr ${f0}-${f1} P/S, boot-top and sides, ${T ? `${Math.round(0.6 * T * 10) / 10} m above keel, ` : ''}${spacingWords}`, basis: `Along the flow lines, ${spacingWords} (design basis, practice). ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}` });
     }
-    default: {
-      // The bottom: a fifth of its anodes in the aft quarter (towards the propeller and rudder), the rest forward of it.
+    case 'hull-bottom': {
+      // 15-20 % of all the hull's anodes at the stern and rudder: what the rudder and stern-frame zones do not
+      // already have goes in the bottom's aft quarter (towards the propeller and rudder), the rest forward of it.
       if (!L || !spacing) return { text: 'Bottom P/S', basis: 'Enter the length to propose frames.' };
       const [f0, f1] = spread(0.08 * L, 0.92 * L);
-      const aft = Math.round(z.count * STERN_SHARE);
-      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${frame(0.3 * L, spacing)}` : '';
-      return {
+      const total = zones.filter((x) => HULL_KINDS.has(x.kind)).reduce((n, x) => n + Math.max(0, x.count), 0);
+      const atStern = zones.filter((x) => x.kind === 'rudder' || x.kind === 'propeller-shaft').reduce((n, x) => n + Math.max(0, x.count), 0);
+      const aft = Math.min(z.count, Math.max(0, Math.round(total * STERN_SHARE) - atStern));
+      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${Math.max(f0, frame(STERN_REACH_L * L, spacing))}` : '';
+      const share = `${Math.round(STERN_SHARE * 100)} % of the hull's ${total} anodes at the stern and rudder (design basis, practice: 15-20 %; some say a third, some 40-50 %)`;
+      return framed({
         text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
-        basis: `${spacingWords}; ${Math.round(STERN_SHARE * 100)} % towards the stern, where the flow is highest (design basis, practice: 15-20 %).`,
-      };
+        basis: `${spacingWords}; ${share}: the rudder and stern-frame zones have ${atStern}, the bottom's aft quarter ${aft}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
+      });
     }
+    default:
+      // A zone of another kind has no usual place on the hull: no frames are made up for it.
+      return { text: '', basis: 'No position proposed for this kind of zone: enter where its anodes go.' };
   }
 }
 
 function pileProposal(a: ProposalAsset, z: ProposalZone): { text: string; basis: string } {
+  // No invented piles: a sheet-pile wall is placed by chainage, a pontoon by its hull, and a pile grid only when its
+  // rows and bents were entered.
+  if (a.structureType === 'sheet-pile-wall') return { text: '', basis: 'No position proposed: a sheet-pile wall has no piles to share the anodes over. Enter where they go by chainage and depth (for example "Ch 120-180 m, 1.5 m below LAT").' };
+  if (a.structureType === 'pontoon') return { text: '', basis: 'No position proposed: a pontoon has no pile grid. Enter where the anodes go on its hull.' };
+  if (!a.pileRows || !a.pileBents || a.pileGridSource === 'estimate') return { text: '', basis: "No position proposed: the pile grid is not known. Enter the structure's rows and bents in its particulars, or enter the piles here." };
   const grid = pileGridOf({ pileCount: a.pileCount ?? null, pileRows: a.pileRows ?? null, pileBents: a.pileBents ?? null }, []);
   const piles = grid.rows * grid.bents;
   const per = z.count / piles;
@@ -100,7 +134,7 @@ export function proposePositions(asset: ProposalAsset, zones: readonly ProposalZ
   return zones
     .filter((z) => z.count > 0)
     .map((z) => {
-      const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z) : pileProposal(asset, z);
-      return { zone: z.name, text, position: parsePosition(text), basis };
+      const { text, basis } = asset.kind === 'vessel' ? hullProposal(asset, z, zones) : pileProposal(asset, z);
+      return { zone: z.name, text, position: text ? parsePosition(text, asset.kind) : { ...EMPTY_POSITION }, basis };
     });
 }

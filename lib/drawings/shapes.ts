@@ -17,6 +17,8 @@ export type ShapeRole =
   | 'grid' // frame ticks, bents and rows
   | 'anode' // the outline of an anode (or pile) symbol
   | 'anode-left' // the part of the symbol filled by the remaining fraction
+  | 'anode-unknown' // the dashed outline of a symbol whose remaining fraction is not known
+  | 'anode-unknown-mark' // the "?" inside it
   | 'pile' // a pile without anodes
   | 'reading' // a survey reading's marker
   | 'datum'
@@ -73,16 +75,13 @@ export function polygon(role: ShapeRole, points: [number, number][]): Shape {
 
 /**
  * An anode (or pile) symbol: an outline whose lower part is filled by the remaining fraction (a full symbol is a
- * new anode, an empty one is used up), so the level reads in grey print without colour.
+ * new anode, an empty one is used up), so the level reads in grey print without colour. When the fraction is not
+ * known the symbol is its own shape, a dashed outline with "?", never the empty outline of a used-up anode.
  */
 export function fillSymbol(x: number, y: number, w: number, h: number, remainingFraction: number | null): Shape[] {
-  const out: Shape[] = [];
-  if (remainingFraction !== null) {
-    const f = Math.min(1, Math.max(0, remainingFraction));
-    out.push(rect('anode-left', x, y + h * (1 - f), w, h * f));
-  }
-  out.push(rect('anode', x, y, w, h));
-  return out;
+  if (remainingFraction === null) return [rect('anode-unknown', x, y, w, h), text('anode-unknown-mark', x + w / 2, y + h / 2 + 2.3, '?', 'middle')];
+  const f = Math.min(1, Math.max(0, remainingFraction));
+  return [rect('anode-left', x, y + h * (1 - f), w, h * f), rect('anode', x, y, w, h)];
 }
 
 /** "62 % left", or the words when the fraction is not known. */

@@ -8,8 +8,8 @@ import { getEm, getOrm } from '@/lib/server/db';
 import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDocking } from '@/lib/server/services/planner/dockings';
-import { addRenewal } from '@/lib/server/services/planner/renewals';
-import { anodeListCsvFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
+import { addRenewal, markRenewalFitted } from '@/lib/server/services/planner/renewals';
+import { anodeListCsvFor, anodeListFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
 
@@ -111,5 +111,54 @@ describe("a jetty's diving campaign list", () => {
     // TW-AS-1510: 1,500 mm long, Ø 190 mm (lib/cp built-in catalogue).
     expect(all).toContain('1500 × Ø190');
     expect(all).not.toMatch(/\byard\b|dry-dock|blast|paint/i);
+  });
+});
+
+describe("the engineer's position words on the list", () => {
+  // Texts a yard writes; the structured reading says them in other words ("Hull bottom", "Propeller and shaft").
+  const texts = ['Fr 60-90 P, bilge strakes, 1.0 m above keel', 'Stern frame and shaft brackets P/S, clear of propeller tips', 'Rudder stocks P and S'];
+  let dockingId: string;
+  let renewalIds: string[] = [];
+  beforeAll(async () => {
+    const created = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'List Words Tug', hullMaterial: 'steel', lengthBppM: 30, beamM: 9, draughtM: 3.5 }));
+    const ids = await runAs(ctx('engineer'), async (c) => {
+      const out: string[] = [];
+      for (const [i, positions] of texts.entries()) out.push((await createAnodeGroup(c, created.id, { label: `Words ${i + 1}`, anodeModelKey: 'builtin:TW-AW-4020', quantity: 4, installedOn: '2020-03-01', positions, meanCurrentA: 1 })).id);
+      return out;
+    });
+    const docking = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: created.id, kind: 'intermediate', plannedStart: '2027-06-07', yard: 'Saltmarsh Ship Repair' }));
+    await runAs(ctx('planner'), async (c) => {
+      for (const groupId of ids) renewalIds.push((await addRenewal(c, docking.id, { groupId, reason: 'forecast-depletion' })).id);
+    });
+    dockingId = docking.id;
+  }, 60_000);
+
+  it('prints each position in the CSV exactly as written', async () => {
+    const { csv } = await runAs(ctx('planner'), (c) => anodeListCsvFor(c, dockingId));
+    const rows = Papa.parse<string[]>(csv.trimEnd(), { newline: '\r\n' }).data;
+    const column = rows[0].indexOf('Positions');
+    expect(column).toBeGreaterThan(0);
+    expect(rows.slice(1).map((r) => r[column]).sort()).toEqual([...texts].sort());
+  });
+
+  it('prints the text as written in the PDF, with the structured reading after it as "Read as: …"', async () => {
+    const { pdf, list } = await runAs(ctx('planner'), (c) => anodeListPdf(c, dockingId));
+    const lines = list.zones.flatMap((z) => z.lines);
+    expect(lines.map((l) => l.positions).sort()).toEqual([...texts].sort());
+    const rudder = lines.find((l) => l.positions === 'Rudder stocks P and S')!;
+    expect(rudder.positionReadAs).toMatch(/^Rudder/);
+    const all = (await pdfPages(pdf)).map(textOf).join(' ');
+    expect(all).toContain('Stern frame and shaft brackets P/S, clear of propeller tips');
+    expect(all).toContain('Read as:');
+  });
+
+  it('draws a fitted renewal as new (full), never as used up', async () => {
+    await runAs(ctx('planner'), (c) => markRenewalFitted(c, renewalIds[0]!, { fittedOn: '2026-11-30' }));
+    const { list, drawing } = await runAs(ctx('planner'), (c) => anodeListFor(c, dockingId));
+    const fitted = list.zones.flatMap((z) => z.lines).find((l) => l.status === 'fitted')!;
+    const group = drawing!.groups.find((g) => g.label === fitted.groupLabel)!;
+    expect(group.remainingFraction).toBe(1);
+    const row = drawing!.rows.find((r) => r.label === fitted.groupLabel)!;
+    expect(row.remaining).toBe('100 % left');
   });
 });

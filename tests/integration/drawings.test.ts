@@ -160,9 +160,13 @@ describe('the anode list prints the drawing', () => {
       expect(page.width).toBeCloseTo(A4.height, 1);
       expect(textOf(page)).toContain(`page ${i + 1} of ${pages.length}`);
     });
-    // The list's positions column says the same structure in words.
+    // The list's positions column gives the engineer's text exactly as written (the yard works from it); the PDF
+    // adds the structured reading under it.
+    expect(last.length).toBeGreaterThan(0);
+    expect(pages.map(textOf).join(' ')).toContain('Read as: Frames 118–124, starboard, 1.2 m above keel');
     const { csv } = await runAs(ctx('planner'), (c) => anodeListCsvFor(c, docking.id));
-    expect(csv).toContain('"Frames 118–124, starboard, 1.2 m above keel"');
+    expect(csv).toContain('"frames 118 to 124 stbd, 1.2 m above keel"');
+    expect(csv).not.toContain('Frames 118–124');
   });
 });
 

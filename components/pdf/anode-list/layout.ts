@@ -115,7 +115,8 @@ export const lineCells = (l: AnodeListLine): string[] => [
   kgNumber(l.grossMassEachKg),
   kgNumber(l.netMassTotalKg),
   kgNumber(l.grossMassTotalKg),
-  l.positions ?? '–',
+  // The engineer's words as written; how they were read, when that adds anything, on a second line.
+  l.positions ? (l.positionReadAs ? `${l.positions}\nRead as: ${l.positionReadAs}` : l.positions) : '–',
   l.renewBy ? formatDateOnly(l.renewBy) : '–',
   statusWords(l.status),
 ];

@@ -101,7 +101,7 @@ describe('anode groups on the hull', () => {
 });
 
 describe('pile grid layout', () => {
-  const jettyTexts = ['B1-A to B6-D, one per pile at -4 m CD', 'B7-A to B12-D, one per pile at -4 m CD'].map(parsePosition);
+  const jettyTexts = ['B1-A to B6-D, one per pile at -4 m CD', 'B7-A to B12-D, one per pile at -4 m CD'].map((t) => parsePosition(t));
 
   it('takes entered rows and bents, or estimates them from the positions and the pile count', () => {
     expect(pileGridOf({ pileCount: 48, pileRows: 3, pileBents: 16 }, [])).toEqual({ rows: 3, bents: 16, source: 'entered' });

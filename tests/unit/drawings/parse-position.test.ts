@@ -32,6 +32,60 @@ const TABLE: [string, Partial<AnodePosition>][] = [
   ['see drawing 4410-220', { note: 'see drawing 4410-220' }],
 ];
 
+/*
+ * Texts the parser once misread (practitioner review): each with what it must say. A field the text gives twice
+ * with different values is left unknown and the whole text is the note; a level or range it cannot be sure of
+ * stays in the note. The asset kind is given where the review found hull words read on a structure or back.
+ */
+const MISREADS: [string, 'vessel' | 'structure' | undefined, Partial<AnodePosition>][] = [
+  // Decimal commas; a level next to a pile is not the end of a pile range.
+  ['1,2 m above keel', 'vessel', { heightAboveKeelM: 1.2, note: null }],
+  ['Pile B7 -2,0 m LAT', 'structure', { pileFrom: { bent: 7, row: 'B' }, pileTo: null, depthBelowDatumM: 2, datum: 'LAT', note: null }],
+  ['Pile B7 -2 m LAT', 'structure', { pileFrom: { bent: 7, row: 'B' }, pileTo: null, depthBelowDatumM: 2, datum: 'LAT', note: null }],
+  ['Fr 22-30 P, 0,8 m above keel', 'vessel', { frameFrom: 22, frameTo: 30, side: 'port', heightAboveKeelM: 0.8, note: null }],
+  // Two sides, places or frame ranges: never one picked by rule order.
+  ['Fr 22 S; Fr 40 P', 'vessel', { frameFrom: null, frameTo: null, side: null, note: 'Fr 22 S; Fr 40 P' }],
+  ['Fr 40 P, S', 'vessel', { frameFrom: 40, frameTo: 40, side: null, note: 'Fr 40 P, S' }],
+  ['sea chest stbd fwd and port aft', 'vessel', { place: 'sea-chest', side: null, end: null, note: 'sea chest stbd fwd and port aft' }],
+  ['Frames 118-124 port; sea chest starboard', 'vessel', { frameFrom: 118, frameTo: 124, place: 'sea-chest', side: null, note: 'Frames 118-124 port; sea chest starboard' }],
+  ['Fr 22-30 P; 1.2 m above keel', 'vessel', { frameFrom: 22, frameTo: 30, side: 'port', heightAboveKeelM: 1.2, note: null }],
+  // Datums: springs before plain low water; a bare level is ambiguous (depths below CD are written positive).
+  ['2 m below low water springs', 'structure', { depthBelowDatumM: 2, datum: 'MLWS', note: null }],
+  ['1.5 m below LWS', 'structure', { depthBelowDatumM: 1.5, datum: 'MLWS', note: null }],
+  ['bent 2 row A, -1 m MLWS', 'structure', { pileFrom: { bent: 2, row: 'A' }, depthBelowDatumM: 1, datum: 'MLWS', note: null }],
+  ['Fr 30-40 P, 1.2 m above keel; Fr 30-40 P, 1.4 m above keel', 'vessel', { frameFrom: 30, frameTo: 40, side: 'port', place: null, heightAboveKeelM: null, note: 'Fr 30-40 P, 1.2 m above keel; Fr 30-40 P, 1.4 m above keel' }],
+  ['Pile B7, 2.0 m LAT', 'structure', { pileFrom: { bent: 7, row: 'B' }, depthBelowDatumM: null, datum: null, note: '2.0 m LAT' }],
+  // Sides in lower case.
+  ['fr 22 s', 'vessel', { frameFrom: 22, frameTo: 22, side: 'starboard', note: null }],
+  ['FR 22-30 p', 'vessel', { frameFrom: 22, frameTo: 30, side: 'port', note: null }],
+  // The asset kind: hull words mean nothing on a structure, pile words nothing on a vessel.
+  ['Pile 22 S', 'structure', { side: null, note: 'Pile 22 S' }],
+  ['S end of jetty', 'structure', { side: null, note: 'S end of jetty' }],
+  ['Port Louis berth', 'structure', { side: null, note: 'Port Louis berth' }],
+  ['Bents 3-4 port side', 'vessel', { pileFrom: null, side: 'port', note: 'Bents 3-4' }],
+  // "aft of" says where the anodes are not; a frame range written with a slash.
+  ['aft of Fr 40', 'vessel', { frameFrom: null, end: null, note: 'aft of Fr 40' }],
+  ['Fr 118/124', 'vessel', { frameFrom: 118, frameTo: 124, note: null }],
+  // Ranges of piles: read whole or left in the note, never reduced to one pile or row.
+  ['B1-A to B6-D', 'structure', { pileFrom: { bent: 1, row: 'A' }, pileTo: { bent: 6, row: 'D' }, note: null }],
+  ['B1-A/B6-D', 'structure', { pileFrom: { bent: 1, row: 'A' }, pileTo: { bent: 6, row: 'D' }, note: null }],
+  ['Bent 1 row A to bent 6 row D', 'structure', { pileFrom: { bent: 1, row: 'A' }, pileTo: { bent: 6, row: 'D' }, note: null }],
+  ['Piles A1-A12 and B1-B12', 'structure', { pileFrom: null, pileTo: null, note: 'Piles A1-A12 and B1-B12' }],
+  // Depth ranges stay in the note.
+  ['-2 to -6 m CD', 'structure', { depthBelowDatumM: null, datum: null, note: '-2 to -6 m CD' }],
+  ['between -2 m and -6 m CD', 'structure', { depthBelowDatumM: null, datum: null, note: 'between -2 m and -6 m CD' }],
+  ['Piles C1 to C12, 2 to 6 m below CD', 'structure', { pileFrom: { bent: 1, row: 'C' }, pileTo: { bent: 12, row: 'C' }, depthBelowDatumM: null, datum: null, note: '2 to 6 m below CD' }],
+];
+
+describe('parsePosition reads the texts it once misread', () => {
+  it.each(MISREADS)('%s (%s)', (text, kind, expected) => {
+    const parsed = parsePosition(text, kind);
+    expect(parsed).toMatchObject(expected);
+    // Nothing written is lost: every word is in a field or in the note.
+    expect(anodePositionSchema.parse(parsed)).toEqual(parsed);
+  });
+});
+
 describe('parsePosition reads position texts into data and keeps the rest as a note', () => {
   it.each(TABLE)('%s', (text, expected) => {
     const parsed = parsePosition(text);
@@ -78,9 +132,10 @@ describe('formatPosition says a position in words', () => {
 describe('parsePosition loses nothing', () => {
   it('keeps a second frame range, side or place in the note instead of dropping it', () => {
     expect(parsePosition('Fr 20-130 P/S, 4 of them within Fr 8-43')).toMatchObject({ frameFrom: 20, frameTo: 130, side: 'both', note: '4 of them within Fr 8-43' });
-    expect(parsePosition('Fr 10-20 P, then S')).toMatchObject({ side: 'port', note: 'then S' });
-    // Parts are read in a fixed order (sea chest before rudder); the other part stays in the note.
-    expect(parsePosition('rudder, sea chest')).toMatchObject({ place: 'sea-chest', note: 'rudder' });
-    expect(parsePosition('Pile B7 -2 m LAT, pile C3 -4 m LAT')).toMatchObject({ pileFrom: { bent: 7, row: 'B' }, depthBelowDatumM: 2, note: 'pile C3 -4 m LAT' });
+    // Two different sides, places or piles: the field is left unknown (never one picked by rule order) and the
+    // note keeps the whole text as written.
+    expect(parsePosition('Fr 10-20 P, then S')).toMatchObject({ frameFrom: 10, frameTo: 20, side: null, note: 'Fr 10-20 P, then S' });
+    expect(parsePosition('rudder, sea chest')).toMatchObject({ place: null, note: 'rudder, sea chest' });
+    expect(parsePosition('Pile B7 -2 m LAT, pile C3 -4 m LAT')).toMatchObject({ pileFrom: null, pileTo: null, depthBelowDatumM: null, datum: null, note: 'Pile B7 -2 m LAT, pile C3 -4 m LAT' });
   });
 });

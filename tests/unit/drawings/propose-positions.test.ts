@@ -48,3 +48,79 @@ describe('placement proposal', () => {
     expect(immersed!.basis).toMatch(/common practice/);
   });
 });
+
+describe('placement proposal from estimated or missing particulars', () => {
+  it('says in the text and in the hint when the frames come from an estimated spacing', () => {
+    // No frame spacing entered: 0.002 × 96 + 0.48 = 0.672 m.
+    const [bottom, sides] = proposePositions({ kind: 'vessel', lengthBppM: 96, draughtM: 4.6, frameSpacingM: null }, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 22 },
+      { name: 'Sides', kind: 'boot-top-sides', count: 10 },
+    ]);
+    for (const p of [bottom!, sides!]) {
+      expect(p.text).toContain('frames from an estimated 0.67 m spacing: check the frame plan');
+      expect(p.basis).toMatch(/estimated 0\.67 m spacing.*check the frame plan/);
+      // The warning stays with the position as its note.
+      expect(p.position.note).toContain('frames from an estimated 0.67 m spacing');
+    }
+    // A spacing on record that is itself an estimate says so too; an entered one does not.
+    const [marked] = proposePositions({ ...ferry, frameSpacingSource: 'estimate' }, [{ name: 'Hull bottom', kind: 'hull-bottom', count: 22 }]);
+    expect(marked!.text).toContain('frames from an estimated 0.6 m spacing: check the frame plan');
+    const [entered] = proposePositions({ ...ferry, frameSpacingSource: 'entered' }, [{ name: 'Hull bottom', kind: 'hull-bottom', count: 22 }]);
+    expect(entered!.text).not.toContain('estimated');
+  });
+
+  it('proposes no piles when the grid is not known, nor on a sheet-pile wall or a pontoon', () => {
+    const zones = [{ name: 'Piles immersed', kind: 'pile-immersed', count: 24 }];
+    const cases = [
+      { asset: { kind: 'structure' as const, pileCount: 48, pileRows: null, pileBents: null }, basis: /pile grid is not known/ },
+      { asset: { kind: 'structure' as const, pileCount: 48, pileRows: 2, pileBents: 24, pileGridSource: 'estimate' as const }, basis: /pile grid is not known/ },
+      { asset: { kind: 'structure' as const, structureType: 'sheet-pile-wall', pileCount: null }, basis: /sheet-pile wall.*chainage/ },
+      { asset: { kind: 'structure' as const, structureType: 'pontoon', pileCount: null }, basis: /pontoon has no pile grid/ },
+    ];
+    for (const { asset, basis } of cases) {
+      const [p] = proposePositions(asset, zones);
+      expect(p!.text).toBe('');
+      expect(p!.position.pileFrom).toBeNull();
+      expect(p!.basis).toMatch(basis);
+    }
+  });
+});
+
+describe('placement proposal against the design basis (line 64)', () => {
+  it('puts 15-20 % of all the hull’s anodes at the stern and rudder, counting the rudder and stern-frame zones', () => {
+    // 40 anodes in all: 20 % is 8 at the stern; the rudder (2) and the stern frame (4) have 6, so 2 more in the bottom's aft quarter.
+    const out = proposePositions(ferry, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 30 },
+      { name: 'Rudder', kind: 'rudder', count: 2 },
+      { name: 'Propeller and shaft', kind: 'propeller-shaft', count: 4 },
+      { name: 'Sides', kind: 'boot-top-sides', count: 4 },
+    ]);
+    const bottom = out.find((p) => p.zone === 'Hull bottom')!;
+    expect(bottom.text).toMatch(/, 2 of them within Fr \d+-40(;|$)/); // aft quarter: 0.25 × 96 m / 0.6 m = frame 40
+    expect(bottom.basis).toMatch(/20 % of the hull's 40 anodes at the stern and rudder/);
+    // Enough at the stern already: none added to the bottom's aft part.
+    const [rich] = proposePositions(ferry, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 20 },
+      { name: 'Rudder', kind: 'rudder', count: 6 },
+    ]);
+    expect(rich!.text).not.toContain('of them within');
+  });
+
+  it('states the fuel-tank caution and marks the heights as assumptions', () => {
+    const [bottom, sides] = proposePositions(ferry, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 10 },
+      { name: 'Sides', kind: 'boot-top-sides', count: 10 },
+    ]);
+    for (const p of [bottom!, sides!]) {
+      expect(p.basis).toContain('Not over fuel tanks if the anodes are welded');
+      expect(p.basis).toContain('The height is an assumption (not in the design basis)');
+    }
+  });
+
+  it('makes up no frames for a zone of another kind', () => {
+    const [other] = proposePositions(ferry, [{ name: 'Bow doors', kind: 'other', count: 4 }]);
+    expect(other!.text).toBe('');
+    expect(other!.position.frameFrom).toBeNull();
+    expect(other!.basis).toMatch(/No position proposed/);
+  });
+});

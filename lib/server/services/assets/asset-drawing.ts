@@ -13,14 +13,14 @@ import type { GroupWithForecast } from '../forecast/group-forecasts';
 export const MAX_DRAWN_READINGS = 200;
 
 /** The groups as the drawing needs them: position as data and the forecast remaining fraction on the day. */
-export function drawnGroups(forecasts: readonly GroupWithForecast[], today: Date): DrawnGroup[] {
+export function drawnGroups(forecasts: readonly GroupWithForecast[], today: Date, kind?: 'vessel' | 'structure'): DrawnGroup[] {
   return forecasts.map((f) => {
     const surveyed = f.surveys.length ? f.surveys[f.surveys.length - 1]!.remainingFraction : null;
     return {
       id: f.group.id,
       label: f.group.label,
       quantity: f.group.quantity,
-      position: positionOf(f.group),
+      position: positionOf(f.group, kind),
       remainingFraction: f.forecast ? Math.max(0, Math.min(1, f.forecast.remainingFractionAt(today))) : surveyed,
     };
   });
@@ -52,7 +52,7 @@ export async function loadAssetDrawing(ctx: OrgContext, asset: Asset, forecasts:
     : [];
   const readings: DrawnReading[] = rows.flatMap((r) => {
     const words = readingWords(asset, r);
-    return words ? [{ location: r.location, position: parsePosition(r.location), words }] : [];
+    return words ? [{ location: r.location, position: parsePosition(r.location, asset.kind), words }] : [];
   });
-  return buildAssetDrawing(asset, drawnGroups(forecasts, today), readings);
+  return buildAssetDrawing(asset, drawnGroups(forecasts, today, asset.kind), readings);
 }

@@ -148,8 +148,16 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
   const proposed = proposePositions(asset, counts.map((c) => ({ name: c.surface.name, kind: c.surface.kind, count: c.count })));
   const positionText = (zoneName: string): string | null => {
     const kept = edited.find((e) => e.zone === zoneName);
-    return kept ? kept.text : (proposed.find((p) => p.zone === zoneName)?.text ?? null);
+    return kept ? kept.text : proposed.find((p) => p.zone === zoneName)?.text || null;
   };
+  // Every zone's position is read before anything is written: one that cannot be stored refuses the fit whole, with
+  // the message on that zone's position field.
+  const positionsToStore = new Map(
+    counts.map(({ surface }) => {
+      const at = edited.findIndex((e) => e.zone === surface.name);
+      return [surface.name, storedPosition(positionText(surface.name), asset.kind, at >= 0 ? `position-${at}` : 'positions')] as const;
+    }),
+  );
   for (const { surface, count } of counts) {
     let zone = zoneNamed(surface.name);
     if (!zone) {
@@ -184,7 +192,7 @@ export async function fitDesign(ctx: OrgContext, designId: string, input: unknow
       model,
       quantity: count,
       positions: positionText(surface.name),
-      position: storedPosition(positionText(surface.name)),
+      ...positionsToStore.get(surface.name)!,
       installedOn: data.fittedOn,
       design,
       meanCurrentA: shareOfDesignCurrent(results, surface.name, count),

@@ -63,8 +63,8 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   // The groups are in the identity map already (listDockingRenewals populates them); their snapshots carry the catalogue key.
   const groups = live.length ? await ctx.em.find(AnodeGroupSchema, { id: { $in: live.map((r) => r.groupId) }, organisation: ctx.organisation }) : [];
   const modelKey = new Map(groups.map((g) => [g.id, g.model.key]));
-  // Positions in the words of their structure (the drawing's list says the same), the text when nothing was read from it.
-  const positionOfGroup = new Map(groups.map((g) => [g.id, positionOf(g)]));
+  // The yard works from the engineer's own words; the structured reading (what the drawing shows) follows as "Read as: …".
+  const positionOfGroup = new Map(groups.map((g) => [g.id, positionOf(g, a.kind)]));
   const positionWords = new Map(groups.map((g) => [g.id, formatPosition(positionOfGroup.get(g.id)!)]));
   const dimensions = await dimensionsByKey(ctx, groups.map((g) => g.model.key));
   const input: AnodeListInput = {
@@ -81,7 +81,8 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
       netMassKg: r.netMassKg,
       grossMassKg: r.grossMassKg,
       dimensions: dimensions.get(modelKey.get(r.groupId) ?? '') ?? null,
-      positions: positionWords.get(r.groupId) ?? r.positions,
+      positions: r.positions,
+      positionReadAs: r.positions ? (positionWords.get(r.groupId) ?? null) : null,
       reason: inSentence(RENEWAL_REASON_LABELS[r.reason] ?? 'Other'),
       status: r.status,
       renewBy: r.status === 'fitted' ? null : (renewBy.get(r.groupId) ?? null),
@@ -97,8 +98,10 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
   const drawn = buildAssetDrawing(
     a,
     live.map((r) => {
+      // A fitted renewal is a new anode: full. A line without a forecast is drawn as "not known", never as used up.
       const forecast = r.status === 'fitted' ? null : forecastOf.get(r.groupId);
-      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }), remainingFraction: forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null };
+      const remainingFraction = r.status === 'fitted' ? 1 : forecast ? Math.max(0, Math.min(1, forecast.remainingFractionAt(atDocking))) : null;
+      return { id: r.groupId, label: r.groupLabel, quantity: r.quantity, position: positionOfGroup.get(r.groupId) ?? positionOf({ positions: r.positions }, a.kind), remainingFraction };
     }),
     [],
   );

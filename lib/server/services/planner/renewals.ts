@@ -91,6 +91,7 @@ export async function markRenewalFitted(ctx: OrgContext, renewalId: string, inpu
     quantity: r.quantity,
     positions: old.positions ?? null,
     position: old.position ?? null,
+    positionParserVersion: old.positionParserVersion ?? null,
     installedOn: fittedOn,
     design: old.design ?? null,
     meanCurrentA: old.meanCurrentA !== null && old.meanCurrentA !== undefined ? (old.meanCurrentA * r.quantity) / old.quantity : null,

@@ -54,6 +54,8 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
   const design = data.designId ? await ctx.em.findOne(DesignSchema, { id: data.designId, asset }) : null;
   if (data.designId && !design) throw new AppError('invalid', 'That design is not for this asset.', { designId: ['Choose a design of this asset.'] });
   // Groups are added to one asset one request at a time, so two at the same moment cannot both find the label free.
+  // A position that cannot be stored refuses the write before anything is written.
+  const position = storedPosition(data.positions, asset.kind);
   await lockRow(ctx.em, 'asset', asset.id);
   await assertLabelFree(ctx, asset.id, data.label);
   const model = await resolveAnodeModel(ctx, data.anodeModelKey);
@@ -66,7 +68,7 @@ export async function createAnodeGroup(ctx: OrgContext, assetId: string, input: 
     model: modelSnapshot(model),
     quantity: data.quantity,
     positions: data.positions,
-    position: storedPosition(data.positions),
+    ...position,
     installedOn: data.installedOn,
     design,
     meanCurrentA,
@@ -101,7 +103,7 @@ export async function updateAnodeGroup(ctx: OrgContext, groupId: string, input: 
   const before = { label: group.label, zone: group.zone?.id ?? null, model: group.model.designation, quantity: group.quantity, positions: group.positions ?? null, installedOn: group.installedOn, meanCurrentA: group.meanCurrentA ?? null, notes: group.notes ?? null };
   const changes = Object.fromEntries(Object.entries(next).filter(([k, v]) => before[k as keyof typeof before] !== v).map(([k, v]) => [k, [before[k as keyof typeof before], v]])) as Record<string, [unknown, unknown]>;
   if (!Object.keys(changes).length) return group;
-  ctx.em.assign(group, { label: data.label, zone, model, quantity: data.quantity, positions: data.positions, position: storedPosition(data.positions), installedOn: data.installedOn, meanCurrentA: next.meanCurrentA, notes: data.notes });
+  ctx.em.assign(group, { label: data.label, zone, model, quantity: data.quantity, positions: data.positions, ...storedPosition(data.positions, group.asset.kind), installedOn: data.installedOn, meanCurrentA: next.meanCurrentA, notes: data.notes });
   ctx.em.create(AnodeGroupChangeSchema, { group, changedByEmail: ctx.user.email, changes });
   audit(ctx, { action: 'anode-group.updated', targetType: 'anode-group', targetId: group.id, details: { asset: group.asset.name, label: group.label, fields: Object.keys(changes).join(', ') } });
   ctx.effects.assetChanged(group.asset.id);

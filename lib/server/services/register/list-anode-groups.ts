@@ -127,6 +127,6 @@ export async function exportAnodeRegisterCsv(ctx: OrgContext) {
   const { rows } = await listAnodeGroups(ctx, { page: 1, pageSize: 1_000_000, dir: 'asc', archived: '0' } as ListQuery);
   return writeCsv([
     [...REGISTER_CSV_HEADERS],
-    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction === null ? null : Math.round(r.lastRemainingFraction * 1000) / 10, r.lastSurveyedOn, ...positionCells(positionOf({ positions: r.positions }))]),
+    ...rows.map((r) => [r.assetName, ASSET_KIND_LABELS[r.assetKind] ?? 'Asset', r.zoneName, r.label, r.model.designation, ALLOY_LABELS[r.model.alloy] ?? 'Other alloy', MOUNTING_LABELS[r.model.mounting] ?? 'Other mounting', r.quantity, r.model.netMassKg, r.model.grossMassKg, (r.quantity * r.model.netMassKg).toFixed(1), r.positions, r.installedOn, r.lastRemainingFraction === null ? null : Math.round(r.lastRemainingFraction * 1000) / 10, r.lastSurveyedOn, ...positionCells(positionOf({ positions: r.positions }, r.assetKind === 'structure' ? 'structure' : 'vessel'))]),
   ]);
 }

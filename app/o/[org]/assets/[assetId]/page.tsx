@@ -216,6 +216,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                   <AnodeGroupForm
                     org={org}
                     assetId={asset.id}
+                    assetKind={asset.kind}
                     zones={zoneChoices}
                     models={modelChoices}
                     designs={designs.map((d) => ({ id: d.id, label: `Rev. ${d.revision} (${STATUS_LABELS[d.status]})` }))}
@@ -228,6 +229,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
                     <AnodeGroupForm
                       org={org}
                       assetId={asset.id}
+                      assetKind={asset.kind}
                       zones={zoneChoices}
                       models={modelChoices}
                       designs={[]}

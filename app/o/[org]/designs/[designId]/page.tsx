@@ -94,6 +94,7 @@ export default async function DesignPage({ params }: { params: Promise<{ org: st
               dockings={dockings.map((d) => ({ value: d.id, label: `${dockingKindWords(d.kind)} from ${formatDateOnly(d.plannedStart)}${d.yard ? ` · ${d.yard}` : ''}` }))}
               can={canFit}
               proposals={proposals}
+              assetKind={asset.kind}
             />
           </Panel>
         </div>
