@@ -16,7 +16,10 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
     <div className="relative flex flex-col gap-3" data-drawing={d.kind}>
       <PatternDefs />
       {d.views.map((view) => (
-        <DrawingSvg key={view.id} view={view} idPrefix={`drawing-${view.id}`} describedBy={listId} className="w-full rounded-[3px] border border-rule bg-white" />
+        // On a phone the drawing keeps a legible size and scrolls sideways rather than shrinking to the screen.
+        <div key={view.id} role="region" aria-label={`${view.title}: scrolls sideways on a narrow screen`} tabIndex={0} className="max-w-full overflow-x-auto">
+          <DrawingSvg view={view} idPrefix={`drawing-${view.id}`} describedBy={listId} className="w-full min-w-[40rem] rounded-[3px] border border-rule bg-white" />
+        </div>
       ))}
       {d.kind === 'piles' && d.grid ? <PileElevation grid={d.grid} groups={d.groups} readings={d.readings} /> : null}
       <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Key to the drawing">
@@ -37,7 +40,7 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
               <th className="py-1 text-left font-medium">Group</th>
               <th className="py-1 text-left font-medium">Where</th>
               <th className="py-1 text-right font-medium">Anodes</th>
-              <th className="py-1 pl-3 text-left font-medium">Left today</th>
+              <th className="py-1 pl-3 pr-3 text-left font-medium">Left today</th>
               <th className="py-1 text-left font-medium">Latest readings</th>
             </tr>
           </thead>
@@ -51,7 +54,7 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
                   {!r.drawn ? <span className="block text-xs text-ink-soft">Not on the drawing: the position names no {d.kind === 'hull' ? 'frames or part of the hull' : 'pile, bent or row'}.</span> : null}
                 </td>
                 <td className="num py-1">{r.count}</td>
-                <td className="py-1 pl-3">{r.remaining}</td>
+                <td className="whitespace-nowrap py-1 pl-3 pr-3">{r.remaining}</td>
                 <td className="py-1 text-xs">{r.readings ?? '—'}</td>
               </tr>
             ))}

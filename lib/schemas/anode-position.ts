@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { multilineText } from './text';
+import { multilineText, text } from './text';
 
 /*
  * Where an anode group sits, as data: on a hull by frames, side, height above the keel and the part of the hull;
@@ -28,7 +28,7 @@ export const pileRefSchema = z.object({
   /** Bent (the line of piles across the structure), numbered from 1. */
   bent: z.number().int().min(1).max(999).nullable(),
   /** Row (the line of piles along the structure), a letter. */
-  row: z.string().regex(/^[A-Z]{1,2}$/).nullable(),
+  row: text().regex(/^[A-Z]{1,2}$/).nullable(),
 });
 export type PileRef = z.infer<typeof pileRefSchema>;
 

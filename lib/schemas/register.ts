@@ -79,7 +79,7 @@ export const ATTACHMENT_CONTENT_TYPES = ['image/jpeg', 'image/png', 'application
  * device that sends it; the same id later is the same upload (the same object key, a fresh link).
  */
 export const attachmentUploadRequestSchema = z.object({
-  deviceId: z.string({ error: 'The upload needs the id of the item on your device.' }).regex(/^[A-Za-z0-9_-]{8,64}$/, 'The device item id must be 8 to 64 letters, digits, "-" or "_".'),
+  deviceId: text({ error: 'The upload needs the id of the item on your device.' }).regex(/^[A-Za-z0-9_-]{8,64}$/, 'The device item id must be 8 to 64 letters, digits, "-" or "_".'),
   filename: text().trim().min(1, 'The file needs a name.').max(200, 'The file name must be at most 200 characters.'),
   contentType: z.enum(ATTACHMENT_CONTENT_TYPES, { error: 'Only JPEG and PNG photos and PDF reports can be attached.' }),
   sizeBytes: z
