@@ -196,20 +196,18 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     if (navigator.onLine) void send('auto');
   };
 
-  /** One save at a time: a second tap while the first is being kept on the phone does nothing. */
-  const onceAtATime = (save: () => Promise<void>) => async (event: React.FormEvent) => {
+  async function saveReading(event: React.FormEvent) {
     event.preventDefault();
     if (saving.current || !loaded) return;
     saving.current = true;
     setBusy(true);
     try {
-      await save();
+      await saveReadingNow();
     } finally {
       saving.current = false;
       setBusy(false);
     }
-  };
-  const saveReading = onceAtATime(() => saveReadingNow());
+  }
 
   async function saveReadingNow() {
     const readingElectrode = editing && editElectrode ? editElectrode : electrode;
@@ -267,7 +265,18 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     queued();
   }
 
-  const savePhoto = onceAtATime(() => savePhotoNow());
+  async function savePhoto(event: React.FormEvent) {
+    event.preventDefault();
+    if (saving.current || !loaded) return;
+    saving.current = true;
+    setBusy(true);
+    try {
+      await savePhotoNow();
+    } finally {
+      saving.current = false;
+      setBusy(false);
+    }
+  }
 
   async function savePhotoNow() {
     const file = photoInput.current?.files?.[0];
