@@ -44,7 +44,7 @@ test.describe('offline capture at 390 x 844', () => {
 
   test('the survey page opens without signal; five readings and two photos wait, then reach the server once each', async ({ page, context }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-21', 'Offline pontoon check');
+    const surveyPath = await newSurvey(page, '2026-10-21', 'Offline pontoon check');
     // The service worker has kept this page (it says so on <html>) before the signal goes.
     await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
     const heading = await page.getByRole('heading', { level: 1 }).textContent();
@@ -111,7 +111,7 @@ test.describe('a cut connection mid-send', () => {
 
   test('the answer lost on the way back: the reading waits, is sent again and recorded once', async ({ page }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-22', 'Cut connection check');
+    const surveyPath = await newSurvey(page, '2026-10-22', 'Cut connection check');
     let cut = 0;
     // The first capture request reaches the server, which records the reading; its answer never arrives.
     await page.route('**/capture', async (route) => {
@@ -137,7 +137,7 @@ test.describe('a cut connection mid-send', () => {
 
   test('the app closed while sending: the reading is sent on the next open and recorded once', async ({ page }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-23', 'Restart check');
+    const surveyPath = await newSurvey(page, '2026-10-23', 'Restart check');
     let release!: () => void;
     const held = new Promise<void>((resolve) => (release = resolve));
     let calls = 0;
@@ -164,12 +164,13 @@ test.describe('signing out on a shared phone', () => {
 
   test('asks before deleting unsent items, then leaves no cached survey page and no queue behind', async ({ page }) => {
     await signIn(page, demoUser('inspector').email);
-    await newSurvey(page, '2026-11-18', 'Sign-out check');
+    await newSurvey(page, '2026-10-18', 'Sign-out check');
     await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
     // Kept in this member's own cache (named with the member's id).
     expect((await page.evaluate(() => caches.keys())).filter((name) => /^tidewarden-survey-pages:.+/.test(name))).toHaveLength(1);
-    // The capture request never gets through: the reading stays on the phone.
-    await page.route('**/capture', (route) => route.abort('internetdisconnected'));
+    // The capture request never gets through, whoever sends it: the reading stays on the phone. (The browser
+    // context's route also stops the service worker's own Background Sync send, which the page's would not.)
+    await page.context().route('**/capture', (route) => route.abort('internetdisconnected'));
     await saveReading(page, { location: 'Bollard 3', potential: '-0.94' });
     await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
 
@@ -207,7 +208,7 @@ test.describe('one phone, two members', () => {
 
   test("a tab left open from one member's session never records that member's readings under another member's session", async ({ page, context }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-24', 'Shared phone check');
+    const surveyPath = await newSurvey(page, '2026-10-24', 'Shared phone check');
     await page.route('**/capture', (route) => route.abort('internetdisconnected'));
     await saveReading(page, { location: 'Mooring 1', potential: '-0.95' });
     await expect(status(page)).toContainText('Saved on this phone — 1 waiting to send');
@@ -241,7 +242,7 @@ test.describe('one phone, two members', () => {
 
   test('a double tap saves one reading and one photo; a reading the phone could not store is said to be NOT saved', async ({ page }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-25', 'Double tap check');
+    const surveyPath = await newSurvey(page, '2026-10-25', 'Double tap check');
     // Before the page has started, Save does nothing: the server's HTML has it disabled.
     const html = await (await page.request.get(surveyPath)).text();
     const buttons = html.match(/<button[^>]*>(?:(?!<\/button>)[\s\S])*<\/button>/g) ?? [];
@@ -293,7 +294,7 @@ test.describe('cached survey pages on a shared phone', () => {
 
   test("one member's kept survey page is never served to the next member, and is deleted when they sign in", async ({ page, context }) => {
     await signIn(page, demoUser('inspector').email);
-    const surveyPath = await newSurvey(page, '2026-11-26', 'Kept page check');
+    const surveyPath = await newSurvey(page, '2026-10-26', 'Kept page check');
     await expect(page.locator('html')).toHaveAttribute('data-offline-ready', 'true', { timeout: 30_000 });
     const kept = (await page.evaluate(() => caches.keys())).filter((name) => name.startsWith('tidewarden-survey-pages:'));
     expect(kept).toHaveLength(1);
