@@ -196,18 +196,20 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     if (navigator.onLine) void send('auto');
   };
 
-  async function saveReading(event: React.FormEvent) {
+  /** One save at a time: a second tap while the first is being kept on the phone does nothing. */
+  const onceAtATime = (save: () => Promise<void>) => async (event: React.FormEvent) => {
     event.preventDefault();
     if (saving.current || !loaded) return;
     saving.current = true;
     setBusy(true);
     try {
-      await saveReadingNow();
+      await save();
     } finally {
       saving.current = false;
       setBusy(false);
     }
-  }
+  };
+  const saveReading = onceAtATime(() => saveReadingNow());
 
   async function saveReadingNow() {
     const readingElectrode = editing && editElectrode ? editElectrode : electrode;
@@ -265,18 +267,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     queued();
   }
 
-  async function savePhoto(event: React.FormEvent) {
-    event.preventDefault();
-    if (saving.current || !loaded) return;
-    saving.current = true;
-    setBusy(true);
-    try {
-      await savePhotoNow();
-    } finally {
-      saving.current = false;
-      setBusy(false);
-    }
-  }
+  const savePhoto = onceAtATime(() => savePhotoNow());
 
   async function savePhotoNow() {
     const file = photoInput.current?.files?.[0];
