@@ -15,6 +15,7 @@ import { Migration20261204500000_worker_heartbeat } from './Migration20261204500
 import { Migration20261204600000_survey_corrections } from './Migration20261204600000_survey_corrections';
 import { Migration20261206600000_attachment_undo } from './Migration20261206600000_attachment_undo';
 import { Migration20261214000000_structured_positions } from './Migration20261214000000_structured_positions';
+import { Migration20261218000000_reading_device_ids_kept } from './Migration20261218000000_reading_device_ids_kept';
 import { Migration20261216000000_position_parser_version } from './Migration20261216000000_position_parser_version';
 import { Migration20261210000000_asset_outlook } from './Migration20261210000000_asset_outlook';
 import { Migration20261211000000_object_storage } from './Migration20261211000000_object_storage';
@@ -42,4 +43,5 @@ export const migrationsList: MigrationObject[] = [
   { name: 'Migration20261212000000_capture_device_id', class: Migration20261212000000_capture_device_id },
   { name: 'Migration20261214000000_structured_positions', class: Migration20261214000000_structured_positions },
   { name: 'Migration20261216000000_position_parser_version', class: Migration20261216000000_position_parser_version },
+  { name: 'Migration20261218000000_reading_device_ids_kept', class: Migration20261218000000_reading_device_ids_kept },
 ];

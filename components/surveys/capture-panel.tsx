@@ -405,7 +405,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
       <form onSubmit={savePhoto} noValidate aria-label="Capture a photo" className="flex flex-col gap-3 border-t border-rule pt-3">
         <label className="flex flex-col gap-1 text-xs font-medium text-ink-soft">
           Photo
-          <input ref={photoInput} type="file" name="photo" accept={PHOTO_TYPES.join(',')} capture="environment" className="min-h-11 max-w-full text-sm text-ink" onChange={() => setPhotoError(null)} />
+          <input ref={photoInput} type="file" name="photo" accept={PHOTO_TYPES.join(',')} capture="environment" className="min-h-11 max-w-full text-sm text-ink file:mr-3 file:min-h-11 file:cursor-pointer file:rounded-[3px] file:border file:border-solid file:border-tide-600 file:bg-paper file:px-4 file:text-sm file:font-medium file:text-tide-700" onChange={() => setPhotoError(null)} />
         </label>
         <Field label="What the photo shows" name="photoCaption" value={caption} onChange={(e) => setCaption(e.target.value)} />
         {photoError ? <p role="alert" className="text-sm text-state-action">{photoError}</p> : null}

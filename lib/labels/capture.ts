@@ -37,6 +37,7 @@ export const CAPTURE_CONFLICT_MESSAGES = {
   groupNotOnAsset: 'That anode group is not fitted to the asset of this survey. Choose one of its groups, or none, and send again.',
   notAllowed: 'Your role in this organisation no longer allows recording readings. Ask an owner, or discard the item.',
   otherMember: 'Captured by another member on this phone; sign in as them to send.',
+  deletedSince: 'Received earlier and deleted on the desk since; not recorded again.',
 } as const;
 
 /** "Saved on this phone — 3 waiting to send", "Everything is sent": the count the status region reads out. */

@@ -8,6 +8,7 @@ import { createAsset } from '@/lib/server/services/assets/create-asset';
 import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createSurvey } from '@/lib/server/services/surveys/create-survey';
 import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
+import { deleteReading, restoreReading } from '@/lib/server/services/surveys/correct-readings';
 import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
@@ -68,6 +69,28 @@ describe('POST /api/orgs/[org]/surveys/[surveyId]/capture', () => {
     expect(again.body.results.map((r: { status: string }) => r.status)).toEqual(['duplicate', 'duplicate', 'duplicate']);
     expect(again.body.results.map((r: { readingId: string }) => r.readingId)).toEqual(first.body.results.filter((_: unknown, i: number) => i !== 2).map((r: { readingId: string }) => r.readingId));
     expect(await readingsOf(survey.id)).toHaveLength(3);
+  });
+
+  it('a reading deleted on the desk does not come back when the phone resends it after a lost answer; undone, it answers duplicate again', async () => {
+    const survey = await newSurvey();
+    await signInAs(org.users.inspector);
+    const a = reading('Pile C3');
+    const first = await send(survey.id, { items: [a] });
+    expect(first.body.results[0].status).toBe('recorded');
+    const readingId = first.body.results[0].readingId as string;
+    await as('engineer', (c) => deleteReading(c, survey.id, readingId));
+    expect(await readingsOf(survey.id)).toHaveLength(0);
+
+    const resent = await send(survey.id, { items: [a] });
+    expect(resent.status).toBe(200);
+    expect(resent.body.results[0]).toMatchObject({ deviceId: a.deviceId, status: 'duplicate', message: CAPTURE_CONFLICT_MESSAGES.deletedSince });
+    expect(await readingsOf(survey.id)).toHaveLength(0);
+
+    // The desk's undo puts the same reading back (same id and device id): a resend names it again.
+    await as('engineer', (c) => restoreReading(c, survey.id, readingId));
+    const afterUndo = await send(survey.id, { items: [a] });
+    expect(afterUndo.body.results[0]).toMatchObject({ status: 'duplicate', readingId });
+    expect(await readingsOf(survey.id)).toHaveLength(1);
   });
 
   it('two identical batches at the same moment record each reading once', async () => {

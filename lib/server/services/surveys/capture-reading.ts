@@ -15,7 +15,8 @@ import { describeReading, lockSurvey, underProtectionWords } from './reading-ale
  * whatever the retries. An item already recorded is answered at once; otherwise the permission is checked and
  * the survey locked, so two sends of the same item at the same moment take turns and the second finds the
  * first's reading (`duplicate`, with its id); the unique index on
- * (survey_id, device_id) holds the same rule in the database. The reading goes through `addReadings`
+ * (survey_id, device_id) holds the same rule in the database, and `used_device_id` keeps the id after the reading is
+ * deleted, so a late resend does not bring a deleted reading back. The reading goes through `addReadings`
  * (conversion to Ag/AgCl/seawater, classification, the under-protection alert once per survey).
  *
  * An item already recorded is answered `duplicate` before anything else is checked, so a phone that lost
@@ -35,6 +36,7 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   // Already recorded: answered without a lock or a permission check (a reading is safe whatever changed since).
   const earlier = await findExisting();
   if (earlier) return duplicate(earlier);
+  if (await deviceIdUsed(ctx, deviceId)) return deletedSince(deviceId);
 
   // Only a member who may write takes the survey's lock (a viewer's queue never holds up the writers).
   requirePermission(ctx, 'survey:write');
@@ -42,6 +44,7 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   // A send of the same item that held the lock first has recorded it meanwhile.
   const existing = await findExisting();
   if (existing) return duplicate(existing);
+  if (await deviceIdUsed(ctx, deviceId)) return deletedSince(deviceId);
   if (survey.asset.archivedAt) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.assetArchived);
   const reading = captureReadingSchema(surveyElectrodeOf(survey)).parse(item);
   let groupLabel: string | null = null;
@@ -54,11 +57,28 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   const { under, mailed, readings } = await addReadings(ctx, survey, [{ ...reading, anodeGroupLabel: groupLabel, line: null }]);
   const [created] = readings;
   created.deviceId = reading.deviceId;
+  // Kept for good, as for photos: a reading deleted on the desk is never recorded again by a late resend.
+  await ctx.em.execute('insert into used_device_id (organisation_id, device_id, used_at) values (?, ?, now()) on conflict do nothing', [ctx.organisation.id, reading.deviceId]);
   audit(ctx, { action: 'survey.reading-added', targetType: 'survey', targetId: survey.id, details: { readingId: created.id, location: created.location, deviceId: reading.deviceId } });
   ctx.effects.assetChanged(survey.asset.id);
   ctx.effects.revalidate(`/o/${ctx.organisation.slug}/surveys/${survey.id}`);
   const saved = `Recorded at ${created.location}: ${describeReading(survey, created)}.`;
   return { deviceId, status: 'recorded', readingId: created.id, message: under ? `${saved} It is under-protected; ${underProtectionWords({ under, mailed })}.` : saved };
+}
+
+/** Whether this organisation ever recorded an item under this device id (a reading or a photo, deleted since or not). */
+async function deviceIdUsed(ctx: OrgContext, deviceId: string): Promise<boolean> {
+  if (!isUuid(deviceId)) return false;
+  const rows = await ctx.em.execute<{ device_id: string }[]>('select device_id from used_device_id where organisation_id = ? and device_id = ?', [ctx.organisation.id, deviceId]);
+  return rows.length > 0;
+}
+
+/**
+ * A resend of a reading that was recorded and has been deleted on the desk since: answered as a duplicate (the phone
+ * drops it, its work was received) and not recorded again, so a deletion is never undone by a phone that lost an answer.
+ */
+function deletedSince(deviceId: string): CaptureItemResult {
+  return { deviceId, status: 'duplicate', message: CAPTURE_CONFLICT_MESSAGES.deletedSince };
 }
 
 /**
