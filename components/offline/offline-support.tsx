@@ -10,7 +10,7 @@ const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
 /**
  * Registers the service worker (lib/offline/service-worker.ts) inside an organisation, names the member signed
  * in (only their capture queue is sent and their cached pages served; other members' cached pages are
- * deleted), and asks the worker to keep the survey page just opened, so it opens again without signal; `data-offline-ready` on <html> says it has been kept.
+ * deleted), and asks the worker to keep the survey page just opened and its organisation's survey list, so it opens again without signal; `data-offline-ready` on <html> says it has been kept.
  */
 export function OfflineSupport({ userId }: { userId: string }) {
   const pathname = usePathname();
@@ -34,7 +34,11 @@ export function OfflineSupport({ userId }: { userId: string }) {
       if (!worker || !live) return;
       const channel = new MessageChannel();
       const kept = new Promise<void>((resolve) => (channel.port1.onmessage = () => resolve()));
-      worker.postMessage({ type: 'CACHE_URLS', payload: { urlsToCache: [window.location.href] } }, [channel.port2]);
+      // With the survey list of the organisation, so the way back to it opens offline too (a list first opened
+      // before the worker was running was not kept).
+      const list = new URL(window.location.href.replace(/(\/o\/[^/]+\/surveys)(?:\/.*)?$/, '$1')).href;
+      const urlsToCache = [...new Set([window.location.href, list])];
+      worker.postMessage({ type: 'CACHE_URLS', payload: { urlsToCache } }, [channel.port2]);
       await kept;
       if (live) root.setAttribute('data-offline-ready', 'true');
     })();

@@ -7,7 +7,7 @@
  * `conflict`: refused for a reason that can pass (no permission now, the survey deleted and perhaps restored later,
  * captured by another member on this phone): the queue keeps the photo and offers to send it again.
  */
-export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean };
+export type UploadPhotoResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean; offline?: boolean };
 
 export interface UploadPhotoArgs {
   org: string;
@@ -105,6 +105,6 @@ export async function uploadSurveyPhoto(args: UploadPhotoArgs): Promise<UploadPh
     return { ok: false, retry: true, message: 'The upload link kept expiring before the file arrived; try again on a better connection.' };
   } catch (error) {
     if (args.signal?.aborted) return { ok: false, retry: true, message: 'The upload was cancelled; nothing was attached.' };
-    return { ok: false, retry: true, message: OFFLINE };
+    return { ok: false, retry: true, message: OFFLINE, offline: true };
   }
 }

@@ -129,10 +129,12 @@ export function batchFailureOf(status: number | null, message?: string | null): 
 /** An item whose request failed as a whole: it waits again, or needs the member when waiting cannot help. */
 export function applyBatchFailure(item: CaptureItem, failure: BatchFailure): CaptureItem {
   switch (failure.kind) {
+    // A try that never reached the server (no signal, the session ended) does not count towards the tries after
+    // which a reading can be discarded: a survey worked without signal must not fill with "Discard" buttons.
     case 'offline':
-      return { ...item, state: 'waiting', message: OFFLINE_MESSAGE };
+      return { ...item, state: 'waiting', message: OFFLINE_MESSAGE, attempts: notCounted(item) };
     case 'signed-out':
-      return { ...item, state: 'waiting', message: SIGNED_OUT_MESSAGE };
+      return { ...item, state: 'waiting', message: SIGNED_OUT_MESSAGE, attempts: notCounted(item) };
     case 'server':
       return { ...item, state: 'waiting', message: SERVER_MESSAGE };
     case 'not-member':
@@ -143,7 +145,12 @@ export function applyBatchFailure(item: CaptureItem, failure: BatchFailure): Cap
 }
 
 /** What an upload answers (lib/client/upload-photo.ts); `conflict` is read when the uploader gives it. */
-export type PhotoUploadResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean };
+export type PhotoUploadResult = { ok: true; attachmentId: string } | { ok: false; retry: boolean; message: string; conflict?: boolean; offline?: boolean };
+
+/** The attempts of an item whose last try (counted when it started) never reached the server. */
+function notCounted(item: CaptureItem): number {
+  return Math.max(0, item.attempts - 1);
+}
 
 /**
  * A photo after its upload: sent, waiting again (`retry`), a conflict the member can resolve and send again
@@ -152,7 +159,7 @@ export type PhotoUploadResult = { ok: true; attachmentId: string } | { ok: false
  */
 export function applyPhotoResult(item: CaptureItem, result: PhotoUploadResult): CaptureItem {
   if (result.ok) return { ...item, state: 'sent', message: 'Photo sent.', serverId: result.attachmentId };
-  if (result.retry) return { ...item, state: 'waiting', message: result.message };
+  if (result.retry) return { ...item, state: 'waiting', message: result.message, ...(result.offline ? { attempts: notCounted(item) } : {}) };
   const conflict = 'conflict' in result && result.conflict === true;
   return { ...item, state: conflict ? 'conflict' : 'failed', message: result.message };
 }

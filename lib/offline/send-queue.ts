@@ -100,7 +100,7 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
       sent += 1;
     } else {
       await putItem(next);
-      if (!result.ok && result.retry && result.message.startsWith('No connection')) offline = true;
+      if (!result.ok && result.offline) offline = true;
     }
   }
   const left = userId ? await itemsOf(userId) : await allItems();

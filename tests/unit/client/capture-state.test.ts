@@ -51,6 +51,16 @@ describe('the capture queue state machine', () => {
     expect(applyBatchFailure(photo(), batchFailureOf(413, 'Too large.'))).toMatchObject({ state: 'failed', message: 'Too large.' });
   });
 
+  it('a try that never reached the server does not count towards discarding; a server fault does', () => {
+    // The sender counts the try when it starts (attempts 3 -> 4); the answer decides whether it stands.
+    expect(applyBatchFailure(reading({ attempts: 4 }), batchFailureOf(null)).attempts).toBe(3);
+    expect(applyBatchFailure(reading({ attempts: 4 }), batchFailureOf(401)).attempts).toBe(3);
+    expect(applyBatchFailure(reading({ attempts: 4 }), batchFailureOf(503)).attempts).toBe(4);
+    expect(applyPhotoResult(photo({ attempts: 2 }), { ok: false, retry: true, message: 'No connection.', offline: true }).attempts).toBe(1);
+    expect(applyPhotoResult(photo({ attempts: 2 }), { ok: false, retry: true, message: 'Storage down.' }).attempts).toBe(2);
+    expect(applyBatchFailure(reading({ attempts: 0 }), batchFailureOf(null)).attempts).toBe(0);
+  });
+
   it('a photo waits when the upload can be tried again and is refused for good otherwise', () => {
     expect(applyPhotoResult(photo(), { ok: true, attachmentId: 'a1' })).toMatchObject({ state: 'sent', serverId: 'a1' });
     expect(applyPhotoResult(photo(), { ok: false, retry: true, message: 'No connection.' })).toMatchObject({ state: 'waiting', message: 'No connection.' });

@@ -23,6 +23,15 @@ const CASES: [previous: string, beforePrevious: string | null, expected: string]
   ['12', '10', '14'],
   ['Fr 22 P', 'Fr 22 P', 'Fr 23 P'],
   ['', null, ''],
+  // A walk along a row of piles at one depth: the pile moves on, the depth stays.
+  ['Pile B7 -2 m', 'Pile B6 -2 m', 'Pile B8 -2 m'],
+  // Down one pile, depth by depth: the depth moves on by its step.
+  ['Pile B7 -4 m', 'Pile B7 -2 m', 'Pile B7 -6 m'],
+  // A frame range moving along: both ends move on.
+  ['Fr 24-26 S', 'Fr 20-22 S', 'Fr 28-30 S'],
+  ['Fr 24-26 S', 'Fr 20-23 S', 'Fr 24-27 S'],
+  ['Fr 22 P 1.2 m', 'Fr 20 P 1.2 m', 'Fr 24 P 1.2 m'],
+  ['Pile B7 -2 m', null, 'Pile B7 -3 m'],
 ];
 
 describe('nextLocation', () => {
