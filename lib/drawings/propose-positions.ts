@@ -18,6 +18,12 @@ export const HULL_ANODE_SPACING_M = 6;
  * some 40-50 %). The rudder and stern-frame zones count towards it; the bottom makes up the rest in its aft quarter.
  */
 export const STERN_SHARE = 0.2;
+/** How the stern's share is made up: the rudder and stern-frame zones first, the bottom's aft quarter for the rest. */
+function sternWords(atStern: number, aft: number): string {
+  const zones = `the rudder and stern-frame zones hold ${atStern}`;
+  return aft > 0 ? `${zones}, and ${aft} of the bottom's go in its aft quarter to make it up` : `${zones}, enough without adding any of the bottom's at the stern`;
+}
+
 /** The aft part of the bottom that counts as "at the stern": its aft quarter. */
 export const STERN_REACH_L = 0.25;
 /** Design basis line 64: "not over fuel tanks if welded". */
@@ -103,7 +109,7 @@ function hullProposal(a: ProposalAsset, z: ProposalZone, zones: readonly Proposa
       const share = `${Math.round(STERN_SHARE * 100)} % of the hull's ${total} anodes at the stern and rudder (design basis, practice: 15-20 %; some say a third, some 40-50 %)`;
       return framed({
         text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
-        basis: `${spacingWords}; ${share}: the rudder and stern-frame zones have ${atStern}, the bottom's aft quarter ${aft}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
+        basis: `${spacingWords}; ${share}: ${sternWords(atStern, aft)}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
       });
     }
     default:

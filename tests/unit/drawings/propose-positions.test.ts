@@ -98,12 +98,14 @@ describe('placement proposal against the design basis (line 64)', () => {
     const bottom = out.find((p) => p.zone === 'Hull bottom')!;
     expect(bottom.text).toMatch(/, 2 of them within Fr \d+-40(;|$)/); // aft quarter: 0.25 × 96 m / 0.6 m = frame 40
     expect(bottom.basis).toMatch(/20 % of the hull's 40 anodes at the stern and rudder/);
+    expect(bottom.basis).toContain("the rudder and stern-frame zones hold 6, and 2 of the bottom's go in its aft quarter to make it up");
     // Enough at the stern already: none added to the bottom's aft part.
     const [rich] = proposePositions(ferry, [
       { name: 'Hull bottom', kind: 'hull-bottom', count: 20 },
       { name: 'Rudder', kind: 'rudder', count: 6 },
     ]);
     expect(rich!.text).not.toContain('of them within');
+    expect(rich!.basis).toContain("the rudder and stern-frame zones hold 6, enough without adding any of the bottom's at the stern");
   });
 
   it('states the fuel-tank caution and marks the heights as assumptions', () => {
