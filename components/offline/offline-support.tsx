@@ -1,5 +1,6 @@
 'use client';
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
+import { offlineCopyWords } from '@/lib/labels/capture';
 import { usePathname } from 'next/navigation';
 import { markSignedIn } from '@/lib/offline/sign-out';
 import { SignedInMark } from './signed-in-mark';
@@ -12,8 +13,21 @@ const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
  * in (only their capture queue is sent and their cached pages served; other members' cached pages are
  * deleted), and asks the worker to keep the survey page just opened and its organisation's survey list, so it opens again without signal; `data-offline-ready` on <html> says it has been kept.
  */
-export function OfflineSupport({ userId }: { userId: string }) {
+export function OfflineSupport({ userId, renderedAt }: { userId: string; renderedAt: string }) {
   const pathname = usePathname();
+  // Without signal the page says how old it is: a copy kept on the phone can be hours or days behind the desk.
+  // Read after hydration only (the server always renders it online).
+  const [offline, setOffline] = useState(false);
+  useEffect(() => {
+    const update = () => setOffline(!navigator.onLine);
+    update();
+    window.addEventListener('online', update);
+    window.addEventListener('offline', update);
+    return () => {
+      window.removeEventListener('online', update);
+      window.removeEventListener('offline', update);
+    };
+  }, []);
 
   useEffect(() => {
     if (!('serviceWorker' in navigator)) return;
@@ -47,5 +61,14 @@ export function OfflineSupport({ userId }: { userId: string }) {
     };
   }, [pathname, userId]);
 
-  return <SignedInMark userId={userId} />;
+  return (
+    <>
+      <SignedInMark userId={userId} />
+      {offline ? (
+        <p role="status" data-testid="offline-copy" className="no-print mb-4 rounded-[3px] border border-rule bg-paper px-4 py-2 text-sm text-ink">
+          {offlineCopyWords(new Date(renderedAt), SURVEY_PAGE.test(pathname))}
+        </p>
+      ) : null}
+    </>
+  );
 }

@@ -47,3 +47,15 @@ export function captureQueueSummary(waiting: number, needsYou: number): string {
   if (needsYou) parts.push(`${needsYou} need${needsYou === 1 ? 's' : ''} your attention`);
   return parts.length ? parts.join('; ') : 'Everything captured here is sent.';
 }
+
+/**
+ * The line a page shows without signal: how old what it shows is (the time the server made it, in the phone's
+ * own time), and on a survey page that capture still works.
+ */
+export function offlineCopyWords(renderedAt: Date, surveyPage: boolean): string {
+  // Intl rather than date-fns: this runs on every organisation page, and the scripts of the first load are counted.
+  const when = Number.isNaN(renderedAt.getTime()) ? 'at an unknown time' : 'on ' + new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', day: 'numeric', month: 'short', year: 'numeric' }).format(renderedAt);
+  return surveyPage
+    ? `No connection. This is the copy of the page kept on this phone ${when}; readings and photos you capture are saved here and sent when the connection returns.`
+    : `No connection. This page was loaded ${when}; what it shows may have changed since.`;
+}

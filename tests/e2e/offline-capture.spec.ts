@@ -55,6 +55,8 @@ test.describe('offline capture at 390 x 844', () => {
     await expect(page.getByRole('heading', { level: 1 })).toHaveText(heading!);
     expect(await page.evaluate(() => navigator.onLine)).toBe(false);
     await expect(status(page)).toContainText('Everything captured here is sent.');
+    // The copy says how old it is.
+    await expect(page.getByTestId('offline-copy')).toContainText('No connection. This is the copy of the page kept on this phone on ');
     // The way back to the survey list works offline too (it was opened before the worker ran: kept with the survey page).
     const list = await page.goto(org + '/surveys');
     expect(list?.fromServiceWorker(), 'the list came from the service worker').toBe(true);

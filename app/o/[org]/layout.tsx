@@ -41,7 +41,7 @@ export default async function OrgLayout({ children, params }: { children: React.
   const signOut = <SignOutForm action={signOutAction} buttonClassName="mt-1 text-left text-tide-300 hover:text-white hover:underline max-lg:min-h-11 max-lg:text-sm" />;
   return (
     <OrgShell organisationName={ctx.organisation.name} userName={ctx.user.name} roleLabel={ROLE_LABELS[ctx.role]} items={items} signOut={signOut} banner={banner}>
-      <OfflineSupport userId={ctx.user.id} />
+      <OfflineSupport userId={ctx.user.id} renderedAt={new Date().toISOString()} />
       {children}
     </OrgShell>
   );
