@@ -1,15 +1,19 @@
 'use client';
 import { useRef, useState } from 'react';
 import { clearOfflineData, unsentOnThisPhone } from '@/lib/offline/sign-out';
+import { SIGN_OUT_WORDS } from '@/lib/labels/capture';
 
 /**
  * The sign-out form: before the session ends it clears what the phone keeps for offline use (cached survey pages,
- * the capture queue). When captured items were never sent it says so and asks first; "Keep them" stays signed in.
+ * the capture queue). When captured items were never sent, or the phone's storage cannot be read, it says so and
+ * asks first; "Keep them" stays signed in. Without a connection it deletes nothing: the session could not end.
  */
 export function SignOutForm({ action, className, buttonClassName, children }: { action: () => Promise<void>; className?: string; buttonClassName: string; children?: React.ReactNode }) {
   const form = useRef<HTMLFormElement>(null);
   const cleared = useRef(false);
-  const [unsent, setUnsent] = useState(0);
+  // What stands between the click and the sign-out: items never sent (a count), storage that could not be read
+  // ('unknown'), or no connection ('offline': the session cannot be ended, so nothing is deleted either).
+  const [question, setQuestion] = useState<number | 'unknown' | 'offline' | null>(null);
 
   async function clearAndSubmit() {
     await clearOfflineData();
@@ -25,20 +29,29 @@ export function SignOutForm({ action, className, buttonClassName, children }: { 
       onSubmit={(event) => {
         if (cleared.current) return;
         event.preventDefault();
-        void unsentOnThisPhone().then((count) => (count ? setUnsent(count) : clearAndSubmit()));
+        if (typeof navigator !== 'undefined' && navigator.onLine === false) {
+          setQuestion('offline');
+          return;
+        }
+        void unsentOnThisPhone().then((count) => (count === null ? setQuestion('unknown') : count ? setQuestion(count) : clearAndSubmit()));
       }}
     >
       {children}
-      {unsent ? (
+      {question === 'offline' ? (
         <span role="alert" className="flex flex-col gap-1">
-          <span>
-            {unsent} captured item{unsent === 1 ? ' has' : 's have'} not been sent. Signing out deletes {unsent === 1 ? 'it' : 'them'} from this phone.
-          </span>
-          <button type="button" className={buttonClassName} onClick={() => void clearAndSubmit()}>
-            Delete and sign out
+          <span>{SIGN_OUT_WORDS.offline}</span>
+          <button type="button" className={buttonClassName} onClick={() => setQuestion(null)}>
+            {SIGN_OUT_WORDS.understood}
           </button>
-          <button type="button" className={buttonClassName} onClick={() => setUnsent(0)}>
-            Keep them and stay signed in
+        </span>
+      ) : question !== null ? (
+        <span role="alert" className="flex flex-col gap-1">
+          <span>{question === 'unknown' ? SIGN_OUT_WORDS.unknown : SIGN_OUT_WORDS.unsent(question)}</span>
+          <button type="button" className={buttonClassName} onClick={() => void clearAndSubmit()}>
+            {question === 'unknown' ? SIGN_OUT_WORDS.signOutAnyway : SIGN_OUT_WORDS.deleteAndSignOut}
+          </button>
+          <button type="button" className={buttonClassName} onClick={() => setQuestion(null)}>
+            {SIGN_OUT_WORDS.keep}
           </button>
         </span>
       ) : (

@@ -59,3 +59,14 @@ export function offlineCopyWords(renderedAt: Date, surveyPage: boolean): string 
     ? `No connection. This is the copy of the page kept on this phone ${when}; readings and photos you capture are saved here and sent when the connection returns.`
     : `No connection. This page was loaded ${when}; what it shows may have changed since.`;
 }
+
+/** The sign-out form's questions on a phone that keeps captured items (components/offline/sign-out-form.tsx). */
+export const SIGN_OUT_WORDS = {
+  unsent: (n: number) => `${n} captured item${n === 1 ? ' has' : 's have'} not been sent. Signing out deletes ${n === 1 ? 'it' : 'them'} from this phone.`,
+  unknown: 'This phone could not check whether captured items still wait to be sent. Signing out deletes any that do.',
+  offline: 'No connection: signing out needs the connection. Nothing was deleted and you are still signed in.',
+  deleteAndSignOut: 'Delete and sign out',
+  signOutAnyway: 'Sign out anyway',
+  keep: 'Keep them and stay signed in',
+  understood: 'Stay signed in',
+} as const;

@@ -2,12 +2,15 @@ import { CURRENT_USER_SETTING, isOtherMembersCache } from './cache-names';
 import { allItems, clearCaptureDb, putSetting } from './capture-db';
 import { isWaiting, needsYou } from './capture-state';
 
-/** How many captured items on this phone were never recorded (any member's): signing out would delete them. */
-export async function unsentOnThisPhone(): Promise<number> {
+/**
+ * How many captured items on this phone were never recorded (any member's): signing out would delete them. Null
+ * when the phone's storage could not be read: then nobody can say nothing waits, and the member is asked.
+ */
+export async function unsentOnThisPhone(): Promise<number | null> {
   try {
     return (await allItems()).filter((i) => isWaiting(i) || needsYou(i)).length;
   } catch {
-    return 0;
+    return null;
   }
 }
 

@@ -189,6 +189,15 @@ test.describe('signing out on a shared phone', () => {
     await expect(status(page)).toContainText('1 waiting to send');
     await expect(page).toHaveURL(/\/surveys\/[0-9a-f-]{36}$/);
 
+    // Without a connection the session cannot end: nothing is deleted, and the form says so.
+    await page.context().setOffline(true);
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await expect(page.getByRole('alert').filter({ hasText: 'No connection: signing out needs the connection. Nothing was deleted and you are still signed in.' })).toBeVisible();
+    await page.getByRole('button', { name: 'Stay signed in' }).click();
+    await expect(status(page)).toContainText('1 waiting to send');
+    expect((await page.evaluate(() => caches.keys())).filter((name) => /^tidewarden-survey-pages:.+/.test(name))).toHaveLength(1);
+    await page.context().setOffline(false);
+
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.getByRole('button', { name: 'Delete and sign out' }).click();
     await expect(page).toHaveURL(/\/sign-in/);

@@ -29,4 +29,17 @@ describe('the capture database', () => {
     await captureDb();
     expect(openDB).toHaveBeenCalledTimes(1);
   });
+
+  it('signing out never takes storage it cannot read as "nothing waits": the count is unknown (null), not 0', async () => {
+    openDB.mockRejectedValue(new DOMException('The database connection is closing.', 'InvalidStateError'));
+    const { unsentOnThisPhone } = await import('@/lib/offline/sign-out');
+    expect(await unsentOnThisPhone()).toBeNull();
+  });
+
+  it('counts the items still waiting or needing the member, not the sent ones', async () => {
+    const items = [{ state: 'waiting' }, { state: 'sending' }, { state: 'conflict' }, { state: 'sent' }];
+    openDB.mockResolvedValue({ getAll: vi.fn(async () => items) });
+    const { unsentOnThisPhone } = await import('@/lib/offline/sign-out');
+    expect(await unsentOnThisPhone()).toBe(3);
+  });
 });
