@@ -40,7 +40,7 @@ export function AssetDrawingPanel({ result, printLinks }: { result: AssetDrawing
               <th className="py-1 text-left font-medium">Group</th>
               <th className="py-1 text-left font-medium">Where</th>
               <th className="py-1 text-right font-medium">Anodes</th>
-              <th className="py-1 pl-3 pr-3 text-left font-medium">Left today</th>
+              <th className="py-1 pl-3 pr-3 text-left font-medium">Left today (forecast)</th>
               <th className="py-1 text-left font-medium">Latest readings</th>
             </tr>
           </thead>
