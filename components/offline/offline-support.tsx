@@ -1,11 +1,13 @@
 'use client';
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { offlineCopyWords } from '@/lib/labels/capture';
-import { usePathname } from 'next/navigation';
+import { usePathname, useRouter } from 'next/navigation';
 import { markSignedIn } from '@/lib/offline/sign-out';
 import { SignedInMark } from './signed-in-mark';
 
 const SW_URL = '/serwist/sw.js';
+/** Older than this when the page starts, what it shows came from the worker's kept copy, not from the server just now. */
+const COPY_AGE_MS = 5 * 60_000;
 const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
 
 /**
@@ -15,19 +17,46 @@ const SURVEY_PAGE = /^\/o\/[^/]+\/surveys(?:\/[0-9a-f-]{36})?\/?$/i;
  */
 export function OfflineSupport({ userId, renderedAt }: { userId: string; renderedAt: string }) {
   const pathname = usePathname();
-  // Without signal the page says how old it is: a copy kept on the phone can be hours or days behind the desk.
-  // Read after hydration only (the server always renders it online).
+  const router = useRouter();
+  // Without signal, or when the server did not answer and the worker served the copy it kept, the page says how
+  // old what it shows is: a kept copy can be hours or days behind the desk. Read after hydration only.
   const [offline, setOffline] = useState(false);
+  const [servedFromCopy, setServedFromCopy] = useState(false);
+  const [shownSince, setShownSince] = useState(() => new Date(renderedAt));
+  const [capturing, setCapturing] = useState(false);
+  const stale = useRef({ offline, servedFromCopy });
+  stale.current = { offline, servedFromCopy };
+  const firstPage = useRef(true);
   useEffect(() => {
-    const update = () => setOffline(!navigator.onLine);
-    update();
+    setCapturing(Boolean(document.querySelector('[data-capture-panel]')));
+    if (firstPage.current) {
+      firstPage.current = false;
+      return;
+    }
+    // The layout is not rendered again on an in-app link: a page reached while online is as fresh as that moment.
+    if (navigator.onLine) {
+      setShownSince(new Date());
+      setServedFromCopy(false);
+    }
+  }, [pathname]);
+  useEffect(() => {
+    const made = new Date(renderedAt).getTime();
+    // Made by the server well before this load: the worker answered with its copy (no answer in time).
+    setServedFromCopy(Date.now() - made > COPY_AGE_MS);
+    setShownSince(new Date(made));
+    setOffline(!navigator.onLine);
+    const update = () => {
+      // The signal is back while the page still shows an old copy: ask the server for it again.
+      if (navigator.onLine && (stale.current.offline || stale.current.servedFromCopy)) router.refresh();
+      setOffline(!navigator.onLine);
+    };
     window.addEventListener('online', update);
     window.addEventListener('offline', update);
     return () => {
       window.removeEventListener('online', update);
       window.removeEventListener('offline', update);
     };
-  }, []);
+  }, [renderedAt, router]);
 
   useEffect(() => {
     if (!('serviceWorker' in navigator)) return;
@@ -50,8 +79,11 @@ export function OfflineSupport({ userId, renderedAt }: { userId: string; rendere
       const kept = new Promise<void>((resolve) => (channel.port1.onmessage = () => resolve()));
       // With the survey list of the organisation, so the way back to it opens offline too (a list first opened
       // before the worker was running was not kept).
-      const list = new URL(window.location.href.replace(/(\/o\/[^/]+\/surveys)(?:\/.*)?$/, '$1')).href;
-      const urlsToCache = [...new Set([window.location.href, list])];
+      const list = new URL(window.location.href.replace(/(\/o\/[^/]+\/surveys)(?:[/?#].*)?$/, '$1'));
+      // The list's first page of data as its table asks for it (components/ui/server-table.tsx), or the kept list
+      // would open offline empty.
+      const listData = new URL(`/api/orgs/${list.pathname.split('/')[2]}/surveys?page=1&pageSize=50`, window.location.origin);
+      const urlsToCache = [...new Set([window.location.href, list.href, listData.href])];
       worker.postMessage({ type: 'CACHE_URLS', payload: { urlsToCache } }, [channel.port2]);
       await kept;
       if (live) root.setAttribute('data-offline-ready', 'true');
@@ -64,9 +96,9 @@ export function OfflineSupport({ userId, renderedAt }: { userId: string; rendere
   return (
     <>
       <SignedInMark userId={userId} />
-      {offline ? (
+      {offline || servedFromCopy ? (
         <p role="status" data-testid="offline-copy" className="no-print mb-4 rounded-[3px] border border-rule bg-paper px-4 py-2 text-sm text-ink">
-          {offlineCopyWords(new Date(renderedAt), SURVEY_PAGE.test(pathname))}
+          {offlineCopyWords(shownSince, { offline, capturing })}
         </p>
       ) : null}
     </>

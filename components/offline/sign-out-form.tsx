@@ -29,11 +29,15 @@ export function SignOutForm({ action, className, buttonClassName, children }: { 
       onSubmit={(event) => {
         if (cleared.current) return;
         event.preventDefault();
-        if (typeof navigator !== 'undefined' && navigator.onLine === false) {
-          setQuestion('offline');
-          return;
-        }
-        void unsentOnThisPhone().then((count) => (count === null ? setQuestion('unknown') : count ? setQuestion(count) : clearAndSubmit()));
+        void (async () => {
+          // Nothing is deleted unless the server can be reached (the sign-out needs it): a phone that believes it
+          // is online on one bar, or behind a harbour Wi-Fi's sign-in page, would lose its pages and stay signed in.
+          if (!(await serverReachable())) return setQuestion('offline');
+          const count = await unsentOnThisPhone();
+          if (count === null) setQuestion('unknown');
+          else if (count) setQuestion(count);
+          else await clearAndSubmit();
+        })();
       }}
     >
       {children}
@@ -61,4 +65,16 @@ export function SignOutForm({ action, className, buttonClassName, children }: { 
       )}
     </form>
   );
+}
+
+/** Whether this app's server answers at all (any status), within a few seconds. */
+async function serverReachable(): Promise<boolean> {
+  if (typeof navigator !== 'undefined' && navigator.onLine === false) return false;
+  try {
+    const res = await fetch('/api/health', { cache: 'no-store', credentials: 'omit', signal: AbortSignal.timeout(5000) });
+    // A captive portal answers from elsewhere: only this app's own answer counts.
+    return !res.redirected && res.headers.get('content-type')?.includes('application/json') === true;
+  } catch {
+    return false;
+  }
 }

@@ -347,7 +347,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
   });
 
   return (
-    <div className="flex flex-col gap-4" data-capture-ready={loaded ? 'true' : undefined}>
+    <div className="flex flex-col gap-4" data-capture-panel="" data-capture-ready={loaded ? 'true' : undefined}>
       <div className="rounded-[3px] border border-rule bg-paper-sunk px-3 py-2">
         <p role="status" aria-live="polite" aria-atomic="true" className="text-sm font-medium text-ink" data-testid="capture-status">
           {loaded ? summary.sentence : 'Reading what is saved on this phone…'}

@@ -19,9 +19,11 @@ export const HULL_ANODE_SPACING_M = 6;
  */
 export const STERN_SHARE = 0.2;
 /** How the stern's share is made up: the rudder and stern-frame zones first, the bottom's aft quarter for the rest. */
-function sternWords(atStern: number, aft: number): string {
+function sternWords(atStern: number, aft: number, needed: number): string {
   const zones = `the rudder and stern-frame zones hold ${atStern}`;
-  return aft > 0 ? `${zones}, and ${aft} of the bottom's go in its aft quarter to make it up` : `${zones}, enough without adding any of the bottom's at the stern`;
+  if (needed === 0) return `${zones}, enough without adding any of the bottom's at the stern`;
+  if (aft < needed) return `${zones}, and ${aft} of the ${needed} still needed come from the bottom, in its aft quarter (the bottom has no more)`;
+  return `${zones}, and ${aft} of the bottom's ${aft === 1 ? 'goes' : 'go'} in its aft quarter to make it up`;
 }
 
 /** The aft part of the bottom that counts as "at the stern": its aft quarter. */
@@ -104,12 +106,13 @@ function hullProposal(a: ProposalAsset, z: ProposalZone, zones: readonly Proposa
       const [f0, f1] = spread(0.08 * L, 0.92 * L);
       const total = zones.filter((x) => HULL_KINDS.has(x.kind)).reduce((n, x) => n + Math.max(0, x.count), 0);
       const atStern = zones.filter((x) => x.kind === 'rudder' || x.kind === 'propeller-shaft').reduce((n, x) => n + Math.max(0, x.count), 0);
-      const aft = Math.min(z.count, Math.max(0, Math.round(total * STERN_SHARE) - atStern));
-      const aftWords = aft >= 2 ? `, ${aft} of them within Fr ${f0}-${Math.max(f0, frame(STERN_REACH_L * L, spacing))}` : '';
+      const needed = Math.max(0, Math.round(total * STERN_SHARE) - atStern);
+      const aft = Math.min(z.count, needed);
+      const aftWords = aft >= 1 ? `, ${aft} of them within Fr ${f0}-${Math.max(f0, frame(STERN_REACH_L * L, spacing))}` : '';
       const share = `${Math.round(STERN_SHARE * 100)} % of the hull's ${total} anodes at the stern and rudder (design basis, practice: 15-20 %; some say a third, some 40-50 %)`;
       return framed({
         text: `Fr ${f0}-${f1} P/S, bottom, ${T ? `${Math.round(0.07 * T * 10) / 10} m above keel, ` : ''}${spacingWords}${aftWords}`,
-        basis: `${spacingWords}; ${share}: ${sternWords(atStern, aft)}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
+        basis: `${spacingWords}; ${share}: ${sternWords(atStern, aft, needed)}. ${T ? `${HEIGHT_ASSUMPTION} ` : ''}${FUEL_TANK_CAUTION}`,
       });
     }
     default:

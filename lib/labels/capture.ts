@@ -49,15 +49,15 @@ export function captureQueueSummary(waiting: number, needsYou: number): string {
 }
 
 /**
- * The line a page shows without signal: how old what it shows is (the time the server made it, in the phone's
- * own time), and on a survey page that capture still works.
+ * The line a page shows without signal (`offline`) or when what it shows is a copy the phone kept (the server did
+ * not answer in time): how old what it shows is, in the phone's own time, and, where a capture form is on the
+ * page, that capture still works.
  */
-export function offlineCopyWords(renderedAt: Date, surveyPage: boolean): string {
+export function offlineCopyWords(since: Date, { offline, capturing }: { offline: boolean; capturing: boolean }): string {
   // Intl rather than date-fns: this runs on every organisation page, and the scripts of the first load are counted.
-  const when = Number.isNaN(renderedAt.getTime()) ? 'at an unknown time' : 'on ' + new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', day: 'numeric', month: 'short', year: 'numeric' }).format(renderedAt);
-  return surveyPage
-    ? `No connection. This is the copy of the page kept on this phone ${when}; readings and photos you capture are saved here and sent when the connection returns.`
-    : `No connection. This page was loaded ${when}; what it shows may have changed since.`;
+  const when = Number.isNaN(since.getTime()) ? 'at an unknown time' : 'on ' + new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', day: 'numeric', month: 'short', year: 'numeric' }).format(since);
+  const first = offline ? `No connection. This page shows what the server sent ${when}; it may have changed since.` : `The server did not answer in time. This page is the copy kept on this phone ${when}; it may have changed since.`;
+  return capturing ? `${first} Readings and photos you capture are saved on this phone and sent when the connection returns.` : first;
 }
 
 /** The sign-out form's questions on a phone that keeps captured items (components/offline/sign-out-form.tsx). */

@@ -38,6 +38,7 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
     }
     let res: Response | null = null;
     let body: unknown = null;
+    let timedOut = false;
     try {
       res = await fetcher(`/api/orgs/${encodeURIComponent(batch.org)}/surveys/${encodeURIComponent(batch.surveyId)}/capture`, {
         method: 'POST',
@@ -48,8 +49,11 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
         signal: AbortSignal.timeout(SEND_TIMEOUT_MS),
       });
       body = await res.json().catch(() => null);
-    } catch {
+    } catch (error) {
       res = null;
+      // A request that hung until the timeout reached something: it counts as a try (else a batch that always
+      // hangs could never be discarded), though it is answered as no connection.
+      timedOut = error instanceof Error && error.name === 'TimeoutError';
     }
     const answer = readCaptureResponse(res, body);
     if ('results' in answer) {
@@ -68,7 +72,7 @@ async function sendNow(userId: string | null, fetcher: typeof fetch): Promise<Se
     }
     for (const item of batch.items) {
       const current = await getItem(item.deviceId);
-      if (current) await putItem(applyBatchFailure(current, answer));
+      if (current) await putItem(timedOut ? { ...applyBatchFailure(current, answer), attempts: current.attempts } : applyBatchFailure(current, answer));
     }
     return answer;
   };

@@ -56,11 +56,16 @@ test.describe('offline capture at 390 x 844', () => {
     expect(await page.evaluate(() => navigator.onLine)).toBe(false);
     await expect(status(page)).toContainText('Everything captured here is sent.');
     // The copy says how old it is.
-    await expect(page.getByTestId('offline-copy')).toContainText('No connection. This is the copy of the page kept on this phone on ');
+    await expect(page.getByTestId('offline-copy')).toContainText('No connection. This page shows what the server sent on ');
+    await expect(page.getByTestId('offline-copy')).toContainText('Readings and photos you capture are saved on this phone');
     // The way back to the survey list works offline too (it was opened before the worker ran: kept with the survey page).
     const list = await page.goto(org + '/surveys');
     expect(list?.fromServiceWorker(), 'the list came from the service worker').toBe(true);
     await expect(page.getByRole('heading', { level: 1, name: 'Surveys' })).toBeVisible();
+    // With its data (kept with the survey page): surveys are listed, not "No surveys yet".
+    await expect(page.getByRole('table', { name: 'Surveys' }).getByRole('link').first()).toBeVisible();
+    await expect(page.getByText('No surveys yet.')).toHaveCount(0);
+    await expect(page.getByTestId('offline-copy')).not.toContainText('Readings and photos you capture');
     await page.goto(surveyPath);
     await expect(page.getByRole('heading', { level: 1 })).toHaveText(heading!);
 

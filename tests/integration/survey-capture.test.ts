@@ -11,6 +11,7 @@ import { deleteSurvey } from '@/lib/server/services/surveys/manage-surveys';
 import { deleteReading, restoreReading } from '@/lib/server/services/surveys/correct-readings';
 import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
+import { Migration20261218000000_reading_device_ids_kept } from '@/migrations/Migration20261218000000_reading_device_ids_kept';
 import { nextHeadersMock } from '../fixtures/next-headers-mock';
 import { signInAs, signedInUserId } from '../fixtures/entry-points';
 
@@ -91,6 +92,30 @@ describe('POST /api/orgs/[org]/surveys/[surveyId]/capture', () => {
     const afterUndo = await send(survey.id, { items: [a] });
     expect(afterUndo.body.results[0]).toMatchObject({ status: 'duplicate', readingId });
     expect(await readingsOf(survey.id)).toHaveLength(1);
+  });
+
+  it('the migration keeps the ids of readings captured before it: those still there and those deleted since (from the audit log)', async () => {
+    const survey = await newSurvey();
+    await signInAs(org.users.inspector);
+    const kept = reading('Pile D1');
+    const gone = reading('Pile D2');
+    const answer = await send(survey.id, { items: [kept, gone] });
+    await as('engineer', (c) => deleteReading(c, survey.id, answer.body.results[1].readingId));
+    const orm = await getOrm();
+    const migration = new Migration20261218000000_reading_device_ids_kept(orm.em.getDriver(), orm.config);
+    const used = await (await getEm()).transactional(async (tx) => {
+      // As before the migration: no id kept.
+      await tx.execute('delete from used_device_id where device_id in (?, ?)', [kept.deviceId, gone.deviceId]);
+      migration.reset();
+      migration.setTransactionContext(tx.getTransactionContext());
+      await migration.up();
+      for (const sql of migration.getQueries()) await tx.execute(sql as string);
+      return tx.execute<{ organisation_id: string; device_id: string }[]>('select organisation_id, device_id from used_device_id where device_id in (?, ?) order by device_id', [kept.deviceId, gone.deviceId]);
+    });
+    expect(used).toEqual([kept.deviceId, gone.deviceId].sort().map((device_id) => ({ organisation_id: org.organisation.id, device_id })));
+    // And so the deleted one is not recorded again.
+    const resent = await send(survey.id, { items: [gone] });
+    expect(resent.body.results[0]).toMatchObject({ status: 'duplicate', message: CAPTURE_CONFLICT_MESSAGES.deletedSince });
   });
 
   it('two identical batches at the same moment record each reading once', async () => {

@@ -106,6 +106,19 @@ describe('placement proposal against the design basis (line 64)', () => {
     ]);
     expect(rich!.text).not.toContain('of them within');
     expect(rich!.basis).toContain("the rudder and stern-frame zones hold 6, enough without adding any of the bottom's at the stern");
+    // One short: the one goes aft, and the proposal places it (not only the basis).
+    const [oneShort] = proposePositions(ferry, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 26 },
+      { name: 'Rudder', kind: 'rudder', count: 5 },
+    ]);
+    expect(oneShort!.text).toMatch(/, 1 of them within Fr \d+-40(;|$)/); // 20 % of 31 is 6; the rudder holds 5
+    expect(oneShort!.basis).toContain("the rudder and stern-frame zones hold 5, and 1 of the bottom's goes in its aft quarter");
+    // A bottom too small to make up the share: said so, never "made up".
+    const [tooFew] = proposePositions(ferry, [
+      { name: 'Hull bottom', kind: 'hull-bottom', count: 2 },
+      { name: 'Sides', kind: 'boot-top-sides', count: 38 },
+    ]);
+    expect(tooFew!.basis).toContain('and 2 of the 8 still needed come from the bottom, in its aft quarter (the bottom has no more)');
   });
 
   it('states the fuel-tank caution and marks the heights as assumptions', () => {
