@@ -49,13 +49,13 @@ function shapeMarkup(shape: Shape): string {
   const c = cls(shape.role);
   switch (shape.kind) {
     case 'rect':
-      return `<rect x="${shape.x}" y="${shape.y}" width="${shape.w}" height="${shape.h}" class="${c}"></rect>`;
+      return `<rect x="${shape.x}" y="${shape.y}" width="${shape.w}" height="${shape.h}" class="${c}" />`;
     case 'path':
-      return `<path d="${escapeMarkup(shape.d)}" class="${c}"></path>`;
+      return `<path d="${escapeMarkup(shape.d)}" class="${c}" />`;
     case 'ellipse':
-      return `<ellipse cx="${shape.cx}" cy="${shape.cy}" rx="${shape.rx}" ry="${shape.ry}" class="${c}"></ellipse>`;
+      return `<ellipse cx="${shape.cx}" cy="${shape.cy}" rx="${shape.rx}" ry="${shape.ry}" class="${c}" />`;
     case 'line':
-      return `<line x1="${shape.x1}" y1="${shape.y1}" x2="${shape.x2}" y2="${shape.y2}" class="${c}"></line>`;
+      return `<line x1="${shape.x1}" y1="${shape.y1}" x2="${shape.x2}" y2="${shape.y2}" class="${c}" />`;
     case 'text':
       return `<text x="${shape.x}" y="${shape.y}"${shape.anchor === 'start' ? '' : ` text-anchor="${shape.anchor}"`} class="${c}">${escapeMarkup(shape.text)}</text>`;
   }
@@ -77,9 +77,9 @@ export function drawingViewMarkup(view: DrawingView, titleId: string): string {
 /** The hatch, dot and cross patterns of the zones (referred to by the classes as url(#dw-…)): once per page. */
 const PATTERN_DEFS =
   '<defs>' +
-  '<pattern id="dw-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><rect width="6" height="6" fill="#fafafa"></rect><line x1="0" y1="0" x2="0" y2="6" stroke="#b0b0b0" stroke-width="1"></line></pattern>' +
-  '<pattern id="dw-dots" width="5" height="5" patternUnits="userSpaceOnUse"><rect width="5" height="5" fill="#f2f2f2"></rect><circle cx="2.5" cy="2.5" r="0.9" fill="#8a8a8a"></circle></pattern>' +
-  '<pattern id="dw-cross" width="5" height="5" patternUnits="userSpaceOnUse"><rect width="5" height="5" fill="#ffffff"></rect><path d="M0 0L5 5M5 0L0 5" stroke="#8a8a8a" stroke-width="0.7"></path></pattern>' +
+  '<pattern id="dw-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)"><rect width="6" height="6" fill="#fafafa" /><line x1="0" y1="0" x2="0" y2="6" stroke="#b0b0b0" stroke-width="1" /></pattern>' +
+  '<pattern id="dw-dots" width="5" height="5" patternUnits="userSpaceOnUse"><rect width="5" height="5" fill="#f2f2f2" /><circle cx="2.5" cy="2.5" r="0.9" fill="#8a8a8a" /></pattern>' +
+  '<pattern id="dw-cross" width="5" height="5" patternUnits="userSpaceOnUse"><rect width="5" height="5" fill="#ffffff" /><path d="M0 0L5 5M5 0L0 5" stroke="#8a8a8a" stroke-width="0.7" /></pattern>' +
   '</defs>';
 
 export function PatternDefs() {
@@ -112,8 +112,8 @@ export function KeySwatch({ role }: { role: ShapeRole }) {
 }
 
 function keySwatchMarkup(role: ShapeRole): string {
-  if (role === 'anode') return `<rect x="6" y="5" width="9" height="4" class="${cls('anode-left')}"></rect><rect x="6" y="1" width="9" height="8" class="${cls('anode')}"></rect>`;
-  if (role === 'anode-unknown') return `<rect x="6" y="1" width="9" height="8" class="${cls('anode-unknown')}"></rect><text x="10.5" y="7.3" text-anchor="middle" class="${cls('anode-unknown-mark')}">?</text>`;
-  if (role === 'reading') return `<path d="M11 1l5 5l-5 5l-5 -5z" class="${cls('reading')}"></path>`;
-  return `<rect x="1" y="1" width="20" height="10" class="${cls(role)}"></rect>`;
+  if (role === 'anode') return `<rect x="6" y="5" width="9" height="4" class="${cls('anode-left')}" /><rect x="6" y="1" width="9" height="8" class="${cls('anode')}" />`;
+  if (role === 'anode-unknown') return `<rect x="6" y="1" width="9" height="8" class="${cls('anode-unknown')}" /><text x="10.5" y="7.3" text-anchor="middle" class="${cls('anode-unknown-mark')}">?</text>`;
+  if (role === 'reading') return `<path d="M11 1l5 5l-5 5l-5 -5z" class="${cls('reading')}" />`;
+  return `<rect x="1" y="1" width="20" height="10" class="${cls(role)}" />`;
 }

@@ -33,15 +33,15 @@ function markerMarkup(kind: SeriesMarker, x: number, y: number, colour: string):
   const p = `fill="${colour}" stroke="#ffffff" stroke-width="1"`;
   switch (kind) {
     case 'square':
-      return `<rect x="${x - 3.5}" y="${y - 3.5}" width="7" height="7" ${p}></rect>`;
+      return `<rect x="${x - 3.5}" y="${y - 3.5}" width="7" height="7" ${p} />`;
     case 'triangle':
-      return `<path d="M ${x} ${y - 4.5} L ${x + 4.5} ${y + 3.5} L ${x - 4.5} ${y + 3.5} Z" ${p}></path>`;
+      return `<path d="M ${x} ${y - 4.5} L ${x + 4.5} ${y + 3.5} L ${x - 4.5} ${y + 3.5} Z" ${p} />`;
     case 'inverted':
-      return `<path d="M ${x} ${y + 4.5} L ${x + 4.5} ${y - 3.5} L ${x - 4.5} ${y - 3.5} Z" ${p}></path>`;
+      return `<path d="M ${x} ${y + 4.5} L ${x + 4.5} ${y - 3.5} L ${x - 4.5} ${y - 3.5} Z" ${p} />`;
     case 'bar':
-      return `<rect x="${x - 1.75}" y="${y - 5}" width="3.5" height="10" ${p}></rect>`;
+      return `<rect x="${x - 1.75}" y="${y - 5}" width="3.5" height="10" ${p} />`;
     default:
-      return `<path d="M ${x - 4.5} ${y - 1} L ${x} ${y - 5} L ${x + 4.5} ${y - 1} L ${x + 4.5} ${y + 3} L ${x} ${y - 1} L ${x - 4.5} ${y + 3} Z" ${p}></path>`;
+      return `<path d="M ${x - 4.5} ${y - 1} L ${x} ${y - 5} L ${x + 4.5} ${y - 1} L ${x + 4.5} ${y + 3} L ${x} ${y - 1} L ${x - 4.5} ${y + 3} Z" ${p} />`;
   }
 }
 
@@ -66,23 +66,23 @@ export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings
   // request (HTML and RSC payload) were a measurable part of the asset page's cost. Every text is escaped.
   let svg = `<title>${escapeMarkup(title)}</title>`;
   for (const kg of ticks) {
-    svg += `<g><line x1="${pad.left}" x2="${width - pad.right}" y1="${y(kg)}" y2="${y(kg)}" stroke="#eeece6"></line>`;
+    svg += `<g><line x1="${pad.left}" x2="${width - pad.right}" y1="${y(kg)}" y2="${y(kg)}" stroke="#eeece6" />`;
     svg += `<text x="${pad.left - 6}" y="${y(kg) + 3}" text-anchor="end" font-size="10" fill="#5f6872">${escapeMarkup(Math.round(kg).toLocaleString('en-GB'))}</text></g>`;
   }
   svg += `<text x="12" y="${pad.top + 4}" font-size="10" fill="#5f6872" transform="rotate(-90 12 ${pad.top + 4})" text-anchor="end">kg net</text>`;
   for (const t of years) {
-    svg += `<g><line x1="${x(t)}" x2="${x(t)}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#eeece6"></line>`;
+    svg += `<g><line x1="${x(t)}" x2="${x(t)}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#eeece6" />`;
     svg += `<text x="${x(t)}" y="${height - pad.bottom + 14}" text-anchor="middle" font-size="10" fill="#5f6872">${new Date(t).getUTCFullYear()}</text></g>`;
   }
   dockings
     .filter((d) => d.date.getTime() >= t0 && d.date.getTime() <= t1)
     .forEach((d, i) => {
       const dx = x(d.date.getTime());
-      svg += `<g><line x1="${dx}" x2="${dx}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#a67a2c" stroke-dasharray="4 3"></line>`;
+      svg += `<g><line x1="${dx}" x2="${dx}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#a67a2c" stroke-dasharray="4 3" />`;
       svg += `<text x="${dx + 3}" y="${pad.top + 10 + (i % 2) * 11}" font-size="9.5" fill="#7a5718">${escapeMarkup(d.label)}</text></g>`;
     });
   const tx = x(today.getTime());
-  svg += `<line x1="${tx}" x2="${tx}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#1c232b" stroke-width="1"></line>`;
+  svg += `<line x1="${tx}" x2="${tx}" y1="${pad.top}" y2="${height - pad.bottom}" stroke="#1c232b" stroke-width="1" />`;
   svg += `<text x="${tx + 3}" y="${height - pad.bottom - 4}" font-size="9.5" fill="#1c232b">today</text>`;
   series.forEach((s, i) => {
     const { colour, dash, marker, letter } = seriesStyle(i);
@@ -91,7 +91,7 @@ export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings
     const n = s.points.length;
     const at = n ? [0.2, 0.45, 0.7, 0.95].map((f) => s.points[Math.min(n - 1, Math.floor(n * ((f + (i % 4) * 0.05) % 1)))]) : [];
     svg += `<g data-series="${letter}" data-dash="${dash}" data-marker="${marker}">`;
-    svg += `<polyline fill="none" stroke="${colour}" stroke-width="1.8"${dash ? ` stroke-dasharray="${dash}"` : ''} points="${s.points.map((p) => `${x(p.date.getTime())},${y(p.kg)}`).join(' ')}"></polyline>`;
+    svg += `<polyline fill="none" stroke="${colour}" stroke-width="1.8"${dash ? ` stroke-dasharray="${dash}"` : ''} points="${s.points.map((p) => `${x(p.date.getTime())},${y(p.kg)}`).join(' ')}" />`;
     for (const p of at) svg += markerMarkup(marker, x(p.date.getTime()), y(p.kg), colour);
     if (at[0]) svg += `<text x="${x(at[0].date.getTime()) + 6}" y="${y(at[0].kg) - 6}" font-size="10" font-weight="700" fill="#1c232b" stroke="#ffffff" stroke-width="2.5" paint-order="stroke">${letter}</text>`;
     for (const p of s.surveys) {
@@ -103,8 +103,8 @@ export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings
     if (s.endOfLife && s.endOfLife.getTime() <= t1) {
       const ex = x(s.endOfLife.getTime());
       const ey = y(s.endKg);
-      svg += `<g><line x1="${ex - 4}" x2="${ex + 4}" y1="${ey - 4}" y2="${ey + 4}" stroke="${colour}" stroke-width="2"></line>`;
-      svg += `<line x1="${ex - 4}" x2="${ex + 4}" y1="${ey + 4}" y2="${ey - 4}" stroke="${colour}" stroke-width="2"></line>`;
+      svg += `<g><line x1="${ex - 4}" x2="${ex + 4}" y1="${ey - 4}" y2="${ey + 4}" stroke="${colour}" stroke-width="2" />`;
+      svg += `<line x1="${ex - 4}" x2="${ex + 4}" y1="${ey + 4}" y2="${ey - 4}" stroke="${colour}" stroke-width="2" />`;
       svg += `<title>${escapeMarkup(`${s.label}: ${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife)} (utilisation factor used up)`)}</title></g>`;
     }
     svg += '</g>';
@@ -120,7 +120,7 @@ export function DepletionChart({ series, dockings = [], dockingsWord = 'dockings
               height="12"
               aria-hidden
               dangerouslySetInnerHTML={{
-                __html: `<line x1="0" x2="34" y1="6" y2="6" stroke="${seriesStyle(i).colour}" stroke-width="2"${seriesStyle(i).dash ? ` stroke-dasharray="${seriesStyle(i).dash}"` : ''}></line>${markerMarkup(seriesStyle(i).marker, 17, 6, seriesStyle(i).colour)}`,
+                __html: `<line x1="0" x2="34" y1="6" y2="6" stroke="${seriesStyle(i).colour}" stroke-width="2"${seriesStyle(i).dash ? ` stroke-dasharray="${seriesStyle(i).dash}"` : ''} />${markerMarkup(seriesStyle(i).marker, 17, 6, seriesStyle(i).colour)}`,
               }}
             />
             <strong className="font-semibold text-ink">{seriesStyle(i).letter}</strong> {s.label}
