@@ -6,7 +6,7 @@ import { Field, SelectField } from '@/components/ui/field';
 import { StatusTag } from '@/components/ui/status-tag';
 import { CAPTURE_STATE_TONES } from '@/lib/status/palette';
 import { CAPTURE_KIND_LABELS, ELECTRODE_LABELS } from '@/lib/labels';
-import { captureReadingSchema, SURVEY_ELECTRODE_VALUES } from '@/lib/schemas/surveys';
+import { SURVEY_ELECTRODE_VALUES } from '@/lib/surveys/electrodes';
 import { newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { nextLocation } from '@/lib/surveys/next-location';
 import { CAPTURE_CHANGED_EVENT, deleteItem, getSetting, itemsOf, putItem, putSetting } from '@/lib/offline/capture-db';
@@ -14,6 +14,12 @@ import { isWaiting, itemStateWords, needsYou, resubmit, summarize, type CaptureI
 import { CAPTURE_SYNC_TAG, sendCaptureQueue } from '@/lib/offline/send-queue';
 
 type Electrode = (typeof SURVEY_ELECTRODE_VALUES)[number];
+/**
+ * The server's rules for a captured reading, with zod: loaded after the page has come to life (and then kept), not
+ * with the page, as it is first needed on saving. Part of the survey page's first-load JavaScript otherwise (npm run
+ * bench). Offline it comes from the service worker's precache like every other script of the build.
+ */
+const loadCaptureSchema = () => import('@/lib/schemas/surveys').then((m) => m.captureReadingSchema);
 const ELECTRODE_OPTIONS = SURVEY_ELECTRODE_VALUES.map((value) => ({ value, label: ELECTRODE_LABELS[value] ?? value }));
 const RETRY_MS = 20_000;
 /** The attachments route's limit (MAX_ATTACHMENT_BYTES): a larger photo is refused before it is queued. */
@@ -128,6 +134,11 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     [reload, router, userId],
   );
 
+  // The rules are fetched now, so that the first save does not wait for them (and has them if the signal goes later).
+  useEffect(() => {
+    void loadCaptureSchema().catch(() => undefined);
+  }, []);
+
   // The electrode chosen for this survey and the last locations, then the queue; send what waits on opening.
   useEffect(() => {
     let live = true;
@@ -224,6 +235,7 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     };
     const deviceId = editing ?? draftId;
     // The server's own rules, checked here first so a mistake is shown at once, offline too.
+    const captureReadingSchema = await loadCaptureSchema();
     const checked = captureReadingSchema(readingElectrode).safeParse({ deviceId, kind: 'reading', ...reading });
     if (!checked.success || (reading.remainingFraction !== null && Number.isNaN(reading.remainingFraction))) {
       const fieldErrors: Record<string, string[]> = {};

@@ -3,7 +3,9 @@ import { pastDateOnlyField } from './date-only-field';
 import { readingSchema } from './register';
 import { multilineText, text } from './text';
 
-export const SURVEY_ELECTRODE_VALUES = ['ag-agcl-seawater', 'cse', 'sce', 'zinc'] as const;
+import { SURVEY_ELECTRODE_VALUES } from '@/lib/surveys/electrodes';
+
+export { SURVEY_ELECTRODE_VALUES };
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v);
 const optionalText = (max: number, { multiline = false } = {}) =>

@@ -10,6 +10,7 @@ import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal, markRenewalFitted } from '@/lib/server/services/planner/renewals';
 import { anodeListCsvFor, anodeListFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
+import { listDockingRenewalRows, listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
 
@@ -160,5 +161,34 @@ describe("the engineer's position words on the list", () => {
     expect(group.remainingFraction).toBe(1);
     const row = drawing!.rows.find((r) => r.label === fitted.groupLabel)!;
     expect(row.remaining).toBe('100 % left');
+  });
+});
+
+describe('the renewals JSON API (listDockingRenewalRows, one plain statement)', () => {
+  it("answers the same rows as the docking page's listDockingRenewals: fields, dates, zones and order", async () => {
+    // The ship's list has 70 groups (several per sort key) and the words tug's list a fitted renewal with its date.
+    for (const id of [vesselDockingId, jettyCampaignId]) {
+      const viaOrm = await runAs(ctx('viewer'), (c) => listDockingRenewals(c, id));
+      const viaSql = await runAs(ctx('viewer'), (c) => listDockingRenewalRows(c, id));
+      expect(viaSql.length).toBeGreaterThan(0);
+      expect(viaSql).toEqual(viaOrm.rows);
+    }
+    const created = await runAs(ctx('engineer'), (c) => createAsset(c, { kind: 'vessel', name: 'Rows Test Tug', hullMaterial: 'steel' }));
+    const groupId = await runAs(ctx('engineer'), async (c) => (await createAnodeGroup(c, created.id, { label: 'Only row', anodeModelKey: 'builtin:TW-AW-4020', quantity: 2, installedOn: '2021-04-09', meanCurrentA: 1 })).id);
+    const docking = await runAs(ctx('planner'), (c) => createDocking(c, { assetId: created.id, kind: 'intermediate', plannedStart: '2027-08-02', yard: 'Saltmarsh Ship Repair' }));
+    const renewal = await runAs(ctx('planner'), (c) => addRenewal(c, docking.id, { groupId, reason: 'damage' }));
+    await runAs(ctx('planner'), (c) => markRenewalFitted(c, renewal.id, { fittedOn: '2026-11-30' }));
+    // The scheduler may book a proposal of its own at the new docking as well: the fitted one is found by its id.
+    const rows = await runAs(ctx('viewer'), (c) => listDockingRenewalRows(c, docking.id));
+    expect(rows.find((r) => r.id === renewal.id)).toMatchObject({ status: 'fitted', reason: 'damage', fittedOn: '2026-11-30', installedOn: '2021-04-09', groupLabel: 'Only row', zone: null, designation: 'TW-AW-4020' });
+    expect(rows).toEqual((await runAs(ctx('viewer'), (c) => listDockingRenewals(c, docking.id))).rows);
+  }, 60_000);
+
+  it("does not answer another organisation's docking, nor one that does not exist", async () => {
+    const other = await makeOrgWithRoles(await getEm(), 'Rows Other Shipping');
+    const otherCtx = async () => ctxFor(await getEm(), other.organisation, other.users.owner);
+    await expect(runAs(otherCtx(), (c) => listDockingRenewalRows(c, vesselDockingId))).rejects.toMatchObject({ code: 'not-found' });
+    await expect(runAs(ctx('viewer'), (c) => listDockingRenewalRows(c, '6f1c1c0e-0000-4000-8000-000000000000'))).rejects.toMatchObject({ code: 'not-found' });
+    await expect(runAs(ctx('viewer'), (c) => listDockingRenewalRows(c, 'not-a-uuid'))).rejects.toMatchObject({ code: 'not-found' });
   });
 });

@@ -5,7 +5,7 @@ import { Caution, PageHeader, Panel } from '@/components/ui/panel';
 import { ButtonLink } from '@/components/ui/button';
 import { Disclosure } from '@/components/ui/disclosure';
 import { FleetTable } from '@/components/register/fleet-table';
-import { AssetForm } from '@/components/register/asset-form';
+import { AssetForm } from '@/components/register/lazy-forms';
 import { FirstRunGuide } from '@/components/onboarding/first-run-guide';
 import { getFirstRun } from '@/lib/server/services/onboarding/get-first-run';
 

@@ -1,5 +1,5 @@
 import { withOrg } from '@/lib/server/with-org';
-import { listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
+import { listDockingRenewalRows } from '@/lib/server/services/planner/docking-renewals';
 
 // GET /api/orgs/[org]/dockings/[dockingId]/renewals: the renewals booked at a docking.
-export const GET = withOrg(async ({ ctx, params }) => ({ renewals: (await listDockingRenewals(ctx, params.dockingId)).rows }), { permission: 'org:read', readOnly: true });
+export const GET = withOrg(async ({ ctx, params }) => ({ renewals: await listDockingRenewalRows(ctx, params.dockingId) }), { permission: 'org:read', readOnly: true });
