@@ -36,7 +36,7 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   // Already recorded: answered without a lock or a permission check (a reading is safe whatever changed since).
   const earlier = await findExisting();
   if (earlier) return duplicate(earlier);
-  if (await deviceIdUsed(ctx, deviceId)) return deletedSince(deviceId);
+  if (await deletedSinceRecorded(ctx, survey.id, deviceId)) return deletedSince(deviceId);
 
   // Only a member who may write takes the survey's lock (a viewer's queue never holds up the writers).
   requirePermission(ctx, 'survey:write');
@@ -44,7 +44,7 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   // A send of the same item that held the lock first has recorded it meanwhile.
   const existing = await findExisting();
   if (existing) return duplicate(existing);
-  if (await deviceIdUsed(ctx, deviceId)) return deletedSince(deviceId);
+  if (await deletedSinceRecorded(ctx, survey.id, deviceId)) return deletedSince(deviceId);
   if (survey.asset.archivedAt) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.assetArchived);
   const reading = captureReadingSchema(surveyElectrodeOf(survey)).parse(item);
   let groupLabel: string | null = null;
@@ -66,11 +66,18 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   return { deviceId, status: 'recorded', readingId: created.id, message: under ? `${saved} It is under-protected; ${underProtectionWords({ under, mailed })}.` : saved };
 }
 
-/** Whether this organisation ever recorded an item under this device id (a reading or a photo, deleted since or not). */
-async function deviceIdUsed(ctx: OrgContext, deviceId: string): Promise<boolean> {
+/**
+ * Whether a reading was recorded under this device id and has been deleted since: the id is kept as used while no
+ * reading carries it. One statement, so one snapshot: a send that commits the reading and its id together between
+ * two separate reads could otherwise look deleted to a racing send.
+ */
+async function deletedSinceRecorded(ctx: OrgContext, surveyId: string, deviceId: string): Promise<boolean> {
   if (!isUuid(deviceId)) return false;
-  const rows = await ctx.em.execute<{ device_id: string }[]>('select device_id from used_device_id where organisation_id = ? and device_id = ?', [ctx.organisation.id, deviceId]);
-  return rows.length > 0;
+  const [row] = await ctx.em.execute<{ deleted: boolean }[]>(
+    'select exists (select 1 from used_device_id where organisation_id = ? and device_id = ?) and not exists (select 1 from survey_reading where survey_id = ? and device_id = ?::uuid) as deleted',
+    [ctx.organisation.id, deviceId, surveyId, deviceId],
+  );
+  return row?.deleted === true;
 }
 
 /**
