@@ -21,6 +21,14 @@ async function openAsset(page: Page, name: string) {
   await expect(page).toHaveURL(/\/assets\//);
 }
 
+test('a frame spacing nobody entered is shown in the particulars as the estimate the drawing uses, with where it came from', async ({ page }) => {
+  await signIn(page, demoUser('engineer').email);
+  await openAsset(page, 'Kittiwake Crossing');
+  // 68 m between perpendiculars: 0.002 × 68 + 0.48 = 0.616, rounded to 0.62 m (common practice, from memory).
+  await expect(page.getByText('0.62 m (estimated from the length, 0.002 L + 0.48 m, common practice)', { exact: true })).toBeVisible();
+  await expect(page.getByText('frames every 0.62 m (estimated from the length, 0.002 L + 0.48 m, common practice)')).toBeVisible();
+});
+
 test('an engineer opens the demo ferry drawing, clicks a group and finds the drawing in the calculation note', async ({ page }) => {
   await signIn(page, demoUser('engineer').email);
   await openAsset(page, 'Brindlemoor');

@@ -24,6 +24,7 @@ import { DepletionChart } from '@/components/register/depletion-chart';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 import { TableFrame } from '@/components/ui/table-frame';
 import { AssetDrawingPanel } from '@/components/drawings/asset-drawing-panel';
+import { estimatedFrameSpacingM } from '@/lib/drawings/hull-drawing';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -50,7 +51,15 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
           ['IMO number', asset.imoNumber],
           ['Lpp × B × T', asset.lengthBppM ? `${asset.lengthBppM} × ${asset.beamM ?? '?'} × ${asset.draughtM ?? '?'} m` : null],
           ['Block coefficient', asset.blockCoefficient?.toString()],
-          ['Frame spacing', asset.frameSpacingM ? `${asset.frameSpacingM} m${asset.frameSpacingSource === 'estimate' ? ` (${PARTICULAR_SOURCE_LABELS.estimate})` : ''}` : null],
+          [
+            'Frame spacing',
+            asset.frameSpacingM
+              ? `${asset.frameSpacingM} m${asset.frameSpacingSource === 'estimate' ? ` (${PARTICULAR_SOURCE_LABELS.estimate})` : ''}`
+              : // Not entered: the drawing uses the estimate, so the particulars say it too, with where it came from.
+                asset.lengthBppM
+                ? `${estimatedFrameSpacingM(asset.lengthBppM)} m (${PARTICULAR_SOURCE_LABELS.estimate} from the length, 0.002 L + 0.48 m, common practice)`
+                : null,
+          ],
           ['Hull material', asset.hullMaterial ? HULL_MATERIAL_LABELS[asset.hullMaterial] : null],
           ['Impressed current', asset.hasImpressedCurrent ? 'fitted' : 'none'],
           ['Trading waters', asset.tradingWaters],
