@@ -10,9 +10,40 @@ import { createAnodeGroup } from '@/lib/server/services/register/anode-groups';
 import { createDocking } from '@/lib/server/services/planner/dockings';
 import { addRenewal, markRenewalFitted } from '@/lib/server/services/planner/renewals';
 import { anodeListCsvFor, anodeListFor, anodeListPdf } from '@/lib/server/services/planner/anode-list';
-import { listDockingRenewalRows, listDockingRenewals } from '@/lib/server/services/planner/docking-renewals';
+import { listDockingRenewalRows } from '@/lib/server/services/planner/docking-renewals';
+import { RenewalSchema } from '@/entities';
+import type { OrgContext } from '@/lib/server/org-context';
+
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
 import { pdfPages, type PdfPage } from '../fixtures/pdf-text';
+
+/** The reference the plain statement is held to: the same docking's renewals read through the ORM, field by field. */
+async function listDockingRenewals(c: OrgContext, dockingId: string) {
+  const renewals = await c.em.find(RenewalSchema, { docking: dockingId, organisation: c.organisation }, { populate: ['group', 'group.zone'], orderBy: { createdAt: 'asc' } });
+  const rows = renewals
+    .map((r) => ({
+      id: r.id,
+      status: r.status,
+      reason: r.reason,
+      quantity: r.quantity,
+      notes: r.notes ?? null,
+      rationale: r.rationale ?? null,
+      confirmedBy: r.confirmedByEmail ?? null,
+      fittedOn: r.fittedOn ?? null,
+      groupId: r.group.id,
+      groupLabel: r.group.label,
+      zone: r.group.zone?.name ?? null,
+      designation: r.group.model.designation,
+      alloy: r.group.model.alloy,
+      mounting: r.group.model.mounting,
+      netMassKg: r.group.model.netMassKg,
+      grossMassKg: r.group.model.grossMassKg,
+      positions: r.group.positions ?? null,
+      installedOn: r.group.installedOn,
+    }))
+    .sort((a, b) => (a.zone ?? '').localeCompare(b.zone ?? '') || a.groupLabel.localeCompare(b.groupLabel));
+  return { rows };
+}
 
 let organisation: Organisation;
 let users: Record<Role, User>;
@@ -165,7 +196,7 @@ describe("the engineer's position words on the list", () => {
 });
 
 describe('the renewals JSON API (listDockingRenewalRows, one plain statement)', () => {
-  it("answers the same rows as the docking page's listDockingRenewals: fields, dates, zones and order", async () => {
+  it('answers the same rows as the ORM reads: fields, dates, zones and order', async () => {
     // The ship's list has 70 groups (several per sort key) and the words tug's list a fitted renewal with its date.
     for (const id of [vesselDockingId, jettyCampaignId]) {
       const viaOrm = await runAs(ctx('viewer'), (c) => listDockingRenewals(c, id));

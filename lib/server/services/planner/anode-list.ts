@@ -60,7 +60,7 @@ export async function anodeListFor(ctx: OrgContext, dockingId: string) {
           ['Piles', a.pileCount ? `${a.pileCount} × Ø ${a.pileDiameterM ?? '?'} m` : '—'],
         ];
   const live = rows.filter((r) => r.status !== 'cancelled');
-  // The groups are in the identity map already (listDockingRenewals populates them); their snapshots carry the catalogue key.
+  // The groups' snapshots carry the catalogue key.
   const groups = live.length ? await ctx.em.find(AnodeGroupSchema, { id: { $in: live.map((r) => r.groupId) }, organisation: ctx.organisation }) : [];
   const modelKey = new Map(groups.map((g) => [g.id, g.model.key]));
   // The yard works from the engineer's own words; the structured reading (what the drawing shows) follows as "Read as: …".

@@ -1,4 +1,3 @@
-import { RenewalSchema } from '@/entities';
 import type { AnodeGroupModelSnapshot, RenewalReason, RenewalStatus } from '@/entities';
 import { requirePermission, type OrgContext } from '../../org-context';
 import { notFound } from '../../errors';
@@ -8,36 +7,36 @@ import { getDockingOrThrow } from './dockings';
 const byZoneThenLabel = (a: { zone: string | null; groupLabel: string }, b: { zone: string | null; groupLabel: string }) =>
   (a.zone ?? '').localeCompare(b.zone ?? '') || a.groupLabel.localeCompare(b.groupLabel);
 
-/** The renewals booked at a docking, as plain rows for the renewals table and the anode list. */
+/** A renewal booked at a docking, as the renewals table, the API and the anode list read it. */
+export interface DockingRenewalRow {
+  id: string;
+  status: RenewalStatus;
+  reason: RenewalReason;
+  quantity: number;
+  notes: string | null;
+  rationale: string | null;
+  confirmedBy: string | null;
+  /** YYYY-MM-DD. */
+  fittedOn: string | null;
+  groupId: string;
+  groupLabel: string;
+  zone: string | null;
+  designation: string;
+  alloy: AnodeGroupModelSnapshot['alloy'];
+  mounting: AnodeGroupModelSnapshot['mounting'];
+  netMassKg: number;
+  grossMassKg: number;
+  positions: string | null;
+  /** YYYY-MM-DD. */
+  installedOn: string;
+}
+
+/** The docking (with its asset) and its renewals as plain rows: the docking page and the anode list. */
 export async function listDockingRenewals(ctx: OrgContext, dockingId: string) {
-  requirePermission(ctx, 'org:read');
   const docking = await getDockingOrThrow(ctx, dockingId);
-  const renewals = await ctx.em.find(RenewalSchema, { docking }, { populate: ['group', 'group.zone'], orderBy: { createdAt: 'asc' } });
-  const rows = renewals
-    .map((r) => ({
-      id: r.id,
-      status: r.status,
-      reason: r.reason,
-      quantity: r.quantity,
-      notes: r.notes ?? null,
-      rationale: r.rationale ?? null,
-      confirmedBy: r.confirmedByEmail ?? null,
-      fittedOn: r.fittedOn ?? null,
-      groupId: r.group.id,
-      groupLabel: r.group.label,
-      zone: r.group.zone?.name ?? null,
-      designation: r.group.model.designation,
-      alloy: r.group.model.alloy,
-      mounting: r.group.model.mounting,
-      netMassKg: r.group.model.netMassKg,
-      grossMassKg: r.group.model.grossMassKg,
-      positions: r.group.positions ?? null,
-      installedOn: r.group.installedOn,
-    }))
-    .sort(byZoneThenLabel);
+  const rows = await listDockingRenewalRows(ctx, dockingId);
   return { docking, rows };
 }
-export type DockingRenewalRow = Awaited<ReturnType<typeof listDockingRenewals>>['rows'][number];
 
 type RenewalRowSql = {
   docking_id: string;
@@ -58,10 +57,9 @@ type RenewalRowSql = {
 };
 
 /**
- * The rows of listDockingRenewals without the docking and the entities: what the renewals JSON API answers.
- * One plain statement (the docking, checked to be the organisation's, with its renewals, groups and zones)
- * instead of two ORM queries that hydrate the docking, its asset, the renewals, groups and zones only to copy a
- * few fields out (the API is benchmarked: the ORM's hydration was most of its cost).
+ * The renewals booked at a docking as plain rows, in one plain statement (the docking, checked to be the
+ * organisation's, with its renewals, groups and zones) rather than hydrating them through the ORM only to copy a few
+ * fields out (the renewals API is benchmarked: hydration was most of its cost). Sorted by zone, then group.
  */
 export async function listDockingRenewalRows(ctx: OrgContext, dockingId: string): Promise<DockingRenewalRow[]> {
   requirePermission(ctx, 'org:read');

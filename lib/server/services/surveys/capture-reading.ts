@@ -1,5 +1,5 @@
 import { ZodError } from 'zod';
-import { AnodeGroupSchema, SurveyReadingSchema, SurveySchema } from '@/entities';
+import { AnodeGroupSchema, SurveySchema } from '@/entities';
 import { InputError } from '@/lib/errors/input-error';
 import { CAPTURE_CONFLICT_MESSAGES } from '@/lib/labels';
 import { captureReadingSchema, type CaptureItemResult } from '@/lib/schemas/surveys';
@@ -31,20 +31,19 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   if (!isUuid(surveyId)) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
   const survey = await ctx.em.findOne(SurveySchema, { id: surveyId, organisation: ctx.organisation }, { populate: ['asset'] });
   if (!survey) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.surveyGone);
-  const findExisting = () => (isUuid(deviceId) ? ctx.em.findOne(SurveyReadingSchema, { survey, deviceId }, { refresh: true }) : Promise.resolve(null));
-  const duplicate = (existing: { id: string; location: string }): CaptureItemResult => ({ deviceId, status: 'duplicate', readingId: existing.id, message: `Already recorded at ${existing.location}.` });
-  // Already recorded: answered without a lock or a permission check (a reading is safe whatever changed since).
-  const earlier = await findExisting();
-  if (earlier) return duplicate(earlier);
-  if (await deletedSinceRecorded(ctx, survey.id, deviceId)) return deletedSince(deviceId);
+  const answerFor = (prior: PriorCapture): CaptureItemResult | null =>
+    prior === null ? null : prior === 'deleted' ? deletedSince(deviceId) : { deviceId, status: 'duplicate', readingId: prior.id, message: `Already recorded at ${prior.location}.` };
+  // Already recorded (or recorded and deleted since): answered without a lock or a permission check (a reading
+  // is safe whatever changed since).
+  const earlier = answerFor(await priorCapture(ctx, survey.id, deviceId));
+  if (earlier) return earlier;
 
   // Only a member who may write takes the survey's lock (a viewer's queue never holds up the writers).
   requirePermission(ctx, 'survey:write');
   await lockSurvey(ctx, survey);
   // A send of the same item that held the lock first has recorded it meanwhile.
-  const existing = await findExisting();
-  if (existing) return duplicate(existing);
-  if (await deletedSinceRecorded(ctx, survey.id, deviceId)) return deletedSince(deviceId);
+  const meanwhile = answerFor(await priorCapture(ctx, survey.id, deviceId));
+  if (meanwhile) return meanwhile;
   if (survey.asset.archivedAt) throw new AppError('conflict', CAPTURE_CONFLICT_MESSAGES.assetArchived);
   const reading = captureReadingSchema(surveyElectrodeOf(survey)).parse(item);
   let groupLabel: string | null = null;
@@ -66,18 +65,23 @@ export async function captureReading(ctx: OrgContext, surveyId: string, item: Re
   return { deviceId, status: 'recorded', readingId: created.id, message: under ? `${saved} It is under-protected; ${underProtectionWords({ under, mailed })}.` : saved };
 }
 
+/** What became of an item sent before: its reading, `deleted` (recorded, deleted on the desk since), or null (never recorded). */
+type PriorCapture = { id: string; location: string } | 'deleted' | null;
+
 /**
- * Whether a reading was recorded under this device id and has been deleted since: the id is kept as used while no
- * reading carries it. One statement, so one snapshot: a send that commits the reading and its id together between
- * two separate reads could otherwise look deleted to a racing send.
+ * The reading recorded under this device id in this survey, and whether the organisation ever used the id, in one
+ * statement, so one snapshot: a send that commits the reading and its id together cannot look deleted to a
+ * racing send reading the two at different moments.
  */
-async function deletedSinceRecorded(ctx: OrgContext, surveyId: string, deviceId: string): Promise<boolean> {
-  if (!isUuid(deviceId)) return false;
-  const [row] = await ctx.em.execute<{ deleted: boolean }[]>(
-    'select exists (select 1 from used_device_id where organisation_id = ? and device_id = ?) and not exists (select 1 from survey_reading where survey_id = ? and device_id = ?::uuid) as deleted',
+async function priorCapture(ctx: OrgContext, surveyId: string, deviceId: string): Promise<PriorCapture> {
+  if (!isUuid(deviceId)) return null;
+  const [row] = await ctx.em.execute<{ id: string | null; location: string | null; used: boolean }[]>(
+    `select r.id, r.location, exists (select 1 from used_device_id u where u.organisation_id = ? and u.device_id = ?) as used
+       from (select 1) as one left join survey_reading r on r.survey_id = ? and r.device_id = ?::uuid`,
     [ctx.organisation.id, deviceId, surveyId, deviceId],
   );
-  return row?.deleted === true;
+  if (row?.id) return { id: row.id, location: row.location ?? '' };
+  return row?.used ? 'deleted' : null;
 }
 
 /**
