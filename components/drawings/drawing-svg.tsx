@@ -1,4 +1,8 @@
 import type { DrawingView, Shape, ShapeRole } from '@/lib/drawings/shapes';
+import { labelWidth } from '@/lib/drawings/shapes';
+import { escapeMarkup, svgDocument } from '@/lib/figures/markup';
+
+export { escapeMarkup };
 
 /*
  * One drawing view as SVG (the page's look; the PDFs draw the same shapes with @react-pdf/renderer, pdf-drawing.tsx).
@@ -34,31 +38,100 @@ export const ROLE_STYLES: Record<ShapeRole, Style> = {
 /** The class of a role: its look is in app/globals.css (.dw-<role>), which keeps every shape's markup short. */
 const cls = (role: ShapeRole) => `dw-${role}`;
 
-/** Text and attribute values escaped for markup built as a string. */
-export function escapeMarkup(value: string | number): string {
-  return String(value).replace(/[&<>"']/g, (c) => (c === '&' ? '&amp;' : c === '<' ? '&lt;' : c === '>' ? '&gt;' : c === '"' ? '&quot;' : '&#x27;'));
-}
-
 /*
  * The shapes are written as one string of SVG markup (dangerouslySetInnerHTML on the <svg>), not as React
  * elements: a drawing has hundreds of shapes, and every element a server component returns is walked twice per
  * request (the HTML and the RSC payload). On the asset page that walk was a large part of the page's cost
  * (measured). The markup is the same as the elements gave; the values come from our own geometry and are escaped.
  */
-function shapeMarkup(shape: Shape): string {
-  const c = cls(shape.role);
+function shapeMarkup(shape: Shape, look: (role: ShapeRole) => string = (role) => `class="${cls(role)}"`): string {
+  const c = look(shape.role);
   switch (shape.kind) {
     case 'rect':
-      return `<rect x="${shape.x}" y="${shape.y}" width="${shape.w}" height="${shape.h}" class="${c}" />`;
+      return `<rect x="${shape.x}" y="${shape.y}" width="${shape.w}" height="${shape.h}" ${c} />`;
     case 'path':
-      return `<path d="${escapeMarkup(shape.d)}" class="${c}" />`;
+      return `<path d="${escapeMarkup(shape.d)}" ${c} />`;
     case 'ellipse':
-      return `<ellipse cx="${shape.cx}" cy="${shape.cy}" rx="${shape.rx}" ry="${shape.ry}" class="${c}" />`;
+      return `<ellipse cx="${shape.cx}" cy="${shape.cy}" rx="${shape.rx}" ry="${shape.ry}" ${c} />`;
     case 'line':
-      return `<line x1="${shape.x1}" y1="${shape.y1}" x2="${shape.x2}" y2="${shape.y2}" class="${c}" />`;
+      return `<line x1="${shape.x1}" y1="${shape.y1}" x2="${shape.x2}" y2="${shape.y2}" ${c} />`;
     case 'text':
-      return `<text x="${shape.x}" y="${shape.y}"${shape.anchor === 'start' ? '' : ` text-anchor="${shape.anchor}"`} class="${c}">${escapeMarkup(shape.text)}</text>`;
+      return `<text x="${shape.x}" y="${shape.y}"${shape.anchor === 'start' ? '' : ` text-anchor="${shape.anchor}"`} ${c}>${escapeMarkup(shape.text)}</text>`;
   }
+}
+
+/**
+ * A role's look as presentation attributes, from ROLE_STYLES: the drawing served as an image carries its look in
+ * itself (no page CSS reaches an image, and attributes need no style-src in its Content-Security-Policy).
+ */
+const ROLE_ATTRIBUTES = Object.fromEntries(
+  Object.entries(ROLE_STYLES).map(([role, s]) => {
+    const fill = s.fill?.startsWith('pattern:') ? `url(#dw-${s.fill.slice(8)})` : (s.fill ?? 'none');
+    let attrs = `fill="${fill}"`;
+    if (s.stroke) attrs += ` stroke="${s.stroke}"`;
+    if (s.strokeWidth !== undefined) attrs += ` stroke-width="${s.strokeWidth}"`;
+    if (s.strokeDasharray) attrs += ` stroke-dasharray="${s.strokeDasharray}"`;
+    if (s.fontSize !== undefined) attrs += ` font-size="${s.fontSize}"`;
+    if (s.fontWeight !== undefined) attrs += ` font-weight="${s.fontWeight}"`;
+    return [role, attrs];
+  }),
+) as Record<ShapeRole, string>;
+const roleAttributes = (role: ShapeRole) => ROLE_ATTRIBUTES[role];
+
+/**
+ * A view as a standalone SVG document (served at its own address and drawn by the page as an image): the patterns,
+ * every shape and every group's shapes, each with its look. The links and their titles stay in the page
+ * (drawingOverlayMarkup), so the page carries a few hundred bytes a group instead of the whole drawing.
+ */
+export function drawingImageMarkup(view: DrawingView): string {
+  let out = `<title>${escapeMarkup(view.title)}</title>${PATTERN_DEFS}<rect width="${view.width}" height="${view.height}" fill="#ffffff" />`;
+  for (const shape of view.shapes) out += shapeMarkup(shape, roleAttributes);
+  for (const g of view.groups) for (const shape of g.shapes) out += shapeMarkup(shape, roleAttributes);
+  return svgDocument(view.width, view.height, out);
+}
+
+/** Rounds to a tenth of a drawing unit, as the shapes are. */
+const tenth = (v: number) => Math.round(v * 10) / 10;
+
+/**
+ * Where a group takes clicks, as one path of rectangles: each symbol's box and each text's estimated box (a
+ * symbol's fill level is inside its outline, so only outlines count), and the marker paths as they are.
+ */
+export function hitPathOf(shapes: readonly Shape[]): string {
+  const box = (x: number, y: number, w: number, h: number) => `M${tenth(x)} ${tenth(y)}h${tenth(w)}v${tenth(h)}h${tenth(-w)}z`;
+  let d = '';
+  for (const s of shapes) {
+    if (s.role === 'anode-left' || s.role === 'anode-unknown-mark') continue;
+    if (s.kind === 'rect') d += box(s.x, s.y, s.w, s.h);
+    else if (s.kind === 'ellipse') d += box(s.cx - s.rx, s.cy - s.ry, 2 * s.rx, 2 * s.ry);
+    else if (s.kind === 'path') d += s.d;
+    else if (s.kind === 'line') d += box(Math.min(s.x1, s.x2) - 2, Math.min(s.y1, s.y2) - 2, Math.abs(s.x2 - s.x1) + 4, Math.abs(s.y2 - s.y1) + 4);
+    else {
+      const size = ROLE_STYLES[s.role].fontSize ?? 8.5;
+      const w = labelWidth(s.text, size);
+      const x0 = s.anchor === 'start' ? s.x : s.anchor === 'end' ? s.x - w : s.x - w / 2;
+      d += box(x0, s.y - size * 0.8, w, size * 1.05);
+    }
+  }
+  return d;
+}
+
+/** Said where a figure's image did not load (no signal, session ended): the lists beside it still say it all. */
+export const FIGURE_NOT_LOADED = 'The drawing did not load: the list below gives every group and reading in words.';
+
+/**
+ * What goes inside a view's <svg> on the page when the view is drawn from its image: its title, the image, and
+ * each group as a titled link over the group's symbols and words (transparent; outlined on hover and on focus).
+ */
+export function drawingOverlayMarkup(view: DrawingView, titleId: string, imageHref: string): string {
+  let out = `<title id="${escapeMarkup(titleId)}">${escapeMarkup(view.title)}</title>`;
+  // Under the image (its white sheet covers it): what shows when the image cannot be loaded.
+  out += `<text x="16" y="40" font-size="12" fill="#5f6872">${escapeMarkup(FIGURE_NOT_LOADED)}</text>`;
+  out += `<image href="${escapeMarkup(imageHref)}" width="${view.width}" height="${view.height}" aria-hidden="true" />`;
+  for (const g of view.groups) {
+    out += `<a href="#${escapeMarkup(g.target)}" aria-label="${escapeMarkup(g.title)}"><title>${escapeMarkup(g.title)}</title><path d="${escapeMarkup(hitPathOf(g.shapes))}" fill="transparent" class="dw-hit" /></a>`;
+  }
+  return out;
 }
 
 /** What goes inside a view's <svg>: its title, the shapes, and each group as a titled link. */
@@ -106,12 +179,27 @@ export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { vi
   );
 }
 
-/** A small swatch of a role for the drawing's key (the patterns come from the page's PatternDefs). */
-export function KeySwatch({ role }: { role: ShapeRole }) {
-  return <svg width="22" height="12" viewBox="0 0 22 12" aria-hidden="true" className="dw inline-block shrink-0 align-middle" dangerouslySetInnerHTML={{ __html: keySwatchMarkup(role) }} />;
+/**
+ * A view drawn from its image (drawingImageMarkup at `imageHref`), with the same title, description and links as
+ * DrawingSvg: the page's markup stays small however many shapes the view has.
+ */
+export function DrawingFigure({ view, imageHref, idPrefix, describedBy, className = '' }: { view: DrawingView; imageHref: string; idPrefix: string; describedBy?: string; className?: string }) {
+  const titleId = `${idPrefix}-title`;
+  return (
+    <svg
+      viewBox={`0 0 ${view.width} ${view.height}`}
+      role={view.groups.length ? 'group' : 'img'}
+      aria-labelledby={titleId}
+      aria-describedby={describedBy}
+      className={`dw h-auto max-w-full ${className}`}
+      data-drawing-view={view.id}
+      dangerouslySetInnerHTML={{ __html: drawingOverlayMarkup(view, titleId, imageHref) }}
+    />
+  );
 }
 
-function keySwatchMarkup(role: ShapeRole): string {
+/** A small swatch of a role for the drawing's key, as markup for a 22 × 12 <svg> (the patterns come from the page's PatternDefs). */
+export function keySwatchMarkup(role: ShapeRole): string {
   if (role === 'anode') return `<rect x="6" y="5" width="9" height="4" class="${cls('anode-left')}" /><rect x="6" y="1" width="9" height="8" class="${cls('anode')}" />`;
   if (role === 'anode-unknown') return `<rect x="6" y="1" width="9" height="8" class="${cls('anode-unknown')}" /><text x="10.5" y="7.3" text-anchor="middle" class="${cls('anode-unknown-mark')}">?</text>`;
   if (role === 'reading') return `<path d="M11 1l5 5l-5 5l-5 -5z" class="${cls('reading')}" />`;

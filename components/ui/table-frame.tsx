@@ -1,3 +1,5 @@
+import { html, type SafeHtml } from '@/lib/figures/markup';
+
 const STICKY = '[&_tr>*:first-child]:sticky [&_tr>*:first-child]:left-0 [&_tr>*:first-child]:z-[1] [&_tbody_tr>*:first-child]:bg-paper-raised [&_tfoot_tr>*:first-child]:bg-paper-raised';
 const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_thead_tr>*:first-child]:bg-paper-raised' } as const;
 
@@ -12,10 +14,27 @@ const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_the
 // sentences (a renewal's reason) would shrink to a word per line and make every row a screen tall.
 const MIN_TABLE_WIDTH = '[&_table]:min-w-[44rem]';
 
-export function TableFrame({ label, children, className = '', head = 'raised', stickyFirstColumn = true, minWidth = true }: { label: string; children: React.ReactNode; className?: string; head?: keyof typeof HEAD; stickyFirstColumn?: boolean; minWidth?: boolean }) {
+interface FrameOptions {
+  className?: string;
+  head?: keyof typeof HEAD;
+  stickyFirstColumn?: boolean;
+  minWidth?: boolean;
+}
+
+/** The frame's classes (TableFrame's, and tableFrameHtml's for a table built as static markup). */
+export function tableFrameClassName({ className = '', head = 'raised', stickyFirstColumn = true, minWidth = true }: FrameOptions = {}): string {
+  return `relative max-w-full overflow-x-auto ${minWidth ? MIN_TABLE_WIDTH : ''} ${stickyFirstColumn ? `${STICKY} ${HEAD[head]}` : ''} ${className}`;
+}
+
+export function TableFrame({ label, children, ...options }: { label: string; children: React.ReactNode } & FrameOptions) {
   return (
-    <div role="region" aria-label={label} tabIndex={0} className={`relative max-w-full overflow-x-auto ${minWidth ? MIN_TABLE_WIDTH : ''} ${stickyFirstColumn ? `${STICKY} ${HEAD[head]}` : ''} ${className}`}>
+    <div role="region" aria-label={label} tabIndex={0} className={tableFrameClassName(options)}>
       {children}
     </div>
   );
+}
+
+/** The same frame around a table built with `html` (static markup). */
+export function tableFrameHtml(label: string, table: SafeHtml, options: FrameOptions = {}): SafeHtml {
+  return html`<div role="region" aria-label="${label}" tabindex="0" class="${tableFrameClassName(options)}">${table}</div>`;
 }

@@ -53,6 +53,8 @@ export interface AssetDrawing {
   grid: { rows: number; bents: number } | null;
   groups: DrawnGroup[];
   readings: DrawnReading[];
+  /** The readings at no group (location and words): drawn on the views, listed under the groups' list. */
+  otherReadings: string[];
 }
 
 export type AssetDrawingResult = { drawing: AssetDrawing; missing: null } | { drawing: null; missing: string };
@@ -89,6 +91,11 @@ function hullRows(scale: HullScale, groups: readonly DrawnGroup[], readings: rea
   });
 }
 
+/** The readings no group's row lists, in words. */
+function readingsAtNoGroup(readings: readonly DrawnReading[], atAGroup: (r: DrawnReading) => boolean): string[] {
+  return readings.filter((r) => !atAGroup(r)).map((r) => `${r.location}: ${r.words}`);
+}
+
 function row(g: DrawnGroup, drawn: boolean, readings: readonly DrawnReading[]): DrawingRow {
   return {
     id: g.id,
@@ -116,7 +123,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     ];
     const views = [hullView(particulars, 'starboard', groups, readings), hullView(particulars, 'port', groups, readings)];
     return {
-      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(scale, groups, readings), grid: null, groups: [...groups], readings: [...readings] },
+      drawing: { kind: 'hull', title: `${asset.name}: anodes on the hull`, views, key: [...HULL_ZONE_KEY.map(([role, label]) => ({ role, label })), ...SYMBOL_KEY], notes, rows: hullRows(scale, groups, readings), grid: null, groups: [...groups], readings: [...readings], otherReadings: readingsAtNoGroup(readings, (r) => groups.some((g) => sameSpot(g.position, r.position))) },
       missing: null,
     };
   }
@@ -140,7 +147,7 @@ export function buildAssetDrawing(asset: DrawingAsset, groups: readonly DrawnGro
     return row(g, piles.length > 0, at);
   });
   return {
-    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k.role === 'anode-unknown' ? { ...k, label: 'Pile with anodes, mass left not known (no forecast): dashed outline with "?"' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings] },
+    drawing: { kind: 'piles', title: `${asset.name}: anodes by pile`, views: [plan], key: [{ role: 'pile', label: 'Pile without anodes recorded' }, ...SYMBOL_KEY.map((k) => (k.role === 'anode' ? { ...k, label: 'Pile with anodes: the filled part is the mass left on it' } : k.role === 'anode-unknown' ? { ...k, label: 'Pile with anodes, mass left not known (no forecast): dashed outline with "?"' } : k))], notes, rows, grid: { rows: grid.rows, bents: grid.bents }, groups: [...groups], readings: [...readings], otherReadings: readingsAtNoGroup(readings, (r) => groups.some((g) => pilesCovered(r.position, grid).some((p) => pilesCovered(g.position, grid).some((q) => q.key === p.key)))) },
     missing: null,
   };
 }

@@ -41,8 +41,24 @@ test('an engineer opens the demo ferry drawing, clicks a group and finds the dra
   await expect(list.getByRole('row', { name: /Bottom P\/S/ })).toContainText('Hull bottom, frames 20–130, port and starboard, 0.4 m above keel');
   await expect(list.getByRole('row', { name: /Bottom P\/S/ })).toContainText(/\d+ % left/);
   await expect(list.getByRole('row', { name: /Rudders/ })).toContainText('Rudder P: -0.93 V, protected');
-  // The readings are marked on the drawing with value and word.
-  await expect(port.getByText('-0.96 V, protected')).toBeVisible();
+  // The readings are marked on the drawing with value and word: the view is drawn from its own SVG image (kept by
+  // the browser until it changes), which the page names with its version.
+  const portImage = await port.locator('image').getAttribute('href');
+  expect(portImage).toMatch(/\/figures\/port\?v=[0-9a-f]{14}$/);
+  const served = await page.request.get(portImage!);
+  expect(served.headers()['content-type']).toBe('image/svg+xml; charset=utf-8');
+  expect(served.headers()['cache-control']).toBe('private, max-age=86400, immutable');
+  expect(await served.text()).toContain('>-0.96 V, protected</text>');
+  // The browser decodes it as an image of the view's size under the page's own policy (img-src 'self').
+  const decoded = await page.evaluate(async (src) => {
+    const img = new Image();
+    img.src = src;
+    await img.decode();
+    return [img.naturalWidth, img.naturalHeight];
+  }, portImage!);
+  expect(decoded).toEqual([Number(await port.evaluate((svg) => svg.getAttribute('viewBox')!.split(' ')[2])), Number(await port.evaluate((svg) => svg.getAttribute('viewBox')!.split(' ')[3]))]);
+  // The reading is in the words under the drawing as well, with the group it was taken at.
+  await expect(list.getByRole('row', { name: /Bottom P\/S/ })).toContainText('Fr 40 P: -0.96 V, protected');
 
   // Clicking a group opens its row.
   await port.getByRole('link', { name: /^Sea chests: 1 anode on this side, \d+ % left$/ }).click();

@@ -18,6 +18,8 @@ import { HTTP_METHODS, databaseFingerprint, filesNamed, importFile, signInAs, si
 import { pdfText } from '../fixtures/pdf-text';
 import { uploadDirect } from '../fixtures/direct-upload';
 import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
+import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
+import { assetFigures, figureHref } from '@/lib/server/services/assets/asset-figures';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
@@ -26,7 +28,7 @@ vi.mock('next/headers', () => nextHeadersMock);
 const VESSEL = 'Route Test Vessel';
 const day = (offset: number) => addDays(new Date(), offset).toISOString().slice(0, 10);
 
-type Ids = Record<'designId' | 'dockingId' | 'surveyId' | 'attachmentId' | 'assetId' | 'deviceId', string>;
+type Ids = Record<'designId' | 'dockingId' | 'surveyId' | 'attachmentId' | 'assetId' | 'deviceId' | 'figure', string>;
 type Method = (typeof HTTP_METHODS)[number];
 type Handler = (req: NextRequest, route: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface Called {
@@ -79,6 +81,17 @@ const ROUTES: Route[] = [
   { path: 'designs/[designId]', method: 'GET', load: () => import('@/app/api/orgs/[org]/designs/[designId]/route'), permission: all, check: (r) => expect(r.body.design.id).toBe(ids.designId) },
   { path: 'designs/[designId]/note', method: 'GET', load: () => import('@/app/api/orgs/[org]/designs/[designId]/note/route'), permission: all, check: isPdf },
   { path: 'assets', method: 'GET', load: () => import('@/app/api/orgs/[org]/assets/route'), permission: all, check: (r) => expect(r.text).toContain(VESSEL) },
+  {
+    path: 'assets/[assetId]/figures/[figure]',
+    method: 'GET',
+    load: () => import('@/app/api/orgs/[org]/assets/[assetId]/figures/[figure]/route'),
+    permission: all,
+    check: (r) => {
+      expect(r.type).toBe('image/svg+xml; charset=utf-8');
+      expect(r.text.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true);
+      expect(r.text).toContain('Starboard side (bow right)');
+    },
+  },
   {
     path: 'assets',
     method: 'POST',
@@ -265,7 +278,7 @@ beforeAll(async () => {
   const attachment = await runAs(as('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'bow.png', bytes: PNG }, 'Bow thruster'));
   const direct = await uploadDirect(await as('inspector'), survey.id, 'route-completed-item', { name: 'rudder.png', bytes: PNG, contentType: 'image/png' });
   completedAttachmentId = direct.completed.attachment.id;
-  ids = { assetId: vessel.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'route-completed-item' };
+  ids = { assetId: vessel.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'route-completed-item', figure: 'starboard' };
 });
 afterAll(async () => (await getOrm()).close(true));
 
@@ -385,13 +398,14 @@ describe('organisation route handlers', () => {
     const survey = await runAs(outsider('inspector'), (c) => createSurvey(c, { assetId: boat.id, surveyedOn: day(-1), method: 'diver', defaultElectrode: 'cse' }));
     const attachment = await runAs(outsider('inspector'), (c) => addSurveyAttachment(c, survey.id, { name: 'foreign.png', bytes: PNG }, null));
     await uploadDirect(await outsider('inspector'), survey.id, 'foreign-completed-item', { name: 'foreign.png', bytes: PNG, contentType: 'image/png' });
-    const foreign: Ids = { assetId: boat.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'foreign-completed-item' };
+    const foreign: Ids = { assetId: boat.id, designId: design.id, dockingId: docking.id, surveyId: survey.id, attachmentId: attachment.id, deviceId: 'foreign-completed-item', figure: 'starboard' };
     await signInAs(home.users.owner);
     const saved = ids;
     try {
       for (const route of ROUTES.filter((r) => r.path.includes('['))) {
         for (const replacement of ['not-a-uuid', '00000000-0000-4000-8000-000000000000', 'foreign'] as const) {
-          ids = Object.fromEntries(Object.entries(saved).map(([k, v]) => [k, route.path.includes(`[${k}]`) ? (replacement === 'foreign' ? foreign[k as keyof Ids] : replacement) : v])) as Ids;
+          // A figure's name stays a figure's: the asset is what is looked up (and refused) here.
+          ids = Object.fromEntries(Object.entries(saved).map(([k, v]) => [k, route.path.includes(`[${k}]`) && k !== 'figure' ? (replacement === 'foreign' ? foreign[k as keyof Ids] : replacement) : v])) as Ids;
           const res = await refused(route, home.organisation.slug);
           expect(res.status, `${route.method} ${route.path} with ${replacement} ids: ${res.text.slice(0, 200)}`).toBe(404);
           expect(res.text).not.toContain('Foreign Boat');
@@ -404,6 +418,45 @@ describe('organisation route handlers', () => {
     } finally {
       ids = saved;
     }
+  });
+});
+
+describe("the asset page's figures", () => {
+  it('a figure asked for at the version the page names may be kept for a day; at another it is checked again; a repeat with its ETag is 304', async () => {
+    await signInAs(home.users.viewer);
+    const page = await getAssetPage(await ctxFor(await getEm(), home.organisation, home.users.viewer), ids.assetId);
+    const figures = assetFigures(page);
+    expect(figures.views.map((v) => v.name)).toEqual(['starboard', 'port']);
+    const route = ROUTES.find((r) => r.path === 'assets/[assetId]/figures/[figure]')!;
+    const handler = (await route.load()).GET as Handler;
+    const get = async (figure: string, version: string, headers: Record<string, string> = {}) => {
+      const href = figureHref(home.organisation.slug, ids.assetId, figure, version);
+      expect(href).toBe(`/api/orgs/${home.organisation.slug}/assets/${ids.assetId}/figures/${figure}?v=${version}`);
+      return handler(new NextRequest(`http://127.0.0.1${href}`, { headers }), { params: Promise.resolve({ org: home.organisation.slug, assetId: ids.assetId, figure }) });
+    };
+    for (const figure of figures.views) {
+      const res = await get(figure.name, figure.version);
+      expect(res.status).toBe(200);
+      expect(res.headers.get('cache-control')).toBe('private, max-age=86400, immutable');
+      expect(res.headers.get('etag')).toBe(`"${figure.version}"`);
+      // The same document the page's version was taken from.
+      expect(await res.text()).toBe(figure.document);
+      const repeat = await get(figure.name, figure.version, { 'if-none-match': `"${figure.version}"` });
+      expect(repeat.status).toBe(304);
+      expect(await repeat.text()).toBe('');
+    }
+    // A page opened before a change names an older version: it gets the current figure, not to be kept.
+    const stale = await get('port', '0000000000beef');
+    expect(stale.status).toBe(200);
+    expect(stale.headers.get('cache-control')).toBe('private, no-cache');
+    expect(await stale.text()).toBe(figures.views[1]!.document);
+    // The route vessel's group has a mean current: its chart is drawn too.
+    expect(figures.chart).not.toBeNull();
+    const chart = await get('chart', figures.chart!.version);
+    expect(chart.headers.get('content-type')).toBe('image/svg+xml; charset=utf-8');
+    expect(await chart.text()).toBe(figures.chart!.document);
+    // A name that is no figure is 404, as is a vessel's pile plan.
+    for (const name of ['plan', 'elevation', 'Chart']) expect((await get(name, 'x')).status).toBe(404);
   });
 });
 

@@ -5,6 +5,7 @@ import tailwind from '@/tailwind.config';
 import { StatusTag } from '@/components/ui/status-tag';
 import { Timeline, DOCKING_KIND_STYLES } from '@/components/planner/timeline';
 import { DepletionChart, seriesStyle } from '@/components/register/depletion-chart';
+import { depletionChartFigure } from '@/lib/figures/depletion-chart';
 import { DESIGN_STATUSES } from '@/entities/design.entity';
 import { DOCKING_KINDS, DOCKING_STATUSES } from '@/entities/docking.entity';
 import { RENEWAL_STATUSES } from '@/entities/renewal.entity';
@@ -140,8 +141,10 @@ describe('charts that read in grey print', () => {
       endKg: 10,
       endOfLife: null,
     }));
-    const html = renderToStaticMarkup(createElement(DepletionChart, { series, today: day('2026-06-01') }));
-    const groups = [...html.matchAll(/data-series="([A-Z]+)" data-dash="([^"]*)" data-marker="([a-z]+)"/g)].map((m) => ({ letter: m[1], dash: m[2], marker: m[3] }));
+    // The lines are in the chart's image (its own SVG document), the legend in the page.
+    const figure = depletionChartFigure({ series, today: day('2026-06-01') })!;
+    const html = renderToStaticMarkup(createElement(DepletionChart, { series, figure, src: '/chart.svg' }));
+    const groups = [...figure.document.matchAll(/data-series="([A-Z]+)" data-dash="([^"]*)" data-marker="([a-z]+)"/g)].map((m) => ({ letter: m[1], dash: m[2], marker: m[3] }));
     expect(groups.map((g) => g.letter)).toEqual(['A', 'B', 'C', 'D', 'E', 'F']);
     expect(new Set(groups.map((g) => g.dash)).size).toBe(6);
     expect(new Set(groups.map((g) => g.marker)).size).toBe(5); // five marker shapes; the sixth repeats the first with another dash

@@ -9,7 +9,7 @@ import { allowed } from '@/lib/server/org-context';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { ALLOY_LABELS, ASSET_KIND_LABELS, CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, HULL_MATERIAL_LABELS, METAL_WORDS, STATUS_LABELS, STRUCTURE_TYPE_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, eventWords, inSentence, surveyMethodWords } from '@/lib/labels';
 import { fmt } from '@/lib/format';
-import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
+import { formatDateOnly } from '@/lib/dates/date-only';
 import { FORECAST_DATE_LABELS, PARTICULAR_SOURCE_LABELS, RENEW_BY_DATE_WORDS } from '@/lib/labels';
 import { Caution, PageHeader, Panel, StatusTag } from '@/components/ui/panel';
 import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
@@ -24,7 +24,10 @@ import { DepletionChart } from '@/components/register/depletion-chart';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 import { TableFrame } from '@/components/ui/table-frame';
 import { AssetDrawingPanel } from '@/components/drawings/asset-drawing-panel';
+import { StaticHtml } from '@/components/ui/static-html';
+import { changesHtml, forecastTableHtml, particularsHtml } from '@/components/register/asset-page-markup';
 import { estimatedFrameSpacingM } from '@/lib/drawings/hull-drawing';
+import { assetFigures, figureHref } from '@/lib/server/services/assets/asset-figures';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -38,7 +41,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;
   }
-  const { today, asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, outlook, catalogue, dockings, changes, series, mixedAlloys, drawing } = page;
+  const { asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, outlook, catalogue, changes, series, mixedAlloys, drawing } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -81,6 +84,10 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
   const activeGroups = forecasts.map((f) => f.group);
   const modelChoices = catalogue.map((m) => ({ key: m.key, label: `${m.designation} (${ALLOY_LABELS[m.alloy]}, ${fmt(m.netMassKg, 1)} kg net)` }));
   const zoneChoices = zones.map((z) => ({ id: z.id, name: z.name }));
+  // The drawing's views and the chart are images of their own addresses (with their versions): kept by the
+  // browser until they change, so the page carries only the links and marks over them.
+  const figures = assetFigures(page);
+  const imageHrefs = Object.fromEntries(figures.views.map((v) => [v.name, figureHref(org, asset.id, v.name, v.version)]));
 
   return (
     <>
@@ -107,14 +114,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
       <div className="flex flex-col gap-4">
         <div className="grid grid-cols-1 items-start gap-4 xl:grid-cols-2">
           <Panel title="Particulars">
-            <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-3">
-              {particulars.map(([label, value]) => (
-                <div key={label}>
-                  <dt className="text-2xs uppercase tracking-wide text-ink-faint">{label}</dt>
-                  <dd>{value ?? '—'}</dd>
-                </div>
-              ))}
-            </dl>
+            <StaticHtml markup={particularsHtml(particulars)} />
             {canWrite ? (
               <Disclosure className="mt-3" summary="Edit particulars">
                 <div className="mt-3">
@@ -150,7 +150,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         </div>
 
         <Panel title={asset.kind === 'vessel' ? 'Drawing: where the anodes are' : 'Plan: anodes by pile'}>
-          <AssetDrawingPanel result={drawing} />
+          <AssetDrawingPanel result={drawing} imageHrefs={imageHrefs} />
         </Panel>
 
         <Panel title="Zones">
@@ -255,61 +255,12 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
               ) : null}
             </div>
           ) : null}
-          {changes.length ? (
-            <details className="mt-3 text-xs text-ink-soft">
-              <summary className="cursor-pointer">History of changes ({changes.length} latest)</summary>
-              <ul className="mt-1 flex flex-col gap-0.5">
-                {changes.map((c) => (
-                  <li key={c.id}>
-                    {format(c.createdAt, 'd MMM yyyy HH:mm')} · {c.group.label} · {c.changedByEmail}:{' '}
-                    {Object.entries(c.changes).map(([field, [from, to]]) => `${field} ${String(from ?? '—')} → ${String(to ?? '—')}`).join('; ')}
-                  </li>
-                ))}
-              </ul>
-            </details>
-          ) : null}
+          {changes.length ? <StaticHtml markup={changesHtml(changes)} /> : null}
         </Panel>
 
         <Panel title="Depletion forecast">
-          <DepletionChart
-            series={series}
-            today={today}
-            dockingsWord={eventWords(asset.kind).events}
-            dockings={dockings.map((d) => ({ date: parseDateOnly(d.actualStart ?? d.plannedStart), label: `${eventWords(asset.kind).Event} ${formatDateOnly(d.actualStart ?? d.plannedStart)}${d.status === 'done' ? ' (done)' : ''}` }))}
-          />
-          <TableFrame label="Forecast by group">
-          <table className="mt-3 w-full min-w-[56rem] text-sm" aria-label="Forecast by group">
-            <thead className="text-xs text-ink-soft">
-              <tr className="border-b border-rule">
-                <th className="py-1 text-left font-medium">Group</th>
-                <th className="py-1 text-right font-medium">Installed net</th>
-                <th className="py-1 text-right font-medium">Consumption</th>
-                <th className="py-1 pl-3 text-left font-medium">Basis</th>
-                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.renewBy}</th>
-                <th className="py-1 text-left font-medium">{FORECAST_DATE_LABELS.band}</th>
-                <th className="py-1 text-left font-medium text-ink-faint">{FORECAST_DATE_LABELS.endOfLife}</th>
-                <th className="py-1 pl-3 text-left font-medium">Renewal</th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((r) => (
-                <tr key={r.groupId} className="border-b border-rule align-top">
-                  <td className="py-1">{r.label}</td>
-                  <td className="num py-1">{fmt(r.installedNetKg, 1)} kg</td>
-                  <td className="num py-1">{r.ratePerYearKg === null ? '—' : `${fmt(r.ratePerYearKg, 1)} kg/yr`}</td>
-                  <td className="py-1 pl-3 text-xs">{r.basis}</td>
-                  <td className="py-1 font-medium">{r.renewBy ? formatDateOnly(r.renewBy) : r.ratePerYearKg !== null ? 'does not deplete' : '—'}</td>
-                  <td className="py-1 text-xs">{r.renewByEarly ? `${formatDateOnly(r.renewByEarly, 'MMM yyyy')} – ${r.renewByLate ? formatDateOnly(r.renewByLate, 'MMM yyyy') : 'later'}` : '—'}</td>
-                  <td className="py-1 text-xs text-ink-soft">{r.endOfLife ? formatDateOnly(r.endOfLife) : '—'}</td>
-                  <td className="py-1 pl-3">
-                    {r.renewal ?? '—'}
-                    {r.renewalReason ? <span className="block text-xs text-ink-soft">{r.renewalReason}</span> : null}
-                  </td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-          </TableFrame>
+          <DepletionChart series={series} figure={figures.chart} src={figures.chart ? figureHref(org, asset.id, 'chart', figures.chart.version) : ''} dockingsWord={eventWords(asset.kind).events} />
+          <StaticHtml markup={forecastTableHtml(rows)} />
           {!rows.length && !asset.archivedAt ? <p className="mt-2 text-sm text-ink-soft">No anodes recorded: record the fitted groups above so their renewals can be forecast and proposed.</p> : null}
           <p className="mt-2 text-sm text-ink-soft">{marginWords}</p>
           <p className="mt-1 text-xs text-ink-soft">{renewalRule}</p>
