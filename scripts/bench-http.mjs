@@ -28,6 +28,7 @@ const WARMUP_SECONDS = Number(process.env.TIDEWARDEN_BENCH_HTTP_WARMUP_SECONDS ?
 /** GET routes under app/api/orgs/[org] that answer a file or one record, not a list (so no list target). */
 const NOT_LISTS = {
   'anode-groups/export': 'the register as a CSV file (a download, not a list API)',
+  'assets/[assetId]/figures/[figure]': "one of the asset page's figures, an SVG image (the browser keeps it while its version stands)",
   'designs/[designId]': 'one design revision',
   'designs/[designId]/note': 'a PDF',
   'dockings/[dockingId]/anode-list': 'the anode list as a PDF or CSV file',

@@ -5,7 +5,7 @@ import { SafeHtml, html } from '@/lib/figures/markup';
 import { fmt } from '@/lib/format';
 import { FORECAST_DATE_LABELS } from '@/lib/labels';
 import type { ForecastRow } from '@/lib/server/services/assets/get-asset-page';
-import { tableFrameHtml } from '@/components/ui/table-frame';
+import { tableFrameClassName, type FrameOptions } from '@/components/ui/table-frame';
 import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
 
 /*
@@ -16,6 +16,11 @@ import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
  */
 
 const TH = 'py-1 text-left font-medium';
+
+/** TableFrame's frame around a table built with `html` (here, not in table-frame.tsx: the client tables import that file). */
+export function tableFrameHtml(label: string, table: SafeHtml, options: FrameOptions = {}): SafeHtml {
+  return html`<div role="region" aria-label="${label}" tabindex="0" class="${tableFrameClassName(options)}">${table}</div>`;
+}
 
 /** The particulars: label and value pairs, a dash for a value not recorded. */
 export function particularsHtml(particulars: readonly [string, string | null | undefined][]): SafeHtml {

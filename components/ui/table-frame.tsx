@@ -1,5 +1,3 @@
-import { html, type SafeHtml } from '@/lib/figures/markup';
-
 const STICKY = '[&_tr>*:first-child]:sticky [&_tr>*:first-child]:left-0 [&_tr>*:first-child]:z-[1] [&_tbody_tr>*:first-child]:bg-paper-raised [&_tfoot_tr>*:first-child]:bg-paper-raised';
 const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_thead_tr>*:first-child]:bg-paper-raised' } as const;
 
@@ -14,7 +12,7 @@ const HEAD = { sunk: '[&_thead_tr>*:first-child]:bg-paper-sunk', raised: '[&_the
 // sentences (a renewal's reason) would shrink to a word per line and make every row a screen tall.
 const MIN_TABLE_WIDTH = '[&_table]:min-w-[44rem]';
 
-interface FrameOptions {
+export interface FrameOptions {
   className?: string;
   head?: keyof typeof HEAD;
   stickyFirstColumn?: boolean;
@@ -32,9 +30,4 @@ export function TableFrame({ label, children, ...options }: { label: string; chi
       {children}
     </div>
   );
-}
-
-/** The same frame around a table built with `html` (static markup). */
-export function tableFrameHtml(label: string, table: SafeHtml, options: FrameOptions = {}): SafeHtml {
-  return html`<div role="region" aria-label="${label}" tabindex="0" class="${tableFrameClassName(options)}">${table}</div>`;
 }
