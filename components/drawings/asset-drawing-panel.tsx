@@ -1,5 +1,5 @@
 import type { AssetDrawingResult } from '@/lib/drawings/asset-drawing';
-import { DrawingFigure, PatternDefs } from './drawing-svg';
+import { DrawingSvg, PatternDefs } from './drawing-svg';
 import { PileElevation } from './pile-elevation';
 import { StaticHtml } from '@/components/ui/static-html';
 import { drawingListHtml } from '@/components/register/asset-page-markup';
@@ -20,7 +20,7 @@ export function AssetDrawingPanel({ result, imageHrefs, printLinks }: { result: 
       {d.views.map((view) => (
         // On a phone the drawing keeps a legible size and scrolls sideways rather than shrinking to the screen.
         <div key={view.id} role="region" aria-label={`${view.title}: scrolls sideways on a narrow screen`} tabIndex={0} className="max-w-full overflow-x-auto">
-          <DrawingFigure view={view} imageHref={imageHrefs[view.id] ?? ''} idPrefix={`drawing-${view.id}`} describedBy={listId} className="w-full min-w-[40rem] rounded-[3px] border border-rule bg-white" />
+          <DrawingSvg view={view} imageHref={imageHrefs[view.id] ?? ''} idPrefix={`drawing-${view.id}`} describedBy={listId} className="w-full min-w-[40rem] rounded-[3px] border border-rule bg-white" />
         </div>
       ))}
       {d.kind === 'piles' && d.grid ? <PileElevation grid={d.grid} groups={d.groups} readings={d.readings} /> : null}

@@ -163,8 +163,10 @@ export function PatternDefs() {
  * A view as an accessible drawing: a title and a description naming the list it summarises, each group a link to
  * its row in that list (or its pile) with its own title. A drawing with links is a group (an image's children are
  * presentational, so links inside one would be hidden from assistive technology); one without links is an image.
+ * With `imageHref` the shapes come from the view's image and the page carries only the links: its markup stays
+ * small however many shapes the view has.
  */
-export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { view: DrawingView; idPrefix: string; describedBy?: string; className?: string }) {
+export function DrawingSvg({ view, imageHref, idPrefix, describedBy, className = '' }: { view: DrawingView; /** Draw the view from its image (drawingImageMarkup served at this address), the links over it. */ imageHref?: string; idPrefix: string; describedBy?: string; className?: string }) {
   const titleId = `${idPrefix}-title`;
   return (
     <svg
@@ -174,26 +176,7 @@ export function DrawingSvg({ view, idPrefix, describedBy, className = '' }: { vi
       aria-describedby={describedBy}
       className={`dw h-auto max-w-full ${className}`}
       data-drawing-view={view.id}
-      dangerouslySetInnerHTML={{ __html: drawingViewMarkup(view, titleId) }}
-    />
-  );
-}
-
-/**
- * A view drawn from its image (drawingImageMarkup at `imageHref`), with the same title, description and links as
- * DrawingSvg: the page's markup stays small however many shapes the view has.
- */
-export function DrawingFigure({ view, imageHref, idPrefix, describedBy, className = '' }: { view: DrawingView; imageHref: string; idPrefix: string; describedBy?: string; className?: string }) {
-  const titleId = `${idPrefix}-title`;
-  return (
-    <svg
-      viewBox={`0 0 ${view.width} ${view.height}`}
-      role={view.groups.length ? 'group' : 'img'}
-      aria-labelledby={titleId}
-      aria-describedby={describedBy}
-      className={`dw h-auto max-w-full ${className}`}
-      data-drawing-view={view.id}
-      dangerouslySetInnerHTML={{ __html: drawingOverlayMarkup(view, titleId, imageHref) }}
+      dangerouslySetInnerHTML={{ __html: imageHref === undefined ? drawingViewMarkup(view, titleId) : drawingOverlayMarkup(view, titleId, imageHref) }}
     />
   );
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { createElement } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
-import { DrawingFigure, FIGURE_NOT_LOADED, ROLE_STYLES, drawingImageMarkup, drawingOverlayMarkup, hitPathOf } from '@/components/drawings/drawing-svg';
+import { DrawingSvg, FIGURE_NOT_LOADED, ROLE_STYLES, drawingImageMarkup, drawingOverlayMarkup, hitPathOf } from '@/components/drawings/drawing-svg';
 import { hullView, type DrawnGroup, type DrawnReading } from '@/lib/drawings/hull-drawing';
 import { pilePlanView, pileStates } from '@/lib/drawings/pile-plan';
 import { parsePosition } from '@/lib/drawings/parse-position';
@@ -86,10 +86,16 @@ describe('the links over the image', () => {
     expect(hitPathOf([{ kind: 'rect', role: 'anode-left', x: 1, y: 2, w: 3, h: 4 }])).toBe('');
   });
 
-  it('is what the page renders inside the view, with the title and the group role for a view with links', () => {
-    const html = renderToStaticMarkup(createElement(DrawingFigure, { view: port, imageHref: '/x.svg', idPrefix: 'drawing-port', describedBy: 'drawing-groups' }));
+  it('is what the page renders inside the view with an image address, with the title and the group role for a view with links', () => {
+    const html = renderToStaticMarkup(createElement(DrawingSvg, { view: port, imageHref: '/x.svg', idPrefix: 'drawing-port', describedBy: 'drawing-groups' }));
     expect(html).toMatch(/^<svg viewBox="0 0 \d+ \d+" role="group" aria-labelledby="drawing-port-title" aria-describedby="drawing-groups" class="dw /);
     expect(html).toContain(drawingOverlayMarkup(port, 'drawing-port-title', '/x.svg'));
+    expect(html).not.toContain('class="dw-hull"');
+    // Without an image address (the pile elevation, drawn on the phone) the view carries its shapes itself.
+    const inline = renderToStaticMarkup(createElement(DrawingSvg, { view: port, idPrefix: 'drawing-port' }));
+    expect(inline).toContain('class="dw-hull"');
+    expect(inline).toContain('>-0.96 V, protected</text>');
+    expect(inline).not.toContain('<image ');
   });
 
   it('links each pile of a plan to its elevation, over its symbol and its reading marker', () => {
