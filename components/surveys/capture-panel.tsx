@@ -270,9 +270,11 @@ export function CapturePanel({ org, surveyId, userId, defaultElectrode, groups, 
     } else {
       const locations = [...recent, reading.location].slice(-2);
       setRecent(locations);
-      await putSetting(locationsKey, locations).catch(() => undefined);
+      // The form is cleared for the next reading as soon as this one is kept, before the proposal is stored:
+      // what the inspector starts typing next is not overwritten by a reset arriving after it.
       setDraft(emptyDraft(nextLocation(reading.location, recent.at(-1) ?? null), draft.anodeGroupId));
       setDraftId(newIdempotencyKey());
+      await putSetting(locationsKey, locations).catch(() => undefined);
     }
     setNotice(`Saved on this phone: reading at ${reading.location}.`);
     await reload();

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { text } from '@/lib/schemas/text';
 import { withOrg } from '@/lib/server/with-org';
 import { notFound } from '@/lib/server/errors';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
@@ -25,5 +26,5 @@ export const GET = withOrg(
     if (req.headers.get('if-none-match') === etag) return new Response(null, { status: 304, headers });
     return new Response(figure.document, { headers });
   },
-  { permission: 'org:read', readOnly: true, query: z.object({ v: z.string().max(40).optional() }) },
+  { permission: 'org:read', readOnly: true, query: z.object({ v: text().max(40).optional() }) },
 );
