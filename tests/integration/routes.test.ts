@@ -19,7 +19,7 @@ import { pdfText } from '../fixtures/pdf-text';
 import { uploadDirect } from '../fixtures/direct-upload';
 import { newWorkerIdentity, recordHeartbeat } from '@/lib/server/worker-status';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
-import { assetFigures, figureHref } from '@/lib/server/services/assets/asset-figures';
+import { assetFigures, figureDay, figureHref } from '@/lib/server/services/assets/asset-figures';
 
 vi.mock('next/headers', () => nextHeadersMock);
 
@@ -424,7 +424,10 @@ describe('organisation route handlers', () => {
 describe("the asset page's figures", () => {
   it('a figure asked for at the version the page names may be kept for a day; at another it is checked again; a repeat with its ETag is 304', async () => {
     await signInAs(home.users.viewer);
-    const page = await getAssetPage(await ctxFor(await getEm(), home.organisation, home.users.viewer), ids.assetId);
+    // The page and the route draw for the day (figureDay): the same documents, hence the same versions, all day.
+    expect(figureDay(new Date('2027-03-14T23:59:59Z'))).toEqual(new Date('2027-03-14T00:00:00Z'));
+    expect(figureDay(new Date('2027-03-14T00:00:00Z'))).toEqual(new Date('2027-03-14T00:00:00Z'));
+    const page = await getAssetPage(await ctxFor(await getEm(), home.organisation, home.users.viewer), ids.assetId, figureDay());
     const figures = assetFigures(page);
     expect(figures.views.map((v) => v.name)).toEqual(['starboard', 'port']);
     const route = ROUTES.find((r) => r.path === 'assets/[assetId]/figures/[figure]')!;

@@ -1,5 +1,5 @@
 import { drawingImageMarkup } from '@/components/drawings/drawing-svg';
-import { formatDateOnly, parseDateOnly } from '@/lib/dates/date-only';
+import { formatDateOnly, parseDateOnly, todayDateOnly } from '@/lib/dates/date-only';
 import { depletionChartFigure, type ChartFigure, type ChartInput } from '@/lib/figures/depletion-chart';
 import { markupVersion } from '@/lib/figures/markup';
 import { eventWords } from '@/lib/labels';
@@ -44,6 +44,14 @@ export function assetFigures(page: Pick<AssetPageData, 'series' | 'today' | 'doc
     return { name: view.id, document, version: markupVersion(document) };
   });
   return { views, chart: depletionChartFigure(chartInputOf(page)) };
+}
+
+/**
+ * The day the asset page and its figures are drawn for: today at 00:00 UTC (the forecasts' dates are days). The
+ * same all day, so a figure keeps its version and the browser's copy from morning to evening unless the asset changes.
+ */
+export function figureDay(now: Date = new Date()): Date {
+  return parseDateOnly(todayDateOnly(now));
 }
 
 /** A figure's address, with its version (a new version is a new address: the browser's copy never goes stale). */

@@ -27,7 +27,7 @@ import { AssetDrawingPanel } from '@/components/drawings/asset-drawing-panel';
 import { StaticHtml } from '@/components/ui/static-html';
 import { changesHtml, forecastTableHtml, particularsHtml } from '@/components/register/asset-page-markup';
 import { estimatedFrameSpacingM } from '@/lib/drawings/hull-drawing';
-import { assetFigures, figureHref } from '@/lib/server/services/assets/asset-figures';
+import { assetFigures, figureDay, figureHref } from '@/lib/server/services/assets/asset-figures';
 
 export const metadata: Metadata = { title: 'Asset' };
 
@@ -36,7 +36,8 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
   const ctx = await getPageOrgContext(org);
   let page;
   try {
-    page = await getAssetPage(ctx, assetId);
+    // Drawn for the day (figureDay), as the figures' route draws them: their versions hold all day.
+    page = await getAssetPage(ctx, assetId, figureDay());
   } catch (error) {
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;

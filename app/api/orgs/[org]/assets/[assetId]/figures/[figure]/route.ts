@@ -3,7 +3,7 @@ import { text } from '@/lib/schemas/text';
 import { withOrg } from '@/lib/server/with-org';
 import { notFound } from '@/lib/server/errors';
 import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
-import { assetFigures, FIGURE_NAMES } from '@/lib/server/services/assets/asset-figures';
+import { assetFigures, figureDay, FIGURE_NAMES } from '@/lib/server/services/assets/asset-figures';
 
 // GET /api/orgs/[org]/assets/[assetId]/figures/[figure]?v=<version>: one of the asset page's figures (a view of
 // the drawing, or the depletion chart) as an SVG image, for any member who may see the asset. Asked for with the
@@ -13,7 +13,7 @@ export const GET = withOrg(
   async ({ ctx, params, query, req }) => {
     const name = z.enum(FIGURE_NAMES).safeParse(params.figure);
     if (!name.success) throw notFound('Figure');
-    const figures = assetFigures(await getAssetPage(ctx, params.assetId ?? ''));
+    const figures = assetFigures(await getAssetPage(ctx, params.assetId ?? '', figureDay()));
     const figure = name.data === 'chart' ? figures.chart : figures.views.find((v) => v.name === name.data);
     if (!figure) throw notFound('Figure');
     const etag = `"${figure.version}"`;
