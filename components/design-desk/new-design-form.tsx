@@ -1,11 +1,18 @@
 'use client';
 import { useState } from 'react';
+import dynamic from 'next/dynamic';
 import { Button } from '@/components/ui/button';
 import { Field, SelectField } from '@/components/ui/field';
 import { ActionForm, useBoundAction } from '@/components/ui/action-form';
-import { AssetFields } from '@/components/register/asset-fields';
 import { createDesignAction } from '@/app/o/[org]/designs/actions';
 import { assetKindWord } from '@/lib/labels';
+
+/*
+ * The new asset's fields, loaded when "A new vessel or structure…" is chosen (or shown from the start, with no
+ * asset yet): their code (the particulars' constants, the potential criteria and the schemas' lists) is not part of
+ * the design desk's first-load JavaScript otherwise (npm run bench, at most 1.5 x the smallest page).
+ */
+const AssetFields = dynamic(() => import('@/components/register/asset-fields').then((m) => m.AssetFields));
 
 /** Pick an asset, or create a vessel or structure on the spot; the desk opens with starting zones. */
 export function NewDesignForm({ org, assets }: { org: string; assets: { id: string; name: string; kind: string }[] }) {
