@@ -2,6 +2,7 @@ import type { AssetDrawingResult } from '@/lib/drawings/asset-drawing';
 import { DrawingSvg, PatternDefs } from './drawing-svg';
 import { PileElevation } from './pile-elevation';
 import { StaticHtml } from '@/components/ui/static-html';
+import type { SafeHtml } from '@/lib/figures/markup';
 import { drawingListHtml } from '@/components/register/asset-page-markup';
 
 /**
@@ -10,10 +11,13 @@ import { drawingListHtml } from '@/components/register/asset-page-markup';
  * count, remaining fraction and latest readings in words. Each group on the drawing links to its row here. The views
  * are drawn from their images (their own addresses, kept by the browser): the page carries the links over them.
  */
-export function AssetDrawingPanel({ result, imageHrefs, printLinks }: { result: AssetDrawingResult; /** Each view's image address (asset-figures.ts), by view id. */ imageHrefs: Record<string, string>; printLinks?: React.ReactNode }) {
+/** The id of the drawing's list of groups (the views' description). */
+export const DRAWING_LIST_ID = 'drawing-groups';
+
+export function AssetDrawingPanel({ result, imageHrefs, listMarkup, printLinks }: { result: AssetDrawingResult; /** Each view's image address (asset-figures.ts), by view id. */ imageHrefs: Record<string, string>; /** The key, notes and list (drawingListHtml with DRAWING_LIST_ID) when the caller built them already. */ listMarkup?: SafeHtml | null; printLinks?: React.ReactNode }) {
   if (!result.drawing) return <p className="text-sm text-ink-soft">{result.missing}</p>;
   const d = result.drawing;
-  const listId = 'drawing-groups';
+  const listId = DRAWING_LIST_ID;
   return (
     <div className="relative flex flex-col gap-3" data-drawing={d.kind}>
       <PatternDefs />
@@ -24,7 +28,7 @@ export function AssetDrawingPanel({ result, imageHrefs, printLinks }: { result: 
         </div>
       ))}
       {d.kind === 'piles' && d.grid ? <PileElevation grid={d.grid} groups={d.groups} readings={d.readings} /> : null}
-      <StaticHtml markup={drawingListHtml(d, listId)} />
+      <StaticHtml markup={listMarkup ?? drawingListHtml(d, listId)} />
       {printLinks}
     </div>
   );

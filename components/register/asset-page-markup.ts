@@ -3,7 +3,10 @@ import type { AssetDrawingResult } from '@/lib/drawings/asset-drawing';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { SafeHtml, html } from '@/lib/figures/markup';
 import { fmt } from '@/lib/format';
-import { FORECAST_DATE_LABELS } from '@/lib/labels';
+import { FORECAST_DATE_LABELS, STATUS_LABELS, surveyMethodWords } from '@/lib/labels';
+import type { SurveyMethod } from '@/entities';
+import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
+import { statusTagHtml } from '@/components/ui/status-tag-markup';
 import type { ForecastRow } from '@/lib/server/services/assets/get-asset-page';
 import { tableFrameClassName, type FrameOptions } from '@/components/ui/table-frame';
 import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
@@ -72,4 +75,25 @@ export function drawingListHtml(d: Drawing, listId: string): SafeHtml {
   // Readings at no group are drawn on the views (an image): in words here as well.
   const others = d.otherReadings.length ? html`<p class="text-xs text-ink-soft">Readings of the latest survey at no group: ${d.otherReadings.join('; ')}.</p>` : null;
   return html`${key}${notes}${tableFrameHtml('Anode groups on the drawing', table)}${others}`;
+}
+
+const LINK = 'text-tide-600 hover:underline';
+
+/** The asset's design revisions, newest first, each a link with who prepared it and its status. */
+export function designsHtml(org: string, designs: readonly { id: string; revision: number; title: string; status: string; preparedBy: { name: string } }[], deskLink: boolean): SafeHtml {
+  const list = designs.length
+    ? html`<ul class="divide-y divide-rule text-sm">${designs.map(
+        (d) =>
+          html`<li class="flex items-center justify-between gap-3 py-1.5"><a href="/o/${org}/designs/${d.id}" class="${LINK}">Rev. ${d.revision}: ${d.title}</a><span class="flex items-center gap-2 text-xs text-ink-soft">${d.preparedBy.name}${statusTagHtml(toneOf(DESIGN_STATUS_TONES, d.status), STATUS_LABELS[d.status as keyof typeof STATUS_LABELS] ?? d.status)}</span></li>`,
+      )}</ul>`
+    : html`<p class="text-sm text-ink-faint">No designs yet.</p>`;
+  return html`${list}${deskLink ? html`<a href="/o/${org}/designs" class="mt-2 inline-block text-sm text-tide-600 underline">Open a new design on the design desk</a>` : null}`;
+}
+
+/** The asset's latest surveys, newest first, each a link with its method and surveyor. */
+export function surveysHtml(org: string, surveys: readonly { id: string; surveyedOn: string; method: SurveyMethod; surveyor: string | null }[]): SafeHtml {
+  if (!surveys.length) return html`<p class="text-sm text-ink-faint">No surveys yet.</p>`;
+  return html`<ul class="divide-y divide-rule text-sm">${surveys.map(
+    (s) => html`<li class="flex items-center justify-between py-1.5"><a href="/o/${org}/surveys/${s.id}" class="${LINK}">${formatDateOnly(s.surveyedOn)}: ${surveyMethodWords(s.method)}${s.surveyor ? ` by ${s.surveyor}` : ''}</a></li>`,
+  )}</ul>`;
 }

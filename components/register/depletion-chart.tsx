@@ -1,7 +1,8 @@
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { forecastDateWords } from '@/lib/labels';
 import { CHART_NOT_LOADED, seriesStyle, seriesSwatchMarkup, type ChartFigure } from '@/lib/figures/depletion-chart';
-import { escapeMarkup } from '@/lib/figures/markup';
+import { SafeHtml, html } from '@/lib/figures/markup';
+import { StaticHtml } from '@/components/ui/static-html';
 
 export type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
@@ -18,32 +19,22 @@ interface Props {
 
 /**
  * Remaining net mass of each group over time, with survey points, renew-by and end-of-life marks, dockings and
- * today. The chart itself is an image of its own address (kept by the browser until it changes: the asset page
- * carries only the marks that show words on hover); the legend gives every series in words.
+ * today, as static markup. The chart itself is an image of its own address (kept by the browser until it changes:
+ * the page carries only the marks that show words on hover); the legend gives every series in words.
  */
-export function DepletionChart({ series, figure, src, dockingsWord = 'dockings' }: Props) {
-  if (!figure) return <p className="text-sm text-ink-faint">No forecast to draw yet: fit anode groups with a design or a mean current.</p>;
-  return (
-    <figure className="flex flex-col gap-2">
-      <svg
-        viewBox={`0 0 ${figure.width} ${figure.height}`}
-        role="img"
-        aria-label={figure.title}
-        className="chart w-full rounded-[3px] border border-rule bg-paper-raised"
-        // Under the image (its white sheet covers it): what shows when the image cannot be loaded.
-        dangerouslySetInnerHTML={{ __html: `<text x="16" y="40" font-size="12" fill="#5f6872">${escapeMarkup(CHART_NOT_LOADED)}</text><image href="${escapeMarkup(src)}" width="${figure.width}" height="${figure.height}" />${figure.marks}` }}
-      />
-      <figcaption className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">
-        {series.map((s, i) => (
-          <span key={s.label} className="inline-flex items-center gap-1.5">
-            <svg width="34" height="12" aria-hidden dangerouslySetInnerHTML={{ __html: seriesSwatchMarkup(i) }} />
-            <strong className="font-semibold text-ink">{seriesStyle(i).letter}</strong> {s.label}
-            {s.renewBy ? `: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy, 'MMM yyyy')}` : ''}
-            {s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}
-          </span>
-        ))}
-        <span>Letters and markers: one per group · ○ survey estimate · ◆ {forecastDateWords('renewBy')} · × {forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: {dockingsWord}</span>
-      </figcaption>
-    </figure>
+export function depletionChartHtml({ series, figure, src, dockingsWord = 'dockings' }: Props): SafeHtml {
+  if (!figure) return html`<p class="text-sm text-ink-faint">No forecast to draw yet: fit anode groups with a design or a mean current.</p>`;
+  // Under the image (its white sheet covers it): what shows when the image cannot be loaded. The marks are our own
+  // markup (depletionChartFigure escapes every word in them).
+  const inside = html`<text x="16" y="40" font-size="12" fill="#5f6872">${CHART_NOT_LOADED}</text><image href="${src}" width="${figure.width}" height="${figure.height}"></image>${new SafeHtml(figure.marks)}`;
+  const legend = series.map(
+    (s, i) =>
+      html`<span class="inline-flex items-center gap-1.5"><svg width="34" height="12" aria-hidden="true">${new SafeHtml(seriesSwatchMarkup(i))}</svg><strong class="font-semibold text-ink">${seriesStyle(i).letter}</strong> ${s.label}${s.renewBy ? `: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy, 'MMM yyyy')}` : ''}${s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}</span>`,
   );
+  return html`<figure class="flex flex-col gap-2"><svg viewBox="0 0 ${figure.width} ${figure.height}" role="img" aria-label="${figure.title}" class="chart w-full rounded-[3px] border border-rule bg-paper-raised">${inside}</svg><figcaption class="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">${legend}<span>Letters and markers: one per group · ○ survey estimate · ◆ ${forecastDateWords('renewBy')} · × ${forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: ${dockingsWord}</span></figcaption></figure>`;
+}
+
+/** The chart with its legend (depletionChartHtml) where a React tree wants an element. */
+export function DepletionChart(props: Props) {
+  return <StaticHtml markup={depletionChartHtml(props)} />;
 }

@@ -11,6 +11,15 @@ export interface CurrentUser {
   email: string;
   name: string;
   emailVerified: boolean;
+  /** The user's memberships as read with the session (this request), for entry points that only read. */
+  memberships?: readonly MembershipRow[];
+}
+
+/** A membership with its organisation as rows (row_to_json), keyed by the organisation's slug. */
+export interface MembershipRow {
+  slug: string;
+  membership: Record<string, unknown>;
+  organisation: Record<string, unknown>;
 }
 
 /** Everything a service needs to act for a member inside one organisation. */
@@ -29,17 +38,35 @@ export interface OrgContext {
  * Resolves the organisation from the URL slug and the signed-in user's membership.
  * A non-member gets "not found", never "forbidden", so the organisation's existence is not revealed.
  */
-export async function getOrgContextOrThrow(em: EntityManager, user: CurrentUser, slug: string, ip: string | null, effects: Effects): Promise<OrgContext> {
+export async function getOrgContextOrThrow(
+  em: EntityManager,
+  user: CurrentUser,
+  slug: string,
+  ip: string | null,
+  effects: Effects,
+  /** Take the membership read with the session (user.memberships) when there is one: for entry points that only read. A change reads it again, inside its transaction. */
+  readWithSession = false,
+): Promise<OrgContext> {
   // Every page and API call resolves its membership here, so it is one plain statement (the ORM's query building
-  // for the same join cost more than the statement itself); the rows are mapped to managed entities as find would.
-  const [row] = await em.execute<(Record<string, unknown> & { tw_organisation: Record<string, unknown> })[]>(
-    `select m.*, row_to_json(o) as tw_organisation from membership m join organisation o on o.id = m.organisation_id where m.user_id = ? and o.slug = ?`,
-    [user.id, slugOrNotFound(slug)],
-  );
+  // for the same join cost more than the statement itself), or none when it came with the session; the rows are
+  // mapped to managed entities as find would.
+  const wanted = slugOrNotFound(slug);
+  let row: { membership: Record<string, unknown>; organisation: Record<string, unknown> } | undefined;
+  if (readWithSession && user.memberships) {
+    row = user.memberships.find((m) => m.slug === wanted);
+  } else {
+    const [found] = await em.execute<(Record<string, unknown> & { tw_organisation: Record<string, unknown> })[]>(
+      `select m.*, row_to_json(o) as tw_organisation from membership m join organisation o on o.id = m.organisation_id where m.user_id = ? and o.slug = ?`,
+      [user.id, wanted],
+    );
+    if (found) {
+      const { tw_organisation, ...membership } = found;
+      row = { membership, organisation: tw_organisation };
+    }
+  }
   if (!row) throw notFound('Organisation');
-  const { tw_organisation, ...membershipRow } = row;
-  em.map(OrganisationSchema, tw_organisation);
-  const membership = em.map(MembershipSchema, membershipRow);
+  em.map(OrganisationSchema, row.organisation);
+  const membership = em.map(MembershipSchema, row.membership);
   const ctx: OrgContext = { em, user, organisation: membership.organisation, membership, role: membership.role, ip, effects };
   effects.ctx = ctx;
   return ctx;

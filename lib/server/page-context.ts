@@ -13,7 +13,7 @@ export const getPageOrgContext = cache(async (slug: string): Promise<OrgContext>
   if (!user) redirect(`/sign-in?next=${encodeURIComponent(`/o/${slug}`)}`);
   try {
     // Pages only read: services never flush, and effects recorded here are never applied.
-    return await getOrgContextOrThrow(await getEm(), user, slug, null, new Effects());
+    return await getOrgContextOrThrow(await getEm(), user, slug, null, new Effects(), true);
   } catch (error) {
     if (error instanceof AppError && error.code === 'not-found') notFound();
     throw error;

@@ -132,7 +132,7 @@ export function runInOrg<T>(access: OrgAccess, work: (ctx: OrgContext) => Promis
 export async function readInOrg<T>(access: OrgAccess, work: (ctx: OrgContext) => Promise<T>): Promise<T> {
   const em = await getEm();
   const effects = new Effects();
-  const ctx = await getOrgContextOrThrow(em, access.user, access.slug, access.ip ?? null, effects);
+  const ctx = await getOrgContextOrThrow(em, access.user, access.slug, access.ip ?? null, effects, true);
   requirePermission(ctx, access.permission);
   const value = await work(ctx);
   const uow = em.getUnitOfWork();

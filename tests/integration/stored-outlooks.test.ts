@@ -16,12 +16,13 @@ import { createDocking, updateDocking } from '@/lib/server/services/planner/dock
 import { addRenewal, cancelRenewal, confirmRenewal, updateRenewal } from '@/lib/server/services/planner/renewals';
 import { computePlans } from '@/lib/server/services/planner/compute-plans';
 import { forgetKeptPlans, planSummaryOf } from '@/lib/server/services/planner/stored-outlooks';
-import { getAssetPage } from '@/lib/server/services/assets/get-asset-page';
+import { forgetKeptPages, getAssetPage, type AssetPage } from '@/lib/server/services/assets/get-asset-page';
 import { refreshStaleOutlooks } from '@/lib/server/services/planner/refresh-outlooks';
 import { createDesign } from '@/lib/server/services/designs/create-design';
 import { saveDesign } from '@/lib/server/services/designs/save-design';
 import { readDesignRecord } from '@/lib/server/services/designs/read-design-record';
 import { updateOrganisationSettings } from '@/lib/server/services/accounts/update-organisation-settings';
+import { createAnodeModel } from '@/lib/server/services/catalogue/manage-anode-models';
 import type { ListQuery } from '@/lib/schemas/register';
 import { atOnceSettled } from '../fixtures/at-once';
 import { ctxFor, makeOrgWithRoles, runAs } from '../fixtures/factories';
@@ -76,12 +77,38 @@ async function expectOverviewMatchesFreshPlans() {
       renewBy: want.renewBy,
     });
   }
-  // The tug's asset page, as this process keeps it, against the same page computed afresh.
-  const kept = await getAssetPage(await ctx('viewer'), ids.tug, today);
-  forgetKeptPlans();
-  const afresh = await getAssetPage(await ctx('viewer'), ids.tug, today);
-  expect({ outlook: kept.outlook, rows: kept.rows }).toEqual({ outlook: afresh.outlook, rows: afresh.rows });
+  // The tug's asset page, as this process keeps it (the plan, and the whole page), against the same page built afresh,
+  // for a member who only reads and one who may change the register (who is also offered the catalogue).
+  // A page is kept only under a plan stored today (one from another day is built afresh on every request).
+  const storedToday = (await storedRows()).some((r) => r.asset_id === ids.tug && r.computed_on === toDateOnly(today));
+  for (const role of ['viewer', 'engineer'] as const) {
+    const kept = await getAssetPage(await ctx(role), ids.tug, today);
+    const again = await getAssetPage(await ctx(role), ids.tug, today);
+    if (storedToday) expect(again, 'a second request with nothing changed is given the kept page').toBe(kept);
+    else expect(again, 'a plan stored another day: the page is not kept').not.toBe(kept);
+    forgetKeptPlans();
+    forgetKeptPages();
+    const afresh = await getAssetPage(await ctx(role), ids.tug, today);
+    expect(afresh).not.toBe(kept);
+    // Each member is given the page for their own access: the reader's is not the one offering the catalogue.
+    expect({ canWrite: kept.canWrite, catalogue: kept.catalogue.length > 0 }).toEqual({ canWrite: role === 'engineer', catalogue: role === 'engineer' });
+    expect(shownOf(kept)).toEqual(shownOf(afresh));
+  }
   return fleet;
+}
+
+/** What the asset page shows of its data, as plain values (the entities themselves are not compared). */
+function shownOf(page: AssetPage) {
+  const { asset, forecasts, dockings, today, ...shown } = page;
+  return JSON.parse(
+    JSON.stringify({
+      ...shown,
+      asset: { name: asset.name, highStrengthSteel: asset.highStrengthSteel, archivedAt: asset.archivedAt ?? null },
+      groups: forecasts.map((f) => ({ id: f.group.id, label: f.group.label, quantity: f.group.quantity, renewBy: f.forecast?.renewBy ?? null })),
+      dockings: dockings.map((d) => ({ id: d.id, plannedStart: d.plannedStart, status: d.status })),
+      today,
+    }),
+  );
 }
 
 beforeAll(async () => {
@@ -212,6 +239,34 @@ describe('the stored plan summary (asset_outlook)', () => {
     expect((await storedRows()).every((r) => r.computed_on === day(0))).toBe(true);
     expect(await refreshStaleOutlooks((await getEm()).fork())).toBe(0);
     await expectOverviewMatchesFreshPlans();
+  });
+
+  it('the kept asset page follows what it shows beside the plan, even a change that stores no new plan', async () => {
+    // A kept page under today's stored plan.
+    await runAs(ctx('engineer'), (c) => updateAsset(c, ids.tug, { kind: 'vessel', name: 'Store Tug', hullMaterial: 'steel', lengthBppM: 30, beamM: 9, draughtM: 3.5, blockCoefficient: 0.55 }));
+    const today = new Date();
+    const before = await getAssetPage(await ctx('engineer'), ids.tug, today);
+    expect(await getAssetPage(await ctx('engineer'), ids.tug, today)).toBe(before);
+    const em = (await getEm()).fork();
+    const version = async () => (await em.getConnection().execute<{ version: string }[]>(`select version from asset_outlook where asset_id = ?`, [ids.tug]))[0]!.version;
+    const stored = await version();
+    // Written past the unit of work (as a change that feeds no plan would be): the particulars and a survey's surveyor.
+    await em.getConnection().execute(`update asset set imo_number = '9000001', trading_waters = 'Kept-page test waters' where id = ?`, [ids.tug]);
+    const particulars = await getAssetPage(await ctx('engineer'), ids.tug, today);
+    expect(particulars).not.toBe(before);
+    expect({ imo: particulars.asset.imoNumber, waters: particulars.asset.tradingWaters }).toEqual({ imo: '9000001', waters: 'Kept-page test waters' });
+    await em.getConnection().execute(`update survey set surveyor = 'Kept-page Divers' where asset_id = ?`, [ids.tug]);
+    const surveys = await getAssetPage(await ctx('engineer'), ids.tug, today);
+    expect(surveys).not.toBe(particulars);
+    expect(surveys.surveys.map((s) => s.surveyor)).toContain('Kept-page Divers');
+    // The organisation's own anode model joins the catalogue the group forms offer.
+    await runAs(ctx('engineer'), (c) => createAnodeModel(c, { alloy: 'zinc', mounting: 'flush-bolt', shapeKind: 'short-flush', lengthM: 0.3, widthM: 0.15, thicknessM: 0.03, exposedAreaM2: 0.06, netMassKg: 8, grossMassKg: 8.5, designation: 'KEPT-1' }));
+    const catalogue = await getAssetPage(await ctx('engineer'), ids.tug, today);
+    expect(catalogue).not.toBe(surveys);
+    expect(catalogue.catalogue.map((m) => m.designation)).toContain('KEPT-1');
+    // None of these stored a new plan: the page followed them through its own key, not the plan's version.
+    expect(await version()).toBe(stored);
+    expect(await getAssetPage(await ctx('engineer'), ids.tug, today)).toBe(catalogue);
   });
 
   it('an archived asset shows no outlook, and its summary is not refreshed', async () => {

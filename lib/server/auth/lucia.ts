@@ -2,6 +2,7 @@ import { Lucia, TimeSpan } from 'lucia';
 import { getOrm } from '../db';
 import { getEnv } from '../env';
 import { MikroOrmLuciaAdapter } from './lucia-adapter';
+import type { MembershipRow } from '../org-context';
 
 let instance: Lucia | undefined;
 
@@ -18,6 +19,7 @@ export function getLucia() {
       email: attributes.email,
       name: attributes.name,
       emailVerified: attributes.emailVerified,
+      memberships: attributes.memberships,
     }),
   });
   return instance;
@@ -25,7 +27,7 @@ export function getLucia() {
 
 declare module 'lucia' {
   interface Register {
-    Lucia: Lucia<Record<never, never>, { email: string; name: string; emailVerified: boolean }>;
-    DatabaseUserAttributes: { email: string; name: string; emailVerified: boolean };
+    Lucia: Lucia<Record<never, never>, { email: string; name: string; emailVerified: boolean; memberships: readonly MembershipRow[] }>;
+    DatabaseUserAttributes: { email: string; name: string; emailVerified: boolean; memberships: readonly MembershipRow[] };
   }
 }

@@ -30,7 +30,7 @@ export const getCurrentSession = cache(async (): Promise<{ user: LuciaUser; sess
 });
 
 export function toCurrentUser(user: LuciaUser): CurrentUser {
-  return { id: user.id, email: user.email, name: user.name, emailVerified: user.emailVerified };
+  return { id: user.id, email: user.email, name: user.name, emailVerified: user.emailVerified, memberships: user.memberships };
 }
 
 export async function getCurrentUser(): Promise<CurrentUser | null> {

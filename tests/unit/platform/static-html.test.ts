@@ -4,7 +4,11 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { SafeHtml, escapeMarkup, html } from '@/lib/figures/markup';
 import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
 import { StaticHtml } from '@/components/ui/static-html';
-import { changesHtml, drawingListHtml, forecastTableHtml, particularsHtml } from '@/components/register/asset-page-markup';
+import { changesHtml, designsHtml, drawingListHtml, forecastTableHtml, particularsHtml, surveysHtml } from '@/components/register/asset-page-markup';
+import { StatusTag } from '@/components/ui/status-tag';
+import { statusTagHtml } from '@/components/ui/status-tag-markup';
+import { DESIGN_STATUS_TONES, STATUS_TONES } from '@/lib/status/palette';
+import { STATUS_LABELS, surveyMethodWords } from '@/lib/labels';
 import { buildAssetDrawing } from '@/lib/drawings/asset-drawing';
 import { parsePosition } from '@/lib/drawings/parse-position';
 import type { ForecastRow } from '@/lib/server/services/assets/get-asset-page';
@@ -74,5 +78,28 @@ describe("the asset page's static parts", () => {
     // The reading at no group (frame 90 starboard) is drawn on the image only: it is in words under the list too.
     expect(drawing.otherReadings).toEqual([`${HOSTILE}: -0.78 V, under-protected`]);
     expect(out).toContain(`<p class="text-xs text-ink-soft">Readings of the latest survey at no group: ${ESCAPED}: -0.78 V, under-protected.</p>`);
+  });
+});
+
+describe('status tags, design and survey lists as static markup', () => {
+  it.each(STATUS_TONES)('the %s tag built as markup is the StatusTag element, word for word', (tone) => {
+    const element = renderToStaticMarkup(createElement(StatusTag, { tone, children: HOSTILE }));
+    expect(statusTagHtml(tone, HOSTILE).value).toBe(element);
+    expect(element).toContain(ESCAPED);
+  });
+
+  it('the designs: each revision links to its page with who prepared it and its status in words, values escaped', () => {
+    const out = designsHtml('pcl', [{ id: 'd-1', revision: 2, title: HOSTILE, status: 'approved', preparedBy: { name: 'Ines Harrow' } }], true).value;
+    expect(out).toContain(`<a href="/o/pcl/designs/d-1" class="text-tide-600 hover:underline">Rev. 2: ${ESCAPED}</a>`);
+    expect(out).toContain(statusTagHtml(DESIGN_STATUS_TONES.approved, STATUS_LABELS.approved).value);
+    expect(out).toContain('Ines Harrow');
+    expect(out).toContain('href="/o/pcl/designs"');
+    expect(designsHtml('pcl', [], false).value).toBe('<p class="text-sm text-ink-faint">No designs yet.</p>');
+  });
+
+  it('the surveys: each links to its page with its day, method and surveyor, values escaped', () => {
+    const out = surveysHtml('pcl', [{ id: 's-1', surveyedOn: '2027-03-14', method: 'diver', surveyor: HOSTILE }]).value;
+    expect(out).toContain(`<a href="/o/pcl/surveys/s-1" class="text-tide-600 hover:underline">14 Mar 2027: ${surveyMethodWords('diver')} by ${ESCAPED}</a>`);
+    expect(surveysHtml('pcl', []).value).toBe('<p class="text-sm text-ink-faint">No surveys yet.</p>');
   });
 });

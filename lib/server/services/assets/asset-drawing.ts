@@ -1,4 +1,5 @@
 import type { Asset, Survey } from '@/entities';
+import { requirePermission, type OrgContext } from '../../org-context';
 import { buildAssetDrawing, type AssetDrawingResult } from '@/lib/drawings/asset-drawing';
 import type { DrawnGroup, DrawnReading } from '@/lib/drawings/hull-drawing';
 import { parsePosition } from '@/lib/drawings/parse-position';
@@ -6,7 +7,6 @@ import { positionOf } from '@/lib/drawings/position-of';
 import { POTENTIAL_STATUS_LABELS, inSentence } from '@/lib/labels';
 import { surveyCriteriaOf } from '@/lib/register/protected-metal';
 import { classifyPotential, formatVolts } from '@/lib/surveys/criteria';
-import { requirePermission, type OrgContext } from '../../org-context';
 import type { GroupWithForecast } from '../forecast/group-forecasts';
 
 /** Readings a drawing marks at most (the latest survey's, in line order). */
@@ -36,23 +36,37 @@ export function readingWords(asset: Pick<Asset, 'kind' | 'hullMaterial' | 'anaer
   return null;
 }
 
+/** A reading of the latest survey as the drawing takes it (read with the asset page's statement). */
+export interface PageReading {
+  location: string;
+  potentialAgAgClV: number | null;
+  remainingFraction: number | null;
+}
+
 /**
- * The asset's drawing from what the asset page already read (its groups with their forecasts, its surveys newest
- * first), plus one statement: the readings of the latest survey. Constant in the number of groups.
+ * The asset's drawing from what the asset page read (its groups with their forecasts, the readings of its latest
+ * survey in line order, at most MAX_DRAWN_READINGS): no statement of its own.
  */
-export async function loadAssetDrawing(ctx: OrgContext, asset: Asset, forecasts: readonly GroupWithForecast[], latestSurvey: Pick<Survey, 'id'> | null, today: Date): Promise<AssetDrawingResult> {
-  requirePermission(ctx, 'org:read');
-  // Plain SQL: the asset page reads on every request (a benchmarked page); the survey is the asset's own, read by the caller.
-  const rows = latestSurvey
-    ? await ctx.em.execute<{ location: string; potentialAgAgClV: number | null; remainingFraction: number | null }[]>(
-        `select location, potential_ag_ag_cl_v as "potentialAgAgClV", remaining_fraction as "remainingFraction"
-           from survey_reading where survey_id = ? order by line asc nulls last, id asc limit ?`,
-        [latestSurvey.id, MAX_DRAWN_READINGS],
-      )
-    : [];
+export function assetDrawing(asset: Asset, forecasts: readonly GroupWithForecast[], rows: readonly PageReading[], today: Date): AssetDrawingResult {
   const readings: DrawnReading[] = rows.flatMap((r) => {
     const words = readingWords(asset, r);
     return words ? [{ location: r.location, position: parsePosition(r.location, asset.kind), words }] : [];
   });
   return buildAssetDrawing(asset, drawnGroups(forecasts, today, asset.kind), readings);
+}
+
+/**
+ * The asset's drawing for a caller that has not read the readings (the calculation note): the groups given, plus one
+ * statement, the readings of the latest survey. Constant in the number of groups.
+ */
+export async function loadAssetDrawing(ctx: OrgContext, asset: Asset, forecasts: readonly GroupWithForecast[], latestSurvey: Pick<Survey, 'id'> | null, today: Date): Promise<AssetDrawingResult> {
+  requirePermission(ctx, 'org:read');
+  const rows = latestSurvey
+    ? await ctx.em.execute<PageReading[]>(
+        `select location, potential_ag_ag_cl_v as "potentialAgAgClV", remaining_fraction as "remainingFraction"
+           from survey_reading where survey_id = ? order by line asc nulls last, id asc limit ?`,
+        [latestSurvey.id, MAX_DRAWN_READINGS],
+      )
+    : [];
+  return assetDrawing(asset, forecasts, rows, today);
 }

@@ -4,6 +4,7 @@ import { depletionChartFigure, type ChartFigure, type ChartInput } from '@/lib/f
 import { markupVersion } from '@/lib/figures/markup';
 import { eventWords } from '@/lib/labels';
 import type { getAssetPage } from './get-asset-page';
+import { keptWith } from '../../kept-with';
 
 /*
  * The asset page's figures (the drawing's views and the depletion chart) as standalone SVG documents, each with
@@ -38,7 +39,12 @@ export function chartInputOf(page: Pick<AssetPageData, 'series' | 'today' | 'doc
   };
 }
 
+/** The page's figures with their versions: built once per page kept (getAssetPage keeps a page while its data stand). */
 export function assetFigures(page: Pick<AssetPageData, 'series' | 'today' | 'dockings' | 'asset' | 'drawing'>): { views: AssetFigure[]; chart: ChartFigure | null } {
+  return keptWith(page, 'figures', () => buildFigures(page));
+}
+
+function buildFigures(page: Pick<AssetPageData, 'series' | 'today' | 'dockings' | 'asset' | 'drawing'>): { views: AssetFigure[]; chart: ChartFigure | null } {
   const views = (page.drawing.drawing?.views ?? []).map((view) => {
     const document = drawingImageMarkup(view);
     return { name: view.id, document, version: markupVersion(document) };
