@@ -103,3 +103,30 @@ test('a planner opens the demo jetty plan, chooses a pile for its elevation and 
   expect(text).toContain('Where the anodes go: Gullhaven Ferry Jetty');
   expect(text).toContain('Plan: 4 rows × 12 bents');
 });
+
+test("the vessel page's closed editors open with the asset's own data, and its design and survey links open in the page", async ({ page }) => {
+  await signIn(page, demoUser('engineer').email);
+  await openAsset(page, 'Brindlemoor');
+  await page.getByText('Edit particulars', { exact: true }).click();
+  await expect(page.getByLabel('Name', { exact: true })).toHaveValue('Brindlemoor');
+
+  await page.getByText('Edit a fitted group', { exact: true }).click();
+  const edit = page.locator('form').filter({ has: page.getByRole('button', { name: 'Save the group' }) });
+  await expect(edit.getByLabel('Group to edit')).toBeVisible();
+  const groups = await edit.getByLabel('Group to edit').locator('option').allTextContents();
+  expect(groups).toEqual(expect.arrayContaining(['Bottom P/S', 'Sea chests']));
+  await edit.getByLabel('Group to edit').selectOption({ label: 'Sea chests' });
+  await expect(edit.getByLabel('Group label')).toHaveValue('Sea chests');
+  await expect(edit.getByLabel('Quantity')).not.toHaveValue('');
+
+  await page.getByText('Close a group (removed, lost or renewed)', { exact: true }).click();
+  const close = page.locator('form').filter({ has: page.getByLabel('Removed on') });
+  await expect(close.getByLabel('Group', { exact: true })).toBeVisible();
+  expect(await close.getByLabel('Group', { exact: true }).locator('option').allTextContents()).toEqual(groups);
+
+  // The static lists' links open their page in the page, as a link of the app does (no full reload).
+  await page.evaluate(() => ((window as unknown as { keptAcross: boolean }).keptAcross = true));
+  await page.getByRole('link', { name: /Rev\. 1: Brindlemoor hull anodes/ }).click();
+  await expect(page).toHaveURL(/\/designs\/[0-9a-f-]{36}$/);
+  expect(await page.evaluate(() => (window as unknown as { keptAcross?: boolean }).keptAcross)).toBe(true);
+});
