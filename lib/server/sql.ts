@@ -1,3 +1,5 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { queryCounter } from './db';
 // A user's filter text as an ILIKE pattern that matches it literally (%, _ and \ escaped).
 export const ilikePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -37,4 +39,36 @@ export async function lockRow(em: { execute: (sql: string, params: unknown[]) =>
  */
 export function pgArray(values: readonly (string | number | null)[]): string {
   return `{${values.map((v) => (v === null ? 'NULL' : `"${String(v).replace(/[\\"]/g, (c) => `\\${c}`)}"`)).join(',')}}`;
+}
+
+/**
+ * A read as a named prepared statement: PostgreSQL parses and plans it once per connection (then keeps its plan
+ * when the plan does not depend on the values), instead of on every call; for a large statement read on every
+ * request of a page (the asset page's). `text` uses `?` for the values, as em.execute does. Inside a transaction
+ * it runs through em.execute, on the transaction's connection. The rows are PostgreSQL's, as em.execute gives them.
+ */
+export async function executePrepared<T>(em: EntityManager, name: string, text: string, values: readonly unknown[]): Promise<T[]> {
+  if (!/^[a-z_]+$/.test(name)) throw new Error(`executePrepared: ${name} is not a statement name`);
+  if (em.isInTransaction()) return em.execute<T[]>(text, [...values]);
+  let n = 0;
+  const numbered = text.replace(/\?/g, () => `$${++n}`);
+  if (n !== values.length) throw new Error(`executePrepared ${name}: ${n} placeholders for ${values.length} values`);
+  const client = em.getKnex().client;
+  // Counted with the statements the ORM logs (tests hold the statements per request constant, db.ts).
+  if (process.env.VITEST) queryCounter.count++;
+  const connection = await client.acquireConnection();
+  try {
+    try {
+      return (await connection.query({ name, text: numbered, values })).rows as T[];
+    } catch (error) {
+      // A migration changed a table the statement reads (`*`) while this connection kept its plan: PostgreSQL then
+      // refuses the kept plan ("cached plan must not change result type"). Drop it and prepare it again, once.
+      if ((error as { code?: string }).code !== '0A000') throw error;
+      await connection.query(`deallocate ${name}`);
+      delete (connection as { connection?: { parsedStatements?: Record<string, unknown> } }).connection?.parsedStatements?.[name];
+      return (await connection.query({ name, text: numbered, values })).rows as T[];
+    }
+  } finally {
+    await client.releaseConnection(connection);
+  }
 }

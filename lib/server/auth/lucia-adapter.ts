@@ -2,6 +2,7 @@ import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia';
 import type { MikroORM } from '@mikro-orm/postgresql';
 import { SessionSchema, UserSchema } from '@/entities';
 import type { MembershipRow } from '../org-context';
+import { executePrepared } from '../sql';
 
 // Lucia's storage over MikroORM; each call works in its own EntityManager fork.
 export class MikroOrmLuciaAdapter implements Adapter {
@@ -16,7 +17,10 @@ export class MikroOrmLuciaAdapter implements Adapter {
     const em = await this.em();
     // With the user come their memberships (each with its organisation, as getOrgContextOrThrow reads them): a page
     // then resolves its organisation without a statement of its own.
-    const [row] = await em.getConnection().execute<{ id: string; expires_at: Date | string; user_id: string; email: string; name: string; verified: boolean; memberships: MembershipRow[] | null }[]>(
+    // A prepared statement (executePrepared): read on every signed-in request, planned once per connection.
+    const [row] = await executePrepared<{ id: string; expires_at: Date | string; user_id: string; email: string; name: string; verified: boolean; memberships: MembershipRow[] | null }>(
+      em,
+      'tw_session_user',
       `select s.id, s.expires_at, u.id as user_id, u.email, u.name, u.email_verified_at is not null as verified,
               (select json_agg(json_build_object('slug', o.slug, 'membership', row_to_json(m), 'organisation', row_to_json(o)))
                  from membership m join organisation o on o.id = m.organisation_id where m.user_id = u.id) as memberships

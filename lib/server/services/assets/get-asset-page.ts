@@ -7,6 +7,7 @@ import { requirePermission, allowed, type OrgContext } from '../../org-context';
 import { builtinKey, orgKey } from '../catalogue/anode-models';
 import { BUILTIN_ANODE_MODELS } from '@/lib/cp';
 import { notFound } from '../../errors';
+import { executePrepared } from '../../sql';
 import { uuidOrNotFound } from '../../ids';
 import type { GroupWithForecast } from '../forecast/group-forecasts';
 import { computePlans, renewalMarginMonths, renewalRuleOf, type AssetPlan } from '../planner/compute-plans';
@@ -149,7 +150,7 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   // catalogue come with the asset in one plain statement: the page reads them only to show them, and building
   // five ORM queries cost more than the page's rendering (measured). The version is read before the plan is
   // computed (assetPlanFor), as it must be.
-  const [row] = await ctx.em.execute<PageRow[]>(PAGE_SQL, [ctx.organisation.id, assetId, ctx.organisation.id]);
+  const [row] = await executePrepared<PageRow>(ctx.em, 'tw_asset_page', PAGE_SQL, [ctx.organisation.id, assetId, ctx.organisation.id]);
   if (!row) throw notFound('Asset');
   const key = keptPageKey(ctx, row, today);
   const kept = key ? keptPages.get(key) : undefined;
