@@ -1,5 +1,4 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { queryCounter } from './db';
 // A user's filter text as an ILIKE pattern that matches it literally (%, _ and \ escaped).
 export const ilikePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -54,21 +53,24 @@ export async function executePrepared<T>(em: EntityManager, name: string, text: 
   const numbered = text.replace(/\?/g, () => `$${++n}`);
   if (n !== values.length) throw new Error(`executePrepared ${name}: ${n} placeholders for ${values.length} values`);
   const client = em.getKnex().client;
-  // Counted with the statements the ORM logs (tests hold the statements per request constant, db.ts).
-  if (process.env.VITEST) queryCounter.count++;
+  const started = performance.now();
   const connection = await client.acquireConnection();
+  let rows: T[];
   try {
     try {
-      return (await connection.query({ name, text: numbered, values })).rows as T[];
+      rows = (await connection.query({ name, text: numbered, values })).rows as T[];
     } catch (error) {
       // A migration changed a table the statement reads (`*`) while this connection kept its plan: PostgreSQL then
       // refuses the kept plan ("cached plan must not change result type"). Drop it and prepare it again, once.
       if ((error as { code?: string }).code !== '0A000') throw error;
       await connection.query(`deallocate ${name}`);
       delete (connection as { connection?: { parsedStatements?: Record<string, unknown> } }).connection?.parsedStatements?.[name];
-      return (await connection.query({ name, text: numbered, values })).rows as T[];
+      rows = (await connection.query({ name, text: numbered, values })).rows as T[];
     }
   } finally {
     await client.releaseConnection(connection);
   }
+  // Logged as the ORM logs its own statements (its debug output, and the tests' count of statements per request).
+  em.config.getLogger().logQuery({ query: numbered, params: [...values], took: Math.round(performance.now() - started), results: rows.length, level: 'info', connection: { type: 'read' } });
+  return rows;
 }

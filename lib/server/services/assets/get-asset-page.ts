@@ -120,18 +120,18 @@ select a.*,
           order by d.revision desc)
      from design d join app_user u on u.id = d.prepared_by_id where d.asset_id = a.id) as tw_designs,
   (select json_agg(json_build_object('id', s.id, 'surveyedOn', to_char(s.surveyed_on, 'YYYY-MM-DD'), 'method', s.method, 'surveyor', s.surveyor)
-          order by s.surveyed_on desc, s.created_at desc)
-     from (select * from survey where asset_id = a.id order by surveyed_on desc, created_at desc limit 20) s) as tw_surveys,
+          order by s.surveyed_on desc, s.created_at desc, s.id desc)
+     from (select * from survey where asset_id = a.id order by surveyed_on desc, created_at desc, id desc limit 20) s) as tw_surveys,
   (select json_agg(json_build_object('id', m.id, 'designation', m.designation, 'alloy', m.alloy, 'netMassKg', m.net_mass_kg) order by m.designation)
      from anode_model m where m.organisation_id = ? and m.archived_at is null) as tw_models,
   (select json_agg(json_build_object('location', r.location, 'potentialAgAgClV', r.potential_ag_ag_cl_v, 'remainingFraction', r.remaining_fraction)
           order by r.line asc nulls last, r.id asc)
      from (select * from survey_reading
-            where survey_id = (select s.id from survey s where s.asset_id = a.id order by s.surveyed_on desc, s.created_at desc limit 1)
+            where survey_id = (select s.id from survey s where s.asset_id = a.id order by s.surveyed_on desc, s.created_at desc, s.id desc limit 1)
             order by line asc nulls last, id asc limit ${MAX_DRAWN_READINGS}) r) as tw_readings,
   (select json_agg(json_build_object('id', c.id, 'createdAt', c.created_at, 'label', c.label, 'changedByEmail', c.changed_by_email, 'changes', c.changes)
           order by c.created_at desc)
-     from (select c.*, g.label from anode_group_change c join anode_group g on g.id = c.group_id
+     from (select c.id, c.created_at, c.changed_by_email, c.changes, g.label from anode_group_change c join anode_group g on g.id = c.group_id
             where g.asset_id = a.id and g.organisation_id = a.organisation_id and g.removed_on is null and a.archived_at is null
             order by c.created_at desc limit 20) c) as tw_changes,
   o.version as tw_version, to_char(o.computed_on, 'YYYY-MM-DD') as tw_day
@@ -153,15 +153,17 @@ export async function getAssetPage(ctx: OrgContext, assetId: string, today = new
   const [row] = await executePrepared<PageRow>(ctx.em, 'tw_asset_page', PAGE_SQL, [ctx.organisation.id, assetId, ctx.organisation.id]);
   if (!row) throw notFound('Asset');
   const key = keptPageKey(ctx, row, today);
-  const kept = key ? keptPages.get(key) : undefined;
-  if (key && kept) {
-    keptPages.delete(key);
-    keptPages.set(key, kept);
-    return kept;
+  const kept = key ? keptPages.get(key.slot) : undefined;
+  if (key && kept && kept.digest === key.digest) {
+    keptPages.delete(key.slot);
+    keptPages.set(key.slot, kept);
+    return kept.page;
   }
   const page = await assetPageOf(ctx, row, today);
   if (key) {
-    keptPages.set(key, page);
+    // The asset's page for this access replaces the one kept before it (older data is never asked for again).
+    keptPages.delete(key.slot);
+    keptPages.set(key.slot, { digest: key.digest, page });
     if (keptPages.size > KEPT_PAGES) keptPages.delete(keptPages.keys().next().value!);
   }
   return page;
@@ -172,7 +174,8 @@ export type AssetPage = Awaited<ReturnType<typeof assetPageOf>>;
 // ---------- the page kept per process while what it was built from stands ----------
 
 const KEPT_PAGES = 64;
-const keptPages = new Map<string, AssetPage>();
+/** One page per asset and access (may the member change the register or not), with the digest it was built under. */
+const keptPages = new Map<string, { digest: string; page: AssetPage }>();
 
 /** Drops every kept page (tests: to compare a kept page with one built afresh). */
 export function forgetKeptPages() {
@@ -180,17 +183,22 @@ export function forgetKeptPages() {
 }
 
 /**
- * The key a page is kept under: a digest of everything it is built from. The statement's row holds the asset, its
+ * Where a page is kept (the asset, for members who may change the register or not: the only difference the page
+ * makes between members) and the digest of everything it is built from. The statement's row holds the asset, its
  * zones, designs, surveys, the latest readings and changes, the catalogue, and the stored plan's version, which
- * the unit of work renews with every change that feeds the plan (stored-outlooks.ts); beside it the member's role
- * and write access, the organisation's renewal settings and the day. No key (built afresh, not kept) for an
- * archived asset (its dockings are read apart from the plan) or one whose stored plan is not of the day.
+ * the unit of work renews with every change that feeds the plan (stored-outlooks.ts); beside it the organisation's
+ * renewal settings and the day. None (built afresh, not kept) for an archived asset (its dockings are read apart
+ * from the plan) or one whose stored plan is not of the day.
  */
-function keptPageKey(ctx: OrgContext, row: PageRow, today: Date): string | null {
+function keptPageKey(ctx: OrgContext, row: PageRow, today: Date): { slot: string; digest: string } | null {
   if (!row.tw_version || row.tw_day !== toDateOnly(today) || row.archived_at) return null;
-  return createHash('sha256')
-    .update(JSON.stringify([ctx.organisation.id, ctx.role, allowed(ctx, 'asset:write'), renewalRuleOf(ctx), renewalMarginMonths(ctx), today.getTime(), row]))
-    .digest('base64');
+  const canWrite = allowed(ctx, 'asset:write');
+  return {
+    slot: `${ctx.organisation.id} ${String(row.id)} ${canWrite}`,
+    digest: createHash('sha256')
+      .update(JSON.stringify([renewalRuleOf(ctx), renewalMarginMonths(ctx), today.getTime(), row]))
+      .digest('base64'),
+  };
 }
 
 async function assetPageOf(ctx: OrgContext, row: PageRow, today: Date) {
