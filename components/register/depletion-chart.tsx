@@ -2,7 +2,6 @@ import { formatDateOnly } from '@/lib/dates/date-only';
 import { forecastDateWords } from '@/lib/labels';
 import { CHART_NOT_LOADED, seriesStyle, seriesSwatchMarkup, type ChartFigure } from '@/lib/figures/depletion-chart';
 import { SafeHtml, html } from '@/lib/figures/markup';
-import { StaticHtml } from '@/components/ui/static-html';
 
 export type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
 import type { DepletionSeries as ChartSeries } from '@/lib/register/depletion-series';
@@ -32,9 +31,4 @@ export function depletionChartHtml({ series, figure, src, dockingsWord = 'dockin
       html`<span class="inline-flex items-center gap-1.5"><svg width="34" height="12" aria-hidden="true">${new SafeHtml(seriesSwatchMarkup(i))}</svg><strong class="font-semibold text-ink">${seriesStyle(i).letter}</strong> ${s.label}${s.renewBy ? `: ${forecastDateWords('renewBy')} ${formatDateOnly(s.renewBy, 'MMM yyyy')}` : ''}${s.endOfLife ? ` (${forecastDateWords('endOfLife')} ${formatDateOnly(s.endOfLife, 'MMM yyyy')})` : ''}</span>`,
   );
   return html`<figure class="flex flex-col gap-2"><svg viewBox="0 0 ${figure.width} ${figure.height}" role="img" aria-label="${figure.title}" class="chart w-full rounded-[3px] border border-rule bg-paper-raised">${inside}</svg><figcaption class="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft">${legend}<span>Letters and markers: one per group · ○ survey estimate · ◆ ${forecastDateWords('renewBy')} · × ${forecastDateWords('endOfLife')} (utilisation factor used up) · dashed brass lines: ${dockingsWord}</span></figcaption></figure>`;
-}
-
-/** The chart with its legend (depletionChartHtml) where a React tree wants an element. */
-export function DepletionChart(props: Props) {
-  return <StaticHtml markup={depletionChartHtml(props)} />;
 }

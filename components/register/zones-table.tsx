@@ -5,21 +5,10 @@ import { ArchiveZoneButton } from './archive-zone-button';
 import { ZoneForm } from './lazy-forms';
 import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, METAL_WORDS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, inSentence } from '@/lib/labels';
 import { fmt } from '@/lib/format';
-import type { ZoneKind } from '@/entities';
+import type { AssetPage } from '@/lib/server/services/assets/get-asset-page';
 
-/** A zone as the asset page lists it and its edit form takes it. */
-export interface ZoneRow {
-  id: string;
-  name: string;
-  kind: ZoneKind;
-  areaM2: number;
-  coatingCategory: string;
-  coatingAgeYears: number;
-  waterType: 'seawater' | 'brackish' | 'fresh' | 'sediment';
-  climate: string;
-  depthBand: string;
-  drainsCurrent: 'copper-alloy' | 'stainless' | null;
-}
+/** A zone as the asset page reads it (getAssetPage) and its edit form takes it. */
+export type ZoneRow = AssetPage['zones'][number];
 
 /**
  * The asset's zones, each row with its edit form (opened in place) and its archive button for a member who may

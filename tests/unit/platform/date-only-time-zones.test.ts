@@ -7,7 +7,7 @@ import { createElement } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Timeline } from '@/components/planner/timeline';
-import { DepletionChart } from '@/components/register/depletion-chart';
+import { depletionChartHtml } from '@/components/register/depletion-chart';
 import { depletionChartFigure } from '@/lib/figures/depletion-chart';
 import { buildAnodeList } from '@/lib/anode-list';
 import { renderAnodeListPdf } from '@/lib/anode-list/render-anode-list-pdf';
@@ -52,7 +52,7 @@ describe.each([
   it('the depletion chart labels surveys, end of life and dockings by their UTC day', () => {
     const series = [{ label: 'Bottom P1', points: [{ date: day('2025-01-01'), kg: 100 }, { date: day('2027-06-01'), kg: 8 }], surveys: [{ date: day(DAY), kg: 20 }], endKg: 10, endOfLife: day('2027-03-01') }];
     const figure = depletionChartFigure({ series, dockings: [{ date: day(DAY), label: `Docking ${formatDateOnly(DAY)}` }], today: day('2026-01-01') })!;
-    const html = renderToStaticMarkup(createElement(DepletionChart, { series, figure, src: '/chart.svg' }));
+    const html = depletionChartHtml({ series, figure, src: '/chart.svg' }).value;
     // The chart's image and the page's marks over it (their tooltips) both name the UTC day.
     for (const markup of [figure.document, figure.marks]) {
       expect(markup).toContain('Bottom P1: surveyed 14 Mar 2027, 20 kg');

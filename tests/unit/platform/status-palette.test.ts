@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import tailwind from '@/tailwind.config';
 import { StatusTag } from '@/components/ui/status-tag';
 import { Timeline, DOCKING_KIND_STYLES } from '@/components/planner/timeline';
-import { DepletionChart, seriesStyle } from '@/components/register/depletion-chart';
+import { depletionChartHtml, seriesStyle } from '@/components/register/depletion-chart';
 import { depletionChartFigure } from '@/lib/figures/depletion-chart';
 import { DESIGN_STATUSES } from '@/entities/design.entity';
 import { DOCKING_KINDS, DOCKING_STATUSES } from '@/entities/docking.entity';
@@ -143,7 +143,7 @@ describe('charts that read in grey print', () => {
     }));
     // The lines are in the chart's image (its own SVG document), the legend in the page.
     const figure = depletionChartFigure({ series, today: day('2026-06-01') })!;
-    const html = renderToStaticMarkup(createElement(DepletionChart, { series, figure, src: '/chart.svg' }));
+    const html = depletionChartHtml({ series, figure, src: '/chart.svg' }).value;
     const groups = [...figure.document.matchAll(/data-series="([A-Z]+)" data-dash="([^"]*)" data-marker="([a-z]+)"/g)].map((m) => ({ letter: m[1], dash: m[2], marker: m[3] }));
     expect(groups.map((g) => g.letter)).toEqual(['A', 'B', 'C', 'D', 'E', 'F']);
     expect(new Set(groups.map((g) => g.dash)).size).toBe(6);

@@ -201,5 +201,4 @@ function pageView(page: AssetPageData, org: string, deskLink: boolean) {
     forecastMarkup,
     surveysMarkup: surveysHtml(org, surveys),
   };
-
 }
