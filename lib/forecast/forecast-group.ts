@@ -107,6 +107,10 @@ export interface RemainingPoint {
   remainingFraction: number;
 }
 
+/**
+ * The forecast of one group. Its seven dates are read by name (they are made when first read), so
+ * a spread copy leaves them out; JSON.stringify gives every field (toJSON).
+ */
 export interface GroupForecast {
   installedMassKg: number;
   /** Remaining fraction at end of life, 1 - u. */
@@ -187,20 +191,7 @@ interface Point {
   f: number;
 }
 
-/** A survey kept, with its years since installation and the unit profile's consumed fraction then. */
-interface SurveyPoint extends Point {
-  years: number;
-  p: number;
-}
-
-/** The scale factor K (A, on the unit profile) and the band's range of it. */
-interface Fit {
-  k: number;
-  low: number;
-  high: number;
-}
-
-/** What a date is solved on: the unit profile, the mass, and the recorded history. */
+/** What the forecast's methods read: the unit profile, the mass, the recorded history and the fitted factor. */
 interface Model {
   /** Installation, ms. */
   t0: number;
@@ -212,9 +203,6 @@ interface Model {
   history: Point[];
   /** Where the forecast starts: the last point of the history. */
   start: Point;
-  /** The start's years since installation, and the unit profile's charge by then (A x years). */
-  startYears: number;
-  startCharge: number;
   /** The unit profile's consumed fraction at the start. */
   startConsumed: number;
   /** The fitted factor K (A, on the unit profile) the forecast goes on at. */
@@ -224,10 +212,177 @@ interface Model {
 /** The unit profile of a constant current (and of a design without current): 1 A throughout. */
 const CONSTANT_UNIT_PROFILE: DemandProfile = constantProfile(1);
 
-interface DateBand {
-  at: Date | null;
-  early: Date | null;
-  late: Date | null;
+/** Epoch ms as a Date, NaN as null. */
+const dateOrNull = (ms: number): Date | null => (ms === ms ? new Date(ms) : null);
+
+/**
+ * The results of fitScale (after K itself) and dateBand, read straight after the call: the band's
+ * range of K (low, high) and a date with its band (at, early, late; ms, NaN for null). In typed
+ * arrays so that the numbers are not boxed, as an object's, a closure's or a returned number would be.
+ */
+const fitRange = new Float64Array(2);
+const band = new Float64Array(3);
+
+/**
+ * forecastGroup's result: the model its methods read, its figures, and its seven dates, kept as
+ * epoch ms (NaN for null) and made Date objects when first read, each once (the same object on
+ * every read). A fleet's scheduler reads two of them; making all seven, with the objects the
+ * solving used to allocate, was about a third of the bench fleet's memory traffic.
+ */
+class Forecast implements GroupForecast, Model {
+  t0: number;
+  unit: DemandProfile;
+  fractionPerAYear: number;
+  history: Point[];
+  start: Point;
+  startConsumed: number;
+  k: number;
+  installedMassKg: number;
+  endFraction: number;
+  renewFraction: number;
+  designRatePerYearKg: number;
+  ratePerYearKg: number;
+  basis: ForecastBasis;
+  spent: boolean;
+  declare observedRatePerYearKg?: number;
+  declare profileScale?: number;
+  private endMs: number;
+  private earlyMs: number;
+  private lateMs: number;
+  private renewMs: number;
+  private renewEarlyMs: number;
+  private renewLateMs: number;
+  /** The dates as Date objects, each made when first read (undefined until then). */
+  private endDate: Date | null | undefined;
+  private earlyDate: Date | null | undefined;
+  private lateDate: Date | null | undefined;
+  private renewDate: Date | null | undefined;
+  private renewEarlyDate: Date | null | undefined;
+  private renewLateDate: Date | null | undefined;
+  private startPoint: RemainingPoint | undefined;
+
+  /** `history`: installation, then the surveys with a reading below 1 (rule 1), one per instant, by time. */
+  constructor(history: Point[], installedMassKg: number, eps: number, u: number, threshold: number, profile: DemandProfile | null, designScaleA: number) {
+    const t0 = history[0].t;
+    const endFraction = 1 - u;
+    const renewFraction = Math.max(endFraction, threshold);
+    this.t0 = t0;
+    // The forecast's current is K x the unit profile (K in A); K = the design's mean current is
+    // the design itself (k = 1). A constant current c scales to c / c = 1 A exactly: the shared
+    // constant profile.
+    this.unit =
+      profile !== null && designScaleA > 0
+        ? { startA: profile.startA / designScaleA, endA: profile.endA / designScaleA, overYears: profile.overYears }
+        : CONSTANT_UNIT_PROFILE;
+    this.fractionPerAYear = HOURS_PER_YEAR / (eps * installedMassKg);
+    const keptCount = history.length - 1;
+    const start = history[keptCount];
+    const startYears = (start.t - t0) / MS_PER_YEAR;
+    const startCharge = chargeAYears(this.unit, startYears);
+    this.history = history;
+    this.start = start;
+    this.startConsumed = this.fractionPerAYear * startCharge;
+    const k = fitScale(this, designScaleA);
+    const kLow = fitRange[0];
+    const kHigh = fitRange[1];
+    this.k = k;
+
+    this.installedMassKg = installedMassKg;
+    this.endFraction = endFraction;
+    this.renewFraction = renewFraction;
+    this.designRatePerYearKg = (designScaleA * HOURS_PER_YEAR) / eps;
+    this.ratePerYearKg = k * this.fractionPerAYear * currentAtA(this.unit, startYears) * installedMassKg;
+    this.basis = keptCount > 0 ? 'survey-corrected' : 'design-rate';
+    this.spent = start.f <= endFraction;
+    dateBand(this, startYears, startCharge, kLow, kHigh, endFraction);
+    this.endMs = band[0];
+    this.earlyMs = band[1];
+    this.lateMs = band[2];
+    if (renewFraction !== endFraction) {
+      dateBand(this, startYears, startCharge, kLow, kHigh, renewFraction);
+      this.renewMs = band[0];
+      this.renewEarlyMs = band[1];
+      this.renewLateMs = band[2];
+    } else {
+      this.renewMs = this.endMs;
+      this.renewEarlyMs = this.earlyMs;
+      this.renewLateMs = this.lateMs;
+    }
+    this.endDate = undefined;
+    this.earlyDate = undefined;
+    this.lateDate = undefined;
+    this.renewDate = undefined;
+    this.renewEarlyDate = undefined;
+    this.renewLateDate = undefined;
+    this.startPoint = undefined;
+
+    // The latest survey kept is the start.
+    if (keptCount > 0 && startYears >= MIN_SURVEY_BASELINE_YEARS) this.observedRatePerYearKg = ((1 - start.f) / startYears) * installedMassKg;
+    if (designScaleA > 0) this.profileScale = k / designScaleA;
+  }
+
+  get endOfLife(): Date | null {
+    return this.endDate === undefined ? (this.endDate = dateOrNull(this.endMs)) : this.endDate;
+  }
+
+  get early(): Date | null {
+    return this.earlyDate === undefined ? (this.earlyDate = dateOrNull(this.earlyMs)) : this.earlyDate;
+  }
+
+  get late(): Date | null {
+    return this.lateDate === undefined ? (this.lateDate = dateOrNull(this.lateMs)) : this.lateDate;
+  }
+
+  get renewBy(): Date | null {
+    return this.renewDate === undefined ? (this.renewDate = dateOrNull(this.renewMs)) : this.renewDate;
+  }
+
+  get renewByEarly(): Date | null {
+    return this.renewEarlyDate === undefined ? (this.renewEarlyDate = dateOrNull(this.renewEarlyMs)) : this.renewEarlyDate;
+  }
+
+  get renewByLate(): Date | null {
+    return this.renewLateDate === undefined ? (this.renewLateDate = dateOrNull(this.renewLateMs)) : this.renewLateDate;
+  }
+
+  get startsFrom(): RemainingPoint {
+    return this.startPoint ?? (this.startPoint = { date: new Date(this.start.t), remainingFraction: this.start.f });
+  }
+
+  remainingFractionAt(at: Date): number {
+    return remainingFractionOn(this, at);
+  }
+
+  remainingMassKgAt(at: Date): number {
+    return remainingFractionOn(this, at) * this.installedMassKg;
+  }
+
+  remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[] {
+    return remainingSeriesOf(this, from, to, stepMonths);
+  }
+
+  /** The forecast's figures and dates as a plain object, without the model (JSON.stringify calls it). */
+  toJSON(): Record<string, unknown> {
+    const out: Record<string, unknown> = {
+      installedMassKg: this.installedMassKg,
+      endFraction: this.endFraction,
+      renewFraction: this.renewFraction,
+      designRatePerYearKg: this.designRatePerYearKg,
+      ratePerYearKg: this.ratePerYearKg,
+      basis: this.basis,
+      startsFrom: this.startsFrom,
+      spent: this.spent,
+      endOfLife: this.endOfLife,
+      early: this.early,
+      late: this.late,
+      renewBy: this.renewBy,
+      renewByEarly: this.renewByEarly,
+      renewByLate: this.renewByLate,
+    };
+    if (this.observedRatePerYearKg !== undefined) out.observedRatePerYearKg = this.observedRatePerYearKg;
+    if (this.profileScale !== undefined) out.profileScale = this.profileScale;
+    return out;
+  }
 }
 
 export function forecastGroup(input: GroupForecastInput): GroupForecast {
@@ -239,95 +394,19 @@ export function forecastGroup(input: GroupForecastInput): GroupForecast {
   const eps = positive(inp.capacityAhPerKg, 'capacityAhPerKg', 'Ah/kg');
   const hasProfile = inp.demandProfile !== undefined && inp.demandProfile !== null;
   const currentA = hasProfile && inp.currentA === undefined ? 0 : nonNegative(inp.currentA, 'currentA', 'A');
-  const design = hasProfile ? readDemandProfile(inp.demandProfile, 'demandProfile') : constantProfile(currentA);
+  // Without a profile the design is the constant current: its mean is that current.
+  const profile = hasProfile ? readDemandProfile(inp.demandProfile, 'demandProfile') : null;
   const threshold =
     inp.renewalThresholdRemaining === undefined ? DEFAULT_RENEWAL_THRESHOLD_REMAINING : fraction(inp.renewalThresholdRemaining, 'renewalThresholdRemaining');
-  const readings = readSurveys(inp.surveys, installedOn);
+  const history = readHistory(inp.surveys, installedOn);
 
   const installedMassKg = quantity * netMass;
-  const endFraction = 1 - u;
-  const renewFraction = Math.max(endFraction, threshold);
-  const designScaleA = meanCurrentA(design);
+  const designScaleA = profile !== null ? meanCurrentA(profile) : currentA;
   const designRatePerYearKg = (designScaleA * HOURS_PER_YEAR) / eps;
-  if (!Number.isFinite(installedMassKg) || !Number.isFinite(designRatePerYearKg) || !Number.isFinite(design.endA - design.startA)) {
+  if (!Number.isFinite(installedMassKg) || !Number.isFinite(designRatePerYearKg) || (profile !== null && !Number.isFinite(profile.endA - profile.startA))) {
     throw new ForecastInputError(hasProfile ? 'demandProfile' : 'currentA', 'The inputs are too large to give a finite forecast; check the units.');
   }
-  // The forecast's current is K x the unit profile (K in A); K = the design's mean current is
-  // the design itself (k = 1).
-  const t0 = installedOn.getTime();
-  const m: Model = {
-    t0,
-    // A constant current c scales to c / c = 1 A exactly: the shared constant profile.
-    unit:
-      hasProfile && designScaleA > 0
-        ? { startA: design.startA / designScaleA, endA: design.endA / designScaleA, overYears: design.overYears }
-        : CONSTANT_UNIT_PROFILE,
-    fractionPerAYear: HOURS_PER_YEAR / (eps * installedMassKg),
-    history: [],
-    start: { t: t0, f: 1 },
-    startYears: 0,
-    startCharge: 0,
-    startConsumed: 0,
-    k: 0,
-  };
-
-  // Rule 1: readings of no loss are set aside; the rest, with the unit profile's consumption.
-  let keptCount = 0;
-  for (let i = 0; i < readings.length; i++) if (readings[i].f < 1) keptCount++;
-  const kept: SurveyPoint[] = new Array(keptCount);
-  m.history = new Array(keptCount + 1);
-  m.history[0] = m.start;
-  for (let i = 0, j = 0; i < readings.length; i++) {
-    const point = readings[i];
-    if (point.f >= 1) continue;
-    point.years = (point.t - t0) / MS_PER_YEAR;
-    point.p = consumedAt(m, point.years);
-    kept[j++] = point;
-    m.history[j] = point;
-  }
-  const start = m.history[keptCount];
-  const startYears = (start.t - t0) / MS_PER_YEAR;
-  m.start = start;
-  m.startYears = startYears;
-  m.startCharge = chargeAYears(m.unit, startYears);
-  m.startConsumed = m.fractionPerAYear * m.startCharge;
-  const fit = fitScale(kept, designScaleA);
-  m.k = fit.k;
-  const end = dateBand(m, fit, endFraction);
-  const renew = renewFraction === endFraction ? end : dateBand(m, fit, renewFraction);
-
-  const latest = kept.length > 0 ? kept[kept.length - 1] : null;
-  const observedRateFrac = latest !== null && latest.years >= MIN_SURVEY_BASELINE_YEARS ? (1 - latest.f) / latest.years : undefined;
-  const forecast: GroupForecast = {
-    installedMassKg,
-    endFraction,
-    renewFraction,
-    designRatePerYearKg,
-    ratePerYearKg: fit.k * m.fractionPerAYear * currentAtA(m.unit, startYears) * installedMassKg,
-    basis: kept.length > 0 ? 'survey-corrected' : 'design-rate',
-    startsFrom: { date: new Date(start.t), remainingFraction: start.f },
-    spent: start.f <= endFraction,
-    endOfLife: end.at,
-    early: end.early,
-    late: end.late,
-    renewBy: renew.at,
-    renewByEarly: renew.early,
-    renewByLate: renew.late,
-    // Methods rather than arrow functions: they share forecastGroup's one closure context, and
-    // transpilers that keep function names do not rename each of them on every call.
-    remainingFractionAt(at: Date): number {
-      return remainingFractionOn(m, at);
-    },
-    remainingMassKgAt(at: Date): number {
-      return remainingFractionOn(m, at) * installedMassKg;
-    },
-    remainingSeries(from: Date, to: Date, stepMonths: number): RemainingPoint[] {
-      return remainingSeriesOf(m, from, to, stepMonths);
-    },
-  };
-  if (observedRateFrac !== undefined) forecast.observedRatePerYearKg = observedRateFrac * installedMassKg;
-  if (designScaleA > 0) forecast.profileScale = fit.k / designScaleA;
-  return forecast;
+  return new Forecast(history, installedMassKg, eps, u, threshold, profile, designScaleA);
 }
 
 /** GroupForecast.remainingFractionAt. */
@@ -364,38 +443,51 @@ function consumedAt(m: Model, years: number): number {
 /**
  * Rules 3-5: the first time, ms, at which the forecast reaches the remaining fraction `target`,
  * with every survey reading moved by `delta` (0 for the forecast itself, -/+ the reading
- * uncertainty for the band) and the factor K `k`; null when never within reach.
+ * uncertainty for the band) and the factor K `k`; NaN when never within reach. `startYears` and
+ * `startCharge`: the start's years since installation and the unit profile's charge by then.
  */
-function reach(m: Model, delta: number, k: number, target: number): number | null {
+function reach(m: Model, startYears: number, startCharge: number, delta: number, k: number, target: number): number {
   if (target >= 1) return m.t0;
-  const anchor = m.history[m.history.length - 1];
+  const anchor = m.start;
   const anchorF = m.history.length > 1 ? clamp01(anchor.f + delta) : anchor.f;
   if (anchorF <= target) return Math.round(firstCrossing(m.history, target, delta));
-  if (!(k > 0)) return null;
-  const years = yearsToCharge(m.unit, m.startCharge + (anchorF - target) / (k * m.fractionPerAYear));
-  if (!(years - m.startYears <= MAX_FORECAST_YEARS)) return null; // also Infinity and NaN
+  if (!(k > 0)) return NaN;
+  const years = yearsToCharge(m.unit, startCharge + (anchorF - target) / (k * m.fractionPerAYear));
+  if (!(years - startYears <= MAX_FORECAST_YEARS)) return NaN; // also Infinity and NaN
   return Math.max(anchor.t, Math.round(m.t0 + years * MS_PER_YEAR));
 }
 
-/** A date and its band (see the module comment): collapsed when the record already reached it. */
-function dateBand(m: Model, fit: Fit, target: number): DateBand {
-  const at = reach(m, 0, fit.k, target);
-  if (at === null) return { at: null, early: null, late: null };
-  if (m.history[m.history.length - 1].f <= target) return { at: new Date(at), early: new Date(at), late: new Date(at) };
-  const early = reach(m, -READING_UNCERTAINTY, fit.high, target);
-  const late = reach(m, READING_UNCERTAINTY, fit.low, target);
-  return { at: new Date(at), early: new Date(Math.min(early ?? at, at)), late: late === null ? null : new Date(Math.max(late, at)) };
+/**
+ * A date and its band (see the module comment), ms, NaN for null, left in `band` as at, early,
+ * late (read them before the next call); collapsed when the record already reached it.
+ */
+function dateBand(m: Model, startYears: number, startCharge: number, kLow: number, kHigh: number, target: number): void {
+  const at = reach(m, startYears, startCharge, 0, m.k, target);
+  band[0] = at;
+  if (at !== at) {
+    band[1] = NaN;
+    band[2] = NaN;
+  } else if (m.start.f <= target) {
+    band[1] = at;
+    band[2] = at;
+  } else {
+    const early = reach(m, startYears, startCharge, -READING_UNCERTAINTY, kHigh, target);
+    const late = reach(m, startYears, startCharge, READING_UNCERTAINTY, kLow, target);
+    band[1] = early === early ? Math.min(early, at) : at;
+    band[2] = late === late ? Math.max(late, at) : NaN;
+  }
 }
 
 /**
- * Validated surveys as history points, sorted by time, one per instant (lowest reading); `years`
- * and `p` are filled in for the surveys kept.
+ * The history: installation (fraction 1) first, then the validated surveys sorted by time, one per
+ * instant (the lowest reading), without the readings of no loss (rule 1).
  */
-function readSurveys(value: unknown, installedOn: Date): SurveyPoint[] {
-  if (value === undefined || value === null) return [];
-  const raw = list(value, 'surveys');
+function readHistory(value: unknown, installedOn: Date): Point[] {
   const installed = installedOn.getTime();
-  const points: SurveyPoint[] = new Array(raw.length);
+  if (value === undefined || value === null) return [{ t: installed, f: 1 }];
+  const raw = list(value, 'surveys');
+  const points: Point[] = new Array(raw.length + 1);
+  points[0] = { t: installed, f: 1 };
   for (let i = 0; i < raw.length; i++) {
     const r = isRecord(raw[i]) ? (raw[i] as Record<string, unknown>) : record(raw[i], `surveys[${i}]`);
     const d = isValidDate(r.date) ? r.date : date(r.date, `surveys[${i}].date`);
@@ -403,13 +495,18 @@ function readSurveys(value: unknown, installedOn: Date): SurveyPoint[] {
       throw new ForecastInputError(`surveys[${i}].date`, `surveys[${i}].date must not be before installedOn.`);
     }
     const f = r.remainingFraction;
-    points[i] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`), years: 0, p: 0 };
+    points[i + 1] = { t: d.getTime(), f: typeof f === 'number' && f >= 0 && f <= 1 ? f : fraction(f, `surveys[${i}].remainingFraction`) };
   }
-  if (points.length < 2) return points;
-  sortByTimeThenFraction(points);
-  // Same instant: keep the first after sorting, the lowest fraction.
+  if (raw.length > 1) sortSurveys(points);
+  // Same instant: the first after sorting, the lowest reading; then a reading of no loss is set aside.
   let n = 1;
-  for (let i = 1; i < points.length; i++) if (points[i].t !== points[n - 1].t) points[n++] = points[i];
+  let previousT = NaN;
+  for (let i = 1; i < points.length; i++) {
+    const p = points[i];
+    const sameInstant = p.t === previousT;
+    previousT = p.t;
+    if (!sameInstant && p.f < 1) points[n++] = p;
+  }
   points.length = n;
   return points;
 }
@@ -417,18 +514,20 @@ function readSurveys(value: unknown, installedOn: Date): SurveyPoint[] {
 const byTimeThenFraction = (a: Point, b: Point) => a.t - b.t || a.f - b.f;
 
 /**
- * Sorts in place by time, then fraction; stable. A few surveys (the usual case) by insertion,
- * which gives the same order as Array.prototype.sort without its work array.
+ * Sorts the surveys (from index 1; installation stays first) in place by time, then fraction;
+ * stable. A few surveys (the usual case) by insertion, which gives the same order as
+ * Array.prototype.sort without its work array.
  */
-function sortByTimeThenFraction(points: SurveyPoint[]): void {
-  if (points.length > 16) {
-    points.sort(byTimeThenFraction);
+function sortSurveys(points: Point[]): void {
+  if (points.length > 17) {
+    const surveys = points.slice(1).sort(byTimeThenFraction);
+    for (let i = 0; i < surveys.length; i++) points[i + 1] = surveys[i];
     return;
   }
-  for (let i = 1; i < points.length; i++) {
+  for (let i = 2; i < points.length; i++) {
     const p = points[i];
     let j = i - 1;
-    while (j >= 0 && byTimeThenFraction(points[j], p) > 0) {
+    while (j >= 1 && byTimeThenFraction(points[j], p) > 0) {
       points[j + 1] = points[j];
       j--;
     }
@@ -439,41 +538,57 @@ function sortByTimeThenFraction(points: SurveyPoint[]): void {
 /**
  * Rule 2 and the band's k range: K (A, on the unit profile) fitted to the informative surveys
  * by least squares on the consumed fraction, widened by the reading uncertainty and the spread
- * of the single-survey and interval factors; the design's K +/- 20 % without one.
+ * of the single-survey and interval factors; the design's K +/- 20 % without one. Returns K and
+ * leaves its range (low, high) in `fitRange`.
  */
-function fitScale(kept: readonly SurveyPoint[], designScaleA: number): Fit {
+function fitScale(m: Model, designScaleA: number): number {
+  const h = m.history;
   let sumPP = 0;
   let sumCP = 0;
   let sumP = 0;
   // The spread of the single-survey and interval factors; positive, finite factors only.
   let spreadLow = Infinity;
   let spreadHigh = 0;
-  for (let i = 0; i < kept.length; i++) {
-    const s = kept[i];
-    if (s.years >= MIN_SURVEY_BASELINE_YEARS && s.p > 0) {
-      const consumed = 1 - s.f;
-      sumPP += s.p * s.p;
-      sumCP += consumed * s.p;
-      sumP += s.p;
-      const factor = consumed / s.p; // this survey's own factor
+  // The survey before (its years since installation, its unit consumed fraction p, its reading).
+  let beforeYears = 0;
+  let beforeP = 0;
+  let beforeF = 1;
+  for (let i = 1; i < h.length; i++) {
+    const f = h[i].f;
+    const years = (h[i].t - m.t0) / MS_PER_YEAR;
+    const p = consumedAt(m, years);
+    if (years >= MIN_SURVEY_BASELINE_YEARS && p > 0) {
+      const consumed = 1 - f;
+      sumPP += p * p;
+      sumCP += consumed * p;
+      sumP += p;
+      const factor = consumed / p; // this survey's own factor
       if (factor > 0 && Number.isFinite(factor)) {
         spreadLow = Math.min(spreadLow, factor);
         spreadHigh = Math.max(spreadHigh, factor);
       }
     }
-    const before = i > 0 ? kept[i - 1] : null;
-    if (before !== null && s.years - before.years >= MIN_SURVEY_BASELINE_YEARS && s.p > before.p) {
-      const factor = (before.f - s.f) / (s.p - before.p); // the interval since the survey before
+    if (i > 1 && years - beforeYears >= MIN_SURVEY_BASELINE_YEARS && p > beforeP) {
+      const factor = (beforeF - f) / (p - beforeP); // the interval since the survey before
       if (factor > 0 && Number.isFinite(factor)) {
         spreadLow = Math.min(spreadLow, factor);
         spreadHigh = Math.max(spreadHigh, factor);
       }
     }
+    beforeYears = years;
+    beforeP = p;
+    beforeF = f;
   }
-  if (!(sumPP > 0)) return { k: designScaleA, low: (1 - BAND_FRACTION) * designScaleA, high: (1 + BAND_FRACTION) * designScaleA };
+  if (!(sumPP > 0)) {
+    fitRange[0] = (1 - BAND_FRACTION) * designScaleA;
+    fitRange[1] = (1 + BAND_FRACTION) * designScaleA;
+    return designScaleA;
+  }
   const k = sumCP / sumPP;
   const reading = (READING_UNCERTAINTY * sumP) / sumPP;
-  return { k, low: Math.min(Math.max(0, k - reading), spreadLow), high: Math.max(k + reading, spreadHigh) };
+  fitRange[0] = Math.min(Math.max(0, k - reading), spreadLow);
+  fitRange[1] = Math.max(k + reading, spreadHigh);
+  return k;
 }
 
 /**

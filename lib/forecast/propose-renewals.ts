@@ -157,7 +157,13 @@ interface Settings {
    * '3 Nov 2028 (renew by 3 May 2029 less 6 months)': the deadline and why it is there, remembered per
    * due day for one call (the deadline's day follows from the due date's day).
    */
-  deadlineWords: (onRenewBy: boolean, dueMs: number, deadlineMs: number) => string;
+  deadlineWords: (onRenewBy: boolean, dueMs: number, deadlineMs: number) => DeadlineWords;
+}
+
+interface DeadlineWords {
+  words: string;
+  /** The words ending a sentence ('... less 6 months).'), made once rather than for every group. */
+  ended: string;
 }
 
 interface PreparedDockings {
@@ -199,17 +205,18 @@ function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
 
 /** Settings.deadlineWords: by due date kind and UTC day, each built once per call (most groups share their due day with others). */
 function deadlineWordsCache(dayText: (ms: number) => string, marginText: string): Settings['deadlineWords'] {
-  const onRenewBy = new Map<number, string>();
-  const onEndOfLife = new Map<number, string>();
+  const onRenewBy = new Map<number, DeadlineWords>();
+  const onEndOfLife = new Map<number, DeadlineWords>();
   return (renewBy, dueMs, deadlineMs) => {
     const byDay = renewBy ? onRenewBy : onEndOfLife;
     const dayNumber = Math.floor(dueMs / MS_PER_DAY);
-    let words = byDay.get(dayNumber);
-    if (words === undefined) {
-      words = `${dayText(deadlineMs)} (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
-      byDay.set(dayNumber, words);
+    let entry = byDay.get(dayNumber);
+    if (entry === undefined) {
+      const words = `${dayText(deadlineMs)} (${DUE_WORDS[renewBy ? 'renewBy' : 'endOfLife']} ${dayText(dueMs)} less ${marginText})`;
+      entry = { words, ended: `${words}.` };
+      byDay.set(dayNumber, entry);
     }
-    return words;
+    return entry;
   };
 }
 
@@ -339,12 +346,17 @@ function proposeForAsset(groupsValue: unknown, dockingsValue: unknown, s: Settin
     soundText: ` is more than ${s.intervalMonths} months after ${horizonText}, so nothing needs booking yet.`,
   };
   const proposals: RenewalProposal[] = new Array(groups.length);
-  for (let i = 0; i < groups.length; i++) proposals[i] = proposeForGroup(plan, readGroup(groups[i], prefix, i));
+  // One record of a group's inputs for the asset, filled in for each group in turn.
+  const group: GroupDue = { groupId: '', onRenewBy: false, due: null, early: null, confirmedId: null };
+  for (let i = 0; i < groups.length; i++) {
+    readGroup(groups[i], prefix, i, group);
+    proposals[i] = proposeForGroup(plan, group);
+  }
   return proposals;
 }
 
-/** A group's inputs, validated in the order the errors are reported (id, due date, early date, confirmed renewal). */
-function readGroup(g: unknown, prefix: string, i: number): GroupDue {
+/** A group's inputs into `into`, validated in the order the errors are reported (id, due date, early date, confirmed renewal). */
+function readGroup(g: unknown, prefix: string, i: number, into: GroupDue): void {
   const r = isRecord(g) ? g : record(g, groupField(prefix, i));
   const groupId = isText(r.id) ? r.id : text(r.id, `${groupField(prefix, i)}.id`);
   // The due date: renewBy when the caller gives it, else endOfLife (see the module comment).
@@ -363,11 +375,16 @@ function readGroup(g: unknown, prefix: string, i: number): GroupDue {
     const field = `${groupField(prefix, i)}.confirmedRenewal`;
     confirmedId = text(record(r.confirmedRenewal, field).dockingId, `${field}.dockingId`);
   }
-  return { groupId, onRenewBy, due, early, confirmedId };
+  into.groupId = groupId;
+  into.onRenewBy = onRenewBy;
+  into.due = due;
+  into.early = early;
+  into.confirmedId = confirmedId;
 }
 
 /** Rules 1-9 for one group (dates as epoch ms, each day's words formatted once per call). */
-function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirmedId }: GroupDue): RenewalProposal {
+function proposeForGroup(a: AssetPlan, group: GroupDue): RenewalProposal {
+  const { groupId, onRenewBy, due, early, confirmedId } = group;
   const { s, docks, n, ev, unplanned } = a;
   const marginText = s.marginText;
   const day = s.dayText;
@@ -391,7 +408,7 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     if (!booked) out.warning = `The confirmed renewal's ${ev} is not among this asset's ${a.evs}.`;
     else if (booked.status === 'cancelled') out.warning = `The ${ev} of ${bookedText} has been cancelled; the renewal needs another ${ev}.`;
     else if (deadline && booked.date.getTime() > deadlineMs) {
-      out.warning = `The ${ev} of ${bookedText} is after the deadline ${s.deadlineWords(onRenewBy, dueMs, deadlineMs)}.`;
+      out.warning = `The ${ev} of ${bookedText} is after the deadline ${s.deadlineWords(onRenewBy, dueMs, deadlineMs).ended}`;
     }
     return out;
   }
@@ -402,7 +419,8 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     return { groupId, status: 'sound', reason: `At its forecast rate the group never reaches its ${point}, so it needs no renewal.` };
   }
 
-  const deadlineWords = s.deadlineWords(onRenewBy, dueMs, deadlineMs);
+  const deadlineEntry = s.deadlineWords(onRenewBy, dueMs, deadlineMs);
+  const deadlineWords = deadlineEntry.words;
   const needs = unplanned === 'a diving campaign' ? 'a campaign' : 'a docking';
 
   // Rule 5: the deadline has passed: the very next docking, and an earlier one when that is too late.
@@ -412,12 +430,30 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
     const asap = (why: string) => ({ by: s.today, reason: `${why}: plan ${unplanned} as soon as possible (from ${day(s.today.getTime())}).` });
     if (n > 0) {
       const dockingText = day(docks.times[0]);
-      const base = { groupId, status: 'proposed' as const, dockingId: docks.ids[0], dockingDate: docks.dates[0], deadline, overdue: true };
+      // Object literals written out rather than spread from a common part: a spread copies
+      // property by property, the slowest way to make a proposal.
       if (docks.times[0] > dueMs) {
-        const earlierDocking = asap(`The next ${ev} (${dockingText}) is after the ${dueText}`);
-        return { ...base, earlierDocking, reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}, which is after the ${dueText}.` };
+        return {
+          groupId,
+          status: 'proposed',
+          dockingId: docks.ids[0],
+          dockingDate: docks.dates[0],
+          deadline,
+          overdue: true,
+          earlierDocking: asap(`The next ${ev} (${dockingText}) is after the ${dueText}`),
+          reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}, which is after the ${dueText}.`,
+        };
       }
-      return { ...base, withinMargin: true, reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}.` };
+      return {
+        groupId,
+        status: 'proposed',
+        dockingId: docks.ids[0],
+        dockingDate: docks.dates[0],
+        deadline,
+        overdue: true,
+        withinMargin: true,
+        reason: `${overdueWords}, so the group is renewed at the next ${ev}, ${dockingText}.`,
+      };
     }
     return {
       groupId,
@@ -445,7 +481,6 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
   const k = lastAtOrBefore(docks.times, deadlineMs);
   if (k >= 0) {
     const earlyDeadlineMs = early === null ? NaN : addMonthsMs(early.getTime(), -s.marginMonths);
-    const lastBefore = `${a.renewAtText[k]}${deadlineWords}`;
     if (early !== null && docks.times[k] > earlyDeadlineMs) {
       return {
         groupId,
@@ -454,10 +489,10 @@ function proposeForGroup(a: AssetPlan, { groupId, onRenewBy, due, early, confirm
         dockingDate: docks.dates[k],
         deadline,
         atRisk: true,
-        reason: `${lastBefore}, although the early end of the forecast would need renewal by ${day(earlyDeadlineMs)}.`,
+        reason: `${a.renewAtText[k]}${deadlineWords}, although the early end of the forecast would need renewal by ${day(earlyDeadlineMs)}.`,
       };
     }
-    return { groupId, status: 'proposed', dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline, reason: `${lastBefore}.` };
+    return { groupId, status: 'proposed', dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline, reason: `${a.renewAtText[k]}${deadlineEntry.ended}` };
   }
 
   const dueText = `${dueWords} ${day(dueMs)}`;

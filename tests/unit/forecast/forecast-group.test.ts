@@ -211,6 +211,32 @@ describe('forecastGroup with surveys', () => {
   });
 });
 
+describe('the forecast as an object', () => {
+  it('its dates are the same objects on every read, and JSON gives every figure and date', () => {
+    const f = forecastGroup(zincGroup({ surveys: [{ date: utc('2022-01-01'), remainingFraction: 0.7 }] }));
+    expect(f.renewBy).toBeInstanceOf(Date);
+    expect(f.renewBy).toBe(f.renewBy);
+    expect(f.endOfLife).toBe(f.endOfLife);
+    expect(f.startsFrom).toBe(f.startsFrom);
+    const json = JSON.parse(JSON.stringify(f));
+    expect(Object.keys(json).sort()).toEqual(
+      ['basis', 'designRatePerYearKg', 'early', 'endFraction', 'endOfLife', 'installedMassKg', 'late', 'observedRatePerYearKg', 'profileScale', 'ratePerYearKg', 'renewBy', 'renewByEarly', 'renewByLate', 'renewFraction', 'spent', 'startsFrom'].sort(),
+    );
+    expect(json.renewBy).toBe(f.renewBy!.toISOString());
+    expect(json.late).toBe(f.late!.toISOString());
+    expect(json.startsFrom).toEqual({ date: '2022-01-01T00:00:00.000Z', remainingFraction: 0.7 });
+    expect(json.ratePerYearKg).toBe(f.ratePerYearKg);
+  });
+
+  it('a date that never comes is null, and stays null', () => {
+    const f = forecastGroup(zincGroup({ currentA: 0 }));
+    expect(f.endOfLife).toBeNull();
+    expect(f.renewByLate).toBeNull();
+    expect(f.endOfLife).toBeNull();
+    expect(JSON.parse(JSON.stringify(f)).endOfLife).toBeNull();
+  });
+});
+
 describe('remainingSeries', () => {
   it('steps calendar months from `from` and ends exactly at `to`', () => {
     const f = forecastGroup(zincGroup());

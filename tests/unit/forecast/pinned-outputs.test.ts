@@ -5,6 +5,7 @@ import {
   proposeRenewals,
   proposeRenewalsForFleet,
   type DockingInput,
+  type GroupForecast,
   type GroupForecastInput,
   type RenewalGroupInput,
   type RenewalOptions,
@@ -38,6 +39,36 @@ function canonical(value: unknown): string {
   return `?${String(value)}`;
 }
 
+/**
+ * Every field and method of a GroupForecast as an own property, by name: its dates are getters
+ * (made when first read), which neither a spread nor Object.keys sees. The two optional figures are
+ * present only when the forecast has them, as they always were.
+ */
+function forecastFields(f: GroupForecast): Record<string, unknown> {
+  const out: Record<string, unknown> = {
+    installedMassKg: f.installedMassKg,
+    endFraction: f.endFraction,
+    renewFraction: f.renewFraction,
+    designRatePerYearKg: f.designRatePerYearKg,
+    ratePerYearKg: f.ratePerYearKg,
+    basis: f.basis,
+    startsFrom: f.startsFrom,
+    spent: f.spent,
+    endOfLife: f.endOfLife,
+    early: f.early,
+    late: f.late,
+    renewBy: f.renewBy,
+    renewByEarly: f.renewByEarly,
+    renewByLate: f.renewByLate,
+    remainingFractionAt: f.remainingFractionAt,
+    remainingMassKgAt: f.remainingMassKgAt,
+    remainingSeries: f.remainingSeries,
+  };
+  if (f.observedRatePerYearKg !== undefined) out.observedRatePerYearKg = f.observedRatePerYearKg;
+  if (f.profileScale !== undefined) out.profileScale = f.profileScale;
+  return out;
+}
+
 const digest = (parts: string[]) => createHash('sha256').update(parts.join('\n')).digest('hex');
 
 /** The outcome of a call: its value, or the error's name, field and message. */
@@ -58,7 +89,7 @@ function forecastText(input: GroupForecastInput, probes: Date[]): string {
     const from = probes[0];
     const to = probes[probes.length - 1];
     const series = [1, 5, 13].map((step) => outcome(() => f.remainingSeries(from, to, step)));
-    return { ...f, at, series };
+    return { ...forecastFields(f), at, series };
   });
 }
 
@@ -72,7 +103,7 @@ function fleetText(seed: number, vessels: number, today: Date, opts: Partial<Ren
     dockings: v.dockings,
     groups: v.groups.map((g) => {
       const f = forecastGroup(g.forecast);
-      parts.push(canonical({ ...f, at: [f.remainingFractionAt(today), f.remainingFractionAt(new Date(today.getTime() + YEAR_MS))] }));
+      parts.push(canonical({ ...forecastFields(f), at: [f.remainingFractionAt(today), f.remainingFractionAt(new Date(today.getTime() + YEAR_MS))] }));
       return { id: g.id, renewBy: f.renewBy, renewByEarly: f.renewByEarly, confirmedRenewal: g.confirmedRenewal };
     }),
   }));
