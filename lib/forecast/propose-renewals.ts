@@ -158,6 +158,8 @@ interface Settings {
    * due day for one call (the deadline's day follows from the due date's day).
    */
   deadlineWords: (onRenewBy: boolean, dueMs: number, deadlineMs: number) => DeadlineWords;
+  /** Rule 7's at-risk ending, ', although the early end ... by 3 Feb 2028.', remembered per UTC day for one call. */
+  atRiskEnding: (earlyDeadlineMs: number) => string;
 }
 
 interface DeadlineWords {
@@ -200,7 +202,16 @@ function readSettings(inp: Record<string, unknown>, prefix: string): Settings {
       : whole(inp.typicalIntervalMonths, `${prefix}typicalIntervalMonths`, 1, 120);
   const dayText = dayTextCache();
   const marginText = `${marginMonths} month${marginMonths === 1 ? '' : 's'}`;
-  return { today, todayDay: dayNumberUTC(today), marginMonths, intervalMonths, dayText, marginText, deadlineWords: deadlineWordsCache(dayText, marginText) };
+  return {
+    today,
+    todayDay: dayNumberUTC(today),
+    marginMonths,
+    intervalMonths,
+    dayText,
+    marginText,
+    deadlineWords: deadlineWordsCache(dayText, marginText),
+    atRiskEnding: perDay((ms) => `, although the early end of the forecast would need renewal by ${dayText(ms)}.`),
+  };
 }
 
 /** Settings.deadlineWords: by due date kind and UTC day, each built once per call (most groups share their due day with others). */
@@ -226,12 +237,17 @@ function deadlineWordsCache(dayText: (ms: number) => string, marginText: string)
  * dockings on 70). One cache per call, so it is bounded by the call's input.
  */
 function dayTextCache(): (ms: number) => string {
+  return perDay((ms) => formatDateOnly(new Date(ms)));
+}
+
+/** Words that depend only on the UTC day of an instant, made once per day for the length of one call. */
+function perDay(make: (ms: number) => string): (ms: number) => string {
   const byDay = new Map<number, string>();
   return (ms) => {
     const dayNumber = Math.floor(ms / MS_PER_DAY);
     let words = byDay.get(dayNumber);
     if (words === undefined) {
-      words = formatDateOnly(new Date(ms));
+      words = make(ms);
       byDay.set(dayNumber, words);
     }
     return words;
@@ -489,7 +505,7 @@ function proposeForGroup(a: AssetPlan, group: GroupDue): RenewalProposal {
         dockingDate: docks.dates[k],
         deadline,
         atRisk: true,
-        reason: `${a.renewAtText[k]}${deadlineWords}, although the early end of the forecast would need renewal by ${day(earlyDeadlineMs)}.`,
+        reason: `${a.renewAtText[k]}${deadlineWords}${s.atRiskEnding(earlyDeadlineMs)}`,
       };
     }
     return { groupId, status: 'proposed', dockingId: docks.ids[k], dockingDate: docks.dates[k], deadline, reason: `${a.renewAtText[k]}${deadlineEntry.ended}` };
