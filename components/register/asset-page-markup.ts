@@ -3,13 +3,14 @@ import type { AssetDrawingResult } from '@/lib/drawings/asset-drawing';
 import { formatDateOnly } from '@/lib/dates/date-only';
 import { SafeHtml, html } from '@/lib/figures/markup';
 import { fmt } from '@/lib/format';
-import { FORECAST_DATE_LABELS, STATUS_LABELS, surveyMethodWords } from '@/lib/labels';
 import type { SurveyMethod } from '@/entities';
 import { DESIGN_STATUS_TONES, toneOf } from '@/lib/status/palette';
 import { statusTagHtml } from '@/components/ui/status-tag-markup';
-import type { ForecastRow } from '@/lib/server/services/assets/get-asset-page';
 import { tableFrameClassName, type FrameOptions } from '@/components/ui/table-frame';
 import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
+import { buttonClassName } from '@/components/ui/button';
+import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, FORECAST_DATE_LABELS, METAL_WORDS, STATUS_LABELS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, inSentence, surveyMethodWords } from '@/lib/labels';
+import type { AssetPage, ForecastRow } from '@/lib/server/services/assets/get-asset-page';
 
 /*
  * The asset page's read-only parts as static markup (StaticHtml): the particulars, the forecast table, the history
@@ -23,6 +24,31 @@ const TH = 'py-1 text-left font-medium';
 /** TableFrame's frame around a table built with `html` (here, not in table-frame.tsx: the client tables import that file). */
 export function tableFrameHtml(label: string, table: SafeHtml, options: FrameOptions = {}): SafeHtml {
   return html`<div role="region" aria-label="${label}" tabindex="0" class="${tableFrameClassName(options)}">${table}</div>`;
+}
+
+/**
+ * The asset's zones. For a member who may change the register each row has an Edit button (the zone's form opens
+ * under the table) and an Archive button; both are handled by ZonesTable (zones-table.tsx) through their data
+ * attributes, so the rows themselves are static.
+ */
+export function zonesTableHtml(zones: readonly AssetPage['zones'][number][], canWrite: boolean): SafeHtml {
+  const table = html`<table class="w-full text-sm" aria-label="Zones"><thead class="text-xs text-ink-soft"><tr class="border-b border-rule"><th class="${TH}">Zone</th><th class="${TH}">Kind</th><th class="py-1 text-right font-medium">Area m²</th><th class="py-1 pl-3 text-left font-medium">Coating</th><th class="${TH}">Environment</th><th class="${TH}">Depth</th><th><span class="sr-only">Actions</span></th></tr></thead><tbody>${zones.map(
+    (z) =>
+      html`<tr class="border-b border-rule align-top"><td class="py-1.5">${z.name}${
+        canWrite
+          ? html`<button type="button" class="mt-1 block cursor-pointer text-xs text-tide-600 hover:underline max-lg:min-h-11" data-zone-edit="${z.id}" aria-expanded="false">Edit<span class="sr-only"> the zone ${z.name}</span></button>`
+          : null
+      }</td><td class="py-1.5">${ZONE_KIND_LABELS[z.kind] ?? 'Other'}</td><td class="num py-1.5">${fmt(z.areaM2, 1)}</td><td class="py-1.5 pl-3">${COATING_LABELS[z.coatingCategory as keyof typeof COATING_LABELS] ?? z.coatingCategory}${
+        z.coatingCategory !== 'bare' && z.coatingAgeYears ? `, ${z.coatingAgeYears} yr old` : ''
+      }${z.drainsCurrent ? ` · bare ${METAL_WORDS[z.drainsCurrent]}` : ''}</td><td class="py-1.5">${WATER_TYPE_LABELS[z.waterType]}, ${inSentence(CLIMATE_LABELS[z.climate as keyof typeof CLIMATE_LABELS] ?? '')}</td><td class="py-1.5">${
+        DEPTH_BAND_LABELS[z.depthBand as keyof typeof DEPTH_BAND_LABELS] ?? '–'
+      }</td><td class="py-1.5 text-right">${
+        canWrite
+          ? html`<button type="button" class="${buttonClassName('danger', 'px-2 py-0.5 text-xs')}" data-zone-archive="${z.id}" data-zone-name="${z.name}">Archive<span class="sr-only"> the zone ${z.name}</span></button>`
+          : null
+      }</td></tr>`,
+  )}${!zones.length ? html`<tr><td colspan="7" class="py-4 text-center text-ink-faint">No zones recorded.</td></tr>` : null}</tbody></table>`;
+  return tableFrameHtml('Zones', table);
 }
 
 /** The particulars: label and value pairs, a dash for a value not recorded. */

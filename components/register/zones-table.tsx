@@ -1,73 +1,123 @@
 'use client';
-import { Disclosure } from '@/components/ui/disclosure';
-import { TableFrame } from '@/components/ui/table-frame';
-import { ArchiveZoneButton } from './archive-zone-button';
+import { useEffect, useRef, useState } from 'react';
+import { useRouter } from 'next/navigation';
+import type { ActionState } from '@/lib/server/action';
+import { announce, undoBy } from '@/components/ui/toast';
+import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
+import { archiveZoneAction, restoreZoneAction } from '@/app/o/[org]/assets/actions';
 import { ZoneForm } from './lazy-forms';
-import { CLIMATE_LABELS, COATING_LABELS, DEPTH_BAND_LABELS, METAL_WORDS, WATER_TYPE_LABELS, ZONE_KIND_LABELS, inSentence } from '@/lib/labels';
-import { fmt } from '@/lib/format';
 import type { AssetPage } from '@/lib/server/services/assets/get-asset-page';
 
 /** A zone as the asset page reads it (getAssetPage) and its edit form takes it. */
 export type ZoneRow = AssetPage['zones'][number];
 
 /**
- * The asset's zones, each row with its edit form (opened in place) and its archive button for a member who may
- * change the register. One client component for the table: the server sends the rows once, as data, rather than
- * every cell as an element of the page (the asset page is benchmarked, npm run bench).
+ * The asset's zones: the table is static markup (zonesTableHtml), and this component answers its buttons. Edit opens
+ * the zone's form under the table (one zone at a time; it stays open after saving, with the form's message); Archive
+ * asks first, archives, and offers Undo in the page's notice. The rows are not components of their own: the asset
+ * page is benchmarked (npm run bench), and a component per row cost more than the rest of the table.
+ *
+ * `zones`: the rows' data for the edit form, for a member who may change the register; null for one who may not
+ * (the markup then has no buttons).
  */
-export function ZonesTable({ org, assetId, zones, canWrite }: { org: string; assetId: string; zones: ZoneRow[]; canWrite: boolean }) {
+export function ZonesTable({ org, assetId, markup, zones }: { org: string; assetId: string; markup: string; zones: ZoneRow[] | null }) {
+  const router = useRouter();
+  const rootRef = useRef<HTMLDivElement>(null);
+  const editorRef = useRef<HTMLElement>(null);
+  const [editing, setEditing] = useState<string | null>(null);
+  const [refusal, setRefusal] = useState<{ name: string; state: ActionState } | null>(null);
+  const archiving = useRef(false);
+  const zone = zones?.find((z) => z.id === editing) ?? null;
+
+  // The Edit buttons say which zone's form is open (the markup is static: kept in step here, also after a refresh).
+  useEffect(() => {
+    for (const button of rootRef.current?.querySelectorAll<HTMLButtonElement>('button[data-zone-edit]') ?? []) {
+      button.setAttribute('aria-expanded', String(zone !== null && button.dataset.zoneEdit === zone.id));
+      if (zone !== null && button.dataset.zoneEdit === zone.id) button.setAttribute('aria-controls', 'zone-editor');
+      else button.removeAttribute('aria-controls');
+    }
+  }, [zone, markup]);
+
+  const editButton = (id: string) => rootRef.current?.querySelector<HTMLButtonElement>(`button[data-zone-edit="${CSS.escape(id)}"]`) ?? null;
+
+  const close = () => {
+    const id = editing;
+    setEditing(null);
+    if (id) editButton(id)?.focus();
+  };
+
+  const archive = async (button: HTMLButtonElement) => {
+    const zoneId = button.dataset.zoneArchive ?? '';
+    const name = button.dataset.zoneName ?? '';
+    if (archiving.current || !confirm(`Archive the zone "${name}"? Designs that used it keep their copy.`)) return;
+    const data = new FormData();
+    data.set('assetId', assetId);
+    data.set('zoneId', zoneId);
+    data.set(IDEMPOTENCY_FIELD, newIdempotencyKey());
+    archiving.current = true;
+    button.disabled = true;
+    setRefusal(null);
+    try {
+      const answer = await archiveZoneAction(org, { ok: false }, data);
+      const undoZoneId = answer.ok ? answer.data?.undoZoneId : null;
+      if (!answer.ok || typeof undoZoneId !== 'string') {
+        setRefusal({ name, state: answer });
+        return;
+      }
+      if (editing === zoneId) setEditing(null);
+      // The answer may carry the refreshed page, in which this row is gone: the confirmation and its Undo go to the
+      // page-wide notice.
+      announce({
+        ok: true,
+        message: answer.message ?? `Zone "${name}" archived.`,
+        undo: {
+          label: `Undo: restore the zone ${name}`,
+          run: undoBy(restoreZoneAction.bind(null, org), { zoneId: undoZoneId }, () => router.refresh()),
+        },
+      });
+      router.refresh();
+    } finally {
+      archiving.current = false;
+      button.disabled = false;
+    }
+  };
+
+  const onClick = (event: React.MouseEvent<HTMLDivElement>) => {
+    if (!zones) return;
+    const button = (event.target as Element).closest<HTMLButtonElement>('button[data-zone-edit], button[data-zone-archive]');
+    if (!button || !rootRef.current?.contains(button)) return;
+    const editId = button.dataset.zoneEdit;
+    if (editId) {
+      setEditing((current) => (current === editId ? null : editId));
+      return;
+    }
+    void archive(button);
+  };
+
+  // Opening a zone's form moves the focus to it (its heading), so a keyboard or screen-reader user lands there.
+  useEffect(() => {
+    if (editing) editorRef.current?.focus();
+  }, [editing]);
+
   return (
-    <TableFrame label="Zones">
-      <table className="w-full text-sm" aria-label="Zones">
-        <thead className="text-xs text-ink-soft">
-          <tr className="border-b border-rule">
-            <th className="py-1 text-left font-medium">Zone</th>
-            <th className="py-1 text-left font-medium">Kind</th>
-            <th className="py-1 text-right font-medium">Area m²</th>
-            <th className="py-1 pl-3 text-left font-medium">Coating</th>
-            <th className="py-1 text-left font-medium">Environment</th>
-            <th className="py-1 text-left font-medium">Depth</th>
-            <th>
-              <span className="sr-only">Actions</span>
-            </th>
-          </tr>
-        </thead>
-        <tbody>
-          {zones.map((z) => (
-            <tr key={z.id} className="border-b border-rule align-top">
-              <td className="py-1.5">
-                {z.name}
-                {canWrite ? (
-                  <Disclosure className="mt-1" summaryClassName="cursor-pointer text-xs text-tide-600" summary="Edit">
-                    <div className="mt-2 rounded-[3px] border border-rule bg-paper p-3">
-                      <ZoneForm org={org} assetId={assetId} zone={z} />
-                    </div>
-                  </Disclosure>
-                ) : null}
-              </td>
-              <td className="py-1.5">{ZONE_KIND_LABELS[z.kind] ?? 'Other'}</td>
-              <td className="num py-1.5">{fmt(z.areaM2, 1)}</td>
-              <td className="py-1.5 pl-3">
-                {COATING_LABELS[z.coatingCategory as keyof typeof COATING_LABELS] ?? z.coatingCategory}
-                {z.coatingCategory !== 'bare' && z.coatingAgeYears ? `, ${z.coatingAgeYears} yr old` : ''}
-                {z.drainsCurrent ? ` · bare ${METAL_WORDS[z.drainsCurrent]}` : ''}
-              </td>
-              <td className="py-1.5">
-                {WATER_TYPE_LABELS[z.waterType]}, {inSentence(CLIMATE_LABELS[z.climate as keyof typeof CLIMATE_LABELS] ?? '')}
-              </td>
-              <td className="py-1.5">{DEPTH_BAND_LABELS[z.depthBand as keyof typeof DEPTH_BAND_LABELS] ?? '–'}</td>
-              <td className="py-1.5 text-right">{canWrite ? <ArchiveZoneButton org={org} assetId={assetId} zoneId={z.id} name={z.name} /> : null}</td>
-            </tr>
-          ))}
-          {!zones.length ? (
-            <tr>
-              <td colSpan={7} className="py-4 text-center text-ink-faint">
-                No zones recorded.
-              </td>
-            </tr>
-          ) : null}
-        </tbody>
-      </table>
-    </TableFrame>
+    <>
+      <div ref={rootRef} className="contents" onClick={onClick} dangerouslySetInnerHTML={{ __html: markup }} />
+      {refusal ? (
+        <p role="alert" className="mt-2 text-xs text-state-action">
+          The zone {refusal.name} was not archived{refusal.state.message ? `: ${refusal.state.message}` : '.'}
+        </p>
+      ) : null}
+      {zone ? (
+        <section ref={editorRef} id="zone-editor" tabIndex={-1} aria-label={`Edit the zone ${zone.name}`} className="mt-3 rounded-[3px] border border-rule bg-paper p-3 outline-none">
+          <div className="mb-2 flex items-center justify-between gap-3">
+            <h3 className="text-sm font-semibold text-ink">Edit the zone {zone.name}</h3>
+            <button type="button" onClick={close} className="cursor-pointer text-xs text-tide-600 hover:underline max-lg:min-h-11">
+              Close<span className="sr-only"> the zone&apos;s form</span>
+            </button>
+          </div>
+          <ZoneForm key={zone.id} org={org} assetId={assetId} zone={zone} />
+        </section>
+      ) : null}
+    </>
   );
 }

@@ -173,6 +173,22 @@ test('a new owner confirms the e-mail in one click, is guided through the first 
   await page.getByRole('button', { name: 'Add zone' }).click();
   const zoneRows = page.getByRole('table', { name: 'Zones' }).getByRole('row').filter({ hasText: 'Flat bottom' });
   await expect(zoneRows).toHaveCount(1);
+  // Edit opens the zone's form under the table; saving keeps it open with its message, and the row shows the change.
+  const edit = zoneRows.getByRole('button', { name: 'Edit the zone Flat bottom' });
+  await expect(edit).toHaveAttribute('aria-expanded', 'false');
+  await edit.click();
+  const editor = page.getByRole('region', { name: 'Edit the zone Flat bottom' });
+  await expect(editor).toBeFocused();
+  await expect(edit).toHaveAttribute('aria-expanded', 'true');
+  await expect(editor.getByLabel('Zone name')).toHaveValue('Flat bottom');
+  await editor.getByLabel('Wetted area').fill('152');
+  await editor.getByRole('button', { name: 'Save zone' }).click();
+  await expect(editor.getByRole('status')).toHaveText('Zone "Flat bottom" saved.');
+  await expect(zoneRows).toContainText('152.0');
+  await expect(zoneRows.getByRole('button', { name: 'Edit the zone Flat bottom' })).toHaveAttribute('aria-expanded', 'true');
+  await editor.getByRole('button', { name: /^Close/ }).click();
+  await expect(editor).toHaveCount(0);
+  await expect(zoneRows.getByRole('button', { name: 'Edit the zone Flat bottom' })).toBeFocused();
   page.once('dialog', (d) => d.accept());
   await zoneRows.getByRole('button', { name: 'Archive' }).click();
   await expect(page.getByTestId('notice')).toContainText('Zone "Flat bottom" archived.');

@@ -4,7 +4,7 @@ import { renderToStaticMarkup } from 'react-dom/server';
 import { SafeHtml, escapeMarkup, html } from '@/lib/figures/markup';
 import { keySwatchMarkup } from '@/components/drawings/drawing-svg';
 import { StaticHtml } from '@/components/ui/static-html';
-import { changesHtml, designsHtml, drawingListHtml, forecastTableHtml, particularsHtml, surveysHtml } from '@/components/register/asset-page-markup';
+import { changesHtml, designsHtml, drawingListHtml, forecastTableHtml, particularsHtml, surveysHtml, zonesTableHtml } from '@/components/register/asset-page-markup';
 import { StatusTag } from '@/components/ui/status-tag';
 import { statusTagHtml } from '@/components/ui/status-tag-markup';
 import { DESIGN_STATUS_TONES, STATUS_TONES } from '@/lib/status/palette';
@@ -47,6 +47,22 @@ describe("the asset page's static parts", () => {
     expect(out).toContain('Sep 2030 – later');
     expect(out).toContain('Renew at the docking of 3 Sep 2028<span class="block text-xs text-ink-soft">The deadline is near</span>');
     expect(out).not.toContain('<img');
+  });
+
+  it('the zones: every row in words, the Edit and Archive buttons only for a member who may change the register, names escaped', () => {
+    const zone = { id: 'z-1', name: HOSTILE, kind: 'hull-bottom', areaM2: 1107, coatingCategory: 'II', coatingAgeYears: 3, waterType: 'seawater', climate: 'temperate', depthBand: '0-30', drainsCurrent: 'copper-alloy' } as const;
+    const writer = zonesTableHtml([zone], true).value;
+    expect(writer).toMatch(/^<div role="region" aria-label="Zones" tabindex="0" class="relative max-w-full overflow-x-auto /);
+    expect(writer).toContain('<table class="w-full text-sm" aria-label="Zones">');
+    expect(writer).toContain(`<td class="py-1.5">${ESCAPED}<button type="button"`);
+    expect(writer).toContain('<td class="num py-1.5">1,107.0</td>');
+    expect(writer).toContain(', 3 yr old · bare copper alloy</td>');
+    expect(writer).toContain('data-zone-edit="z-1" aria-expanded="false">Edit<span class="sr-only"> the zone ');
+    expect(writer).toContain(`data-zone-archive="z-1" data-zone-name="${ESCAPED}">Archive<span class="sr-only"> the zone ${ESCAPED}</span></button>`);
+    const reader = zonesTableHtml([zone], false).value;
+    expect(reader).not.toContain('<button');
+    expect(reader).toContain(`<td class="py-1.5">${ESCAPED}</td>`);
+    expect(zonesTableHtml([], true).value).toContain('No zones recorded.');
   });
 
   it('the particulars and the history of changes', () => {

@@ -24,7 +24,7 @@ import { html } from '@/lib/figures/markup';
 import { OutlookTag } from '@/components/planner/outlook-tag';
 import { AssetDrawingPanel, DRAWING_LIST_ID } from '@/components/drawings/asset-drawing-panel';
 import { StaticHtml } from '@/components/ui/static-html';
-import { changesHtml, designsHtml, drawingListHtml, forecastTableHtml, particularsHtml, surveysHtml } from '@/components/register/asset-page-markup';
+import { changesHtml, designsHtml, drawingListHtml, forecastTableHtml, particularsHtml, surveysHtml, zonesTableHtml } from '@/components/register/asset-page-markup';
 import { keptWith } from '@/lib/server/kept-with';
 import { estimatedFrameSpacingM } from '@/lib/drawings/hull-drawing';
 import { assetFigures, figureDay, figureHref, type AssetPageData } from '@/lib/server/services/assets/asset-figures';
@@ -86,7 +86,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
         </Panel>
 
         <Panel title="Zones">
-          <ZonesTable org={org} assetId={asset.id} zones={zones} canWrite={canWrite} />
+          <ZonesTable org={org} assetId={asset.id} markup={view.zonesMarkup.value} zones={canWrite ? zones : null} />
           {canWrite ? (
             <Disclosure className="mt-3" summary="Add a zone">
               <div className="mt-3">
@@ -129,7 +129,7 @@ export default async function AssetPage({ params }: { params: Promise<{ org: str
 
 /** What the page derives from its data: the static parts' markup and the forms' choices (kept with the page). */
 function pageView(page: AssetPageData, org: string, deskLink: boolean) {
-  const { asset, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, catalogue, changes, series, drawing } = page;
+  const { asset, canWrite, zones, designs, surveys, forecasts, rows, renewalRule, marginWords, catalogue, changes, series, drawing } = page;
   const salinity = waterSalinityOf(asset);
   const surveyParticulars: [string, string | null | undefined][] = [
     ['Water salinity', salinity === null ? 'not recorded' : `${salinity} PSU${asset.waterSalinityPsu === null || asset.waterSalinityPsu === undefined ? ' (seawater, assumed)' : ''}`],
@@ -195,6 +195,7 @@ function pageView(page: AssetPageData, org: string, deskLink: boolean) {
     },
     imageHrefs,
     particularsMarkup: particularsHtml(particulars),
+    zonesMarkup: zonesTableHtml(zones, canWrite),
     designsMarkup: designsHtml(org, designs, deskLink),
     drawingListMarkup: drawing.drawing ? drawingListHtml(drawing.drawing, DRAWING_LIST_ID) : null,
     changesMarkup: changes.length ? changesHtml(changes) : null,
