@@ -74,7 +74,8 @@ export function chargeAYears(p: DemandProfile, years: number): number {
 export function yearsToCharge(p: DemandProfile, chargeAY: number): number {
   if (chargeAY <= 0) return 0;
   const slope = slopeOf(p);
-  // A constant current: q / a, the value the general form below gives for s = 0 (m = a, root = a).
+  // A constant current: q / a, the value the general form below gives for s = 0 (m = a, root = a), except where
+  // that form overflows (a above about 9e307, where a + root is infinite): q / a is right there too.
   if (slope === 0) return p.startA > 0 ? chargeAY / p.startA : Infinity;
   const atOver = slope >= 0 ? Infinity : chargeAYears(p, p.overYears);
   if (chargeAY <= atOver) {

@@ -108,8 +108,11 @@ export interface RemainingPoint {
 }
 
 /**
- * The forecast of one group. Its seven dates are read by name (they are made when first read), so
- * a spread copy leaves them out; JSON.stringify gives every field (toJSON).
+ * The forecast of one group, an object of forecastGroup's own: read its fields by name and call its
+ * methods on it. Its seven dates are getters, made when first read (the same Date on every read) and
+ * not assignable. A spread copy, Object.keys or structuredClone sees the model's internal fields and
+ * none of the dates; a method taken off the object loses it (`const { remainingFractionAt } = f`
+ * fails). JSON.stringify gives every figure and date (toJSON).
  */
 export interface GroupForecast {
   installedMassKg: number;

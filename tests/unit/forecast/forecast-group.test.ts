@@ -228,12 +228,39 @@ describe('the forecast as an object', () => {
     expect(json.ratePerYearKg).toBe(f.ratePerYearKg);
   });
 
-  it('a date that never comes is null, and stays null', () => {
-    const f = forecastGroup(zincGroup({ currentA: 0 }));
-    expect(f.endOfLife).toBeNull();
-    expect(f.renewByLate).toBeNull();
-    expect(f.endOfLife).toBeNull();
-    expect(JSON.parse(JSON.stringify(f)).endOfLife).toBeNull();
+  it('JSON gives each figure and date exactly as the forecast reads it: with and without surveys, a profile, a date that never comes', () => {
+    const cases = [
+      forecastGroup(zincGroup()),
+      forecastGroup(zincGroup({ currentA: 0 })),
+      forecastGroup(zincGroup({ renewalThresholdRemaining: 0.4, surveys: [{ date: utc('2021-01-01'), remainingFraction: 0.8 }, { date: utc('2022-06-01'), remainingFraction: 0.55 }] })),
+      forecastGroup(zincGroup({ demandProfile: { startA: 0.6, endA: 1.4, overYears: 5 }, surveys: [{ date: utc('2020-04-01'), remainingFraction: 0.97 }] })),
+    ];
+    const iso = (d: Date | null) => (d === null ? null : d.toISOString());
+    for (const f of cases) {
+      const expected: Record<string, unknown> = {
+        installedMassKg: f.installedMassKg,
+        endFraction: f.endFraction,
+        renewFraction: f.renewFraction,
+        designRatePerYearKg: f.designRatePerYearKg,
+        ratePerYearKg: f.ratePerYearKg,
+        basis: f.basis,
+        startsFrom: { date: iso(f.startsFrom.date), remainingFraction: f.startsFrom.remainingFraction },
+        spent: f.spent,
+        endOfLife: iso(f.endOfLife),
+        early: iso(f.early),
+        late: iso(f.late),
+        renewBy: iso(f.renewBy),
+        renewByEarly: iso(f.renewByEarly),
+        renewByLate: iso(f.renewByLate),
+      };
+      if (f.observedRatePerYearKg !== undefined) expected.observedRatePerYearKg = f.observedRatePerYearKg;
+      if (f.profileScale !== undefined) expected.profileScale = f.profileScale;
+      expect(JSON.parse(JSON.stringify(f))).toStrictEqual(expected);
+    }
+    // The cases differ where it matters: a date that never comes, a band, a renewal threshold above 1 - u.
+    expect(cases[1].endOfLife).toBeNull();
+    expect(cases[2].renewBy!.getTime()).toBeLessThan(cases[2].endOfLife!.getTime());
+    expect(cases[2].renewByEarly!.getTime()).toBeLessThan(cases[2].renewBy!.getTime());
   });
 });
 
