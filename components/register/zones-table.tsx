@@ -1,7 +1,6 @@
 'use client';
 import { useEffect, useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import type { ActionState } from '@/lib/server/action';
 import { announce, undoBy } from '@/components/ui/toast';
 import { IDEMPOTENCY_FIELD, newIdempotencyKey } from '@/lib/client/idempotency-key';
 import { archiveZoneAction, restoreZoneAction } from '@/app/o/[org]/assets/actions';
@@ -25,7 +24,8 @@ export function ZonesTable({ org, assetId, markup, zones }: { org: string; asset
   const rootRef = useRef<HTMLDivElement>(null);
   const editorRef = useRef<HTMLElement>(null);
   const [editing, setEditing] = useState<string | null>(null);
-  const [refusal, setRefusal] = useState<{ name: string; state: ActionState } | null>(null);
+  /** Why the last archive did not go through, as a sentence (a refusal, or no answer at all). */
+  const [refusal, setRefusal] = useState<string | null>(null);
   const archiving = useRef(false);
   const zone = zones?.find((z) => z.id === editing) ?? null;
 
@@ -61,7 +61,7 @@ export function ZonesTable({ org, assetId, markup, zones }: { org: string; asset
       const answer = await archiveZoneAction(org, { ok: false }, data);
       const undoZoneId = answer.ok ? answer.data?.undoZoneId : null;
       if (!answer.ok || typeof undoZoneId !== 'string') {
-        setRefusal({ name, state: answer });
+        setRefusal(`The zone ${name} was not archived${answer.message ? `: ${answer.message}` : '.'}`);
         return;
       }
       if (editing === zoneId) setEditing(null);
@@ -76,6 +76,8 @@ export function ZonesTable({ org, assetId, markup, zones }: { org: string; asset
         },
       });
       router.refresh();
+    } catch {
+      setRefusal(`No answer from the server on archiving the zone ${name}: reload the page to see whether it was archived.`);
     } finally {
       archiving.current = false;
       button.disabled = false;
@@ -104,7 +106,7 @@ export function ZonesTable({ org, assetId, markup, zones }: { org: string; asset
       <div ref={rootRef} className="contents" onClick={onClick} dangerouslySetInnerHTML={{ __html: markup }} />
       {refusal ? (
         <p role="alert" className="mt-2 text-xs text-state-action">
-          The zone {refusal.name} was not archived{refusal.state.message ? `: ${refusal.state.message}` : '.'}
+          {refusal}
         </p>
       ) : null}
       {zone ? (

@@ -10,13 +10,13 @@ const styles: Record<Variant, string> = {
 // Below 1024 px (phones and tablets on the quay) every button is at least 44 px high: a finger, not a pointer.
 const base = 'inline-flex items-center justify-center gap-1.5 rounded-[3px] border px-3 py-1.5 text-sm font-medium no-underline transition-colors disabled:cursor-not-allowed disabled:opacity-50 max-lg:min-h-11';
 
-/** A button's classes, for markup built outside React (the asset page's static tables). */
+/** A button's classes: Button's and ButtonLink's, and markup's built outside React (the asset page's static tables). */
 export const buttonClassName = (variant: Variant = 'primary', className = '') => `${base} ${styles[variant]} ${className}`;
 
 export function Button({ variant = 'primary', className = '', ...props }: React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
-  return <button className={`${base} ${styles[variant]} ${className}`} {...props} />;
+  return <button className={buttonClassName(variant, className)} {...props} />;
 }
 
 export function ButtonLink({ variant = 'primary', className = '', ...props }: React.ComponentProps<typeof Link> & { variant?: Variant }) {
-  return <Link className={`${base} ${styles[variant]} ${className}`} {...props} />;
+  return <Link className={buttonClassName(variant, className)} {...props} />;
 }
