@@ -18,11 +18,8 @@ export const metadata: Metadata = {
     apple: [{ url: '/apple-touch-icon.png', sizes: '180x180' }],
   },
   manifest: '/manifest.webmanifest',
-  openGraph: {
-    title: 'Tidewarden',
-    description: 'Sacrificial anodes for hulls and jetties: design, register, surveys and docking lists.',
-    images: [{ url: '/og-image.png', width: 1200, height: 630, alt: 'Tidewarden: an anode block above a rising tide' }],
-  },
+  // The social card (openGraph) is on the public pages only (PUBLIC_METADATA): a link to a signed-in page opens the
+  // sign-in page for whoever follows it, and resolving the card cost every signed-in page's render (measured).
 };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {

@@ -1,7 +1,11 @@
+import type { Metadata } from 'next';
 import Link from 'next/link';
 import { ButtonLink } from '@/components/ui/button';
 import { getCurrentUser } from '@/lib/server/auth/session';
 import { CAUTION_SENTENCE } from '@/lib/labels';
+import { PUBLIC_METADATA } from './public-metadata';
+
+export const metadata: Metadata = PUBLIC_METADATA;
 
 const STEPS = [
   {

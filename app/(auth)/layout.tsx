@@ -1,4 +1,8 @@
+import type { Metadata } from 'next';
 import Link from 'next/link';
+import { PUBLIC_METADATA } from '../public-metadata';
+
+export const metadata: Metadata = PUBLIC_METADATA;
 
 export default function AuthLayout({ children }: { children: React.ReactNode }) {
   return (

@@ -127,7 +127,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                       <Button
                         type="button"
                         variant="ghost"
-                        className="px-2 py-0.5 text-xs"
+                        className="text-xs"
                         onClick={() =>
                           setZone(i, {
                             currentDensityOverride: custom ? null : { initial: table.initial * 1000, mean: table.mean * 1000, final: table.final * 1000 },
@@ -136,7 +136,7 @@ export function ZonesTable({ inputs, update, errors, editable, vessel }: Props) 
                       >
                         {custom ? 'Use the method\'s value' : 'Enter my own value'}
                       </Button>
-                      <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => removeZone(i)} disabled={inputs.surfaces.length <= 1} aria-label={`Remove zone ${zone.name}`}>
+                      <Button type="button" variant="danger" className="text-xs" onClick={() => removeZone(i)} disabled={inputs.surfaces.length <= 1} aria-label={`Remove zone ${zone.name}`}>
                         Remove
                       </Button>
                     </>

@@ -134,6 +134,20 @@ export function drawingOverlayMarkup(view: DrawingView, titleId: string, imageHr
   return out;
 }
 
+/**
+ * drawingOverlayMarkup once per view object, title id and image address: the asset page's views belong to the page
+ * kept while its data stand (getAssetPage), so each request after the first reads the markup made for it.
+ */
+const overlays = new WeakMap<DrawingView, Map<string, string>>();
+function keptOverlayMarkup(view: DrawingView, titleId: string, imageHref: string): string {
+  let byKey = overlays.get(view);
+  if (!byKey) overlays.set(view, (byKey = new Map()));
+  const key = `${titleId} ${imageHref}`;
+  let markup = byKey.get(key);
+  if (markup === undefined) byKey.set(key, (markup = drawingOverlayMarkup(view, titleId, imageHref)));
+  return markup;
+}
+
 /** What goes inside a view's <svg>: its title, the shapes, and each group as a titled link. */
 export function drawingViewMarkup(view: DrawingView, titleId: string): string {
   let out = `<title id="${escapeMarkup(titleId)}">${escapeMarkup(view.title)}</title>`;
@@ -176,7 +190,7 @@ export function DrawingSvg({ view, imageHref, idPrefix, describedBy, className =
       aria-describedby={describedBy}
       className={`dw h-auto max-w-full ${className}`}
       data-drawing-view={view.id}
-      dangerouslySetInnerHTML={{ __html: imageHref === undefined ? drawingViewMarkup(view, titleId) : drawingOverlayMarkup(view, titleId, imageHref) }}
+      dangerouslySetInnerHTML={{ __html: imageHref === undefined ? drawingViewMarkup(view, titleId) : keptOverlayMarkup(view, titleId, imageHref) }}
     />
   );
 }

@@ -36,7 +36,7 @@ export function AcceptSuggestion({ org, assetId, date, kind }: { org: string; as
       <input type="hidden" name="assetId" value={assetId} />
       <input type="hidden" name="kind" value={kind} />
       <input type="hidden" name="plannedStart" value={date} />
-      <Button type="submit" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
+      <Button type="submit" variant="secondary" className="text-xs" disabled={pending}>
         Accept
       </Button>
       <ActionError state={state} className="ml-2" />

@@ -34,7 +34,7 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
               </option>
             ))}
           </select>
-          <Button type="submit" name="step" value="update" variant="ghost" className="px-1.5 py-0.5 text-xs" disabled={pending}>
+          <Button type="submit" name="step" value="update" variant="ghost" className="text-xs" disabled={pending}>
             Save<span className="sr-only"> quantity and docking of {row.groupLabel}</span>
           </Button>
         </>
@@ -42,24 +42,24 @@ function Steps({ org, row, dockingId, canEdit, dockings }: { org: string; row: D
         <input type="hidden" name="dockingId" value={dockingId} />
       )}
       {row.status === 'proposed' ? (
-        <Button type="submit" name="step" value="confirm" className="px-2 py-0.5 text-xs" disabled={pending} aria-label={`Confirm renewal of ${row.groupLabel}`}>
+        <Button type="submit" name="step" value="confirm" className="text-xs" disabled={pending} aria-label={`Confirm renewal of ${row.groupLabel}`}>
           Confirm
         </Button>
       ) : null}
       {row.status === 'confirmed' ? (
-        <Button type="submit" name="step" value="ordered" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
+        <Button type="submit" name="step" value="ordered" variant="secondary" className="text-xs" disabled={pending}>
           Mark ordered<span className="sr-only">: {row.groupLabel}</span>
         </Button>
       ) : null}
       {row.status === 'confirmed' || row.status === 'ordered' ? (
         <>
           <input type="date" name="fittedOn" defaultValue={today} max={today} aria-label={`Fitted on, ${row.groupLabel}`} className="rounded-[3px] border border-rule-strong px-1 py-0.5 text-xs max-lg:min-h-11" />
-          <Button type="submit" name="step" value="fitted" variant="secondary" className="px-2 py-0.5 text-xs" disabled={pending}>
+          <Button type="submit" name="step" value="fitted" variant="secondary" className="text-xs" disabled={pending}>
             Fitted<span className="sr-only">: {row.groupLabel}</span>
           </Button>
         </>
       ) : null}
-      <Button type="submit" name="step" value="cancel" variant="ghost" className="px-2 py-0.5 text-xs" disabled={pending}>
+      <Button type="submit" name="step" value="cancel" variant="ghost" className="text-xs" disabled={pending}>
         Cancel<span className="sr-only"> the renewal of {row.groupLabel}</span>
       </Button>
       <ActionError state={state} className="w-full" />

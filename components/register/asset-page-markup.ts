@@ -44,7 +44,7 @@ export function zonesTableHtml(zones: readonly AssetPage['zones'][number][], can
         DEPTH_BAND_LABELS[z.depthBand as keyof typeof DEPTH_BAND_LABELS] ?? '–'
       }</td><td class="py-1.5 text-right">${
         canWrite
-          ? html`<button type="button" class="${buttonClassName('danger', 'px-2 py-0.5 text-xs')}" data-zone-archive="${z.id}" data-zone-name="${z.name}">Archive<span class="sr-only"> the zone ${z.name}</span></button>`
+          ? html`<button type="button" class="${buttonClassName('danger', 'text-xs')}" data-zone-archive="${z.id}" data-zone-name="${z.name}">Archive<span class="sr-only"> the zone ${z.name}</span></button>`
           : null
       }</td></tr>`,
   )}${!zones.length ? html`<tr><td colspan="7" class="py-4 text-center text-ink-faint">No zones recorded.</td></tr>` : null}</tbody></table>`;

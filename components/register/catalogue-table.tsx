@@ -43,7 +43,7 @@ function ArchiveButton({ org, model }: { org: string; model: CatalogueModel }) {
     <form action={action}>
       <input type="hidden" name="modelId" value={model.id} />
       <input type="hidden" name="archive" value={model.archived ? '0' : '1'} />
-      <Button type="submit" variant="ghost" className="px-1 py-0 text-xs" disabled={pending}>
+      <Button type="submit" variant="ghost" className="text-xs" disabled={pending}>
         {model.archived ? 'Restore' : 'Archive'}
         <span className="sr-only"> {model.designation}</span>
       </Button>

@@ -18,7 +18,7 @@ export function OrgNav({ items }: { items: NavItem[] }) {
             key={item.href}
             href={item.href}
             aria-current={active ? 'page' : undefined}
-            className={`flex items-center rounded-[3px] px-2.5 py-1.5 text-sm max-lg:min-h-11 ${active ? 'bg-tide-600 font-medium text-white' : 'text-tide-100 hover:bg-tide-700'}`}
+            className={`nav-link ${active ? 'bg-tide-600 font-medium text-white' : 'text-tide-100 hover:bg-tide-700'}`}
           >
             {item.label}
           </Link>

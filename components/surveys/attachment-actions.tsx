@@ -36,17 +36,17 @@ export function AttachmentActions({ org, surveyId, attachment }: { org: string; 
           <input type="hidden" name="attachmentId" value={attachment.id} />
           <Field label="Caption" {...form.field('caption', attachment.caption ?? '')} />
           <span className="flex gap-1">
-            <Button type="submit" variant="secondary" className="px-2 py-0.5 text-xs" disabled={form.pending}>
+            <Button type="submit" variant="secondary" className="text-xs" disabled={form.pending}>
               Save
             </Button>
-            <Button type="button" variant="ghost" className="px-2 py-0.5 text-xs" onClick={() => setEditing(false)}>
+            <Button type="button" variant="ghost" className="text-xs" onClick={() => setEditing(false)}>
               Close
             </Button>
           </span>
         </ActionForm>
       ) : (
         <span className="flex flex-wrap gap-1">
-          <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setEditing(true)}>
+          <Button type="button" variant="secondary" className="text-xs" onClick={() => setEditing(true)}>
             Edit caption
           </Button>
           <ConfirmDelete action={deleteWithUndo} fields={{ surveyId, attachmentId: attachment.id }} what={attachment.filename} consequence={`You can undo it for ${UNDO_SECONDS} seconds.`} />

@@ -29,7 +29,7 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
   if (!asking) {
     return (
       <span ref={box} className="inline-flex items-center gap-2">
-        <Button type="button" variant="danger" className="px-2 py-0.5 text-xs" onClick={() => ask(true)}>
+        <Button type="button" variant="danger" className="text-xs" onClick={() => ask(true)}>
           {label}
           {/* Named for what it deletes: a row of "Delete" buttons reads as "Delete the reading at DS-4", … */}
           {label === 'Delete' ? <span className="sr-only"> {what}</span> : null}
@@ -56,10 +56,10 @@ export function ConfirmDelete({ action, fields, what, consequence, label = 'Dele
       <span>
         Delete {what}? {consequence}
       </span>
-      <Button type="submit" variant="danger" className="px-2 py-0.5 text-xs" disabled={pending}>
+      <Button type="submit" variant="danger" className="text-xs" disabled={pending}>
         Yes, delete
       </Button>
-      <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => ask(false)}>
+      <Button type="button" variant="secondary" className="text-xs" onClick={() => ask(false)}>
         Keep it
       </Button>
       <ActionError state={state} />

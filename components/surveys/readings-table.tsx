@@ -98,7 +98,7 @@ export function ReadingsTable({ readings, editing }: { readings: Reading[]; edit
         header: () => <span className="sr-only">Correct</span>,
         cell: (c) => (
           <span className="inline-flex flex-wrap items-center gap-2">
-            <Button type="button" variant="secondary" className="px-2 py-0.5 text-xs" onClick={() => setOpenId(c.row.original.id)} aria-label={`Edit the reading at ${c.row.original.location}`}>
+            <Button type="button" variant="secondary" className="text-xs" onClick={() => setOpenId(c.row.original.id)} aria-label={`Edit the reading at ${c.row.original.location}`}>
               Edit
             </Button>
             <ConfirmDelete

@@ -40,7 +40,7 @@ function RoleCell({ org, member, onSaved }: { org: string; member: TeamMember; o
           </option>
         ))}
       </select>
-      <Button type="submit" variant="secondary" disabled={pending || role === member.role} className="px-2 py-0.5 text-xs" aria-label={`Save the role of ${member.email}`}>
+      <Button type="submit" variant="secondary" disabled={pending || role === member.role} className="text-xs" aria-label={`Save the role of ${member.email}`}>
         Save
       </Button>
       <ActionError state={state} />
@@ -65,7 +65,7 @@ function RemoveCell({ org, member, onRemoved }: { org: string; member: TeamMembe
       }}
     >
       <input type="hidden" name="membershipId" value={member.id} />
-      <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs" aria-label={`Remove ${member.name} (${member.email})`}>
+      <Button type="submit" variant="danger" disabled={pending} className="text-xs" aria-label={`Remove ${member.name} (${member.email})`}>
         Remove
       </Button>
       <ActionError state={state} className="ml-1" />
@@ -79,7 +79,7 @@ function RevokeCell({ org, invitation }: { org: string; invitation: TeamInvitati
   return (
     <form action={action} onSubmit={(e) => rememberList(e.currentTarget)}>
       <input type="hidden" name="invitationId" value={invitation.id} />
-      <Button type="submit" variant="danger" disabled={pending} className="px-2 py-0.5 text-xs">
+      <Button type="submit" variant="danger" disabled={pending} className="text-xs">
         Withdraw<span className="sr-only"> the invitation to {invitation.email}</span>
       </Button>
     </form>

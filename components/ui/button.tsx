@@ -7,11 +7,12 @@ const styles: Record<Variant, string> = {
   danger: 'bg-paper-raised text-state-action hover:bg-state-actionbg border-state-action/50',
   ghost: 'bg-transparent text-tide-600 hover:bg-tide-50 border-transparent',
 };
-// Below 1024 px (phones and tablets on the quay) every button is at least 44 px high: a finger, not a pointer.
-const base = 'inline-flex items-center justify-center gap-1.5 rounded-[3px] border px-3 py-1.5 text-sm font-medium no-underline transition-colors disabled:cursor-not-allowed disabled:opacity-50 max-lg:min-h-11';
 
-/** A button's classes: Button's and ButtonLink's, and markup's built outside React (the asset page's static tables). */
-export const buttonClassName = (variant: Variant = 'primary', className = '') => `${base} ${styles[variant]} ${className}`;
+/**
+ * A button's classes: Button's and ButtonLink's, and markup's built outside React (the asset page's static tables).
+ * The shape is app/globals.css's .btn (a phone's buttons are at least 44 px high); a smaller button adds text-xs.
+ */
+export const buttonClassName = (variant: Variant = 'primary', className = '') => `btn ${styles[variant]} ${className}`;
 
 export function Button({ variant = 'primary', className = '', ...props }: React.ButtonHTMLAttributes<HTMLButtonElement> & { variant?: Variant }) {
   return <button className={buttonClassName(variant, className)} {...props} />;

@@ -2,14 +2,14 @@ import { CAUTION_SENTENCE } from '@/lib/labels';
 
 export function Panel({ title, actions, children, className = '' }: { title?: React.ReactNode; actions?: React.ReactNode; children: React.ReactNode; className?: string }) {
   return (
-    <section className={`min-w-0 rounded-[4px] border border-rule bg-paper-raised ${className}`}>
+    <section className={`panel ${className}`}>
       {title || actions ? (
-        <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2 border-b border-rule px-3 py-2.5 sm:px-4">
-          <h2 className="text-sm font-semibold tracking-wide text-ink">{title}</h2>
+        <header className="panel-head">
+          <h2 className="panel-title">{title}</h2>
           {actions}
         </header>
       ) : null}
-      <div className="p-3 sm:p-4">{children}</div>
+      <div className="panel-body">{children}</div>
     </section>
   );
 }

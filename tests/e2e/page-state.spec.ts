@@ -210,7 +210,7 @@ test('a new owner confirms the e-mail in one click, is guided through the first 
   await expect(page).toHaveURL(fleet);
 });
 
-test("Tidewarden's own icons and social image are served to anyone and named in every page's head", async ({ page, request }) => {
+test("Tidewarden's own icons and social image are served to anyone; every page's head names the icons, the public pages' the social card", async ({ page, request }) => {
   for (const [path, type] of [
     ['/favicon.ico', /image\/(x-icon|vnd\.microsoft\.icon)/],
     ['/icon.svg', /image\/svg\+xml/],
@@ -225,10 +225,22 @@ test("Tidewarden's own icons and social image are served to anyone and named in 
     expect(response.status(), path).toBe(200);
     expect(response.headers()['content-type'], path).toMatch(type);
   }
-  await page.goto('/sign-in');
+  // The public pages carry the social card; every page names the icons and the manifest.
+  for (const path of ['/', '/sign-in', '/sign-up']) {
+    await page.goto(path);
+    await expect(page.locator('link[rel="icon"][href^="/favicon.ico"]'), path).toHaveCount(1);
+    await expect(page.locator('link[rel="apple-touch-icon"]'), path).toHaveAttribute('href', /\/apple-touch-icon\.png/);
+    await expect(page.locator('link[rel="manifest"]'), path).toHaveAttribute('href', '/manifest.webmanifest');
+    await expect(page.locator('meta[property="og:image"]'), path).toHaveAttribute('content', /\/og-image\.png$/);
+    await expect(page.locator('meta[property="og:title"]'), path).toHaveAttribute('content', 'Tidewarden');
+  }
+  // A signed-in page: the icons and the manifest (the phone's installed app), no social card (whoever follows a
+  // link to it gets the sign-in page, which has one).
+  await signIn(page, demoUser('viewer').email);
+  await page.goto(`/o/${demo.organisation.slug}`);
   await expect(page.locator('link[rel="icon"][href^="/favicon.ico"]')).toHaveCount(1);
-  await expect(page.locator('link[rel="apple-touch-icon"]')).toHaveAttribute('href', /\/apple-touch-icon\.png/);
-  await expect(page.locator('meta[property="og:image"]')).toHaveAttribute('content', /\/og-image\.png$/);
+  await expect(page.locator('link[rel="manifest"]')).toHaveAttribute('href', '/manifest.webmanifest');
+  await expect(page.locator('meta[property="og:image"]')).toHaveCount(0);
 });
 
 // Against zinc, +0.20 V on steel is protected (zinc about -1.05 V vs Ag/AgCl/seawater; as in surveys-corrections.spec.ts, common practice).

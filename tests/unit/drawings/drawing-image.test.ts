@@ -98,6 +98,21 @@ describe('the links over the image', () => {
     expect(inline).not.toContain('<image ');
   });
 
+  it('keeps the markup of a view drawn from its image for that view, title and address only', () => {
+    const render = (imageHref: string, idPrefix = 'drawing-port') => renderToStaticMarkup(createElement(DrawingSvg, { view: port, imageHref, idPrefix }));
+    const first = render('/a.svg?v=1');
+    expect(render('/a.svg?v=1')).toBe(first);
+    // A new version of the image, or another title id: its own markup, never the one kept before.
+    const next = render('/a.svg?v=2');
+    expect(next).toContain('href="/a.svg?v=2"');
+    expect(next).not.toContain('v=1');
+    expect(render('/a.svg?v=1', 'drawing-other')).toContain('id="drawing-other-title"');
+    // Another view object (the data changed): drawn from that view.
+    const renamed = { ...port, title: 'Port side, redrawn' };
+    expect(renderToStaticMarkup(createElement(DrawingSvg, { view: renamed, imageHref: '/a.svg?v=1', idPrefix: 'drawing-port' }))).toContain('>Port side, redrawn</title>');
+    expect(render('/a.svg?v=1')).toBe(first);
+  });
+
   it('links each pile of a plan to its elevation, over its symbol and its reading marker', () => {
     const grid = { rows: 2, bents: 3 };
     const plan = pilePlanView('Plan', grid, pileStates(grid, [{ id: 'p', label: 'P', quantity: 2, position: parsePosition('bent 2 row B', 'structure'), remainingFraction: 0.5 }], [{ location: 'B2-B', position: parsePosition('bent 2 row B', 'structure'), words: '-0.80 V, protected' }]));

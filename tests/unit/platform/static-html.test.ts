@@ -39,7 +39,7 @@ describe("the asset page's static parts", () => {
 
   it('the forecast table: its frame, headings and a row in words, the label escaped', () => {
     const out = forecastTableHtml([row]).value;
-    expect(out).toMatch(/^<div role="region" aria-label="Forecast by group" tabindex="0" class="relative max-w-full overflow-x-auto /);
+    expect(out).toMatch(/^<div role="region" aria-label="Forecast by group" tabindex="0" class="table-frame table-frame-min table-frame-sticky table-frame-head-raised /);
     expect(out).toContain('<table class="mt-3 w-full min-w-[56rem] text-sm" aria-label="Forecast by group">');
     expect(out).toContain(`<td class="py-1">${ESCAPED}</td>`);
     expect(out).toContain('<td class="num py-1">92.4 kg</td><td class="num py-1">12.3 kg/yr</td>');
@@ -52,7 +52,7 @@ describe("the asset page's static parts", () => {
   it('the zones: every row in words, the Edit and Archive buttons only for a member who may change the register, names escaped', () => {
     const zone = { id: 'z-1', name: HOSTILE, kind: 'hull-bottom', areaM2: 1107, coatingCategory: 'II', coatingAgeYears: 3, waterType: 'seawater', climate: 'temperate', depthBand: '0-30', drainsCurrent: 'copper-alloy' } as const;
     const writer = zonesTableHtml([zone], true).value;
-    expect(writer).toMatch(/^<div role="region" aria-label="Zones" tabindex="0" class="relative max-w-full overflow-x-auto /);
+    expect(writer).toMatch(/^<div role="region" aria-label="Zones" tabindex="0" class="table-frame table-frame-min table-frame-sticky table-frame-head-raised /);
     expect(writer).toContain('<table class="w-full text-sm" aria-label="Zones">');
     expect(writer).toContain(`<td class="py-1.5">${ESCAPED}<button type="button"`);
     expect(writer).toContain('<td class="num py-1.5">1,107.0</td>');
