@@ -59,21 +59,21 @@ export function ZonesTable({ org, assetId, markup, zones }: { org: string; asset
     setRefusal(null);
     try {
       const answer = await archiveZoneAction(org, { ok: false }, data);
-      const undoZoneId = answer.ok ? answer.data?.undoZoneId : null;
-      if (!answer.ok || typeof undoZoneId !== 'string') {
+      if (!answer.ok) {
         setRefusal(`The zone ${name} was not archived${answer.message ? `: ${answer.message}` : '.'}`);
         return;
       }
       if (editing === zoneId) setEditing(null);
+      const undoZoneId = answer.data?.undoZoneId;
       // The answer may carry the refreshed page, in which this row is gone: the confirmation and its Undo go to the
       // page-wide notice.
       announce({
         ok: true,
         message: answer.message ?? `Zone "${name}" archived.`,
-        undo: {
-          label: `Undo: restore the zone ${name}`,
-          run: undoBy(restoreZoneAction.bind(null, org), { zoneId: undoZoneId }, () => router.refresh()),
-        },
+        undo:
+          typeof undoZoneId === 'string'
+            ? { label: `Undo: restore the zone ${name}`, run: undoBy(restoreZoneAction.bind(null, org), { zoneId: undoZoneId }, () => router.refresh()) }
+            : undefined,
       });
       router.refresh();
     } catch {

@@ -11,6 +11,7 @@ import {
   type RenewalOptions,
 } from '@/lib/forecast';
 import { benchFleet, seededRandom } from '@/tests/fixtures/bench-data';
+import { forecastFigures } from '@/tests/fixtures/forecast-fields';
 
 // Pins the exact outputs of forecastGroup and the renewal scheduler (every forecast field, its
 // methods sampled, every proposal and every sentence) over seeded fleets and seeded edge cases, as
@@ -39,34 +40,9 @@ function canonical(value: unknown): string {
   return `?${String(value)}`;
 }
 
-/**
- * Every field and method of a GroupForecast as an own property, by name: its dates are getters
- * (made when first read), which neither a spread nor Object.keys sees. The two optional figures are
- * present only when the forecast has them, as they always were.
- */
+/** Every field and method of a GroupForecast as an own property, by name (forecastFigures and the three methods). */
 function forecastFields(f: GroupForecast): Record<string, unknown> {
-  const out: Record<string, unknown> = {
-    installedMassKg: f.installedMassKg,
-    endFraction: f.endFraction,
-    renewFraction: f.renewFraction,
-    designRatePerYearKg: f.designRatePerYearKg,
-    ratePerYearKg: f.ratePerYearKg,
-    basis: f.basis,
-    startsFrom: f.startsFrom,
-    spent: f.spent,
-    endOfLife: f.endOfLife,
-    early: f.early,
-    late: f.late,
-    renewBy: f.renewBy,
-    renewByEarly: f.renewByEarly,
-    renewByLate: f.renewByLate,
-    remainingFractionAt: f.remainingFractionAt,
-    remainingMassKgAt: f.remainingMassKgAt,
-    remainingSeries: f.remainingSeries,
-  };
-  if (f.observedRatePerYearKg !== undefined) out.observedRatePerYearKg = f.observedRatePerYearKg;
-  if (f.profileScale !== undefined) out.profileScale = f.profileScale;
-  return out;
+  return { ...forecastFigures(f), remainingFractionAt: f.remainingFractionAt, remainingMassKgAt: f.remainingMassKgAt, remainingSeries: f.remainingSeries };
 }
 
 const digest = (parts: string[]) => createHash('sha256').update(parts.join('\n')).digest('hex');
